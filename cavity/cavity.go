@@ -1,0 +1,180 @@
+package cavity
+
+import (
+	"fmt"
+	"math"
+
+	"cylcav/physics"
+	"cylcav/physics/bessel"
+)
+
+// Cavity is a closed circular cylinder of radius Radius and length Length
+// (metres) with perfectly conducting walls, homogeneously filled with a
+// medium of relative permittivity EpsR and relative permeability MuR.
+//
+// The zero value of EpsR or MuR means 1 (vacuum), so Cavity{Radius: a,
+// Length: d} is an empty cavity.
+type Cavity struct {
+	Radius, Length float64
+	EpsR, MuR      float64
+}
+
+// Size limits accepted by Validate. They exclude typing slips (a length in
+// micrometres entered as metres) while covering every practical cavity from
+// millimetre-wave resonators to large accelerator cells.
+const (
+	MinSize = 1e-6 // m
+	MaxSize = 1e3  // m
+)
+
+// Fill limits accepted by Validate; they match the material parser of
+// package physics. A relative permeability below 1 occurs in magnetised
+// ferrites above resonance and in diamagnetic media.
+const (
+	MinEpsR, MaxEpsR = 1, 1e4
+	MinMuR, MaxMuR   = 1e-3, 1e5
+)
+
+// Fill is the homogeneous medium inside a cavity. The zero value of either
+// field means 1, so the zero Fill is vacuum (and, to the accuracy of any
+// cavity calculation here, dry air).
+type Fill struct {
+	EpsR, MuR float64
+}
+
+// Validate reports whether the fill is physical: MinEpsR <= EpsR <= MaxEpsR
+// and MinMuR <= MuR <= MaxMuR, zero meaning 1.
+func (f Fill) Validate() error {
+	for _, q := range []struct {
+		name   string
+		v      float64
+		lo, hi float64
+	}{{"eps_r", f.EpsR, MinEpsR, MaxEpsR}, {"mu_r", f.MuR, MinMuR, MaxMuR}} {
+		if q.v == 0 {
+			continue
+		}
+		if !(q.v >= q.lo && q.v <= q.hi) {
+			return fmt.Errorf("cavity: %s must be in %g..%g, got %g", q.name, q.lo, q.hi, q.v)
+		}
+	}
+	return nil
+}
+
+// Index returns the fill's refractive index sqrt(mu_r eps_r), zero fields
+// counting as 1.
+func (f Fill) Index() float64 {
+	e, u := f.EpsR, f.MuR
+	if e == 0 {
+		e = 1
+	}
+	if u == 0 {
+		u = 1
+	}
+	return math.Sqrt(e * u)
+}
+
+// Fill returns the cavity's filling medium.
+func (c Cavity) Fill() Fill { return Fill{EpsR: c.EpsR, MuR: c.MuR} }
+
+// Validate reports whether the cavity's dimensions and fill are finite and
+// physical: MinSize <= Radius, Length <= MaxSize, and the fill as in
+// Fill.Validate.
+func (c Cavity) Validate() error {
+	if err := checkSize("radius", c.Radius); err != nil {
+		return err
+	}
+	if err := checkSize("length", c.Length); err != nil {
+		return err
+	}
+	return c.Fill().Validate()
+}
+
+func checkSize(name string, v float64) error {
+	if !(v >= MinSize && v <= MaxSize) {
+		return fmt.Errorf("cavity: %s must be in %g..%g m, got %g m", name, MinSize, MaxSize, v)
+	}
+	return nil
+}
+
+// Diameter returns 2 Radius.
+func (c Cavity) Diameter() float64 { return 2 * c.Radius }
+
+// Volume returns the cavity volume pi a^2 d in m^3.
+func (c Cavity) Volume() float64 { return math.Pi * c.Radius * c.Radius * c.Length }
+
+// Root returns the Bessel zero x that sets the transverse wavenumber x/a of
+// mode m: j'_{n,m} (the m-th positive zero of J'_n) for TE and j_{n,m} (the
+// m-th positive zero of J_n) for TM. Accuracy is that of package
+// physics/bessel (relative error below about 1e-14).
+//
+// Because J'_0 = -J_1 (DLMF 10.6.3), j'_{0,m} = j_{1,m}; Root returns the
+// very same float64 for TE0mp and TM1mp (both from JZeros(1, ...)), so the
+// two modes have bit-identical frequencies everywhere in cylcav.
+//
+// Root costs O(m) (the zeros of one order come as a table). It panics if m
+// is not a valid mode; call m.Validate first on user input.
+func (m Mode) Root() float64 {
+	if err := m.Validate(); err != nil {
+		panic(err)
+	}
+	return root(m.Family, m.N, m.M)
+}
+
+// root returns j'_{n,m} (TE) or j_{n,m} (TM) for valid indices.
+func root(f Family, n, m int) float64 {
+	if f == TE {
+		if n == 0 {
+			return bessel.JZeros(1, m)[m-1] // j'_{0,m} = j_{1,m}, DLMF 10.6.3
+		}
+		return bessel.JPrimeZeros(n, m)[m-1]
+	}
+	return bessel.JZeros(n, m)[m-1]
+}
+
+// scale returns c / (2 pi sqrt(mu_r eps_r)), the factor that turns a total
+// wavenumber in rad/m into a frequency in Hz.
+func (c Cavity) scale() float64 {
+	return physics.SpeedOfLight / (2 * math.Pi * c.Fill().Index())
+}
+
+// frequency is the single implementation of the resonance formula
+//
+//	f = c / (2 pi sqrt(mu_r eps_r)) * sqrt((x/a)^2 + (p pi/d)^2)
+//
+// (Pozar, Microwave Engineering, 4th ed., sec. 6.7, resonant frequencies
+// of the TE_nmp and TM_nmp modes; Harrington, Time-Harmonic Electromagnetic
+// Fields, sec. 5.3). Every frequency in this package goes through it, so equal
+// inputs give bit-equal outputs; the explicit float64 conversions forbid
+// fused multiply-adds (Go spec, "Arithmetic operators"), which could
+// otherwise round differently at different call sites.
+func frequency(scale, x, radius float64, p int, length float64) float64 {
+	kc := x / radius
+	beta := float64(p) * math.Pi / length
+	return scale * math.Sqrt(float64(kc*kc)+float64(beta*beta))
+}
+
+// Frequency returns the resonant frequency in Hz of mode m:
+//
+//	f = c / (2 pi sqrt(mu_r eps_r)) * sqrt((x/a)^2 + (p pi/d)^2)
+//
+// with x = j'_nm for TE and j_nm for TM (Pozar, Microwave Engineering, 4th
+// ed., sec. 6.7; Harrington, Time-Harmonic Electromagnetic Fields, sec.
+// 5.3). The value is bit-identical to the one Modes and Lowest list for the
+// same mode. Relative accuracy is about 1e-15 beyond that of the Bessel
+// zero. It panics if m is not a valid mode (see Mode.Validate); the cavity
+// itself is not checked.
+func (c Cavity) Frequency(m Mode) float64 {
+	return frequency(c.scale(), m.Root(), c.Radius, m.P, c.Length)
+}
+
+// Wavenumbers returns, for mode m in cavity c, the transverse wavenumber
+// kc = x/a, the axial wavenumber beta = p pi/d and the total wavenumber
+// k = sqrt(kc^2 + beta^2) in the fill, all in rad/m (Pozar, Microwave
+// Engineering, 4th ed., sec. 6.7). The free-space wavenumber is k divided
+// by sqrt(mu_r eps_r), and k = 2 pi f sqrt(mu_r eps_r)/c at the resonance.
+// It panics if m is not a valid mode.
+func (c Cavity) Wavenumbers(m Mode) (kc, beta, k float64) {
+	kc = m.Root() / c.Radius
+	beta = float64(m.P) * math.Pi / c.Length
+	return kc, beta, math.Sqrt(float64(kc*kc) + float64(beta*beta))
+}

@@ -1,0 +1,900 @@
+package cavity
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+
+	"cylcav/physics"
+)
+
+// Objective selects what Optimize maximises.
+type Objective uint8
+
+const (
+	// MaxClearance maximises the clearance of the wanted mode (the zero
+	// value).
+	MaxClearance Objective = iota
+	// MaxQ maximises the unloaded Q subject to DesignSpec.MinClearance.
+	MaxQ
+)
+
+// String returns "clearance" or "q".
+func (o Objective) String() string {
+	switch o {
+	case MaxClearance:
+		return "clearance"
+	case MaxQ:
+		return "q"
+	}
+	return fmt.Sprintf("Objective(%d)", uint8(o))
+}
+
+// Thermal describes how a cavity's dimensions and fill change with
+// temperature, in the linear model D(T) = D0 (1 + AlphaRadial (T - TRef)),
+// L(T) = L0 (1 + AlphaAxial (T - TRef)), eps(T) = eps0 (1 + TauEps (T -
+// TRef)). The zero value is a cavity that does not change and no
+// temperature range.
+type Thermal struct {
+	// AlphaRadial is the linear expansion coefficient of the side wall
+	// (it sets the diameter), 1/K.
+	AlphaRadial float64
+	// AlphaAxial is that of whatever sets the length (end spacers, the
+	// tuning rod), 1/K.
+	AlphaAxial float64
+	// TauEps is the fill's temperature coefficient of permittivity
+	// (1/eps) d eps/dT, 1/K.
+	TauEps float64
+	// TMin and TMax bound the operating temperature range in K; both zero
+	// means no range (only the sensitivities use the coefficients).
+	TMin, TMax float64
+	// TRef is the temperature at which the design frequency holds, K; zero
+	// means the middle of TMin..TMax.
+	TRef float64
+}
+
+// hasRange reports whether a temperature range is set.
+func (t Thermal) hasRange() bool { return t.TMin != 0 || t.TMax != 0 }
+
+// ref returns the reference temperature.
+func (t Thermal) ref() float64 {
+	if t.TRef != 0 {
+		return t.TRef
+	}
+	return 0.5 * (t.TMin + t.TMax)
+}
+
+// Validate reports whether the coefficients are finite and within +-1e-3
+// 1/K, and the range, if any, is ordered within 1..3000 K with a positive
+// reference temperature and every 1 + alpha dT > 0.
+func (t Thermal) Validate() error {
+	for _, q := range []struct {
+		name string
+		v    float64
+	}{{"radial expansion coefficient", t.AlphaRadial}, {"axial expansion coefficient", t.AlphaAxial}, {"temperature coefficient of eps", t.TauEps}} {
+		if !(math.Abs(q.v) <= 1e-3) {
+			return fmt.Errorf("cavity: %s must be within +-1e-3 1/K, got %g 1/K", q.name, q.v)
+		}
+	}
+	if !t.hasRange() {
+		return nil
+	}
+	if !(t.TMin >= 1 && t.TMax <= 3000 && t.TMin <= t.TMax) {
+		return fmt.Errorf("cavity: temperature range must satisfy 1 K <= TMin <= TMax <= 3000 K, got %g K..%g K", t.TMin, t.TMax)
+	}
+	if r := t.TRef; r != 0 && !(r >= 1 && r <= 3000) {
+		return fmt.Errorf("cavity: reference temperature must be in 1..3000 K, got %g K", r)
+	}
+	for _, T := range []float64{t.TMin, t.TMax} {
+		dT := T - t.ref()
+		if 1+t.AlphaRadial*dT <= 0 || 1+t.AlphaAxial*dT <= 0 || 1+t.TauEps*dT <= 0 {
+			return fmt.Errorf("cavity: the linear thermal model breaks down %g K away from the reference temperature", dT)
+		}
+	}
+	return nil
+}
+
+// ratioScale returns the factor kappa(T) = (1 + alpha_r dT)/(1 + alpha_z dT)
+// by which D/L changes from the reference temperature to T (derived from
+// the linear model).
+func (t Thermal) ratioScale(T float64) float64 {
+	dT := T - t.ref()
+	return (1 + t.AlphaRadial*dT) / (1 + t.AlphaAxial*dT)
+}
+
+// DesignSpec is a design problem for Optimize. Zero values of optional
+// fields mean "no constraint" or the stated default.
+type DesignSpec struct {
+	Mode      Mode    // wanted mode
+	Frequency float64 // wanted frequency at the reference temperature, Hz
+	Fill      Fill    // homogeneous fill
+
+	// RatioMin and RatioMax bound D/L; both zero means DefaultRatioMin..
+	// DefaultRatioMax. They must lie in MinDesignRatio..MaxDesignRatio.
+	RatioMin, RatioMax float64
+
+	Objective Objective
+	// MinClearance is the least acceptable clearance (fraction, 0.03 for
+	// 3 %), held along the whole tuning and temperature path. Zero means
+	// none for MaxClearance; MaxQ treats it as the constraint.
+	MinClearance float64
+	// MinQ is the least acceptable unloaded Q; zero means none. It needs Q.
+	MinQ float64
+	// Q returns the unloaded Q of the wanted mode of a cavity. It is needed
+	// by MaxQ and MinQ and optional otherwise (it fills Design.Q0 and the
+	// Q0 curve). Package cavity does not compute Q; callers pass a closure
+	// (package qfactor provides one).
+	Q func(Cavity) (float64, error)
+
+	// MaxDiameter and MaxLength bound the size, m; zero means none.
+	// MaxLength holds at the longest point of the tuning path.
+	MaxDiameter, MaxLength float64
+
+	// Tuning is the tuning range as a fraction: the wanted mode must be
+	// tunable over f (1 +- Tuning) by moving one end plate (the diameter
+	// fixed), keeping the clearance along the whole path. Zero means none.
+	// It needs p >= 1.
+	Tuning float64
+
+	// Thermal gives the expansion coefficients and the temperature range;
+	// the clearance must then hold over the range too.
+	Thermal Thermal
+
+	// CountDegenerate counts the exact companion as a spurious mode (see
+	// ClearanceOptions).
+	CountDegenerate bool
+
+	// CurvePoints is the number of grid points of the trade-off curves
+	// (exact breakpoints are added); zero means 121.
+	CurvePoints int
+
+	// Tolerance, when Tolerance.Samples > 0, runs MonteCarlo at the design.
+	Tolerance Tolerance
+}
+
+// Default and limiting ratio ranges of Optimize.
+const (
+	DefaultRatioMin = 0.5
+	DefaultRatioMax = 3.0
+	MinDesignRatio  = 0.01
+	MaxDesignRatio  = 100.0
+	MaxTuning       = 0.5
+)
+
+// Limit names the bound that holds a design's optimum, if any.
+type Limit string
+
+// The bounds that can hold an optimum.
+const (
+	NoLimit           Limit = ""
+	LimitRatioMin     Limit = "ratio-min"
+	LimitRatioMax     Limit = "ratio-max"
+	LimitDiameter     Limit = "max-diameter"
+	LimitLength       Limit = "max-length"
+	LimitTuning       Limit = "tuning"
+	LimitMinQ         Limit = "min-q"
+	LimitMinClearance Limit = "min-clearance"
+)
+
+// TradeOff holds the curves of a design problem against D/L, for plotting:
+// parallel slices, sorted by Ratio, with the exact breakpoints (mode
+// crossings, the optimum) among the grid points. Q0 is NaN everywhere when
+// no Q function was given.
+type TradeOff struct {
+	Ratio          []float64 // D/L
+	Diameter       []float64 // m, for the design frequency
+	Length         []float64 // m
+	Clearance      []float64 // at the nominal dimensions, fraction
+	WorstClearance []float64 // along the tuning and temperature path, fraction
+	Q0             []float64
+}
+
+// Design is the result of Optimize.
+type Design struct {
+	Spec   DesignSpec // the problem, defaults filled in
+	Cavity Cavity     // recommended dimensions
+	Ratio  float64    // D/L
+
+	// Clearance is the spectrum at the nominal dimensions: clearance,
+	// nearest modes, companion.
+	Clearance Clearance
+	// WorstClearance is the clearance at the worst point of the tuning
+	// and temperature path (equal to Clearance.Value without either), and
+	// WorstMode the mode that sets it.
+	WorstClearance float64
+	WorstMode      Mode
+
+	// AtRangeEdge is true when the optimum sits on an end of the allowed
+	// D/L range (the given range narrowed by the size limits and the
+	// tuning); Limit names the bound that holds it (also min-q and
+	// min-clearance, which are not range ends).
+	AtRangeEdge bool
+	Limit       Limit
+	// AllowedRatio is the allowed D/L range.
+	AllowedRatio [2]float64
+	// Plateau is the D/L range over which the optimal clearance is
+	// attained; its ends are equal when the optimum is a single point.
+	Plateau [2]float64
+
+	Q0          float64 // NaN without a Q function
+	Sensitivity Sensitivity
+	// TunedLength holds the lengths at f (1 - Tuning) and f (1 + Tuning);
+	// zero without tuning.
+	TunedLength [2]float64
+	// Drift holds f(TMin) - f and f(TMax) - f in Hz; zero without a range.
+	Drift [2]float64
+	// Spread is the Monte Carlo result; nil without a tolerance.
+	Spread *Spread
+	Curve  TradeOff
+}
+
+// InfeasibleError reports a design problem with no solution and what was
+// achievable instead. It matches ErrInfeasible under errors.Is.
+type InfeasibleError struct {
+	Need       string  // the requirement that cannot be met
+	Achievable string  // what the allowed range offers instead
+	Ratio      float64 // D/L of the best achievable point, or NaN
+	Clearance  float64 // best achievable clearance, or NaN
+	Q0         float64 // best achievable Q0, or NaN
+}
+
+func (e *InfeasibleError) Error() string {
+	return "cavity: no design meets " + e.Need + "; " + e.Achievable
+}
+
+// Is reports whether target is ErrInfeasible.
+func (e *InfeasibleError) Is(target error) bool { return target == ErrInfeasible }
+
+// problem is a validated DesignSpec with its derived quantities.
+type problem struct {
+	spec  DesignSpec
+	w     chartMode
+	kf    float64 // wavenumber in the fill at the design frequency, rad/m
+	a0    float64 // gx_w / gp_w, or 0 when p = 0
+	path  path
+	full  interval // user ratio range, as s
+	kmin  float64
+	kmax  float64
+	limLo Limit
+	limHi Limit
+}
+
+// Optimize solves a design problem: it returns the D/L (and so D and L for
+// the design frequency) that maximises the clearance of the wanted mode,
+// or, for MaxQ, the unloaded Q subject to a minimum clearance, under the
+// optional constraints of spec.
+//
+// Method (derived from the mode chart, Pozar, Microwave Engineering, 4th
+// ed., sec. 6.7): with a homogeneous fill every frequency ratio f_i/f_w
+// depends on s = (D/L)^2 alone and is monotone in it, so the clearance is a
+// lower envelope of finitely many V-shaped curves whose maxima lie at range
+// ends or at pairwise crossings, found as roots of polynomials of degree
+// <= 4 (see maximise in optimize_exact.go). Tuning by one end plate at fixed
+// D and thermal expansion with different radial and axial coefficients turn
+// each nominal s into an interval of visited s' with affine ends (derived),
+// handled exactly the same way. Only modes whose ratio comes within the
+// attained clearance of 1 somewhere on the range can matter; they are
+// listed rigorously by Modes at the range ends. The fill's temperature
+// coefficient moves every frequency together and so does not change any
+// ratio; it enters the drift and the sensitivities.
+//
+// Accuracy: for MaxClearance, D/L and the clearance are exact to about
+// 1e-15 relative (far inside the 1e-9 asked of it) beyond the accuracy of
+// the Bessel zeros. For MaxQ the feasible set is exact and Q0 is maximised
+// on it by golden-section search to 1e-10 relative in D/L, assuming Q0 has
+// no feature narrower than a 1/64 of the range (wall Q is smooth in D/L).
+// A MinQ constraint's boundary is found by bisection to 1e-13 relative
+// under the same assumption.
+//
+// Errors: invalid input names the field and its range; a problem with no
+// solution gives *InfeasibleError saying what was achievable.
+func Optimize(spec DesignSpec) (Design, error) {
+	p, err := newProblem(spec)
+	if err != nil {
+		return Design{}, err
+	}
+	spec = p.spec
+	allowed, err := p.allowed()
+	if err != nil {
+		return Design{}, err
+	}
+	ivs := []interval{allowed}
+	if spec.MinQ > 0 {
+		ivs, err = p.qFeasible(ivs)
+		if err != nil {
+			return Design{}, err
+		}
+	}
+	envW, _, err := p.envelope(p.path)
+	if err != nil {
+		return Design{}, err
+	}
+	var s float64
+	var limit Limit
+	plateau := [2]float64{}
+	switch spec.Objective {
+	case MaxClearance:
+		opt := envW.maximise(ivs)
+		if spec.MinClearance > 0 && opt.value < spec.MinClearance {
+			return Design{}, p.clearanceShortfall(opt, spec.MinClearance)
+		}
+		s = opt.s
+		// A plateau of the optimum: prefer the Q0 maximum on it, else its
+		// geometric centre.
+		level := opt.value * (1 - 1e-12)
+		for _, iv := range envW.feasible(ivs, level) {
+			if s >= iv.lo && s <= iv.hi && iv.hi > iv.lo*(1+1e-9) {
+				if spec.Q != nil {
+					s, _, err = p.maxQ(iv)
+					if err != nil {
+						return Design{}, err
+					}
+				} else {
+					s = math.Sqrt(iv.lo * iv.hi)
+				}
+				plateau = [2]float64{math.Sqrt(iv.lo), math.Sqrt(iv.hi)}
+			}
+		}
+		if plateau[0] == 0 {
+			plateau = [2]float64{math.Sqrt(s), math.Sqrt(s)}
+		}
+	case MaxQ:
+		feas := envW.feasible(ivs, spec.MinClearance)
+		if len(feas) == 0 {
+			opt := envW.maximise(ivs)
+			return Design{}, p.clearanceShortfall(opt, spec.MinClearance)
+		}
+		bestQ := math.Inf(-1)
+		for _, iv := range feas {
+			si, qi, err := p.maxQ(iv)
+			if err != nil {
+				return Design{}, err
+			}
+			if qi > bestQ {
+				bestQ, s = qi, si
+			}
+		}
+		plateau = [2]float64{math.Sqrt(s), math.Sqrt(s)}
+		for _, iv := range feas {
+			if s == iv.lo || s == iv.hi {
+				limit = LimitMinClearance
+			}
+		}
+	}
+	d := Design{Spec: spec, Ratio: math.Sqrt(s), Plateau: plateau, AllowedRatio: [2]float64{math.Sqrt(allowed.lo), math.Sqrt(allowed.hi)}}
+	switch {
+	case s <= allowed.lo:
+		d.AtRangeEdge, d.Limit = true, p.limLo
+	case s >= allowed.hi:
+		d.AtRangeEdge, d.Limit = true, p.limHi
+	default:
+		d.Limit = limit
+		if spec.MinQ > 0 {
+			for _, iv := range ivs {
+				if s == iv.lo || s == iv.hi {
+					d.Limit = LimitMinQ
+				}
+			}
+		}
+	}
+	d.Cavity = p.cavityAt(s)
+	if err := d.Cavity.Validate(); err != nil {
+		return Design{}, fmt.Errorf("cavity: the optimum D/L = %.6g gives dimensions out of range: %w", d.Ratio, err)
+	}
+	d.Clearance, err = d.Cavity.Clearance(spec.Mode, ClearanceOptions{CountDegenerate: spec.CountDegenerate})
+	if err != nil {
+		return Design{}, err
+	}
+	v, k := envW.at(s, nil)
+	d.WorstClearance, d.WorstMode = v, d.Clearance.Limiting
+	if k >= 0 {
+		d.WorstMode = envW.modes[k].mode
+	}
+	if p.path.identity() {
+		d.WorstClearance, d.WorstMode = d.Clearance.Value, d.Clearance.Limiting
+	}
+	d.Q0 = math.NaN()
+	if spec.Q != nil {
+		if d.Q0, err = spec.Q(d.Cavity); err != nil {
+			return Design{}, err
+		}
+	}
+	if d.Sensitivity, err = d.Cavity.Sensitivity(spec.Mode, spec.Thermal); err != nil {
+		return Design{}, err
+	}
+	if spec.Tuning > 0 {
+		D := d.Cavity.Diameter()
+		for i, t := range []float64{-spec.Tuning, spec.Tuning} {
+			lam := (1 + t) * (1 + t)
+			d.TunedLength[i] = D / math.Sqrt(lam*(s+p.a0)-p.a0)
+		}
+	}
+	if th := spec.Thermal; th.hasRange() {
+		for i, T := range []float64{th.TMin, th.TMax} {
+			dT := T - th.ref()
+			c := d.Cavity
+			c.Radius *= 1 + th.AlphaRadial*dT
+			c.Length *= 1 + th.AlphaAxial*dT
+			c.EpsR = spec.Fill.eps() * (1 + th.TauEps*dT)
+			d.Drift[i] = c.Frequency(spec.Mode) - d.Cavity.Frequency(spec.Mode)
+		}
+	}
+	if spec.Tolerance.Samples > 0 {
+		sp, err := d.Cavity.MonteCarlo(spec.Mode, spec.Tolerance)
+		if err != nil {
+			return Design{}, err
+		}
+		d.Spread = &sp
+	}
+	if d.Curve, err = p.curve(envW, s); err != nil {
+		return Design{}, err
+	}
+	return d, nil
+}
+
+// eps returns the fill's eps_r with zero meaning 1.
+func (f Fill) eps() float64 {
+	if f.EpsR == 0 {
+		return 1
+	}
+	return f.EpsR
+}
+
+func newProblem(spec DesignSpec) (*problem, error) {
+	if err := spec.Mode.Validate(); err != nil {
+		return nil, err
+	}
+	if !(spec.Frequency > 0) || math.IsInf(spec.Frequency, 0) {
+		return nil, fmt.Errorf("cavity: design frequency must be finite and > 0 Hz, got %g Hz", spec.Frequency)
+	}
+	if err := spec.Fill.Validate(); err != nil {
+		return nil, err
+	}
+	if spec.RatioMin == 0 && spec.RatioMax == 0 {
+		spec.RatioMin, spec.RatioMax = DefaultRatioMin, DefaultRatioMax
+	}
+	if !(spec.RatioMin >= MinDesignRatio && spec.RatioMax <= MaxDesignRatio && spec.RatioMin <= spec.RatioMax) {
+		return nil, fmt.Errorf("cavity: D/L range must satisfy %g <= min <= max <= %g, got %g..%g", MinDesignRatio, MaxDesignRatio, spec.RatioMin, spec.RatioMax)
+	}
+	switch spec.Objective {
+	case MaxClearance, MaxQ:
+	default:
+		return nil, fmt.Errorf("cavity: unknown objective %d; use MaxClearance or MaxQ", spec.Objective)
+	}
+	if !(spec.MinClearance >= 0 && spec.MinClearance <= 1) {
+		return nil, fmt.Errorf("cavity: minimum clearance must be in 0..1 (a fraction; 0.03 is 3 %%), got %g", spec.MinClearance)
+	}
+	if !(spec.MinQ >= 0) || math.IsInf(spec.MinQ, 0) {
+		return nil, fmt.Errorf("cavity: minimum Q must be finite and >= 0, got %g", spec.MinQ)
+	}
+	if (spec.Objective == MaxQ || spec.MinQ > 0) && spec.Q == nil {
+		return nil, errors.New("cavity: maximising Q0 or a minimum Q0 needs a Q function (give the wall material)")
+	}
+	for _, q := range []struct {
+		name string
+		v    float64
+	}{{"maximum diameter", spec.MaxDiameter}, {"maximum length", spec.MaxLength}} {
+		if q.v != 0 && !(q.v >= MinSize && q.v <= MaxSize) {
+			return nil, fmt.Errorf("cavity: %s must be in %g..%g m (or 0 for none), got %g m", q.name, MinSize, MaxSize, q.v)
+		}
+	}
+	if !(spec.Tuning >= 0 && spec.Tuning <= MaxTuning) {
+		return nil, fmt.Errorf("cavity: tuning range must be in 0..%g (a fraction; 0.02 is +-2 %%), got %g", MaxTuning, spec.Tuning)
+	}
+	if spec.Tuning > 0 && spec.Mode.P == 0 {
+		return nil, fmt.Errorf("cavity: %s has p = 0, so its frequency does not depend on the length and an end plate cannot tune it; choose a mode with p >= 1 or drop the tuning range", spec.Mode)
+	}
+	if err := spec.Thermal.Validate(); err != nil {
+		return nil, err
+	}
+	if spec.CurvePoints == 0 {
+		spec.CurvePoints = 121
+	}
+	if spec.CurvePoints < 2 || spec.CurvePoints > 100000 {
+		return nil, fmt.Errorf("cavity: curve points must be in 2..100000, got %d", spec.CurvePoints)
+	}
+	p := &problem{spec: spec, w: newChartMode(spec.Mode)}
+	p.kf = 2 * math.Pi * spec.Frequency * spec.Fill.Index() / physics.SpeedOfLight
+	if p.w.gp > 0 {
+		p.a0 = p.w.gx / p.w.gp
+	}
+	p.kmin, p.kmax = 1, 1
+	if th := spec.Thermal; th.hasRange() {
+		k1, k2 := th.ratioScale(th.TMin), th.ratioScale(th.TMax)
+		p.kmin, p.kmax = math.Min(1, math.Min(k1, k2)), math.Max(1, math.Max(k1, k2))
+	}
+	p.path = newPath(p.a0, spec.Tuning, p.kmin, p.kmax)
+	p.full = interval{spec.RatioMin * spec.RatioMin, spec.RatioMax * spec.RatioMax}
+	return p, nil
+}
+
+// newPath returns the path of visited ratios (derived). At temperature T
+// the nominal s becomes kappa(T)^2 s; tuning the wanted mode to f (1 + t)
+// at fixed D then moves s' to (1+t)^2 (s' + a0) - a0 with a0 = gx_w/gp_w,
+// because (k D)^2 = gx_w + gp_w s' must grow by (1+t)^2. Both maps are
+// increasing, so the union over T and t is [lo(s), hi(s)] with
+//
+//	lo(s) = (1-X)^2 kmin^2 s + ((1-X)^2 - 1) a0,
+//	hi(s) = (1+X)^2 kmax^2 s + ((1+X)^2 - 1) a0.
+func newPath(a0, x, kmin, kmax float64) path {
+	lamLo, lamHi := (1-x)*(1-x), (1+x)*(1+x)
+	p := path{
+		lo: affine{lamLo * kmin * kmin, (lamLo - 1) * a0},
+		hi: affine{lamHi * kmax * kmax, (lamHi - 1) * a0},
+	}
+	if x == 0 {
+		p.lo.b, p.hi.b = 0, 0
+	}
+	if kmin == 1 && kmax == 1 {
+		p.common, p.lamLo, p.lamHi = true, lamLo, lamHi
+	}
+	return p
+}
+
+// cavityAt returns the cavity with the wanted mode at the design frequency
+// and D/L = sqrt(s): D = sqrt(gx_w + gp_w s) / k (derived from the chart
+// relation), L = D / sqrt(s).
+func (p *problem) cavityAt(s float64) Cavity {
+	D := math.Sqrt(p.w.g(s)) / p.kf
+	return Cavity{Radius: D / 2, Length: D / math.Sqrt(s), EpsR: p.spec.Fill.EpsR, MuR: p.spec.Fill.MuR}
+}
+
+// allowed returns the user's s range narrowed by the size limits and by
+// the tuning path's need for a finite length (all half-lines in s, derived
+// from D(s) and L(s) of cavityAt).
+func (p *problem) allowed() (interval, error) {
+	iv := p.full
+	p.limLo, p.limHi = LimitRatioMin, LimitRatioMax
+	raise := func(s float64, l Limit) {
+		if s > iv.lo {
+			iv.lo, p.limLo = s, l
+		}
+	}
+	lower := func(s float64, l Limit) {
+		if s < iv.hi {
+			iv.hi, p.limHi = s, l
+		}
+	}
+	spec, w := p.spec, p.w
+	rangeText := fmt.Sprintf("D/L in %.4g..%.4g", spec.RatioMin, spec.RatioMax)
+	lamLo := (1 - spec.Tuning) * (1 - spec.Tuning)
+	if spec.Tuning > 0 {
+		// The lowest tuned frequency needs s' = lamLo (s + a0) - a0 > 0.
+		raise(p.a0*(1/lamLo-1)*(1+1e-12), LimitTuning)
+	}
+	if spec.MaxDiameter > 0 {
+		K := p.kf * p.kf * spec.MaxDiameter * spec.MaxDiameter
+		switch {
+		case K <= w.gx:
+			return interval{}, &InfeasibleError{
+				Need:       fmt.Sprintf("diameter <= %.6g m", spec.MaxDiameter),
+				Achievable: fmt.Sprintf("%s at %.6g Hz needs a diameter above %.6g m (its cutoff diameter) at any D/L", spec.Mode, spec.Frequency, math.Sqrt(w.gx)/p.kf),
+				Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
+			}
+		case w.gp > 0:
+			lower((K-w.gx)/w.gp, LimitDiameter)
+		}
+	}
+	if spec.MaxLength > 0 {
+		// g_w(s) <= K lamLo (s + a0) - K a0 at the longest tuned length.
+		K := p.kf * p.kf * spec.MaxLength * spec.MaxLength
+		a := w.gp - K*lamLo
+		b := K*(lamLo-1)*p.a0 - w.gx
+		switch {
+		case a < 0:
+			raise(b/a, LimitLength)
+		case a > 0:
+			lower(b/a, LimitLength)
+		case b < 0:
+			iv.hi = -1
+		}
+		if iv.hi < iv.lo || a >= 0 && b < 0 {
+			return interval{}, &InfeasibleError{
+				Need:       fmt.Sprintf("length <= %.6g m", spec.MaxLength),
+				Achievable: fmt.Sprintf("%s at %.6g Hz needs more length than that over %s%s", spec.Mode, spec.Frequency, rangeText, tuningText(spec.Tuning)),
+				Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
+			}
+		}
+	}
+	if iv.hi < iv.lo {
+		return interval{}, &InfeasibleError{
+			Need:       "the size and tuning limits together",
+			Achievable: fmt.Sprintf("they leave no D/L in %.4g..%.4g: the lower limit (%s) needs D/L >= %.6g, the upper (%s) D/L <= %.6g", spec.RatioMin, spec.RatioMax, p.limLo, math.Sqrt(math.Max(iv.lo, 0)), p.limHi, math.Sqrt(math.Max(iv.hi, 0))),
+			Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
+		}
+	}
+	return iv, nil
+}
+
+func tuningText(x float64) string {
+	if x == 0 {
+		return ""
+	}
+	return fmt.Sprintf(" with +-%.4g %% tuning", 100*x)
+}
+
+// envelope builds the clearance envelope along path pa over the user's
+// whole ratio range (see boundedEnvelope).
+func (p *problem) envelope(pa path) (*envelope, optimum, error) {
+	full := p.full
+	if pa.lo.at(full.lo) <= 0 {
+		// The tuning path's finite-length limit cuts the range.
+		full.lo = math.Max(full.lo, pa.lo.inv(0)*(1+1e-12))
+		if full.lo > full.hi {
+			full.lo = full.hi
+		}
+	}
+	return boundedEnvelope(p.w, pa, full, p.spec.CountDegenerate)
+}
+
+// boundedEnvelope returns the clearance envelope of the wanted mode w along
+// path pa over the nominal range full, with a mode list that is complete
+// for it, and the envelope's maximum there. Starting from a small bound b,
+// the modes within 1+b of w at the ends of the visited range are listed
+// and the envelope maximised; an excluded mode has |rho - 1| > b
+// everywhere (rho is monotone), so when the maximum is <= b no excluded
+// mode can touch the envelope. Otherwise b grows to the maximum found and
+// the list is rebuilt (the second round always succeeds unless the first
+// list was empty).
+func boundedEnvelope(w chartMode, pa path, full interval, countDegenerate bool) (*envelope, optimum, error) {
+	ext := interval{pa.lo.at(full.lo), pa.hi.at(full.hi)}
+	b := 0.05
+	for range 12 {
+		modes, err := chartModes(w.mode, ext.lo, ext.hi, b, countDegenerate)
+		if err != nil {
+			return nil, optimum{}, err
+		}
+		env := newEnvelope(w, modes, pa)
+		opt := env.maximise([]interval{full})
+		if opt.value <= b {
+			return env, opt, nil
+		}
+		if math.IsInf(opt.value, 1) {
+			b *= 4
+		} else {
+			b = opt.value * (1 + 1e-9)
+		}
+	}
+	return nil, optimum{}, fmt.Errorf("cavity: could not bound the clearance of %s over D/L %.4g..%.4g", w.mode, math.Sqrt(full.lo), math.Sqrt(full.hi))
+}
+
+// clearanceShortfall explains that no allowed D/L reaches the clearance
+// need, giving the best achievable.
+func (p *problem) clearanceShortfall(opt optimum, need float64) error {
+	e := &InfeasibleError{
+		Need:      fmt.Sprintf("a clearance of %.4g %%%s%s", 100*need, tuningText(p.spec.Tuning), p.tempText()),
+		Ratio:     math.Sqrt(opt.s),
+		Clearance: opt.value,
+		Q0:        math.NaN(),
+	}
+	e.Achievable = fmt.Sprintf("the best clearance of %s in the allowed D/L range is %.4g %% at D/L = %.6g", p.spec.Mode, 100*opt.value, e.Ratio)
+	if math.IsInf(opt.s, 0) || opt.s == 0 {
+		e.Achievable = "no allowed D/L remains"
+	}
+	return e
+}
+
+func (p *problem) tempText() string {
+	if th := p.spec.Thermal; th.hasRange() {
+		return fmt.Sprintf(" over %.5g K..%.5g K", th.TMin, th.TMax)
+	}
+	return ""
+}
+
+// qAt returns Q0 of the design at s.
+func (p *problem) qAt(s float64) (float64, error) {
+	q, err := p.spec.Q(p.cavityAt(s))
+	if err != nil {
+		return 0, fmt.Errorf("cavity: Q0 at D/L = %.6g: %w", math.Sqrt(s), err)
+	}
+	if math.IsNaN(q) {
+		return 0, fmt.Errorf("cavity: Q function returned NaN at D/L = %.6g", math.Sqrt(s))
+	}
+	return q, nil
+}
+
+// qSamples is the number of Q0 samples per interval used to bracket the Q0
+// maximum and the MinQ boundary.
+const qSamples = 64
+
+// maxQ returns the s in iv that maximises Q0, and Q0 there: the best of
+// qSamples geometric samples, refined by golden-section search between its
+// neighbours to 1e-10 relative (Press et al., Numerical Recipes, 3rd ed.,
+// sec. 10.2).
+func (p *problem) maxQ(iv interval) (float64, float64, error) {
+	if iv.hi <= iv.lo {
+		q, err := p.qAt(iv.lo)
+		return iv.lo, q, err
+	}
+	n := qSamples
+	xs := make([]float64, n+1)
+	qs := make([]float64, n+1)
+	best := 0
+	for i := range xs {
+		xs[i] = iv.lo * math.Pow(iv.hi/iv.lo, float64(i)/float64(n))
+		if i == n {
+			xs[i] = iv.hi
+		}
+		q, err := p.qAt(xs[i])
+		if err != nil {
+			return 0, 0, err
+		}
+		qs[i] = q
+		if q > qs[best] {
+			best = i
+		}
+	}
+	a, b := xs[max(best-1, 0)], xs[min(best+1, n)]
+	const g = 0.3819660112501051 // (3 - sqrt 5)/2
+	x1, x2 := a+g*(b-a), b-g*(b-a)
+	f1, err := p.qAt(x1)
+	if err != nil {
+		return 0, 0, err
+	}
+	f2, err := p.qAt(x2)
+	if err != nil {
+		return 0, 0, err
+	}
+	for b-a > 1e-10*a {
+		if f1 >= f2 {
+			b, x2, f2 = x2, x1, f1
+			x1 = a + g*(b-a)
+			if f1, err = p.qAt(x1); err != nil {
+				return 0, 0, err
+			}
+		} else {
+			a, x1, f1 = x1, x2, f2
+			x2 = b - g*(b-a)
+			if f2, err = p.qAt(x2); err != nil {
+				return 0, 0, err
+			}
+		}
+	}
+	s, q := xs[best], qs[best]
+	if f1 > q {
+		s, q = x1, f1
+	}
+	if f2 > q {
+		s, q = x2, f2
+	}
+	return s, q, nil
+}
+
+// qFeasible returns the parts of ivs where Q0 >= MinQ, with boundaries
+// bisected to 1e-13 relative between qSamples geometric samples.
+func (p *problem) qFeasible(ivs []interval) ([]interval, error) {
+	var out []interval
+	bestQ, bestS := math.Inf(-1), math.NaN()
+	need := p.spec.MinQ
+	for _, iv := range ivs {
+		n := qSamples
+		if iv.hi <= iv.lo {
+			n = 0
+		}
+		var start float64
+		in := false
+		var prevS, prevQ float64
+		for i := 0; i <= n; i++ {
+			s := iv.lo
+			if n > 0 {
+				s = iv.lo * math.Pow(iv.hi/iv.lo, float64(i)/float64(n))
+			}
+			if i == n {
+				s = iv.hi
+			}
+			q, err := p.qAt(s)
+			if err != nil {
+				return nil, err
+			}
+			if q > bestQ {
+				bestQ, bestS = q, s
+			}
+			ok := q >= need
+			if i > 0 && ok != in {
+				x, err := p.bisectQ(prevS, s, prevQ >= need)
+				if err != nil {
+					return nil, err
+				}
+				if ok {
+					start = x
+				} else {
+					out = append(out, interval{start, x})
+				}
+			} else if i == 0 && ok {
+				start = s
+			}
+			in = ok
+			prevS, prevQ = s, q
+		}
+		if in {
+			out = append(out, interval{start, iv.hi})
+		}
+	}
+	if len(out) == 0 {
+		return nil, &InfeasibleError{
+			Need:       fmt.Sprintf("Q0 >= %.6g", need),
+			Achievable: fmt.Sprintf("the highest Q0 in the allowed D/L range is %.6g at D/L = %.6g", bestQ, math.Sqrt(bestS)),
+			Ratio:      math.Sqrt(bestS), Clearance: math.NaN(), Q0: bestQ,
+		}
+	}
+	return out, nil
+}
+
+// bisectQ finds the s in [a, b] where Q0 crosses MinQ; okA tells whether
+// Q0(a) >= MinQ. The feasible side is returned.
+func (p *problem) bisectQ(a, b float64, okA bool) (float64, error) {
+	for b-a > 1e-13*a {
+		m := 0.5 * (a + b)
+		q, err := p.qAt(m)
+		if err != nil {
+			return 0, err
+		}
+		if (q >= p.spec.MinQ) == okA {
+			a = m
+		} else {
+			b = m
+		}
+	}
+	if okA {
+		return a, nil
+	}
+	return b, nil
+}
+
+// curve builds the trade-off curves over the user's ratio range.
+func (p *problem) curve(envW *envelope, sOpt float64) (TradeOff, error) {
+	env0 := envW
+	if !p.path.identity() {
+		var err error
+		if env0, _, err = p.envelope(newPath(p.a0, 0, 1, 1)); err != nil {
+			return TradeOff{}, err
+		}
+	}
+	full := p.full
+	n := p.spec.CurvePoints
+	ss := make([]float64, 0, n+len(env0.modes)+1)
+	for i := range n {
+		ss = append(ss, full.lo*math.Pow(full.hi/full.lo, float64(i)/float64(n-1)))
+	}
+	ss[n-1] = full.hi
+	ss = append(ss, sOpt)
+	// Exact breakpoints: where a mode crosses the wanted one (the
+	// clearance is zero there), rho_k(s) = 1, a linear equation.
+	for _, m := range env0.modes {
+		if d := m.gp - p.w.gp; d != 0 {
+			if s := (p.w.gx - m.gx) / d; s > full.lo && s < full.hi {
+				ss = append(ss, s)
+			}
+		}
+	}
+	slices.Sort(ss)
+	ss = slices.Compact(ss)
+	t := TradeOff{
+		Ratio: make([]float64, len(ss)), Diameter: make([]float64, len(ss)), Length: make([]float64, len(ss)),
+		Clearance: make([]float64, len(ss)), WorstClearance: make([]float64, len(ss)), Q0: make([]float64, len(ss)),
+	}
+	for i, s := range ss {
+		c := p.cavityAt(s)
+		t.Ratio[i] = math.Sqrt(s)
+		t.Diameter[i], t.Length[i] = c.Diameter(), c.Length
+		t.Clearance[i], _ = env0.at(s, nil)
+		t.WorstClearance[i] = t.Clearance[i]
+		if envW != env0 {
+			if envW.path.lo.at(s) > 0 {
+				t.WorstClearance[i], _ = envW.at(s, nil)
+			} else {
+				t.WorstClearance[i] = 0 // the tuning path leaves the cylinder
+			}
+		}
+		t.Q0[i] = math.NaN()
+		if p.spec.Q != nil {
+			q, err := p.qAt(s)
+			if err != nil {
+				return TradeOff{}, err
+			}
+			t.Q0[i] = q
+		}
+	}
+	return t, nil
+}

@@ -1,0 +1,304 @@
+// Package clearance implements `cylcav clearance`: the spurious-mode
+// clearance of a wanted mode in a given cavity.
+package clearance
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+)
+
+// Options holds the parsed flags of `cylcav clearance`.
+type Options struct {
+	IO *cmdutil.IOStreams
+
+	Mode     cavity.Mode
+	Cavity   cavity.Cavity
+	FillName string
+	Window   cavity.ClearanceOptions
+	Format   cmdutil.Format
+}
+
+// NewCmdClearance returns `cylcav clearance`. runF, when not nil, replaces
+// the run step (for tests of flag parsing).
+func NewCmdClearance(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: io}
+	var mode, diameter, radius, length, fill, window string
+	var checkFormat func() error
+	cmd := &cobra.Command{
+		Use:   "clearance --mode MODE (--diameter D | --radius A) --length L [flags]",
+		Short: "Show the spurious-mode clearance of a wanted mode",
+		Long: `Show how far every other resonance lies from a wanted mode of a cavity.
+
+The clearance is the smallest |f_i - f_w| / f_w over all other modes i. The
+exact companion of the wanted mode (TE0mp with TM1mp, equal in every
+cylinder) is left out and listed as degenerate: it needs suppression by a
+mode trap or a non-contacting plunger gap, not by the choice of D/L. Give
+--count-degenerate to count it (the clearance is then zero).
+
+Also shown: the nearest spurious mode below and above, the spurious-free
+window between them, and every mode within --window (a percentage of the
+wanted frequency, or a frequency such as 500MHz).
+
+Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
+		Example: `  # An air-filled TE011 cavity 40 mm across and 30 mm long
+  $ cylcav clearance --mode TE011 --diameter 40mm --length 30mm --window 15%
+
+  # The same cavity filled with PTFE, as JSON
+  $ cylcav clearance --mode TE011 --diameter 40mm --length 30mm --fill ptfe --format json`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			var err error
+			if opts.Mode, err = parseMode(mode); err != nil {
+				return err
+			}
+			if opts.Cavity, err = parseCavity(diameter, radius, length); err != nil {
+				return err
+			}
+			fd, err := parseFill(fill)
+			if err != nil {
+				return err
+			}
+			opts.Cavity.EpsR, opts.Cavity.MuR, opts.FillName = fd.EpsR, fd.MuR, fd.Name
+			if err := opts.Cavity.Validate(); err != nil {
+				return cmdutil.Usagef("%v", err)
+			}
+			if window != "" {
+				if err := parseWindow(window, &opts.Window); err != nil {
+					return err
+				}
+			}
+			if err := checkFormat(); err != nil {
+				return err
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return runClearance(opts)
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (required)")
+	f.StringVar(&diameter, "diameter", "", "inside diameter, e.g. 40mm")
+	f.StringVar(&radius, "radius", "", "inside radius (instead of --diameter)")
+	f.StringVar(&length, "length", "", "inside length between the end plates, e.g. 30mm (required)")
+	f.StringVar(&fill, "fill", "air", "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4")
+	f.StringVar(&window, "window", "10%", "list modes within this distance: a percentage or a frequency")
+	f.BoolVar(&opts.Window.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
+	_ = cmd.MarkFlagRequired("mode")
+	_ = cmd.MarkFlagRequired("length")
+	cmd.MarkFlagsMutuallyExclusive("diameter", "radius")
+	cmd.MarkFlagsOneRequired("diameter", "radius")
+	return cmd
+}
+
+func parseMode(s string) (cavity.Mode, error) {
+	m, err := cavity.ParseMode(s)
+	if err != nil {
+		return cavity.Mode{}, cmdutil.FlagError("mode", s, err)
+	}
+	return m, nil
+}
+
+// parseCavity reads the dimensions; exactly one of diameter and radius is
+// set (cobra enforces it).
+func parseCavity(diameter, radius, length string) (cavity.Cavity, error) {
+	var c cavity.Cavity
+	if diameter != "" {
+		d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+		if err != nil {
+			return c, err
+		}
+		c.Radius = d / 2
+	} else {
+		a, err := cmdutil.Length("radius", radius, cavity.MinSize, cavity.MaxSize)
+		if err != nil {
+			return c, err
+		}
+		c.Radius = a
+	}
+	l, err := cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize)
+	if err != nil {
+		return c, err
+	}
+	c.Length = l
+	return c, nil
+}
+
+func parseFill(s string) (physics.Dielectric, error) {
+	d, err := physics.ParseDielectric(s)
+	if err != nil {
+		return d, cmdutil.FlagError("fill", s, err)
+	}
+	return d, nil
+}
+
+// parseWindow reads a window given as a percentage (or fraction) or as a
+// frequency (anything ending in Hz).
+func parseWindow(s string, o *cavity.ClearanceOptions) error {
+	if strings.HasSuffix(strings.ToLower(strings.TrimSpace(s)), "hz") {
+		v, err := physics.ParseFrequency(s)
+		if err != nil || !(v >= 0) {
+			return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz"))
+		}
+		o.WindowHz = v
+		return nil
+	}
+	v, err := physics.ParseFraction(s)
+	if err != nil {
+		return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz: %w", err))
+	}
+	if !(v >= 0 && v <= cavity.MaxWindow) {
+		return cmdutil.FlagError("window", s, fmt.Errorf("must be between 0%% and %g%%", 100*cavity.MaxWindow))
+	}
+	o.Window = v
+	return nil
+}
+
+func runClearance(opts *Options) error {
+	cl, err := opts.Cavity.Clearance(opts.Mode, opts.Window)
+	if err != nil {
+		return cmdutil.Usagef("%v", err)
+	}
+	switch opts.Format {
+	case cmdutil.JSON:
+		return cmdutil.WriteJSON(opts.IO.Out, JSON(cl))
+	case cmdutil.CSV:
+		rows := [][]string{}
+		for _, nb := range cl.InWindow {
+			rows = append(rows, []string{nb.Mode.String(), g(nb.Frequency), g(nb.Offset), g(100 * nb.Relative)})
+		}
+		return cmdutil.WriteCSV(opts.IO.Out, []string{"mode", "f_hz", "offset_hz", "offset_pct"}, rows)
+	}
+	return writeTable(opts, cl)
+}
+
+func g(v float64) string { return fmt.Sprintf("%.10g", v) }
+
+// Neighbour is the JSON form of a neighbouring mode.
+type Neighbour struct {
+	Mode      string  `json:"mode"`
+	FHz       float64 `json:"f_hz"`
+	OffsetHz  float64 `json:"offset_hz"`
+	OffsetPct float64 `json:"offset_pct"`
+}
+
+// WindowMode is the JSON form of a mode in the window.
+type WindowMode struct {
+	Mode      string  `json:"mode"`
+	FHz       float64 `json:"f_hz"`
+	OffsetPct float64 `json:"offset_pct"`
+}
+
+// Output is the JSON document of `cylcav clearance`.
+type Output struct {
+	Mode         string       `json:"mode"`
+	FHz          float64      `json:"f_hz"`
+	ClearancePct float64      `json:"clearance_pct"`
+	Below        *Neighbour   `json:"below"`
+	Above        *Neighbour   `json:"above"`
+	Degenerate   []string     `json:"degenerate"`
+	InWindow     []WindowMode `json:"in_window"`
+}
+
+// NeighbourJSON converts a neighbour (nil stays nil).
+func NeighbourJSON(nb *cavity.Neighbour) *Neighbour {
+	if nb == nil {
+		return nil
+	}
+	return &Neighbour{Mode: nb.Mode.String(), FHz: nb.Frequency, OffsetHz: nb.Offset, OffsetPct: 100 * nb.Relative}
+}
+
+// DegenerateJSON lists the companion labels (never null).
+func DegenerateJSON(ms []cavity.Mode) []string {
+	out := []string{}
+	for _, m := range ms {
+		out = append(out, m.String())
+	}
+	return out
+}
+
+// JSON returns the JSON document for a clearance.
+func JSON(cl cavity.Clearance) Output {
+	o := Output{
+		Mode: cl.Mode.String(), FHz: cl.Frequency, ClearancePct: 100 * cl.Value,
+		Below: NeighbourJSON(cl.Below), Above: NeighbourJSON(cl.Above),
+		Degenerate: DegenerateJSON(cl.Degenerate), InWindow: []WindowMode{},
+	}
+	for _, nb := range cl.InWindow {
+		o.InWindow = append(o.InWindow, WindowMode{Mode: nb.Mode.String(), FHz: nb.Frequency, OffsetPct: 100 * nb.Relative})
+	}
+	return o
+}
+
+func writeTable(opts *Options, cl cavity.Clearance) error {
+	w := opts.IO.Out
+	c := opts.Cavity
+	fmt.Fprintf(w, "Cavity: D = %s, L = %s, D/L = %.4f, fill %s (eps_r %.4g)\n",
+		physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), c.Diameter()/c.Length, opts.FillName, orOne(c.EpsR))
+	fmt.Fprintf(w, "Wanted mode %s at %s (n azimuthal, m radial, p axial)\n", cl.Mode, physics.FormatFrequency(cl.Frequency, 7))
+	fmt.Fprintf(w, "Clearance: %.3f %% (set by %s)\n", 100*cl.Value, cl.Limiting)
+	fmt.Fprint(w, FormatNeighbours(cl))
+	if len(cl.InWindow) > 0 {
+		win := max(opts.Window.Window, opts.Window.WindowHz/cl.Frequency)
+		fmt.Fprintf(w, "\nModes within +-%.4g %%:\n", 100*win)
+		t := cmdutil.NewTable(w, "mode", "f", "offset", "offset %")
+		for _, nb := range cl.InWindow {
+			t.Row(nb.Mode.String(), physics.FormatFrequency(nb.Frequency, 7), signed(physics.FormatFrequency(abs(nb.Offset), 5), nb.Offset), fmt.Sprintf("%+.3f", 100*nb.Relative))
+		}
+		return t.Flush()
+	}
+	return nil
+}
+
+// FormatNeighbours returns the lines for the nearest modes, the
+// spurious-free window and the companion, shared with `cylcav design`.
+func FormatNeighbours(cl cavity.Clearance) string {
+	var b strings.Builder
+	line := func(label string, nb *cavity.Neighbour) {
+		if nb == nil {
+			fmt.Fprintf(&b, "  %s: none\n", label)
+			return
+		}
+		fmt.Fprintf(&b, "  %s: %s at %s (%s, %+.3f %%)\n", label, nb.Mode, physics.FormatFrequency(nb.Frequency, 7),
+			signed(physics.FormatFrequency(abs(nb.Offset), 5), nb.Offset), 100*nb.Relative)
+	}
+	line("nearest below", cl.Below)
+	line("nearest above", cl.Above)
+	lo := "0 Hz"
+	if cl.Below != nil {
+		lo = physics.FormatFrequency(cl.FreeLow, 7)
+	}
+	fmt.Fprintf(&b, "  spurious-free window: %s .. %s\n", lo, physics.FormatFrequency(cl.FreeHigh, 7))
+	for _, m := range cl.Degenerate {
+		fmt.Fprintf(&b, "  degenerate companion: %s (same frequency in every cylinder; suppress it with a mode trap or a plunger gap)\n", m)
+	}
+	return b.String()
+}
+
+func signed(s string, v float64) string {
+	if v < 0 {
+		return "-" + s
+	}
+	return "+" + s
+}
+
+func abs(v float64) float64 {
+	if v < 0 {
+		return -v
+	}
+	return v
+}
+
+func orOne(v float64) float64 {
+	if v == 0 {
+		return 1
+	}
+	return v
+}

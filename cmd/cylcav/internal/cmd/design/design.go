@@ -1,0 +1,531 @@
+// Package design implements `cylcav design`: the D/L that puts a wanted
+// mode on frequency with the widest spurious-mode clearance, with Q0,
+// sensitivities, tolerance spread and cautions. With no flags it runs a
+// built-in demo scenario (Demo).
+package design
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmd/clearance"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+)
+
+// Options holds the parsed flags of `cylcav design`.
+type Options struct {
+	IO       *cmdutil.IOStreams
+	Scenario Scenario
+	Format   cmdutil.Format
+}
+
+// demoFlags are the flags that may accompany the demo run.
+var demoFlags = map[string]bool{"format": true}
+
+// NewCmdDesign returns `cylcav design`. runF, when not nil, replaces the
+// run step (for tests of flag parsing).
+func NewCmdDesign(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: io}
+	var (
+		mode, freq, fill, wall, ratioRange, objective, minClear, minQ string
+		maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen  string
+		tolDist                                                       string
+		samples                                                       int
+		seed                                                          uint64
+		countDeg                                                      bool
+		checkFormat                                                   func() error
+	)
+	cmd := &cobra.Command{
+		Use:   "design [--mode MODE --freq F] [flags]",
+		Short: "Choose D and L for the widest spurious-mode clearance (demo with no flags)",
+		Long: `Choose the diameter D and length L that put a wanted mode on frequency with
+the widest clearance from every other mode, or the highest unloaded Q0 that
+keeps a minimum clearance, over an allowed range of D/L.
+
+The clearance is the smallest |f_i - f_w| / f_w over all other modes; the
+exact companion of the wanted mode (TE0mp with TM1mp) is reported apart as
+needing suppression, unless --count-degenerate is given. The clearance must
+hold along the whole tuning path (--tuning, one end plate moved) and over the
+temperature range (--temp; the side wall and the end spacers may expand
+differently). The optimum is exact, found from the crossings of the mode
+chart's lines, not by a grid search; the output says when it sits on the
+edge of the allowed range. Impossible requests exit with status 1 and say
+what was achievable instead.
+
+With no flags at all, design runs a built-in demo scenario and says so on
+its first line. --format csv prints the trade-off curves (clearance and Q0
+against D/L).
+
+Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.
+Tolerances are read as 3-sigma limits of a normal distribution unless
+--tolerance-dist uniform.`,
+		Example: `  # The built-in demo scenario
+  $ cylcav design
+
+  # An air-filled copper TE011 cavity at 10 GHz, D/L between 0.5 and 3
+  $ cylcav design --mode TE011 --freq 10GHz --wall copper --ratio-range 0.5:3
+
+  # Highest Q0 with at least 5 % clearance, +-1 % tuning, -20 C..60 C,
+  # machined to +-0.02 mm, as JSON
+  $ cylcav design --mode TE011 --freq 10GHz --wall copper --objective q \
+      --min-clearance 5% --tuning 1% --temp -20C:60C --tolerance 0.02mm --format json`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := checkFormat(); err != nil {
+				return err
+			}
+			demo := true
+			cmd.Flags().Visit(func(f *pflag.Flag) {
+				if !demoFlags[f.Name] {
+					demo = false
+				}
+			})
+			if demo {
+				s, err := Demo()
+				if err != nil {
+					return err
+				}
+				opts.Scenario = s
+			} else {
+				s, err := parseScenario(cmd, mode, freq, fill, wall, ratioRange, objective, minClear, minQ,
+					maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist, samples, seed, countDeg)
+				if err != nil {
+					return err
+				}
+				opts.Scenario = s
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return runDesign(opts)
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011")
+	f.StringVar(&freq, "freq", "", "wanted frequency, e.g. 10GHz")
+	f.StringVar(&fill, "fill", "air", "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm")
+	f.StringVar(&wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
+	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
+	f.StringVar(&objective, "objective", "clearance", "what to maximise: clearance|q")
+	f.StringVar(&minClear, "min-clearance", "", "least clearance, e.g. 3% (required with --objective q)")
+	f.StringVar(&minQ, "min-q", "", "least unloaded Q0 (needs --wall)")
+	f.StringVar(&maxD, "max-diameter", "", "largest allowed inside diameter")
+	f.StringVar(&maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
+	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
+	f.StringVar(&temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C (design frequency at the middle)")
+	f.StringVar(&alphaSide, "alpha-side", "", "expansion coefficient of the side wall (default: the wall metal's), e.g. 23ppm")
+	f.StringVar(&alphaAxial, "alpha-axial", "", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm")
+	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
+	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
+	f.StringVar(&tolDist, "tolerance-dist", "normal", "distribution of machining errors: normal (tolerance = 3 sigma) | uniform")
+	f.IntVar(&samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
+	f.Uint64Var(&seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
+	f.BoolVar(&countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
+	return cmd
+}
+
+func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objective, minClear, minQ,
+	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist string, samples int, seed uint64, countDeg bool) (Scenario, error) {
+	var s Scenario
+	sp := &s.Spec
+	if mode == "" || freq == "" {
+		return s, cmdutil.Usagef("design needs --mode and --freq (or no flags at all for the demo scenario)")
+	}
+	var err error
+	if sp.Mode, err = cavity.ParseMode(mode); err != nil {
+		return s, cmdutil.FlagError("mode", mode, err)
+	}
+	if sp.Frequency, err = cmdutil.Frequency("freq", freq, 1e3, 1e15); err != nil {
+		return s, err
+	}
+	if s.Fill, err = physics.ParseDielectric(fill); err != nil {
+		return s, cmdutil.FlagError("fill", fill, err)
+	}
+	sp.Fill = cavity.Fill{EpsR: s.Fill.EpsR, MuR: s.Fill.MuR}
+	if wall != "" {
+		c, err := physics.ParseConductor(wall)
+		if err != nil {
+			return s, cmdutil.FlagError("wall", wall, err)
+		}
+		s.Wall = &c
+	}
+	lo, hi, err := physics.ParseRange(ratioRange, parsePlain)
+	if err != nil {
+		return s, cmdutil.FlagError("ratio-range", ratioRange, err)
+	}
+	if !(lo >= cavity.MinDesignRatio && hi <= cavity.MaxDesignRatio) {
+		return s, cmdutil.FlagError("ratio-range", ratioRange, fmt.Errorf("both ends must be between %g and %g", cavity.MinDesignRatio, cavity.MaxDesignRatio))
+	}
+	sp.RatioMin, sp.RatioMax = lo, hi
+	switch objective {
+	case "clearance":
+		sp.Objective = cavity.MaxClearance
+	case "q":
+		sp.Objective = cavity.MaxQ
+	default:
+		return s, cmdutil.FlagError("objective", objective, fmt.Errorf("unknown objective; use clearance|q"))
+	}
+	if minClear != "" {
+		if sp.MinClearance, err = fraction("min-clearance", minClear, 0, 1); err != nil {
+			return s, err
+		}
+	}
+	if sp.Objective == cavity.MaxQ {
+		if s.Wall == nil {
+			return s, cmdutil.Usagef("--objective q needs --wall (the wall metal sets Q0)")
+		}
+		if minClear == "" {
+			return s, cmdutil.Usagef("--objective q needs --min-clearance (the clearance Q0 may not go below)")
+		}
+	}
+	if minQ != "" {
+		if sp.MinQ, err = cmdutil.Number("min-q", minQ, 1, 1e12); err != nil {
+			return s, err
+		}
+		if s.Wall == nil {
+			return s, cmdutil.Usagef("--min-q needs --wall (the wall metal sets Q0)")
+		}
+	}
+	if maxD != "" {
+		if sp.MaxDiameter, err = cmdutil.Length("max-diameter", maxD, cavity.MinSize, cavity.MaxSize); err != nil {
+			return s, err
+		}
+	}
+	if maxL != "" {
+		if sp.MaxLength, err = cmdutil.Length("max-length", maxL, cavity.MinSize, cavity.MaxSize); err != nil {
+			return s, err
+		}
+	}
+	if tuning != "" {
+		if sp.Tuning, err = fraction("tuning", tuning, 0, cavity.MaxTuning); err != nil {
+			return s, err
+		}
+		if sp.Tuning > 0 && sp.Mode.P == 0 {
+			return s, cmdutil.FlagError("tuning", tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
+		}
+	}
+	th := &sp.Thermal
+	if s.Wall != nil {
+		th.AlphaRadial, th.AlphaAxial = s.Wall.Expansion, s.Wall.Expansion
+	}
+	if alphaSide != "" {
+		if th.AlphaRadial, err = coefficient("alpha-side", alphaSide); err != nil {
+			return s, err
+		}
+		th.AlphaAxial = th.AlphaRadial
+	}
+	if alphaAxial != "" {
+		if th.AlphaAxial, err = coefficient("alpha-axial", alphaAxial); err != nil {
+			return s, err
+		}
+	}
+	if s.Fill.TCEpsKnown {
+		th.TauEps = s.Fill.TCEps
+	}
+	if temp != "" {
+		tlo, thi, err := physics.ParseRange(temp, physics.ParseTemperature)
+		if err != nil {
+			return s, cmdutil.FlagError("temp", temp, err)
+		}
+		if !(tlo >= 1 && thi <= 3000) {
+			return s, cmdutil.FlagError("temp", temp, fmt.Errorf("both ends must be between 1 K and 3000 K"))
+		}
+		th.TMin, th.TMax = tlo, thi
+		s.TempGiven = true
+	}
+	if err := th.Validate(); err != nil {
+		return s, cmdutil.Usagef("%v", err)
+	}
+	if tol != "" || tolLen != "" {
+		t := &sp.Tolerance
+		if tol != "" {
+			if t.Diameter, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
+				return s, err
+			}
+			t.Length = t.Diameter
+		}
+		if tolLen != "" {
+			if t.Length, err = cmdutil.Length("tolerance-length", tolLen, 0, 1); err != nil {
+				return s, err
+			}
+		}
+		switch tolDist {
+		case "normal":
+			t.Distribution = cavity.Normal
+		case "uniform":
+			t.Distribution = cavity.Uniform
+		default:
+			return s, cmdutil.FlagError("tolerance-dist", tolDist, fmt.Errorf("unknown distribution; use normal|uniform"))
+		}
+		if samples < 1 || samples > cavity.MaxSamples {
+			return s, cmdutil.FlagError("samples", strconv.Itoa(samples), fmt.Errorf("must be between 1 and %d", cavity.MaxSamples))
+		}
+		t.Samples, t.Seed = samples, seed
+	}
+	sp.CountDegenerate = countDeg
+	return s, nil
+}
+
+func parsePlain(s string) (float64, error) {
+	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
+	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0, fmt.Errorf("%q is not a number", s)
+	}
+	return v, nil
+}
+
+func fraction(flag, value string, lo, hi float64) (float64, error) {
+	v, err := physics.ParseFraction(value)
+	if err != nil {
+		return 0, cmdutil.FlagError(flag, value, err)
+	}
+	if !(v >= lo && v <= hi) {
+		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be between %g%% and %g%%", 100*lo, 100*hi))
+	}
+	return v, nil
+}
+
+func coefficient(flag, value string) (float64, error) {
+	v, err := physics.ParseCoefficient(value)
+	if err != nil {
+		return 0, cmdutil.FlagError(flag, value, err)
+	}
+	if !(math.Abs(v) <= 1e-3) {
+		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be within +-1000 ppm/K"))
+	}
+	return v, nil
+}
+
+func runDesign(opts *Options) error {
+	var progress func(done, total int)
+	var bar *cmdutil.Progress
+	if opts.Scenario.Spec.Tolerance.Samples >= 100000 {
+		bar = cmdutil.NewProgress(opts.IO, "tolerance analysis")
+		progress = bar.Update
+	}
+	r, err := opts.Scenario.Run(progress)
+	if bar != nil {
+		bar.Done()
+	}
+	if err != nil {
+		return err // an InfeasibleError exits with status 1
+	}
+	switch opts.Format {
+	case cmdutil.JSON:
+		return cmdutil.WriteJSON(opts.IO.Out, JSON(r))
+	case cmdutil.CSV:
+		return writeCSV(opts.IO.Out, r.Design.Curve)
+	}
+	return WriteTable(opts.IO.Out, r)
+}
+
+// Sensitivity is the JSON form of the sensitivities.
+type Sensitivity struct {
+	DfDDHzPerM float64 `json:"df_dd_hz_per_m"`
+	DfDLHzPerM float64 `json:"df_dl_hz_per_m"`
+	DfDTHzPerK float64 `json:"df_dt_hz_per_k"`
+}
+
+// Tolerance is the JSON form of the Monte Carlo result.
+type Tolerance struct {
+	DiameterM          float64 `json:"diameter_tolerance_m"`
+	LengthM            float64 `json:"length_tolerance_m"`
+	Distribution       string  `json:"distribution"`
+	Sigmas             float64 `json:"sigmas,omitempty"`
+	Samples            int     `json:"samples"`
+	Seed               uint64  `json:"seed"`
+	MeanHz             float64 `json:"f_mean_hz"`
+	StdHz              float64 `json:"f_std_hz"`
+	P01Hz              float64 `json:"f_p01_hz"`
+	P99Hz              float64 `json:"f_p99_hz"`
+	LinearStdHz        float64 `json:"f_std_linear_hz"`
+	WorstClearancePct  float64 `json:"worst_clearance_pct"`
+	WorstClearanceMode string  `json:"worst_clearance_mode"`
+}
+
+// QBreakdown is the JSON form of the Q0 breakdown.
+type QBreakdown struct {
+	Wall      string   `json:"wall"`
+	QWall     float64  `json:"q_wall"`
+	QFill     *float64 `json:"q_fill"`
+	ShareSide float64  `json:"loss_share_side"`
+	ShareEnds float64  `json:"loss_share_ends"`
+	ShareFill float64  `json:"loss_share_fill"`
+}
+
+// Output is the JSON document of `cylcav design`.
+type Output struct {
+	Scenario          string               `json:"scenario,omitempty"`
+	Mode              string               `json:"mode"`
+	FHz               float64              `json:"f_hz"`
+	DiameterM         float64              `json:"diameter_m"`
+	LengthM           float64              `json:"length_m"`
+	Ratio             float64              `json:"ratio_d_over_l"`
+	ClearancePct      float64              `json:"clearance_pct"`
+	WorstClearancePct float64              `json:"worst_clearance_pct"`
+	AtRangeEdge       bool                 `json:"at_range_edge"`
+	Limit             string               `json:"limit"`
+	Below             *clearance.Neighbour `json:"below"`
+	Above             *clearance.Neighbour `json:"above"`
+	Degenerate        []string             `json:"degenerate"`
+	Q0                *float64             `json:"q0"`
+	QBreakdown        *QBreakdown          `json:"q_breakdown,omitempty"`
+	Sensitivity       Sensitivity          `json:"sensitivity"`
+	TunedLengthM      *[2]float64          `json:"tuned_length_m,omitempty"`
+	DriftHz           *[2]float64          `json:"thermal_drift_hz,omitempty"`
+	Tolerance         *Tolerance           `json:"tolerance"`
+	Cautions          []string             `json:"cautions"`
+}
+
+// JSON returns the JSON document of a result.
+func JSON(r Result) Output {
+	d := r.Design
+	o := Output{
+		Scenario: r.Scenario.Title,
+		Mode:     d.Spec.Mode.String(), FHz: d.Spec.Frequency,
+		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
+		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
+		AtRangeEdge: d.AtRangeEdge, Limit: string(d.Limit),
+		Below: clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
+		Degenerate:  clearance.DegenerateJSON(d.Clearance.Degenerate),
+		Sensitivity: Sensitivity{DfDDHzPerM: d.Sensitivity.DfDD, DfDLHzPerM: d.Sensitivity.DfDL, DfDTHzPerK: d.Sensitivity.DfDT},
+		Cautions:    r.Cautions,
+	}
+	if o.Cautions == nil {
+		o.Cautions = []string{}
+	}
+	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
+		q := d.Q0
+		o.Q0 = &q
+	}
+	if u := r.Unloaded; u != nil {
+		b := &QBreakdown{Wall: r.Scenario.Wall.Name, QWall: u.Wall.QWall, ShareSide: u.Share.Side, ShareEnds: u.Share.EndA + u.Share.EndB, ShareFill: u.Share.Fill}
+		if !math.IsInf(u.QFill, 0) {
+			q := u.QFill
+			b.QFill = &q
+		}
+		o.QBreakdown = b
+	}
+	if d.Spec.Tuning > 0 {
+		t := d.TunedLength
+		o.TunedLengthM = &t
+	}
+	if r.Scenario.TempGiven {
+		t := d.Drift
+		o.DriftHz = &t
+	}
+	if sp := d.Spread; sp != nil {
+		t := d.Spec.Tolerance
+		o.Tolerance = &Tolerance{
+			DiameterM: t.Diameter, LengthM: t.Length, Distribution: t.Distribution.String(),
+			Samples: sp.Samples, Seed: t.Seed, MeanHz: sp.Mean, StdHz: sp.Std, P01Hz: sp.P01, P99Hz: sp.P99,
+			LinearStdHz: sp.LinearStd, WorstClearancePct: 100 * sp.WorstClearance, WorstClearanceMode: sp.WorstMode.String(),
+		}
+		if t.Distribution == cavity.Normal {
+			o.Tolerance.Sigmas = sigmas(t)
+		}
+	}
+	return o
+}
+
+func sigmas(t cavity.Tolerance) float64 {
+	if t.Sigmas == 0 {
+		return cavity.DefaultSigmas
+	}
+	return t.Sigmas
+}
+
+func writeCSV(w io.Writer, c cavity.TradeOff) error {
+	rows := make([][]string, len(c.Ratio))
+	for i := range c.Ratio {
+		q := ""
+		if !math.IsNaN(c.Q0[i]) {
+			q = g(c.Q0[i])
+		}
+		rows[i] = []string{g(c.Ratio[i]), g(c.Diameter[i]), g(c.Length[i]), g(100 * c.Clearance[i]), g(100 * c.WorstClearance[i]), q}
+	}
+	return cmdutil.WriteCSV(w, []string{"ratio_d_over_l", "diameter_m", "length_m", "clearance_pct", "worst_clearance_pct", "q0"}, rows)
+}
+
+func g(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) }
+
+// WriteTable prints a result for people.
+func WriteTable(w io.Writer, r Result) error {
+	d := r.Design
+	spec := d.Spec
+	if r.Scenario.Title != "" {
+		fmt.Fprintf(w, "Demo scenario (no flags given): %s\n\n", r.Scenario.Title)
+	}
+	fmt.Fprintf(w, "Design: %s at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), r.Scenario.Fill.Name)
+	edge := "interior optimum"
+	if d.AtRangeEdge {
+		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
+	} else if d.Limit != cavity.NoLimit {
+		edge = fmt.Sprintf("held by %s", d.Limit)
+	}
+	fmt.Fprintf(w, "  diameter D = %s\n", physics.FormatLength(d.Cavity.Diameter(), 6))
+	fmt.Fprintf(w, "  length   L = %s\n", physics.FormatLength(d.Cavity.Length, 6))
+	fmt.Fprintf(w, "  ratio  D/L = %.6f (allowed %.4g..%.4g; %s)\n", d.Ratio, d.AllowedRatio[0], d.AllowedRatio[1], edge)
+	fmt.Fprintf(w, "\nClearance: %.3f %% (set by %s)", 100*d.Clearance.Value, d.Clearance.Limiting)
+	if spec.Tuning > 0 || r.Scenario.TempGiven {
+		fmt.Fprintf(w, "; worst over tuning and temperature %.3f %% (%s)", 100*d.WorstClearance, d.WorstMode)
+	}
+	fmt.Fprintln(w)
+	fmt.Fprint(w, clearance.FormatNeighbours(d.Clearance))
+	if u := r.Unloaded; u != nil {
+		fmt.Fprintf(w, "\nUnloaded Q (%s walls, 20 C, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, u.Q0)
+		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
+			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
+	}
+	s := d.Sensitivity
+	fmt.Fprintf(w, "\nSensitivities:\n")
+	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))
+	fmt.Fprintf(w, "  df/dL = %s per mm\n", signedF(s.DfDL*1e-3))
+	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K)\n", signedF(s.DfDT), 1e6*s.TempCoeff)
+	if spec.Tuning > 0 {
+		fmt.Fprintf(w, "\nTuning +-%.4g %% by one end plate: L from %s (low end) to %s (high end)\n",
+			100*spec.Tuning, physics.FormatLength(d.TunedLength[0], 6), physics.FormatLength(d.TunedLength[1], 6))
+	}
+	if r.Scenario.TempGiven {
+		th := spec.Thermal
+		fmt.Fprintf(w, "\nTemperature %s..%s (alpha side %.3g ppm/K, alpha axial %.3g ppm/K): drift %s at the low end, %s at the high end\n",
+			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4), 1e6*th.AlphaRadial, 1e6*th.AlphaAxial,
+			signedF(d.Drift[0]), signedF(d.Drift[1]))
+	}
+	if sp := d.Spread; sp != nil {
+		t := spec.Tolerance
+		dist := "uniform"
+		if t.Distribution == cavity.Normal {
+			dist = fmt.Sprintf("normal, tolerance = %g sigma", sigmas(t))
+		}
+		fmt.Fprintf(w, "\nMachining tolerance D +-%s, L +-%s (%s), %d samples, seed %d:\n",
+			physics.FormatLength(t.Diameter, 3), physics.FormatLength(t.Length, 3), dist, sp.Samples, t.Seed)
+		fmt.Fprintf(w, "  f mean %s, std %s (linearised %s)\n", physics.FormatFrequency(sp.Mean, 8), physics.FormatFrequency(sp.Std, 4), physics.FormatFrequency(sp.LinearStd, 4))
+		fmt.Fprintf(w, "  f 1st..99th percentile: %s .. %s\n", physics.FormatFrequency(sp.P01, 8), physics.FormatFrequency(sp.P99, 8))
+		fmt.Fprintf(w, "  worst clearance among the samples: %.3f %% (%s)\n", 100*sp.WorstClearance, sp.WorstMode)
+	}
+	if len(r.Cautions) > 0 {
+		fmt.Fprintf(w, "\nCautions:\n")
+		for _, c := range r.Cautions {
+			fmt.Fprintf(w, "  - %s\n", c)
+		}
+	}
+	return nil
+}
+
+func signedF(v float64) string {
+	if v < 0 {
+		return "-" + physics.FormatFrequency(-v, 4)
+	}
+	return "+" + physics.FormatFrequency(v, 4)
+}

@@ -1,0 +1,185 @@
+package design
+
+import (
+	"fmt"
+	"math"
+
+	"cylcav/cavity"
+	"cylcav/physics"
+	"cylcav/qfactor"
+)
+
+// Scenario is a complete design request, as `cylcav design` runs it. The
+// report command builds the same thing (Demo gives the built-in one) and
+// calls Run.
+type Scenario struct {
+	// Title names the scenario; it is set for the built-in demo only.
+	Title string
+	// Spec is the library problem. Run fills in Spec.Q from Wall and Fill
+	// when Wall is set.
+	Spec cavity.DesignSpec
+	// Wall is the wall metal; nil means no Q0.
+	Wall *physics.Conductor
+	// Fill is the fill dielectric (its eps_r and mu_r are in Spec.Fill).
+	Fill physics.Dielectric
+	// TempGiven records whether a temperature range was asked for.
+	TempGiven bool
+}
+
+// Result is a design with its Q breakdown and cautions.
+type Result struct {
+	Scenario Scenario
+	Design   cavity.Design
+	// Unloaded is the Q breakdown at the design; nil without a wall.
+	Unloaded *qfactor.Unloaded
+	// Cautions are plain sentences for people.
+	Cautions []string
+}
+
+// Demo returns the built-in demo scenario: a temperature-stable TE011
+// reference cavity for the invented 10.5 GHz "Kestrel Point to Marrow Hill"
+// microwave link. An aluminium body with invar end spacers, air filled,
+// tunable by +-0.5 %, qualified over -20 C..+60 C, machined to +-0.01 mm.
+func Demo() (Scenario, error) {
+	wall, err := physics.LookupConductor("aluminium")
+	if err != nil {
+		return Scenario{}, err
+	}
+	invar, err := physics.LookupConductor("invar")
+	if err != nil {
+		return Scenario{}, err
+	}
+	air, err := physics.LookupDielectric("air")
+	if err != nil {
+		return Scenario{}, err
+	}
+	m, err := cavity.ParseMode("TE011")
+	if err != nil {
+		return Scenario{}, err
+	}
+	tmin, _ := physics.ParseTemperature("-20C")
+	tmax, _ := physics.ParseTemperature("60C")
+	return Scenario{
+		Title: "TE011 reference cavity for the fictional Kestrel Point to Marrow Hill 10.5 GHz link (aluminium body, invar end spacers)",
+		Spec: cavity.DesignSpec{
+			Mode:      m,
+			Frequency: 10.5e9,
+			Fill:      cavity.Fill{EpsR: air.EpsR, MuR: air.MuR},
+			RatioMin:  0.8, RatioMax: 2.5,
+			Tuning: 0.005,
+			Thermal: cavity.Thermal{
+				AlphaRadial: wall.Expansion, AlphaAxial: invar.Expansion, TauEps: air.TCEps,
+				TMin: tmin, TMax: tmax,
+			},
+			Tolerance: cavity.Tolerance{Diameter: 10e-6, Length: 10e-6, Samples: 200000, Seed: 1},
+		},
+		Wall:      &wall,
+		Fill:      air,
+		TempGiven: true,
+	}, nil
+}
+
+// QFunc returns the unloaded-Q function of mode m for walls of metal wall
+// (at 20 C, smooth) and the fill's loss tangents, built on package qfactor.
+func QFunc(m cavity.Mode, wall physics.Conductor, fill physics.Dielectric) func(cavity.Cavity) (float64, error) {
+	return func(c cavity.Cavity) (float64, error) {
+		u, err := unloaded(c, m, wall, fill)
+		return u.Q0, err
+	}
+}
+
+func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, fill physics.Dielectric) (qfactor.Unloaded, error) {
+	surf := qfactor.Surface{Conductor: wall}
+	rs := func(f float64) (qfactor.Walls, error) {
+		r, _, err := surf.Resistance(f)
+		return qfactor.Uniform(r), err
+	}
+	return qfactor.UnloadedQ(c, m, rs, qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM})
+}
+
+// Run solves the scenario: the library optimisation, the Q breakdown at
+// the design, and the cautions. progress, when not nil, receives the Monte
+// Carlo progress.
+func (s Scenario) Run(progress func(done, total int)) (Result, error) {
+	spec := s.Spec
+	if s.Wall != nil {
+		spec.Q = QFunc(spec.Mode, *s.Wall, s.Fill)
+	}
+	spec.Tolerance.Progress = progress
+	d, err := cavity.Optimize(spec)
+	if err != nil {
+		return Result{}, err
+	}
+	r := Result{Scenario: s, Design: d}
+	if s.Wall != nil {
+		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, s.Fill)
+		if err != nil {
+			return Result{}, err
+		}
+		r.Unloaded = &u
+	}
+	r.Cautions = Cautions(r)
+	return r, nil
+}
+
+// Cautions returns the warnings a designer should read about a result.
+func Cautions(r Result) []string {
+	var out []string
+	d := r.Design
+	spec := d.Spec
+	for _, m := range d.Clearance.Degenerate {
+		if spec.CountDegenerate {
+			continue
+		}
+		out = append(out, fmt.Sprintf("%s resonates at exactly the frequency of %s in every cylinder; no D/L separates them. Suppress it: a mode trap, a non-contacting plunger with a gap (TE0mp has no wall current across it), or couplings on its field nulls.", m, spec.Mode))
+	}
+	if d.AtRangeEdge {
+		out = append(out, fmt.Sprintf("The optimum sits on the edge of the allowed D/L range (%s, D/L = %.4g); relaxing that limit may give more clearance.", d.Limit, d.Ratio))
+	} else if d.Limit == cavity.LimitMinQ || d.Limit == cavity.LimitMinClearance {
+		out = append(out, fmt.Sprintf("The optimum is held by the %s constraint.", d.Limit))
+	}
+	if d.Plateau[1] > d.Plateau[0]*(1+1e-9) {
+		out = append(out, fmt.Sprintf("The best clearance holds over a whole band, D/L = %.4g..%.4g; the design takes %s on it.",
+			d.Plateau[0], d.Plateau[1], plateauChoice(spec)))
+	}
+	if spec.Tuning > 0 || r.Scenario.TempGiven {
+		if d.WorstClearance < d.Clearance.Value*(1-1e-9) {
+			out = append(out, fmt.Sprintf("Over the tuning and temperature range the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", 100*d.WorstClearance, d.WorstMode, 100*d.Clearance.Value))
+		}
+	}
+	if r.Scenario.TempGiven {
+		th := spec.Thermal
+		if th.AlphaRadial == 0 && th.AlphaAxial == 0 {
+			out = append(out, "A temperature range was given but no expansion coefficients (give --wall or --alpha-side/--alpha-axial): the drift shown is zero.")
+		}
+		drift := math.Max(math.Abs(d.Drift[0]), math.Abs(d.Drift[1]))
+		if spec.Tuning > 0 && drift > spec.Tuning*spec.Frequency {
+			out = append(out, fmt.Sprintf("The thermal drift (up to %s) exceeds the tuning range (+-%s).", physics.FormatFrequency(drift, 4), physics.FormatFrequency(spec.Tuning*spec.Frequency, 4)))
+		}
+		if !r.Scenario.Fill.TCEpsKnown && spec.Fill.EpsR > 1 {
+			out = append(out, fmt.Sprintf("The temperature coefficient of the fill %q is not known; its drift is left out.", r.Scenario.Fill.Name))
+		}
+	}
+	if sp := d.Spread; sp != nil {
+		if sp.WorstClearance < 0.5*sp.NominalClearance {
+			out = append(out, fmt.Sprintf("Machining errors can bring %s within %.3f %% of the wanted mode (worst sample).", sp.WorstMode, 100*sp.WorstClearance))
+		}
+		if half := 0.5 * (sp.P99 - sp.P01); spec.Tuning > 0 && half > spec.Tuning*spec.Frequency {
+			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
+		}
+	}
+	if u := r.Unloaded; u != nil && u.Share.Fill > 0.5 {
+		out = append(out, fmt.Sprintf("The fill's loss dominates Q0 (%.0f %% of the loss); a better wall metal will not help much.", 100*u.Share.Fill))
+	}
+	if r.Scenario.Wall == nil {
+		out = append(out, "No wall metal given (--wall): Q0 not computed.")
+	}
+	return out
+}
+
+func plateauChoice(spec cavity.DesignSpec) string {
+	if spec.Q != nil {
+		return "the point of highest Q0"
+	}
+	return "the geometric centre"
+}

@@ -1,0 +1,125 @@
+package materials
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"strings"
+	"testing"
+
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+)
+
+// run executes `cylcav materials args...` and returns stdout and the error.
+func run(t *testing.T, args ...string) (string, error) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	cmd := NewCmdMaterials(cmdutil.Test(&out, &errOut), nil)
+	cmd.SetArgs(args)
+	cmd.SetOut(&out)
+	cmd.SetErr(&errOut)
+	cmd.SilenceUsage, cmd.SilenceErrors = true, true
+	err := cmd.Execute()
+	return out.String(), err
+}
+
+func TestTable(t *testing.T) {
+	out, err := run(t)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range physics.Conductors() {
+		if !strings.Contains(out, "\n"+c.Name+" ") {
+			t.Errorf("table lacks conductor %q", c.Name)
+		}
+	}
+	for _, d := range physics.Dielectrics() {
+		if !strings.Contains(out, "\n"+d.Name+" ") {
+			t.Errorf("table lacks dielectric %q", d.Name)
+		}
+	}
+	for _, want := range []string{"Wall metals", "Fill dielectrics", "58.00 MS/m", "100.0 %", "Sources:\n[1] IACS definition", "10 GHz", "(ferromagnetic)"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("table lacks %q:\n%s", want, out)
+		}
+	}
+	// Every source is printed once, and every row cites one.
+	refs := strings.Count(out, "\n[")
+	if refs == 0 || refs > len(physics.Conductors())+len(physics.Dielectrics()) {
+		t.Errorf("table has %d source lines", refs)
+	}
+	only, _ := run(t, "--kind", "dielectric")
+	if strings.Contains(only, "Wall metals") || !strings.Contains(only, "sapphire-par") {
+		t.Errorf("--kind dielectric table:\n%s", only)
+	}
+}
+
+func TestJSON(t *testing.T) {
+	out, err := run(t, "--format", "json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var lib struct {
+		Conductors  []map[string]any `json:"conductors"`
+		Dielectrics []map[string]any `json:"dielectrics"`
+	}
+	if err := json.Unmarshal([]byte(out), &lib); err != nil {
+		t.Fatalf("JSON output does not parse: %v\n%s", err, out)
+	}
+	if len(lib.Conductors) != len(physics.Conductors()) || len(lib.Dielectrics) != len(physics.Dielectrics()) {
+		t.Fatalf("JSON has %d conductors and %d dielectrics", len(lib.Conductors), len(lib.Dielectrics))
+	}
+	cu := lib.Conductors[0]
+	if cu["name"] != "copper" || cu["conductivity_s_per_m"] != 58e6 || cu["alpha_per_k"] != 0.00393 || cu["source"] == "" {
+		t.Errorf("first conductor = %v", cu)
+	}
+	if ptfe := lib.Dielectrics[2]; ptfe["name"] != "ptfe" || ptfe["tan_delta_freq_hz"] != 1e10 || ptfe["tc_eps_per_k"] != nil {
+		t.Errorf("ptfe = %v, want tan_delta_freq_hz 1e10 and tc_eps_per_k null", ptfe)
+	}
+	only, _ := run(t, "--kind", "conductor", "--format", "json")
+	if strings.Contains(only, `"dielectrics"`) {
+		t.Errorf("--kind conductor JSON lists dielectrics")
+	}
+}
+
+func TestCSV(t *testing.T) {
+	out, err := run(t, "--format", "csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
+	if err != nil {
+		t.Fatalf("CSV output does not parse: %v", err)
+	}
+	if got, want := len(recs), 1+len(physics.Conductors())+len(physics.Dielectrics()); got != want {
+		t.Fatalf("CSV has %d records, want %d", got, want)
+	}
+	if strings.Join(recs[0], ",") != strings.Join(csvHeader, ",") {
+		t.Errorf("CSV header = %v", recs[0])
+	}
+	for _, r := range recs[1:] {
+		if len(r) != len(csvHeader) || r[len(r)-1] == "" {
+			t.Errorf("CSV row %v: want %d fields and a source", r[:2], len(csvHeader))
+		}
+	}
+}
+
+func TestBadInput(t *testing.T) {
+	for _, args := range [][]string{{"--kind", "plasma"}, {"--format", "xml"}} {
+		_, err := run(t, args...)
+		if err == nil || !cmdutil.IsUsage(err) || cmdutil.ExitStatus(err) != 2 {
+			t.Errorf("materials %v: error %v, want a usage error (exit 2)", args, err)
+			continue
+		}
+		if !strings.Contains(err.Error(), args[1]) {
+			t.Errorf("materials %v: error %q does not name the value", args, err)
+		}
+	}
+	var got *Options
+	cmd := NewCmdMaterials(cmdutil.Test(&bytes.Buffer{}, &bytes.Buffer{}), func(o *Options) error { got = o; return nil })
+	cmd.SetArgs([]string{"--kind", "Fill"})
+	if err := cmd.Execute(); err != nil || got == nil || got.Kind != Dielectric || got.Format != cmdutil.Table {
+		t.Errorf("--kind Fill: options %+v, error %v", got, err)
+	}
+}

@@ -1,0 +1,74 @@
+// Package root assembles the cylcav command tree and maps errors to exit
+// statuses.
+package root
+
+import (
+	"fmt"
+
+	"github.com/spf13/cobra"
+
+	"cylcav/cmd/cylcav/internal/cmd/clearance"
+	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/cmd/cylcav/internal/cmd/materials"
+	"cylcav/cmd/cylcav/internal/cmd/modes"
+	"cylcav/cmd/cylcav/internal/cmd/q"
+	"cylcav/cmd/cylcav/internal/cmd/size"
+	"cylcav/cmd/cylcav/internal/cmd/tune"
+	"cylcav/cmd/cylcav/internal/cmd/version"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+)
+
+// NewCmdRoot returns the cylcav root command with every subcommand.
+func NewCmdRoot(io *cmdutil.IOStreams) *cobra.Command {
+	cmd := &cobra.Command{
+		Use:   "cylcav <command> [flags]",
+		Short: "Design closed circular-cylindrical cavity resonators and cavity filters",
+		Long: `cylcav designs closed circular-cylindrical cavity resonators and the
+bandpass filters built from them: exact resonant frequencies of every TE and
+TM mode, sizing for a target frequency, spurious-mode clearance, unloaded Q,
+mode charts and filter synthesis.
+
+Mode index convention: TE_nmp and TM_nmp with n azimuthal (cos n phi),
+m radial (m-th Bessel zero), p axial (half-wavelengths along the length).
+
+Units: lengths m, cm, mm, um, in, mil; frequencies Hz, kHz, MHz, GHz.
+Plain numbers are SI. JSON and CSV output use SI base units.`,
+		SilenceUsage:  true,
+		SilenceErrors: true,
+	}
+	cmd.SetOut(io.Out)
+	cmd.SetErr(io.ErrOut)
+	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
+		return &cmdutil.UsageError{Err: fmt.Errorf("%w (see '%s --help')", err, c.CommandPath())}
+	})
+
+	cmd.AddCommand(version.NewCmdVersion(io))
+	cmd.AddCommand(materials.NewCmdMaterials(io, nil))
+	cmd.AddCommand(modes.NewCmdModes(io, nil))
+	cmd.AddCommand(q.NewCmdQ(io, nil))
+	cmd.AddCommand(size.NewCmdSize(io, nil))
+	cmd.AddCommand(design.NewCmdDesign(io, nil))
+	cmd.AddCommand(clearance.NewCmdClearance(io, nil))
+	cmd.AddCommand(tune.NewCmdTune(io, nil))
+	return cmd
+}
+
+// Main runs cylcav with the given arguments and returns the exit status:
+// 0 on success, 2 for bad input, 1 for any other failure.
+func Main(io *cmdutil.IOStreams, args []string) int {
+	cmd := NewCmdRoot(io)
+	cmd.SetArgs(args)
+	// Cobra reports unknown commands, bad arguments and missing required
+	// flags as plain errors before any command runs; those are usage errors
+	// too. Errors from a running command keep their own status.
+	started := false
+	cmd.PersistentPreRun = func(*cobra.Command, []string) { started = true }
+	if err := cmd.Execute(); err != nil {
+		if !started && !cmdutil.IsUsage(err) {
+			err = &cmdutil.UsageError{Err: err}
+		}
+		fmt.Fprintf(io.ErrOut, "cylcav: %v\n", err)
+		return cmdutil.ExitStatus(err)
+	}
+	return 0
+}

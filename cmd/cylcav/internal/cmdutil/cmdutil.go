@@ -1,0 +1,82 @@
+// Package cmdutil holds what every cylcav command shares: the I/O streams,
+// usage errors (exit status 2), output formats, unit-flag parsing, table,
+// JSON and CSV printers, and the atomic file writer.
+package cmdutil
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+
+	"golang.org/x/term"
+)
+
+// IOStreams are the streams a command reads and writes. Commands never touch
+// os.Stdout or os.Stderr directly, so tests can capture everything.
+type IOStreams struct {
+	In     io.Reader
+	Out    io.Writer
+	ErrOut io.Writer
+
+	// ErrIsTerminal reports whether ErrOut is an interactive terminal; long
+	// runs show progress there and stay quiet otherwise.
+	ErrIsTerminal bool
+}
+
+// System returns the process's standard streams.
+func System() *IOStreams {
+	return &IOStreams{
+		In:            os.Stdin,
+		Out:           os.Stdout,
+		ErrOut:        os.Stderr,
+		ErrIsTerminal: term.IsTerminal(int(os.Stderr.Fd())),
+	}
+}
+
+// Test returns streams that read nothing and write into the given buffers.
+func Test(out, errOut io.Writer) *IOStreams {
+	return &IOStreams{In: eofReader{}, Out: out, ErrOut: errOut}
+}
+
+type eofReader struct{}
+
+func (eofReader) Read([]byte) (int, error) { return 0, io.EOF }
+
+// UsageError is bad input from the user: an invalid flag value, a missing
+// required flag, an impossible combination. The command exits with status 2.
+type UsageError struct{ Err error }
+
+func (e *UsageError) Error() string { return e.Err.Error() }
+func (e *UsageError) Unwrap() error { return e.Err }
+
+// Usagef returns a UsageError with a formatted message.
+func Usagef(format string, a ...any) error {
+	return &UsageError{Err: fmt.Errorf(format, a...)}
+}
+
+// FlagError returns a UsageError that names the flag and its value:
+//
+//	--diameter "-3mm": must be > 0 m
+func FlagError(flag, value string, err error) error {
+	return &UsageError{Err: fmt.Errorf("--%s %q: %w", flag, value, err)}
+}
+
+// IsUsage reports whether err is, or wraps, a UsageError.
+func IsUsage(err error) bool {
+	var u *UsageError
+	return errors.As(err, &u)
+}
+
+// ExitStatus maps a command's error to the process exit status: 0 on
+// success, 2 for usage errors, 1 for everything else (an impossible design,
+// a failed write).
+func ExitStatus(err error) int {
+	switch {
+	case err == nil:
+		return 0
+	case IsUsage(err):
+		return 2
+	}
+	return 1
+}

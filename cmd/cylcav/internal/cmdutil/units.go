@@ -1,0 +1,50 @@
+package cmdutil
+
+import (
+	"fmt"
+	"math"
+
+	"cylcav/physics"
+)
+
+// Length parses the value of a length flag (50mm, 1.97in, 0.05) into metres
+// and checks that it lies in [min, max]. Errors name the flag, the value and
+// the valid range, and exit with status 2.
+func Length(flag, value string, min, max float64) (float64, error) {
+	v, err := physics.ParseLength(value)
+	if err != nil {
+		return 0, FlagError(flag, value, err)
+	}
+	if math.IsNaN(v) || v < min || v > max {
+		return 0, FlagError(flag, value, fmt.Errorf("must be between %s and %s",
+			physics.FormatLength(min, 4), physics.FormatLength(max, 4)))
+	}
+	return v, nil
+}
+
+// Frequency parses the value of a frequency flag (10GHz, 915 MHz, 1e9) into
+// hertz and checks that it lies in [min, max].
+func Frequency(flag, value string, min, max float64) (float64, error) {
+	v, err := physics.ParseFrequency(value)
+	if err != nil {
+		return 0, FlagError(flag, value, err)
+	}
+	if math.IsNaN(v) || v < min || v > max {
+		return 0, FlagError(flag, value, fmt.Errorf("must be between %s and %s",
+			physics.FormatFrequency(min, 4), physics.FormatFrequency(max, 4)))
+	}
+	return v, nil
+}
+
+// Number parses a plain dimensionless flag value and checks that it lies in
+// [min, max].
+func Number(flag, value string, min, max float64) (float64, error) {
+	var v float64
+	if _, err := fmt.Sscanf(value, "%g", &v); err != nil || fmt.Sprint(v) == "" {
+		return 0, FlagError(flag, value, fmt.Errorf("not a number"))
+	}
+	if math.IsNaN(v) || math.IsInf(v, 0) || v < min || v > max {
+		return 0, FlagError(flag, value, fmt.Errorf("must be between %g and %g", min, max))
+	}
+	return v, nil
+}

@@ -1,0 +1,200 @@
+package filter
+
+import (
+	"fmt"
+	"math"
+)
+
+// Family selects the lowpass prototype response.
+type Family int
+
+const (
+	// Chebyshev is the (generalised) Chebyshev response: equal ripple in
+	// the passband, with or without prescribed finite transmission zeros.
+	// It is the zero value.
+	Chebyshev Family = iota
+	// Butterworth is the maximally flat all-pole response with 3.01 dB
+	// insertion loss at the band edges.
+	Butterworth
+)
+
+// String returns "chebyshev" or "butterworth".
+func (f Family) String() string {
+	switch f {
+	case Chebyshev:
+		return "chebyshev"
+	case Butterworth:
+		return "butterworth"
+	}
+	return fmt.Sprintf("Family(%d)", int(f))
+}
+
+// DefaultReturnLoss is the passband return loss, in dB, of a Chebyshev Spec
+// that gives neither ReturnLoss nor Ripple (common practice for cavity
+// filters).
+const DefaultReturnLoss = 20.0
+
+// Rejection is one stopband requirement: at least Attenuation dB of
+// insertion loss at frequency F (Hz), which must lie outside the passband.
+type Rejection struct {
+	F           float64 // Hz
+	Attenuation float64 // dB, > 0
+}
+
+// Spec is the specification of a bandpass filter.
+//
+// The passband runs from f1 to f2 with f2 - f1 = BW and f1 f2 = F0^2
+// (LowpassOmega maps them to -1 and +1). Transmission zeros are given in the
+// normalised lowpass frequency Omega (convert hertz with LowpassOmega);
+// a zero at Omega > 1 lies above the passband.
+//
+// The zero value of every optional field is a documented default: Family
+// Chebyshev; Order 0 = the smallest order that meets Rejections;
+// ReturnLoss = Ripple = 0 = DefaultReturnLoss; no Zeros = all-pole.
+type Spec struct {
+	F0     float64 // centre frequency, Hz, > 0
+	BW     float64 // passband width, Hz, 0 < BW < F0
+	Family Family
+
+	// Order is the number of resonators, 1..MaxOrder, or 0 to choose the
+	// smallest order that meets Rejections (see MinOrder).
+	Order int
+
+	// ReturnLoss (dB, at the ripple peaks of the lossless response) or
+	// Ripple (dB of insertion-loss ripple) fixes the Chebyshev ripple
+	// level; give at most one. Both must be zero for Butterworth.
+	ReturnLoss float64
+	Ripple     float64
+
+	// Zeros are the finite transmission zeros, normalised Omega, each with
+	// |Omega| > 1; at most Order-1 of them with a plain folded network, or
+	// exactly Order for the fully canonical response, which adds a direct
+	// source-load coupling. Symmetric or asymmetric placements are both
+	// allowed. Chebyshev only.
+	Zeros []float64
+
+	// Rejections are the stopband requirements, checked by Design.Check and
+	// used by MinOrder when Order is 0.
+	Rejections []Rejection
+}
+
+// normalized checks s and returns a copy with defaults filled in
+// (ReturnLoss and Ripple both set for Chebyshev). The order is not chosen
+// here.
+func (s Spec) normalized() (Spec, error) {
+	if !(s.F0 > 0) || math.IsInf(s.F0, 0) {
+		return s, fmt.Errorf("filter: centre frequency must be > 0 Hz and finite, got %g Hz", s.F0)
+	}
+	if !(s.BW > 0 && s.BW < s.F0) {
+		return s, fmt.Errorf("filter: bandwidth must be > 0 Hz and < f0 = %g Hz, got %g Hz", s.F0, s.BW)
+	}
+	if s.Order != 0 {
+		if err := checkOrder(s.Order); err != nil {
+			return s, err
+		}
+	}
+	switch s.Family {
+	case Chebyshev:
+		switch {
+		case s.ReturnLoss != 0 && s.Ripple != 0:
+			return s, fmt.Errorf("filter: give return loss (%g dB) or ripple (%g dB), not both", s.ReturnLoss, s.Ripple)
+		case s.ReturnLoss != 0:
+			if err := checkReturnLoss(s.ReturnLoss); err != nil {
+				return s, err
+			}
+			s.Ripple = RippleFromReturnLoss(s.ReturnLoss)
+		case s.Ripple != 0:
+			if err := checkRipple(s.Ripple); err != nil {
+				return s, err
+			}
+			s.ReturnLoss = ReturnLossFromRipple(s.Ripple)
+			if s.ReturnLoss > MaxReturnLoss {
+				return s, fmt.Errorf("filter: passband ripple must be >= %.3g dB (return loss <= %g dB), got %g dB",
+					RippleFromReturnLoss(MaxReturnLoss), MaxReturnLoss, s.Ripple)
+			}
+		default:
+			s.ReturnLoss = DefaultReturnLoss
+			s.Ripple = RippleFromReturnLoss(DefaultReturnLoss)
+		}
+		limit := MaxOrder
+		if s.Order != 0 {
+			limit = s.Order
+		}
+		if err := checkZeros(limit, s.Zeros); err != nil {
+			return s, err
+		}
+	case Butterworth:
+		if s.ReturnLoss != 0 || s.Ripple != 0 {
+			return s, fmt.Errorf("filter: a Butterworth response has 3.01 dB loss at the band edges; return loss (%g dB) and ripple (%g dB) must be 0", s.ReturnLoss, s.Ripple)
+		}
+		if len(s.Zeros) != 0 {
+			return s, fmt.Errorf("filter: transmission zeros need the Chebyshev family, got %d zeros with Butterworth", len(s.Zeros))
+		}
+	default:
+		return s, fmt.Errorf("filter: unknown response family %d; use Chebyshev or Butterworth", int(s.Family))
+	}
+	for i, r := range s.Rejections {
+		if !(r.F > 0) || math.IsInf(r.F, 0) {
+			return s, fmt.Errorf("filter: rejection %d: frequency must be > 0 Hz and finite, got %g Hz", i+1, r.F)
+		}
+		if w := LowpassOmega(r.F, s.F0, s.BW); math.Abs(w) <= 1 {
+			f1, f2 := BandpassFrequency(-1, s.F0, s.BW), BandpassFrequency(1, s.F0, s.BW)
+			return s, fmt.Errorf("filter: rejection %d: frequency %g Hz lies in the passband %g..%g Hz", i+1, r.F, f1, f2)
+		}
+		if !(r.Attenuation > 0) || math.IsInf(r.Attenuation, 0) {
+			return s, fmt.Errorf("filter: rejection %d: attenuation must be > 0 dB and finite, got %g dB", i+1, r.Attenuation)
+		}
+	}
+	if s.Order == 0 && len(s.Rejections) == 0 {
+		return s, fmt.Errorf("filter: give an order (1..%d) or at least one rejection requirement to choose it from", MaxOrder)
+	}
+	return s, nil
+}
+
+// attenuation is the lossless prototype insertion loss (dB) of order n at
+// normalised frequency omega for the normalised spec s.
+func (s Spec) attenuation(n int, omega float64) (float64, error) {
+	if s.Family == Butterworth {
+		return ButterworthAttenuation(n, omega)
+	}
+	return ChebyshevAttenuation(n, s.Ripple, s.Zeros, omega)
+}
+
+// MinOrder returns the smallest order that meets every rejection
+// requirement of s with the lossless prototype response: for Butterworth
+// and the classical Chebyshev response this is the closed form of
+// ButterworthOrder and ChebyshevOrder; with transmission zeros the
+// generalised Chebyshev attenuation (ChebyshevAttenuation) is evaluated
+// for N = max(1, len(Zeros)), ..., MaxOrder. The spec's Order field is
+// ignored. It is an error if s is invalid, has no rejection requirement, or
+// needs an order above MaxOrder.
+func (s Spec) MinOrder() (int, error) {
+	s.Order = 0
+	ns, err := s.normalized()
+	if err != nil {
+		return 0, err
+	}
+	return ns.minOrder()
+}
+
+// minOrder is MinOrder for a normalised spec.
+func (ns Spec) minOrder() (int, error) {
+	lo := max(1, len(ns.Zeros))
+	for n := lo; n <= MaxOrder; n++ {
+		ok := true
+		for _, r := range ns.Rejections {
+			a, err := ns.attenuation(n, LowpassOmega(r.F, ns.F0, ns.BW))
+			if err != nil {
+				return 0, err
+			}
+			if a < r.Attenuation-checkTol {
+				ok = false
+				break
+			}
+		}
+		if ok {
+			return n, nil
+		}
+	}
+	return 0, fmt.Errorf("filter: the rejection requirements need an order above the maximum %d", MaxOrder)
+}

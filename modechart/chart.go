@@ -1,0 +1,589 @@
+package modechart
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"cylcav/cavity"
+	"cylcav/physics"
+)
+
+// Axes selects the coordinates of a mode chart.
+type Axes uint8
+
+const (
+	// Squared plots (f·D)² against (D/L)², where every mode is a straight
+	// line. It is the zero value and the default.
+	Squared Axes = iota
+	// Linear plots f·D against D/L, where every mode with p >= 1 is a
+	// hyperbola-like curve and every TM mn0 mode a horizontal line.
+	Linear
+)
+
+// String returns "squared" or "linear".
+func (a Axes) String() string {
+	switch a {
+	case Squared:
+		return "squared"
+	case Linear:
+		return "linear"
+	}
+	return fmt.Sprintf("Axes(%d)", uint8(a))
+}
+
+// ParseAxes parses "squared" or "linear" (any case).
+func ParseAxes(s string) (Axes, error) {
+	switch strings.ToLower(strings.TrimSpace(s)) {
+	case "squared":
+		return Squared, nil
+	case "linear":
+		return Linear, nil
+	}
+	return 0, fmt.Errorf("modechart: unknown axes %q; use squared or linear", s)
+}
+
+// Units is the unit of the product f·D on a mode chart's vertical axis.
+type Units uint8
+
+const (
+	// GHzCm is GHz·cm (1e7 Hz·m); the zero value and the default.
+	GHzCm Units = iota
+	// GHzMm is GHz·mm (1e6 Hz·m).
+	GHzMm
+	// MHzIn is MHz·in (25400 Hz·m, with 1 in = 0.0254 m exactly).
+	MHzIn
+)
+
+// Scale returns the size of one unit in Hz·m.
+func (u Units) Scale() float64 {
+	switch u {
+	case GHzMm:
+		return 1e9 * 1e-3
+	case MHzIn:
+		return 1e6 * 0.0254
+	}
+	return 1e9 * 1e-2
+}
+
+// String returns the unit as printed on axes: "GHz·cm", "GHz·mm", "MHz·in".
+func (u Units) String() string {
+	switch u {
+	case GHzMm:
+		return "GHz·mm"
+	case MHzIn:
+		return "MHz·in"
+	}
+	return "GHz·cm"
+}
+
+// Flag returns the unit's command-line spelling: ghz-cm, ghz-mm, mhz-in.
+func (u Units) Flag() string {
+	switch u {
+	case GHzMm:
+		return "ghz-mm"
+	case MHzIn:
+		return "mhz-in"
+	}
+	return "ghz-cm"
+}
+
+// ParseUnits parses ghz-cm, ghz-mm or mhz-in (any case; "·", "." or "*"
+// may replace the hyphen).
+func ParseUnits(s string) (Units, error) {
+	t := strings.ToLower(strings.TrimSpace(s))
+	t = strings.NewReplacer("·", "-", ".", "-", "*", "-", " ", "-").Replace(t)
+	for _, u := range []Units{GHzCm, GHzMm, MHzIn} {
+		if t == u.Flag() {
+			return u, nil
+		}
+	}
+	return 0, fmt.Errorf("modechart: unknown units %q; use ghz-cm, ghz-mm or mhz-in", s)
+}
+
+// Spec describes a mode chart. The zero value is a valid spec: an empty
+// (air) cavity over D/L from DefaultRatioMin to DefaultRatioMax, squared
+// axes in GHz·cm, no wanted mode and no design point.
+type Spec struct {
+	// RatioMin and RatioMax bound D/L (diameter over length). Both zero
+	// means DefaultRatioMin..DefaultRatioMax; otherwise they must satisfy
+	// MinRatio <= RatioMin < RatioMax <= MaxRatio.
+	RatioMin, RatioMax float64
+
+	// MaxFD is the top of the chart as a product f·D in Hz·m, so modes
+	// whose lines enter the chart below it are drawn. Zero means 1.5 times
+	// the reference f·D: the design point's, else the wanted mode's at
+	// the geometric middle of the ratio range, else TE011's there.
+	MaxFD float64
+
+	// EpsR and MuR are the relative permittivity and permeability of the
+	// fill (zero means 1). With a design cavity they must be zero or equal
+	// to the cavity's, which sets the fill.
+	EpsR, MuR float64
+
+	Axes  Axes
+	Units Units
+
+	// Wanted is the operating mode; the zero Mode (no family) means none.
+	Wanted cavity.Mode
+
+	// Cavity, when its Radius is not zero, is the design: the design point
+	// is at its D/L and the wanted mode's f·D (Wanted is then required).
+	Cavity cavity.Cavity
+
+	// Tuning is the half-width of the tuning range as a fraction of the
+	// design frequency (0.02 for ±2 %), reached by moving one end plate:
+	// 0 <= Tuning < 0.5. Needs a design and a wanted mode with p >= 1.
+	Tuning float64
+
+	// DiameterTol and LengthTol are the ± machining tolerances in m,
+	// which widen the operating box in D/L. They must be >= 0 and less
+	// than a tenth of the dimension.
+	DiameterTol, LengthTol float64
+
+	// Clearance is the required spurious-mode clearance as a fraction of
+	// the wanted frequency (0.03 for 3 %), 0 <= Clearance < 1: modes
+	// within it of the operating box are marked Near.
+	Clearance float64
+}
+
+// Ratio limits and defaults.
+const (
+	DefaultRatioMin = 0.5
+	DefaultRatioMax = 3.0
+	MinRatio        = 0.01
+	MaxRatio        = 100.0
+	// MaxLines bounds the number of lines of one chart; a request past it
+	// fails with advice to lower MaxFD.
+	MaxLines = 5000
+)
+
+// Line is one straight line of the squared mode chart: the mode (or the
+// TE0mp/TM1mp pair, which share every point) with
+//
+//	(f·D)² = Intercept + Slope·(D/L)²
+//
+// in (Hz·m)², where Intercept = (c x/π)²/(εr μr) and Slope =
+// (c p/2)²/(εr μr) (derived from the resonance condition of Pozar,
+// Microwave Engineering, 4th ed., sec. 6.7, eq. (6.86)-(6.87), with a = D/2;
+// Pozar draws the same lines as the mode chart of sec. 6.7).
+type Line struct {
+	// Modes holds the mode, or the TE0mp and TM1mp pair in that order.
+	Modes []cavity.Mode
+	// Root is the transverse root x: j'_nm (TE) or j_nm (TM).
+	Root float64
+	// P is the axial index.
+	P int
+	// Intercept and Slope define the line, in (Hz·m)².
+	Intercept, Slope float64
+	// Role is the line's meaning on this chart.
+	Role Role
+}
+
+// Kind returns KindPair for a TE0mp/TM1mp pair, else the mode's family.
+func (l Line) Kind() Kind {
+	if len(l.Modes) > 1 {
+		return KindPair
+	}
+	if l.Modes[0].Family == cavity.TM {
+		return KindTM
+	}
+	return KindTE
+}
+
+// Label returns the line's name: "TE012" or "TE011/TM111" for a pair.
+func (l Line) Label() string {
+	s := make([]string, len(l.Modes))
+	for i, m := range l.Modes {
+		s[i] = m.String()
+	}
+	return strings.Join(s, "/")
+}
+
+// Has reports whether the line carries mode m.
+func (l Line) Has(m cavity.Mode) bool {
+	return slices.Contains(l.Modes, m)
+}
+
+// FD returns the product f·D in Hz·m of the line's mode at the ratio D/L = r.
+func (l Line) FD(r float64) float64 {
+	return math.Sqrt(l.Intercept + l.Slope*r*r)
+}
+
+// Ratio returns the D/L at which the line reaches f·D = fd, and false when
+// it never does (fd below the intercept, or a horizontal TM mn0 line).
+func (l Line) Ratio(fd float64) (float64, bool) {
+	d := fd*fd - l.Intercept
+	if l.Slope == 0 || d < 0 {
+		return 0, false
+	}
+	return math.Sqrt(d / l.Slope), true
+}
+
+// Point is a point of the chart in physical coordinates: the ratio D/L and
+// the product f·D in Hz·m.
+type Point struct {
+	Ratio, FD float64
+}
+
+// Box is the operating box of a design in physical coordinates: the D/L
+// span of the tuning path and the machining tolerance, times the f·D span
+// of the tuning range.
+type Box struct {
+	RatioLo, RatioHi float64
+	FDLo, FDHi       float64 // Hz·m
+}
+
+// Chart is a mode chart as data: every TE and TM mode of a filled cylinder
+// whose line enters the chart, with its role, the axes and ranges, and the
+// optional design point and operating box. Build it with New.
+type Chart struct {
+	Axes  Axes
+	Units Units
+	// RatioMin..RatioMax is the D/L range; FDMin..FDMax the f·D range in
+	// Hz·m (FDMin is 0).
+	RatioMin, RatioMax float64
+	FDMin, FDMax       float64
+	EpsR, MuR          float64
+
+	// Lines are sorted by intercept, then slope, then label.
+	Lines []Line
+	// Wanted is the index in Lines of the wanted mode's line, or -1.
+	Wanted int
+
+	// HasDesign reports whether Design, Box and Cavity are set.
+	HasDesign bool
+	Design    Point
+	Box       Box
+	// Cavity is the design cavity and DesignFreq the wanted mode's
+	// frequency in it, in Hz.
+	Cavity     cavity.Cavity
+	DesignFreq float64
+	// DiameterTol and LengthTol are Spec's tolerances in m.
+	DiameterTol, LengthTol float64
+	Clearance              float64
+	// Tuning is Spec.Tuning, kept for captions.
+	Tuning float64
+	// WantedMode is Spec.Wanted.
+	WantedMode cavity.Mode
+}
+
+// New builds the chart of spec s. It returns an error naming the field, the
+// value and the valid range when s is invalid, when the wanted mode cannot
+// be tuned as asked, or when more than MaxLines lines would be drawn.
+func New(s Spec) (*Chart, error) {
+	if s.RatioMin == 0 && s.RatioMax == 0 {
+		s.RatioMin, s.RatioMax = DefaultRatioMin, DefaultRatioMax
+	}
+	if !(s.RatioMin >= MinRatio && s.RatioMin < s.RatioMax && s.RatioMax <= MaxRatio) {
+		return nil, fmt.Errorf("modechart: D/L range must satisfy %g <= min < max <= %g, got %g..%g",
+			MinRatio, MaxRatio, s.RatioMin, s.RatioMax)
+	}
+	if s.Axes != Squared && s.Axes != Linear {
+		return nil, fmt.Errorf("modechart: unknown axes %d; use Squared or Linear", s.Axes)
+	}
+	if s.Units > MHzIn {
+		return nil, fmt.Errorf("modechart: unknown units %d; use GHzCm, GHzMm or MHzIn", s.Units)
+	}
+	hasWanted := s.Wanted.Family != 0
+	if hasWanted {
+		if err := s.Wanted.Validate(); err != nil {
+			return nil, fmt.Errorf("modechart: wanted mode: %w", err)
+		}
+	}
+	hasDesign := s.Cavity.Radius != 0
+	eps, mu := s.EpsR, s.MuR
+	if hasDesign {
+		if err := s.Cavity.Validate(); err != nil {
+			return nil, fmt.Errorf("modechart: design %w", err)
+		}
+		if !hasWanted {
+			return nil, fmt.Errorf("modechart: a design cavity needs a wanted mode to place the design point")
+		}
+		ce, cm := one(s.Cavity.EpsR), one(s.Cavity.MuR)
+		if (eps != 0 && eps != ce) || (mu != 0 && mu != cm) {
+			return nil, fmt.Errorf("modechart: chart fill (eps_r %g, mu_r %g) differs from the design cavity's (eps_r %g, mu_r %g); give one",
+				one(eps), one(mu), ce, cm)
+		}
+		eps, mu = ce, cm
+	} else {
+		if err := (cavity.Cavity{Radius: 1, Length: 1, EpsR: eps, MuR: mu}).Validate(); err != nil {
+			return nil, fmt.Errorf("modechart: fill: %w", err)
+		}
+		eps, mu = one(eps), one(mu)
+		if s.Tuning != 0 || s.DiameterTol != 0 || s.LengthTol != 0 {
+			return nil, fmt.Errorf("modechart: tuning and tolerances need a design cavity")
+		}
+	}
+	for _, q := range []struct {
+		name   string
+		v, max float64
+	}{{"tuning", s.Tuning, 0.5}, {"clearance", s.Clearance, 1}} {
+		if math.IsNaN(q.v) || q.v < 0 || q.v >= q.max {
+			return nil, fmt.Errorf("modechart: %s must be in [0, %g) as a fraction, got %g", q.name, q.max, q.v)
+		}
+	}
+	if hasDesign {
+		for _, q := range []struct {
+			name   string
+			v, dim float64
+		}{{"diameter tolerance", s.DiameterTol, s.Cavity.Diameter()}, {"length tolerance", s.LengthTol, s.Cavity.Length}} {
+			if math.IsNaN(q.v) || q.v < 0 || q.v >= q.dim/10 {
+				return nil, fmt.Errorf("modechart: %s must be in [0, %g) m (a tenth of the dimension), got %g m", q.name, q.dim/10, q.v)
+			}
+		}
+	}
+
+	ch := &Chart{
+		Axes: s.Axes, Units: s.Units,
+		RatioMin: s.RatioMin, RatioMax: s.RatioMax,
+		EpsR: eps, MuR: mu,
+		Wanted:     -1,
+		Clearance:  s.Clearance,
+		Tuning:     s.Tuning,
+		WantedMode: s.Wanted,
+	}
+	n2 := eps * mu
+	// lineOf builds the line of mode m; Pozar 4th ed., sec. 6.7 (derived,
+	// see Line).
+	lineOf := func(m cavity.Mode) Line {
+		x := m.Root()
+		if c, ok := m.Companion(); ok && m.Family == cavity.TE {
+			// Use the TM1m root for the pair so both names share one
+			// line to the last bit (j'_0m = j_1m, DLMF 10.6.3).
+			x = c.Root()
+		}
+		cx := physics.SpeedOfLight * x / math.Pi
+		cp := physics.SpeedOfLight * float64(m.P) / 2
+		return Line{Modes: []cavity.Mode{m}, Root: x, P: m.P, Intercept: cx * cx / n2, Slope: cp * cp / n2}
+	}
+
+	if hasDesign {
+		w := lineOf(s.Wanted)
+		d := s.Cavity.Diameter()
+		f0 := s.Cavity.Frequency(s.Wanted)
+		ch.HasDesign = true
+		ch.Design = Point{Ratio: d / s.Cavity.Length, FD: f0 * d}
+		ch.Cavity, ch.DesignFreq = s.Cavity, f0
+		ch.DiameterTol, ch.LengthTol = s.DiameterTol, s.LengthTol
+		box, err := operatingBox(w, s, d, f0)
+		if err != nil {
+			return nil, err
+		}
+		ch.Box = box
+	}
+
+	ch.FDMax = s.MaxFD
+	if ch.FDMax == 0 {
+		ref := cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
+		if hasWanted {
+			ref = s.Wanted
+		}
+		fd := lineOf(ref).FD(math.Sqrt(s.RatioMin * s.RatioMax))
+		if hasDesign {
+			fd = ch.Design.FD
+		}
+		ch.FDMax = 1.5 * fd
+	}
+	if !(ch.FDMax > 0 && ch.FDMax < 1e12) {
+		return nil, fmt.Errorf("modechart: top of chart must be in (0, 1e12) Hz·m, got %g Hz·m", s.MaxFD)
+	}
+	if hasDesign && ch.Box.FDHi > ch.FDMax {
+		return nil, fmt.Errorf("modechart: the operating box reaches f·D = %.4g Hz·m, above the top of the chart %.4g Hz·m; raise the chart top",
+			ch.Box.FDHi, ch.FDMax)
+	}
+	if hasDesign && (ch.Box.RatioLo < s.RatioMin || ch.Box.RatioHi > s.RatioMax) {
+		return nil, fmt.Errorf("modechart: the design's D/L span %.4g..%.4g lies outside the chart's D/L range %g..%g; widen the range",
+			ch.Box.RatioLo, ch.Box.RatioHi, s.RatioMin, s.RatioMax)
+	}
+
+	// Every mode whose line enters the chart: its lowest point is at
+	// RatioMin, so these are the modes of a cavity with D = 1 m and
+	// L = 1/RatioMin (whose frequency is f·D) at or below FDMax.
+	ref := cavity.Cavity{Radius: 0.5, Length: 1 / s.RatioMin, EpsR: eps, MuR: mu}
+	count, _, err := ref.Count(ch.FDMax)
+	if err != nil {
+		return nil, fmt.Errorf("modechart: listing modes up to f·D = %.4g Hz·m: %w; lower the top of the chart", ch.FDMax, err)
+	}
+	if count > 2*MaxLines {
+		return nil, fmt.Errorf("modechart: %d modes below the chart top %.4g Hz·m exceed the %d-line limit; lower the top of the chart",
+			count, ch.FDMax, MaxLines)
+	}
+	res, err := ref.Modes(ch.FDMax)
+	if err != nil {
+		return nil, fmt.Errorf("modechart: listing modes: %w", err)
+	}
+	lines := make([]Line, 0, len(res))
+	seen := make(map[cavity.Mode]int, len(res))
+	for _, r := range res {
+		m := r.Mode
+		if c, ok := m.Companion(); ok {
+			if i, ok := seen[c]; ok {
+				lines[i].Modes = append(lines[i].Modes, m)
+				sortPair(lines[i].Modes)
+				seen[m] = i
+				continue
+			}
+		}
+		seen[m] = len(lines)
+		lines = append(lines, lineOf(m))
+	}
+	if len(lines) > MaxLines {
+		return nil, fmt.Errorf("modechart: %d lines below the chart top %.4g Hz·m exceed the %d-line limit; lower the top of the chart",
+			len(lines), ch.FDMax, MaxLines)
+	}
+	// Keep the pair's line on the TM1m root whichever name came first.
+	for i := range lines {
+		if len(lines[i].Modes) == 2 {
+			t := lineOf(lines[i].Modes[1])
+			lines[i].Root, lines[i].Intercept, lines[i].Slope = t.Root, t.Intercept, t.Slope
+		}
+	}
+	slices.SortStableFunc(lines, func(a, b Line) int {
+		if c := cmp.Compare(a.Intercept, b.Intercept); c != 0 {
+			return c
+		}
+		if c := cmp.Compare(a.Slope, b.Slope); c != 0 {
+			return c
+		}
+		return cmp.Compare(a.Label(), b.Label())
+	})
+	ch.Lines = lines
+	if hasWanted {
+		for i := range ch.Lines {
+			if ch.Lines[i].Has(s.Wanted) {
+				ch.Wanted = i
+				ch.Lines[i].Role = Wanted
+			}
+		}
+	}
+	if hasDesign {
+		ch.classify()
+	}
+	return ch, nil
+}
+
+func one(v float64) float64 {
+	if v == 0 {
+		return 1
+	}
+	return v
+}
+
+func sortPair(ms []cavity.Mode) {
+	slices.SortFunc(ms, func(a, b cavity.Mode) int { return cmp.Compare(a.Family, b.Family) })
+}
+
+// operatingBox returns the box spanned by tuning the wanted mode w over
+// f0 (1 ± Tuning) with D fixed (moving one end plate), widened in D/L by
+// the worst-case ratio tolerance d(D/L)/(D/L) = dD/D + dL/L (derived: first
+// order, both errors adding).
+func operatingBox(w Line, s Spec, d, f0 float64) (Box, error) {
+	r0 := d / s.Cavity.Length
+	lo, hi := r0, r0
+	if s.Tuning > 0 {
+		if w.Slope == 0 {
+			return Box{}, fmt.Errorf("modechart: %v cannot be tuned by moving an end plate: with p = 0 its frequency does not depend on the length; set tuning to 0",
+				s.Wanted)
+		}
+		var ok bool
+		if lo, ok = w.Ratio(f0 * (1 - s.Tuning) * d); !ok || lo == 0 {
+			return Box{}, fmt.Errorf("modechart: %v cannot be tuned down by %.3g %%: its frequency never falls below %.6g Hz however long the cavity; lower the tuning",
+				s.Wanted, 100*s.Tuning, math.Sqrt(w.Intercept)/d)
+		}
+		hi, _ = w.Ratio(f0 * (1 + s.Tuning) * d)
+	}
+	tol := s.DiameterTol/d + s.LengthTol/s.Cavity.Length
+	return Box{
+		RatioLo: lo * (1 - tol), RatioHi: hi * (1 + tol),
+		FDLo: f0 * (1 - s.Tuning) * d, FDHi: f0 * (1 + s.Tuning) * d,
+	}, nil
+}
+
+// classify sets the role of every spurious line: Crossing when its f·D over
+// the box's D/L span overlaps the box's f·D span, Near when it overlaps that
+// span widened by the clearance, f·D (1 ± Clearance). Lines rise with D/L,
+// so the span of a line over [RatioLo, RatioHi] is [FD(RatioLo),
+// FD(RatioHi)].
+func (ch *Chart) classify() {
+	b := ch.Box
+	for i := range ch.Lines {
+		l := &ch.Lines[i]
+		if i == ch.Wanted {
+			continue
+		}
+		lo, hi := l.FD(b.RatioLo), l.FD(b.RatioHi)
+		switch {
+		case hi >= b.FDLo && lo <= b.FDHi:
+			l.Role = Crossing
+		case hi >= b.FDLo*(1-ch.Clearance) && lo <= b.FDHi*(1+ch.Clearance):
+			l.Role = Near
+		default:
+			l.Role = Ordinary
+		}
+	}
+}
+
+// X returns the horizontal chart coordinate of the ratio D/L = r: r² on
+// squared axes, r on linear axes.
+func (ch *Chart) X(r float64) float64 {
+	if ch.Axes == Squared {
+		return r * r
+	}
+	return r
+}
+
+// Y returns the vertical chart coordinate of f·D (Hz·m): (f·D/u)² on
+// squared axes and f·D/u on linear axes, u the chart's unit.
+func (ch *Chart) Y(fd float64) float64 {
+	v := fd / ch.Units.Scale()
+	if ch.Axes == Squared {
+		return v * v
+	}
+	return v
+}
+
+// RatioAt inverts X.
+func (ch *Chart) RatioAt(x float64) float64 {
+	if ch.Axes == Squared {
+		return math.Sqrt(math.Max(0, x))
+	}
+	return x
+}
+
+// FDAt inverts Y.
+func (ch *Chart) FDAt(y float64) float64 {
+	if ch.Axes == Squared {
+		return math.Sqrt(math.Max(0, y)) * ch.Units.Scale()
+	}
+	return y * ch.Units.Scale()
+}
+
+// XLabel and YLabel return the axis titles with their units.
+func (ch *Chart) XLabel() string {
+	if ch.Axes == Squared {
+		return "(D/L)²   (diameter over length, squared)"
+	}
+	return "D/L   (diameter over length)"
+}
+
+// YLabel returns the vertical axis title with its unit.
+func (ch *Chart) YLabel() string {
+	if ch.Axes == Squared {
+		return fmt.Sprintf("(f·D)²   [(%s)²]", ch.Units)
+	}
+	return fmt.Sprintf("f·D   [%s]", ch.Units)
+}
+
+// Spurious returns the lines with role Crossing or Near, in chart order.
+func (ch *Chart) Spurious() []Line {
+	var out []Line
+	for _, l := range ch.Lines {
+		if l.Role == Crossing || l.Role == Near {
+			out = append(out, l)
+		}
+	}
+	return out
+}

@@ -1,0 +1,176 @@
+package modechart
+
+import (
+	"fmt"
+	"image/color"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"cylcav/physics"
+)
+
+// Plot returns the chart's panel in theme th: grid, clearance band,
+// operating box, mode lines with on-line labels and the design point. The
+// ModeLines plotter is returned too, so callers can inspect its label
+// layout.
+func (ch *Chart) Plot(th Theme) (*plot.Plot, *ModeLines, error) {
+	ml, err := NewModeLines(ch)
+	if err != nil {
+		return nil, nil, err
+	}
+	ml.Theme = th
+	p := th.NewPlot("", ch.XLabel(), ch.YLabel())
+	p.X.Min, p.X.Max = ml.XMin, ml.XMax
+	p.Y.Min, p.Y.Max = ml.YMin, ml.YMax
+
+	if ch.HasDesign {
+		b := ch.Box
+		band, err := NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi),
+			ch.Y(b.FDLo*(1-ch.Clearance)), ch.Y(b.FDHi*(1+ch.Clearance)))
+		if err != nil {
+			return nil, nil, err
+		}
+		band.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}
+		band.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot}
+		box, err := NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi), ch.Y(b.FDLo), ch.Y(b.FDHi))
+		if err != nil {
+			return nil, nil, err
+		}
+		box.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}
+		box.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(0.9)}
+		ml.Avoid = append(ml.Avoid,
+			Rect{band.XMin, band.XMax, band.YMin, band.YMax},
+			Rect{ch.X(ch.Design.Ratio), ch.X(ch.Design.Ratio), ch.Y(ch.Design.FD), ch.Y(ch.Design.FD)})
+		p.Add(band, box, ml)
+		for _, g := range designGlyphs() {
+			s, err := plotter.NewScatter(plotter.XYs{{X: ch.X(ch.Design.Ratio), Y: ch.Y(ch.Design.FD)}})
+			if err != nil {
+				return nil, nil, err
+			}
+			s.GlyphStyle = g
+			p.Add(s)
+		}
+	} else {
+		p.Add(ml)
+	}
+	// Keep the axes exactly on the chart's range.
+	p.X.Min, p.X.Max = ml.XMin, ml.XMax
+	p.Y.Min, p.Y.Max = ml.YMin, ml.YMax
+	return p, ml, nil
+}
+
+// designGlyphs is the design-point marker: an ink dot in a white ring, seen
+// on any line colour.
+func designGlyphs() []draw.GlyphStyle {
+	return []draw.GlyphStyle{
+		{Color: color.White, Radius: vg.Points(5.2), Shape: draw.CircleGlyph{}},
+		{Color: Ink, Radius: vg.Points(3.4), Shape: draw.CircleGlyph{}},
+	}
+}
+
+// Figure returns the chart as a page: title, the panel of Plot, a legend
+// of the line styles present, and notes with the index convention, the
+// line equation and its source, and the design.
+func (ch *Chart) Figure(th Theme) (*Figure, error) {
+	p, ml, err := ch.Plot(th)
+	if err != nil {
+		return nil, err
+	}
+	f := NewFigure(th, ch.Title())
+	f.Panels = []*plot.Plot{p}
+
+	present := map[Kind]bool{}
+	roles := map[Role]bool{}
+	for _, l := range ch.Lines {
+		if l.Role == Ordinary {
+			present[l.Kind()] = true
+		}
+		roles[l.Role] = true
+	}
+	if present[KindTE] {
+		f.Legend.Add("TE mode", LineThumb{ml.ModeLine(KindTE, Ordinary)})
+	}
+	if present[KindTM] {
+		f.Legend.Add("TM mode", LineThumb{ml.ModeLine(KindTM, Ordinary)})
+	}
+	if present[KindPair] {
+		f.Legend.Add("TE0mp/TM1mp pair (one line)", LineThumb{ml.ModeLine(KindPair, Ordinary)})
+	}
+	if ch.Wanted >= 0 {
+		l := ch.Lines[ch.Wanted]
+		f.Legend.Add("wanted: "+l.Label(), LineThumb{ml.ModeLine(l.Kind(), Wanted)})
+	}
+	if roles[Crossing] {
+		f.Legend.Add("spurious, crosses operating box", LineThumb{ml.ModeLine(KindTE, Crossing)})
+	}
+	if roles[Near] || (ch.HasDesign && ch.Clearance > 0) {
+		f.Legend.Add(fmt.Sprintf("spurious, within %s clearance", pct(ch.Clearance)), LineThumb{ml.ModeLine(KindTE, Near)})
+	}
+	if ch.HasDesign {
+		f.Legend.Add(ch.boxCaption(), BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.9)}})
+		if ch.Clearance > 0 {
+			f.Legend.Add(fmt.Sprintf("clearance band ±%s", pct(ch.Clearance)),
+				BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot}})
+		}
+		thumbs := []plot.Thumbnailer{}
+		for _, g := range designGlyphs() {
+			thumbs = append(thumbs, GlyphThumb{g})
+		}
+		f.Legend.Add(fmt.Sprintf("design point, D/L = %.4g", ch.Design.Ratio), thumbs...)
+	}
+
+	f.Notes = append(f.Notes,
+		"Modes TE_nmp, TM_nmp: n azimuthal, m radial, p axial index.  Each line: (f·D)² = [(c·x_nm/π)² + (c·p/2)²·(D/L)²] / (εr·μr),  x = j'_nm (TE), j_nm (TM)  (Pozar, Microwave Engineering, sec. 6.7).")
+	if ch.HasDesign {
+		c := ch.Cavity
+		f.Notes = append(f.Notes, fmt.Sprintf("Design: D = %s, L = %s, %v at %s%s.",
+			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5),
+			ch.WantedMode, physics.FormatFrequency(ch.DesignFreq, 6), fillNote(ch.EpsR, ch.MuR)))
+	} else if ch.EpsR != 1 || ch.MuR != 1 {
+		f.Notes = append(f.Notes, "Fill:"+strings.TrimPrefix(fillNote(ch.EpsR, ch.MuR), ",")+".")
+	}
+	return f, nil
+}
+
+// Title returns the chart's title.
+func (ch *Chart) Title() string {
+	t := "Mode chart of a closed circular cylinder"
+	if ch.HasDesign {
+		t += fmt.Sprintf(": %v at %s", ch.WantedMode, physics.FormatFrequency(ch.DesignFreq, 5))
+	}
+	return t
+}
+
+func (ch *Chart) boxCaption() string {
+	var parts []string
+	if ch.Tuning > 0 {
+		parts = append(parts, "tuning ±"+pct(ch.Tuning))
+	}
+	if ch.DiameterTol > 0 || ch.LengthTol > 0 {
+		parts = append(parts, "D/L tolerance")
+	}
+	if len(parts) == 0 {
+		return "operating point"
+	}
+	return "operating box: " + strings.Join(parts, " × ")
+}
+
+func fillNote(eps, mu float64) string {
+	switch {
+	case eps == 1 && mu == 1:
+		return ", empty (air/vacuum)"
+	case mu == 1:
+		return fmt.Sprintf(", filled, εr = %.4g", eps)
+	}
+	return fmt.Sprintf(", filled, εr = %.4g, μr = %.4g", eps, mu)
+}
+
+// pct prints a fraction as a percentage with up to three significant
+// digits: 0.03 -> "3 %".
+func pct(f float64) string {
+	return fmt.Sprintf("%.3g %%", 100*f)
+}

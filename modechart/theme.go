@@ -1,0 +1,284 @@
+package modechart
+
+import (
+	"image/color"
+
+	xfont "golang.org/x/image/font"
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/font"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+)
+
+// The cylcav palette. The hues come from the colour-blind-safe qualitative
+// schemes of P. Tol, "Colour Schemes", SRON/EPS/TN/09-002 (2021), sets
+// "bright" and "vibrant"; every pair used together on one chart also differs
+// in lightness, line width or dash pattern, so the charts stay readable in
+// greyscale and for readers with any common colour-vision deficiency.
+var (
+	// Ink is the near-black of axes, text and the wanted mode.
+	Ink = color.RGBA{R: 0x1a, G: 0x1a, B: 0x1a, A: 0xff}
+	// Blue marks ordinary TE lines (Tol bright blue).
+	Blue = color.RGBA{R: 0x44, G: 0x77, B: 0xaa, A: 0xff}
+	// Purple marks ordinary TM lines (Tol bright purple).
+	Purple = color.RGBA{R: 0xaa, G: 0x33, B: 0x77, A: 0xff}
+	// Green marks TE0mp/TM1mp degenerate pairs (Tol bright green).
+	Green = color.RGBA{R: 0x22, G: 0x88, B: 0x33, A: 0xff}
+	// Red marks spurious modes that cross the operating box (Tol vibrant red).
+	Red = color.RGBA{R: 0xcc, G: 0x33, B: 0x11, A: 0xff}
+	// Orange marks spurious modes within the required clearance (Tol
+	// vibrant orange).
+	Orange = color.RGBA{R: 0xee, G: 0x77, B: 0x33, A: 0xff}
+	// DarkOrange is Orange darkened for text on white (contrast >= 4.5:1).
+	DarkOrange = color.RGBA{R: 0xa8, G: 0x4a, B: 0x10, A: 0xff}
+	// Teal is the fourth series colour (Tol vibrant teal).
+	Teal = color.RGBA{R: 0x00, G: 0x99, B: 0x88, A: 0xff}
+	// Sand fills the operating box (Tol bright yellow, translucent).
+	Sand = color.RGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xff}
+	// GridGrey is the colour of grid lines.
+	GridGrey = color.RGBA{R: 0xdd, G: 0xdd, B: 0xdd, A: 0xff}
+)
+
+// Dash patterns, in points. Solid is nil.
+var (
+	dashTM      = []vg.Length{vg.Points(5), vg.Points(2.5)}
+	dashPair    = []vg.Length{vg.Points(7), vg.Points(2), vg.Points(1.5), vg.Points(2)}
+	dashDot     = []vg.Length{vg.Points(1.2), vg.Points(2.2)}
+	dashLong    = []vg.Length{vg.Points(9), vg.Points(3)}
+	dashDashDot = []vg.Length{vg.Points(5), vg.Points(2), vg.Points(1.2), vg.Points(2), vg.Points(1.2), vg.Points(2)}
+)
+
+// Theme is the look of every cylcav plot: fonts, sizes, colours and line
+// styles. The zero value is not useful; start from DefaultTheme and change
+// fields. A Theme holds no references that plots mutate, so one value may
+// style any number of plots, concurrently.
+type Theme struct {
+	// Font is the typeface of all text (size is set per use).
+	Font font.Font
+	// TitleSize, AxisSize, TickSize, LegendSize and LabelSize are the font
+	// sizes of the plot title, axis titles, tick labels, legend entries
+	// and on-line mode labels.
+	TitleSize, AxisSize, TickSize, LegendSize, LabelSize font.Length
+
+	// Background fills the page; Grid styles the major grid lines; Axis
+	// styles the axis lines and tick marks.
+	Background color.Color
+	Grid       draw.LineStyle
+	Axis       draw.LineStyle
+
+	// LineWidth is the width of an ordinary data line; emphasised lines
+	// are multiples of it.
+	LineWidth vg.Length
+}
+
+// DefaultTheme returns the cylcav look: Liberation Sans (metric-compatible
+// with the common sans-serif faces, so SVG text measures the same in a
+// browser), 11 pt axis titles, 9.5 pt ticks, light solid grid, white page.
+func DefaultTheme() Theme {
+	return Theme{
+		Font:       font.Font{Typeface: "Liberation", Variant: "Sans"},
+		TitleSize:  font.Points(12.5),
+		AxisSize:   font.Points(11),
+		TickSize:   font.Points(9.5),
+		LegendSize: font.Points(9),
+		LabelSize:  font.Points(7.5),
+		Background: color.White,
+		Grid:       draw.LineStyle{Color: GridGrey, Width: vg.Points(0.5)},
+		Axis:       draw.LineStyle{Color: Ink, Width: vg.Points(0.8)},
+		LineWidth:  vg.Points(0.9),
+	}
+}
+
+// Text returns a plain-text style of the theme's font at the given size and
+// colour, centred on its anchor.
+func (th Theme) Text(size font.Length, c color.Color) text.Style {
+	f := th.Font
+	f.Size = size
+	return text.Style{
+		Color:   c,
+		Font:    f,
+		XAlign:  draw.XCenter,
+		YAlign:  draw.YCenter,
+		Handler: plot.DefaultTextHandler,
+	}
+}
+
+// Bold returns Text in the bold weight.
+func (th Theme) Bold(size font.Length, c color.Color) text.Style {
+	s := th.Text(size, c)
+	s.Font.Weight = xfont.WeightBold
+	return s
+}
+
+// NewPlot returns an empty plot in the theme: title, axis titles (write
+// the unit in them, as "Frequency (GHz)"), fonts, axis lines, a light grid
+// under the data and white background. The axis ranges are left to the
+// plotters added later.
+func (th Theme) NewPlot(title, xLabel, yLabel string) *plot.Plot {
+	p := plot.New()
+	p.BackgroundColor = th.Background
+	p.Title.Text = title
+	p.Title.TextStyle = th.Bold(th.TitleSize, Ink)
+	p.Title.TextStyle.YAlign = draw.YTop
+	p.Title.Padding = vg.Points(6)
+	for _, ax := range []*plot.Axis{&p.X, &p.Y} {
+		ax.LineStyle = th.Axis
+		ax.Padding = 0
+		ax.Tick.LineStyle = th.Axis
+		ax.Tick.Length = vg.Points(4)
+		ax.Label.TextStyle = th.Text(th.AxisSize, Ink)
+		ax.Label.Padding = vg.Points(4)
+		ax.Tick.Label = th.Text(th.TickSize, Ink)
+		ax.Tick.Marker = Ticks{}
+	}
+	p.X.Label.Text = xLabel
+	p.X.Label.TextStyle.YAlign = draw.YBottom
+	p.X.Tick.Label.YAlign = draw.YTop
+	p.Y.Label.Text = yLabel
+	p.Y.Label.TextStyle.YAlign = draw.YBottom
+	p.Y.Tick.Label.XAlign = draw.XRight
+	p.Y.Tick.Label.YAlign = draw.YCenter
+	g := plotter.NewGrid()
+	g.Vertical = th.Grid
+	g.Horizontal = th.Grid
+	p.Add(g)
+	return p
+}
+
+// Series returns the style of the i-th data series of a multi-series plot
+// (i >= 0; the scheme repeats after six). Neighbouring series differ in
+// colour, lightness and dash pattern, so they stay apart in greyscale:
+// ink solid, blue dashed, red dash-dot, green dotted, purple long dash,
+// teal dash-dot-dot. The first series is drawn wider.
+func (th Theme) Series(i int) draw.LineStyle {
+	styles := [...]struct {
+		c    color.Color
+		dash []vg.Length
+		w    float64
+	}{
+		{Ink, nil, 1.8},
+		{Blue, dashTM, 1.4},
+		{Red, dashPair, 1.4},
+		{Green, dashDot, 1.6},
+		{Purple, dashLong, 1.3},
+		{Teal, dashDashDot, 1.3},
+	}
+	if i < 0 {
+		i = 0
+	}
+	s := styles[i%len(styles)]
+	return draw.LineStyle{Color: s.c, Width: vg.Length(s.w) * th.LineWidth, Dashes: s.dash}
+}
+
+// Marker returns the glyph style of the i-th point series: filled circle,
+// open square, triangle, cross, ring, plus, in the colours of Series(i).
+func (th Theme) Marker(i int) draw.GlyphStyle {
+	shapes := [...]draw.GlyphDrawer{
+		draw.CircleGlyph{}, draw.BoxGlyph{}, draw.TriangleGlyph{},
+		draw.CrossGlyph{}, draw.RingGlyph{}, draw.PlusGlyph{},
+	}
+	if i < 0 {
+		i = 0
+	}
+	return draw.GlyphStyle{
+		Color:  th.Series(i).Color,
+		Radius: vg.Points(3),
+		Shape:  shapes[i%len(shapes)],
+	}
+}
+
+// Role is what a line means on a mode chart; it decides its style and the
+// priority of its label.
+type Role uint8
+
+// The roles, in increasing order of emphasis.
+const (
+	// Ordinary is any mode away from the operating box.
+	Ordinary Role = iota
+	// Near is a spurious mode that comes within the required clearance
+	// of the operating box without crossing it.
+	Near
+	// Crossing is a spurious mode whose line passes through the operating
+	// box: it resonates inside the tuning range somewhere.
+	Crossing
+	// Wanted is the operating mode (with its exact companion, if any).
+	Wanted
+)
+
+// String returns the role's name as used in legends.
+func (r Role) String() string {
+	switch r {
+	case Ordinary:
+		return "ordinary"
+	case Near:
+		return "near"
+	case Crossing:
+		return "crossing"
+	case Wanted:
+		return "wanted"
+	}
+	return "Role(?)"
+}
+
+// Kind is the family of a chart line: TE, TM, or a TE0mp/TM1mp pair that
+// shares one line.
+type Kind uint8
+
+// The line kinds.
+const (
+	KindTE Kind = iota
+	KindTM
+	KindPair
+)
+
+// ModeLine returns the line style of a mode-chart line of the given kind
+// and role. Families are told apart by dash (TE solid, TM dashed, pairs
+// dash-dot) and roles by colour and width: ordinary thin blue/purple/green,
+// near medium orange, crossing wide red, wanted widest ink and always solid.
+func (th Theme) ModeLine(k Kind, r Role) draw.LineStyle {
+	var s draw.LineStyle
+	switch k {
+	case KindTM:
+		s = draw.LineStyle{Color: Purple, Dashes: dashTM}
+	case KindPair:
+		s = draw.LineStyle{Color: Green, Dashes: dashPair}
+	default:
+		s = draw.LineStyle{Color: Blue}
+	}
+	s.Width = th.LineWidth
+	switch r {
+	case Near:
+		s.Color, s.Width = Orange, 1.8*th.LineWidth
+	case Crossing:
+		s.Color, s.Width = Red, 2.2*th.LineWidth
+	case Wanted:
+		// Always solid: the label names the family.
+		s.Color, s.Width, s.Dashes = Ink, 2.8*th.LineWidth, nil
+	}
+	if s.Dashes != nil && r != Ordinary {
+		// Wider lines need longer dashes to read as dashed.
+		d := make([]vg.Length, len(s.Dashes))
+		for i, v := range s.Dashes {
+			d[i] = v * 1.5
+		}
+		s.Dashes = d
+	}
+	return s
+}
+
+// LabelColor returns the text colour of an on-line label for a line of the
+// given kind and role: the line colour, darkened where the line colour is
+// too light for small text on white.
+func (th Theme) LabelColor(k Kind, r Role) color.Color {
+	switch r {
+	case Near:
+		return DarkOrange
+	case Crossing:
+		return Red
+	case Wanted:
+		return Ink
+	}
+	return th.ModeLine(k, r).Color
+}
