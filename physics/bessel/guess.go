@@ -115,8 +115,8 @@ func mcMahonPrime(mu, beta float64) float64 {
 		32*(83*mu*mu*mu+2075*mu*mu-3039*mu+3537)/(15*b*b2*b2)
 }
 
-// debyePhaseInverse returns the x > nu >= 0 at which
-// psi(x) = sqrt(x^2 - nu^2) - nu arccos(nu/x) equals phi > 0.
+// debyePhaseInverse returns, to about 1e-9 relative, the x > nu >= 0 at
+// which psi(x) = sqrt(x^2 - nu^2) - nu arccos(nu/x) equals phi > 0.
 //
 // psi is increasing and convex on x > nu (psi' = sqrt(x^2-nu^2)/x), so
 // Newton's method started above the root converges to it monotonically. Two
@@ -136,7 +136,7 @@ func debyePhaseInverse(nu, phi float64) float64 {
 		f := w - nu*math.Acos(nu/x) - phi
 		dx := f * x / w
 		x -= dx
-		if dx <= 1e-12*x {
+		if !(dx > 1e-9*x) {
 			break
 		}
 	}

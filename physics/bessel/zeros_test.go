@@ -23,7 +23,8 @@ import (
 // correctly to float64, so the table is exact to half an ulp.
 //
 // The spot values of A&S Table 9.5 are recalled from memory (not read from
-// the printed page) to 10 decimals and compared at that precision.
+// the printed page) to 10 decimals; some recalled 10th decimals are off by
+// a unit, so they are compared to 1e-9.
 //
 // Beyond the table (orders and counts up to 1000) the zeros are checked by
 // an independent evaluation: math.Jn, which for x >= n uses forward
@@ -35,6 +36,9 @@ const (
 	// tableTol is the relative error allowed against the 30-digit table:
 	// 2 ulp is about 4.4e-16; the measured maximum is given in doc.go.
 	tableTol = 1e-15
+	// veryCloseTol is 2 ulp (2 * 2^-52 relative), for values that must
+	// agree but may round differently.
+	veryCloseTol = 4.5e-16
 	// identityTol bounds the implied relative position error
 	// |f(x)| / (|f'(x)| x) of a zero x of f = J_n or J'_n, with f and f'
 	// from math.Jn. math.Jn itself is accurate to some ulp of the
@@ -59,9 +63,9 @@ func tolerance(a, b, e float64) bool {
 	return d < e
 }
 
-// close reports agreement to tableTol, veryclose to 2 ulp.
+// close reports agreement to tableTol, veryclose to veryCloseTol.
 func close(a, b float64) bool     { return tolerance(a, b, tableTol) }
-func veryclose(a, b float64) bool { return tolerance(a, b, 4.5e-16) }
+func veryclose(a, b float64) bool { return tolerance(a, b, veryCloseTol) }
 
 // refTable is a reference table: ref[n][m-1] is the m-th zero of order n.
 type refTable [][]float64
@@ -123,9 +127,20 @@ func table() (j, jp [][]float64) {
 	return j, jp
 }
 
+// tableSeparate computes the same with JZeros and JPrimeZeros.
+func tableSeparate() (j, jp [][]float64) {
+	j = make([][]float64, refOrders)
+	jp = make([][]float64, refOrders)
+	for n := range refOrders {
+		j[n], jp[n] = JZeros(n, refZerosPerOrder), JPrimeZeros(n, refZerosPerOrder)
+	}
+	return j, jp
+}
+
 func TestZerosTable(t *testing.T) {
 	wantJ, wantJP := readRef(t, refJ), readRef(t, refJPrime)
 	gotJ, gotJP := table()
+	sepJ, sepJP := tableSeparate()
 	var worst float64
 	var worstAt string
 	for n := range refOrders {
@@ -134,8 +149,10 @@ func TestZerosTable(t *testing.T) {
 				name      string
 				got, want float64
 			}{
-				{"j", gotJ[n][i], wantJ[n][i]},
-				{"j'", gotJP[n][i], wantJP[n][i]},
+				{"Zeros j", gotJ[n][i], wantJ[n][i]},
+				{"Zeros j'", gotJP[n][i], wantJP[n][i]},
+				{"JZeros", sepJ[n][i], wantJ[n][i]},
+				{"JPrimeZeros", sepJP[n][i], wantJP[n][i]},
 			} {
 				if !close(c.got, c.want) {
 					t.Errorf("%s(%d, %d) = %.17g, want %.17g", c.name, n, i+1, c.got, c.want)
@@ -149,29 +166,34 @@ func TestZerosTable(t *testing.T) {
 	t.Logf("largest relative error against mpmath: %.3g at %s", worst, worstAt)
 }
 
-// TestEntryPointsAgree checks that JZeros and JPrimeZeros return what Zeros
-// returns, and that a zero does not depend on how many were asked for.
+// TestEntryPointsAgree checks that JZeros and JPrimeZeros return, to the
+// last bit, what Zeros returns, and that a zero does not depend on how
+// many were asked for.
 func TestEntryPointsAgree(t *testing.T) {
 	for _, n := range []int{0, 1, 2, 5, 17, 200, 1000} {
 		j, jp := Zeros(n, 60)
 		gotJ, gotJP := JZeros(n, 60), JPrimeZeros(n, 60)
-		short := JZeros(n, 3)
-		shortP := JPrimeZeros(n, 1)
+		shortJ, shortJP := Zeros(n, 2)
 		for i := range j {
 			if gotJ[i] != j[i] {
-				t.Errorf("JZeros(%d, 60)[%d] = %v, want %v (Zeros)", n, i, gotJ[i], j[i])
+				t.Errorf("JZeros(%d, 60)[%d] = %.17g, want %.17g (Zeros)", n, i, gotJ[i], j[i])
 			}
 			if gotJP[i] != jp[i] {
-				t.Errorf("JPrimeZeros(%d, 60)[%d] = %v, want %v (Zeros)", n, i, gotJP[i], jp[i])
+				t.Errorf("JPrimeZeros(%d, 60)[%d] = %.17g, want %.17g (Zeros)", n, i, gotJP[i], jp[i])
 			}
 		}
-		for i := range short {
-			if short[i] != j[i] {
-				t.Errorf("JZeros(%d, 3)[%d] = %v, want %v", n, i, short[i], j[i])
+		for i, c := range []struct {
+			name      string
+			got, want float64
+		}{
+			{"JZeros(n, 3)[2]", JZeros(n, 3)[2], j[2]},
+			{"JPrimeZeros(n, 1)[0]", JPrimeZeros(n, 1)[0], jp[0]},
+			{"Zeros(n, 2) j[1]", shortJ[1], j[1]},
+			{"Zeros(n, 2) jp[1]", shortJP[1], jp[1]},
+		} {
+			if c.got != c.want {
+				t.Errorf("case %d, n = %d: %s = %.17g, want %.17g (Zeros(n, 60))", i, n, c.name, c.got, c.want)
 			}
-		}
-		if shortP[0] != jp[0] {
-			t.Errorf("JPrimeZeros(%d, 1)[0] = %v, want %v", n, shortP[0], jp[0])
 		}
 		if len(gotJ) != 60 || cap(gotJ) != 60 || len(gotJP) != 60 || cap(gotJP) != 60 {
 			t.Errorf("JZeros/JPrimeZeros(%d, 60): len, cap = %d, %d / %d, %d, want 60", n, len(gotJ), cap(gotJ), len(gotJP), cap(gotJP))
@@ -321,6 +343,8 @@ func checkInterlacing(t *testing.T, what string, j, jp [][]float64) {
 func TestInterlacing(t *testing.T) {
 	j, jp := table()
 	checkInterlacing(t, "Zeros", j, jp)
+	j, jp = tableSeparate()
+	checkInterlacing(t, "JZeros, JPrimeZeros", j, jp)
 	// The reference table itself must obey the same inequalities.
 	checkInterlacing(t, "mpmath table", readRef(t, refJ), readRef(t, refJPrime))
 }
@@ -334,8 +358,9 @@ func residualJ(n int, x float64) float64 {
 	return math.Abs(f) / (math.Abs(df) * x)
 }
 
-// residualJPrime returns |J'_n(x)| / (|J''_n(x)| x) likewise, with
-// J''_n = -J'_n/x - (1 - n^2/x^2) J_n from Bessel's equation (DLMF 10.2.1).
+// residualJPrime returns |J'_n(x)| / (|J_n^(2)(x)| x) likewise, with the
+// second derivative J_n^(2) = -J'_n/x - (1 - n^2/x^2) J_n from Bessel's
+// equation (DLMF 10.2.1).
 func residualJPrime(n int, x float64) float64 {
 	jn := math.Jn(n, x)
 	df := (math.Jn(n-1, x) - math.Jn(n+1, x)) / 2
@@ -358,7 +383,7 @@ func TestIdentityRandom(t *testing.T) {
 				t.Errorf("J_%d(j(%d, %d) = %.17g) / (J'_%d x) = %.3g, want <= %g", n, n, i+1, j[i], n, r, identityTol)
 			}
 			if r := residualJPrime(n, jp[i]); r > identityTol {
-				t.Errorf("J'_%d(j'(%d, %d) = %.17g) / (J''_%d x) = %.3g, want <= %g", n, n, i+1, jp[i], n, r, identityTol)
+				t.Errorf("J'_%d(j'(%d, %d) = %.17g) / (J^(2)_%d x) = %.3g, want <= %g", n, n, i+1, jp[i], n, r, identityTol)
 			}
 		}
 	}
@@ -396,5 +421,55 @@ func TestLargeOrder(t *testing.T) {
 	x := (j[count-1] + j[count-2]) / 2
 	if d, want := j[count-1]-j[count-2], math.Pi*x/math.Sqrt(x*x-n*n); math.Abs(d-want) > 1e-4*want {
 		t.Errorf("j(%d, %d) - j(%d, %d) = %v, want %v (Debye phase)", n, count, n, count-1, d, want)
+	}
+}
+
+// TestMcMahon compares far zeros with McMahon's expansion (DLMF 10.21.19,
+// 10.21.20), which at m = 20000 and small n has a neglected term of order
+// beta^-7 < 1e-30 relative: an independent route to the same numbers after
+// 20000 steps of the march.
+func TestMcMahon(t *testing.T) {
+	const m = 20000
+	// Terms to beta^-5 of DLMF 10.21.19 and 10.21.20, mu = 4 n^2.
+	mcMahonJ := func(n float64) float64 {
+		mu, beta := 4*n*n, (m+n/2-0.25)*math.Pi
+		b := 8 * beta
+		return beta - (mu-1)/b - 4*(mu-1)*(7*mu-31)/(3*b*b*b) -
+			32*(mu-1)*(83*mu*mu-982*mu+3779)/(15*b*b*b*b*b)
+	}
+	mcMahonJPrime := func(n float64, m int) float64 {
+		mu, beta := 4*n*n, (float64(m)+n/2-0.75)*math.Pi
+		b := 8 * beta
+		return beta - (mu+3)/b - 4*(7*mu*mu+82*mu-9)/(3*b*b*b) -
+			32*(83*mu*mu*mu+2075*mu*mu-3039*mu+3537)/(15*b*b*b*b*b)
+	}
+	for _, n := range []int{0, 1, 2, 5} {
+		j, jp := Zeros(n, m)
+		if want := mcMahonJ(float64(n)); !close(j[m-1], want) {
+			t.Errorf("j(%d, %d) = %.17g, want %.17g (McMahon)", n, m, j[m-1], want)
+		}
+		// For n = 0, x = 0 is McMahon's first zero of J'_0.
+		mm := m
+		if n == 0 {
+			mm = m + 1
+		}
+		if want := mcMahonJPrime(float64(n), mm); !close(jp[m-1], want) {
+			t.Errorf("j'(%d, %d) = %.17g, want %.17g (McMahon)", n, m, jp[m-1], want)
+		}
+	}
+}
+
+// TestHighOrder checks the first zeros of an order far beyond the table,
+// n = 20000, by math.Jn.
+func TestHighOrder(t *testing.T) {
+	const n = 20000
+	j, jp := Zeros(n, 3)
+	for i := range 3 {
+		if r := residualJ(n, j[i]); r > identityTol {
+			t.Errorf("J_%d(j(%d, %d) = %.17g) / (J'_%d x) = %.3g, want <= %g", n, n, i+1, j[i], n, r, identityTol)
+		}
+		if r := residualJPrime(n, jp[i]); r > identityTol {
+			t.Errorf("J'_%d(j'(%d, %d) = %.17g) / (J^(2)_%d x) = %.3g, want <= %g", n, n, i+1, jp[i], n, r, identityTol)
+		}
 	}
 }
