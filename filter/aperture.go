@@ -25,9 +25,10 @@ import (
 // negatives on the near side. With two cavities on either side of the hole
 // the dipoles are driven by the difference of the two sides' fields.
 //
-// Coupling coefficient (derived here; the same structure as the aperture
-// coupling of cavities in Collin, Foundations, ch. 7, and the even/odd-mode
-// definition of Hong & Lancaster 2001, sec. 8.2). Expanding each cavity's
+// Coupling coefficient (derived here, with the even/odd-mode definition of
+// k of Hong & Lancaster 2001, sec. 8.2; Collin, Foundations, ch. 7, treats
+// a cavity coupled to a waveguide through a small hole by the same dipole
+// expansion; section numbers recalled from memory). Expanding each cavity's
 // field in its own mode (the cavity is the closed wall the dipoles radiate
 // against) gives, for a magnetic dipole m on the wall of a cavity whose mode
 // field H_n is normalised to integral |H_n|^2 dV = 1,
@@ -63,20 +64,21 @@ import (
 // (TM01, lambda_c = 2.61 r0) for the electric dipole (the standard
 // correction: S. B. Cohn, "Microwave coupling by large apertures", Proc.
 // IRE 40 (1952) 696-699; Matthaei, Young & Jones 1964, sec. 5.10, whose
-// far-below-cutoff value for the magnetic case is 32.0 dB per unit t/d).
-// A is an empirical constant: measurements summarised by Cohn and by
-// N. A. McDonald ("Electric and magnetic coupling through small apertures
-// in shield walls of any thickness", IEEE Trans. Microwave Theory Tech. 20
-// (1972) 689-695) put it near 1 for walls thicker than about a tenth of the
-// hole diameter, with thin-wall departures of some ten percent. cylcav uses
-// A = 1 unless told otherwise (Hole.A); the correction is empirical and
-// coupling through thick walls should be confirmed by a field solver. The
-// hole is assumed filled with the cavity's fill.
+// far-below-cutoff value for the magnetic case is 32.0 dB per unit t/d;
+// section and value recalled from memory). A is an empirical constant
+// fitted to measurements (Cohn 1952; refined thickness corrections are
+// given by N. A. McDonald, "Electric and magnetic coupling through small
+// apertures in shield walls of any thickness", IEEE Trans. Microwave
+// Theory Tech. 20 (1972) 689-695, which cylcav does not implement). cylcav
+// uses A = 1, the plain attenuation of the hole's lowest mode, unless told
+// otherwise (Hole.A): an empirical choice, so coupling through thick walls
+// should be confirmed by a field solver or measurement. The hole is
+// assumed filled with the cavity's fill.
 
 // Bessel zeros of the lowest modes of a circular hole seen as a waveguide:
-// j'_11 (TE11) and j_01 (TM01), DLMF 10.21(i), Table 10.21.1 values
-// recalled from memory to 10 digits and checked in the tests against
-// package physics/bessel.
+// j'_11 (TE11) and j_01 (TM01) (DLMF 10.21(i); values recalled from memory
+// to 17 significant digits and checked in the tests against package
+// physics/bessel to 1e-15).
 const (
 	holeTE11Root = 1.8411837813406593
 	holeTM01Root = 2.4048255576957728
@@ -106,7 +108,7 @@ const (
 // 4 r0^3 / 3 (m^3) of a circular hole of radius r0 (m) in an infinitely
 // thin plane conducting wall (Bethe 1944; Collin, Foundations for Microwave
 // Engineering, 2nd ed., sec. 4.13; Pozar, Microwave Engineering, 4th ed.,
-// sec. 4.8). It is the first term of an expansion in k r0 and holds for
+// sec. 4.8; section numbers recalled from memory). It is the first term of an expansion in k r0 and holds for
 // r0 much smaller than the wavelength. It returns NaN for r0 < 0 or NaN.
 func MagneticPolarisability(r0 float64) float64 {
 	if !(r0 >= 0) {
@@ -215,9 +217,10 @@ type Hole struct {
 	Wall Wall
 	// Position places the hole centre on its wall as a fraction: rho/a on
 	// an end wall (0 = on the axis), z/L on a side wall. Zero means "where
-	// the coupling per r0^3 is strongest" (found by CouplingThrough and
-	// SizeHole, which report the value used); set a small positive value
-	// to ask for the axis itself.
+	// the thin-wall coupling per r0^3 is strongest" (found by
+	// CouplingThrough and SizeHole, which report the value used; the middle
+	// of the wall among equal maxima); set a small positive value such as
+	// 1e-12 to ask for the axis itself.
 	Position float64
 	// Phi is the azimuth of the hole centre, rad, measured from the plane
 	// of the cos(n phi) polarisation (see cavity.ModeField); it matters
@@ -228,7 +231,8 @@ type Hole struct {
 	// Thickness is the wall thickness t at the hole, m; zero is the thin
 	// wall of Bethe's theory.
 	Thickness float64
-	// A is the empirical constant of the thickness correction; zero means 1.
+	// A is the empirical constant of the thickness correction; zero means 1
+	// (HoleCoupling reports the value used).
 	A float64
 }
 
@@ -304,9 +308,10 @@ type holePair struct {
 	c1, c2   cavity.Cavity
 	m        cavity.Mode
 	f1, f2   cavity.ModeField
-	k        float64 // wavenumber in the fill at the mean frequency, rad/m
-	lambda   float64 // wavelength in the fill, m
-	position float64 // resolved hole position
+	k        float64      // wavenumber in the fill at the mean frequency, rad/m
+	lambda   float64      // wavelength in the fill, m
+	position float64      // resolved hole position
+	coef     holeGeometry // coupling per r0^3 at the resolved position
 }
 
 func newHolePair(c1, c2 cavity.Cavity, m cavity.Mode, h Hole) (*holePair, error) {
@@ -318,8 +323,9 @@ func newHolePair(c1, c2 cavity.Cavity, m cavity.Mode, h Hole) (*holePair, error)
 	if err != nil {
 		return nil, err
 	}
-	if c1.Fill().Index() != c2.Fill().Index() {
-		return nil, fmt.Errorf("filter: coupled cavities must share their fill, got eps_r mu_r = %g and %g", c1.Fill().Index(), c2.Fill().Index())
+	if f1.Eps() != f2.Eps() || f1.Mu() != f2.Mu() {
+		return nil, fmt.Errorf("filter: coupled cavities must share their fill, got eps_r = %g, %g and mu_r = %g, %g",
+			f1.Eps()/physics.VacuumPermittivity, f2.Eps()/physics.VacuumPermittivity, f1.Mu()/physics.VacuumPermeability, f2.Mu()/physics.VacuumPermeability)
 	}
 	switch {
 	case h.Wall != EndWall && h.Wall != SideWall:
@@ -341,6 +347,7 @@ func newHolePair(c1, c2 cavity.Cavity, m cavity.Mode, h Hole) (*holePair, error)
 	if p.position == 0 {
 		p.position = p.strongest(h)
 	}
+	p.coef = p.coefficients(h.Wall, p.position, h.Phi)
 	return p, nil
 }
 
@@ -417,20 +424,22 @@ func (p *holePair) couple(h Hole, r0 float64) HoleCoupling {
 	if a == 0 {
 		a = 1
 	}
-	c := p.coefficients(h.Wall, h.Position, h.Phi)
-	r3 := r0 * r0 * r0
-	tm := thicknessFactor(holeTE11Root, r0, h.Thickness, p.k, a)
-	te := thicknessFactor(holeTM01Root, r0, h.Thickness, p.k, a)
-	hc := HoleCoupling{
-		Hole:           h,
-		Magnetic:       c.gm * r3 * tm,
-		Electric:       -c.ge * r3 * te,
-		MagneticFactor: tm, ElectricFactor: te,
-		Wavelength: p.lambda,
-	}
-	hc.K = hc.Magnetic + hc.Electric
+	h.A = a
+	hc := HoleCoupling{Hole: h, Wavelength: p.lambda}
+	hc.K, hc.Magnetic, hc.Electric, hc.MagneticFactor, hc.ElectricFactor = p.k3(r0, h.Thickness, a)
 	hc.Problems = p.problems(hc)
 	return hc
+}
+
+// k3 returns the coupling of a hole of radius r0 in a wall of thickness t
+// with thickness constant a at the resolved position: the total, its
+// magnetic and electric parts and their thickness factors.
+func (p *holePair) k3(r0, t, a float64) (k, mag, el, tm, te float64) {
+	r3 := r0 * r0 * r0
+	tm = thicknessFactor(holeTE11Root, r0, t, p.k, a)
+	te = thicknessFactor(holeTM01Root, r0, t, p.k, a)
+	mag, el = p.coef.gm*r3*tm, -p.coef.ge*r3*te
+	return mag + el, mag, el, tm, te
 }
 
 // problems lists the validity limits hc breaks.
@@ -502,6 +511,11 @@ func CouplingThrough(c1, c2 cavity.Cavity, m cavity.Mode, h Hole) (HoleCoupling,
 // bracket the first radius that reaches the wanted coupling.
 const holeScanPoints = 256
 
+// noFieldTol is the coupling per r0^3 at a position, relative to the
+// strongest on the same wall, below which SizeHole reports that the mode
+// puts no field there (rounding leaves about 1e-16 at a field null).
+const noFieldTol = 1e-9
+
 // SizeHole returns the hole radius r0 that realises the coupling
 // coefficient |k| between cavities c1 and c2 for mode m through a hole
 // placed as h (h.Radius is ignored), with the coupling it gives (see
@@ -531,7 +545,14 @@ func SizeHole(c1, c2 cavity.Cavity, m cavity.Mode, h Hole, k float64) (HoleCoupl
 	}
 	target := math.Abs(k)
 	rc := holeTE11Root / p.k
-	kabs := func(r float64) float64 { return math.Abs(p.couple(h, r).K) }
+	a := h.A
+	if a == 0 {
+		a = 1
+	}
+	kabs := func(r float64) float64 {
+		k, _, _, _, _ := p.k3(r, h.Thickness, a)
+		return math.Abs(k)
+	}
 	lo := rc * 1e-4
 	if kabs(lo) >= target {
 		// Extremely small radius still enough: solve the r0^3 law
@@ -558,8 +579,10 @@ func SizeHole(c1, c2 cavity.Cavity, m cavity.Mode, h Hole, k float64) (HoleCoupl
 		prev = r
 	}
 	if math.IsNaN(hi) {
-		if best == 0 {
-			return HoleCoupling{}, fmt.Errorf("filter: %s puts no field on the %s at position %.4g; no hole there couples it", m, h.Wall, p.position)
+		here := p.coef
+		top := p.coefficients(h.Wall, p.strongest(h), h.Phi)
+		if math.Abs(here.gm-here.ge) <= noFieldTol*math.Abs(top.gm-top.ge) {
+			return HoleCoupling{}, fmt.Errorf("filter: %s puts no field on the %s at position %.4g; no hole there couples it (try position 0, the strongest)", m, h.Wall, p.position)
 		}
 		return HoleCoupling{}, fmt.Errorf("filter: no hole below cutoff on the %s at position %.4g realises k = %.4g for %s (the largest is %.3g at radius %s); realise it with a field solver",
 			h.Wall, p.position, k, m, best, physics.FormatLength(bestR, 3))

@@ -48,3 +48,26 @@ func BenchmarkSynthesize30(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkResponse1e4Mixed is BenchmarkResponse1e4 with a different Q0 in
+// every resonator, which needs a full LU factorisation per point.
+func BenchmarkResponse1e4Mixed(b *testing.B) {
+	d, err := Synthesize(benchSpec)
+	if err != nil {
+		b.Fatal(err)
+	}
+	freqs := make([]float64, 10000)
+	for i := range freqs {
+		freqs[i] = 9.5e9 + float64(i)*1e5
+	}
+	q0 := make([]float64, 12)
+	for i := range q0 {
+		q0[i] = 8000 + 100*float64(i)
+	}
+	b.ResetTimer()
+	for b.Loop() {
+		if _, err := d.Response(freqs, q0); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

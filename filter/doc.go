@@ -38,7 +38,19 @@
 //  7. Analysis (Response, Design.Check, CohnLoss): S11, S21, S22, group
 //     delay with per-resonator unloaded Q, the specification pass/fail
 //     table, and Cohn's midband loss estimate; WriteTouchstone exports the
-//     response.
+//     response, and NewResponsePlot draws |S21|, |S11| with the
+//     specification mask and the group delay (SweepRange, Sweep choose the
+//     frequencies) for package modechart's Render.
+//  8. Physical realisation (Realise): one cavity per resonator for the
+//     chosen mode, sized at the resonator's own frequency (the diagonal
+//     M_ii detunes it to the bandpass image of Omega = -M_ii), its Q0 from
+//     package qfactor, the spurious resonances of each cavity design near
+//     the band with warnings for the exact TE0mp/TM1mp companion and for
+//     modes in a stopband; main-line couplings as circular holes sized by
+//     Bethe's small-aperture theory with the thickness correction
+//     (SizeHole, CouplingThrough), each checked against the theory's
+//     validity limits; cross couplings and port Qext listed for a field
+//     solver or measurement.
 //
 // # Conventions
 //
@@ -74,10 +86,12 @@
 // Reflection zeros come from the phase form of C_N by bisection (to the last
 // bit); poles from the companion matrix of F/EpsR + j P/Eps (gonum mat.Eigen)
 // polished by the Aberth iteration in product form; the transversal
-// eigenvalues by Newton's method on the branch phases that separate the
-// nearly degenerate pairs of high orders. The folded matrix reproduces the
-// polynomial response to about 1e-13 up to N = 30 (each Synthesize call
-// checks it).
+// eigenvalues by bisection on two monotonic branch-phase equations that
+// separate the nearly degenerate eigenvalue pairs of high orders. The folded
+// matrix reproduces the polynomial response to about 1e-13 up to N = 30
+// (each Synthesize call checks it). Response evaluates a matrix in O(N) per
+// frequency through its modal decomposition when all resonators share one
+// Q0, and by an LU factorisation otherwise.
 //
 // References:
 //   - G. L. Matthaei, L. Young, E. M. T. Jones, Microwave Filters,
@@ -106,4 +120,20 @@
 //     simultaneously", Math. Comp. 27 (1973) 339-344.
 //   - Touchstone File Format Specification, version 1.1 (EIA/IBIS Open
 //     Forum, 2002).
+//   - H. A. Bethe, "Theory of diffraction by small holes", Phys. Rev. 66
+//     (1944) 163-182 (polarisabilities of a small circular hole).
+//   - R. E. Collin, Foundations for Microwave Engineering, 2nd ed., IEEE
+//     Press 2001: sec. 4.13 (aperture coupling), ch. 7 (cavities coupled
+//     through small holes); section numbers recalled from memory.
+//   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley 2012: sec. 4.8
+//     (aperture coupling, alpha_e = 2 r0^3/3, alpha_m = 4 r0^3/3), sec. 6.7
+//     (cavity perturbations); section numbers recalled from memory.
+//   - S. B. Cohn, "Microwave coupling by large apertures", Proc. IRE 40
+//     (1952) 696-699, and MYJ sec. 5.10 (thickness correction of a hole).
+//   - N. A. McDonald, "Electric and magnetic coupling through small
+//     apertures in shield walls of any thickness", IEEE Trans. Microwave
+//     Theory Tech. 20 (1972) 689-695.
+//   - J. B. Ness, "A unified approach to the design, measurement, and tuning
+//     of coupled-resonator filters", IEEE Trans. Microwave Theory Tech.
+//     46(4) (1998) 343-351 (reflected group delay 4 Qext/omega0).
 package filter

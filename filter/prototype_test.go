@@ -159,7 +159,7 @@ func TestPrototypeSymmetry(t *testing.T) {
 
 func TestRippleReturnLoss(t *testing.T) {
 	// 20 dB return loss <-> 0.0436 dB ripple: the pairing quoted throughout
-	// the filter literature (common practice; e.g. CKM ch. 6 examples).
+	// the filter literature (common practice).
 	if r := RippleFromReturnLoss(20); math.Abs(r-0.0436) > 0.5e-4 {
 		t.Errorf("RippleFromReturnLoss(20) = %v, want 0.0436", r)
 	}
@@ -340,6 +340,39 @@ func TestCharacteristicRecursion(t *testing.T) {
 		for _, r := range reflectionZeros(n, z) {
 			if v := horner(num, r); math.Abs(v) > 1e-11*scale {
 				t.Errorf("Characteristic(%d, %v) at reflection zero %v = %v, want 0", n, z, r, v)
+			}
+		}
+	}
+}
+
+// TestCharacteristicHighOrder: up to N = 30 the recursion's coefficients
+// equal the expansion of the product over the reflection zeros found by
+// bisection on the phase form (two independent routes to F).
+func TestCharacteristicHighOrder(t *testing.T) {
+	// coefTol: relative to the largest coefficient; 3e-13 measured at
+	// N = 30.
+	const coefTol = 1e-11
+	rng := rand.New(rand.NewPCG(9, 10))
+	for trial := 0; trial < 40; trial++ {
+		n := 13 + rng.IntN(MaxOrder-12)
+		z := randomZeros(rng, rng.IntN(n+1))
+		num, _, err := Characteristic(n, z)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fr := reflectionZeros(n, z)
+		rc := make([]complex128, n)
+		for i, r := range fr {
+			rc[i] = complex(r, 0)
+		}
+		p := polyFromRoots(rc)
+		scale := 0.0
+		for _, c := range num {
+			scale = math.Max(scale, math.Abs(c/num[n]))
+		}
+		for k := range num {
+			if d := math.Abs(num[k]/num[n] - real(p[k])); d > coefTol*scale {
+				t.Errorf("Characteristic(%d, %v) coefficient %d = %v, want %v", n, z, k, num[k]/num[n], real(p[k]))
 			}
 		}
 	}

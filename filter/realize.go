@@ -33,8 +33,9 @@ const MaxSpuriousWindow = 0.95
 const sameCavityTol = 1e-12
 
 // crossCouplingTol is the magnitude of a normalised coupling-matrix entry
-// below which it counts as absent: the folded matrix holds rounding of
-// about 1e-13 where the pattern has zeros.
+// below which it counts as absent (a cross coupling) or zero (a diagonal
+// entry): the folded matrix holds rounding of about 1e-13 where the
+// pattern has zeros.
 const crossCouplingTol = 1e-9
 
 // Stopband is a frequency band in which the filter must reject: Low..High
@@ -92,7 +93,8 @@ type RealiseOptions struct {
 type CavityDesign struct {
 	Resonator int // 1..N
 	// SelfCoupling is the diagonal entry M_ii of the folded matrix
-	// (normalised); zero for a synchronously tuned resonator.
+	// (normalised); zero for a synchronously tuned resonator (entries of
+	// magnitude up to 1e-9, synthesis rounding, are taken as zero).
 	SelfCoupling float64
 	// F is the resonator's own resonant frequency, Hz (see Realise).
 	F      float64
@@ -130,15 +132,18 @@ type Aperture struct {
 	// Required is the bandpass coupling coefficient FBW M_{i,i+1}.
 	Required float64
 	// Sized is true when a hole was sized by Bethe's theory (see
-	// HoleCoupling; HoleCoupling.Valid tells whether it lies inside the
-	// theory's limits). The embedded HoleCoupling is the zero value
-	// otherwise.
+	// HoleCoupling, and Valid for the theory's limits). The embedded
+	// HoleCoupling is the zero value otherwise.
 	Sized bool
 	HoleCoupling
 	// Note says, for people, how the coupling must be realised when it was
 	// not sized or lies outside Bethe's range.
 	Note string
 }
+
+// Valid reports whether a hole was sized and lies inside every validity
+// limit of Bethe's theory.
+func (a Aperture) Valid() bool { return a.Sized && a.HoleCoupling.Valid() }
 
 // CrossCoupling is a coupling outside the main line (source and load count
 // as 0 and N+1): a cross coupling of the folded matrix or a direct
@@ -286,6 +291,9 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	r.Cavities = make([]CavityDesign, n)
 	for i := 1; i <= n; i++ {
 		mii := d.Folded.At(i, i)
+		if math.Abs(mii) <= crossCouplingTol {
+			mii = 0 // synthesis rounding: the resonator is at f0
+		}
 		fi := BandpassFrequency(-mii, f0, bw) // Omega_i = -M_ii (derived above)
 		c, err := cavity.Size(mode, fi, opts.Fill, opts.Shape)
 		if err != nil {
@@ -308,6 +316,9 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	}
 	r.Window = [2]float64{lo, hi}
 	r.Stopbands = slices.Clone(opts.Stopbands)
+	for i := range r.Stopbands {
+		r.Stopbands[i].Derived = false
+	}
 	for _, rj := range d.Spec.Rejections {
 		s := Stopband{Low: rj.F, High: hi, Attenuation: rj.Attenuation, Derived: true}
 		if rj.F < f0 {

@@ -272,3 +272,45 @@ func TestPointMethods(t *testing.T) {
 		t.Errorf("Point methods: %v %v %v %v %v %v", p.S11DB(), p.ReturnLoss(), p.InsertionLoss(), p.S11Deg(), p.S21Deg(), p.S22Deg())
 	}
 }
+
+// TestModalMatchesLU: the O(N) modal evaluation used for equal losses
+// agrees with the LU factorisation of the full network matrix, including
+// the derivative behind the group delay, close to lossless resonances too.
+func TestModalMatchesLU(t *testing.T) {
+	// derivTol: the modal derivative loses digits near a lossless
+	// resonance, 1e-10 relative at the switch-over (see modalMinDist).
+	const derivTol = 1e-9
+	rng := rand.New(rand.NewPCG(41, 42))
+	for trial := 0; trial < 100; trial++ {
+		sp := randomSpec(rng)
+		d, err := Synthesize(sp)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var loss []float64
+		if trial%2 == 1 {
+			l := 0.5 * rng.Float64()
+			for i := 0; i < sp.Order; i++ {
+				loss = append(loss, l)
+			}
+		}
+		ev := newEvaluator(d.Folded, loss)
+		if !ev.modal {
+			t.Fatalf("order %d: modal form not set up", sp.Order)
+		}
+		ws := testOmegas(rng, 20)
+		for _, mu := range ev.mu { // just outside the switch-over distance
+			ws = append(ws, -mu+1.5*modalMinDist)
+		}
+		for _, w := range ws {
+			a1, b1, c1, d1, ok := ev.atModal(w)
+			if !ok {
+				continue
+			}
+			a2, b2, c2, d2 := ev.atLU(w)
+			if cmplx.Abs(a1-a2) > matTol || cmplx.Abs(b1-b2) > matTol || cmplx.Abs(c1-c2) > matTol || cmplx.Abs(d1-d2) > matTol+derivTol*cmplx.Abs(d2) {
+				t.Errorf("order %d loss %v at Omega %v: modal %v %v %v %v, LU %v %v %v %v", sp.Order, loss != nil, w, a1, b1, c1, d1, a2, b2, c2, d2)
+			}
+		}
+	}
+}

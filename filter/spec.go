@@ -161,13 +161,13 @@ func (s Spec) attenuation(n int, omega float64) (float64, error) {
 }
 
 // MinOrder returns the smallest order that meets every rejection
-// requirement of s with the lossless prototype response: for Butterworth
-// and the classical Chebyshev response this is the closed form of
-// ButterworthOrder and ChebyshevOrder; with transmission zeros the
-// generalised Chebyshev attenuation (ChebyshevAttenuation) is evaluated
-// for N = max(1, len(Zeros)), ..., MaxOrder. The spec's Order field is
-// ignored. It is an error if s is invalid, has no rejection requirement, or
-// needs an order above MaxOrder.
+// requirement of s with the lossless prototype response, by evaluating the
+// prototype attenuation (ButterworthAttenuation, or ChebyshevAttenuation
+// with the spec's zeros) at each rejection frequency for
+// N = max(1, len(Zeros)), ..., MaxOrder. Without zeros the result equals
+// the closed forms ButterworthOrder and ChebyshevOrder. The spec's Order
+// field is ignored. It is an error if s is invalid, has no rejection
+// requirement, or needs an order above MaxOrder.
 func (s Spec) MinOrder() (int, error) {
 	s.Order = 0
 	ns, err := s.normalized()

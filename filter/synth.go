@@ -17,10 +17,11 @@ import (
 //
 //	S11(s) = F(s) / (EpsR E(s)),   S21(s) = P(s) / (Eps E(s)),
 //
-// with F and E monic of degree N, P of degree len(Zeros), multiplied by j
-// when N - len(Zeros) is even (which makes the S-matrix unitary with
-// S22 = S11 here), E strictly Hurwitz, EpsR = 1 unless the response is fully
-// canonical (len(Zeros) = N). |F|^2/EpsR^2 + |P|^2/Eps^2 = |E|^2 on the
+// with F and E monic of degree N, P of degree len(Zeros) with leading
+// coefficient +-1, multiplied by j when N - len(Zeros) is even (which makes
+// the S-matrix unitary with S22 = S11 here); the overall sign of P is the one
+// that makes M_NL of the folded matrix positive. E is strictly Hurwitz and
+// EpsR = 1 unless the response is fully canonical (len(Zeros) = N). |F|^2/EpsR^2 + |P|^2/Eps^2 = |E|^2 on the
 // imaginary axis. Coefficients are stored in ascending powers of s.
 //
 // The coupling matrices follow the convention of Response; rows and
@@ -59,11 +60,12 @@ type Design struct {
 	// powers of s.
 	F, P, E []complex128
 
-	// Transversal is the (N+2)x(N+2) transversal coupling matrix (every
-	// resonator coupled to source and load only, plus M_SL when canonical).
+	// Transversal is the (N+2)x(N+2) transversal coupling matrix: every
+	// resonator coupled to source and load only (plus M_SL when canonical),
+	// resonators ordered by ascending resonant frequency -M_kk, M_Lk > 0.
 	Transversal *mat.Dense
 	// Folded is the same network reduced to the folded canonical form
-	// (see FoldedPattern).
+	// (see InFoldedPattern), M_S1, M_NL and the main line non-negative.
 	Folded *mat.Dense
 }
 
@@ -135,8 +137,9 @@ func Synthesize(spec Spec) (*Design, error) {
 		if d.G, err = ButterworthG(n); err != nil {
 			return nil, err
 		}
-		// |S21|^2 = 1/(1 + Omega^2N): F = s^N, P = j^a, Eps = 1, and the
-		// Butterworth poles s_k = exp(j pi (2k+N-1)/(2N)) (MYJ sec. 4.03).
+		// |S21|^2 = 1/(1 + Omega^2N) (MYJ sec. 4.03): F = s^N, P = j^a,
+		// Eps = 1, and the left-half-plane roots of 1 + (s/j)^2N, the poles
+		// s_k = exp(j pi (2k+N-1)/(2N)) (derived).
 		fr = make([]float64, n)
 		er = make([]complex128, n)
 		for k := 1; k <= n; k++ {

@@ -1,0 +1,400 @@
+package filter
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io/fs"
+	"math"
+	"os"
+	"slices"
+	"strings"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmd/q"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	bandpass "cylcav/filter"
+	"cylcav/modechart"
+	"cylcav/physics"
+	"cylcav/qfactor"
+)
+
+// Result is everything `cylcav filter` computed, before any output.
+type Result struct {
+	Opts *Options
+	// Design is the synthesised filter; OrderChosen is true when its order
+	// came from the rejections.
+	Design      *bandpass.Design
+	OrderChosen bool
+
+	// Realisation holds the cavities; nil without them. Shape says how
+	// their D/L was chosen.
+	Realisation *bandpass.Realisation
+	Shape       string
+
+	// Q0 holds the unloaded Q per resonator used for the response (nil
+	// for lossless); Lossless is true when none is finite.
+	Q0       []float64
+	Lossless bool
+
+	// InsertionLoss is the midband (f0) insertion loss with the losses,
+	// LosslessLoss the same without them, Cohn the loss by Cohn's 1959
+	// estimate (LosslessLoss plus the dissipation), NaN when it does not
+	// apply (designs with transmission zeros, lossless response).
+	InsertionLoss, LosslessLoss, Cohn float64
+
+	Checks []bandpass.Check
+	// Warnings are findings for people, in a fixed order: wall models,
+	// the realisation, the checks.
+	Warnings []string
+	// Sweep is the frequency range of the Touchstone file and the plot.
+	Sweep [2]float64
+
+	// Written lists the files written, in order.
+	Written []string
+
+	touchstone, plot []byte
+}
+
+// runFilter computes the design, writes the files and prints the result.
+func runFilter(opts *Options) error {
+	r, err := Compute(opts)
+	if err != nil {
+		return err
+	}
+	if err := r.writeFiles(); err != nil {
+		return err
+	}
+	if opts.Format == cmdutil.JSON {
+		return cmdutil.WriteJSON(opts.IO.Out, r.JSON())
+	}
+	return r.WriteTable(opts.IO.Out)
+}
+
+// Compute does all the work of the command except writing: synthesis,
+// realisation, response, checks, and the contents of the Touchstone file
+// and the plot when asked for.
+func Compute(opts *Options) (*Result, error) {
+	r := &Result{Opts: opts, Cohn: math.NaN()}
+	spec := opts.Spec
+	r.OrderChosen = spec.Order == 0
+	d, err := bandpass.Synthesize(spec)
+	if err != nil {
+		// Every synthesis error is a consequence of the specification.
+		return nil, cmdutil.Usagef("specification: %v", strings.TrimPrefix(err.Error(), "filter: "))
+	}
+	r.Design = d
+	n := d.Order()
+
+	switch {
+	case opts.Cavities:
+		if err := r.realise(); err != nil {
+			return nil, err
+		}
+		r.Q0 = r.Realisation.Q0()
+	case opts.Q0 > 0:
+		r.Q0 = make([]float64, n)
+		for i := range r.Q0 {
+			r.Q0[i] = opts.Q0
+		}
+	}
+	r.Lossless = true
+	for _, v := range r.Q0 {
+		if !math.IsInf(v, 1) {
+			r.Lossless = false
+		}
+	}
+
+	f0 := spec.F0
+	mid, err := d.Response([]float64{f0}, r.Q0)
+	if err != nil {
+		return nil, err
+	}
+	r.InsertionLoss = mid[0].InsertionLoss()
+	ll, err := d.Response([]float64{f0}, nil)
+	if err != nil {
+		return nil, err
+	}
+	r.LosslessLoss = ll[0].InsertionLoss()
+	if d.G != nil && !r.Lossless {
+		c, err := bandpass.CohnLoss(d.G, d.FBW, r.Q0)
+		if err != nil {
+			return nil, err
+		}
+		r.Cohn = r.LosslessLoss + c
+	}
+	if r.Checks, err = d.Check(r.Q0); err != nil {
+		return nil, err
+	}
+	for _, c := range r.Checks {
+		if !c.Pass && r.Counted(c) {
+			r.Warnings = append(r.Warnings, "the response does not meet the specification: "+checkName(c)+" ("+failText(c)+")")
+		}
+	}
+
+	lo, hi, err := bandpass.SweepRange(d, opts.Span)
+	if err != nil {
+		return nil, cmdutil.FlagError("span", fmt.Sprint(opts.Span), err)
+	}
+	r.Sweep = [2]float64{lo, hi}
+	if opts.Touchstone != "" {
+		if err := r.buildTouchstone(); err != nil {
+			return nil, err
+		}
+	}
+	if opts.Plot != "" {
+		if err := r.buildPlot(); err != nil {
+			return nil, err
+		}
+	}
+	return r, nil
+}
+
+// Counted reports whether check c is a requirement the user stated (or the
+// documented default return loss) and so decides the overall result. The
+// passband value derived from the other one (ripple from return loss or the
+// reverse) and the Butterworth band-edge values are shown for information:
+// dissipation rounds the band edges, so a lossy filter never keeps the
+// lossless ripple that a return-loss specification implies.
+func (r *Result) Counted(c bandpass.Check) bool {
+	s := r.Opts.Spec
+	switch c.Name {
+	case "return loss":
+		return s.Family == bandpass.Chebyshev && s.Ripple == 0
+	case "passband ripple":
+		return s.Family == bandpass.Chebyshev && s.Ripple != 0
+	}
+	return true
+}
+
+// realise sizes the cavities.
+func (r *Result) realise() error {
+	opts := r.Opts
+	fill := cavity.Fill{EpsR: opts.Fill.EpsR, MuR: opts.Fill.MuR}
+	loss := qfactor.Fill{TanDelta: opts.Fill.TanDelta, TanDeltaM: opts.Fill.TanDeltaM}
+	var walls qfactor.WallsAt
+	if opts.Walls != nil {
+		seen := map[string]bool{}
+		walls = q.Resistance(*opts.Walls, func(w string) {
+			if !seen[w] {
+				seen[w] = true
+				r.Warnings = append(r.Warnings, "walls: "+w)
+			}
+		})
+	}
+	ratio := opts.Ratio
+	if ratio == 0 {
+		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: fill}
+		if walls != nil {
+			ds.Q = func(c cavity.Cavity) (float64, error) {
+				u, err := qfactor.UnloadedQ(c, opts.Mode, walls, loss)
+				return u.Q0, err
+			}
+		}
+		des, err := cavity.Optimize(ds)
+		if errors.Is(err, cavity.ErrInfeasible) {
+			return cmdutil.Usagef("--mode %s: no D/L in %g..%g gives the mode a spurious-free clearance: %v; give --ratio", opts.Mode, cavity.DefaultRatioMin, cavity.DefaultRatioMax, err)
+		}
+		if err != nil {
+			return fmt.Errorf("choosing D/L for %s at %s: %w", opts.Mode, physics.FormatFrequency(opts.Spec.F0, 6), err)
+		}
+		ratio = des.Ratio
+		r.Shape = fmt.Sprintf("D/L = %.5g from the design optimiser (largest spurious-free clearance of %s at f0 for D/L in %g..%g: %.3g %%)",
+			ratio, opts.Mode, cavity.DefaultRatioMin, cavity.DefaultRatioMax, 100*des.Clearance.Value)
+	} else {
+		r.Shape = fmt.Sprintf("D/L = %.5g (--ratio)", ratio)
+	}
+	ro := bandpass.RealiseOptions{
+		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: fill, Loss: loss, Walls: walls, Hole: opts.Hole,
+	}
+	rz, err := bandpass.Realise(r.Design, ro)
+	if errors.Is(err, cavity.ErrInfeasible) {
+		return cmdutil.Usagef("cavities: %v", err)
+	}
+	if err != nil {
+		return err
+	}
+	r.Realisation = rz
+	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
+	return nil
+}
+
+// comments are the header lines of the Touchstone file.
+func (r *Result) comments() []string {
+	d := r.Design
+	out := []string{"written by cylcav filter"}
+	out = append(out, d.Summary()...)
+	out = append(out, "unloaded Q0 per resonator: "+q0Text(r.Q0, d.Order()))
+	if rz := r.Realisation; rz != nil {
+		c := rz.Cavities[0].Cavity
+		out = append(out, fmt.Sprintf("cavities: %s, %s, first D = %s, L = %s", rz.Mode, r.Shape,
+			physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6)))
+	}
+	return append(out, FieldSolverNote)
+}
+
+func (r *Result) buildTouchstone() error {
+	fs, err := bandpass.Sweep(r.Sweep[0], r.Sweep[1], r.Opts.Points)
+	if err != nil {
+		return cmdutil.FlagError("points", fmt.Sprint(r.Opts.Points), err)
+	}
+	pts, err := r.Design.Response(fs, r.Q0)
+	if err != nil {
+		return err
+	}
+	var b bytes.Buffer
+	if err := bandpass.WriteTouchstone(&b, pts, r.comments()); err != nil {
+		return err
+	}
+	r.touchstone = b.Bytes()
+	return nil
+}
+
+func (r *Result) buildPlot() error {
+	rp, err := bandpass.NewResponsePlot(r.Design, bandpass.PlotOptions{
+		Lo: r.Sweep[0], Hi: r.Sweep[1], Q0: r.Q0, Notes: []string{FieldSolverNote},
+	})
+	if err != nil {
+		return err
+	}
+	fig, err := rp.Figure(modechart.DefaultTheme())
+	if err != nil {
+		return err
+	}
+	r.plot, err = modechart.Encode(fig, r.Opts.PlotFormat, modechart.Page{DPI: r.Opts.DPI})
+	return err
+}
+
+// writeFiles writes the Touchstone file and the plot. Both targets are
+// checked before either is written, so that a refused overwrite leaves no
+// file behind; a failure of the second write removes the first file when
+// it did not exist before.
+func (r *Result) writeFiles() error {
+	type file struct {
+		path string
+		data []byte
+	}
+	var files []file
+	if r.Opts.Touchstone != "" {
+		files = append(files, file{r.Opts.Touchstone, r.touchstone})
+	}
+	if r.Opts.Plot != "" {
+		files = append(files, file{r.Opts.Plot, r.plot})
+	}
+	existed := make([]bool, len(files))
+	for i, f := range files {
+		_, err := os.Stat(f.path)
+		switch {
+		case err == nil:
+			existed[i] = true
+			if !r.Opts.Force {
+				return cmdutil.Usagef("%s already exists; pass --force to overwrite it", f.path)
+			}
+		case !errors.Is(err, fs.ErrNotExist):
+			return err
+		}
+	}
+	for i, f := range files {
+		if err := cmdutil.WriteFileAtomic(f.path, f.data, r.Opts.Force); err != nil {
+			for j := 0; j < i; j++ {
+				if !existed[j] {
+					os.Remove(files[j].path)
+				}
+			}
+			r.Written = nil
+			return err
+		}
+		r.Written = append(r.Written, f.path)
+	}
+	return nil
+}
+
+// q0Text describes the unloaded Qs of the response.
+func q0Text(q0 []float64, n int) string {
+	if len(q0) == 0 {
+		return "infinite (lossless response)"
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, v := range q0 {
+		lo, hi = math.Min(lo, v), math.Max(hi, v)
+	}
+	if lo == hi {
+		return fmt.Sprintf("%s in each of the %d resonators", qText(lo), n)
+	}
+	return fmt.Sprintf("%s..%s", qText(lo), qText(hi))
+}
+
+// qText prints a Q to 5 significant digits, "infinite" for +Inf.
+func qText(v float64) string {
+	if math.IsInf(v, 1) {
+		return "infinite"
+	}
+	return fmt.Sprintf("%.5g", v)
+}
+
+// SpuriousGroup is one spurious mode of the cavities near the band: the
+// resonators of a filter with detuned resonators see it at slightly
+// different frequencies, which are listed as one range.
+type SpuriousGroup struct {
+	Mode       cavity.Mode
+	FMin, FMax float64 // Hz
+	Resonators []int
+	Companion  bool
+	InPassband bool
+	// Stopband is the first rejection band holding the mode, or -1.
+	Stopband int
+}
+
+// groupSpurious merges the spurious resonances of rz by mode, in the order
+// of their lowest frequency.
+func groupSpurious(rz *bandpass.Realisation) []SpuriousGroup {
+	var out []SpuriousGroup
+	index := map[cavity.Mode]int{}
+	for _, sp := range rz.Spurious {
+		i, ok := index[sp.Mode]
+		if !ok {
+			index[sp.Mode] = len(out)
+			out = append(out, SpuriousGroup{Mode: sp.Mode, FMin: sp.F, FMax: sp.F, Companion: sp.Companion, Stopband: -1})
+			i = len(out) - 1
+		}
+		g := &out[i]
+		g.FMin, g.FMax = math.Min(g.FMin, sp.F), math.Max(g.FMax, sp.F)
+		g.Resonators = append(g.Resonators, sp.Resonators...)
+		g.InPassband = g.InPassband || sp.InPassband
+		if g.Stopband < 0 {
+			g.Stopband = sp.Stopband
+		}
+	}
+	for i := range out {
+		slices.Sort(out[i].Resonators)
+		out[i].Resonators = slices.Compact(out[i].Resonators)
+	}
+	return out
+}
+
+// condenseWarnings returns the realisation's warnings with the per-cavity
+// spurious warnings merged into one line per mode.
+func condenseWarnings(rz *bandpass.Realisation) []string {
+	var out []string
+	for _, w := range rz.Warnings {
+		if !strings.HasPrefix(w, "spurious ") {
+			out = append(out, w)
+		}
+	}
+	ff := func(f float64) string { return physics.FormatFrequency(f, 6) }
+	for _, g := range groupSpurious(rz) {
+		at := ff(g.FMin)
+		if g.FMax > g.FMin {
+			at = ff(g.FMin) + ".." + ff(g.FMax)
+		}
+		switch {
+		case g.InPassband && !g.Companion:
+			out = append(out, fmt.Sprintf("spurious %s at %s lies in the passband (cavities %s)", g.Mode, at, resonators(g.Resonators)))
+		case g.Stopband >= 0:
+			sb := rz.Stopbands[g.Stopband]
+			out = append(out, fmt.Sprintf("spurious %s at %s lies in the rejection band %s..%s (%g dB): the filter will not reject there (cavities %s)",
+				g.Mode, at, ff(sb.Low), ff(sb.High), sb.Attenuation, resonators(g.Resonators)))
+		}
+	}
+	return out
+}
