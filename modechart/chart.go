@@ -117,6 +117,10 @@ type Spec struct {
 	// the reference f·D: the design point's, else the wanted mode's at
 	// the geometric middle of the ratio range, else TE011's there.
 	MaxFD float64
+	// MinFD is the bottom of the chart as f·D in Hz·m, 0 <= MinFD < MaxFD;
+	// zero (the default) starts the chart at zero. Lines wholly below it
+	// are left out.
+	MinFD float64
 
 	// EpsR and MuR are the relative permittivity and permeability of the
 	// fill (zero means 1). With a design cavity they must be zero or equal
@@ -130,7 +134,9 @@ type Spec struct {
 	Wanted cavity.Mode
 
 	// Cavity, when its Radius is not zero, is the design: the design point
-	// is at its D/L and the wanted mode's f·D (Wanted is then required).
+	// is at its D/L and the wanted mode's f·D. Without a wanted mode the
+	// chart only marks the cavity's D/L (Chart.MarkRatio) with a vertical
+	// line, along which every mode's f·D can be read.
 	Cavity cavity.Cavity
 
 	// Tuning is the half-width of the tuning range as a fraction of the
@@ -243,7 +249,7 @@ type Chart struct {
 	Axes  Axes
 	Units Units
 	// RatioMin..RatioMax is the D/L range; FDMin..FDMax the f·D range in
-	// Hz·m (FDMin is 0).
+	// Hz·m.
 	RatioMin, RatioMax float64
 	FDMin, FDMax       float64
 	EpsR, MuR          float64
@@ -252,6 +258,10 @@ type Chart struct {
 	Lines []Line
 	// Wanted is the index in Lines of the wanted mode's line, or -1.
 	Wanted int
+
+	// MarkRatio is the D/L of a cavity given without a wanted mode, drawn
+	// as a vertical line; zero means none.
+	MarkRatio float64
 
 	// HasDesign reports whether Design, Box and Cavity are set.
 	HasDesign bool
@@ -293,14 +303,12 @@ func New(s Spec) (*Chart, error) {
 			return nil, fmt.Errorf("modechart: wanted mode: %w", err)
 		}
 	}
-	hasDesign := s.Cavity.Radius != 0
+	hasCavity := s.Cavity.Radius != 0
+	hasDesign := hasCavity && hasWanted
 	eps, mu := s.EpsR, s.MuR
-	if hasDesign {
+	if hasCavity {
 		if err := s.Cavity.Validate(); err != nil {
 			return nil, fmt.Errorf("modechart: design %w", err)
-		}
-		if !hasWanted {
-			return nil, fmt.Errorf("modechart: a design cavity needs a wanted mode to place the design point")
 		}
 		ce, cm := one(s.Cavity.EpsR), one(s.Cavity.MuR)
 		if (eps != 0 && eps != ce) || (mu != 0 && mu != cm) {
@@ -313,9 +321,9 @@ func New(s Spec) (*Chart, error) {
 			return nil, fmt.Errorf("modechart: fill: %w", err)
 		}
 		eps, mu = one(eps), one(mu)
-		if s.Tuning != 0 || s.DiameterTol != 0 || s.LengthTol != 0 {
-			return nil, fmt.Errorf("modechart: tuning and tolerances need a design cavity")
-		}
+	}
+	if !hasDesign && (s.Tuning != 0 || s.DiameterTol != 0 || s.LengthTol != 0 || s.Clearance != 0) {
+		return nil, fmt.Errorf("modechart: tuning, tolerances and clearance need a design: a cavity and a wanted mode")
 	}
 	for _, q := range []struct {
 		name   string
@@ -375,6 +383,14 @@ func New(s Spec) (*Chart, error) {
 		ch.Box = box
 	}
 
+	if hasCavity && !hasWanted {
+		ch.Cavity = s.Cavity
+		ch.MarkRatio = s.Cavity.Diameter() / s.Cavity.Length
+		if ch.MarkRatio < s.RatioMin || ch.MarkRatio > s.RatioMax {
+			return nil, fmt.Errorf("modechart: the cavity's D/L %.4g lies outside the chart's D/L range %g..%g; widen the range",
+				ch.MarkRatio, s.RatioMin, s.RatioMax)
+		}
+	}
 	ch.FDMax = s.MaxFD
 	if ch.FDMax == 0 {
 		ref := cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
@@ -389,6 +405,14 @@ func New(s Spec) (*Chart, error) {
 	}
 	if !(ch.FDMax > 0 && ch.FDMax < 1e12) {
 		return nil, fmt.Errorf("modechart: top of chart must be in (0, 1e12) Hz·m, got %g Hz·m", s.MaxFD)
+	}
+	ch.FDMin = s.MinFD
+	if !(ch.FDMin >= 0 && ch.FDMin < ch.FDMax) {
+		return nil, fmt.Errorf("modechart: bottom of chart must be in [0, %.4g) Hz·m (below the top), got %g Hz·m", ch.FDMax, s.MinFD)
+	}
+	if hasDesign && ch.Box.FDLo*(1-ch.Clearance) < ch.FDMin {
+		return nil, fmt.Errorf("modechart: the operating box and clearance band reach down to f·D = %.4g Hz·m, below the bottom of the chart %.4g Hz·m; lower the bottom",
+			ch.Box.FDLo*(1-ch.Clearance), ch.FDMin)
 	}
 	if hasDesign && ch.Box.FDHi > ch.FDMax {
 		return nil, fmt.Errorf("modechart: the operating box reaches f·D = %.4g Hz·m, above the top of the chart %.4g Hz·m; raise the chart top",
@@ -427,8 +451,12 @@ func New(s Spec) (*Chart, error) {
 				continue
 			}
 		}
+		l := lineOf(m)
+		if l.FD(s.RatioMax) < ch.FDMin {
+			continue // wholly below the chart
+		}
 		seen[m] = len(lines)
-		lines = append(lines, lineOf(m))
+		lines = append(lines, l)
 	}
 	if len(lines) > MaxLines {
 		return nil, fmt.Errorf("modechart: %d lines below the chart top %.4g Hz·m exceed the %d-line limit; lower the top of the chart",

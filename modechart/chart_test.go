@@ -277,7 +277,7 @@ func TestClassify(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	const n = 801
+	const n = 4001
 	d := s.Cavity.Diameter()
 	b := ch.Box
 	roles := map[Role]int{}
@@ -383,7 +383,7 @@ func TestSpecErrors(t *testing.T) {
 		{"ratio order", func(s *Spec) { s.RatioMin, s.RatioMax = 2, 1 }, "got 2..1"},
 		{"ratio small", func(s *Spec) { s.RatioMin, s.RatioMax = 0.001, 1 }, "0.01 <= min"},
 		{"bad mode", func(s *Spec) { s.Wanted = cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 0} }, "TE010"},
-		{"no wanted", func(s *Spec) { s.Wanted = cavity.Mode{} }, "needs a wanted mode"},
+		{"no wanted", func(s *Spec) { s.Wanted = cavity.Mode{} }, "need a design: a cavity and a wanted mode"},
 		{"tuning", func(s *Spec) { s.Tuning = 0.7 }, "tuning must be in [0, 0.5)"},
 		{"clearance", func(s *Spec) { s.Clearance = -0.1 }, "got -0.1"},
 		{"tolerance", func(s *Spec) { s.DiameterTol = 0.01 }, "diameter tolerance"},
@@ -401,8 +401,13 @@ func TestSpecErrors(t *testing.T) {
 			t.Errorf("%s: New error = %v, want one containing %q", c.name, err, c.want)
 		}
 	}
-	if _, err := New(Spec{Tuning: 0.01}); err == nil || !strings.Contains(err.Error(), "need a design cavity") {
+	if _, err := New(Spec{Tuning: 0.01}); err == nil || !strings.Contains(err.Error(), "need a design") {
 		t.Errorf("tuning without design: error = %v", err)
+	}
+	// A cavity without a wanted mode is marked, not designed.
+	ch, err := New(Spec{Cavity: cavity.Cavity{Radius: 0.02, Length: 0.04}})
+	if err != nil || ch.HasDesign || ch.MarkRatio != 1 {
+		t.Errorf("cavity without mode: HasDesign %v, MarkRatio %v, err %v; want false, 1, nil", ch != nil && ch.HasDesign, ch != nil && ch.MarkRatio == 1, err)
 	}
 }
 

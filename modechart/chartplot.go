@@ -35,7 +35,7 @@ func (ch *Chart) Plot(th Theme) (*plot.Plot, *ModeLines, error) {
 			return nil, nil, err
 		}
 		band.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}
-		band.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot}
+		band.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot()}
 		box, err := NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi), ch.Y(b.FDLo), ch.Y(b.FDHi))
 		if err != nil {
 			return nil, nil, err
@@ -57,10 +57,24 @@ func (ch *Chart) Plot(th Theme) (*plot.Plot, *ModeLines, error) {
 	} else {
 		p.Add(ml)
 	}
+	if ch.MarkRatio != 0 {
+		x := ch.X(ch.MarkRatio)
+		l, err := plotter.NewLine(plotter.XYs{{X: x, Y: ml.YMin}, {X: x, Y: ml.YMax}})
+		if err != nil {
+			return nil, nil, err
+		}
+		l.LineStyle = markStyle()
+		p.Add(l)
+	}
 	// Keep the axes exactly on the chart's range.
 	p.X.Min, p.X.Max = ml.XMin, ml.XMax
 	p.Y.Min, p.Y.Max = ml.YMin, ml.YMax
 	return p, ml, nil
+}
+
+// markStyle is the vertical line at a cavity's D/L.
+func markStyle() draw.LineStyle {
+	return draw.LineStyle{Color: Ink, Width: vg.Points(1.2), Dashes: dashLong()}
 }
 
 // designGlyphs is the design-point marker: an ink dot in a white ring, seen
@@ -114,7 +128,7 @@ func (ch *Chart) Figure(th Theme) (*Figure, error) {
 		f.Legend.Add(ch.boxCaption(), BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.9)}})
 		if ch.Clearance > 0 {
 			f.Legend.Add(fmt.Sprintf("clearance band ±%s", pct(ch.Clearance)),
-				BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot}})
+				BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot()}})
 		}
 		thumbs := []plot.Thumbnailer{}
 		for _, g := range designGlyphs() {
@@ -123,14 +137,30 @@ func (ch *Chart) Figure(th Theme) (*Figure, error) {
 		f.Legend.Add(fmt.Sprintf("design point, D/L = %.4g", ch.Design.Ratio), thumbs...)
 	}
 
+	if ch.MarkRatio != 0 {
+		f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), LineThumb{markStyle()})
+	}
+
 	f.Notes = append(f.Notes,
 		"Modes TE_nmp, TM_nmp: n azimuthal, m radial, p axial index.  Each line: (f·D)² = [(c·x_nm/π)² + (c·p/2)²·(D/L)²] / (εr·μr),  x = j'_nm (TE), j_nm (TM)  (Pozar, Microwave Engineering, sec. 6.7).")
 	if ch.HasDesign {
 		c := ch.Cavity
+		if ch.MarkRatio != 0 {
+			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), LineThumb{markStyle()})
+		}
+
 		f.Notes = append(f.Notes, fmt.Sprintf("Design: D = %s, L = %s, %v at %s%s.",
 			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5),
 			ch.WantedMode, physics.FormatFrequency(ch.DesignFreq, 6), fillNote(ch.EpsR, ch.MuR)))
+	} else if ch.MarkRatio != 0 {
+		c := ch.Cavity
+		f.Notes = append(f.Notes, fmt.Sprintf("Cavity: D = %s, L = %s%s; read each mode's f·D where its line meets the D/L mark.",
+			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), fillNote(ch.EpsR, ch.MuR)))
 	} else if ch.EpsR != 1 || ch.MuR != 1 {
+		if ch.MarkRatio != 0 {
+			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), LineThumb{markStyle()})
+		}
+
 		f.Notes = append(f.Notes, "Fill:"+strings.TrimPrefix(fillNote(ch.EpsR, ch.MuR), ",")+".")
 	}
 	return f, nil
@@ -162,11 +192,11 @@ func (ch *Chart) boxCaption() string {
 func fillNote(eps, mu float64) string {
 	switch {
 	case eps == 1 && mu == 1:
-		return ", empty (air/vacuum)"
+		return ", empty (vacuum)"
 	case mu == 1:
-		return fmt.Sprintf(", filled, εr = %.4g", eps)
+		return fmt.Sprintf(", fill εr = %.6g", eps)
 	}
-	return fmt.Sprintf(", filled, εr = %.4g, μr = %.4g", eps, mu)
+	return fmt.Sprintf(", fill εr = %.6g, μr = %.6g", eps, mu)
 }
 
 // pct prints a fraction as a percentage with up to three significant

@@ -3,6 +3,7 @@ package modechart
 import (
 	"errors"
 	"fmt"
+	"image/color"
 	"math"
 	"slices"
 
@@ -84,7 +85,7 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 	if series == 0 && !hasFinite(d.WorstClearance) {
 		return nil, errors.New("modechart: trade-off curves hold no finite clearance")
 	}
-	req := draw.LineStyle{Color: Red, Width: vg.Points(1), Dashes: dashLong}
+	req := draw.LineStyle{Color: Red, Width: vg.Points(1), Dashes: dashLong()}
 	if d.MinClearance > 0 {
 		if err := addHLine(top, d.Ratio[0], d.Ratio[n-1], 100*d.MinClearance, req); err != nil {
 			return nil, err
@@ -110,6 +111,12 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 		f.Legend.Add("required clearance >= "+pct(d.MinClearance), LineThumb{req})
 	case d.MinQ > 0 && hasFinite(d.Q0):
 		f.Legend.Add(fmt.Sprintf("required Q0 >= %.5g", d.MinQ), LineThumb{req})
+	}
+	for _, p := range f.Panels {
+		padY(p, 0.08)
+	}
+	if len(f.Panels) > 1 {
+		f.Panels[0].X.Label.Text = ""
 	}
 	if d.Chosen != 0 {
 		if d.Chosen < d.Ratio[0] || d.Chosen > d.Ratio[n-1] {
@@ -149,6 +156,9 @@ type TuningCurves struct {
 	// Design is the design length in m, marked on the curves; zero means
 	// none.
 	Design float64
+	// Range is the tuning range (the lengths at the two ends), shaded;
+	// zeros mean none.
+	Range [2]float64
 }
 
 // Series is a named curve.
@@ -178,6 +188,30 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 	}
 	f := NewFigure(th, title)
 	top := th.NewPlot("", "cavity length L   [mm]", "resonant frequency   ["+fu+"]")
+	var bot *plot.Plot
+	if hasFinite(d.Clearance) {
+		bot = th.NewPlot("", "cavity length L   [mm]", "clearance   [%]")
+	}
+	// The tuning range first, under the curves.
+	if r := d.Range; r[0] != 0 || r[1] != 0 {
+		lo, hi := math.Min(r[0], r[1]), math.Max(r[0], r[1])
+		if lo < d.Length[0] || hi > d.Length[n-1] {
+			return nil, fmt.Errorf("modechart: tuning range %g..%g m lies outside the curve's range %g..%g m", lo, hi, d.Length[0], d.Length[n-1])
+		}
+		band := color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x50}
+		for _, p := range []*plot.Plot{top, bot} {
+			if p == nil {
+				continue
+			}
+			reg, err := NewRegion(lo*1e3, hi*1e3, 0, 1)
+			if err != nil {
+				return nil, err
+			}
+			reg.Fill, reg.LineStyle.Width, reg.NoRange, reg.FullHeight = band, 0, true, true
+			p.Add(reg)
+		}
+		f.Legend.Add("tuning range", BoxThumb{Fill: band})
+	}
 	var ends []PointLabel
 	thin := draw.LineStyle{Color: Blue, Width: th.LineWidth}
 	for _, o := range d.Others {
@@ -231,8 +265,7 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 		top.Add(pl)
 	}
 	f.Panels = append(f.Panels, top)
-	if hasFinite(d.Clearance) {
-		bot := th.NewPlot("", "cavity length L   [mm]", "clearance   [%]")
+	if bot != nil {
 		segs, err := segments(mm, d.Clearance, 100)
 		if err != nil {
 			return nil, err
@@ -247,6 +280,12 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 		}
 		f.Legend.Add("clearance along the tuning path", LineThumb{th.Series(2)})
 		f.Panels = append(f.Panels, bot)
+	}
+	for _, p := range f.Panels {
+		padY(p, 0.08)
+	}
+	if len(f.Panels) > 1 {
+		f.Panels[0].X.Label.Text = ""
 	}
 	if d.Design != 0 {
 		if d.Design < d.Length[0] || d.Design > d.Length[n-1] {
@@ -352,6 +391,12 @@ func freqUnit(f float64) (scale float64, name string) {
 		return 1e3, "kHz"
 	}
 	return 1, "Hz"
+}
+
+// padY widens a plot's y range by frac of its span on each side, after the
+// data have set it, so markers at the extremes are not clipped.
+func padY(p *plot.Plot, frac float64) {
+	p.Y.Min, p.Y.Max = padRange(p.Y.Min, p.Y.Max, frac)
 }
 
 func padRange(lo, hi, frac float64) (float64, float64) {

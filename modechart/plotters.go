@@ -28,6 +28,9 @@ type Region struct {
 	// NoRange, when true, keeps the region from widening the axes (a mask
 	// that should be clipped to the data rather than extend the plot).
 	NoRange bool
+	// FullHeight, when true, ignores YMin and YMax and spans the whole
+	// height of the axes (a band of x values).
+	FullHeight bool
 }
 
 // NewRegion returns a region with corners (xmin, ymin) and (xmax, ymax),
@@ -53,6 +56,9 @@ func (r *Region) Plot(c draw.Canvas, plt *plot.Plot) {
 	trX, trY := plt.Transforms(&c)
 	x0, x1 := trX(r.XMin), trX(r.XMax)
 	y0, y1 := trY(r.YMin), trY(r.YMax)
+	if r.FullHeight {
+		y0, y1 = c.Min.Y, c.Max.Y
+	}
 	poly := []vg.Point{{X: x0, Y: y0}, {X: x1, Y: y0}, {X: x1, Y: y1}, {X: x0, Y: y1}}
 	if r.Fill != nil {
 		if p := c.ClipPolygonXY(poly); len(p) > 0 {

@@ -3,11 +3,16 @@ package modechart
 import (
 	"bytes"
 	"fmt"
+	"image/color"
 	"io"
 	"math"
 	"path/filepath"
 	"strings"
+	"sync"
 
+	"codeberg.org/go-pdf/fpdf"
+	xfont "golang.org/x/image/font"
+	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
@@ -123,8 +128,7 @@ func (pg Page) resolve() (Page, error) {
 	return pg, nil
 }
 
-// Drawer draws itself on a canvas. *plot.Plot, *Figure and *ChartPlot are
-// Drawers.
+// Drawer draws itself on a canvas. *plot.Plot and *Figure are Drawers.
 type Drawer interface {
 	Draw(draw.Canvas)
 }
@@ -145,7 +149,8 @@ func Render(w io.Writer, d Drawer, f Format, pg Page) error {
 	case SVG:
 		c = vgsvg.New(pg.Width, pg.Height)
 	case PDF:
-		c = vgpdf.New(pg.Width, pg.Height)
+		pdfSortOnce.Do(func() { fpdf.SetDefaultCatalogSort(true) })
+		c = pdfCanvas{vgpdf.New(pg.Width, pg.Height)}
 	default:
 		return fmt.Errorf("modechart: unknown image format %v; use PNG, SVG or PDF", f)
 	}
@@ -165,6 +170,112 @@ func Render(w io.Writer, d Drawer, f Format, pg Page) error {
 	return err
 }
 
+// pdfSortOnce switches on, once per process, the PDF writer's package-wide
+// default of sorting its font and resource catalogs. Without it the writer
+// emits them in map order and two renders of one drawing differ. The
+// setting changes only the order of objects, never the page.
+var pdfSortOnce sync.Once
+
+// pdfCanvas works around two limits of the PDF writer with more than one
+// face: it registers each face under its full name but asks for styled
+// faces with a style suffix ("undefined font"), and it stores every
+// embedded font file under one name, so a second face (bold) is drawn with
+// the glyphs of the first. Every face is therefore drawn in the regular
+// face of its family, and bold is simulated by overstriking the text a
+// fraction of a point to the right (the usual fake-bold of PDF work).
+// Layout is unchanged: text is measured with the real faces before it
+// reaches the canvas.
+type pdfCanvas struct{ *vgpdf.Canvas }
+
+// FillString implements vg.Canvas.
+func (c pdfCanvas) FillString(f font.Face, pt vg.Point, s string) {
+	s = WinAnsi(s)
+	if f.Font.Weight == xfont.WeightNormal && f.Font.Style == xfont.StyleNormal {
+		c.Canvas.FillString(f, pt, s)
+		return
+	}
+	bold := f.Font.Weight >= xfont.WeightSemiBold
+	reg := f.Font
+	reg.Weight, reg.Style = xfont.WeightNormal, xfont.StyleNormal
+	f = font.DefaultCache.Lookup(reg, reg.Size)
+	c.Canvas.FillString(f, pt, s)
+	if bold {
+		c.Canvas.FillString(f, vg.Point{X: pt.X + reg.Size*0.035, Y: pt.Y}, s)
+	}
+}
+
+// SetColor implements vg.Canvas. The PDF writer takes the colour's
+// premultiplied components as the colour and applies the alpha again, so a
+// translucent white prints grey; translucent colours are handed over with
+// straight (non-premultiplied) components.
+func (c pdfCanvas) SetColor(clr color.Color) {
+	if clr != nil {
+		if _, _, _, a := clr.RGBA(); a != 0 && a != 0xffff {
+			clr = straightAlpha(color.NRGBAModel.Convert(clr).(color.NRGBA))
+		}
+	}
+	c.Canvas.SetColor(clr)
+}
+
+// straightAlpha is an NRGBA colour whose RGBA method returns the straight
+// components, as the PDF writer expects.
+type straightAlpha color.NRGBA
+
+// RGBA returns the straight (not premultiplied) components and the alpha.
+func (s straightAlpha) RGBA() (r, g, b, a uint32) {
+	return uint32(s.R) * 0x101, uint32(s.G) * 0x101, uint32(s.B) * 0x101, uint32(s.A) * 0x101
+}
+
+// cp1252High maps the characters of code page 1252 in 0x80..0x9f (Unicode
+// Consortium mapping file WINDOWS/CP1252.TXT) to their bytes.
+var cp1252High = map[rune]byte{
+	'€': 0x80, '‚': 0x82, 'ƒ': 0x83, '„': 0x84, '…': 0x85, '†': 0x86, '‡': 0x87,
+	'ˆ': 0x88, '‰': 0x89, 'Š': 0x8a, '‹': 0x8b, 'Œ': 0x8c, 'Ž': 0x8e,
+	'‘': 0x91, '’': 0x92, '“': 0x93, '”': 0x94, '•': 0x95, '–': 0x96, '—': 0x97,
+	'˜': 0x98, '™': 0x99, 'š': 0x9a, '›': 0x9b, 'œ': 0x9c, 'ž': 0x9e, 'Ÿ': 0x9f,
+}
+
+// cp1252Spell spells the characters cylcav prints that code page 1252
+// lacks.
+var cp1252Spell = map[rune]string{
+	'ε': "eps", 'μ': "\xb5", 'π': "pi", '≥': ">=", '≤': "<=", '−': "-", '≈': "~",
+	'σ': "sigma", 'δ': "delta", 'λ': "lambda", 'Ω': "ohm", 'φ': "phi", 'β': "beta",
+	'∞': "inf", '′': "'", '→': "->",
+}
+
+// WinAnsi re-encodes UTF-8 text in code page 1252 (WinAnsiEncoding, ISO
+// 32000-1 Annex D), the encoding of the PDF writer's fonts, which pass
+// bytes through unchanged. Characters outside the code page that cylcav
+// prints are spelled out (ε as "eps", π as "pi", ≥ as ">="; μ becomes the
+// micro sign); any other becomes '?'. Use it for text given directly to a
+// PDF writer; Render applies it to PDF text itself.
+func WinAnsi(s string) string {
+	ascii := true
+	for i := 0; i < len(s); i++ {
+		if s[i] >= 0x80 {
+			ascii = false
+			break
+		}
+	}
+	if ascii {
+		return s
+	}
+	var b strings.Builder
+	for _, r := range s {
+		switch {
+		case r < 0x80 || (r >= 0xa0 && r <= 0xff):
+			b.WriteByte(byte(r))
+		case cp1252High[r] != 0:
+			b.WriteByte(cp1252High[r])
+		case cp1252Spell[r] != "":
+			b.WriteString(cp1252Spell[r])
+		default:
+			b.WriteByte('?')
+		}
+	}
+	return b.String()
+}
+
 // Encode is Render into a new byte slice.
 func Encode(d Drawer, f Format, pg Page) ([]byte, error) {
 	var buf bytes.Buffer
@@ -172,6 +283,16 @@ func Encode(d Drawer, f Format, pg Page) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
+}
+
+// EncodeAs is Encode in the format named by a file name's extension
+// (chart.png, chart.svg, chart.pdf). It writes no file.
+func EncodeAs(d Drawer, name string, pg Page) ([]byte, error) {
+	f, err := FormatOf(name)
+	if err != nil {
+		return nil, err
+	}
+	return Encode(d, f, pg)
 }
 
 // FixedPDFDate is the creation and modification date written into every

@@ -12,43 +12,59 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 )
 
+// RGB is an opaque colour written 0xRRGGBB. It implements color.Color, so
+// the palette below is made of constants.
+type RGB uint32
+
+// RGBA implements color.Color.
+func (c RGB) RGBA() (r, g, b, a uint32) {
+	r = uint32(c>>16&0xff) * 0x101
+	g = uint32(c>>8&0xff) * 0x101
+	b = uint32(c&0xff) * 0x101
+	return r, g, b, 0xffff
+}
+
 // The cylcav palette. The hues come from the colour-blind-safe qualitative
 // schemes of P. Tol, "Colour Schemes", SRON/EPS/TN/09-002 (2021), sets
 // "bright" and "vibrant"; every pair used together on one chart also differs
 // in lightness, line width or dash pattern, so the charts stay readable in
 // greyscale and for readers with any common colour-vision deficiency.
-var (
+const (
 	// Ink is the near-black of axes, text and the wanted mode.
-	Ink = color.RGBA{R: 0x1a, G: 0x1a, B: 0x1a, A: 0xff}
+	Ink RGB = 0x1a1a1a
 	// Blue marks ordinary TE lines (Tol bright blue).
-	Blue = color.RGBA{R: 0x44, G: 0x77, B: 0xaa, A: 0xff}
+	Blue RGB = 0x4477aa
 	// Purple marks ordinary TM lines (Tol bright purple).
-	Purple = color.RGBA{R: 0xaa, G: 0x33, B: 0x77, A: 0xff}
+	Purple RGB = 0xaa3377
 	// Green marks TE0mp/TM1mp degenerate pairs (Tol bright green).
-	Green = color.RGBA{R: 0x22, G: 0x88, B: 0x33, A: 0xff}
-	// Red marks spurious modes that cross the operating box (Tol vibrant red).
-	Red = color.RGBA{R: 0xcc, G: 0x33, B: 0x11, A: 0xff}
+	Green RGB = 0x228833
+	// Red marks spurious modes that cross the operating box (Tol vibrant
+	// red).
+	Red RGB = 0xcc3311
 	// Orange marks spurious modes within the required clearance (Tol
 	// vibrant orange).
-	Orange = color.RGBA{R: 0xee, G: 0x77, B: 0x33, A: 0xff}
+	Orange RGB = 0xee7733
 	// DarkOrange is Orange darkened for text on white (contrast >= 4.5:1).
-	DarkOrange = color.RGBA{R: 0xa8, G: 0x4a, B: 0x10, A: 0xff}
-	// Teal is the fourth series colour (Tol vibrant teal).
-	Teal = color.RGBA{R: 0x00, G: 0x99, B: 0x88, A: 0xff}
-	// Sand fills the operating box (Tol bright yellow, translucent).
-	Sand = color.RGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xff}
+	DarkOrange RGB = 0xa84a10
+	// Teal is the sixth series colour (Tol vibrant teal).
+	Teal RGB = 0x009988
+	// Sand fills the operating box (Tol bright yellow, used translucent).
+	Sand RGB = 0xccbb44
 	// GridGrey is the colour of grid lines.
-	GridGrey = color.RGBA{R: 0xdd, G: 0xdd, B: 0xdd, A: 0xff}
+	GridGrey RGB = 0xdddddd
 )
 
-// Dash patterns, in points. Solid is nil.
-var (
-	dashTM      = []vg.Length{vg.Points(5), vg.Points(2.5)}
-	dashPair    = []vg.Length{vg.Points(7), vg.Points(2), vg.Points(1.5), vg.Points(2)}
-	dashDot     = []vg.Length{vg.Points(1.2), vg.Points(2.2)}
-	dashLong    = []vg.Length{vg.Points(9), vg.Points(3)}
-	dashDashDot = []vg.Length{vg.Points(5), vg.Points(2), vg.Points(1.2), vg.Points(2), vg.Points(1.2), vg.Points(2)}
-)
+// Dash patterns in points; each call returns a new slice, so a style can
+// be changed without touching another's. Solid is nil.
+func dashTM() []vg.Length { return []vg.Length{vg.Points(5), vg.Points(2.5)} }
+func dashPair() []vg.Length {
+	return []vg.Length{vg.Points(7), vg.Points(2), vg.Points(1.5), vg.Points(2)}
+}
+func dashDot() []vg.Length  { return []vg.Length{vg.Points(1.2), vg.Points(2.2)} }
+func dashLong() []vg.Length { return []vg.Length{vg.Points(9), vg.Points(3)} }
+func dashDashDot() []vg.Length {
+	return []vg.Length{vg.Points(5), vg.Points(2), vg.Points(1.2), vg.Points(2), vg.Points(1.2), vg.Points(2)}
+}
 
 // Theme is the look of every cylcav plot: fonts, sizes, colours and line
 // styles. The zero value is not useful; start from DefaultTheme and change
@@ -159,11 +175,11 @@ func (th Theme) Series(i int) draw.LineStyle {
 		w    float64
 	}{
 		{Ink, nil, 1.8},
-		{Blue, dashTM, 1.4},
-		{Red, dashPair, 1.4},
-		{Green, dashDot, 1.6},
-		{Purple, dashLong, 1.3},
-		{Teal, dashDashDot, 1.3},
+		{Blue, dashTM(), 1.4},
+		{Red, dashPair(), 1.4},
+		{Green, dashDot(), 1.6},
+		{Purple, dashLong(), 1.3},
+		{Teal, dashDashDot(), 1.3},
 	}
 	if i < 0 {
 		i = 0
@@ -233,6 +249,19 @@ const (
 	KindPair
 )
 
+// String returns "TE", "TM" or "TE0mp/TM1mp".
+func (k Kind) String() string {
+	switch k {
+	case KindTE:
+		return "TE"
+	case KindTM:
+		return "TM"
+	case KindPair:
+		return "TE0mp/TM1mp"
+	}
+	return "Kind(?)"
+}
+
 // ModeLine returns the line style of a mode-chart line of the given kind
 // and role. Families are told apart by dash (TE solid, TM dashed, pairs
 // dash-dot) and roles by colour and width: ordinary thin blue/purple/green,
@@ -241,9 +270,9 @@ func (th Theme) ModeLine(k Kind, r Role) draw.LineStyle {
 	var s draw.LineStyle
 	switch k {
 	case KindTM:
-		s = draw.LineStyle{Color: Purple, Dashes: dashTM}
+		s = draw.LineStyle{Color: Purple, Dashes: dashTM()}
 	case KindPair:
-		s = draw.LineStyle{Color: Green, Dashes: dashPair}
+		s = draw.LineStyle{Color: Green, Dashes: dashPair()}
 	default:
 		s = draw.LineStyle{Color: Blue}
 	}
@@ -257,13 +286,11 @@ func (th Theme) ModeLine(k Kind, r Role) draw.LineStyle {
 		// Always solid: the label names the family.
 		s.Color, s.Width, s.Dashes = Ink, 2.8*th.LineWidth, nil
 	}
-	if s.Dashes != nil && r != Ordinary {
+	if r != Ordinary {
 		// Wider lines need longer dashes to read as dashed.
-		d := make([]vg.Length, len(s.Dashes))
-		for i, v := range s.Dashes {
-			d[i] = v * 1.5
+		for i := range s.Dashes {
+			s.Dashes[i] *= 1.5
 		}
-		s.Dashes = d
 	}
 	return s
 }

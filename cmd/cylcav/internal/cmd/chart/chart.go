@@ -1,0 +1,406 @@
+// Package chart implements `cylcav chart`: the mode chart of a cavity as a
+// PNG, SVG or PDF image, with the wanted mode, the operating box and the
+// spurious modes near it emphasised.
+package chart
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+	"gonum.org/v1/plot/vg"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/modechart"
+	"cylcav/physics"
+)
+
+// Frequency limits accepted by --freq (Hz).
+const (
+	minFreq = 1e3
+	maxFreq = 1e14
+)
+
+// Options are the parsed and validated flags of `cylcav chart`.
+type Options struct {
+	IO *cmdutil.IOStreams
+
+	// Spec is the chart, with the cavity sized already when Sized.
+	Spec modechart.Spec
+	// Sized records that the cavity came from --freq and a constraint,
+	// described by SizedBy ("D/L = 1").
+	Sized   bool
+	SizedBy string
+	// FillName is the fill's library name, "user", or "" for vacuum.
+	FillName string
+
+	Output string
+	Format modechart.Format
+	Page   modechart.Page
+	Force  bool
+}
+
+// NewCmdChart returns `cylcav chart`. runF, if not nil, replaces the
+// command's work (tests use it to inspect the parsed options).
+func NewCmdChart(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: ios}
+	var (
+		mode, freq, ratio, diameter, length, fill, ratioRange  string
+		maxFD, minFD, units, axes, tuning, tol, tolLen, minClr string
+		width, height                                          string
+		dpi                                                    int
+	)
+	cmd := &cobra.Command{
+		Use:   "chart (--diameter D --length L | --mode MODE --freq F --ratio R) -o FILE [flags]",
+		Short: "Draw the mode chart of a cavity (PNG, SVG or PDF)",
+		Long: `Draw the mode chart of a closed circular cylinder: every TE and TM mode as a
+line of (f·D)² against (D/L)², straight lines from
+
+  (f·D)² = (c·x_nm/π)²/(εr·μr) + (c·p/2)²/(εr·μr) · (D/L)²
+
+with x_nm = j'_nm (TE) or j_nm (TM) (Pozar, Microwave Engineering, sec. 6.7),
+or with --axes linear f·D against D/L. TE modes are solid lines, TM modes
+dashed, and each exactly degenerate pair TE0mp/TM1mp is one dash-dot line
+named with both modes. Mode names sit on their lines where they fit without
+overlapping.
+
+With --mode and a cavity (--diameter and --length, or --freq with --ratio,
+--diameter or --length to size it first) the chart marks the design point,
+draws the wanted mode thick, and draws the operating box: the tuning range
+(--tuning, one end plate moved) times the D/L tolerance (--tolerance).
+Spurious modes whose lines cross the box are drawn wide red; those within
+--min-clearance of it, medium orange. Without --mode the cavity's D/L is a
+dashed vertical line.
+
+The file type follows the extension of -o: .png (at --dpi), .svg or .pdf.
+An existing file is replaced only with --force.
+
+Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
+		Example: `  # The chart of a 39.6 mm x 39.6 mm TE011 cavity, tunable by +-2 %,
+  # machined to +-0.02 mm, with 3 % required clearance
+  $ cylcav chart --diameter 39.6mm --length 39.6mm --mode TE011 \
+      --tuning 2% --tolerance 0.02mm --min-clearance 3% -o chart.png
+  wrote chart.png (PNG, 1200 x 900 px at 150 dpi): 50 mode lines, D/L 0.5..3
+  ...
+
+  # Size a PTFE-filled TE011 cavity for 5 GHz with D = L first, chart in
+  # GHz·mm on linear axes as SVG
+  $ cylcav chart --mode TE011 --freq 5GHz --ratio 1 --fill ptfe \
+      --units ghz-mm --axes linear -o chart.svg`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			fl := cmd.Flags()
+			s := &opts.Spec
+			var err error
+			if fl.Changed("mode") {
+				if s.Wanted, err = cavity.ParseMode(mode); err != nil {
+					return cmdutil.FlagError("mode", mode, err)
+				}
+			}
+			var fillV cavity.Fill
+			if fl.Changed("fill") {
+				d, err := physics.ParseDielectric(fill)
+				if err != nil {
+					return cmdutil.FlagError("fill", fill, err)
+				}
+				fillV, opts.FillName = cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}, d.Name
+				if err := fillV.Validate(); err != nil {
+					return cmdutil.FlagError("fill", fill, err)
+				}
+			}
+			if err := parseCavity(fl.Changed, opts, fillV, mode, freq, ratio, diameter, length); err != nil {
+				return err
+			}
+			if !fl.Changed("mode") && (fl.Changed("tuning") || fl.Changed("tolerance") || fl.Changed("tolerance-length") || fl.Changed("min-clearance")) {
+				return cmdutil.Usagef("--tuning, --tolerance and --min-clearance need --mode (the wanted mode) and a cavity")
+			}
+			lo, hi, err := physics.ParseRange(ratioRange, plain)
+			if err != nil {
+				return cmdutil.FlagError("ratio-range", ratioRange, err)
+			}
+			if !(lo >= modechart.MinRatio && hi <= modechart.MaxRatio && lo < hi) {
+				return cmdutil.FlagError("ratio-range", ratioRange, fmt.Errorf("want LO < HI, both between %g and %g", modechart.MinRatio, modechart.MaxRatio))
+			}
+			s.RatioMin, s.RatioMax = lo, hi
+			if s.Units, err = modechart.ParseUnits(units); err != nil {
+				return cmdutil.FlagError("units", units, errors.New("unknown units; use ghz-cm, ghz-mm or mhz-in"))
+			}
+			if s.Axes, err = modechart.ParseAxes(axes); err != nil {
+				return cmdutil.FlagError("axes", axes, errors.New("unknown axes; use squared or linear"))
+			}
+			u := s.Units.Scale()
+			if fl.Changed("max-fd") {
+				v, err := cmdutil.Number("max-fd", maxFD, 1e-9, 1e12)
+				if err != nil {
+					return err
+				}
+				s.MaxFD = v * u
+			}
+			if fl.Changed("min-fd") {
+				v, err := cmdutil.Number("min-fd", minFD, 0, 1e12)
+				if err != nil {
+					return err
+				}
+				s.MinFD = v * u
+			}
+			if fl.Changed("tuning") {
+				if s.Tuning, err = fraction("tuning", tuning, 0, 0.5); err != nil {
+					return err
+				}
+			}
+			if fl.Changed("min-clearance") {
+				if s.Clearance, err = fraction("min-clearance", minClr, 0, 0.99); err != nil {
+					return err
+				}
+			}
+			if fl.Changed("tolerance") {
+				if s.DiameterTol, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
+					return err
+				}
+				s.LengthTol = s.DiameterTol
+			}
+			if fl.Changed("tolerance-length") {
+				if s.LengthTol, err = cmdutil.Length("tolerance-length", tolLen, 0, 1); err != nil {
+					return err
+				}
+			}
+			if opts.Output == "" {
+				return cmdutil.Usagef("missing -o/--output, the image file to write (.png, .svg or .pdf)")
+			}
+			if opts.Format, err = modechart.FormatOf(opts.Output); err != nil {
+				return cmdutil.FlagError("output", opts.Output, errors.New("the file name must end in .png, .svg or .pdf"))
+			}
+			if dpi < modechart.MinDPI || dpi > modechart.MaxDPI {
+				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", modechart.MinDPI, modechart.MaxDPI))
+			}
+			opts.Page.DPI = dpi
+			// Page limits in metres (1 in = 0.0254 m exactly).
+			pmin, pmax := inches(modechart.MinPage), inches(modechart.MaxPage)
+			w, err := cmdutil.Length("width", width, pmin, pmax)
+			if err != nil {
+				return err
+			}
+			h, err := cmdutil.Length("height", height, pmin, pmax)
+			if err != nil {
+				return err
+			}
+			opts.Page.Width, opts.Page.Height = vg.Length(w/0.0254)*vg.Inch, vg.Length(h/0.0254)*vg.Inch
+			if runF != nil {
+				return runF(opts)
+			}
+			return runChart(opts)
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (emphasised, with the design point)")
+	f.StringVar(&diameter, "diameter", "", "inside diameter D of the cavity, e.g. 39.6mm")
+	f.StringVar(&length, "length", "", "inside length L of the cavity, e.g. 39.6mm")
+	f.StringVar(&freq, "freq", "", "size the cavity first: wanted frequency, with --ratio, --diameter or --length")
+	f.StringVar(&ratio, "ratio", "", "with --freq: the ratio D/L of the sized cavity")
+	f.StringVar(&fill, "fill", "", "fill: material name (air, ptfe, ...) or eps=E[,mu=M] (default vacuum)")
+	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "D/L range of the chart, LO:HI")
+	f.StringVar(&maxFD, "max-fd", "", "top of the chart as f·D in --units (default 1.5 x the design's f·D)")
+	f.StringVar(&minFD, "min-fd", "", "bottom of the chart as f·D in --units (default 0)")
+	f.StringVar(&units, "units", "ghz-cm", "unit of f·D: ghz-cm|ghz-mm|mhz-in")
+	f.StringVar(&axes, "axes", "squared", "axes: squared ((f·D)² vs (D/L)², straight lines) | linear (f·D vs D/L)")
+	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
+	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
+	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
+	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the box are emphasised")
+	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
+	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
+	f.IntVar(&dpi, "dpi", modechart.DefaultDPI, "resolution of PNG output, dots per inch")
+	f.StringVar(&width, "width", "8in", "page width")
+	f.StringVar(&height, "height", "6in", "page height")
+	_ = cmd.RegisterFlagCompletionFunc("units", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
+		return []string{"ghz-cm", "ghz-mm", "mhz-in"}, cobra.ShellCompDirectiveNoFileComp
+	})
+	_ = cmd.RegisterFlagCompletionFunc("axes", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
+		return []string{"squared", "linear"}, cobra.ShellCompDirectiveNoFileComp
+	})
+	return cmd
+}
+
+// parseCavity fills opts.Spec.Cavity from --diameter and --length, or by
+// sizing --mode at --freq with one of --ratio, --diameter, --length.
+func parseCavity(changed func(string) bool, opts *Options, fill cavity.Fill, mode, freq, ratio, diameter, length string) error {
+	s := &opts.Spec
+	if changed("freq") {
+		if !changed("mode") {
+			return cmdutil.Usagef("--freq sizes the cavity for the wanted mode: give --mode too (e.g. --mode TE011)")
+		}
+		f, err := cmdutil.Frequency("freq", freq, minFreq, maxFreq)
+		if err != nil {
+			return err
+		}
+		var given []string
+		for _, n := range []string{"ratio", "diameter", "length"} {
+			if changed(n) {
+				given = append(given, n)
+			}
+		}
+		if len(given) != 1 {
+			return cmdutil.Usagef("--freq needs exactly one of --ratio, --diameter or --length to size the cavity; got %d", len(given))
+		}
+		var by cavity.Constraint
+		var flag, val string
+		switch given[0] {
+		case "ratio":
+			r, err := cmdutil.Number("ratio", ratio, modechart.MinRatio, modechart.MaxRatio)
+			if err != nil {
+				return err
+			}
+			by, flag, val = cavity.ByRatio(r), "ratio", ratio
+		case "diameter":
+			d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+			if err != nil {
+				return err
+			}
+			by, flag, val = cavity.ByDiameter(d), "diameter", diameter
+		case "length":
+			l, err := cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize)
+			if err != nil {
+				return err
+			}
+			by, flag, val = cavity.ByLength(l), "length", length
+		}
+		c, err := cavity.Size(s.Wanted, f, fill, by)
+		if errors.Is(err, cavity.ErrInfeasible) {
+			return cmdutil.Usagef("--freq %q with --%s %q: %w", freq, flag, val, err)
+		}
+		if err != nil {
+			return err
+		}
+		s.Cavity, opts.Sized, opts.SizedBy = c, true, by.String()
+		return nil
+	}
+	if changed("ratio") {
+		return cmdutil.Usagef("--ratio sizes the cavity together with --freq and --mode; to chart a given cavity use --diameter and --length")
+	}
+	switch {
+	case changed("diameter") && changed("length"):
+		d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+		if err != nil {
+			return err
+		}
+		l, err := cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize)
+		if err != nil {
+			return err
+		}
+		s.Cavity = cavity.Cavity{Radius: d / 2, Length: l, EpsR: fill.EpsR, MuR: fill.MuR}
+	case changed("diameter") || changed("length"):
+		return cmdutil.Usagef("give both --diameter and --length (or --freq with one of them to size the cavity)")
+	default:
+		// No cavity: a plain chart of the fill.
+		s.EpsR, s.MuR = fill.EpsR, fill.MuR
+	}
+	return nil
+}
+
+// inches converts a page length to metres.
+func inches(l vg.Length) float64 { return float64(l/vg.Inch) * 0.0254 }
+
+func plain(s string) (float64, error) {
+	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
+	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0, fmt.Errorf("%q is not a number", s)
+	}
+	return v, nil
+}
+
+func fraction(flag, value string, lo, hi float64) (float64, error) {
+	v, err := physics.ParseFraction(value)
+	if err != nil {
+		return 0, cmdutil.FlagError(flag, value, err)
+	}
+	if !(v >= lo && v < hi) {
+		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be at least %g %% and below %g %%", 100*lo, 100*hi))
+	}
+	return v, nil
+}
+
+func runChart(opts *Options) error {
+	ch, err := modechart.New(opts.Spec)
+	if err != nil {
+		// Every chart error is a consequence of the flags.
+		return cmdutil.Usagef("%v", err)
+	}
+	fig, err := ch.Figure(modechart.DefaultTheme())
+	if err != nil {
+		return err
+	}
+	err = cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
+		return modechart.Render(b, fig, opts.Format, opts.Page)
+	})
+	if err != nil {
+		return err
+	}
+	return summary(opts.IO.Out, opts, ch)
+}
+
+// summary prints what was drawn: the file, the design and the spurious
+// modes the chart emphasises.
+func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
+	var b strings.Builder
+	size := fmt.Sprintf("%.4g x %.4g in", opts.Page.Width/vg.Inch, opts.Page.Height/vg.Inch)
+	if opts.Format == modechart.PNG {
+		size = fmt.Sprintf("%d x %d px at %d dpi",
+			int(float64(opts.Page.Width/vg.Inch)*float64(opts.Page.DPI)+0.5),
+			int(float64(opts.Page.Height/vg.Inch)*float64(opts.Page.DPI)+0.5), opts.Page.DPI)
+	}
+	fmt.Fprintf(&b, "wrote %s (%s, %s): %d mode lines, D/L %g..%g, f·D %.4g..%.4g %s, %s axes\n",
+		opts.Output, strings.ToUpper(opts.Format.String()), size, len(ch.Lines), ch.RatioMin, ch.RatioMax,
+		ch.FDMin/ch.Units.Scale(), ch.FDMax/ch.Units.Scale(), ch.Units, ch.Axes)
+	c := opts.Spec.Cavity
+	if c.Radius != 0 {
+		what := "cavity"
+		if opts.Sized {
+			what = "sized cavity (" + opts.SizedBy + ")"
+		}
+		fmt.Fprintf(&b, "%s: D = %s, L = %s, D/L = %.4g", what,
+			physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), c.Diameter()/c.Length)
+		if opts.FillName != "" {
+			fmt.Fprintf(&b, ", fill %s", opts.FillName)
+		}
+		b.WriteString("\n")
+	}
+	if ch.HasDesign {
+		fmt.Fprintf(&b, "wanted: %v at %s\n", ch.WantedMode, physics.FormatFrequency(ch.DesignFreq, 6))
+		if comp, ok := ch.WantedMode.Companion(); ok {
+			fmt.Fprintf(&b, "exact companion on the same line: %v (no D/L separates them; suppress it by other means)\n", comp)
+		}
+		var cross, near []string
+		for _, l := range ch.Lines {
+			switch l.Role {
+			case modechart.Crossing:
+				cross = append(cross, l.Label())
+			case modechart.Near:
+				near = append(near, l.Label())
+			}
+		}
+		if ch.Tuning == 0 && ch.DiameterTol == 0 && ch.LengthTol == 0 {
+			b.WriteString("operating point only (give --tuning and --tolerance to draw the operating box)\n")
+		} else {
+			fmt.Fprintf(&b, "spurious modes crossing the operating box: %s\n", list(cross))
+		}
+		if ch.Clearance > 0 {
+			fmt.Fprintf(&b, "spurious modes within %.3g %% clearance of it: %s\n", 100*ch.Clearance, list(near))
+		}
+	}
+	b.WriteString("mode index convention: n azimuthal, m radial, p axial\n")
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+func list(s []string) string {
+	if len(s) == 0 {
+		return "none"
+	}
+	return strings.Join(s, ", ")
+}

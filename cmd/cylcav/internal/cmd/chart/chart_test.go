@@ -1,0 +1,178 @@
+package chart_test
+
+import (
+	"bytes"
+	"encoding/xml"
+	"image/png"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"cylcav/cmd/cylcav/internal/cmd/chart"
+	"cylcav/cmd/cylcav/internal/cmd/root"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/modechart"
+)
+
+func cylcav(t *testing.T, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	code = root.Main(cmdutil.Test(&out, &errOut), args)
+	return out.String(), errOut.String(), code
+}
+
+// parse runs `chart` with runF capturing the options.
+func parse(t *testing.T, args ...string) (*chart.Options, error) {
+	t.Helper()
+	var got *chart.Options
+	var out, errOut bytes.Buffer
+	cmd := chart.NewCmdChart(cmdutil.Test(&out, &errOut), func(o *chart.Options) error {
+		got = o
+		return nil
+	})
+	cmd.SetArgs(args)
+	cmd.SetOut(&out)
+	cmd.SetErr(&errOut)
+	err := cmd.Execute()
+	return got, err
+}
+
+func TestWritesEveryFormat(t *testing.T) {
+	dir := t.TempDir()
+	for _, ext := range []string{"png", "svg", "pdf"} {
+		path := filepath.Join(dir, "chart."+ext)
+		out, errOut, code := cylcav(t, "chart", "--diameter", "39.6mm", "--length", "39.6mm", "--mode", "TE011",
+			"--tuning", "2%", "--tolerance", "0.02mm", "--min-clearance", "3%", "--dpi", "72", "-o", path)
+		if code != 0 {
+			t.Fatalf("%s: exit %d, stderr %q", ext, code, errOut)
+		}
+		b, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		switch ext {
+		case "png":
+			img, err := png.Decode(bytes.NewReader(b))
+			if err != nil {
+				t.Fatalf("PNG does not decode: %v", err)
+			}
+			if s := img.Bounds().Size(); s.X != 576 || s.Y != 432 {
+				t.Errorf("PNG size %v, want 576x432 (8 x 6 in at 72 dpi)", s)
+			}
+		case "svg":
+			if err := xml.Unmarshal(b, new(struct{})); err != nil {
+				t.Errorf("SVG is not XML: %v", err)
+			}
+		case "pdf":
+			if !bytes.HasPrefix(b, []byte("%PDF-")) || !bytes.Contains(b[len(b)-16:], []byte("%%EOF")) {
+				t.Error("PDF lacks its header or trailer")
+			}
+		}
+		for _, want := range []string{"wrote " + path, "spurious modes crossing the operating box: TM012, TE212",
+			"within 3 % clearance of it: TE112", "companion on the same line: TM111", "n azimuthal, m radial, p axial"} {
+			if !strings.Contains(out, want) {
+				t.Errorf("%s: output lacks %q:\n%s", ext, want, out)
+			}
+		}
+	}
+}
+
+// TestForce checks that an existing file is replaced only with --force and
+// that a failed run leaves no file.
+func TestForce(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "c.svg")
+	if err := os.WriteFile(path, []byte("keep"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	_, errOut, code := cylcav(t, "chart", "-o", path)
+	if code != 2 || !strings.Contains(errOut, "--force") {
+		t.Errorf("existing file: exit %d, stderr %q; want 2 and a hint to use --force", code, errOut)
+	}
+	if b, _ := os.ReadFile(path); string(b) != "keep" {
+		t.Error("existing file changed without --force")
+	}
+	if _, errOut, code := cylcav(t, "chart", "-o", path, "--force"); code != 0 {
+		t.Fatalf("--force: exit %d, stderr %q", code, errOut)
+	}
+	if b, _ := os.ReadFile(path); !bytes.Contains(b, []byte("<svg")) {
+		t.Error("--force did not replace the file")
+	}
+	bad := filepath.Join(dir, "bad.png")
+	if _, _, code := cylcav(t, "chart", "--mode", "TM010", "--diameter", "40mm", "--length", "30mm", "--tuning", "1%", "-o", bad); code != 2 {
+		t.Errorf("untunable TM010: exit %d, want 2", code)
+	}
+	if _, err := os.Stat(bad); err == nil {
+		t.Error("a failed run left a file")
+	}
+	entries, _ := os.ReadDir(dir)
+	for _, e := range entries {
+		if strings.HasPrefix(e.Name(), ".") {
+			t.Errorf("temporary file %s left behind", e.Name())
+		}
+	}
+}
+
+// TestSizeFirst checks --mode --freq --ratio: the cavity is sized by the
+// library, so the design point sits at the asked ratio and frequency
+// (Pozar, Microwave Engineering, 4th ed., sec. 6.7: the PTFE-filled TE011
+// cavity with D = L at 5 GHz has a = 2.74 cm, recalled from memory).
+func TestSizeFirst(t *testing.T) {
+	o, err := parse(t, "--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--fill", "eps=2.08", "-o", "x.svg",
+		"--units", "mhz-in", "--axes", "linear", "--max-fd", "20000")
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := o.Spec.Cavity
+	if a := math.Round(c.Radius*1e4) / 1e2; a != 2.74 {
+		t.Errorf("sized radius = %.4f cm, want 2.74 cm", c.Radius*100)
+	}
+	if r := c.Diameter() / c.Length; math.Abs(r-1) > 1e-12 {
+		t.Errorf("sized D/L = %.15g, want 1", r)
+	}
+	if f := c.Frequency(o.Spec.Wanted); math.Abs(f-5e9) > 5e9*1e-12 {
+		t.Errorf("sized frequency = %.12g Hz, want 5e9", f)
+	}
+	if o.Spec.Units != modechart.MHzIn || o.Spec.Axes != modechart.Linear || o.Format != modechart.SVG {
+		t.Errorf("units %v axes %v format %v", o.Spec.Units, o.Spec.Axes, o.Format)
+	}
+	// --max-fd is in the chosen units: 20000 MHz·in = 20000 x 25400 Hz·m.
+	if want := 20000 * 25400.0; math.Abs(o.Spec.MaxFD-want) > want*1e-15 {
+		t.Errorf("MaxFD = %g Hz·m, want %g", o.Spec.MaxFD, want)
+	}
+}
+
+func TestBadFlags(t *testing.T) {
+	for _, c := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"--diameter", "40mm", "-o", "x.png"}, "give both --diameter and --length"},
+		{[]string{"--diameter", "40mm", "--length", "30mm"}, "missing -o/--output"},
+		{[]string{"-o", "x.gif"}, `--output "x.gif": the file name must end in .png, .svg or .pdf`},
+		{[]string{"-o", "x.png", "--dpi", "2"}, `--dpi "2": must be between 36 and 1200`},
+		{[]string{"-o", "x.png", "--units", "ghz-in"}, "use ghz-cm, ghz-mm or mhz-in"},
+		{[]string{"-o", "x.png", "--axes", "log"}, "use squared or linear"},
+		{[]string{"-o", "x.png", "--ratio-range", "3:1"}, `--ratio-range "3:1"`},
+		{[]string{"-o", "x.png", "--freq", "5GHz"}, "give --mode too"},
+		{[]string{"-o", "x.png", "--mode", "TE011", "--freq", "5GHz"}, "exactly one of --ratio, --diameter or --length"},
+		{[]string{"-o", "x.png", "--ratio", "1"}, "--ratio sizes the cavity together with --freq"},
+		{[]string{"-o", "x.png", "--tuning", "2%"}, "need --mode"},
+		{[]string{"-o", "x.png", "--mode", "TE011", "--diameter", "40mm", "--length", "30mm", "--tuning", "80%"}, `--tuning "80%"`},
+		{[]string{"-o", "x.png", "--mode", "TE011", "--freq", "1GHz", "--diameter", "1mm"}, "--freq \"1GHz\" with --diameter \"1mm\""},
+	} {
+		_, err := parse(t, c.args...)
+		if err == nil || !strings.Contains(err.Error(), c.want) || !cmdutil.IsUsage(err) {
+			t.Errorf("chart %v: error %v, want a usage error containing %q", c.args, err, c.want)
+		}
+	}
+}
+
+func TestHelpHasExample(t *testing.T) {
+	out, _, code := cylcav(t, "chart", "--help")
+	if code != 0 || !strings.Contains(out, "$ cylcav chart --diameter 39.6mm") || !strings.Contains(out, "n azimuthal, m radial, p axial") {
+		t.Errorf("help lacks the worked example or the index convention:\n%s", out)
+	}
+}

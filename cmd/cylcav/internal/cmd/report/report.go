@@ -1,0 +1,187 @@
+// Package report implements `cylcav report`: the datasheet of a cavity
+// design as one self-contained HTML file (tables and inline SVG charts,
+// printable to PDF from a browser), and optionally a PDF datasheet.
+//
+// It takes the same flags as `cylcav design` and solves the same problem
+// through the same library call (design.Scenario.Run); with none of them it
+// reports the built-in demo scenario (design.Demo).
+package report
+
+import (
+	"bytes"
+	"fmt"
+	"strings"
+
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
+
+	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/modechart"
+)
+
+// Options are the parsed flags of `cylcav report`.
+type Options struct {
+	IO *cmdutil.IOStreams
+	// Scenario is the design problem, parsed by the design command.
+	Scenario design.Scenario
+	// Output is the HTML file; PDF, when not empty, the PDF datasheet.
+	Output, PDF string
+	Force       bool
+}
+
+// ownFlags are report's flags that are not design's.
+var ownFlags = map[string]bool{"output": true, "pdf": true, "force": true}
+
+// NewCmdReport returns `cylcav report`. runF, if not nil, replaces the
+// command's work (tests use it to inspect the parsed options).
+func NewCmdReport(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: ios}
+	cmd := &cobra.Command{
+		Use:   "report [design flags] -o FILE.html [--pdf FILE.pdf] [--force]",
+		Short: "Write the datasheet of a design: one HTML file with charts (demo with no design flags)",
+		Long: `Write the datasheet of a cavity design as one self-contained HTML file: the
+dimensions and tolerances, the modes near the band, the Q0 breakdown, the
+clearance, the sensitivities and thermal drift, the tolerance spread, the
+tuning curve, the materials with their sources, the index convention and
+the cautions, with the mode chart, the design trade-off (clearance and Q0
+against D/L), the tuning curve and Q0 against frequency as inline SVG
+charts. The file needs nothing else to display and prints cleanly to PDF
+from a browser (A4 or Letter). --pdf also writes a PDF datasheet directly.
+
+The design flags are those of 'cylcav design' and mean the same; the design
+is solved by the same library call. With no design flag the built-in demo
+scenario is reported, and the datasheet says so.
+
+Files are written whole or not at all; an existing file is replaced only
+with --force.
+
+Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
+		Example: `  # The datasheet of the built-in demo scenario
+  $ cylcav report -o datasheet.html
+  wrote datasheet.html (HTML datasheet, 4 charts): demo scenario, TE011 at 10.5 GHz, D = 40.2443 mm, L = 28.4503 mm
+
+  # A copper TE011 cavity at 10 GHz, +-1 % tuning, as HTML and PDF
+  $ cylcav report --mode TE011 --freq 10GHz --wall copper --tuning 1% \
+      --tolerance 0.02mm -o sheet.html --pdf sheet.pdf`,
+		Args: cobra.NoArgs,
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if opts.Output == "" {
+				return cmdutil.Usagef("missing -o/--output, the HTML file to write (e.g. -o datasheet.html)")
+			}
+			if !strings.HasSuffix(strings.ToLower(opts.Output), ".html") && !strings.HasSuffix(strings.ToLower(opts.Output), ".htm") {
+				return cmdutil.FlagError("output", opts.Output, fmt.Errorf("the datasheet is HTML: end the file name in .html"))
+			}
+			if opts.PDF != "" && !strings.HasSuffix(strings.ToLower(opts.PDF), ".pdf") {
+				return cmdutil.FlagError("pdf", opts.PDF, fmt.Errorf("end the file name in .pdf"))
+			}
+			sc, err := parseDesignFlags(ios, cmd.Flags())
+			if err != nil {
+				return err
+			}
+			opts.Scenario = sc
+			if runF != nil {
+				return runF(opts)
+			}
+			return runReport(opts)
+		},
+	}
+	// The design command's flags, defined by the design command itself, so
+	// the two stay the same; --format is design's output format and has no
+	// meaning here.
+	cmd.Flags().AddFlagSet(designFlags(ios))
+	cmd.Flags().StringVarP(&opts.Output, "output", "o", "", "HTML datasheet to write (.html)")
+	cmd.Flags().StringVar(&opts.PDF, "pdf", "", "also write a PDF datasheet (.pdf)")
+	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace existing files")
+	return cmd
+}
+
+// designFlags returns the flags of `cylcav design` except --format.
+func designFlags(ios *cmdutil.IOStreams) *pflag.FlagSet {
+	d := design.NewCmdDesign(ios, nil)
+	fs := pflag.NewFlagSet("design", pflag.ContinueOnError)
+	d.Flags().VisitAll(func(f *pflag.Flag) {
+		if f.Name != "format" {
+			fs.AddFlag(f)
+		}
+	})
+	return fs
+}
+
+// parseDesignFlags hands the design flags given to report to a fresh design
+// command, whose own parsing and validation produce the scenario (the demo
+// scenario when none is given).
+func parseDesignFlags(ios *cmdutil.IOStreams, given *pflag.FlagSet) (design.Scenario, error) {
+	var args []string
+	given.Visit(func(f *pflag.Flag) {
+		if !ownFlags[f.Name] {
+			args = append(args, "--"+f.Name+"="+f.Value.String())
+		}
+	})
+	var sc design.Scenario
+	d := design.NewCmdDesign(ios, func(o *design.Options) error {
+		sc = o.Scenario
+		return nil
+	})
+	if err := d.ParseFlags(args); err != nil {
+		return sc, cmdutil.Usagef("%v", err)
+	}
+	if err := d.RunE(d, nil); err != nil {
+		return sc, err
+	}
+	return sc, nil
+}
+
+func runReport(opts *Options) error {
+	var progress func(done, total int)
+	var bar *cmdutil.Progress
+	if opts.Scenario.Spec.Tolerance.Samples >= 100000 {
+		bar = cmdutil.NewProgress(opts.IO, "tolerance analysis")
+		progress = bar.Update
+	}
+	r, err := opts.Scenario.Run(progress)
+	if bar != nil {
+		bar.Done()
+	}
+	if err != nil {
+		return err // an impossible design exits with status 1
+	}
+	sh, err := build(r, modechart.DefaultTheme())
+	if err != nil {
+		return err
+	}
+	html, err := sh.HTML()
+	if err != nil {
+		return err
+	}
+	var pdf []byte
+	if opts.PDF != "" {
+		if pdf, err = sh.PDF(); err != nil {
+			return err
+		}
+	}
+	// Both files are rendered before either is written, so a failure
+	// leaves neither behind.
+	if err := cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
+		_, err := b.Write(html)
+		return err
+	}); err != nil {
+		return err
+	}
+	if opts.PDF != "" {
+		if err := cmdutil.WriteFileAtomic(opts.PDF, pdf, opts.Force); err != nil {
+			return err
+		}
+	}
+	what := "design"
+	if opts.Scenario.Title != "" {
+		what = "demo scenario"
+	}
+	extra := ""
+	if opts.PDF != "" {
+		extra = " and " + opts.PDF + " (PDF datasheet)"
+	}
+	_, err = fmt.Fprintf(opts.IO.Out, "wrote %s (HTML datasheet, %d charts)%s: %s, %s\nmode index convention: n azimuthal, m radial, p axial\n",
+		opts.Output, len(sh.Charts), extra, what, sh.Headline)
+	return err
+}

@@ -1,0 +1,319 @@
+package report_test
+
+import (
+	"bytes"
+	"context"
+	"encoding/json"
+	"image/png"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+	"time"
+
+	"cylcav/cmd/cylcav/internal/cmd/report"
+	"cylcav/cmd/cylcav/internal/cmd/root"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+)
+
+func cylcav(t *testing.T, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	code = root.Main(cmdutil.Test(&out, &errOut), args)
+	return out.String(), errOut.String(), code
+}
+
+// demo writes the demo datasheet (HTML and PDF) into a temporary folder.
+func demo(t *testing.T) (html, pdf string) {
+	t.Helper()
+	dir := t.TempDir()
+	html, pdf = filepath.Join(dir, "sheet.html"), filepath.Join(dir, "sheet.pdf")
+	out, errOut, code := cylcav(t, "report", "-o", html, "--pdf", pdf)
+	if code != 0 {
+		t.Fatalf("report: exit %d, stderr %q", code, errOut)
+	}
+	if !strings.Contains(out, "wrote "+html) || !strings.Contains(out, "demo scenario") {
+		t.Errorf("report output = %q", out)
+	}
+	return html, pdf
+}
+
+// TestDemoDatasheet checks the content and form of the demo datasheet:
+// every section the issue asks for, four inline charts, no script and no
+// external resource, balanced elements, and the same bytes on a second run.
+func TestDemoDatasheet(t *testing.T) {
+	html, pdf := demo(t)
+	b, err := os.ReadFile(html)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(b)
+	for _, want := range []string{
+		"<!DOCTYPE html>", "Demo scenario", "Dimensions and tolerances", "Mode chart", "Modes near the band",
+		"Spurious-mode clearance", "Unloaded Q", "Sensitivities", "Machining tolerance", "Tuning",
+		"Materials and their sources", "Source:", "Index convention", "n is the azimuthal index",
+		"m the radial index", "p the axial index", "RF burns", "High voltage", "multipaction", "Cryogenics",
+		"local codes", "licensed practice", "@media print", "@page", "TE011/TM111",
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("datasheet lacks %q", want)
+		}
+	}
+	if n := strings.Count(s, "<svg"); n != 4 {
+		t.Errorf("datasheet has %d inline SVG charts, want 4", n)
+	}
+	for _, el := range []string{"table", "figure", "svg", "section", "ul"} {
+		if o, c := strings.Count(s, "<"+el), strings.Count(s, "</"+el+">"); o != c {
+			t.Errorf("<%s> opened %d times, closed %d times", el, o, c)
+		}
+	}
+	if strings.Contains(s, "<script") {
+		t.Error("datasheet contains a script")
+	}
+	if m := regexp.MustCompile(`(?i)(src|href)\s*=\s*"(https?:|//)`).FindString(s); m != "" {
+		t.Errorf("datasheet loads an external resource: %s", m)
+	}
+	p, err := os.ReadFile(pdf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.HasPrefix(p, []byte("%PDF-")) || !bytes.HasSuffix(bytes.TrimRight(p, "\r\n"), []byte("%%EOF")) {
+		t.Error("PDF datasheet lacks its header or trailer")
+	}
+	if n := bytes.Count(p, []byte("/Type /Page\n")); n < 4 {
+		t.Errorf("PDF datasheet has %d pages, want at least 4", n)
+	}
+	html2, pdf2 := demo(t)
+	for _, pair := range [][2]string{{html, html2}, {pdf, pdf2}} {
+		a, _ := os.ReadFile(pair[0])
+		b, _ := os.ReadFile(pair[1])
+		if !bytes.Equal(a, b) {
+			t.Errorf("%s differs between two runs", filepath.Ext(pair[0]))
+		}
+	}
+}
+
+// TestSameDesignAsDesignCommand checks that report solves the problem of
+// its design flags exactly as `cylcav design` does.
+func TestSameDesignAsDesignCommand(t *testing.T) {
+	flags := []string{"--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--ratio-range", "0.6:2.5",
+		"--tuning", "1%", "--tolerance", "0.02mm", "--samples", "2000"}
+	out, errOut, code := cylcav(t, append([]string{"design", "--format", "json"}, flags...)...)
+	if code != 0 {
+		t.Fatalf("design: exit %d, %s", code, errOut)
+	}
+	var d struct {
+		DiameterM float64 `json:"diameter_m"`
+		LengthM   float64 `json:"length_m"`
+	}
+	if err := json.Unmarshal([]byte(out), &d); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "s.html")
+	if _, errOut, code := cylcav(t, append([]string{"report", "-o", path}, flags...)...); code != 0 {
+		t.Fatalf("report: exit %d, %s", code, errOut)
+	}
+	b, _ := os.ReadFile(path)
+	s := string(b)
+	for _, want := range []string{
+		"D = " + physics.FormatLength(d.DiameterM, 6), "L = " + physics.FormatLength(d.LengthM, 6),
+		"Cavity datasheet: TE011 at 10.00000 GHz", "copper",
+	} {
+		if !strings.Contains(s, want) {
+			t.Errorf("datasheet lacks %q (design gave D = %g m, L = %g m)", want, d.DiameterM, d.LengthM)
+		}
+	}
+	if strings.Contains(s, "Demo scenario") {
+		t.Error("a datasheet of given flags says it is the demo")
+	}
+}
+
+// TestNoWall checks a design without a wall metal: no Q section and no Q
+// chart, and the caution that says why.
+func TestNoWall(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "s.html")
+	if _, errOut, code := cylcav(t, "report", "-o", path, "--mode", "TM010", "--freq", "2.45GHz", "--samples", "1000"); code != 0 {
+		t.Fatalf("report: exit %d, %s", code, errOut)
+	}
+	b, _ := os.ReadFile(path)
+	s := string(b)
+	if n := strings.Count(s, "<svg"); n != 3 {
+		t.Errorf("datasheet without a wall has %d charts, want 3 (no Q0 chart)", n)
+	}
+	if strings.Contains(s, "Unloaded Q</h2>") || !strings.Contains(s, "No wall metal given") {
+		t.Error("datasheet without a wall: want no Q section and the caution about the missing wall")
+	}
+}
+
+func TestReportErrors(t *testing.T) {
+	dir := t.TempDir()
+	html := filepath.Join(dir, "a.html")
+	for _, c := range []struct {
+		args []string
+		code int
+		want string
+	}{
+		{[]string{"report"}, 2, "missing -o/--output"},
+		{[]string{"report", "-o", filepath.Join(dir, "a.txt")}, 2, "end the file name in .html"},
+		{[]string{"report", "-o", html, "--pdf", filepath.Join(dir, "a.ps")}, 2, "end the file name in .pdf"},
+		{[]string{"report", "-o", html, "--format", "json"}, 2, "unknown flag: --format"},
+		{[]string{"report", "-o", html, "--mode", "TE011", "--freq", "ten"}, 2, `--freq "ten"`},
+		{[]string{"report", "-o", html, "--mode", "TE011"}, 2, "needs --mode and --freq"},
+		// No D/L in 0.9..1.0 gives 20 % clearance: an impossible design.
+		{[]string{"report", "-o", html, "--mode", "TE011", "--freq", "10GHz", "--ratio-range", "0.9:1", "--min-clearance", "20%"}, 1, "no design meets"},
+	} {
+		_, errOut, code := cylcav(t, c.args...)
+		if code != c.code || !strings.Contains(errOut, c.want) {
+			t.Errorf("%v: exit %d, stderr %q; want %d and %q", c.args, code, errOut, c.code, c.want)
+		}
+	}
+	if _, err := os.Stat(html); err == nil {
+		t.Error("a failed run left a datasheet")
+	}
+	// An existing file is kept without --force, replaced with it.
+	if err := os.WriteFile(html, []byte("keep"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if _, errOut, code := cylcav(t, "report", "-o", html); code != 2 || !strings.Contains(errOut, "--force") {
+		t.Errorf("existing file: exit %d, stderr %q", code, errOut)
+	}
+	if b, _ := os.ReadFile(html); string(b) != "keep" {
+		t.Error("existing datasheet replaced without --force")
+	}
+	if _, errOut, code := cylcav(t, "report", "-o", html, "--force"); code != 0 {
+		t.Errorf("--force: exit %d, %s", code, errOut)
+	}
+}
+
+// TestFlagsAreDesigns checks that report offers every design flag but
+// --format, with design's defaults.
+func TestFlagsAreDesigns(t *testing.T) {
+	var out bytes.Buffer
+	r := report.NewCmdReport(cmdutil.Test(&out, &out), nil)
+	for _, name := range []string{"mode", "freq", "fill", "wall", "ratio-range", "objective", "min-clearance", "min-q",
+		"max-diameter", "tuning", "temp", "tolerance", "samples", "seed", "count-degenerate", "output", "pdf", "force"} {
+		if r.Flags().Lookup(name) == nil {
+			t.Errorf("report lacks --%s", name)
+		}
+	}
+	if r.Flags().Lookup("format") != nil {
+		t.Error("report offers --format, which has no meaning for it")
+	}
+	if f := r.Flags().Lookup("ratio-range"); f == nil || f.DefValue != "0.5:3" {
+		t.Errorf("--ratio-range default = %v, want design's 0.5:3", f)
+	}
+}
+
+const chromium = "chromium"
+
+// chromiumArgs are the flags for a quiet, self-contained headless run.
+func chromiumArgs(profile string, extra ...string) []string {
+	return append([]string{"--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
+		"--disable-background-networking", "--disable-component-update", "--disable-sync", "--hide-scrollbars",
+		"--user-data-dir=" + profile}, extra...)
+}
+
+// probe wraps a page with a script that records errors from the start and,
+// once loaded, writes the number of SVG charts, how many have no visible
+// size, and the errors into the DOM.
+func probe(page string) string {
+	head := `<script>window.__errs=[];addEventListener('error',function(e){__errs.push(String(e.message))});` +
+		`(function(){var ce=console.error;console.error=function(){__errs.push(Array.prototype.join.call(arguments,' '));ce.apply(console,arguments)}})();</script>`
+	tail := `<script>addEventListener('load',function(){var s=document.querySelectorAll('svg'),bad=0;` +
+		`for(var i=0;i<s.length;i++){var r=s[i].getBoundingClientRect();if(!(r.width>100&&r.height>100))bad++}` +
+		`var p=document.createElement('pre');p.textContent='PROBE svgs='+s.length+' hidden='+bad+' errors='+JSON.stringify(__errs);` +
+		`document.body.appendChild(p)});</script>`
+	page = strings.Replace(page, "<head>", "<head>"+head, 1)
+	return strings.Replace(page, "</body>", tail+"</body>", 1)
+}
+
+var probeRE = regexp.MustCompile(`PROBE svgs=(\d+) hidden=(\d+) errors=(\[.*?\])`)
+
+func runProbe(t *testing.T, dir, name, page string) []string {
+	t.Helper()
+	path := filepath.Join(dir, name)
+	if err := os.WriteFile(path, []byte(probe(page)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
+	defer cancel()
+	cmd := exec.CommandContext(ctx, chromium, chromiumArgs(filepath.Join(dir, "profile-"+name), "--virtual-time-budget=3000", "--dump-dom", "file://"+path)...)
+	var out, errOut bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &out, &errOut
+	if err := cmd.Run(); err != nil {
+		t.Fatalf("chromium --dump-dom: %v\n%s", err, errOut.String())
+	}
+	m := probeRE.FindStringSubmatch(out.String())
+	if m == nil {
+		t.Fatalf("%s: no probe result in the DOM dump (%d bytes)", name, out.Len())
+	}
+	return m[1:]
+}
+
+// TestDatasheetInChromium opens the demo datasheet in headless Chromium:
+// its four charts must be laid out with a visible size, the page must log
+// no error, and a screenshot (kept in the test's temporary folder) must
+// show ink. A page with a deliberate error checks that errors are seen.
+func TestDatasheetInChromium(t *testing.T) {
+	if _, err := exec.LookPath(chromium); err != nil {
+		t.Skip("chromium not found on PATH: install the Debian package chromium to run this test")
+	}
+	html, _ := demo(t)
+	b, err := os.ReadFile(html)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dir := t.TempDir()
+
+	got := runProbe(t, dir, "probe.html", string(b))
+	if got[0] != "4" || got[1] != "0" || got[2] != "[]" {
+		t.Errorf("in Chromium: %s SVG charts, %s without visible size, errors %s; want 4, 0, []", got[0], got[1], got[2])
+	}
+	// The probe must see an error when there is one.
+	bad := strings.Replace(string(b), "</body>", "<script>undefinedFunctionForTheTest()</script></body>", 1)
+	if got := runProbe(t, dir, "bad.html", bad); got[2] == "[]" {
+		t.Error("the probe missed a deliberate script error")
+	}
+
+	// Screenshot of the datasheet as shipped, with console logging on.
+	shot := filepath.Join(dir, "datasheet.png")
+	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
+	defer cancel()
+	cmd := exec.CommandContext(ctx, chromium, chromiumArgs(filepath.Join(dir, "profile-shot"),
+		"--enable-logging=stderr", "--v=0", "--screenshot="+shot, "--window-size=1000,2400", "file://"+html)...)
+	var errOut bytes.Buffer
+	cmd.Stderr = &errOut
+	if err := cmd.Run(); err != nil {
+		t.Fatalf("chromium --screenshot: %v\n%s", err, errOut.String())
+	}
+	for _, line := range strings.Split(errOut.String(), "\n") {
+		if strings.Contains(line, ":CONSOLE") {
+			t.Errorf("console message from the datasheet: %s", line)
+		}
+	}
+	f, err := os.Open(shot)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	img, err := png.Decode(f)
+	if err != nil {
+		t.Fatalf("screenshot does not decode: %v", err)
+	}
+	dark := 0
+	bnd := img.Bounds()
+	for y := bnd.Min.Y; y < bnd.Max.Y; y += 4 {
+		for x := bnd.Min.X; x < bnd.Max.X; x += 4 {
+			if r, g, b, _ := img.At(x, y).RGBA(); r+g+b < 3*0x4000 {
+				dark++
+			}
+		}
+	}
+	if dark < 500 {
+		t.Errorf("screenshot is nearly blank (%d dark samples)", dark)
+	}
+	t.Logf("screenshot: %s", shot)
+}

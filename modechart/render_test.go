@@ -1,0 +1,391 @@
+package modechart
+
+import (
+	"bytes"
+	"encoding/xml"
+	"flag"
+	"fmt"
+	"image/png"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/recorder"
+	"gonum.org/v1/plot/vg/vgimg"
+
+	"cylcav/cavity"
+)
+
+var regen = flag.Bool("regen", false, "rewrite the golden files in testdata/modechart")
+
+// onLineTol is how far (in points) a label's centre may lie from its line:
+// the centre is interpolated on the drawn polyline, so only rounding.
+const onLineTol = 0.05
+
+// layoutCase is a chart and page for the label-layout checks.
+type layoutCase struct {
+	name string
+	spec Spec
+	w, h vg.Length
+}
+
+func layoutCases() []layoutCase {
+	d := designSpec()
+	lin := designSpec()
+	lin.Axes = Linear
+	mm := designSpec()
+	mm.Units = MHzIn
+	dense := designSpec()
+	dense.MaxFD = 1.2e9 // about 200 lines
+	ptfe := Spec{RatioMin: 0.4, RatioMax: 2.5, EpsR: 2.08, Units: GHzMm, Axes: Linear}
+	return []layoutCase{
+		{"design squared", d, 8 * vg.Inch, 6 * vg.Inch},
+		{"design linear", lin, 8 * vg.Inch, 6 * vg.Inch},
+		{"design mhz-in small page", mm, 4 * vg.Inch, 3 * vg.Inch},
+		{"dense", dense, 8 * vg.Inch, 6 * vg.Inch},
+		{"ptfe no design", ptfe, 6 * vg.Inch, 6 * vg.Inch},
+	}
+}
+
+// dataCanvas returns the data area of plot p drawn alone on a w x h canvas
+// (the same area p.Draw gives its plotters).
+func dataCanvas(p *plot.Plot, w, h vg.Length) draw.Canvas {
+	c := draw.New(vgimg.New(w, h))
+	return p.DataCanvas(c)
+}
+
+// TestLabelLayout checks the geometry of the on-line labels: every label
+// inside the axes, no two overlapping, each centred on its own line, none
+// over the design point or the operating box, and the wanted line labelled.
+func TestLabelLayout(t *testing.T) {
+	for _, lc := range layoutCases() {
+		ch, err := New(lc.spec)
+		if err != nil {
+			t.Fatalf("%s: %v", lc.name, err)
+		}
+		p, ml, err := ch.Plot(DefaultTheme())
+		if err != nil {
+			t.Fatalf("%s: %v", lc.name, err)
+		}
+		dc := dataCanvas(p, lc.w, lc.h)
+		labels := ml.Layout(dc, p)
+		if len(labels) == 0 {
+			t.Fatalf("%s: no labels placed", lc.name)
+		}
+		trX, trY := p.Transforms(&dc)
+		wantedLabelled := false
+		for i, a := range labels {
+			if !inside(a.Box, dc.Rectangle) {
+				t.Errorf("%s: label %q box %v outside the axes %v", lc.name, a.Text, a.Box, dc.Rectangle)
+			}
+			for _, b := range labels[i+1:] {
+				if overlaps(a.Box, b.Box) {
+					t.Errorf("%s: labels %q %v and %q %v overlap", lc.name, a.Text, a.Box, b.Text, b.Box)
+				}
+			}
+			if a.Text != ch.Lines[a.Line].Label() {
+				t.Errorf("%s: label text %q on line %s", lc.name, a.Text, ch.Lines[a.Line].Label())
+			}
+			// Centre on the line: invert the x transform, evaluate the
+			// line, transform back.
+			l := ml.Lines[a.Line]
+			x := p.X.Min + float64(a.At.X-dc.Min.X)/float64(dc.Max.X-dc.Min.X)*(p.X.Max-p.X.Min)
+			if l.B == 0 {
+				// Horizontal line: any x, check y.
+				if d := math.Abs(float64(trY(ml.y(l, x)) - a.At.Y)); d > onLineTol {
+					t.Errorf("%s: label %q centre %.3f pt off its line", lc.name, a.Text, d)
+				}
+			} else {
+				// Distance to the line along y, scaled by the slope to a
+				// perpendicular distance bound.
+				dy := float64(trY(ml.y(l, x)) - a.At.Y)
+				x2 := x + (p.X.Max-p.X.Min)*1e-6
+				slope := float64(trY(ml.y(l, x2))-trY(ml.y(l, x))) / float64(trX(x2)-trX(x))
+				if d := math.Abs(dy) / math.Sqrt(1+slope*slope); d > onLineTol {
+					t.Errorf("%s: label %q centre %.3f pt off its line", lc.name, a.Text, d)
+				}
+			}
+			if ch.HasDesign {
+				for _, r := range ml.Avoid {
+					box := vg.Rectangle{Min: vg.Point{X: trX(r.XMin), Y: trY(r.YMin)}, Max: vg.Point{X: trX(r.XMax), Y: trY(r.YMax)}}
+					if overlaps(a.Box, box) {
+						t.Errorf("%s: label %q covers the operating box or design point", lc.name, a.Text)
+					}
+				}
+			}
+			if a.Line == ch.Wanted {
+				wantedLabelled = true
+			}
+		}
+		if ch.Wanted >= 0 && !wantedLabelled {
+			t.Errorf("%s: wanted line %s has no label", lc.name, ch.Lines[ch.Wanted].Label())
+		}
+		// Determinism of the layout itself.
+		again := ml.Layout(dc, p)
+		if len(again) != len(labels) {
+			t.Errorf("%s: second layout placed %d labels, first %d", lc.name, len(again), len(labels))
+		} else {
+			for i := range again {
+				if again[i] != labels[i] {
+					t.Errorf("%s: layout not deterministic at label %d: %+v vs %+v", lc.name, i, again[i], labels[i])
+					break
+				}
+			}
+		}
+		t.Logf("%s: %d lines, %d labelled", lc.name, len(ch.Lines), len(labels))
+	}
+}
+
+// TestDrawnLabelsInside records what the plot draws and checks that every
+// drawn mode label lies inside the data area, so the geometry above is the
+// geometry that reaches the page.
+func TestDrawnLabelsInside(t *testing.T) {
+	ch, err := New(designSpec())
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, _, err := ch.Plot(DefaultTheme())
+	if err != nil {
+		t.Fatal(err)
+	}
+	names := map[string]bool{}
+	for _, l := range ch.Lines {
+		names[l.Label()] = true
+	}
+	const w, h = 8 * vg.Inch, 6 * vg.Inch
+	rec := new(recorder.Canvas)
+	c := draw.NewCanvas(rec, w, h)
+	p.Draw(c)
+	dc := p.DataCanvas(draw.NewCanvas(new(recorder.Canvas), w, h))
+	drawn := 0
+	for _, a := range rec.Actions {
+		fs, ok := a.(*recorder.FillString)
+		if !ok || !names[fs.String] {
+			continue
+		}
+		drawn++
+		sty := DefaultTheme().Text(fs.Size, Ink)
+		sty.Font = fs.Font
+		right := fs.Point.X + sty.Width(fs.String)
+		if !dc.Contains(fs.Point) || right > dc.Max.X {
+			t.Errorf("label %q drawn at %v (to x = %v) outside the data area %v", fs.String, fs.Point, right, dc.Rectangle)
+		}
+	}
+	if drawn == 0 {
+		t.Error("no mode label drawn")
+	}
+}
+
+func demoFigure(t testing.TB) *Figure {
+	t.Helper()
+	ch, err := New(designSpec())
+	if err != nil {
+		t.Fatal(err)
+	}
+	f, err := ch.Figure(DefaultTheme())
+	if err != nil {
+		t.Fatal(err)
+	}
+	return f
+}
+
+// TestFormats renders the demo chart in every format, checks each file is
+// valid (PNG decodes at the requested resolution, SVG parses as XML, PDF
+// has its header and trailer) and that rendering twice gives the same
+// bytes.
+func TestFormats(t *testing.T) {
+	pg := Page{Width: 6 * vg.Inch, Height: 4.5 * vg.Inch, DPI: 100}
+	for _, f := range []Format{PNG, SVG, PDF} {
+		a, err := Encode(demoFigure(t), f, pg)
+		if err != nil {
+			t.Fatalf("%v: %v", f, err)
+		}
+		b, err := Encode(demoFigure(t), f, pg)
+		if err != nil {
+			t.Fatalf("%v: %v", f, err)
+		}
+		if !bytes.Equal(a, b) {
+			t.Errorf("%v: two renders of the same chart differ (%d and %d bytes)", f, len(a), len(b))
+		}
+		switch f {
+		case PNG:
+			img, err := png.Decode(bytes.NewReader(a))
+			if err != nil {
+				t.Fatalf("PNG does not decode: %v", err)
+			}
+			if got := img.Bounds().Size(); got.X != 600 || got.Y != 450 {
+				t.Errorf("PNG size = %v, want 600x450 (6 x 4.5 in at 100 dpi)", got)
+			}
+		case SVG:
+			dec := xml.NewDecoder(bytes.NewReader(a))
+			root := ""
+			for {
+				tok, err := dec.Token()
+				if err == io.EOF {
+					break
+				}
+				if err != nil {
+					t.Fatalf("SVG is not well-formed XML: %v", err)
+				}
+				if se, ok := tok.(xml.StartElement); ok && root == "" {
+					root = se.Name.Local
+				}
+			}
+			if root != "svg" {
+				t.Errorf("SVG root element = %q, want svg", root)
+			}
+			if !bytes.Contains(a, []byte("TE011/TM111")) {
+				t.Error("SVG lacks the wanted mode's label")
+			}
+			if !bytes.Contains(a, []byte("Liberation Sans,Arial,Helvetica,sans-serif")) {
+				t.Error("SVG fonts lack the sans-serif fallbacks")
+			}
+		case PDF:
+			if !bytes.HasPrefix(a, []byte("%PDF-")) {
+				t.Errorf("PDF starts %q, want %%PDF-", a[:min(8, len(a))])
+			}
+			if !bytes.HasSuffix(bytes.TrimRight(a, "\r\n"), []byte("%%EOF")) {
+				t.Errorf("PDF does not end in %%%%EOF")
+			}
+			if !bytes.Contains(a, []byte("/CreationDate (D:"+FixedPDFDate)) {
+				t.Error("PDF creation date not fixed")
+			}
+			checkPDFXref(t, a)
+		}
+	}
+}
+
+// checkPDFXref checks that the startxref offset points at the xref table,
+// which the date rewrite must not disturb.
+func checkPDFXref(t *testing.T, b []byte) {
+	t.Helper()
+	i := bytes.LastIndex(b, []byte("startxref"))
+	if i < 0 {
+		t.Fatal("PDF has no startxref")
+	}
+	var off int
+	if _, err := fmt.Sscan(string(b[i+len("startxref"):]), &off); err != nil {
+		t.Fatalf("PDF startxref: %v", err)
+	}
+	if off <= 0 || off >= len(b) || !bytes.HasPrefix(b[off:], []byte("xref")) {
+		t.Errorf("PDF startxref %d does not point at the xref table", off)
+	}
+}
+
+func TestEncodeAs(t *testing.T) {
+	p := DefaultTheme().NewPlot("a plot", "x [1]", "y [1]")
+	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = 0, 1, 0, 1
+	b, err := EncodeAs(p, "plot.svg", Page{Width: 3 * vg.Inch, Height: 2 * vg.Inch})
+	if err != nil || !bytes.Contains(b, []byte("<svg")) {
+		t.Errorf("EncodeAs(plot.svg) = %d bytes, %v; want an SVG", len(b), err)
+	}
+	if _, err := EncodeAs(p, "plot.bmp", Page{}); err == nil {
+		t.Error("EncodeAs(plot.bmp): no error")
+	}
+}
+
+func TestPageErrors(t *testing.T) {
+	f := demoFigure(t)
+	for _, c := range []struct {
+		pg   Page
+		want string
+	}{
+		{Page{DPI: 5}, "36..1200 dpi, got 5"},
+		{Page{Width: 100 * vg.Inch, Height: 2 * vg.Inch}, "width must be in 1..40 in, got 100 in"},
+		{Page{Width: 40 * vg.Inch, Height: 40 * vg.Inch, DPI: 1200}, "megapixel limit"},
+	} {
+		if _, err := Encode(f, PNG, c.pg); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("Encode(%+v) error = %v, want one containing %q", c.pg, err, c.want)
+		}
+	}
+	if _, err := Encode(f, Format(9), Page{}); err == nil {
+		t.Error("Encode with an unknown format: no error")
+	}
+}
+
+func TestFormatOf(t *testing.T) {
+	for _, c := range []struct {
+		path string
+		want Format
+		err  string
+	}{
+		{"chart.png", PNG, ""}, {"a/b/Chart.SVG", SVG, ""}, {"sheet.pdf", PDF, ""},
+		{"chart", 0, "no extension"}, {"chart.jpg", 0, `unknown extension ".jpg"`},
+	} {
+		got, err := FormatOf(c.path)
+		if c.err != "" {
+			if err == nil || !strings.Contains(err.Error(), c.err) {
+				t.Errorf("FormatOf(%q) error = %v, want %q", c.path, err, c.err)
+			}
+			continue
+		}
+		if err != nil || got != c.want {
+			t.Errorf("FormatOf(%q) = %v, %v, want %v", c.path, got, err, c.want)
+		}
+	}
+}
+
+// TestGoldenSVG compares a small chart's SVG with
+// testdata/modechart/chart_golden.svg exactly; run with -regen to rewrite it
+// after an intended change (and look at it).
+func TestGoldenSVG(t *testing.T) {
+	ch, err := New(Spec{
+		RatioMin: 0.7, RatioMax: 1.5, MaxFD: 4.6e8,
+		Wanted:    te011,
+		Cavity:    cavity.Cavity{Radius: 0.02, Length: 0.04},
+		Tuning:    0.01,
+		Clearance: 0.05,
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	f, err := ch.Figure(DefaultTheme())
+	if err != nil {
+		t.Fatal(err)
+	}
+	got, err := Encode(f, SVG, Page{Width: 5 * vg.Inch, Height: 4 * vg.Inch})
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join("..", "testdata", "modechart", "chart_golden.svg")
+	if *regen {
+		if err := os.WriteFile(path, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run go test ./modechart -run GoldenSVG -regen to create it)", err)
+	}
+	if !bytes.Equal(got, want) {
+		t.Errorf("SVG differs from %s (%d bytes, want %d); if intended, rerun with -regen and view the file", path, len(got), len(want))
+	}
+}
+
+func TestInlineSVG(t *testing.T) {
+	svg, err := Encode(demoFigure(t), SVG, Page{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	in := InlineSVG(svg, "Mode chart <demo>")
+	if bytes.Contains(in, []byte("<?xml")) || !bytes.HasPrefix(in, []byte("<svg")) {
+		t.Errorf("inline SVG starts %q, want <svg without the XML declaration", in[:20])
+	}
+	head := string(in[:bytes.IndexByte(in, '>')])
+	if strings.Contains(head, `width="`) || strings.Contains(head, ` height="`) || !strings.Contains(head, "viewBox=") {
+		t.Errorf("inline SVG start tag %q: want no width/height and a viewBox", head)
+	}
+	if !bytes.Contains(in, []byte("<title>Mode chart &lt;demo&gt;</title>")) {
+		t.Error("inline SVG lacks the escaped title")
+	}
+	if err := xml.Unmarshal(in, new(struct{})); err != nil {
+		t.Errorf("inline SVG is not well-formed: %v", err)
+	}
+}
