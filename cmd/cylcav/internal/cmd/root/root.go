@@ -7,11 +7,14 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"cylcav/cmd/cylcav/internal/cmd/chart"
 	"cylcav/cmd/cylcav/internal/cmd/clearance"
 	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/cmd/cylcav/internal/cmd/filter"
 	"cylcav/cmd/cylcav/internal/cmd/materials"
 	"cylcav/cmd/cylcav/internal/cmd/modes"
 	"cylcav/cmd/cylcav/internal/cmd/q"
+	"cylcav/cmd/cylcav/internal/cmd/report"
 	"cylcav/cmd/cylcav/internal/cmd/size"
 	"cylcav/cmd/cylcav/internal/cmd/tune"
 	"cylcav/cmd/cylcav/internal/cmd/version"
@@ -50,6 +53,9 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.AddCommand(design.NewCmdDesign(io, nil))
 	cmd.AddCommand(clearance.NewCmdClearance(io, nil))
 	cmd.AddCommand(tune.NewCmdTune(io, nil))
+	cmd.AddCommand(chart.NewCmdChart(io, nil))
+	cmd.AddCommand(filter.NewCmdFilter(io, nil))
+	cmd.AddCommand(report.NewCmdReport(io, nil))
 	return cmd
 }
 
@@ -58,11 +64,12 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 func Main(io *cmdutil.IOStreams, args []string) int {
 	cmd := NewCmdRoot(io)
 	cmd.SetArgs(args)
-	// Cobra reports unknown commands, bad arguments and missing required
-	// flags as plain errors before any command runs; those are usage errors
-	// too. Errors from a running command keep their own status.
+	// Cobra reports unknown commands, bad arguments, unknown flags and
+	// missing required flags as plain errors before any command runs; those
+	// are usage errors too. Errors from a running command keep their own
+	// status, so every RunE is wrapped to record that it started.
 	started := false
-	cmd.PersistentPreRun = func(*cobra.Command, []string) { started = true }
+	markStarted(cmd, &started)
 	if err := cmd.Execute(); err != nil {
 		if !started && !cmdutil.IsUsage(err) {
 			err = &cmdutil.UsageError{Err: err}
@@ -71,4 +78,18 @@ func Main(io *cmdutil.IOStreams, args []string) int {
 		return cmdutil.ExitStatus(err)
 	}
 	return 0
+}
+
+// markStarted wraps the RunE of cmd and all its subcommands so that *started
+// becomes true when a command body begins to run.
+func markStarted(cmd *cobra.Command, started *bool) {
+	if run := cmd.RunE; run != nil {
+		cmd.RunE = func(c *cobra.Command, args []string) error {
+			*started = true
+			return run(c, args)
+		}
+	}
+	for _, sub := range cmd.Commands() {
+		markStarted(sub, started)
+	}
 }
