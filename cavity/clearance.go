@@ -187,6 +187,15 @@ func (m chartMode) g(s float64) float64 { return m.gx + m.gp*s }
 // ratio returns f_i / f_w at s.
 func ratio(i, w chartMode, s float64) float64 { return math.Sqrt(i.g(s) / w.g(s)) }
 
+// MaxChartModes is the largest number of modes chartModes lists at one
+// ratio, and so the reach of Optimize and Tune: a few seconds of work at
+// most on a 2-core virtual machine (TE(0,1,20) over D/L 0.5..3 lists about
+// 3.4e4 modes and optimises in 0.6 s; TE(1,17,1) takes about 4 s: the cost
+// grows faster than the count and varies from mode to mode). A wanted mode
+// of higher order, with more modes below it, gives an error naming the
+// limit instead of running for minutes.
+const MaxChartModes = 50_000
+
 // chartModes returns every mode i other than w (and other than w's exact
 // companion unless countDegenerate) whose frequency ratio f_i/f_w is at
 // most 1+b somewhere on sLo <= s <= sHi. Because each ratio is monotone in
@@ -204,10 +213,16 @@ func chartModes(w Mode, sLo, sHi, b float64, countDegenerate bool) ([]chartMode,
 		// MinSize..MaxSize for every ratio MinRatio..MaxRatio.
 		c := Cavity{Radius: 0.5, Length: 1 / r}
 		fmax := c.Frequency(w) * (1 + b) * (1 + 1e-12)
-		res, err := c.Modes(fmax)
+		// Count before listing (as Modes does): a high-order wanted mode
+		// has millions of modes below it and would take minutes.
+		e, err := c.enumerate(fmax, math.MaxInt)
 		if err != nil {
 			return nil, fmt.Errorf("cavity: listing the modes near %s at D/L = %.6g: %w", w, r, err)
 		}
+		if e.total > MaxChartModes {
+			return nil, fmt.Errorf("cavity: %d modes lie below %.4g times the frequency of %s at D/L = %.6g, more than the %d the mode-chart methods handle; choose a lower-order mode or a narrower D/L range", e.total, 1+b, w, r, MaxChartModes)
+		}
+		res := e.list(c)
 		for _, q := range res {
 			m := q.Mode
 			if m == w || (hasComp && m == comp && !countDegenerate) {

@@ -287,7 +287,8 @@ type problem struct {
 // A MinQ constraint's boundary is found by bisection to 1e-13 relative
 // under the same assumption.
 //
-// Errors: invalid input names the field and its range; a problem with no
+// Errors: invalid input names the field and its range; a wanted mode with
+// more than MaxChartModes modes near it is refused; a problem with no
 // solution gives *InfeasibleError saying what was achievable.
 func Optimize(spec DesignSpec) (Design, error) {
 	p, err := newProblem(spec)
@@ -560,8 +561,9 @@ func (p *problem) allowed() (interval, error) {
 	rangeText := fmt.Sprintf("D/L in %.4g..%.4g", spec.RatioMin, spec.RatioMax)
 	lamLo := (1 - spec.Tuning) * (1 - spec.Tuning)
 	if spec.Tuning > 0 {
-		// The lowest tuned frequency needs s' = lamLo (s + a0) - a0 > 0.
-		raise(p.a0*(1/lamLo-1)*(1+1e-12), LimitTuning)
+		// The lowest tuned frequency needs s' = lamLo (s + a0) - a0 >=
+		// minPathS (a tuned length of at most 1/MinDesignRatio diameters).
+		raise(((minPathS+p.a0)/lamLo-p.a0)*(1+1e-12), LimitTuning)
 	}
 	if spec.MaxDiameter > 0 {
 		K := p.kf * p.kf * spec.MaxDiameter * spec.MaxDiameter
@@ -614,13 +616,21 @@ func tuningText(x float64) string {
 	return fmt.Sprintf(" with +-%.4g %% tuning", 100*x)
 }
 
+// minPathS is the smallest s = (D/L)^2 a tuning or thermal path may visit:
+// D/L >= MinDesignRatio, a tuned length of at most 1/MinDesignRatio
+// diameters, where chartModes can still list the mode chart (nearer s = 0,
+// an endless cylinder, the axial index outgrows MaxIndex). There the modes
+// crowd towards the wanted one and the clearance tends to zero, so the
+// limit never hides an optimum.
+const minPathS = MinDesignRatio * MinDesignRatio
+
 // envelope builds the clearance envelope along path pa over the user's
 // whole ratio range (see boundedEnvelope).
 func (p *problem) envelope(pa path) (*envelope, optimum, error) {
 	full := p.full
-	if pa.lo.at(full.lo) <= 0 {
+	if pa.lo.at(full.lo) < minPathS {
 		// The tuning path's finite-length limit cuts the range.
-		full.lo = math.Max(full.lo, pa.lo.inv(0)*(1+1e-12))
+		full.lo = math.Max(full.lo, pa.lo.inv(minPathS)*(1+1e-12))
 		if full.lo > full.hi {
 			full.lo = full.hi
 		}
@@ -860,11 +870,16 @@ func (p *problem) curve(envW *envelope, sOpt float64) (TradeOff, error) {
 	ss[n-1] = full.hi
 	ss = append(ss, sOpt)
 	// Exact breakpoints: where a mode crosses the wanted one (the
-	// clearance is zero there), rho_k(s) = 1, a linear equation.
+	// clearance is zero there), rho_k(s) = 1, a linear equation. Their
+	// clearance is set to zero without evaluating the envelope, which keeps
+	// the curve O(CurvePoints * modes) rather than O(modes^2) for
+	// high-order modes with thousands of neighbours.
+	crossing := map[float64]bool{}
 	for _, m := range env0.modes {
 		if d := m.gp - p.w.gp; d != 0 {
 			if s := (p.w.gx - m.gx) / d; s > full.lo && s < full.hi {
 				ss = append(ss, s)
+				crossing[s] = true
 			}
 		}
 	}
@@ -878,13 +893,19 @@ func (p *problem) curve(envW *envelope, sOpt float64) (TradeOff, error) {
 		c := p.cavityAt(s)
 		t.Ratio[i] = math.Sqrt(s)
 		t.Diameter[i], t.Length[i] = c.Diameter(), c.Length
-		t.Clearance[i], _ = env0.at(s, nil)
-		t.WorstClearance[i] = t.Clearance[i]
-		if envW != env0 {
-			if envW.path.lo.at(s) > 0 {
+		if crossing[s] {
+			// A mode meets the wanted one here, on the nominal path and
+			// so on every path through it.
+			t.Clearance[i], t.WorstClearance[i] = 0, 0
+		} else {
+			t.Clearance[i], _ = env0.at(s, nil)
+			t.WorstClearance[i] = t.Clearance[i]
+		}
+		if envW != env0 && !crossing[s] {
+			if envW.path.lo.at(s) >= minPathS {
 				t.WorstClearance[i], _ = envW.at(s, nil)
 			} else {
-				t.WorstClearance[i] = 0 // the tuning path leaves the cylinder
+				t.WorstClearance[i] = 0 // the tuning path needs L > D/MinDesignRatio
 			}
 		}
 		t.Q0[i] = math.NaN()

@@ -106,11 +106,11 @@ func TestOptimizeMatchesBruteForce(t *testing.T) {
 
 // TestOptimizeTE011Reference checks the air-filled TE011 optimum against
 // the closed-form crossing of TE112 and TE311 evaluated with mpmath 1.3.0
-// at 30 digits (testdata/gen_optimum.py).
+// at 30 digits (testdata/cavity/gen_optimum.py).
 func TestOptimizeTE011Reference(t *testing.T) {
 	const (
-		wantRatio = 1.38796887560878412985 // testdata/gen_optimum.py
-		wantClear = 0.07364455297108049055 // testdata/gen_optimum.py
+		wantRatio = 1.38796887560878412985 // testdata/cavity/gen_optimum.py
+		wantClear = 0.07364455297108049055 // testdata/cavity/gen_optimum.py
 	)
 	for _, fill := range []Fill{{}, {EpsR: 2.08}} {
 		d, err := Optimize(DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: fill})
@@ -137,12 +137,12 @@ func TestOptimizeTE011Reference(t *testing.T) {
 // design of Pozar's sec. 6.7 uses D/L = 1): TE011 cavities are built with
 // D/L of about 1 to 1.5, between the crossings of the TE011 line with the
 // steeper p = 2 lines (TM012 at D/L = 1.096, TE112 at 1.235) and the flat
-// TM210 line (2.177); crossing ratios from testdata/gen_optimum.py.
+// TM210 line (2.177); crossing ratios from testdata/cavity/gen_optimum.py.
 func TestTE011ModeChart(t *testing.T) {
 	const (
-		tm012Cross = 1.09643993401221065585 // testdata/gen_optimum.py
-		te112Cross = 1.23510869444022311731 // testdata/gen_optimum.py
-		tm210Cross = 2.17689017715712395152 // testdata/gen_optimum.py
+		tm012Cross = 1.09643993401221065585 // testdata/cavity/gen_optimum.py
+		te112Cross = 1.23510869444022311731 // testdata/cavity/gen_optimum.py
+		tm210Cross = 2.17689017715712395152 // testdata/cavity/gen_optimum.py
 	)
 	w := mustMode(t, "TE011")
 	d, err := Optimize(DesignSpec{Mode: w, Frequency: 10e9, RatioMin: 0.2, RatioMax: 5})
@@ -274,7 +274,7 @@ func TestOptimizeInfeasible(t *testing.T) {
 	if !errors.As(err, &ie) || !errors.Is(err, ErrInfeasible) {
 		t.Fatalf("Optimize(min clearance 20 %%) error = %v, want *InfeasibleError", err)
 	}
-	const want = 0.07364455297108049055 // testdata/gen_optimum.py
+	const want = 0.07364455297108049055 // testdata/cavity/gen_optimum.py
 	if math.Abs(ie.Clearance-want) > optClearTol {
 		t.Errorf("InfeasibleError.Clearance = %.12g, want %.12g", ie.Clearance, want)
 	}

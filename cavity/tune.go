@@ -55,7 +55,9 @@ const MaxTuneSteps = 100000
 // |f_i/f_w - 1| of each mode over the range is at an end of the segment or
 // zero where it crosses; crossings solve a linear equation in s (derived).
 // Errors: invalid cavity radius, fill or mode, lengths outside
-// MinSize..MaxSize or lMin > lMax, steps outside 1..MaxTuneSteps.
+// MinSize..MaxSize or lMin > lMax, D/L outside MinDesignRatio..MaxDesignRatio
+// anywhere on the range, more than MaxChartModes modes near the wanted one,
+// steps outside 1..MaxTuneSteps.
 func (c Cavity) Tune(w Mode, lMin, lMax float64, steps int, countDegenerate bool) (TuningCurve, error) {
 	c.Length = lMin
 	if err := c.Validate(); err != nil {
@@ -74,6 +76,9 @@ func (c Cavity) Tune(w Mode, lMin, lMax float64, steps int, countDegenerate bool
 		return TuningCurve{}, fmt.Errorf("cavity: tuning steps must be in 1..%d, got %d", MaxTuneSteps, steps)
 	}
 	D := c.Diameter()
+	if r0, r1 := D/lMax, D/lMin; !(r0 >= MinDesignRatio && r1 <= MaxDesignRatio) {
+		return TuningCurve{}, fmt.Errorf("cavity: D/L over the tuning range must stay in %g..%g (the reach of the mode chart), got %.6g..%.6g", MinDesignRatio, MaxDesignRatio, r0, r1)
+	}
 	full := interval{sq(D / lMax), sq(D / lMin)}
 	wc := newChartMode(w)
 	env, _, err := boundedEnvelope(wc, newPath(0, 0, 1, 1), full, countDegenerate)

@@ -245,6 +245,27 @@ func ParseFraction(s string) (float64, error) {
 	return parseWithUnits("fraction", s, []unit{{[]string{"%"}, 0.01}}, 1, "% or a plain fraction")
 }
 
+// ParseNumber parses a plain dimensionless number ("1.5", "-2e-3", " 7 ")
+// under the common rules at the top of this file: nothing may follow the
+// number, so "1abc", "1," and "0x10" are errors, as are NaN, Inf and values
+// that overflow. The sign is kept; range checks are the caller's job.
+//
+// Special cases are:
+//
+//	ParseNumber("") = error (empty)
+//	ParseNumber("1e400") = error (out of range)
+//	ParseNumber("2 mm") = error (unexpected "mm" after the number)
+func ParseNumber(s string) (float64, error) {
+	v, u, err := parseNumber("number", s)
+	if err != nil {
+		return 0, err
+	}
+	if u != "" {
+		return 0, fmt.Errorf("invalid number %q: unexpected %q after the number", s, u)
+	}
+	return v, nil
+}
+
 // ParseDecibel parses a level in decibels ("40dB", "40 dB", "-0.5db") and
 // returns the number of decibels (not a linear ratio). A plain number is
 // taken as decibels.

@@ -183,6 +183,33 @@ func TestParseTemperature(t *testing.T) {
 	})
 }
 
+// TestParseNumber: plain numbers parse as strconv.ParseFloat would read
+// them (exact decimal conversion); anything after the number is an error.
+func TestParseNumber(t *testing.T) {
+	for _, tc := range []struct {
+		in   string
+		want float64
+	}{
+		{"1", 1}, {" 1.5 ", 1.5}, {"-2e-3", -2e-3}, {"+7", 7}, {".5", 0.5}, {"5.", 5}, {"1e308", 1e308},
+	} {
+		if got, err := ParseNumber(tc.in); err != nil || got != tc.want {
+			t.Errorf("ParseNumber(%q) = %g, %v, want %g", tc.in, got, err, tc.want)
+		}
+	}
+	checkErrors(t, "ParseNumber", ParseNumber, []errCase{
+		{"", []string{"empty"}},
+		{"abc", []string{"no number"}},
+		{"1abc", []string{`unexpected "abc"`}},
+		{"1,", []string{`unexpected ","`}},
+		{"1:2", []string{`unexpected ":2"`}},
+		{"0x10", []string{`unexpected "x10"`}},
+		{"2 mm", []string{`unexpected "mm"`}},
+		{"NaN", []string{"not a finite number"}},
+		{"-Inf", []string{"not a finite number"}},
+		{"1e400", []string{"out of range"}},
+	})
+}
+
 func TestParseFractionDecibelCoefficient(t *testing.T) {
 	for _, tc := range []struct {
 		name  string

@@ -8,7 +8,10 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strconv"
+	"strings"
 
+	"github.com/spf13/pflag"
 	"golang.org/x/term"
 )
 
@@ -60,6 +63,33 @@ func Usagef(format string, a ...any) error {
 //	--diameter "-3mm": must be > 0 m
 func FlagError(flag, value string, err error) error {
 	return &UsageError{Err: fmt.Errorf("--%s %q: %w", flag, value, err)}
+}
+
+// FlagValueError rewrites the parser's error for a typed flag given a value
+// of the wrong kind (an int, uint or bool flag) in the form of FlagError,
+//
+//	--count "abc": not a whole number
+//
+// and returns any other error unchanged.
+func FlagValueError(err error) error {
+	var ive *pflag.InvalidValueError
+	if !errors.As(err, &ive) {
+		return err
+	}
+	var what string
+	switch t := ive.GetFlag().Value.Type(); {
+	case errors.Is(err, strconv.ErrRange):
+		what = "number out of range"
+	case strings.HasPrefix(t, "uint"):
+		what = "not a whole number >= 0"
+	case strings.HasPrefix(t, "int"):
+		what = "not a whole number"
+	case t == "bool":
+		what = "not true or false"
+	default:
+		return err
+	}
+	return fmt.Errorf("--%s %q: %s", ive.GetFlag().Name, ive.GetValue(), what)
 }
 
 // IsUsage reports whether err is, or wraps, a UsageError.

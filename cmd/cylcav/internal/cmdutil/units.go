@@ -36,14 +36,14 @@ func Frequency(flag, value string, min, max float64) (float64, error) {
 	return v, nil
 }
 
-// Number parses a plain dimensionless flag value and checks that it lies in
-// [min, max].
+// Number parses a plain dimensionless flag value (physics.ParseNumber:
+// nothing may follow the number) and checks that it lies in [min, max].
 func Number(flag, value string, min, max float64) (float64, error) {
-	var v float64
-	if _, err := fmt.Sscanf(value, "%g", &v); err != nil || fmt.Sprint(v) == "" {
-		return 0, FlagError(flag, value, fmt.Errorf("not a number"))
+	v, err := physics.ParseNumber(value)
+	if err != nil {
+		return 0, FlagError(flag, value, fmt.Errorf("%w; want a number between %g and %g", err, min, max))
 	}
-	if math.IsNaN(v) || math.IsInf(v, 0) || v < min || v > max {
+	if v < min || v > max {
 		return 0, FlagError(flag, value, fmt.Errorf("must be between %g and %g", min, max))
 	}
 	return v, nil

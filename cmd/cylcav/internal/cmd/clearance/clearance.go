@@ -21,7 +21,9 @@ type Options struct {
 	Cavity   cavity.Cavity
 	FillName string
 	Window   cavity.ClearanceOptions
-	Format   cmdutil.Format
+	// WindowText is --window as given, for error messages.
+	WindowText string
+	Format     cmdutil.Format
 }
 
 // NewCmdClearance returns `cylcav clearance`. runF, when not nil, replaces
@@ -57,7 +59,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = parseMode(mode); err != nil {
 				return err
 			}
-			if opts.Cavity, err = parseCavity(diameter, radius, length); err != nil {
+			if opts.Cavity, err = parseCavity(cmd.Flags().Changed("diameter"), diameter, radius, length); err != nil {
 				return err
 			}
 			fd, err := parseFill(fill)
@@ -68,11 +70,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := opts.Cavity.Validate(); err != nil {
 				return cmdutil.Usagef("%v", err)
 			}
-			if window != "" {
-				if err := parseWindow(window, &opts.Window); err != nil {
-					return err
-				}
+			if err := parseWindow(window, &opts.Window); err != nil {
+				return err
 			}
+			opts.WindowText = window
 			if err := checkFormat(); err != nil {
 				return err
 			}
@@ -107,10 +108,10 @@ func parseMode(s string) (cavity.Mode, error) {
 }
 
 // parseCavity reads the dimensions; exactly one of diameter and radius is
-// set (cobra enforces it).
-func parseCavity(diameter, radius, length string) (cavity.Cavity, error) {
+// set (cobra enforces it), useDiameter tells which.
+func parseCavity(useDiameter bool, diameter, radius, length string) (cavity.Cavity, error) {
 	var c cavity.Cavity
-	if diameter != "" {
+	if useDiameter {
 		d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
 		if err != nil {
 			return c, err
@@ -144,8 +145,11 @@ func parseFill(s string) (physics.Dielectric, error) {
 func parseWindow(s string, o *cavity.ClearanceOptions) error {
 	if strings.HasSuffix(strings.ToLower(strings.TrimSpace(s)), "hz") {
 		v, err := physics.ParseFrequency(s)
-		if err != nil || !(v >= 0) {
-			return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz"))
+		if err != nil {
+			return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz: %w", err))
+		}
+		if !(v >= 0) {
+			return cmdutil.FlagError("window", s, fmt.Errorf("must be between 0 Hz and %g times the wanted frequency", cavity.MaxWindow))
 		}
 		o.WindowHz = v
 		return nil
@@ -162,6 +166,10 @@ func parseWindow(s string, o *cavity.ClearanceOptions) error {
 }
 
 func runClearance(opts *Options) error {
+	if f := opts.Cavity.Frequency(opts.Mode); opts.Window.WindowHz > cavity.MaxWindow*f {
+		return cmdutil.FlagError("window", opts.WindowText, fmt.Errorf("must be between 0 Hz and %g times the wanted frequency (%s)",
+			cavity.MaxWindow, physics.FormatFrequency(cavity.MaxWindow*f, 5)))
+	}
 	cl, err := opts.Cavity.Clearance(opts.Mode, opts.Window)
 	if err != nil {
 		return cmdutil.Usagef("%v", err)

@@ -9,7 +9,6 @@ import (
 	"io"
 	"math"
 	"strconv"
-	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
@@ -137,7 +136,9 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist string, samples int, seed uint64, countDeg bool) (Scenario, error) {
 	var s Scenario
 	sp := &s.Spec
-	if mode == "" || freq == "" {
+	// A flag given with an empty value is an error below, never "absent".
+	set := cmd.Flags().Changed
+	if !set("mode") || !set("freq") {
 		return s, cmdutil.Usagef("design needs --mode and --freq (or no flags at all for the demo scenario)")
 	}
 	var err error
@@ -151,14 +152,14 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 		return s, cmdutil.FlagError("fill", fill, err)
 	}
 	sp.Fill = cavity.Fill{EpsR: s.Fill.EpsR, MuR: s.Fill.MuR}
-	if wall != "" {
+	if set("wall") {
 		c, err := physics.ParseConductor(wall)
 		if err != nil {
 			return s, cmdutil.FlagError("wall", wall, err)
 		}
 		s.Wall = &c
 	}
-	lo, hi, err := physics.ParseRange(ratioRange, parsePlain)
+	lo, hi, err := physics.ParseRange(ratioRange, physics.ParseNumber)
 	if err != nil {
 		return s, cmdutil.FlagError("ratio-range", ratioRange, err)
 	}
@@ -174,7 +175,7 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	default:
 		return s, cmdutil.FlagError("objective", objective, fmt.Errorf("unknown objective; use clearance|q"))
 	}
-	if minClear != "" {
+	if set("min-clearance") {
 		if sp.MinClearance, err = fraction("min-clearance", minClear, 0, 1); err != nil {
 			return s, err
 		}
@@ -183,11 +184,11 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 		if s.Wall == nil {
 			return s, cmdutil.Usagef("--objective q needs --wall (the wall metal sets Q0)")
 		}
-		if minClear == "" {
+		if !set("min-clearance") {
 			return s, cmdutil.Usagef("--objective q needs --min-clearance (the clearance Q0 may not go below)")
 		}
 	}
-	if minQ != "" {
+	if set("min-q") {
 		if sp.MinQ, err = cmdutil.Number("min-q", minQ, 1, 1e12); err != nil {
 			return s, err
 		}
@@ -195,17 +196,17 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 			return s, cmdutil.Usagef("--min-q needs --wall (the wall metal sets Q0)")
 		}
 	}
-	if maxD != "" {
+	if set("max-diameter") {
 		if sp.MaxDiameter, err = cmdutil.Length("max-diameter", maxD, cavity.MinSize, cavity.MaxSize); err != nil {
 			return s, err
 		}
 	}
-	if maxL != "" {
+	if set("max-length") {
 		if sp.MaxLength, err = cmdutil.Length("max-length", maxL, cavity.MinSize, cavity.MaxSize); err != nil {
 			return s, err
 		}
 	}
-	if tuning != "" {
+	if set("tuning") {
 		if sp.Tuning, err = fraction("tuning", tuning, 0, cavity.MaxTuning); err != nil {
 			return s, err
 		}
@@ -217,13 +218,13 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	if s.Wall != nil {
 		th.AlphaRadial, th.AlphaAxial = s.Wall.Expansion, s.Wall.Expansion
 	}
-	if alphaSide != "" {
+	if set("alpha-side") {
 		if th.AlphaRadial, err = coefficient("alpha-side", alphaSide); err != nil {
 			return s, err
 		}
 		th.AlphaAxial = th.AlphaRadial
 	}
-	if alphaAxial != "" {
+	if set("alpha-axial") {
 		if th.AlphaAxial, err = coefficient("alpha-axial", alphaAxial); err != nil {
 			return s, err
 		}
@@ -231,7 +232,7 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	if s.Fill.TCEpsKnown {
 		th.TauEps = s.Fill.TCEps
 	}
-	if temp != "" {
+	if set("temp") {
 		tlo, thi, err := physics.ParseRange(temp, physics.ParseTemperature)
 		if err != nil {
 			return s, cmdutil.FlagError("temp", temp, err)
@@ -245,15 +246,15 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	if err := th.Validate(); err != nil {
 		return s, cmdutil.Usagef("%v", err)
 	}
-	if tol != "" || tolLen != "" {
+	if set("tolerance") || set("tolerance-length") {
 		t := &sp.Tolerance
-		if tol != "" {
+		if set("tolerance") {
 			if t.Diameter, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
 				return s, err
 			}
 			t.Length = t.Diameter
 		}
-		if tolLen != "" {
+		if set("tolerance-length") {
 			if t.Length, err = cmdutil.Length("tolerance-length", tolLen, 0, 1); err != nil {
 				return s, err
 			}
@@ -273,14 +274,6 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	}
 	sp.CountDegenerate = countDeg
 	return s, nil
-}
-
-func parsePlain(s string) (float64, error) {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q is not a number", s)
-	}
-	return v, nil
 }
 
 func fraction(flag, value string, lo, hi float64) (float64, error) {

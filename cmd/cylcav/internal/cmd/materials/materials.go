@@ -66,12 +66,13 @@ your own stock are better.`,
 		if err := checkFormat(); err != nil {
 			return err
 		}
-		switch strings.ToLower(strings.TrimSpace(kind)) {
-		case "":
+		k := strings.ToLower(strings.TrimSpace(kind))
+		switch {
+		case !cmd.Flags().Changed("kind"):
 			opts.Kind = All
-		case "conductor", "conductors", "wall":
+		case k == "conductor" || k == "conductors" || k == "wall":
 			opts.Kind = Conductor
-		case "dielectric", "dielectrics", "fill":
+		case k == "dielectric" || k == "dielectrics" || k == "fill":
 			opts.Kind = Dielectric
 		default:
 			return cmdutil.FlagError("kind", kind, fmt.Errorf("unknown kind; use conductor or dielectric"))

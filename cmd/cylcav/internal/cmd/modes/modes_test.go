@@ -242,6 +242,20 @@ func TestModesBadInput(t *testing.T) {
 		{[]string{"--diameter", "50mm", "--length", "50mm", "--digits", "40"}, []string{`--digits "40"`, "between 3 and 17"}},
 		{[]string{"--diameter", "50mm", "--length", "50mm", "extra"}, []string{"extra"}},
 		{[]string{"--diameter", "50mm", "--length", "50mm", "--colour"}, []string{"--colour"}},
+		// Added by the CLI review: empty and malformed values are errors,
+		// never "flag absent".
+		{[]string{"--diameter", "", "--length", "50mm"}, []string{`--diameter ""`, "empty"}},
+		{[]string{"--diameter", "1e400", "--length", "50mm"}, []string{`--diameter "1e400"`, "out of range"}},
+		{[]string{"--diameter", "1nm", "--length", "50mm"}, []string{`--diameter "1nm"`, "must be between"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--fmax", "10GHzz"}, []string{`--fmax "10GHzz"`, "unknown unit"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--count", "1e3"}, []string{`--count "1e3"`, "not a whole number"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", ""}, []string{`--wall ""`, "empty"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "sigma="}, []string{`--wall "sigma="`, "empty"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "sigma=abc"}, []string{`--wall "sigma=abc"`, "no number"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "iacs=500%"}, []string{`--wall "iacs=500%"`, "between 0.01 % and 200 %"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--fill", "eps=2,tand=-1"}, []string{`--fill "eps=2,tand=-1"`, "between 0 and 1"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--temperature", "-300C"}, []string{`--temperature "-300C"`, "below absolute zero"}},
+		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--temperature", "4K"}, []string{`--temperature "4K"`, "-50.00 C to 200.0 C"}},
 	} {
 		args := append([]string{"modes"}, tc.args...)
 		out, errOut, code := cylcav(t, args...)

@@ -130,7 +130,9 @@ type flagValues struct {
 // parse validates the flags into opts. Every error is a usage error naming
 // the flag, the value and the valid range.
 func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) error {
-	if v.mode == "" {
+	// A flag given with an empty value is an error below, never "absent".
+	set := cmd.Flags().Changed
+	if !set("mode") {
 		return cmdutil.Usagef("--mode is required, e.g. --mode TE011")
 	}
 	m, err := cavity.ParseMode(v.mode)
@@ -140,15 +142,15 @@ func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) e
 	opts.Mode = m
 
 	switch {
-	case v.diameter != "" && v.radius != "":
+	case set("diameter") && set("radius"):
 		return cmdutil.Usagef("give either --diameter or --radius, not both")
-	case v.diameter != "":
+	case set("diameter"):
 		d, err := cmdutil.Length("diameter", v.diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
 		if err != nil {
 			return err
 		}
 		opts.Cavity.Radius = d / 2
-	case v.radius != "":
+	case set("radius"):
 		r, err := cmdutil.Length("radius", v.radius, cavity.MinSize, cavity.MaxSize)
 		if err != nil {
 			return err
@@ -157,7 +159,7 @@ func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) e
 	default:
 		return cmdutil.Usagef("--diameter or --radius is required, e.g. --diameter 50mm")
 	}
-	if v.length == "" {
+	if !set("length") {
 		return cmdutil.Usagef("--length is required, e.g. --length 50mm")
 	}
 	if opts.Cavity.Length, err = cmdutil.Length("length", v.length, cavity.MinSize, cavity.MaxSize); err != nil {
@@ -165,7 +167,7 @@ func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) e
 	}
 
 	opts.Fill = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
-	if v.fill != "" {
+	if set("fill") {
 		d, err := physics.ParseDielectric(v.fill)
 		if err != nil {
 			return cmdutil.FlagError("fill", v.fill, err)
@@ -189,13 +191,13 @@ func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) e
 	}
 
 	switch {
-	case v.beta != "" && v.qext != "":
+	case set("beta") && set("qext"):
 		return cmdutil.Usagef("give either --beta or --qext, not both")
-	case v.beta != "":
+	case set("beta"):
 		if opts.Coupling, err = parseList("beta", v.beta, 0, 1e6); err != nil {
 			return err
 		}
-	case v.qext != "":
+	case set("qext"):
 		if opts.QExt, err = parseList("qext", v.qext, 1, 1e15); err != nil {
 			return err
 		}
@@ -203,7 +205,7 @@ func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) e
 	if opts.Speed, err = cmdutil.Number("particle-speed", v.speed, 1e-6, 1); err != nil {
 		return err
 	}
-	if cmd.Flags().Changed("particle-speed") && (m.Family != cavity.TM || m.N != 0) {
+	if set("particle-speed") && (m.Family != cavity.TM || m.N != 0) {
 		return cmdutil.FlagError("particle-speed", v.speed, fmt.Errorf("accelerator figures exist for TM0mp modes only, not %s", m))
 	}
 	return nil

@@ -218,8 +218,8 @@ func TestBadInput(t *testing.T) {
 			t.Errorf("q %v: error = %v (usage %v), want a usage error containing %q", tc.args, err, cmdutil.IsUsage(err), tc.want)
 		}
 	}
-	// A wall temperature outside the linear model is a run-time error that
-	// names the range.
+	// A wall temperature outside the linear model names the range (more
+	// cases in badinput_test.go).
 	if _, err := run(t, append([]string{"--mode", "TE011", "--temperature", "4K"}, ok...)...); err == nil || !strings.Contains(err.Error(), "linear resistivity model") {
 		t.Errorf("q at 4 K with copper: error = %v, want the linear-model range error", err)
 	}

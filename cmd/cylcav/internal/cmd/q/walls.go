@@ -50,30 +50,34 @@ func AddWallFlags(cmd *cobra.Command) *WallFlags {
 	return w
 }
 
-// Given reports whether --wall was given.
-func (w *WallFlags) Given() bool { return w.wall != "" }
+// Given reports whether --wall was given (an empty value counts: it is
+// rejected by Surfaces, not ignored).
+func (w *WallFlags) Given() bool { return w.set("wall") }
+
+// set reports whether the flag name was given on the command line.
+func (w *WallFlags) set(name string) bool { return w.cmd.Flags().Changed(name) }
 
 // Surfaces validates the flags into the side wall, end plate A and end
 // plate B surfaces. It needs --wall; every error is a usage error naming
 // the flag, the value and the valid range.
 func (w *WallFlags) Surfaces() ([3]qfactor.Surface, error) {
 	var out [3]qfactor.Surface
-	if w.wall == "" {
+	if !w.Given() {
 		return out, cmdutil.Usagef("--wall is required, e.g. --wall copper or --wall sigma=5.8e7")
 	}
 	type spec struct{ flag, value string }
 	specs := [3]spec{{"wall", w.wall}, {"wall", w.wall}, {"wall", w.wall}}
-	if w.end != "" {
+	if w.set("end-wall") {
 		specs[1], specs[2] = spec{"end-wall", w.end}, spec{"end-wall", w.end}
 	}
-	if w.endA != "" {
+	if w.set("end-wall-a") {
 		specs[1] = spec{"end-wall-a", w.endA}
 	}
-	if w.endB != "" {
+	if w.set("end-wall-b") {
 		specs[2] = spec{"end-wall-b", w.endB}
 	}
 	var common qfactor.Surface
-	if w.temperature != "" {
+	if w.set("temperature") {
 		t, err := physics.ParseTemperature(w.temperature)
 		if err != nil {
 			return out, cmdutil.FlagError("temperature", w.temperature, err)
@@ -83,7 +87,7 @@ func (w *WallFlags) Surfaces() ([3]qfactor.Surface, error) {
 		}
 		common.Temperature = t
 	}
-	if w.rough != "" {
+	if w.set("roughness") {
 		r, err := cmdutil.Length("roughness", w.rough, 0, 1e-3)
 		if err != nil {
 			return out, err
@@ -94,15 +98,15 @@ func (w *WallFlags) Surfaces() ([3]qfactor.Surface, error) {
 	if common.RoughnessModel, err = qfactor.ParseRoughnessModel(w.roughModel); err != nil {
 		return out, cmdutil.FlagError("roughness-model", w.roughModel, err)
 	}
-	if w.cmd.Flags().Changed("roughness-model") && w.rough == "" {
+	if w.set("roughness-model") && !w.set("roughness") {
 		return out, cmdutil.Usagef("--roughness-model needs --roughness, e.g. --roughness 0.4um")
 	}
 	switch {
-	case w.plating != "" && w.platingThickness == "":
+	case w.set("plating") && !w.set("plating-thickness"):
 		return out, cmdutil.Usagef("--plating needs --plating-thickness, e.g. --plating-thickness 5um")
-	case w.plating == "" && w.platingThickness != "":
+	case !w.set("plating") && w.set("plating-thickness"):
 		return out, cmdutil.Usagef("--plating-thickness needs --plating, e.g. --plating silver")
-	case w.plating != "":
+	case w.set("plating"):
 		pm, err := physics.ParseConductor(w.plating)
 		if err != nil {
 			return out, cmdutil.FlagError("plating", w.plating, err)
@@ -114,14 +118,17 @@ func (w *WallFlags) Surfaces() ([3]qfactor.Surface, error) {
 		common.Plating = &qfactor.Plating{Metal: pm, Thickness: th}
 	}
 	if w.superconducting {
-		if w.temperature == "" {
+		if !w.set("temperature") {
 			return out, cmdutil.Usagef("--superconducting needs --temperature, e.g. --temperature 2K")
 		}
-		if w.plating != "" {
+		if w.set("plating") {
 			return out, cmdutil.Usagef("--superconducting cannot be combined with --plating")
 		}
 		bcs := qfactor.NiobiumBCS()
-		if w.residual != "" {
+		if common.Temperature > bcs.Tc/2 {
+			return out, cmdutil.FlagError("temperature", w.temperature, fmt.Errorf("the BCS model of superconducting niobium holds from 0 K to Tc/2 = %g K", bcs.Tc/2))
+		}
+		if w.set("residual") {
 			r, err := parseOhm(w.residual)
 			if err != nil {
 				return out, cmdutil.FlagError("residual", w.residual, err)
@@ -132,7 +139,7 @@ func (w *WallFlags) Surfaces() ([3]qfactor.Surface, error) {
 			bcs.Residual = r
 		}
 		common.Superconductor = &bcs
-	} else if w.residual != "" {
+	} else if w.set("residual") {
 		return out, cmdutil.Usagef("--residual needs --superconducting")
 	}
 	for i, s := range specs {
@@ -143,9 +150,20 @@ func (w *WallFlags) Surfaces() ([3]qfactor.Surface, error) {
 		if w.superconducting && c.Name != "niobium" {
 			return out, cmdutil.FlagError(s.flag, s.value, fmt.Errorf("--superconducting models niobium walls only; this wall part is %s", c.Name))
 		}
+		if !w.superconducting {
+			// The linear resistivity model's range depends on the metal.
+			if _, err := qfactor.Conductivity(c, common.Temperature); err != nil {
+				return out, cmdutil.FlagError("temperature", w.temperature, fmt.Errorf("%s: %w", s.flag, err))
+			}
+		}
 		part := common
 		part.Conductor = c
 		out[i] = part
+	}
+	if p := common.Plating; p != nil {
+		if _, err := qfactor.Conductivity(p.Metal, common.Temperature); err != nil {
+			return out, cmdutil.FlagError("temperature", w.temperature, fmt.Errorf("plating: %w", err))
+		}
 	}
 	return out, nil
 }

@@ -42,7 +42,7 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.SetOut(io.Out)
 	cmd.SetErr(io.ErrOut)
 	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
-		return &cmdutil.UsageError{Err: fmt.Errorf("%w (see '%s --help')", err, c.CommandPath())}
+		return &cmdutil.UsageError{Err: fmt.Errorf("%w (see '%s --help')", cmdutil.FlagValueError(err), c.CommandPath())}
 	})
 
 	cmd.AddCommand(version.NewCmdVersion(io))
@@ -56,6 +56,7 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.AddCommand(chart.NewCmdChart(io, nil))
 	cmd.AddCommand(filter.NewCmdFilter(io, nil))
 	cmd.AddCommand(report.NewCmdReport(io, nil))
+	requireShell(cmd)
 	return cmd
 }
 
@@ -91,5 +92,19 @@ func markStarted(cmd *cobra.Command, started *bool) {
 	}
 	for _, sub := range cmd.Commands() {
 		markStarted(sub, started)
+	}
+}
+
+// requireShell makes `cylcav completion` without a shell, or with an
+// unknown one, a usage error; cobra's default command would print its
+// help and exit 0.
+func requireShell(cmd *cobra.Command) {
+	cmd.InitDefaultCompletionCmd()
+	for _, c := range cmd.Commands() {
+		if c.Name() == "completion" && c.Run == nil && c.RunE == nil {
+			c.RunE = func(c *cobra.Command, args []string) error {
+				return cmdutil.Usagef("%s needs a shell: bash, zsh, fish or powershell", c.Name())
+			}
+		}
 	}
 }

@@ -114,6 +114,14 @@ func TestSizeBadInput(t *testing.T) {
 		{[]string{"--mode", "TE011", "--freq", "10GHz", "--length", "10mm"}, []string{`--length "10mm"`, "must exceed 14.9896 mm"}},
 		{[]string{"--mode", "TM010", "--freq", "10GHz", "--diameter", "20mm"}, []string{"p = 0", "use diameter 22.9485 mm with any length"}},
 		{[]string{"--mode", "TE011", "--freq", "2kHz", "--ratio", "1"}, []string{`--freq "2kHz" with --ratio "1"`, "must be in 1 um..1000 m"}},
+		// Added by the CLI review: a plain number takes nothing after it.
+		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1abc"}, []string{`--ratio "1abc"`, `unexpected "abc"`, "between 0.001 and 1000"}},
+		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1:2"}, []string{`--ratio "1:2"`, "between 0.001 and 1000"}},
+		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", ""}, []string{`--ratio ""`, "empty"}},
+		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1e400"}, []string{`--ratio "1e400"`, "out of range"}},
+		{[]string{"--mode", "TE011", "--freq", "10GHzz", "--ratio", "1"}, []string{`--freq "10GHzz"`, "unknown unit"}},
+		{[]string{"--mode", "TE0", "--freq", "5GHz", "--ratio", "1"}, []string{`--mode "TE0"`, "three indices"}},
+		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "extra"}, []string{"extra"}},
 	} {
 		args := append([]string{"size"}, tc.args...)
 		out, errOut, code := cylcav(t, args...)

@@ -29,7 +29,10 @@ type Options struct {
 	// SphereRadius > 0 asks for the shift of a metal sphere at SphereAt.
 	SphereRadius float64
 	SphereAt     cavity.Point
-	Format       cmdutil.Format
+	// SphereText and AtText are --sphere and --at as given, for error
+	// messages.
+	SphereText, AtText string
+	Format             cmdutil.Format
 }
 
 // NewCmdTune returns `cylcav tune`. runF, when not nil, replaces the run
@@ -67,7 +70,8 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = cavity.ParseMode(mode); err != nil {
 				return cmdutil.FlagError("mode", mode, err)
 			}
-			if diameter != "" {
+			fl := cmd.Flags()
+			if fl.Changed("diameter") {
 				d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
 				if err != nil {
 					return err
@@ -85,6 +89,12 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				return cmdutil.FlagError("length-range", lrange, fmt.Errorf("both ends must be between %s and %s",
 					physics.FormatLength(cavity.MinSize, 3), physics.FormatLength(cavity.MaxSize, 3)))
 			}
+			// The mode chart reaches D/L in MinDesignRatio..MaxDesignRatio.
+			if D := opts.Cavity.Diameter(); !(D/opts.LMax >= cavity.MinDesignRatio && D/opts.LMin <= cavity.MaxDesignRatio) {
+				return cmdutil.FlagError("length-range", lrange, fmt.Errorf("with diameter %s both ends must be between %s and %s (D/L %g..%g)",
+					physics.FormatLength(D, 4), physics.FormatLength(D/cavity.MaxDesignRatio, 4), physics.FormatLength(D/cavity.MinDesignRatio, 4),
+					cavity.MinDesignRatio, cavity.MaxDesignRatio))
+			}
 			if opts.Steps < 1 || opts.Steps > cavity.MaxTuneSteps {
 				return cmdutil.FlagError("steps", strconv.Itoa(opts.Steps), fmt.Errorf("must be between 1 and %d", cavity.MaxTuneSteps))
 			}
@@ -97,16 +107,17 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := opts.Cavity.Validate(); err != nil {
 				return cmdutil.Usagef("%v", err)
 			}
-			if (sphere == "") != (at == "") {
-				return cmdutil.Usagef("--sphere and --at go together")
+			if fl.Changed("sphere") != fl.Changed("at") {
+				return cmdutil.Usagef("--sphere and --at go together, e.g. --sphere 1mm --at 20mm,0,15mm")
 			}
-			if sphere != "" {
+			if fl.Changed("sphere") {
 				if opts.SphereRadius, err = cmdutil.Length("sphere", sphere, cavity.MinSize, cavity.MaxSize); err != nil {
 					return err
 				}
 				if opts.SphereAt, err = parsePoint(at); err != nil {
 					return err
 				}
+				opts.SphereText, opts.AtText = sphere, at
 			}
 			if err := checkFormat(); err != nil {
 				return err
@@ -211,7 +222,7 @@ func runTune(opts *Options) error {
 		c.Length = 0.5 * (opts.LMin + opts.LMax)
 		p, err := c.SphereShift(opts.Mode, opts.SphereAt, opts.SphereRadius)
 		if err != nil {
-			return cmdutil.Usagef("%v", err)
+			return cmdutil.Usagef("--sphere %q --at %q: %v", opts.SphereText, opts.AtText, err)
 		}
 		sph = &SphereOutput{
 			RadiusM: opts.SphereRadius, RhoM: opts.SphereAt.Rho, PhiDeg: opts.SphereAt.Phi * 180 / math.Pi, ZM: opts.SphereAt.Z,

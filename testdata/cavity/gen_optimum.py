@@ -1,7 +1,8 @@
 #!/usr/bin/env python3
 """Reference values for cavity/optimize_test.go, computed with mpmath.
 
-Run: python3 gen_optimum.py   (mpmath 1.3.0, 30 digits)
+Run from the repository root: python3 testdata/cavity/gen_optimum.py
+(mpmath 1.3.0, 30 digits; prints the values pasted into the test)
 
 The air-filled TE011 optimum over D/L in 0.5..3 lies where the rising chart
 line of TE112 meets the falling one of TE311 (both above TE011); with
