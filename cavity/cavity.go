@@ -141,7 +141,7 @@ func (c Cavity) scale() float64 {
 //
 //	f = c / (2 pi sqrt(mu_r eps_r)) * sqrt((x/a)^2 + (p pi/d)^2)
 //
-// (Pozar, Microwave Engineering, 4th ed., sec. 6.7, resonant frequencies
+// (Pozar, Microwave Engineering, 4th ed., sec. 6.4, resonant frequencies
 // of the TE_nmp and TM_nmp modes; Harrington, Time-Harmonic Electromagnetic
 // Fields, sec. 5.3). Every frequency in this package goes through it, so equal
 // inputs give bit-equal outputs; the explicit float64 conversions forbid
@@ -158,7 +158,7 @@ func frequency(scale, x, radius float64, p int, length float64) float64 {
 //	f = c / (2 pi sqrt(mu_r eps_r)) * sqrt((x/a)^2 + (p pi/d)^2)
 //
 // with x = j'_nm for TE and j_nm for TM (Pozar, Microwave Engineering, 4th
-// ed., sec. 6.7; Harrington, Time-Harmonic Electromagnetic Fields, sec.
+// ed., sec. 6.4; Harrington, Time-Harmonic Electromagnetic Fields, sec.
 // 5.3). The value is bit-identical to the one Modes and Lowest list for the
 // same mode. Relative accuracy is about 1e-15 beyond that of the Bessel
 // zero. It panics if m is not a valid mode (see Mode.Validate); the cavity
@@ -170,7 +170,7 @@ func (c Cavity) Frequency(m Mode) float64 {
 // Wavenumbers returns, for mode m in cavity c, the transverse wavenumber
 // kc = x/a, the axial wavenumber beta = p pi/d and the total wavenumber
 // k = sqrt(kc^2 + beta^2) in the fill, all in rad/m (Pozar, Microwave
-// Engineering, 4th ed., sec. 6.7). The free-space wavenumber is k divided
+// Engineering, 4th ed., sec. 6.4). The free-space wavenumber is k divided
 // by sqrt(mu_r eps_r), and k = 2 pi f sqrt(mu_r eps_r)/c at the resonance.
 // It panics if m is not a valid mode.
 func (c Cavity) Wavenumbers(m Mode) (kc, beta, k float64) {

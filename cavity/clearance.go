@@ -160,7 +160,7 @@ func (c Cavity) Clearance(w Mode, opt ClearanceOptions) (Clearance, error) {
 //
 //	(k D)^2 = 4 x^2 + (p pi)^2 s,   s = (D/L)^2,
 //
-// is a straight line in s (Pozar, Microwave Engineering, 4th ed., sec. 6.7,
+// is a straight line in s (Pozar, Microwave Engineering, 4th ed., sec. 6.4,
 // the resonance formula rewritten with a = D/2, d = L; this is the classical
 // mode chart of (fD)^2 against (D/L)^2). The frequency ratio of mode i to the
 // wanted mode w therefore depends on s alone (derived):
@@ -183,9 +183,6 @@ func newChartMode(m Mode) chartMode {
 
 // g returns (k D)^2 of the mode at s = (D/L)^2.
 func (m chartMode) g(s float64) float64 { return m.gx + m.gp*s }
-
-// ratio returns f_i / f_w at s.
-func ratio(i, w chartMode, s float64) float64 { return math.Sqrt(i.g(s) / w.g(s)) }
 
 // MaxChartModes is the largest number of modes chartModes lists at one
 // ratio, and so the reach of Optimize and Tune: a few seconds of work at

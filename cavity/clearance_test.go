@@ -17,19 +17,19 @@ const (
 )
 
 // TestClearancePozarPTFE: the PTFE-filled TE011 cavity of Pozar's worked
-// example (Microwave Engineering, 4th ed., sec. 6.7: 5 GHz, eps_r = 2.08,
+// example (Microwave Engineering, 4th ed., sec. 6.4: 5 GHz, eps_r = 2.08,
 // d = 2a, a = 2.74 cm; recalled from memory). Every neighbour frequency is
 // recomputed here from the tabulated zeros with the chart relation
 // (kD)^2 = 4x^2 + (p pi D/L)^2 at D/L = 1.
 func TestClearancePozarPTFE(t *testing.T) {
 	const eps = 2.08
-	k := math.Sqrt(jp01*jp01+math.Pi*math.Pi/4) / 0.0274 // from f = 5 GHz rounded to a = 2.74 cm
 	c := Cavity{Radius: 0.0274, Length: 0.0548, EpsR: eps}
 	f := func(x float64, p int) float64 {
 		return math.Sqrt(4*x*x+float64(p*p)*math.Pi*math.Pi) / (2 * 0.0274) / (2 * math.Pi * math.Sqrt(eps)) * 299792458
 	}
 	fw := f(jp01, 1)
-	if math.Abs(fw-5e9) > 0.002*5e9 || k <= 0 {
+	const exampleRounding = 0.002 // a = 2.74 cm is rounded to 3 digits
+	if math.Abs(fw-5e9) > exampleRounding*5e9 {
 		t.Fatalf("Pozar cavity f(TE011) = %g Hz, want 5 GHz to the example's rounding", fw)
 	}
 	cl, err := c.Clearance(mustMode(t, "TE011"), ClearanceOptions{Window: 0.1})
@@ -45,7 +45,7 @@ func TestClearancePozarPTFE(t *testing.T) {
 	if cl.Above == nil || cl.Above.Mode != mustMode(t, "TE212") || math.Abs(cl.Above.Frequency-above) > tableTol*above {
 		t.Errorf("Pozar PTFE cavity nearest above = %+v, want TE212 at %.12g Hz", cl.Above, above)
 	}
-	if want := 1 - below/fw; math.Abs(cl.Value-want) > 1e-12 || cl.Limiting != mustMode(t, "TM012") {
+	if want := 1 - below/fw; math.Abs(cl.Value-want) > routeTol || cl.Limiting != mustMode(t, "TM012") {
 		t.Errorf("Pozar PTFE clearance = %.12g (%s), want %.12g (TM012)", cl.Value, cl.Limiting, want)
 	}
 	if len(cl.Degenerate) != 1 || cl.Degenerate[0] != mustMode(t, "TM111") {
@@ -118,7 +118,7 @@ func TestEnvelopeLevelSets(t *testing.T) {
 						in = true
 					}
 				}
-				if in != (v >= b) && math.Abs(v-b) > 1e-12 {
+				if in != (v >= b) && math.Abs(v-b) > routeTol {
 					t.Errorf("feasible(%g) membership of s = %g is %v, but C(s) = %g", b, s, in, v)
 				}
 			}
@@ -128,6 +128,10 @@ func TestEnvelopeLevelSets(t *testing.T) {
 
 // TestPolyRoots checks the root isolation on polynomials with known roots.
 func TestPolyRoots(t *testing.T) {
+	// Near-double roots are ill-conditioned: found to about sqrt(eps) =
+	// 1e-8 (rootFoundTol), and a candidate returned near them may sit a
+	// little further off (rootNearTol).
+	const rootFoundTol, rootNearTol = 1e-7, 1e-6
 	for _, tc := range []struct {
 		roots []float64
 	}{{[]float64{0.3, 1.7}}, {[]float64{0.5, 0.6, 2.5, 4}}, {[]float64{1, 1.000001, 3}}, {[]float64{2}}} {
@@ -148,7 +152,7 @@ func TestPolyRoots(t *testing.T) {
 		for _, r := range tc.roots {
 			found := false
 			for _, g := range got {
-				found = found || math.Abs(g-r) <= 1e-7
+				found = found || math.Abs(g-r) <= rootFoundTol
 			}
 			if !found {
 				t.Errorf("polyRoots(%v) = %v, want a root at %g", c, got, r)
@@ -157,7 +161,7 @@ func TestPolyRoots(t *testing.T) {
 		for _, g := range got {
 			near := false
 			for _, r := range tc.roots {
-				near = near || math.Abs(g-r) <= 1e-6
+				near = near || math.Abs(g-r) <= rootNearTol
 			}
 			if !near {
 				t.Errorf("polyRoots(%v) returned %g, which is no root", c, g)

@@ -15,7 +15,7 @@
 //
 //	f = c / (2 pi sqrt(mu_r eps_r)) * sqrt((x/a)^2 + (p pi/d)^2)
 //
-// with x = j'_nm for TE and x = j_nm for TM (Pozar, sec. 6.7; Harrington,
+// with x = j'_nm for TE and x = j_nm for TM (Pozar, sec. 6.4; Harrington,
 // sec. 5.3). Modes with n >= 1 come in two polarisations (Degeneracy 2).
 // TE0mp and TM1mp (p >= 1) resonate at exactly the same frequency in every
 // cylinder because J'_0 = -J_1 (DLMF 10.6.3); cylcav computes both from the
@@ -39,13 +39,19 @@
 // every frequency here.
 //
 // References:
-//   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley (2012), sec. 6.7
-//     (circular cavity resonators) and its TE011 design example.
+//   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley (2012), sec. 6.4
+//     (circular cavity resonators) and its TE011 design example, sec. 6.7
+//     (cavity perturbations; EndPlateShift); section numbers recalled from
+//     memory.
 //   - R. F. Harrington, Time-Harmonic Electromagnetic Fields, McGraw-Hill
 //     (1961), sec. 5.3 (circular cavity).
 //   - NIST Digital Library of Mathematical Functions, https://dlmf.nist.gov,
-//     secs. 10.6 (J'_0 = -J_1), 10.19 (Debye's expansions, used to size the
-//     zero tables), 10.21 (zeros: ordering and interlacing).
+//     secs. 10.2 (power series, for J_n(x)/x at x = 0), 10.6 (J'_0 = -J_1
+//     and J'_n), 10.19 (Debye's expansions, used to size the zero tables),
+//     10.21 (zeros: ordering and interlacing), 10.22 (integrals of J_n^2,
+//     for the field normalisation of ModeField).
+//   - IEEE Std 754-2008, sec. 5.10 (the bit patterns of positive floats
+//     order like their values; used by the sort in Modes).
 //   - H. Weyl, Das asymptotische Verteilungsgesetz der Eigenwerte linearer
 //     partieller Differentialgleichungen, Math. Ann. 71, 441 (1912): the
 //     mode count N(f) ~ 8 pi V f^3 / (3 c^3) used as a test.

@@ -242,7 +242,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 	a, d := c.Radius, c.Length
 	// Largest total wavenumber in the fill, and the largest transverse
 	// root for p = 0 (TM) and for p = 1 (TE); Pozar, Microwave Engineering,
-	// 4th ed., sec. 6.7: k^2 = (x/a)^2 + (p pi/d)^2.
+	// 4th ed., sec. 6.4: k^2 = (x/a)^2 + (p pi/d)^2.
 	k := fmax / e.scale
 	xTM := k * a
 	xTE := math.Sqrt(math.Max(0, k*k-(math.Pi/d)*(math.Pi/d))) * a

@@ -6,9 +6,9 @@ import (
 	"cylcav/cavity"
 )
 
-// The five lowest modes of an invented air-filled test cavity, 50 mm in
-// diameter and 50 mm long. TE011 and TM111 coincide exactly and are listed
-// together, TE first.
+// The sixth to ninth lowest modes of an invented air-filled test cavity,
+// 50 mm in diameter and 50 mm long. TE011 and TM111 coincide exactly and
+// are listed together, TE first.
 func ExampleCavity_Lowest() {
 	c := cavity.Cavity{Radius: 0.025, Length: 0.05}
 	modes, err := c.Lowest(9)

@@ -45,7 +45,7 @@ type ModeField struct {
 //	W = (1/4) integral (eps |E|^2 + mu |H|^2) dV = 1 J.
 //
 // Field expressions (derived from Maxwell's equations with standing waves
-// in z; they agree with Pozar, Microwave Engineering, 4th ed., sec. 6.7 and
+// in z; they agree with Pozar, Microwave Engineering, 4th ed., sec. 6.4 and
 // with Harrington, Time-Harmonic Electromagnetic Fields, sec. 5.3, up to
 // the phase convention): with psi = J_n(kc rho) cos(n phi), kc = x/a,
 // beta = p pi/L, k^2 = kc^2 + beta^2 = omega^2 mu eps,
@@ -118,8 +118,7 @@ func (f ModeField) Mode() Mode { return f.mode }
 // Omega returns the angular resonant frequency, rad/s.
 func (f ModeField) Omega() float64 { return f.omega }
 
-// Eps and Mu return the fill's absolute permittivity (F/m) and
-// permeability (H/m).
+// Eps returns the fill's absolute permittivity, F/m.
 func (f ModeField) Eps() float64 { return f.eps }
 
 // Mu returns the fill's absolute permeability, H/m.
@@ -175,12 +174,6 @@ func besselJOverX(n int, x float64) float64 {
 		return 0
 	}
 	return math.Jn(n, x) / x
-}
-
-// wallDistance returns the distance from p to the nearest wall of c, or a
-// negative number when p lies outside.
-func (c Cavity) wallDistance(p Point) float64 {
-	return math.Min(c.Radius-p.Rho, math.Min(p.Z, c.Length-p.Z))
 }
 
 // checkPoint validates a point of cavity c.

@@ -56,7 +56,7 @@ const MaxIndex = 1000
 // above MaxIndex. TE_nm0 does not exist: with no axial variation and Ez = 0
 // the transverse electric field would have to vanish on both end plates
 // everywhere, so the whole field vanishes (Pozar, Microwave Engineering,
-// 4th ed., sec. 6.7). The error says what is wrong and, for TE_nm0, which
+// 4th ed., sec. 6.4). The error says what is wrong and, for TE_nm0, which
 // existing modes were probably meant.
 func (m Mode) Validate() error {
 	switch m.Family {

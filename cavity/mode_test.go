@@ -7,7 +7,7 @@ import (
 
 // Label conventions: TE_nmp / TM_nmp with n azimuthal, m radial, p axial,
 // printed TE011 (all indices below 10) or TE(12,3,1); the textbook form
-// (Pozar, Microwave Engineering, 4th ed., sec. 6.7) is the compact one.
+// (Pozar, Microwave Engineering, 4th ed., sec. 6.4) is the compact one.
 func TestParseMode(t *testing.T) {
 	for _, tc := range []struct {
 		in    string
@@ -86,7 +86,7 @@ func TestModeValidate(t *testing.T) {
 }
 
 // Degeneracy: two polarisations cos(n phi), sin(n phi) for n >= 1, one for
-// n = 0 (Pozar, sec. 6.7; Harrington, sec. 5.3).
+// n = 0 (Pozar, sec. 6.4; Harrington, sec. 5.3).
 func TestDegeneracy(t *testing.T) {
 	for _, tc := range []struct {
 		m    Mode

@@ -268,7 +268,7 @@ func runChunk(f []float64, tol Tolerance, ci uint64, sd, sl, D0, L0, K float64, 
 			eL = sl * rng.NormFloat64()
 		}
 		D, L := D0+eD, L0+eL
-		// f = c/(2 pi n) sqrt((2x/D)^2 + (p pi/L)^2), Pozar sec. 6.7.
+		// f = c/(2 pi n) sqrt((2x/D)^2 + (p pi/L)^2), Pozar sec. 6.4.
 		fi := K * math.Sqrt(w.gx/(D*D)+w.gp/(L*L))
 		f[i] = fi
 		// Welford's running mean and sum of squares (Welford 1962).

@@ -40,11 +40,20 @@ func TestMonteCarloLinearSpread(t *testing.T) {
 				}
 			}
 		}
-		if math.Abs(sp.WorstClearance-sp.NominalClearance) > 1e-3 {
+		// Micrometre errors move D/L by about 1e-4 relative, and the
+		// clearance by less than that times the chart slopes (< 10).
+		const umClearanceShift = 1e-3
+		if math.Abs(sp.WorstClearance-sp.NominalClearance) > umClearanceShift {
 			t.Errorf("MonteCarlo(%v) worst clearance = %g, want near the nominal %g for um tolerances", dist, sp.WorstClearance, sp.NominalClearance)
 		}
 	}
 }
+
+// samplingGap is how far above the exact worst clearance of a range a
+// sampled minimum may stay: the samples (or grid points) nearest the worst
+// end of the range miss it by a step whose clearance change is below
+// 2e-4 for the ranges used here.
+const samplingGap = 2e-4
 
 // TestMonteCarloWorstClearance checks the worst sampled clearance against
 // a direct evaluation at the sampled extremes: with a uniform diameter
@@ -61,7 +70,7 @@ func TestMonteCarloWorstClearance(t *testing.T) {
 	lo := bruteClearance(t, w, (c.Diameter()-tol)/c.Length)
 	hi := bruteClearance(t, w, (c.Diameter()+tol)/c.Length)
 	exact := math.Min(lo, hi) // no crossing in between at this size
-	if sp.WorstClearance < exact-1e-12 || sp.WorstClearance > exact+2e-4 {
+	if sp.WorstClearance < exact-routeTol || sp.WorstClearance > exact+samplingGap {
 		t.Errorf("MonteCarlo worst clearance = %.9g, want just above %.9g", sp.WorstClearance, exact)
 	}
 }
@@ -133,7 +142,7 @@ func TestSelectK(t *testing.T) {
 			if lo+1 < n {
 				want += (h - float64(lo)) * (sorted[lo+1] - sorted[lo])
 			}
-			if got := percentile(slices.Clone(x), q); math.Abs(got-want) > 1e-12*math.Abs(want) {
+			if got := percentile(slices.Clone(x), q); math.Abs(got-want) > routeTol*math.Abs(want) {
 				t.Errorf("percentile(n=%d, %g) = %g, want %g", n, q, got, want)
 			}
 		}

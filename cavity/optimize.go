@@ -239,6 +239,7 @@ type InfeasibleError struct {
 	Q0         float64 // best achievable Q0, or NaN
 }
 
+// Error returns "cavity: no design meets <Need>; <Achievable>".
 func (e *InfeasibleError) Error() string {
 	return "cavity: no design meets " + e.Need + "; " + e.Achievable
 }
@@ -266,7 +267,7 @@ type problem struct {
 // optional constraints of spec.
 //
 // Method (derived from the mode chart, Pozar, Microwave Engineering, 4th
-// ed., sec. 6.7): with a homogeneous fill every frequency ratio f_i/f_w
+// ed., sec. 6.4): with a homogeneous fill every frequency ratio f_i/f_w
 // depends on s = (D/L)^2 alone and is monotone in it, so the clearance is a
 // lower envelope of finitely many V-shaped curves whose maxima lie at range
 // ends or at pairwise crossings, found as roots of polynomials of degree

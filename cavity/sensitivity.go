@@ -8,7 +8,7 @@ type Sensitivity struct {
 	//	df/dD = -f (1 - s)/D,  df/dL = -f s/L,  s = (beta/k)^2
 	//
 	// (derived by differentiating f = c/(2 pi n) sqrt((2x/D)^2 + (p pi/L)^2),
-	// Pozar, Microwave Engineering, 4th ed., sec. 6.7).
+	// Pozar, Microwave Engineering, 4th ed., sec. 6.4).
 	DfDD, DfDL float64
 	// AxialShare is s = (beta/k)^2, the share of k^2 carried by the axial
 	// wavenumber: 0 for TM_nm0, near 1 for long-wavelength axial modes.

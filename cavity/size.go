@@ -95,7 +95,7 @@ func (e *sizeError) Is(target error) bool { return target == ErrInfeasible }
 //
 //	k^2 = (x/a)^2 + (p pi/d)^2,  k = 2 pi f sqrt(mu_r eps_r) / c
 //
-// (Pozar, Microwave Engineering, 4th ed., sec. 6.7, whose worked example of
+// (Pozar, Microwave Engineering, 4th ed., sec. 6.4, whose worked example of
 // a TE011 cavity with d = 2a is sized this way), for the free dimension:
 //
 //   - ByRatio(R), R = D/L = 2a/d: a = sqrt(x^2 + (p pi R/2)^2) / k and

@@ -49,7 +49,7 @@ const MaxTuneSteps = 100000
 // range, and every mode crossing.
 //
 // Method: f(L) is the resonance formula (Pozar, Microwave Engineering, 4th
-// ed., sec. 6.7) and df/dL = -f (beta/k)^2 / L (derived; see Sensitivity).
+// ed., sec. 6.4) and df/dL = -f (beta/k)^2 / L (derived; see Sensitivity).
 // On the mode chart the end-plate motion is a segment of s = (D/L)^2, along
 // which each ratio f_i/f_w is monotone (see chartMode), so the smallest
 // |f_i/f_w - 1| of each mode over the range is at an end of the segment or
@@ -208,7 +208,7 @@ func (c Cavity) SphereShift(m Mode, p Point, r0 float64) (Perturbation, error) {
 // EndPlateShift returns the frequency shift d f of mode m when end plate B
 // moves inward by delta (the length becomes L - delta), from Slater's
 // theorem for a removed volume Delta V (Slater 1946; Pozar, Microwave
-// Engineering, 4th ed., sec. 6.10, cavity perturbations):
+// Engineering, 4th ed., sec. 6.7, cavity perturbations):
 //
 //	Delta omega / omega = integral_DeltaV (mu |H|^2 - eps |E|^2) dV / (4 W),
 //

@@ -133,6 +133,9 @@
 //   - N. A. McDonald, "Electric and magnetic coupling through small
 //     apertures in shield walls of any thickness", IEEE Trans. Microwave
 //     Theory Tech. 20 (1972) 689-695.
+//   - NIST Digital Library of Mathematical Functions, https://dlmf.nist.gov/,
+//     10.21 (zeros of J_n and J'_n: the cutoff of a coupling hole's
+//     below-cutoff circular guide).
 //   - J. B. Ness, "A unified approach to the design, measurement, and tuning
 //     of coupled-resonator filters", IEEE Trans. Microwave Theory Tech.
 //     46(4) (1998) 343-351 (reflected group delay 4 Qext/omega0).

@@ -250,7 +250,7 @@ func NewResponsePlot(d *Design, opts PlotOptions) (*ResponsePlot, error) {
 // plotTitle describes the design in one line.
 func plotTitle(d *Design) string {
 	s := d.Spec
-	fs, fu := freqUnit(s.F0)
+	fs, fu := modechart.FrequencyUnit(s.F0)
 	t := fmt.Sprintf("%d-resonator %s bandpass filter, f0 = %s %s, bw = %s",
 		s.Order, familyName(s.Family), trimFloat(s.F0/fs, 6), fu, plainFrequency(s.BW))
 	switch len(d.Zeros) {
@@ -286,24 +286,10 @@ func (rp *ResponsePlot) lossNote(q0 []float64, n int) string {
 	return fmt.Sprintf("%s; unloaded Q0 = %s..%s across the %d resonators.", model, trimFloat(lo, 5), trimFloat(hi, 5), n)
 }
 
-// freqUnit picks the axis unit: the largest of Hz, kHz, MHz and GHz not
-// above f.
-func freqUnit(f float64) (scale float64, name string) {
-	switch {
-	case f >= 1e9:
-		return 1e9, "GHz"
-	case f >= 1e6:
-		return 1e6, "MHz"
-	case f >= 1e3:
-		return 1e3, "kHz"
-	}
-	return 1, "Hz"
-}
-
 // plainFrequency prints f with up to 6 significant digits in its own unit,
 // without trailing zeros ("200 MHz", "1.25 GHz").
 func plainFrequency(f float64) string {
-	sc, u := freqUnit(f)
+	sc, u := modechart.FrequencyUnit(f)
 	return trimFloat(f/sc, 6) + " " + u
 }
 
@@ -335,7 +321,7 @@ func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
 	if !(rp.DBMin < rp.DBMax) || !(rp.DelayMax > 0) || !(rp.Hi > rp.Lo) {
 		return nil, fmt.Errorf("filter: response plot axes are empty: %g..%g Hz, %g..%g dB, delay to %g s", rp.Lo, rp.Hi, rp.DBMin, rp.DBMax, rp.DelayMax)
 	}
-	fs, fu := freqUnit(rp.Hi)
+	fs, fu := modechart.FrequencyUnit(rp.Hi)
 	x := make([]float64, len(rp.F))
 	for i, f := range rp.F {
 		x[i] = f / fs

@@ -25,19 +25,9 @@ func polyFromRoots(roots []complex128) []complex128 {
 	return p
 }
 
-// prodEval returns p(z) and p'(z) of p = c prod (z - r_k), evaluated in
-// product form, which keeps full relative accuracy near clustered roots
-// where the monomial form loses it.
-func prodEval(c complex128, roots []complex128, z complex128) (v, d complex128) {
-	v = c
-	for _, r := range roots {
-		d = d*(z-r) + v
-		v *= z - r
-	}
-	return v, d
-}
-
-// prodEvalReal is prodEval for real roots.
+// prodEvalReal returns p(z) and p'(z) of the monic p = prod (z - r_k) with
+// real roots r_k, evaluated in product form, which keeps full relative
+// accuracy near clustered roots where the monomial form loses it.
 func prodEvalReal(roots []float64, z complex128) (v, d complex128) {
 	v = 1
 	for _, r := range roots {

@@ -173,8 +173,9 @@ const (
 //
 // in (Hz·m)², where Intercept = (c x/π)²/(εr μr) and Slope =
 // (c p/2)²/(εr μr) (derived from the resonance condition of Pozar,
-// Microwave Engineering, 4th ed., sec. 6.7, eq. (6.86)-(6.87), with a = D/2;
-// Pozar draws the same lines as the mode chart of sec. 6.7).
+// Microwave Engineering, 4th ed., sec. 6.4, circular cavity resonators,
+// with a = D/2; Pozar draws the same lines as the mode chart of that
+// section; section number recalled from memory).
 type Line struct {
 	// Modes holds the mode, or the TE0mp and TM1mp pair in that order.
 	Modes []cavity.Mode
@@ -354,7 +355,7 @@ func New(s Spec) (*Chart, error) {
 		WantedMode: s.Wanted,
 	}
 	n2 := eps * mu
-	// lineOf builds the line of mode m; Pozar 4th ed., sec. 6.7 (derived,
+	// lineOf builds the line of mode m; Pozar 4th ed., sec. 6.4 (derived,
 	// see Line).
 	lineOf := func(m cavity.Mode) Line {
 		x := m.Root()
@@ -589,7 +590,7 @@ func (ch *Chart) FDAt(y float64) float64 {
 	return y * ch.Units.Scale()
 }
 
-// XLabel and YLabel return the axis titles with their units.
+// XLabel returns the horizontal axis title with its unit.
 func (ch *Chart) XLabel() string {
 	if ch.Axes == Squared {
 		return "(D/L)²   (diameter over length, squared)"

@@ -22,6 +22,13 @@ const (
 	// the mode solver's f·D for the same cavity: the two compute the same
 	// quantity along different routes (a few ulps each).
 	solverTol = 1e-12
+	// roundTol is one or two roundings: a product or quotient by an exact
+	// scale factor, recomputed the same way.
+	roundTol = 1e-15
+	// limitTol is the agreement of sqrt(Intercept) with the solver's f·D at
+	// D/L = 1e-6, which exceeds it by Slope (1e-6)^2 / (2 Intercept), far
+	// below 1e-9 for every line of the test chart.
+	limitTol = 1e-9
 )
 
 var (
@@ -168,7 +175,7 @@ func TestLinesAgainstSolver(t *testing.T) {
 				if relErr(l.Slope, slope) > tol {
 					t.Errorf("%v: Slope = %.15g, want %.15g (solver, two ratios)", m, l.Slope, slope)
 				}
-				if got, want := math.Sqrt(l.Intercept), fd(1e-6); relErr(got, want) > 1e-9 {
+				if got, want := math.Sqrt(l.Intercept), fd(1e-6); relErr(got, want) > limitTol {
 					t.Errorf("%v: sqrt(Intercept) = %.15g, want f·D at D/L -> 0 = %.15g (solver)", m, got, want)
 				}
 			}
@@ -257,11 +264,11 @@ func TestDesignPoint(t *testing.T) {
 			r, f float64
 		}{{ch.Box.RatioLo / (1 - tol), f0 * (1 - s.Tuning)}, {ch.Box.RatioHi / (1 + tol), f0 * (1 + s.Tuning)}} {
 			got := cavity.Cavity{Radius: c.Radius, Length: d / k.r}.Frequency(te011)
-			if relErr(got, k.f) > 1e-12 {
+			if relErr(got, k.f) > solverTol {
 				t.Errorf("tuned frequency at D/L %.6g = %.12g Hz, want %.12g Hz", k.r, got, k.f)
 			}
 		}
-		if relErr(ch.Box.FDLo, f0*(1-s.Tuning)*d) > 1e-15 || relErr(ch.Box.FDHi, f0*(1+s.Tuning)*d) > 1e-15 {
+		if relErr(ch.Box.FDLo, f0*(1-s.Tuning)*d) > roundTol || relErr(ch.Box.FDHi, f0*(1+s.Tuning)*d) > roundTol {
 			t.Errorf("box f·D = %g..%g, want %g..%g", ch.Box.FDLo, ch.Box.FDHi, f0*(1-s.Tuning)*d, f0*(1+s.Tuning)*d)
 		}
 	}
@@ -331,8 +338,8 @@ func TestScaling(t *testing.T) {
 		t.Fatalf("lines: %d in air, %d with eps_r = 4 and half the top; want equal", len(a.Lines), len(b.Lines))
 	}
 	for i := range a.Lines {
-		if a.Lines[i].Label() != b.Lines[i].Label() || relErr(b.Lines[i].Intercept*k, a.Lines[i].Intercept) > 1e-15 ||
-			relErr(b.Lines[i].Slope*k, a.Lines[i].Slope) > 1e-15 {
+		if a.Lines[i].Label() != b.Lines[i].Label() || relErr(b.Lines[i].Intercept*k, a.Lines[i].Intercept) > roundTol ||
+			relErr(b.Lines[i].Slope*k, a.Lines[i].Slope) > roundTol {
 			t.Errorf("line %d: %s (%g, %g) with eps_r 4, want %s (%g, %g)/4", i, b.Lines[i].Label(),
 				b.Lines[i].Intercept, b.Lines[i].Slope, a.Lines[i].Label(), a.Lines[i].Intercept, a.Lines[i].Slope)
 		}
@@ -347,7 +354,7 @@ func TestUnitsAndAxes(t *testing.T) {
 		scale float64
 		flag  string
 	}{{GHzCm, 1e7, "ghz-cm"}, {GHzMm, 1e6, "ghz-mm"}, {MHzIn, 25400, "mhz-in"}} {
-		if got := c.u.Scale(); relErr(got, c.scale) > 1e-15 {
+		if got := c.u.Scale(); relErr(got, c.scale) > roundTol {
 			t.Errorf("%v.Scale() = %g, want %g", c.u, got, c.scale)
 		}
 		if u, err := ParseUnits(c.flag); err != nil || u != c.u {
@@ -358,10 +365,10 @@ func TestUnitsAndAxes(t *testing.T) {
 		t.Errorf("ParseUnits(ghz-m) error = %v, want the list of units", err)
 	}
 	ch := &Chart{Axes: Squared, Units: GHzMm}
-	if got := ch.Y(2e8); relErr(got, 4e4) > 1e-15 {
+	if got := ch.Y(2e8); relErr(got, 4e4) > roundTol {
 		t.Errorf("squared Y(2e8 Hz·m) in GHz·mm = %g, want 40000", got)
 	}
-	if got := ch.FDAt(ch.Y(2e8)); relErr(got, 2e8) > 1e-15 {
+	if got := ch.FDAt(ch.Y(2e8)); relErr(got, 2e8) > roundTol {
 		t.Errorf("FDAt(Y(2e8)) = %g, want 2e8", got)
 	}
 	ch.Axes = Linear
@@ -428,7 +435,7 @@ func TestDefaults(t *testing.T) {
 		t.Errorf("default top = %g Hz·m, want %g", ch.FDMax, want)
 	}
 	for _, l := range ch.Lines {
-		if l.FD(ch.RatioMin) > ch.FDMax*(1+1e-15) {
+		if l.FD(ch.RatioMin) > ch.FDMax*(1+roundTol) {
 			t.Errorf("%s enters at f·D %g above the top %g", l.Label(), l.FD(ch.RatioMin), ch.FDMax)
 		}
 	}

@@ -142,7 +142,7 @@ func (ch *Chart) Figure(th Theme) (*Figure, error) {
 	}
 
 	f.Notes = append(f.Notes,
-		"Modes TE_nmp, TM_nmp: n azimuthal, m radial, p axial index.  Each line: (f·D)² = [(c·x_nm/π)² + (c·p/2)²·(D/L)²] / (εr·μr),  x = j'_nm (TE), j_nm (TM)  (Pozar, Microwave Engineering, sec. 6.7).")
+		"Modes TE_nmp, TM_nmp: n azimuthal, m radial, p axial index.  Each line: (f·D)² = [(c·x_nm/π)² + (c·p/2)²·(D/L)²] / (εr·μr),  x = j'_nm (TE), j_nm (TM)  (Pozar, Microwave Engineering, sec. 6.4).")
 	if ch.HasDesign {
 		c := ch.Cavity
 		if ch.MarkRatio != 0 {

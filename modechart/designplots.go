@@ -54,17 +54,9 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 	top := th.NewPlot("", "D/L   (diameter over length)", "clearance   [%]")
 	series := 0
 	add := func(p *plot.Plot, name string, xs, ys []float64, scale float64, sty draw.LineStyle) error {
-		segs, err := segments(xs, ys, scale)
+		segs, err := addCurve(p, xs, ys, scale, sty)
 		if err != nil {
 			return err
-		}
-		for _, s := range segs {
-			l, err := plotter.NewLine(s)
-			if err != nil {
-				return err
-			}
-			l.LineStyle = sty
-			p.Add(l)
 		}
 		if len(segs) > 0 && name != "" {
 			f.Legend.Add(name, LineThumb{sty})
@@ -112,12 +104,7 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 	case d.MinQ > 0 && hasFinite(d.Q0):
 		f.Legend.Add(fmt.Sprintf("required Q0 >= %.5g", d.MinQ), LineThumb{req})
 	}
-	for _, p := range f.Panels {
-		padY(p, 0.08)
-	}
-	if len(f.Panels) > 1 {
-		f.Panels[0].X.Label.Text = ""
-	}
+	stackPanels(f)
 	if d.Chosen != 0 {
 		if d.Chosen < d.Ratio[0] || d.Chosen > d.Ratio[n-1] {
 			return nil, fmt.Errorf("modechart: chosen D/L %g lies outside the curves' range %g..%g", d.Chosen, d.Ratio[0], d.Ratio[n-1])
@@ -181,7 +168,7 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 	if len(d.Freq) != n || (d.Clearance != nil && len(d.Clearance) != n) {
 		return nil, fmt.Errorf("modechart: tuning curve has %d lengths but %d frequencies and %d clearances", n, len(d.Freq), len(d.Clearance))
 	}
-	fs, fu := freqUnit(slices.Max(d.Freq))
+	fs, fu := FrequencyUnit(slices.Max(d.Freq))
 	mm := make([]float64, n)
 	for i, l := range d.Length {
 		mm[i] = l * 1e3
@@ -218,17 +205,9 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 		if len(o.Y) != n {
 			return nil, fmt.Errorf("modechart: tuning curve has %d lengths but %s has %d points", n, o.Name, len(o.Y))
 		}
-		segs, err := segments(mm, o.Y, 1/fs)
+		segs, err := addCurve(top, mm, o.Y, 1/fs, thin)
 		if err != nil {
 			return nil, err
-		}
-		for _, s := range segs {
-			l, err := plotter.NewLine(s)
-			if err != nil {
-				return nil, err
-			}
-			l.LineStyle = thin
-			top.Add(l)
 		}
 		if len(segs) > 0 {
 			last := segs[len(segs)-1]
@@ -240,20 +219,12 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 		f.Legend.Add("other modes", LineThumb{thin})
 	}
 	wsty := draw.LineStyle{Color: Ink, Width: 2.6 * th.LineWidth}
-	segs, err := segments(mm, d.Freq, 1/fs)
+	segs, err := addCurve(top, mm, d.Freq, 1/fs, wsty)
 	if err != nil {
 		return nil, err
 	}
 	if len(segs) == 0 {
 		return nil, errors.New("modechart: tuning curve holds no finite frequency")
-	}
-	for _, s := range segs {
-		l, err := plotter.NewLine(s)
-		if err != nil {
-			return nil, err
-		}
-		l.LineStyle = wsty
-		top.Add(l)
 	}
 	f.Legend.Add("wanted: "+d.Wanted, LineThumb{wsty})
 	if len(ends) > 0 {
@@ -266,27 +237,13 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 	}
 	f.Panels = append(f.Panels, top)
 	if bot != nil {
-		segs, err := segments(mm, d.Clearance, 100)
-		if err != nil {
+		if _, err := addCurve(bot, mm, d.Clearance, 100, th.Series(2)); err != nil {
 			return nil, err
-		}
-		for _, s := range segs {
-			l, err := plotter.NewLine(s)
-			if err != nil {
-				return nil, err
-			}
-			l.LineStyle = th.Series(2)
-			bot.Add(l)
 		}
 		f.Legend.Add("clearance along the tuning path", LineThumb{th.Series(2)})
 		f.Panels = append(f.Panels, bot)
 	}
-	for _, p := range f.Panels {
-		padY(p, 0.08)
-	}
-	if len(f.Panels) > 1 {
-		f.Panels[0].X.Label.Text = ""
-	}
+	stackPanels(f)
 	if d.Design != 0 {
 		if d.Design < d.Length[0] || d.Design > d.Length[n-1] {
 			return nil, fmt.Errorf("modechart: design length %g m lies outside the curve's range %g..%g m", d.Design, d.Length[0], d.Length[n-1])
@@ -327,7 +284,7 @@ func QFigure(th Theme, title string, modes []ModeQ) (*Figure, error) {
 		}
 		fmax = math.Max(fmax, m.Frequency)
 	}
-	fs, fu := freqUnit(fmax)
+	fs, fu := FrequencyUnit(fmax)
 	p := th.NewPlot("", "resonant frequency   ["+fu+"]", "unloaded Q0")
 	f := NewFigure(th, title)
 	groups := []struct {
@@ -379,9 +336,11 @@ func QFigure(th Theme, title string, modes []ModeQ) (*Figure, error) {
 	return f, nil
 }
 
-// freqUnit picks the frequency unit for axes: the largest of Hz, kHz, MHz
-// and GHz not above f.
-func freqUnit(f float64) (scale float64, name string) {
+// FrequencyUnit picks the unit of a frequency axis whose values reach f
+// (Hz): the largest of Hz, kHz, MHz and GHz not above f, returned as its
+// size in Hz and its name. Frequencies below 1 kHz, including zero,
+// negative and NaN ones, give Hz; those from 1 THz up stay in GHz.
+func FrequencyUnit(f float64) (scale float64, name string) {
 	switch {
 	case f >= 1e9:
 		return 1e9, "GHz"
@@ -391,6 +350,36 @@ func freqUnit(f float64) (scale float64, name string) {
 		return 1e3, "kHz"
 	}
 	return 1, "Hz"
+}
+
+// addCurve draws (x, y·scale) on p as lines in style sty, broken where y is
+// not finite (see segments), and returns the runs drawn.
+func addCurve(p *plot.Plot, xs, ys []float64, scale float64, sty draw.LineStyle) ([]plotter.XYs, error) {
+	segs, err := segments(xs, ys, scale)
+	if err != nil {
+		return nil, err
+	}
+	for _, s := range segs {
+		l, err := plotter.NewLine(s)
+		if err != nil {
+			return nil, err
+		}
+		l.LineStyle = sty
+		p.Add(l)
+	}
+	return segs, nil
+}
+
+// stackPanels readies the panels of a figure whose plots share the x axis:
+// every y range padded so that markers at the extremes are not clipped, and
+// the x-axis title kept on the bottom panel only.
+func stackPanels(f *Figure) {
+	for _, p := range f.Panels {
+		padY(p, 0.08)
+	}
+	if len(f.Panels) > 1 {
+		f.Panels[0].X.Label.Text = ""
+	}
 }
 
 // padY widens a plot's y range by frac of its span on each side, after the

@@ -26,7 +26,7 @@
 // p axial.
 //
 // References:
-//   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley 2012, sec. 6.7
+//   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley 2012, sec. 6.4
 //     (circular cavity resonators and their mode chart).
 //   - R. F. Harrington, Time-Harmonic Electromagnetic Fields, McGraw-Hill
 //     1961, sec. 5.3 (resonant frequencies of the circular cavity).

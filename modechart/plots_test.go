@@ -13,6 +13,27 @@ import (
 	"cylcav/cavity"
 )
 
+// TestFrequencyUnit checks the axis unit at and around each SI prefix step
+// (BIPM, The International System of Units, 9th ed., Table 7: k = 1e3,
+// M = 1e6, G = 1e9).
+func TestFrequencyUnit(t *testing.T) {
+	for _, c := range []struct {
+		f     float64
+		scale float64
+		name  string
+	}{
+		{0, 1, "Hz"}, {math.NaN(), 1, "Hz"}, {999, 1, "Hz"},
+		{1e3, 1e3, "kHz"}, {999e3, 1e3, "kHz"},
+		{1e6, 1e6, "MHz"}, {915e6, 1e6, "MHz"},
+		{1e9, 1e9, "GHz"}, {24e9, 1e9, "GHz"}, {3e12, 1e9, "GHz"},
+	} {
+		scale, name := FrequencyUnit(c.f)
+		if scale != c.scale || name != c.name {
+			t.Errorf("FrequencyUnit(%g) = %g, %q, want %g, %q", c.f, scale, name, c.scale, c.name)
+		}
+	}
+}
+
 // TestTicks checks the nice-number ticks (Heckbert 1990): majors are
 // multiples of a 1-2-5 step inside the range, labelled, and about N of
 // them; minors lie between them.
@@ -27,10 +48,14 @@ func TestTicks(t *testing.T) {
 		{1800, 4000, 500}, // 2200/6 = 367 -> 5 x 100
 		{-0.3, 0.7, 0.2},  // 1/6 = 0.167 -> 2 x 0.1
 	} {
+		// Tick values are built as multiples of the step, so they carry a
+		// few roundings: tickEdgeTol (absolute, for ranges of order 1 to
+		// 4000) at the range ends and tickStepTol (relative) in the step.
+		const tickEdgeTol, tickStepTol = 1e-12, 1e-9
 		ticks := Ticks{}.Ticks(c.min, c.max)
 		var majors []float64
 		for _, tk := range ticks {
-			if tk.Value < c.min-1e-12 || tk.Value > c.max+1e-12 {
+			if tk.Value < c.min-tickEdgeTol || tk.Value > c.max+tickEdgeTol {
 				t.Errorf("Ticks(%g, %g): tick %g outside the range", c.min, c.max, tk.Value)
 			}
 			if tk.Label != "" {
@@ -41,7 +66,7 @@ func TestTicks(t *testing.T) {
 			t.Errorf("Ticks(%g, %g): %d major ticks, want 3..11", c.min, c.max, len(majors))
 		}
 		for i := 1; i < len(majors); i++ {
-			if d := majors[i] - majors[i-1]; math.Abs(d-c.step) > 1e-9*c.step {
+			if d := majors[i] - majors[i-1]; math.Abs(d-c.step) > tickStepTol*c.step {
 				t.Errorf("Ticks(%g, %g): step %g, want %g", c.min, c.max, d, c.step)
 			}
 		}

@@ -138,7 +138,6 @@ func TestLabelLayout(t *testing.T) {
 				}
 			}
 		}
-		t.Logf("%s: %d lines, %d labelled", lc.name, len(ch.Lines), len(labels))
 	}
 }
 

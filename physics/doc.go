@@ -26,7 +26,7 @@
 //   - N. W. Ashcroft and N. D. Mermin, Solid State Physics, 1976, Table 1.1
 //     (free-electron densities).
 //   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley, 2012, Appendices F
-//     and H (conductivities; dielectric constants and loss tangents).
+//     and G (conductivities; dielectric constants and loss tangents).
 //   - J. Krupka et al., Complex permittivity of some ultralow loss
 //     dielectric crystals at cryogenic temperatures, Meas. Sci. Technol. 10,
 //     387 (1999) (sapphire, alumina).

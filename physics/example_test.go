@@ -38,9 +38,13 @@ func ExampleFormatFrequency() {
 
 func ExampleParseRange() {
 	lo, hi, err := physics.ParseRange("-20C:60C", physics.ParseTemperature)
-	fmt.Println(lo, hi, err)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("%.2f K to %.2f K\n", lo, hi)
 	// Output:
-	// 253.14999999999998 333.15 <nil>
+	// 253.15 K to 333.15 K
 }
 
 // An invented workshop measured its 6061 stock at 41 % IACS.

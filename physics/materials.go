@@ -53,7 +53,9 @@ type Conductor struct {
 	// 1 and not modelled (MuR = 1 is then a lower bound on Rs).
 	Ferromagnetic bool
 	// Note is a caution for users, or empty.
-	Note   string
+	Note string
+	// Source names where each value comes from: the book, table or paper,
+	// "recalled from memory" where true, or "user input".
 	Source string
 }
 
@@ -87,7 +89,9 @@ type Dielectric struct {
 	TCEps      float64
 	TCEpsKnown bool
 	// Note is a caution for users, or empty.
-	Note   string
+	Note string
+	// Source names where each value comes from: the book, table or paper,
+	// "recalled from memory" where true, or "user input".
 	Source string
 }
 
@@ -103,7 +107,7 @@ const (
 	srcASMss = "recalled from memory, ASM Handbook Vol. 1 (1990), Wrought Stainless Steels"
 	srcASMle = "recalled from memory, ASM Handbook Vol. 2 (1990), Low-Expansion Alloys"
 	srcMatt  = "alpha derived by Matthiessen's rule from the base metal: alpha_alloy = alpha_base rho_base/rho_alloy (an estimate, good to about 20 %)"
-	srcPozar = "recalled from memory, Pozar, Microwave Engineering, 4th ed. (2012), Appendix H (dielectric constants and loss tangents at 10 GHz)"
+	srcPozar = "recalled from memory, Pozar, Microwave Engineering, 4th ed. (2012), Appendix G (dielectric constants and loss tangents at 10 GHz)"
 	srcKrupk = "recalled from memory, Krupka et al., Meas. Sci. Technol. 10, 387 (1999), room temperature near 10 GHz; tan delta given to its order of magnitude"
 )
 
@@ -249,7 +253,7 @@ func Dielectrics() []Dielectric {
 			Source: "eps derived from the Smith-Weintraub radio refractivity N = 77.6 P/T (Proc. IRE 41, 1035, 1953; recalled from memory); TC derived for an ideal gas at constant pressure; loss negligible",
 		},
 		{
-			Name: "ptfe", Aliases: []string{"teflon", "polytetrafluoroethylene"},
+			Name: "ptfe", Aliases: []string{"polytetrafluoroethylene"},
 			Description: "PTFE",
 			EpsR:        2.08, TanDelta: 4e-4, TanDeltaFreq: 10e9, MuR: 1,
 			Note:   "phase transitions near 19 C and 30 C change eps by a few tenths of a percent",
@@ -292,7 +296,7 @@ func Dielectrics() []Dielectric {
 			Description: "polycrystalline alumina, 99.5 %",
 			EpsR:        9.8, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1,
 			Note:   "grades differ by about 0.2 in eps and a factor of 3 in tan delta",
-			Source: srcKrupk + "; Pozar, Microwave Engineering, 4th ed., Appendix H lists 9.5-10 (recalled from memory)",
+			Source: srcKrupk + "; Pozar, Microwave Engineering, 4th ed., Appendix G lists 9.5-10 (recalled from memory)",
 		},
 	}
 }

@@ -25,6 +25,17 @@ const (
 	roundTripTol    = 1e-14
 )
 
+// kelvinTol is the absolute error allowed in kelvin: the offset 273.15 and
+// the Fahrenheit factor 5/9 are not exact in binary, so a temperature near
+// 300 K carries a few ulp (about 6e-14 K each).
+const kelvinTol = 1e-12
+
+// kelvinRoundTripTol is the absolute error allowed after printing a
+// temperature below 300 K with roundTripDigits significant digits and
+// parsing it again: half a unit in the 15th digit of a value up to 300
+// (1.5e-13) plus the Celsius offset's roundings.
+const kelvinRoundTripTol = 1e-11
+
 func closeRel(a, b, tol float64) bool {
 	if a == b {
 		return true
@@ -170,7 +181,7 @@ func TestParseTemperature(t *testing.T) {
 			t.Errorf("ParseTemperature(%q) error %v", tc.in, err)
 			continue
 		}
-		if math.Abs(got-tc.want) > 1e-12 {
+		if math.Abs(got-tc.want) > kelvinTol {
 			t.Errorf("ParseTemperature(%q) = %.15g, want %.15g", tc.in, got, tc.want)
 		}
 	}
@@ -364,7 +375,7 @@ func TestRoundTrip(t *testing.T) {
 		k := 300 * rng.Float64()
 		s := FormatTemperature(k, roundTripDigits)
 		got, err := ParseTemperature(s)
-		if err != nil || math.Abs(got-k) > 1e-11 {
+		if err != nil || math.Abs(got-k) > kelvinRoundTripTol {
 			t.Errorf("ParseTemperature(FormatTemperature(%g)) = %g, %v (printed %q), want %g", k, got, err, s, k)
 		}
 	}

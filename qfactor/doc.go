@@ -73,7 +73,7 @@
 //   - S. Ramo, J. R. Whinnery and T. Van Duzer, Fields and Waves in
 //     Communication Electronics, 3rd ed., Wiley, 1994, ch. 3 (skin effect,
 //     surface impedance, layered conductors).
-//   - D. M. Pozar, Microwave Engineering, 4th ed., sec. 1.3 (skin depth)
+//   - D. M. Pozar, Microwave Engineering, 4th ed., sec. 1.4 (skin depth; plane waves in a good conductor)
 //     and sec. 2.7 (input impedance of a lossy line, used for the layered
 //     wall).
 //   - E. O. Hammerstad and O. Bekkadal, Microstrip Handbook, ELAB report
@@ -89,4 +89,7 @@
 //     (anomalous skin effect).
 //   - N. W. Ashcroft and N. D. Mermin, Solid State Physics, 1976, ch. 1-2
 //     (free-electron mean free path).
+//   - CRC Handbook of Chemistry and Physics, 97th ed., 2016, Electrical
+//     resistivity of pure metals (the linear resistivity model of
+//     Conductivity; recalled from memory).
 package qfactor

@@ -131,6 +131,11 @@ func curl(g func(r, phi, z float64) [3]float64, r, phi, z, dr, dz float64) [3]fl
 // scale have truncation error ~1e-10 (kc a)^3 and rounding ~1e-11.
 const maxwellTol = 1e-6
 
+// wallTol is the size, relative to the field scale, allowed of a field
+// component that vanishes on a wall: the Bessel factor there is J_n or
+// J'_n at its zero, zero to about 1e-14, and sin(p pi) is about 1e-16 p.
+const wallTol = 1e-12
+
 // TestFieldsSolveMaxwell checks the test's own field expressions: at random
 // interior points curl E = -j omega mu H and curl H = j omega eps E, and on
 // the walls E_tan = 0 and H_normal = 0. This makes the quadrature below a
@@ -180,7 +185,7 @@ func TestFieldsSolveMaxwell(t *testing.T) {
 					{"end A E_r", eA[0]}, {"end A E_phi", eA[1]}, {"end A H_z", hA[2]},
 					{"end B E_r", eB[0]}, {"end B E_phi", eB[1]}, {"end B H_z", hB[2]},
 				} {
-					if math.Abs(v.got) > 1e-12*scale {
+					if math.Abs(v.got) > wallTol*scale {
 						t.Errorf("%s aspect %g: %s = %g, want 0", m, aspect, v.what, v.got)
 					}
 				}
@@ -347,6 +352,11 @@ func TestWallQQuadrature(t *testing.T) {
 		got, err := qfactor.WallQ(c, m, rs)
 		if err != nil {
 			t.Fatalf("WallQ(%s) error: %v", m, err)
+		}
+		// GeometryFactors is the same computation without the wall metal;
+		// it must agree with WallQ's Geometry to the last bit.
+		if g, err := qfactor.GeometryFactors(c, m); err != nil || g != got.Geometry {
+			t.Errorf("GeometryFactors(%s) = %+v, %v, want %+v (WallQ)", m, g, err, got.Geometry)
 		}
 		checks := []struct {
 			what      string

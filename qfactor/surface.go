@@ -25,7 +25,7 @@ const roomTemperature = physics.ZeroCelsius + 20
 //
 // in metres, of a good conductor with conductivity sigma (S/m) and relative
 // permeability muR at frequency f (Hz) (Pozar, Microwave Engineering, 4th
-// ed., sec. 1.3, good conductors; Ramo, Whinnery & Van Duzer, Fields and
+// ed., sec. 1.4, plane waves in a good conductor; Ramo, Whinnery & Van Duzer, Fields and
 // Waves in Communication Electronics, 3rd ed., ch. 3).
 //
 // Domain: f, sigma, muR > 0 and finite; the model assumes sigma >> omega
@@ -33,7 +33,7 @@ const roomTemperature = physics.ZeroCelsius + 20
 // AnomalyParameter). Outside the domain the result is NaN, Inf or 0 as the
 // arithmetic gives; Surface checks its inputs and returns errors instead.
 func SkinDepth(f, sigma, muR float64) float64 {
-	return math.Sqrt(2 / (2 * math.Pi * f * muR * physics.VacuumPermeability * sigma)) // Pozar sec. 1.3
+	return math.Sqrt(2 / (2 * math.Pi * f * muR * physics.VacuumPermeability * sigma)) // Pozar sec. 1.4
 }
 
 // SurfaceResistance returns the classical surface resistance

@@ -47,7 +47,7 @@ func TestSkinEffectPozar(t *testing.T) {
 	if got, want := SurfaceResistance(5e9, 5.813e7, 1), 1.84e-2; !near(got, want, bookRoundingTol) {
 		t.Errorf("SurfaceResistance(5 GHz, copper) = %g, want %g", got, want)
 	}
-	// Skin depth of copper at 10 GHz, 0.66 um (Pozar, 4th ed., sec. 1.3 and
+	// Skin depth of copper at 10 GHz, 0.66 um (Pozar, 4th ed., sec. 1.4 and
 	// its table of skin depths; recalled from memory, 2 digits).
 	if got, want := SkinDepth(10e9, 5.813e7, 1), 0.66e-6; !near(got, want, 1e-2) {
 		t.Errorf("SkinDepth(10 GHz, copper) = %g, want %g", got, want)

@@ -65,7 +65,7 @@ func TestPozarTE011Example(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if relErr(u.Wall.Frequency, 5e9) > 1e-4 {
+	if relErr(u.Wall.Frequency, 5e9) > issueTol {
 		t.Errorf("Frequency = %.8g Hz, want 5e9 (Pozar sec. 6.4 design frequency)", u.Wall.Frequency)
 	}
 	if relErr(u.Wall.QWall, 29351) > issueTol {
@@ -77,7 +77,10 @@ func TestPozarTE011Example(t *testing.T) {
 	if relErr(u.Q0, 2304) > issueTol {
 		t.Errorf("Q0 = %.7g, want 2304 (issue 3; Pozar prints 2300)", u.Q0)
 	}
-	if relErr(u.Q0, 2300) > 2.5e-3 {
+	// Pozar prints 2300; 2304 lies 0.17 % above it, so 0.25 % checks the
+	// agreement without letting a slip of a unit in the third digit by.
+	const pozarQ0Tol = 2.5e-3
+	if relErr(u.Q0, 2300) > pozarQ0Tol {
 		t.Errorf("Q0 = %.7g, want 2300 (Pozar sec. 6.4, recalled from memory, 2 digits)", u.Q0)
 	}
 	if s := u.Share.Side + u.Share.EndA + u.Share.EndB + u.Share.Fill; math.Abs(s-1) > veryclose {
@@ -154,7 +157,8 @@ func TestPozarTEFormula(t *testing.T) {
 func TestPillbox(t *testing.T) {
 	a := 0.1
 	x := mode("TM010").Root() // j_0,1 = 2.4048...
-	if math.Abs(math.J0(x)) > 1e-15 {
+	const j0Tol = 1e-15       // |J0| near its zero: a few ulp of the unit amplitude
+	if math.Abs(math.J0(x)) > j0Tol {
 		t.Fatalf("J0(j_01) = %g, want 0", math.J0(x))
 	}
 	d := math.Pi * a / x // lambda/2 with lambda = 2 pi a/x
@@ -318,6 +322,12 @@ func TestWallQErrors(t *testing.T) {
 		if _, err := qfactor.WallQ(tc.c, tc.m, tc.rs); err == nil {
 			t.Errorf("WallQ(%+v, %+v, %+v) error = nil, want an error", tc.c, tc.m, tc.rs)
 		}
+	}
+	if _, err := qfactor.GeometryFactors(good, cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 0}); err == nil {
+		t.Errorf("GeometryFactors(TE010) error = nil, want an error")
+	}
+	if _, err := qfactor.GeometryFactors(cavity.Cavity{Radius: -0.02, Length: 0.03}, mode("TE011")); err == nil {
+		t.Errorf("GeometryFactors(radius -0.02 m) error = nil, want an error")
 	}
 	if _, err := qfactor.Acceleration(good, mode("TE011"), 1); err == nil {
 		t.Errorf("Acceleration(TE011) error = nil, want an error")

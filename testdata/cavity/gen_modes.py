@@ -11,7 +11,7 @@ Method: for every mode TE_nmp (n >= 0, m >= 1, p >= 1) and TM_nmp
 
     f = c / (2 pi sqrt(mu_r eps_r)) * sqrt((x/a)^2 + (p pi/d)^2)
 
-(Pozar, Microwave Engineering, 4th ed., sec. 6.7; Harrington, Time-Harmonic
+(Pozar, Microwave Engineering, 4th ed., sec. 6.4; Harrington, Time-Harmonic
 Electromagnetic Fields, sec. 5.3) with x = j'_nm for TE and x = j_nm for TM
 from mpmath.besseljzero at 40 significant digits and c = 299792458 m/s
 (exact, SI 2019). mpmath counts x = 0 as the first zero of J'_0, so TE_0m

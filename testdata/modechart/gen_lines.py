@@ -12,7 +12,7 @@ whose f*D at the smallest D/L is at or below the top, with
 
     A = (c x / pi)^2 / (eps_r mu_r),   B = (c p / 2)^2 / (eps_r mu_r)
 
-(Pozar, Microwave Engineering, 4th ed., sec. 6.7; x = j'_nm for TE, j_nm for
+(Pozar, Microwave Engineering, 4th ed., sec. 6.4; x = j'_nm for TE, j_nm for
 TM from mpmath.besseljzero) in (Hz*m)^2, printed to 17 significant digits.
 TE0mp and TM1mp are listed separately (they share A and B); the Go test
 checks that the chart merges them.
