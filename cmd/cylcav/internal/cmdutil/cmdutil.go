@@ -1,5 +1,6 @@
 // Package cmdutil holds what every cylcav command shares: the I/O streams,
-// usage errors (exit status 2), output formats, unit-flag parsing, table,
+// usage errors (exit status 2), output formats, unit-flag parsing, the
+// cavity geometry flags (--diameter, --radius, --length, --fill), table,
 // JSON and CSV printers, and the atomic file writer.
 package cmdutil
 
@@ -91,6 +92,11 @@ func FlagValueError(err error) error {
 	}
 	return fmt.Errorf("--%s %q: %s", ive.GetFlag().Name, ive.GetValue(), what)
 }
+
+// CautionRF is the general caution for cavities driven at high RF power,
+// as a clause: `cylcav q` prints it as "Caution: <clause>.", `cylcav
+// design` as a sentence of its own.
+const CautionRF = "high RF power can cause burns and harmful RF exposure, and breakdown and multipaction in the cavity; follow local codes and licensed practice"
 
 // IsUsage reports whether err is, or wraps, a UsageError.
 func IsUsage(err error) bool {

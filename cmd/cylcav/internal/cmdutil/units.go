@@ -3,8 +3,17 @@ package cmdutil
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"cylcav/physics"
+)
+
+// Limits of the frequency flags (--freq, --fmax, --f0, ...): wider than any
+// cavity cylcav can hold (cavity.MinSize..MaxSize), narrow enough to catch
+// unit slips.
+const (
+	MinFrequency = 1e3  // Hz
+	MaxFrequency = 1e14 // Hz
 )
 
 // Length parses the value of a length flag (50mm, 1.97in, 0.05) into metres
@@ -47,4 +56,15 @@ func Number(flag, value string, min, max float64) (float64, error) {
 		return 0, FlagError(flag, value, fmt.Errorf("must be between %g and %g", min, max))
 	}
 	return v, nil
+}
+
+// TrimZeros drops the trailing zeros of a quantity formatted by package
+// physics ("25.0000 mm" -> "25 mm", "5.00000 GHz" -> "5 GHz") for header
+// lines, where columns need not align. Anything else is returned as is.
+func TrimZeros(s string) string {
+	v, unit, ok := strings.Cut(s, " ")
+	if !ok || !strings.Contains(v, ".") {
+		return s
+	}
+	return strings.TrimRight(strings.TrimRight(v, "0"), ".") + " " + unit
 }

@@ -21,12 +21,6 @@ import (
 	"cylcav/physics"
 )
 
-// Frequency limits accepted by --freq (Hz).
-const (
-	minFreq = 1e3
-	maxFreq = 1e14
-)
-
 // Options are the parsed and validated flags of `cylcav chart`.
 type Options struct {
 	IO *cmdutil.IOStreams
@@ -51,10 +45,11 @@ type Options struct {
 func NewCmdChart(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var (
-		mode, freq, ratio, diameter, length, fill, ratioRange  string
+		mode, freq, ratio, ratioRange                          string
 		maxFD, minFD, units, axes, tuning, tol, tolLen, minClr string
 		width, height                                          string
 		dpi                                                    int
+		geo                                                    *cmdutil.GeometryFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "chart (--diameter D --length L | --mode MODE --freq F --ratio R) -o FILE [flags]",
@@ -64,7 +59,7 @@ line of (f·D)² against (D/L)², straight lines from
 
   (f·D)² = (c·x_nm/π)²/(εr·μr) + (c·p/2)²/(εr·μr) · (D/L)²
 
-with x_nm = j'_nm (TE) or j_nm (TM) (Pozar, Microwave Engineering, sec. 6.7),
+with x_nm = j'_nm (TE) or j_nm (TM) (Pozar, Microwave Engineering, sec. 6.4),
 or with --axes linear f·D against D/L. TE modes are solid lines, TM modes
 dashed, and each exactly degenerate pair TE0mp/TM1mp is one dash-dot line
 named with both modes. Mode names sit on their lines where they fit without
@@ -104,17 +99,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				}
 			}
 			var fillV cavity.Fill
-			if fl.Changed("fill") {
-				d, err := physics.ParseDielectric(fill)
-				if err != nil {
-					return cmdutil.FlagError("fill", fill, err)
-				}
-				fillV, opts.FillName = cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}, d.Name
-				if err := fillV.Validate(); err != nil {
-					return cmdutil.FlagError("fill", fill, err)
-				}
+			if fillV, opts.FillName, err = geo.Fill(); err != nil {
+				return err
 			}
-			if err := parseCavity(fl.Changed, opts, fillV, mode, freq, ratio, diameter, length); err != nil {
+			if err := parseCavity(geo, opts, fillV, mode, freq, ratio); err != nil {
 				return err
 			}
 			if !fl.Changed("mode") && (fl.Changed("tuning") || fl.Changed("tolerance") || fl.Changed("tolerance-length") || fl.Changed("min-clearance")) {
@@ -199,11 +187,13 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (emphasised, with the design point)")
-	f.StringVar(&diameter, "diameter", "", "inside diameter D of the cavity, e.g. 39.6mm")
-	f.StringVar(&length, "length", "", "inside length L of the cavity, e.g. 39.6mm")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter: "inside diameter D of the cavity, e.g. 39.6mm",
+		Length:   "inside length L of the cavity, e.g. 39.6mm",
+		Fill:     "fill: material name (air, ptfe, ...) or eps=E[,mu=M] (default vacuum)",
+	})
 	f.StringVar(&freq, "freq", "", "size the cavity first: wanted frequency, with --ratio, --diameter or --length")
 	f.StringVar(&ratio, "ratio", "", "with --freq: the ratio D/L of the sized cavity")
-	f.StringVar(&fill, "fill", "", "fill: material name (air, ptfe, ...) or eps=E[,mu=M] (default vacuum)")
 	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "D/L range of the chart, LO:HI")
 	f.StringVar(&maxFD, "max-fd", "", "top of the chart as f·D in --units (default 1.5 x the design's f·D)")
 	f.StringVar(&minFD, "min-fd", "", "bottom of the chart as f·D in --units (default 0)")
@@ -229,13 +219,14 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 
 // parseCavity fills opts.Spec.Cavity from --diameter and --length, or by
 // sizing --mode at --freq with one of --ratio, --diameter, --length.
-func parseCavity(changed func(string) bool, opts *Options, fill cavity.Fill, mode, freq, ratio, diameter, length string) error {
+func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill cavity.Fill, mode, freq, ratio string) error {
 	s := &opts.Spec
+	changed := geo.Changed
 	if changed("freq") {
 		if !changed("mode") {
 			return cmdutil.Usagef("--freq sizes the cavity for the wanted mode: give --mode too (e.g. --mode TE011)")
 		}
-		f, err := cmdutil.Frequency("freq", freq, minFreq, maxFreq)
+		f, err := cmdutil.Frequency("freq", freq, cmdutil.MinFrequency, cmdutil.MaxFrequency)
 		if err != nil {
 			return err
 		}
@@ -258,17 +249,17 @@ func parseCavity(changed func(string) bool, opts *Options, fill cavity.Fill, mod
 			}
 			by, flag, val = cavity.ByRatio(r), "ratio", ratio
 		case "diameter":
-			d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+			d, err := geo.Diameter()
 			if err != nil {
 				return err
 			}
-			by, flag, val = cavity.ByDiameter(d), "diameter", diameter
+			by, flag, val = cavity.ByDiameter(d), "diameter", geo.Text("diameter")
 		case "length":
-			l, err := cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize)
+			l, err := geo.Length()
 			if err != nil {
 				return err
 			}
-			by, flag, val = cavity.ByLength(l), "length", length
+			by, flag, val = cavity.ByLength(l), "length", geo.Text("length")
 		}
 		c, err := cavity.Size(s.Wanted, f, fill, by)
 		if errors.Is(err, cavity.ErrInfeasible) {
@@ -285,11 +276,11 @@ func parseCavity(changed func(string) bool, opts *Options, fill cavity.Fill, mod
 	}
 	switch {
 	case changed("diameter") && changed("length"):
-		d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+		d, err := geo.Diameter()
 		if err != nil {
 			return err
 		}
-		l, err := cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize)
+		l, err := geo.Length()
 		if err != nil {
 			return err
 		}

@@ -10,18 +10,11 @@ import (
 	"strings"
 	"testing"
 
+	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/chart"
-	"cylcav/cmd/cylcav/internal/cmd/root"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/modechart"
 )
-
-func cylcav(t *testing.T, args ...string) (stdout, stderr string, code int) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	code = root.Main(cmdutil.Test(&out, &errOut), args)
-	return out.String(), errOut.String(), code
-}
 
 // parse runs `chart` with runF capturing the options.
 func parse(t *testing.T, args ...string) (*chart.Options, error) {
@@ -43,11 +36,12 @@ func TestWritesEveryFormat(t *testing.T) {
 	dir := t.TempDir()
 	for _, ext := range []string{"png", "svg", "pdf"} {
 		path := filepath.Join(dir, "chart."+ext)
-		out, errOut, code := cylcav(t, "chart", "--diameter", "39.6mm", "--length", "39.6mm", "--mode", "TE011",
+		r := clitest.Run(t, "chart", "--diameter", "39.6mm", "--length", "39.6mm", "--mode", "TE011",
 			"--tuning", "2%", "--tolerance", "0.02mm", "--min-clearance", "3%", "--dpi", "72", "-o", path)
-		if code != 0 {
-			t.Fatalf("%s: exit %d, stderr %q", ext, code, errOut)
+		if r.Code != 0 {
+			t.Fatalf("%s: exit %d, stderr %q", ext, r.Code, r.Stderr)
 		}
+		out := r.Stdout
 		b, err := os.ReadFile(path)
 		if err != nil {
 			t.Fatal(err)
@@ -87,22 +81,22 @@ func TestForce(t *testing.T) {
 	if err := os.WriteFile(path, []byte("keep"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	_, errOut, code := cylcav(t, "chart", "-o", path)
-	if code != 2 || !strings.Contains(errOut, "--force") {
-		t.Errorf("existing file: exit %d, stderr %q; want 2 and a hint to use --force", code, errOut)
+	r := clitest.Run(t, "chart", "-o", path)
+	if r.Code != 2 || !strings.Contains(r.Stderr, "--force") {
+		t.Errorf("existing file: exit %d, stderr %q; want 2 and a hint to use --force", r.Code, r.Stderr)
 	}
 	if b, _ := os.ReadFile(path); string(b) != "keep" {
 		t.Error("existing file changed without --force")
 	}
-	if _, errOut, code := cylcav(t, "chart", "-o", path, "--force"); code != 0 {
-		t.Fatalf("--force: exit %d, stderr %q", code, errOut)
+	if r := clitest.Run(t, "chart", "-o", path, "--force"); r.Code != 0 {
+		t.Fatalf("--force: exit %d, stderr %q", r.Code, r.Stderr)
 	}
 	if b, _ := os.ReadFile(path); !bytes.Contains(b, []byte("<svg")) {
 		t.Error("--force did not replace the file")
 	}
 	bad := filepath.Join(dir, "bad.png")
-	if _, _, code := cylcav(t, "chart", "--mode", "TM010", "--diameter", "40mm", "--length", "30mm", "--tuning", "1%", "-o", bad); code != 2 {
-		t.Errorf("untunable TM010: exit %d, want 2", code)
+	if r := clitest.Run(t, "chart", "--mode", "TM010", "--diameter", "40mm", "--length", "30mm", "--tuning", "1%", "-o", bad); r.Code != 2 {
+		t.Errorf("untunable TM010: exit %d, want 2", r.Code)
 	}
 	if _, err := os.Stat(bad); err == nil {
 		t.Error("a failed run left a file")
@@ -117,7 +111,7 @@ func TestForce(t *testing.T) {
 
 // TestSizeFirst checks --mode --freq --ratio: the cavity is sized by the
 // library, so the design point sits at the asked ratio and frequency
-// (Pozar, Microwave Engineering, 4th ed., sec. 6.7: the PTFE-filled TE011
+// (Pozar, Microwave Engineering, 4th ed., sec. 6.4: the PTFE-filled TE011
 // cavity with D = L at 5 GHz has a = 2.74 cm, recalled from memory).
 func TestSizeFirst(t *testing.T) {
 	o, err := parse(t, "--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--fill", "eps=2.08", "-o", "x.svg",
@@ -171,8 +165,8 @@ func TestBadFlags(t *testing.T) {
 }
 
 func TestHelpHasExample(t *testing.T) {
-	out, _, code := cylcav(t, "chart", "--help")
-	if code != 0 || !strings.Contains(out, "$ cylcav chart --diameter 39.6mm") || !strings.Contains(out, "n azimuthal, m radial, p axial") {
-		t.Errorf("help lacks the worked example or the index convention:\n%s", out)
+	r := clitest.Run(t, "chart", "--help")
+	if r.Code != 0 || !strings.Contains(r.Stdout, "$ cylcav chart --diameter 39.6mm") || !strings.Contains(r.Stdout, "n azimuthal, m radial, p axial") {
+		t.Errorf("help lacks the worked example or the index convention:\n%s", r.Stdout)
 	}
 }

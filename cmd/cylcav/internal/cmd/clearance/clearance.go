@@ -30,8 +30,9 @@ type Options struct {
 // the run step (for tests of flag parsing).
 func NewCmdClearance(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var mode, diameter, radius, length, fill, window string
+	var mode, window string
 	var checkFormat func() error
+	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "clearance --mode MODE (--diameter D | --radius A) --length L [flags]",
 		Short: "Show the spurious-mode clearance of a wanted mode",
@@ -59,17 +60,11 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = parseMode(mode); err != nil {
 				return err
 			}
-			if opts.Cavity, err = parseCavity(cmd.Flags().Changed("diameter"), diameter, radius, length); err != nil {
-				return err
-			}
-			fd, err := parseFill(fill)
+			c, fill, err := geo.Cavity()
 			if err != nil {
 				return err
 			}
-			opts.Cavity.EpsR, opts.Cavity.MuR, opts.FillName = fd.EpsR, fd.MuR, fd.Name
-			if err := opts.Cavity.Validate(); err != nil {
-				return cmdutil.Usagef("%v", err)
-			}
+			opts.Cavity, opts.FillName = c, fill.Name
 			if err := parseWindow(window, &opts.Window); err != nil {
 				return err
 			}
@@ -85,17 +80,18 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (required)")
-	f.StringVar(&diameter, "diameter", "", "inside diameter, e.g. 40mm")
-	f.StringVar(&radius, "radius", "", "inside radius (instead of --diameter)")
-	f.StringVar(&length, "length", "", "inside length between the end plates, e.g. 30mm (required)")
-	f.StringVar(&fill, "fill", "air", "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter:    "inside diameter, e.g. 40mm",
+		Radius:      "inside radius (instead of --diameter)",
+		Length:      "inside length between the end plates, e.g. 30mm (required)",
+		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4",
+		FillDefault: "air",
+		CobraChecks: true,
+	})
 	f.StringVar(&window, "window", "10%", "list modes within this distance: a percentage or a frequency")
 	f.BoolVar(&opts.Window.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.MarkFlagRequired("mode")
-	_ = cmd.MarkFlagRequired("length")
-	cmd.MarkFlagsMutuallyExclusive("diameter", "radius")
-	cmd.MarkFlagsOneRequired("diameter", "radius")
 	return cmd
 }
 
@@ -105,39 +101,6 @@ func parseMode(s string) (cavity.Mode, error) {
 		return cavity.Mode{}, cmdutil.FlagError("mode", s, err)
 	}
 	return m, nil
-}
-
-// parseCavity reads the dimensions; exactly one of diameter and radius is
-// set (cobra enforces it), useDiameter tells which.
-func parseCavity(useDiameter bool, diameter, radius, length string) (cavity.Cavity, error) {
-	var c cavity.Cavity
-	if useDiameter {
-		d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
-		if err != nil {
-			return c, err
-		}
-		c.Radius = d / 2
-	} else {
-		a, err := cmdutil.Length("radius", radius, cavity.MinSize, cavity.MaxSize)
-		if err != nil {
-			return c, err
-		}
-		c.Radius = a
-	}
-	l, err := cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize)
-	if err != nil {
-		return c, err
-	}
-	c.Length = l
-	return c, nil
-}
-
-func parseFill(s string) (physics.Dielectric, error) {
-	d, err := physics.ParseDielectric(s)
-	if err != nil {
-		return d, cmdutil.FlagError("fill", s, err)
-	}
-	return d, nil
 }
 
 // parseWindow reads a window given as a percentage (or fraction) or as a

@@ -1,32 +1,21 @@
-package clearance
+package clearance_test
 
 import (
-	"bytes"
 	"encoding/json"
 	"strings"
 	"testing"
 
-	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/clearance"
 )
 
-func run(t *testing.T, args ...string) (string, error) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	cmd := NewCmdClearance(cmdutil.Test(&out, &errOut), nil)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.Execute()
-	return out.String(), err
-}
-
 func TestClearanceJSON(t *testing.T) {
-	out, err := run(t, "--mode", "TE011", "--diameter", "40mm", "--length", "30mm", "--fill", "vacuum", "--window", "10%", "--format", "json")
-	if err != nil {
-		t.Fatal(err)
+	r := clitest.Run(t, "clearance", "--mode", "TE011", "--diameter", "40mm", "--length", "30mm", "--fill", "vacuum", "--window", "10%", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
-	var o Output
+	out := r.Stdout
+	var o clearance.Output
 	if err := json.Unmarshal([]byte(out), &o); err != nil {
 		t.Fatal(err)
 	}
@@ -40,12 +29,12 @@ func TestClearanceJSON(t *testing.T) {
 		}
 	}
 	// The lowest mode has no neighbour below: null.
-	out, err = run(t, "--mode", "TE111", "--diameter", "40mm", "--length", "80mm", "--format", "json")
-	if err != nil {
-		t.Fatal(err)
+	r = clitest.Run(t, "clearance", "--mode", "TE111", "--diameter", "40mm", "--length", "80mm", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
-	if !strings.Contains(out, `"below": null`) {
-		t.Errorf("clearance JSON for the lowest mode lacks \"below\": null:\n%s", out)
+	if !strings.Contains(r.Stdout, `"below": null`) {
+		t.Errorf("clearance JSON for the lowest mode lacks \"below\": null:\n%s", r.Stdout)
 	}
 }
 
@@ -55,8 +44,8 @@ func TestClearanceErrors(t *testing.T) {
 		{"--mode", "TE011", "--diameter", "40mm", "--length", "30mm", "--window", "abc"},
 		{"--mode", "XX011", "--diameter", "40mm", "--length", "30mm"},
 	} {
-		if _, err := run(t, args...); cmdutil.ExitStatus(err) != 2 {
-			t.Errorf("clearance %v: error %v, want a usage error (status 2)", args, err)
+		if r := clitest.Run(t, append([]string{"clearance"}, args...)...); r.Code != 2 {
+			t.Errorf("clearance %v: exit %d, stderr %q; want a usage error (status 2)", args, r.Code, r.Stderr)
 		}
 	}
 }

@@ -8,7 +8,9 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strconv"
+	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
@@ -34,13 +36,14 @@ var demoFlags = map[string]bool{"format": true}
 func NewCmdDesign(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
 	var (
-		mode, freq, fill, wall, ratioRange, objective, minClear, minQ string
-		maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen  string
-		tolDist                                                       string
-		samples                                                       int
-		seed                                                          uint64
-		countDeg                                                      bool
-		checkFormat                                                   func() error
+		mode, freq, wall, ratioRange, objective, minClear, minQ      string
+		maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
+		tolDist                                                      string
+		samples                                                      int
+		seed                                                         uint64
+		countDeg                                                     bool
+		checkFormat                                                  func() error
+		geo                                                          *cmdutil.GeometryFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "design [--mode MODE --freq F] [flags]",
@@ -94,7 +97,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 				}
 				opts.Scenario = s
 			} else {
-				s, err := parseScenario(cmd, mode, freq, fill, wall, ratioRange, objective, minClear, minQ,
+				s, err := parseScenario(cmd, geo, mode, freq, wall, ratioRange, objective, minClear, minQ,
 					maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist, samples, seed, countDeg)
 				if err != nil {
 					return err
@@ -110,7 +113,10 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	f := cmd.Flags()
 	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011")
 	f.StringVar(&freq, "freq", "", "wanted frequency, e.g. 10GHz")
-	f.StringVar(&fill, "fill", "air", "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm",
+		FillDefault: "air",
+	})
 	f.StringVar(&wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
 	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
 	f.StringVar(&objective, "objective", "clearance", "what to maximise: clearance|q")
@@ -132,7 +138,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	return cmd
 }
 
-func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objective, minClear, minQ,
+func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, wall, ratioRange, objective, minClear, minQ,
 	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist string, samples int, seed uint64, countDeg bool) (Scenario, error) {
 	var s Scenario
 	sp := &s.Spec
@@ -148,8 +154,8 @@ func parseScenario(cmd *cobra.Command, mode, freq, fill, wall, ratioRange, objec
 	if sp.Frequency, err = cmdutil.Frequency("freq", freq, 1e3, 1e15); err != nil {
 		return s, err
 	}
-	if s.Fill, err = physics.ParseDielectric(fill); err != nil {
-		return s, cmdutil.FlagError("fill", fill, err)
+	if s.Fill, err = geo.Dielectric(); err != nil {
+		return s, err
 	}
 	sp.Fill = cavity.Fill{EpsR: s.Fill.EpsR, MuR: s.Fill.MuR}
 	if set("wall") {
@@ -299,16 +305,7 @@ func coefficient(flag, value string) (float64, error) {
 }
 
 func runDesign(opts *Options) error {
-	var progress func(done, total int)
-	var bar *cmdutil.Progress
-	if opts.Scenario.Spec.Tolerance.Samples >= 100000 {
-		bar = cmdutil.NewProgress(opts.IO, "tolerance analysis")
-		progress = bar.Update
-	}
-	r, err := opts.Scenario.Run(progress)
-	if bar != nil {
-		bar.Done()
-	}
+	r, err := opts.Scenario.RunWithProgress(opts.IO)
 	if err != nil {
 		return err // an InfeasibleError exits with status 1
 	}
@@ -357,26 +354,28 @@ type QBreakdown struct {
 
 // Output is the JSON document of `cylcav design`.
 type Output struct {
-	Scenario          string               `json:"scenario,omitempty"`
-	Mode              string               `json:"mode"`
-	FHz               float64              `json:"f_hz"`
-	DiameterM         float64              `json:"diameter_m"`
-	LengthM           float64              `json:"length_m"`
-	Ratio             float64              `json:"ratio_d_over_l"`
-	ClearancePct      float64              `json:"clearance_pct"`
-	WorstClearancePct float64              `json:"worst_clearance_pct"`
-	AtRangeEdge       bool                 `json:"at_range_edge"`
-	Limit             string               `json:"limit"`
-	Below             *clearance.Neighbour `json:"below"`
-	Above             *clearance.Neighbour `json:"above"`
-	Degenerate        []string             `json:"degenerate"`
-	Q0                *float64             `json:"q0"`
-	QBreakdown        *QBreakdown          `json:"q_breakdown,omitempty"`
-	Sensitivity       Sensitivity          `json:"sensitivity"`
-	TunedLengthM      *[2]float64          `json:"tuned_length_m,omitempty"`
-	DriftHz           *[2]float64          `json:"thermal_drift_hz,omitempty"`
-	Tolerance         *Tolerance           `json:"tolerance"`
-	Cautions          []string             `json:"cautions"`
+	Scenario          string  `json:"scenario,omitempty"`
+	Mode              string  `json:"mode"`
+	FHz               float64 `json:"f_hz"`
+	DiameterM         float64 `json:"diameter_m"`
+	LengthM           float64 `json:"length_m"`
+	Ratio             float64 `json:"ratio_d_over_l"`
+	ClearancePct      float64 `json:"clearance_pct"`
+	WorstClearancePct float64 `json:"worst_clearance_pct"`
+	AtRangeEdge       bool    `json:"at_range_edge"`
+	// Limit names the bound that holds the optimum (a cavity.Limit); null
+	// when none does.
+	Limit        *string              `json:"limit"`
+	Below        *clearance.Neighbour `json:"below"`
+	Above        *clearance.Neighbour `json:"above"`
+	Degenerate   []string             `json:"degenerate"`
+	Q0           *float64             `json:"q0"`
+	QBreakdown   *QBreakdown          `json:"q_breakdown,omitempty"`
+	Sensitivity  Sensitivity          `json:"sensitivity"`
+	TunedLengthM *[2]float64          `json:"tuned_length_m,omitempty"`
+	DriftHz      *[2]float64          `json:"thermal_drift_hz,omitempty"`
+	Tolerance    *Tolerance           `json:"tolerance"`
+	Cautions     []string             `json:"cautions"`
 }
 
 // JSON returns the JSON document of a result.
@@ -387,14 +386,15 @@ func JSON(r Result) Output {
 		Mode:     d.Spec.Mode.String(), FHz: d.Spec.Frequency,
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
 		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
-		AtRangeEdge: d.AtRangeEdge, Limit: string(d.Limit),
-		Below: clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
+		AtRangeEdge: d.AtRangeEdge,
+		Below:       clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
 		Degenerate:  clearance.DegenerateJSON(d.Clearance.Degenerate),
 		Sensitivity: Sensitivity{DfDDHzPerM: d.Sensitivity.DfDD, DfDLHzPerM: d.Sensitivity.DfDL, DfDTHzPerK: d.Sensitivity.DfDT},
-		Cautions:    r.Cautions,
+		Cautions:    printedCautions(r),
 	}
-	if o.Cautions == nil {
-		o.Cautions = []string{}
+	if d.Limit != cavity.NoLimit {
+		l := string(d.Limit)
+		o.Limit = &l
 	}
 	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
 		q := d.Q0
@@ -507,13 +507,20 @@ func WriteTable(w io.Writer, r Result) error {
 		fmt.Fprintf(w, "  f 1st..99th percentile: %s .. %s\n", physics.FormatFrequency(sp.P01, 8), physics.FormatFrequency(sp.P99, 8))
 		fmt.Fprintf(w, "  worst clearance among the samples: %.3f %% (%s)\n", 100*sp.WorstClearance, sp.WorstMode)
 	}
-	if len(r.Cautions) > 0 {
-		fmt.Fprintf(w, "\nCautions:\n")
-		for _, c := range r.Cautions {
-			fmt.Fprintf(w, "  - %s\n", c)
-		}
+	fmt.Fprintf(w, "\nCautions:\n")
+	for _, c := range printedCautions(r) {
+		fmt.Fprintf(w, "  - %s\n", c)
 	}
 	return nil
+}
+
+// printedCautions are the cautions design prints: the result's own, then
+// the general caution for high RF power (cmdutil.CautionRF) as a sentence.
+// The datasheet of `cylcav report` prints the result's own and, in place of
+// the one-line RF caution, its fuller safety notes.
+func printedCautions(r Result) []string {
+	rf := strings.ToUpper(cmdutil.CautionRF[:1]) + cmdutil.CautionRF[1:] + "."
+	return append(slices.Clone(r.Cautions), rf)
 }
 
 func signedF(v float64) string {

@@ -1,31 +1,25 @@
-package design
+package design_test
 
 import (
-	"bytes"
 	"encoding/json"
 	"strings"
 	"testing"
 
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/design"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
-func run(t *testing.T, args ...string) (string, error) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	cmd := NewCmdDesign(cmdutil.Test(&out, &errOut), nil)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.Execute()
-	return out.String(), err
-}
+// rfCaution is the general RF caution as design prints it: the sentence
+// form of the clause `cylcav q` prints.
+const rfCaution = "High RF power can cause burns and harmful RF exposure, and breakdown and multipaction in the cavity; follow local codes and licensed practice."
 
 func TestDesignDemo(t *testing.T) {
-	out, err := run(t)
-	if err != nil {
-		t.Fatal(err)
+	r := clitest.Run(t, "design")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
+	out := r.Stdout
 	first, _, _ := strings.Cut(out, "\n")
 	if !strings.HasPrefix(first, "Demo scenario (no flags given):") {
 		t.Errorf("first line = %q, want it to say this is the demo scenario", first)
@@ -35,13 +29,18 @@ func TestDesignDemo(t *testing.T) {
 			t.Errorf("demo output lacks %q:\n%s", want, out)
 		}
 	}
+	// The general RF caution closes the list of cautions, once.
+	if n := strings.Count(out, rfCaution); n != 1 || !strings.HasSuffix(out, "  - "+rfCaution+"\n") {
+		t.Errorf("demo output has the RF caution %d times, want once as the last caution:\n%s", n, out)
+	}
 }
 
 func TestDesignJSON(t *testing.T) {
-	out, err := run(t, "--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--tolerance", "0.02mm", "--samples", "2000", "--format", "json")
-	if err != nil {
-		t.Fatal(err)
+	r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--tolerance", "0.02mm", "--samples", "2000", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
+	out := r.Stdout
 	var m map[string]any
 	if err := json.Unmarshal([]byte(out), &m); err != nil {
 		t.Fatalf("design --format json output is not JSON: %v\n%s", err, out)
@@ -57,15 +56,39 @@ func TestDesignJSON(t *testing.T) {
 			t.Errorf("design JSON sensitivity lacks key %q", k)
 		}
 	}
+	// An interior optimum that no bound holds: "limit" is present and null.
+	if l, ok := m["limit"]; !ok || l != nil {
+		t.Errorf("design JSON limit = %v (present %v), want null", l, ok)
+	}
+	if c, ok := m["cautions"].([]any); !ok || len(c) == 0 || c[len(c)-1] != rfCaution {
+		t.Errorf("design JSON cautions = %v, want the RF caution last", m["cautions"])
+	}
+}
+
+// TestDesignLimit checks that a bound holding the optimum is named in the
+// JSON "limit" (here --min-clearance, which --objective q keeps at 5 %).
+func TestDesignLimit(t *testing.T) {
+	r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--objective", "q",
+		"--min-clearance", "5%", "--samples", "100", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+	var o design.Output
+	if err := json.Unmarshal([]byte(r.Stdout), &o); err != nil {
+		t.Fatal(err)
+	}
+	if o.Limit == nil || *o.Limit == "" {
+		t.Errorf("design --objective q --min-clearance 5%%: limit = %v, want the bound named", o.Limit)
+	}
 }
 
 func TestDesignCSV(t *testing.T) {
-	out, err := run(t, "--mode", "TM010", "--freq", "3GHz", "--format", "csv")
-	if err != nil {
-		t.Fatal(err)
+	r := clitest.Run(t, "design", "--mode", "TM010", "--freq", "3GHz", "--format", "csv")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
-	if !strings.HasPrefix(out, "ratio_d_over_l,diameter_m,length_m,clearance_pct,worst_clearance_pct,q0\n") {
-		t.Errorf("design CSV header = %q", strings.SplitN(out, "\n", 2)[0])
+	if !strings.HasPrefix(r.Stdout, "ratio_d_over_l,diameter_m,length_m,clearance_pct,worst_clearance_pct,q0\n") {
+		t.Errorf("design CSV header = %q", strings.SplitN(r.Stdout, "\n", 2)[0])
 	}
 }
 
@@ -83,15 +106,15 @@ func TestDesignErrors(t *testing.T) {
 		{[]string{"--mode", "TM010", "--freq", "10GHz", "--tuning", "1%"}, 2, "p = 0"},
 		{[]string{"--mode", "TE011", "--freq", "10GHz", "--min-clearance", "20%"}, 1, "best clearance"},
 	} {
-		_, err := run(t, tc.args...)
-		if got := cmdutil.ExitStatus(err); got != tc.status || err == nil || !strings.Contains(err.Error(), tc.want) {
-			t.Errorf("design %v: status %d, error %v; want status %d mentioning %q", tc.args, got, err, tc.status, tc.want)
+		r := clitest.Run(t, append([]string{"design"}, tc.args...)...)
+		if r.Code != tc.status || !strings.Contains(r.Stderr, tc.want) {
+			t.Errorf("design %v: status %d, stderr %q; want status %d mentioning %q", tc.args, r.Code, r.Stderr, tc.status, tc.want)
 		}
 	}
 }
 
 func TestDemoIsLibraryCall(t *testing.T) {
-	s, err := Demo()
+	s, err := design.Demo()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -101,5 +124,12 @@ func TestDemoIsLibraryCall(t *testing.T) {
 	}
 	if r.Unloaded == nil || r.Design.Spread == nil || len(r.Cautions) == 0 {
 		t.Errorf("Demo().Run = %+v, want Q breakdown, spread and cautions", r)
+	}
+	// The result's cautions are the design's own; the general RF caution
+	// is added by the outputs (and the datasheet has its own safety notes).
+	for _, c := range r.Cautions {
+		if strings.Contains(c, cmdutil.CautionRF[1:]) {
+			t.Errorf("Demo().Run cautions include the general RF caution %q", c)
+		}
 	}
 }

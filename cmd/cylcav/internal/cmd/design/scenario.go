@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -32,7 +33,8 @@ type Result struct {
 	Design   cavity.Design
 	// Unloaded is the Q breakdown at the design; nil without a wall.
 	Unloaded *qfactor.Unloaded
-	// Cautions are plain sentences for people.
+	// Cautions are plain sentences for people about this design; the
+	// outputs of `cylcav design` add the general RF caution after them.
 	Cautions []string
 }
 
@@ -120,6 +122,22 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	}
 	r.Cautions = Cautions(r)
 	return r, nil
+}
+
+// progressSamples is the least number of Monte Carlo samples for which
+// RunWithProgress shows a progress bar.
+const progressSamples = 100000
+
+// RunWithProgress solves the scenario as Run does, with a progress bar on
+// io's error stream while a long tolerance analysis (progressSamples or
+// more samples) runs; the bar shows on a terminal only.
+func (s Scenario) RunWithProgress(io *cmdutil.IOStreams) (Result, error) {
+	if s.Spec.Tolerance.Samples < progressSamples {
+		return s.Run(nil)
+	}
+	bar := cmdutil.NewProgress(io, "tolerance analysis")
+	defer bar.Done()
+	return s.Run(bar.Update)
 }
 
 // Cautions returns the warnings a designer should read about a result.

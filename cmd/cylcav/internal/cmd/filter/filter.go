@@ -25,8 +25,6 @@ import (
 
 // Limits of the flags.
 const (
-	minFreq = 1e3  // Hz, --f0
-	maxFreq = 1e14 // Hz
 	// maxAttenuation bounds a rejection requirement: far beyond anything a
 	// filter can be measured to.
 	maxAttenuation = 300.0 // dB
@@ -96,10 +94,11 @@ func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comm
 	opts := &Options{IO: ios}
 	var (
 		f0, bw, reject, rl, ripple, zeros, response string
-		mode, fill, ratio, q0, holes, holeT, span   string
+		mode, ratio, q0, holes, holeT, span         string
 		order                                       int
 	)
 	var walls *q.WallFlags
+	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "filter --f0 F --bw B (--order N | --reject ATT@F[,...]) [flags]",
 		Short: "Design a coupled-cavity bandpass filter: coupling matrix, cavities, response",
@@ -156,7 +155,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := opts.parseSpec(changed, f0, bw, order, reject, rl, ripple, zeros, response); err != nil {
 				return err
 			}
-			if err := opts.parseCavities(changed, walls, mode, fill, ratio, q0, holes, holeT); err != nil {
+			if err := opts.parseCavities(changed, walls, geo, mode, ratio, q0, holes, holeT); err != nil {
 				return err
 			}
 			if err := opts.parseOutput(span); err != nil {
@@ -178,7 +177,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&zeros, "zeros", "", "transmission zeros outside the passband, e.g. 10.18GHz,9.8GHz")
 	f.StringVar(&response, "response", "chebyshev", "response family: chebyshev|butterworth")
 	f.StringVar(&mode, "mode", "", "cavity mode of every resonator, e.g. TE011 (default TE011 with --wall/--fill)")
-	f.StringVar(&fill, "fill", "", "fill: library name (air, ptfe, ...) or eps=...,tand=... (default vacuum)")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Fill: "fill: library name (air, ptfe, ...) or eps=...,tand=... (default vacuum)",
+	})
 	walls = q.AddWallFlags(cmd)
 	f.StringVar(&ratio, "ratio", "", "D/L of every cavity (default: the design optimiser's, largest clearance)")
 	f.StringVar(&holes, "holes", "", "size the main-line couplings as circular holes in the common end|side wall (Bethe)")
@@ -207,7 +208,7 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	if f0S == "" {
 		return cmdutil.Usagef("--f0 is required, e.g. --f0 10GHz")
 	}
-	f0, err := cmdutil.Frequency("f0", f0S, minFreq, maxFreq)
+	f0, err := cmdutil.Frequency("f0", f0S, cmdutil.MinFrequency, cmdutil.MaxFrequency)
 	if err != nil {
 		return err
 	}
@@ -275,7 +276,7 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 
 	if zerosS != "" {
 		for _, item := range strings.Split(zerosS, ",") {
-			fz, err := cmdutil.Frequency("zeros", strings.TrimSpace(item), minFreq, maxFreq)
+			fz, err := cmdutil.Frequency("zeros", strings.TrimSpace(item), cmdutil.MinFrequency, cmdutil.MaxFrequency)
 			if err != nil {
 				return err
 			}
@@ -338,9 +339,9 @@ func parseRejection(item string, f0, bw float64, band string) (bandpass.Rejectio
 	if err != nil {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, err)
 	}
-	if !(f >= minFreq && f <= maxFreq) {
+	if !(f >= cmdutil.MinFrequency && f <= cmdutil.MaxFrequency) {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("frequency must be between %s and %s",
-			physics.FormatFrequency(minFreq, 4), physics.FormatFrequency(maxFreq, 4)))
+			physics.FormatFrequency(cmdutil.MinFrequency, 4), physics.FormatFrequency(cmdutil.MaxFrequency, 4)))
 	}
 	if math.Abs(bandpass.LowpassOmega(f, f0, bw)) <= 1 {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("frequency lies in the passband %s; rejections must lie outside it", band))
@@ -362,7 +363,7 @@ func decibels(flag, v string, lo, hi float64) (float64, error) {
 }
 
 // parseCavities validates the realisation flags.
-func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags, modeS, fillS, ratioS, q0S, holesS, holeTS string) error {
+func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags, geo *cmdutil.GeometryFlags, modeS, ratioS, q0S, holesS, holeTS string) error {
 	wallGiven := walls.Given()
 	opts.Cavities = changed("mode") || wallGiven || changed("fill") || changed("ratio") || changed("holes")
 	if q0S != "" {
@@ -399,17 +400,13 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 		}
 		opts.Mode = m
 	}
+	// --fill given empty counts as absent (vacuum), as this command's other
+	// string flags do.
 	opts.Fill = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
-	if fillS != "" {
-		d, err := physics.ParseDielectric(fillS)
+	if geo.Text("fill") != "" {
+		d, err := geo.Dielectric()
 		if err != nil {
-			return cmdutil.FlagError("fill", fillS, err)
-		}
-		if err := (cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}).Validate(); err != nil {
-			return cmdutil.FlagError("fill", fillS, err)
-		}
-		if err := (qfactor.Fill{TanDelta: d.TanDelta, TanDeltaM: d.TanDeltaM}).Validate(); err != nil {
-			return cmdutil.FlagError("fill", fillS, err)
+			return err
 		}
 		opts.Fill = d
 	}

@@ -16,8 +16,8 @@ import (
 	"strings"
 	"testing"
 
+	"cylcav/cmd/cylcav/internal/clitest"
 	filtercmd "cylcav/cmd/cylcav/internal/cmd/filter"
-	"cylcav/cmd/cylcav/internal/cmd/root"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	bandpass "cylcav/filter"
 )
@@ -42,23 +42,21 @@ const (
 	cohnTol = 0.01
 )
 
-// run runs cylcav in-process with args and returns stdout, stderr and the
-// exit status.
-func run(t testing.TB, args ...string) (string, string, int) {
+// run runs `cylcav filter args...` in-process.
+func run(t testing.TB, args ...string) clitest.Result {
 	t.Helper()
-	var out, errOut bytes.Buffer
-	code := root.Main(cmdutil.Test(&out, &errOut), append([]string{"filter"}, args...))
-	return out.String(), errOut.String(), code
+	return clitest.Run(t, append([]string{"filter"}, args...)...)
 }
 
-// mustRun runs cylcav and fails the test unless it succeeds.
+// mustRun runs `cylcav filter args...` and fails the test unless it
+// succeeds.
 func mustRun(t testing.TB, args ...string) string {
 	t.Helper()
-	out, errOut, code := run(t, args...)
-	if code != 0 {
-		t.Fatalf("cylcav filter %s: exit %d, stderr %q", strings.Join(args, " "), code, errOut)
+	r := run(t, args...)
+	if r.Code != 0 {
+		t.Fatalf("cylcav filter %s: exit %d, stderr %q", strings.Join(args, " "), r.Code, r.Stderr)
 	}
-	return out
+	return r.Stdout
 }
 
 // The invented scenario of these tests: a channel filter for a 10 GHz
@@ -171,7 +169,7 @@ func TestJSONKeys(t *testing.T) {
 
 // TestCavities checks the realised cavities against the closed form of the
 // TE011 resonance, f = c/(2 pi) sqrt((j'_01/a)^2 + (pi/L)^2) (Pozar,
-// Microwave Engineering, 4th ed., sec. 6.7; j'_01 = 3.8317059702075123,
+// Microwave Engineering, 4th ed., sec. 6.4; j'_01 = 3.8317059702075123,
 // DLMF Table 10.21.1, recalled from memory).
 func TestCavities(t *testing.T) {
 	m := decode(t, mustRun(t, args("--mode", "TE011", "--wall", "copper", "--format", "json")...))
@@ -463,16 +461,16 @@ func TestBadInput(t *testing.T) {
 		dir := t.TempDir()
 		ts, pl := filepath.Join(dir, "x.s2p"), filepath.Join(dir, "x.png")
 		a := append(slices.Clone(c.args), "--touchstone", ts, "--plot", pl)
-		out, errOut, code := run(t, a...)
-		if code != 2 {
-			t.Errorf("cylcav filter %s: exit %d, want 2 (stderr %q)", strings.Join(c.args, " "), code, errOut)
+		r := run(t, a...)
+		if r.Code != 2 {
+			t.Errorf("cylcav filter %s: exit %d, want 2 (stderr %q)", strings.Join(c.args, " "), r.Code, r.Stderr)
 			continue
 		}
-		if out != "" {
-			t.Errorf("cylcav filter %s printed %q on stdout, want nothing", strings.Join(c.args, " "), out)
+		if r.Stdout != "" {
+			t.Errorf("cylcav filter %s printed %q on stdout, want nothing", strings.Join(c.args, " "), r.Stdout)
 		}
-		if strings.Count(errOut, "\n") != 1 || !strings.Contains(errOut, c.want) {
-			t.Errorf("cylcav filter %s: stderr %q, want one line naming %q", strings.Join(c.args, " "), errOut, c.want)
+		if strings.Count(r.Stderr, "\n") != 1 || !strings.Contains(r.Stderr, c.want) {
+			t.Errorf("cylcav filter %s: stderr %q, want one line naming %q", strings.Join(c.args, " "), r.Stderr, c.want)
 		}
 		for _, p := range []string{ts, pl} {
 			if _, err := os.Stat(p); err == nil {
@@ -482,8 +480,8 @@ func TestBadInput(t *testing.T) {
 	}
 	// File names with the wrong extension.
 	for _, c := range [][]string{{"--touchstone", "x.s3p"}, {"--plot", "x.gif"}, {"--touchstone", "same.s2p", "--plot", "same.s2p"}} {
-		if _, errOut, code := run(t, args(c...)...); code != 2 {
-			t.Errorf("cylcav filter ... %s: exit %d, want 2 (%q)", strings.Join(c, " "), code, errOut)
+		if r := run(t, args(c...)...); r.Code != 2 {
+			t.Errorf("cylcav filter ... %s: exit %d, want 2 (%q)", strings.Join(c, " "), r.Code, r.Stderr)
 		}
 	}
 }
@@ -494,9 +492,9 @@ func TestForce(t *testing.T) {
 	if err := os.WriteFile(pl, []byte("old"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	_, errOut, code := run(t, args("--touchstone", ts, "--plot", pl)...)
-	if code != 2 || !strings.Contains(errOut, "--force") {
-		t.Errorf("existing plot without --force: exit %d, stderr %q; want 2 and a hint to --force", code, errOut)
+	r := run(t, args("--touchstone", ts, "--plot", pl)...)
+	if r.Code != 2 || !strings.Contains(r.Stderr, "--force") {
+		t.Errorf("existing plot without --force: exit %d, stderr %q; want 2 and a hint to --force", r.Code, r.Stderr)
 	}
 	if b, _ := os.ReadFile(pl); string(b) != "old" {
 		t.Error("the existing plot was changed without --force")
@@ -513,9 +511,8 @@ func TestForce(t *testing.T) {
 	}
 	// A write that fails after the first file leaves nothing behind.
 	ts2 := filepath.Join(dir, "second.s2p")
-	_, _, code = run(t, args("--touchstone", ts2, "--plot", filepath.Join(dir, "missing", "p.svg"))...)
-	if code != 1 {
-		t.Errorf("plot into a missing directory: exit %d, want 1", code)
+	if r := run(t, args("--touchstone", ts2, "--plot", filepath.Join(dir, "missing", "p.svg"))...); r.Code != 1 {
+		t.Errorf("plot into a missing directory: exit %d, want 1", r.Code)
 	}
 	if _, err := os.Stat(ts2); err == nil {
 		t.Error("the Touchstone file was left behind after the plot failed")
@@ -559,8 +556,8 @@ func BenchmarkFilterCLI(b *testing.B) {
 		"--zeros", "9.8GHz,10.18GHz", "--mode", "TE011", "--wall", "copper", "--plot", path, "--force"}
 	b.ReportAllocs()
 	for b.Loop() {
-		if _, errOut, code := run(b, a...); code != 0 {
-			b.Fatalf("exit %d: %s", code, errOut)
+		if r := run(b, a...); r.Code != 0 {
+			b.Fatalf("exit %d: %s", r.Code, r.Stderr)
 		}
 	}
 }

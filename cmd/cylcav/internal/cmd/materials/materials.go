@@ -292,6 +292,6 @@ func writeTables(opts *Options, lib libraryJSON) error {
 	for i, s := range src.list {
 		fmt.Fprintf(out, "[%d] %s\n", i+1, s)
 	}
-	_, err := fmt.Fprintln(out, "\nNames accept aliases and ignore case (cu, ofhc, al6061, ss304, teflon); give measured values with --wall sigma=... or --fill eps=...,tand=...")
+	_, err := fmt.Fprintln(out, "\nNames accept aliases and ignore case (cu, ofhc, al6061, ss304, ptfe); give measured values with --wall sigma=... or --fill eps=...,tand=...")
 	return err
 }

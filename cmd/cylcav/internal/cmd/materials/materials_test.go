@@ -1,4 +1,4 @@
-package materials
+package materials_test
 
 import (
 	"bytes"
@@ -7,28 +7,25 @@ import (
 	"strings"
 	"testing"
 
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/materials"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 )
 
-// run executes `cylcav materials args...` and returns stdout and the error.
-func run(t *testing.T, args ...string) (string, error) {
+// run executes `cylcav materials args...` and returns its standard output,
+// failing the test unless it succeeds.
+func run(t *testing.T, args ...string) string {
 	t.Helper()
-	var out, errOut bytes.Buffer
-	cmd := NewCmdMaterials(cmdutil.Test(&out, &errOut), nil)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.Execute()
-	return out.String(), err
+	r := clitest.Run(t, append([]string{"materials"}, args...)...)
+	if r.Code != 0 {
+		t.Fatalf("cylcav materials %v: exit %d, stderr %q", args, r.Code, r.Stderr)
+	}
+	return r.Stdout
 }
 
 func TestTable(t *testing.T) {
-	out, err := run(t)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out := run(t)
 	for _, c := range physics.Conductors() {
 		if !strings.Contains(out, "\n"+c.Name+" ") {
 			t.Errorf("table lacks conductor %q", c.Name)
@@ -49,17 +46,14 @@ func TestTable(t *testing.T) {
 	if refs == 0 || refs > len(physics.Conductors())+len(physics.Dielectrics()) {
 		t.Errorf("table has %d source lines", refs)
 	}
-	only, _ := run(t, "--kind", "dielectric")
+	only := run(t, "--kind", "dielectric")
 	if strings.Contains(only, "Wall metals") || !strings.Contains(only, "sapphire-par") {
 		t.Errorf("--kind dielectric table:\n%s", only)
 	}
 }
 
 func TestJSON(t *testing.T) {
-	out, err := run(t, "--format", "json")
-	if err != nil {
-		t.Fatal(err)
-	}
+	out := run(t, "--format", "json")
 	var lib struct {
 		Conductors  []map[string]any `json:"conductors"`
 		Dielectrics []map[string]any `json:"dielectrics"`
@@ -77,17 +71,14 @@ func TestJSON(t *testing.T) {
 	if ptfe := lib.Dielectrics[2]; ptfe["name"] != "ptfe" || ptfe["tan_delta_freq_hz"] != 1e10 || ptfe["tc_eps_per_k"] != nil {
 		t.Errorf("ptfe = %v, want tan_delta_freq_hz 1e10 and tc_eps_per_k null", ptfe)
 	}
-	only, _ := run(t, "--kind", "conductor", "--format", "json")
+	only := run(t, "--kind", "conductor", "--format", "json")
 	if strings.Contains(only, `"dielectrics"`) {
 		t.Errorf("--kind conductor JSON lists dielectrics")
 	}
 }
 
 func TestCSV(t *testing.T) {
-	out, err := run(t, "--format", "csv")
-	if err != nil {
-		t.Fatal(err)
-	}
+	out := run(t, "--format", "csv")
 	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
 	if err != nil {
 		t.Fatalf("CSV output does not parse: %v", err)
@@ -95,31 +86,31 @@ func TestCSV(t *testing.T) {
 	if got, want := len(recs), 1+len(physics.Conductors())+len(physics.Dielectrics()); got != want {
 		t.Fatalf("CSV has %d records, want %d", got, want)
 	}
-	if strings.Join(recs[0], ",") != strings.Join(csvHeader, ",") {
+	if strings.Join(recs[0], ",") != strings.Join(materials.CSVHeader, ",") {
 		t.Errorf("CSV header = %v", recs[0])
 	}
 	for _, r := range recs[1:] {
-		if len(r) != len(csvHeader) || r[len(r)-1] == "" {
-			t.Errorf("CSV row %v: want %d fields and a source", r[:2], len(csvHeader))
+		if len(r) != len(materials.CSVHeader) || r[len(r)-1] == "" {
+			t.Errorf("CSV row %v: want %d fields and a source", r[:2], len(materials.CSVHeader))
 		}
 	}
 }
 
 func TestBadInput(t *testing.T) {
 	for _, args := range [][]string{{"--kind", "plasma"}, {"--format", "xml"}} {
-		_, err := run(t, args...)
-		if err == nil || !cmdutil.IsUsage(err) || cmdutil.ExitStatus(err) != 2 {
-			t.Errorf("materials %v: error %v, want a usage error (exit 2)", args, err)
+		r := clitest.Run(t, append([]string{"materials"}, args...)...)
+		if r.Code != 2 {
+			t.Errorf("materials %v: exit %d, stderr %q; want a usage error (exit 2)", args, r.Code, r.Stderr)
 			continue
 		}
-		if !strings.Contains(err.Error(), args[1]) {
-			t.Errorf("materials %v: error %q does not name the value", args, err)
+		if !strings.Contains(r.Stderr, args[1]) {
+			t.Errorf("materials %v: error %q does not name the value", args, r.Stderr)
 		}
 	}
-	var got *Options
-	cmd := NewCmdMaterials(cmdutil.Test(&bytes.Buffer{}, &bytes.Buffer{}), func(o *Options) error { got = o; return nil })
+	var got *materials.Options
+	cmd := materials.NewCmdMaterials(cmdutil.Test(&bytes.Buffer{}, &bytes.Buffer{}), func(o *materials.Options) error { got = o; return nil })
 	cmd.SetArgs([]string{"--kind", "Fill"})
-	if err := cmd.Execute(); err != nil || got == nil || got.Kind != Dielectric || got.Format != cmdutil.Table {
+	if err := cmd.Execute(); err != nil || got == nil || got.Kind != materials.Dielectric || got.Format != cmdutil.Table {
 		t.Errorf("--kind Fill: options %+v, error %v", got, err)
 	}
 }

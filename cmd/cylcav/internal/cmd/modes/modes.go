@@ -25,20 +25,13 @@ const DefaultCount = 20
 // 4.5897 GHz, 100 kHz steps at 10 GHz.
 const DefaultDigits = 5
 
-// Frequency limits accepted by --fmax: wider than any cavity cylcav can
-// hold (MinSize..MaxSize), narrow enough to catch unit slips.
-const (
-	minFreq = 1e3  // Hz
-	maxFreq = 1e14 // Hz
-)
-
 // Options are the parsed and validated flags of `cylcav modes`.
 type Options struct {
 	IO *cmdutil.IOStreams
 
 	Cavity cavity.Cavity
 	// FillName names the fill for people: a library name, "user" for
-	// values given as eps=..., or "" for the default (vacuum).
+	// values given as eps=..., or "vacuum" for the default.
 	FillName string
 	// FMax, when > 0, lists every mode at or below it (Hz); otherwise
 	// Count modes are listed.
@@ -60,8 +53,9 @@ type Options struct {
 // command's work (tests use it to inspect the parsed options).
 func NewCmdModes(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var diameter, radius, length, fill, fmax string
+	var fmax string
 	var checkFormat func() error
+	var geo *cmdutil.GeometryFlags
 	var walls *q.WallFlags
 	cmd := &cobra.Command{
 		Use:   "modes (--diameter D | --radius A) --length L [--fill SPEC] [--fmax F | --count K]",
@@ -88,7 +82,7 @@ q_wall from the wall loss, q_fill from the loss tangent of --fill (e.g.
 --fill eps=2.08,tand=4e-4), and q0; a Q with no loss behind it is "inf" in
 the table, empty in CSV and null in JSON. See 'cylcav q' for one mode in
 detail.`, DefaultCount),
-		Example: `  # The 14 lowest modes of a 50 mm x 50 mm air-filled cavity
+		Example: `  # The 14 lowest modes of an empty (vacuum) 50 mm x 50 mm cavity
   $ cylcav modes --diameter 50mm --length 50mm --count 14
   cavity: radius 25 mm, diameter 50 mm, length 50 mm, fill vacuum (eps_r 1, mu_r 1)
   modes TE_nmp / TM_nmp: n azimuthal, m radial, p axial; the 14 lowest
@@ -105,42 +99,17 @@ detail.`, DefaultCount),
   $ cylcav modes --radius 27.4mm --length 54.8mm --fill ptfe --fmax 8GHz --format json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			var err error
-			fl := cmd.Flags()
-			switch {
-			case fl.Changed("diameter") && fl.Changed("radius"):
-				return cmdutil.Usagef("--diameter and --radius both given; give one of them")
-			case fl.Changed("diameter"):
-				var d float64
-				if d, err = cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize); err != nil {
-					return err
-				}
-				opts.Cavity.Radius = d / 2
-			case fl.Changed("radius"):
-				if opts.Cavity.Radius, err = cmdutil.Length("radius", radius, cavity.MinSize, cavity.MaxSize); err != nil {
-					return err
-				}
-			default:
-				return cmdutil.Usagef("missing the cavity size: give --diameter or --radius (e.g. --diameter 50mm)")
-			}
-			if !fl.Changed("length") {
-				return cmdutil.Usagef("missing --length, the cavity length between the end plates (e.g. --length 50mm)")
-			}
-			if opts.Cavity.Length, err = cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize); err != nil {
+			c, fill, err := geo.Cavity()
+			if err != nil {
 				return err
 			}
-			if fl.Changed("fill") {
-				f, name, err := parseFill(fill)
-				if err != nil {
-					return err
-				}
-				opts.Cavity.EpsR, opts.Cavity.MuR, opts.FillName = f.EpsR, f.MuR, name
-			}
+			opts.Cavity, opts.FillName = c, fill.Name
+			fl := cmd.Flags()
 			switch {
 			case fl.Changed("fmax") && fl.Changed("count"):
 				return cmdutil.Usagef("--fmax and --count both given; give one of them")
 			case fl.Changed("fmax"):
-				if opts.FMax, err = cmdutil.Frequency("fmax", fmax, minFreq, maxFreq); err != nil {
+				if opts.FMax, err = cmdutil.Frequency("fmax", fmax, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
 					return err
 				}
 				opts.FMaxText = fmax
@@ -151,7 +120,7 @@ detail.`, DefaultCount),
 			default:
 				opts.Count = DefaultCount
 			}
-			if opts.Loss, err = parseLoss(walls, fill, fl.Changed("fill")); err != nil {
+			if opts.Loss, err = parseLoss(walls, fill); err != nil {
 				return err
 			}
 			if opts.Digits < 3 || opts.Digits > 17 {
@@ -166,31 +135,24 @@ detail.`, DefaultCount),
 			return runModes(opts)
 		},
 	}
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter: "inner diameter D = 2a (e.g. 50mm)",
+		Radius:   "inner radius a (instead of --diameter)",
+		Length:   "inner length L between the end plates (e.g. 50mm)",
+		Fill:     "fill: material name or eps=E[,mu=M] (default vacuum)",
+		SizeErrors: cmdutil.SizeErrors{
+			Both:     "--diameter and --radius both given; give one of them",
+			NoSize:   "missing the cavity size: give --diameter or --radius (e.g. --diameter 50mm)",
+			NoLength: "missing --length, the cavity length between the end plates (e.g. --length 50mm)",
+		},
+	})
 	fl := cmd.Flags()
-	fl.StringVar(&diameter, "diameter", "", "inner diameter D = 2a (e.g. 50mm)")
-	fl.StringVar(&radius, "radius", "", "inner radius a (instead of --diameter)")
-	fl.StringVar(&length, "length", "", "inner length L between the end plates (e.g. 50mm)")
-	fl.StringVar(&fill, "fill", "", "fill: material name or eps=E[,mu=M] (default vacuum)")
 	fl.StringVar(&fmax, "fmax", "", "list every mode at or below this frequency (e.g. 12GHz)")
 	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
 	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
 	walls = q.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
-}
-
-// parseFill reads --fill through physics.ParseDielectric and checks it
-// against the cavity's fill limits.
-func parseFill(spec string) (cavity.Fill, string, error) {
-	d, err := physics.ParseDielectric(spec)
-	if err != nil {
-		return cavity.Fill{}, "", cmdutil.FlagError("fill", spec, err)
-	}
-	f := cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}
-	if err := f.Validate(); err != nil {
-		return cavity.Fill{}, "", cmdutil.FlagError("fill", spec, err)
-	}
-	return f, d.Name, nil
 }
 
 func runModes(opts *Options) error {
@@ -201,7 +163,7 @@ func runModes(opts *Options) error {
 	)
 	if opts.FMax > 0 {
 		list, err = opts.Cavity.Modes(opts.FMax)
-		what = "every mode up to " + short(physics.FormatFrequency(opts.FMax, 6))
+		what = "every mode up to " + cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6))
 		if err != nil {
 			return cmdutil.FlagError("fmax", opts.FMaxText, err)
 		}
@@ -354,21 +316,11 @@ func DescribeCavity(c cavity.Cavity, fillName string) string {
 		fill = fmt.Sprintf("fill eps_r %s, mu_r %s", num(one(f.EpsR)), num(one(f.MuR)))
 	}
 	return fmt.Sprintf("radius %s, diameter %s, length %s, %s",
-		short(physics.FormatLength(c.Radius, 6)), short(physics.FormatLength(c.Diameter(), 6)),
-		short(physics.FormatLength(c.Length, 6)), fill)
+		cmdutil.TrimZeros(physics.FormatLength(c.Radius, 6)), cmdutil.TrimZeros(physics.FormatLength(c.Diameter(), 6)),
+		cmdutil.TrimZeros(physics.FormatLength(c.Length, 6)), fill)
 }
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
-
-// short drops trailing zeros from a formatted quantity ("25.0000 mm" ->
-// "25 mm") for header lines, where columns need not align.
-func short(s string) string {
-	v, unit, ok := strings.Cut(s, " ")
-	if !ok || !strings.Contains(v, ".") {
-		return s
-	}
-	return strings.TrimRight(strings.TrimRight(v, "0"), ".") + " " + unit
-}
 
 func writeTable(w io.Writer, opts *Options, rows []Row, what string) error {
 	if _, err := fmt.Fprintf(w, "cavity: %s\nmodes TE_nmp / TM_nmp: n azimuthal, m radial, p axial; %s\n",

@@ -1,28 +1,17 @@
 package modes_test
 
 import (
-	"bytes"
 	"encoding/csv"
 	"encoding/json"
 	"math"
-	"regexp"
 	"slices"
 	"strings"
 	"testing"
 
+	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/modes"
-	"cylcav/cmd/cylcav/internal/cmd/root"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
-
-// cylcav runs the command line in-process and returns standard output,
-// standard error and the exit status.
-func cylcav(t *testing.T, args ...string) (stdout, stderr string, code int) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	code = root.Main(cmdutil.Test(&out, &errOut), args)
-	return out.String(), errOut.String(), code
-}
 
 // Reference frequencies of the 25 mm radius, 50 mm long air cavity, from
 // testdata/cavity/modes.txt (mpmath 1.3.0, 40 digits); the first three are
@@ -53,10 +42,11 @@ var air25x50 = []struct {
 const fTol = 2e-14
 
 func TestModesTable(t *testing.T) {
-	out, errOut, code := cylcav(t, "modes", "--diameter", "50mm", "--length", "50mm", "--count", "14")
-	if code != 0 || errOut != "" {
-		t.Fatalf("exit %d, stderr %q", code, errOut)
+	r := clitest.Run(t, "modes", "--diameter", "50mm", "--length", "50mm", "--count", "14")
+	if r.Code != 0 || r.Stderr != "" {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
+	out := r.Stdout
 	lines := strings.Split(strings.TrimRight(out, "\n"), "\n")
 	if want := "cavity: radius 25 mm, diameter 50 mm, length 50 mm, fill vacuum (eps_r 1, mu_r 1)"; lines[0] != want {
 		t.Errorf("line 1 = %q, want %q", lines[0], want)
@@ -87,10 +77,11 @@ func TestModesTable(t *testing.T) {
 }
 
 func TestModesJSON(t *testing.T) {
-	out, _, code := cylcav(t, "modes", "--diameter", "50mm", "--length", "50mm", "--count", "14", "--format", "json")
-	if code != 0 {
-		t.Fatalf("exit %d", code)
+	r := clitest.Run(t, "modes", "--diameter", "50mm", "--length", "50mm", "--count", "14", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d", r.Code)
 	}
+	out := r.Stdout
 	var v map[string]json.RawMessage
 	if err := json.Unmarshal([]byte(out), &v); err != nil {
 		t.Fatalf("invalid JSON: %v\n%s", err, out)
@@ -163,10 +154,11 @@ func mapsEqual(a, b map[string]float64) bool {
 }
 
 func TestModesCSV(t *testing.T) {
-	out, _, code := cylcav(t, "modes", "--radius", "25mm", "--length", "5cm", "--fmax", "9.5GHz", "--format", "csv")
-	if code != 0 {
-		t.Fatalf("exit %d", code)
+	r := clitest.Run(t, "modes", "--radius", "25mm", "--length", "5cm", "--fmax", "9.5GHz", "--format", "csv")
+	if r.Code != 0 {
+		t.Fatalf("exit %d", r.Code)
 	}
+	out := r.Stdout
 	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
 	if err != nil {
 		t.Fatal(err)
@@ -193,20 +185,21 @@ func TestModesCSV(t *testing.T) {
 
 func TestModesFill(t *testing.T) {
 	// A fill of eps_r scales every frequency by 1/sqrt(eps_r) (Pozar,
-	// Microwave Engineering, 4th ed., sec. 6.7): eps_r = 4 halves them.
-	out, _, code := cylcav(t, "modes", "--diameter", "50mm", "--length", "50mm", "--fill", "eps=4", "--count", "1", "--digits", "8")
-	if code != 0 {
-		t.Fatalf("exit %d", code)
+	// Microwave Engineering, 4th ed., sec. 6.4): eps_r = 4 halves them.
+	r := clitest.Run(t, "modes", "--diameter", "50mm", "--length", "50mm", "--fill", "eps=4", "--count", "1", "--digits", "8")
+	if r.Code != 0 {
+		t.Fatalf("exit %d", r.Code)
 	}
+	out := r.Stdout
 	if !strings.Contains(out, "fill eps_r 4, mu_r 1") || !strings.Contains(out, "TM010  TM      0  1  0  2.2948506 GHz") {
 		t.Errorf("output:\n%s\nwant fill eps_r 4 and TM010 at 2.2948506 GHz (half of 4.5897011)", out)
 	}
-	out, _, _ = cylcav(t, "modes", "--diameter", "50mm", "--length", "50mm", "--fill", "ptfe", "--count", "1")
+	out = clitest.Run(t, "modes", "--diameter", "50mm", "--length", "50mm", "--fill", "ptfe", "--count", "1").Stdout
 	if !strings.Contains(out, "fill ptfe (eps_r 2.08, mu_r 1)") {
 		t.Errorf("output:\n%s\nwant the library fill named", out)
 	}
 	// Default count.
-	out, _, _ = cylcav(t, "modes", "--diameter", "50mm", "--length", "50mm")
+	out = clitest.Run(t, "modes", "--diameter", "50mm", "--length", "50mm").Stdout
 	if n := strings.Count(out, "\n") - 3; n != modes.DefaultCount {
 		t.Errorf("default listing has %d rows, want %d", n, modes.DefaultCount)
 	}
@@ -216,108 +209,49 @@ func TestModesFill(t *testing.T) {
 // on standard error naming the flag, the value and what is valid, with
 // nothing on standard output.
 func TestModesBadInput(t *testing.T) {
-	for _, tc := range []struct {
-		args []string
-		want []string
-	}{
-		{[]string{"--diameter", "0", "--length", "50mm"}, []string{`--diameter "0"`, "must be between"}},
-		{[]string{"--diameter", "-3mm", "--length", "50mm"}, []string{`--diameter "-3mm"`, "must be between"}},
-		{[]string{"--diameter", "NaN", "--length", "50mm"}, []string{`--diameter "NaN"`}},
-		{[]string{"--radius", "Inf", "--length", "50mm"}, []string{`--radius "Inf"`}},
-		{[]string{"--diameter", "50km", "--length", "50mm"}, []string{`--diameter "50km"`}},
-		{[]string{"--diameter", "50furlong", "--length", "50mm"}, []string{`--diameter "50furlong"`, "unit"}},
-		{[]string{"--diameter", "50mm", "--length", "1e9"}, []string{`--length "1e9"`, "must be between"}},
-		{[]string{"--diameter", "50mm", "--radius", "25mm", "--length", "50mm"}, []string{"--diameter and --radius"}},
-		{[]string{"--length", "50mm"}, []string{"--diameter or --radius"}},
-		{[]string{"--diameter", "50mm"}, []string{"missing --length"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--count", "0"}, []string{`--count "0"`, "between 1 and"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--count", "x"}, []string{`"x"`, "--count"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fmax", "-1GHz"}, []string{`--fmax "-1GHz"`, "must be between"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fmax", "10GHz", "--count", "3"}, []string{"--fmax and --count"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fmax", "50THz"}, []string{`--fmax "50THz"`, "above 1000"}},
-		{[]string{"--diameter", "2m", "--length", "2m", "--fmax", "30GHz"}, []string{`--fmax "30GHz"`, "more than", "listing limit"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fill", "eps=0.5"}, []string{`--fill "eps=0.5"`, "between 1 and"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fill", "cheese"}, []string{`--fill "cheese"`, "available"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--format", "xml"}, []string{`--format "xml"`, "table|json|csv"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--digits", "40"}, []string{`--digits "40"`, "between 3 and 17"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "extra"}, []string{"extra"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--colour"}, []string{"--colour"}},
+	clitest.CheckBadInput(t, "modes", []clitest.BadCase{
+		{Args: []string{"--diameter", "0", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "0"`, "must be between"}},
+		{Args: []string{"--diameter", "-3mm", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "-3mm"`, "must be between"}},
+		{Args: []string{"--diameter", "NaN", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "NaN"`}},
+		{Args: []string{"--radius", "Inf", "--length", "50mm"}, Code: 2, Want: []string{`--radius "Inf"`}},
+		{Args: []string{"--diameter", "50km", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "50km"`}},
+		{Args: []string{"--diameter", "50furlong", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "50furlong"`, "unit"}},
+		{Args: []string{"--diameter", "50mm", "--length", "1e9"}, Code: 2, Want: []string{`--length "1e9"`, "must be between"}},
+		{Args: []string{"--diameter", "50mm", "--radius", "25mm", "--length", "50mm"}, Code: 2, Want: []string{"--diameter and --radius"}},
+		{Args: []string{"--length", "50mm"}, Code: 2, Want: []string{"--diameter or --radius"}},
+		{Args: []string{"--diameter", "50mm"}, Code: 2, Want: []string{"missing --length"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--count", "0"}, Code: 2, Want: []string{`--count "0"`, "between 1 and"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--count", "x"}, Code: 2, Want: []string{`"x"`, "--count"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fmax", "-1GHz"}, Code: 2, Want: []string{`--fmax "-1GHz"`, "must be between"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fmax", "10GHz", "--count", "3"}, Code: 2, Want: []string{"--fmax and --count"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fmax", "50THz"}, Code: 2, Want: []string{`--fmax "50THz"`, "above 1000"}},
+		{Args: []string{"--diameter", "2m", "--length", "2m", "--fmax", "30GHz"}, Code: 2, Want: []string{`--fmax "30GHz"`, "more than", "listing limit"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fill", "eps=0.5"}, Code: 2, Want: []string{`--fill "eps=0.5"`, "between 1 and"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fill", "cheese"}, Code: 2, Want: []string{`--fill "cheese"`, "available"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--format", "xml"}, Code: 2, Want: []string{`--format "xml"`, "table|json|csv"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--digits", "40"}, Code: 2, Want: []string{`--digits "40"`, "between 3 and 17"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "extra"}, Code: 2, Want: []string{"extra"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--colour"}, Code: 2, Want: []string{"--colour"}},
 		// Added by the CLI review: empty and malformed values are errors,
 		// never "flag absent".
-		{[]string{"--diameter", "", "--length", "50mm"}, []string{`--diameter ""`, "empty"}},
-		{[]string{"--diameter", "1e400", "--length", "50mm"}, []string{`--diameter "1e400"`, "out of range"}},
-		{[]string{"--diameter", "1nm", "--length", "50mm"}, []string{`--diameter "1nm"`, "must be between"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fmax", "10GHzz"}, []string{`--fmax "10GHzz"`, "unknown unit"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--count", "1e3"}, []string{`--count "1e3"`, "not a whole number"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", ""}, []string{`--wall ""`, "empty"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "sigma="}, []string{`--wall "sigma="`, "empty"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "sigma=abc"}, []string{`--wall "sigma=abc"`, "no number"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "iacs=500%"}, []string{`--wall "iacs=500%"`, "between 0.01 % and 200 %"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--fill", "eps=2,tand=-1"}, []string{`--fill "eps=2,tand=-1"`, "between 0 and 1"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--temperature", "-300C"}, []string{`--temperature "-300C"`, "below absolute zero"}},
-		{[]string{"--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--temperature", "4K"}, []string{`--temperature "4K"`, "-50.00 C to 200.0 C"}},
-	} {
-		args := append([]string{"modes"}, tc.args...)
-		out, errOut, code := cylcav(t, args...)
-		if code != 2 {
-			t.Errorf("cylcav %s: exit %d, want 2 (stderr %q)", strings.Join(args, " "), code, errOut)
-		}
-		if out != "" {
-			t.Errorf("cylcav %s: stdout %.200q..., want nothing", strings.Join(args, " "), out)
-		}
-		if strings.Count(errOut, "\n") != 1 {
-			t.Errorf("cylcav %s: stderr %q, want one line", strings.Join(args, " "), errOut)
-		}
-		for _, w := range tc.want {
-			if !strings.Contains(errOut, w) {
-				t.Errorf("cylcav %s: stderr %q, want it to contain %q", strings.Join(args, " "), errOut, w)
-			}
-		}
-	}
+		{Args: []string{"--diameter", "", "--length", "50mm"}, Code: 2, Want: []string{`--diameter ""`, "empty"}},
+		{Args: []string{"--diameter", "1e400", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "1e400"`, "out of range"}},
+		{Args: []string{"--diameter", "1nm", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "1nm"`, "must be between"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fmax", "10GHzz"}, Code: 2, Want: []string{`--fmax "10GHzz"`, "unknown unit"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--count", "1e3"}, Code: 2, Want: []string{`--count "1e3"`, "not a whole number"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--wall", ""}, Code: 2, Want: []string{`--wall ""`, "empty"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--wall", "sigma="}, Code: 2, Want: []string{`--wall "sigma="`, "empty"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--wall", "sigma=abc"}, Code: 2, Want: []string{`--wall "sigma=abc"`, "no number"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--wall", "iacs=500%"}, Code: 2, Want: []string{`--wall "iacs=500%"`, "between 0.01 % and 200 %"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--fill", "eps=2,tand=-1"}, Code: 2, Want: []string{`--fill "eps=2,tand=-1"`, "between 0 and 1"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--temperature", "-300C"}, Code: 2, Want: []string{`--temperature "-300C"`, "below absolute zero"}},
+		{Args: []string{"--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--temperature", "4K"}, Code: 2, Want: []string{`--temperature "4K"`, "-50.00 C to 200.0 C"}},
+	})
 }
 
 // TestModesHelpExample runs the worked examples of `cylcav modes --help`
 // and checks that the output lines they show appear, in order, in the real
 // output ("..." skips lines).
 func TestModesHelpExample(t *testing.T) {
-	checkExamples(t, modes.NewCmdModes(cmdutil.Test(nil, nil), nil).Example)
-}
-
-var prompt = regexp.MustCompile(`^\s*\$ cylcav (.*)$`)
-
-func checkExamples(t *testing.T, example string) {
-	t.Helper()
-	lines := strings.Split(example, "\n")
-	ran := 0
-	for i := 0; i < len(lines); i++ {
-		m := prompt.FindStringSubmatch(lines[i])
-		if m == nil {
-			continue
-		}
-		out, errOut, code := cylcav(t, strings.Fields(m[1])...)
-		if code != 0 {
-			t.Errorf("example %q: exit %d, stderr %q", m[1], code, errOut)
-			continue
-		}
-		ran++
-		got := strings.Split(out, "\n")
-		k := 0
-		for i+1 < len(lines) && strings.TrimSpace(lines[i+1]) != "" && !prompt.MatchString(lines[i+1]) {
-			i++
-			want := strings.TrimPrefix(lines[i], "  ")
-			if strings.TrimSpace(want) == "..." {
-				continue
-			}
-			for k < len(got) && got[k] != want {
-				k++
-			}
-			if k == len(got) {
-				t.Errorf("example %q: output lacks %q (in order); got:\n%s", m[1], want, out)
-				break
-			}
-		}
-	}
-	if ran == 0 {
-		t.Error("help text has no worked example")
-	}
+	clitest.CheckExamples(t, modes.NewCmdModes(cmdutil.Test(nil, nil), nil).Example)
 }

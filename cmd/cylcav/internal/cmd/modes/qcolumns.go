@@ -15,7 +15,6 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmd/q"
-	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -27,9 +26,10 @@ type Loss struct {
 	Fill  qfactor.Fill
 }
 
-// parseLoss returns the Loss of the wall flags and the fill spec, or nil
-// when --wall is absent (no Q columns). Errors are usage errors.
-func parseLoss(w *q.WallFlags, fillSpec string, fillGiven bool) (*Loss, error) {
+// parseLoss returns the Loss of the wall flags and the fill (its loss
+// tangents checked already, by cmdutil.GeometryFlags), or nil when --wall
+// is absent (no Q columns). Errors are usage errors.
+func parseLoss(w *q.WallFlags, fill physics.Dielectric) (*Loss, error) {
 	if !w.Given() {
 		return nil, nil
 	}
@@ -37,18 +37,7 @@ func parseLoss(w *q.WallFlags, fillSpec string, fillGiven bool) (*Loss, error) {
 	if err != nil {
 		return nil, err
 	}
-	l := &Loss{Walls: walls}
-	if fillGiven {
-		d, err := physics.ParseDielectric(fillSpec)
-		if err != nil {
-			return nil, cmdutil.FlagError("fill", fillSpec, err)
-		}
-		l.Fill = qfactor.Fill{TanDelta: d.TanDelta, TanDeltaM: d.TanDeltaM}
-		if err := l.Fill.Validate(); err != nil {
-			return nil, cmdutil.FlagError("fill", fillSpec, err)
-		}
-	}
-	return l, nil
+	return &Loss{Walls: walls, Fill: qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM}}, nil
 }
 
 // QValue is a Q in the JSON output: null when infinite (no loss).

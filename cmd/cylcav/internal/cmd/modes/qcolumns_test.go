@@ -1,25 +1,23 @@
-package modes
+package modes_test
 
 import (
-	"bytes"
 	"encoding/json"
 	"math"
 	"strings"
 	"testing"
 
-	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/cmd/cylcav/internal/clitest"
 )
 
-func runModesCmd(t *testing.T, args ...string) (string, error) {
+// runModes runs `cylcav modes args...` and returns its standard output,
+// failing the test unless it succeeds.
+func runModes(t *testing.T, args ...string) string {
 	t.Helper()
-	var out, errOut bytes.Buffer
-	cmd := NewCmdModes(cmdutil.Test(&out, &errOut), nil)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.Execute()
-	return out.String(), err
+	r := clitest.Run(t, append([]string{"modes"}, args...)...)
+	if r.Code != 0 {
+		t.Fatalf("cylcav modes %v: exit %d, stderr %q", args, r.Code, r.Stderr)
+	}
+	return r.Stdout
 }
 
 // TestQColumnsPozar checks the Q columns on the PTFE-filled copper TE011
@@ -28,11 +26,8 @@ func runModesCmd(t *testing.T, args ...string) (string, error) {
 // values, to 1e-4; Pozar prints 29,390 and 2300 with Rs rounded, recalled
 // from memory), and every row the same Q_fill = 1/tan delta = 2500.
 func TestQColumnsPozar(t *testing.T) {
-	out, err := runModesCmd(t, "--diameter", "54.8016mm", "--length", "54.8016mm", "--fill", "eps=2.08,tand=4e-4",
+	out := runModes(t, "--diameter", "54.8016mm", "--length", "54.8016mm", "--fill", "eps=2.08,tand=4e-4",
 		"--wall", "sigma=5.813e7", "--count", "8", "--format", "json")
-	if err != nil {
-		t.Fatal(err)
-	}
 	var v struct {
 		Modes []map[string]any `json:"modes"`
 	}
@@ -67,24 +62,15 @@ func TestQColumnsPozar(t *testing.T) {
 // (table).
 func TestQColumnsOptional(t *testing.T) {
 	base := []string{"--diameter", "50mm", "--length", "50mm", "--count", "3"}
-	out, err := runModesCmd(t, append(base, "--format", "json")...)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out := runModes(t, append(base, "--format", "json")...)
 	if strings.Contains(out, "q_wall") {
 		t.Errorf("JSON without --wall has q_wall:\n%s", out)
 	}
-	out, err = runModesCmd(t, append(base, "--wall", "copper", "--format", "json")...)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out = runModes(t, append(base, "--wall", "copper", "--format", "json")...)
 	if !strings.Contains(out, `"q_fill": null`) || !strings.Contains(out, `"q_wall": 1`) {
 		t.Errorf("JSON with --wall copper in vacuum: want numeric q_wall and null q_fill:\n%s", out)
 	}
-	out, err = runModesCmd(t, append(base, "--wall", "copper", "--format", "csv")...)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out = runModes(t, append(base, "--wall", "copper", "--format", "csv")...)
 	lines := strings.Split(strings.TrimSpace(out), "\n")
 	if !strings.HasSuffix(lines[0], ",q_wall,q_fill,q0") {
 		t.Errorf("CSV header = %q, want it to end in q_wall,q_fill,q0", lines[0])
@@ -92,17 +78,14 @@ func TestQColumnsOptional(t *testing.T) {
 	if f := strings.Split(lines[1], ","); len(f) < 3 || f[len(f)-2] != "" || f[len(f)-1] == "" {
 		t.Errorf("CSV row = %q, want an empty q_fill and a numeric q0", lines[1])
 	}
-	out, err = runModesCmd(t, append(base, "--wall", "copper")...)
-	if err != nil {
-		t.Fatal(err)
-	}
+	out = runModes(t, append(base, "--wall", "copper")...)
 	if !strings.Contains(out, "Q_wall") || !strings.Contains(out, "inf") {
 		t.Errorf("table with --wall: want Q columns and inf for the lossless fill:\n%s", out)
 	}
-	if _, err := runModesCmd(t, append(base, "--wall", "copper", "--temperature", "4K")...); err == nil {
-		t.Errorf("modes --wall copper --temperature 4K: error = nil, want the linear-model range error")
+	if r := clitest.Run(t, append([]string{"modes"}, append(base, "--wall", "copper", "--temperature", "4K")...)...); r.Code == 0 {
+		t.Errorf("modes --wall copper --temperature 4K: exit 0, want the linear-model range error")
 	}
-	if _, err := runModesCmd(t, append(base, "--wall", "kryptonite")...); !cmdutil.IsUsage(err) {
-		t.Errorf("modes --wall kryptonite: error = %v, want a usage error", err)
+	if r := clitest.Run(t, append([]string{"modes"}, append(base, "--wall", "kryptonite")...)...); r.Code != 2 {
+		t.Errorf("modes --wall kryptonite: exit %d, stderr %q; want a usage error (exit 2)", r.Code, r.Stderr)
 	}
 }

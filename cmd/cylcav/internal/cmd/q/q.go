@@ -45,9 +45,9 @@ type Options struct {
 	Speed float64
 }
 
-// Cautions printed with accelerator figures and with cryogenic walls.
+// Cautions printed with accelerator figures (cmdutil.CautionRF) and with
+// cryogenic walls.
 const (
-	cautionRF        = "high RF power can cause burns and harmful RF exposure, and breakdown and multipaction in the cavity; follow local codes and licensed practice"
 	cautionCryogenic = "cryogenic liquids and cold surfaces cause cold burns and can displace breathing air; vent and relieve pressure as local codes require"
 	indexConvention  = "n azimuthal (cos n phi), m radial (m-th Bessel zero), p axial (half-wavelengths along the length)"
 	maxPorts         = 2
@@ -57,7 +57,8 @@ const (
 // instead of runQ (for tests).
 func NewCmdQ(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var modeS, diamS, radS, lenS, fillS, betaS, qextS, speedS string
+	var modeS, betaS, qextS, speedS string
+	var geo *cmdutil.GeometryFlags
 	var walls *WallFlags
 	cmd := &cobra.Command{
 		Use:   "q --mode MODE (--diameter D | --radius R) --length L --wall SPEC [flags]",
@@ -94,9 +95,8 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
       --particle-speed 0.8 --format json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, walls, flagValues{
-				mode: modeS, diameter: diamS, radius: radS, length: lenS,
-				fill: fillS, beta: betaS, qext: qextS, speed: speedS,
+			if err := opts.parse(cmd, geo, walls, flagValues{
+				mode: modeS, beta: betaS, qext: qextS, speed: speedS,
 			}); err != nil {
 				return err
 			}
@@ -108,10 +108,12 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&modeS, "mode", "", "mode label, e.g. TE011, TM010, TE(12,3,1) (required)")
-	f.StringVar(&diamS, "diameter", "", "inside diameter, e.g. 54.8mm")
-	f.StringVar(&radS, "radius", "", "inside radius, e.g. 27.4mm")
-	f.StringVar(&lenS, "length", "", "inside length between the end plates, e.g. 54.8mm (required)")
-	f.StringVar(&fillS, "fill", "", "fill dielectric: library name or eps=...,tand=... (default vacuum)")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter: "inside diameter, e.g. 54.8mm",
+		Radius:   "inside radius, e.g. 27.4mm",
+		Length:   "inside length between the end plates, e.g. 54.8mm (required)",
+		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
+	})
 	walls = AddWallFlags(cmd)
 	f.StringVar(&betaS, "beta", "", "coupling coefficient of each port, e.g. 0.8 or 1,1 (two ports)")
 	f.StringVar(&qextS, "qext", "", "external Q of each port, e.g. 5000 or 4000,4000")
@@ -121,15 +123,15 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 	return cmd
 }
 
-// flagValues are the raw flag strings.
+// flagValues are the raw flag strings (the cavity's are in the
+// cmdutil.GeometryFlags).
 type flagValues struct {
-	mode, diameter, radius, length string
-	fill, beta, qext, speed        string
+	mode, beta, qext, speed string
 }
 
 // parse validates the flags into opts. Every error is a usage error naming
 // the flag, the value and the valid range.
-func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) error {
+func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *WallFlags, v flagValues) error {
 	// A flag given with an empty value is an error below, never "absent".
 	set := cmd.Flags().Changed
 	if !set("mode") {
@@ -141,47 +143,10 @@ func (opts *Options) parse(cmd *cobra.Command, walls *WallFlags, v flagValues) e
 	}
 	opts.Mode = m
 
-	switch {
-	case set("diameter") && set("radius"):
-		return cmdutil.Usagef("give either --diameter or --radius, not both")
-	case set("diameter"):
-		d, err := cmdutil.Length("diameter", v.diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
-		if err != nil {
-			return err
-		}
-		opts.Cavity.Radius = d / 2
-	case set("radius"):
-		r, err := cmdutil.Length("radius", v.radius, cavity.MinSize, cavity.MaxSize)
-		if err != nil {
-			return err
-		}
-		opts.Cavity.Radius = r
-	default:
-		return cmdutil.Usagef("--diameter or --radius is required, e.g. --diameter 50mm")
-	}
-	if !set("length") {
-		return cmdutil.Usagef("--length is required, e.g. --length 50mm")
-	}
-	if opts.Cavity.Length, err = cmdutil.Length("length", v.length, cavity.MinSize, cavity.MaxSize); err != nil {
+	if opts.Cavity, opts.Fill, err = geo.Cavity(); err != nil {
 		return err
 	}
-
-	opts.Fill = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
-	if set("fill") {
-		d, err := physics.ParseDielectric(v.fill)
-		if err != nil {
-			return cmdutil.FlagError("fill", v.fill, err)
-		}
-		opts.Fill = d
-	}
-	opts.Cavity.EpsR, opts.Cavity.MuR = opts.Fill.EpsR, opts.Fill.MuR
-	if err := opts.Cavity.Validate(); err != nil {
-		return cmdutil.FlagError("fill", v.fill, err)
-	}
 	opts.Loss = qfactor.Fill{TanDelta: opts.Fill.TanDelta, TanDeltaM: opts.Fill.TanDeltaM}
-	if err := opts.Loss.Validate(); err != nil {
-		return cmdutil.FlagError("fill", v.fill, err)
-	}
 
 	if !walls.Given() {
 		return cmdutil.Usagef("--wall is required, e.g. --wall copper or --wall sigma=5.8e7")
@@ -278,7 +243,7 @@ func runQ(opts *Options) error {
 			return err
 		}
 		r.accel = &a
-		r.cautions = append(r.cautions, cautionRF)
+		r.cautions = append(r.cautions, cmdutil.CautionRF)
 	}
 	if opts.Walls[0].Superconductor != nil {
 		r.cautions = append(r.cautions, cautionCryogenic)

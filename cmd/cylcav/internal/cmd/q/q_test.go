@@ -1,4 +1,4 @@
-package q
+package q_test
 
 import (
 	"bytes"
@@ -7,31 +7,26 @@ import (
 	"strings"
 	"testing"
 
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
-// run executes `cylcav q` with args and returns stdout and the error.
-func run(t *testing.T, args ...string) (string, error) {
+// run executes `cylcav q` with args.
+func run(t *testing.T, args ...string) clitest.Result {
 	t.Helper()
-	var out, errOut bytes.Buffer
-	cmd := NewCmdQ(cmdutil.Test(&out, &errOut), nil)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.Execute()
-	return out.String(), err
+	return clitest.Run(t, append([]string{"q"}, args...)...)
 }
 
 func runJSON(t *testing.T, args ...string) map[string]any {
 	t.Helper()
-	out, err := run(t, append(args, "--format", "json")...)
-	if err != nil {
-		t.Fatalf("q %v: %v", args, err)
+	r := run(t, append(args, "--format", "json")...)
+	if r.Code != 0 {
+		t.Fatalf("q %v: exit %d, stderr %q", args, r.Code, r.Stderr)
 	}
 	var v map[string]any
-	if err := json.Unmarshal([]byte(out), &v); err != nil {
-		t.Fatalf("q %v: invalid JSON: %v\n%s", args, err, out)
+	if err := json.Unmarshal([]byte(r.Stdout), &v); err != nil {
+		t.Fatalf("q %v: invalid JSON: %v\n%s", args, err, r.Stdout)
 	}
 	return v
 }
@@ -134,13 +129,13 @@ func TestEndWalls(t *testing.T) {
 	if !(a < side && side < b) {
 		t.Errorf("Rs side %g, end A (silver) %g, end B (brass) %g: want silver < copper < brass", side, a, b)
 	}
-	out, err := run(t, "--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "copper", "--end-wall", "brass")
-	if err != nil {
-		t.Fatal(err)
+	r := run(t, "--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "copper", "--end-wall", "brass")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
 	for _, want := range []string{"n azimuthal", "end plate A (z = 0)", "brass", "copper", "Q0 (unloaded)"} {
-		if !strings.Contains(out, want) {
-			t.Errorf("table output lacks %q:\n%s", want, out)
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("table output lacks %q:\n%s", want, r.Stdout)
 		}
 	}
 }
@@ -209,53 +204,24 @@ func TestBadInput(t *testing.T) {
 		{append([]string{"--mode", "TE011", "--residual", "5nohm"}, ok...), "needs --superconducting"},
 		{append([]string{"--mode", "TE011", "--format", "csv"}, ok...), "--format"},
 	} {
-		_, err := run(t, tc.args...)
-		if err == nil {
-			t.Errorf("q %v: error = nil, want %q", tc.args, tc.want)
+		r := run(t, tc.args...)
+		if r.Code == 0 {
+			t.Errorf("q %v: exit 0, want %q", tc.args, tc.want)
 			continue
 		}
-		if !cmdutil.IsUsage(err) || !strings.Contains(err.Error(), tc.want) {
-			t.Errorf("q %v: error = %v (usage %v), want a usage error containing %q", tc.args, err, cmdutil.IsUsage(err), tc.want)
+		if r.Code != 2 || !strings.Contains(r.Stderr, tc.want) {
+			t.Errorf("q %v: exit %d, stderr %q; want a usage error (exit 2) containing %q", tc.args, r.Code, r.Stderr, tc.want)
 		}
 	}
 	// A wall temperature outside the linear model names the range (more
 	// cases in badinput_test.go).
-	if _, err := run(t, append([]string{"--mode", "TE011", "--temperature", "4K"}, ok...)...); err == nil || !strings.Contains(err.Error(), "linear resistivity model") {
-		t.Errorf("q at 4 K with copper: error = %v, want the linear-model range error", err)
-	}
-}
-
-func TestParseOhm(t *testing.T) {
-	for _, tc := range []struct {
-		in   string
-		want float64
-	}{{"10nohm", 10e-9}, {"0.02 mohm", 2e-5}, {"1e-8", 1e-8}, {"3uOhm", 3e-6}, {"2 ohm", 2}} {
-		got, err := parseOhm(tc.in)
-		if err != nil || math.Abs(got-tc.want) > 1e-15*tc.want {
-			t.Errorf("parseOhm(%q) = %g, %v; want %g", tc.in, got, err, tc.want)
-		}
-	}
-	for _, bad := range []string{"", "nohm", "ten ohm", "NaN", "1e999"} {
-		if _, err := parseOhm(bad); err == nil {
-			t.Errorf("parseOhm(%q) error = nil, want an error", bad)
-		}
-	}
-}
-
-func TestNumberJSON(t *testing.T) {
-	for _, tc := range []struct {
-		v    float64
-		want string
-	}{{math.Inf(1), "null"}, {math.NaN(), "null"}, {2500, "2500"}, {0.5, "0.5"}} {
-		b, err := number(tc.v).MarshalJSON()
-		if err != nil || string(b) != tc.want {
-			t.Errorf("number(%g).MarshalJSON() = %s, %v; want %s", tc.v, b, err, tc.want)
-		}
+	if r := run(t, append([]string{"--mode", "TE011", "--temperature", "4K"}, ok...)...); r.Code == 0 || !strings.Contains(r.Stderr, "linear resistivity model") {
+		t.Errorf("q at 4 K with copper: exit %d, stderr %q; want the linear-model range error", r.Code, r.Stderr)
 	}
 }
 
 func TestHelpHasExample(t *testing.T) {
-	cmd := NewCmdQ(cmdutil.Test(new(bytes.Buffer), new(bytes.Buffer)), nil)
+	cmd := q.NewCmdQ(cmdutil.Test(new(bytes.Buffer), new(bytes.Buffer)), nil)
 	if !strings.Contains(cmd.Example, "cylcav q --mode") {
 		t.Errorf("Example = %q, want a worked example", cmd.Example)
 	}

@@ -163,7 +163,7 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 <p>Safety:</p>
 <ul class="safety">{{range .Safety}}<li>{{.}}</li>{{end}}</ul>
 
-<footer>Made by cylcav {{.Version}}. Resonant frequencies from the closed-cylinder resonance condition (Pozar, Microwave Engineering, 4th ed., sec. 6.7; Harrington, Time-Harmonic Electromagnetic Fields, sec. 5.3); unloaded Q by the surface-resistance perturbation method; clearance, optimum and tolerance analysis as described in the cylcav documentation.</footer>
+<footer>Made by cylcav {{.Version}}. Resonant frequencies from the closed-cylinder resonance condition (Pozar, Microwave Engineering, 4th ed., sec. 6.4; Harrington, Time-Harmonic Electromagnetic Fields, sec. 5.3); unloaded Q by the surface-resistance perturbation method; clearance, optimum and tolerance analysis as described in the cylcav documentation.</footer>
 </main>
 </body>
 </html>

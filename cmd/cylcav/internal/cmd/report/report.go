@@ -133,16 +133,7 @@ func parseDesignFlags(ios *cmdutil.IOStreams, given *pflag.FlagSet) (design.Scen
 }
 
 func runReport(opts *Options) error {
-	var progress func(done, total int)
-	var bar *cmdutil.Progress
-	if opts.Scenario.Spec.Tolerance.Samples >= 100000 {
-		bar = cmdutil.NewProgress(opts.IO, "tolerance analysis")
-		progress = bar.Update
-	}
-	r, err := opts.Scenario.Run(progress)
-	if bar != nil {
-		bar.Done()
-	}
+	r, err := opts.Scenario.RunWithProgress(opts.IO)
 	if err != nil {
 		return err // an impossible design exits with status 1
 	}

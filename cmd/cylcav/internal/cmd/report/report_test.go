@@ -13,30 +13,23 @@ import (
 	"testing"
 	"time"
 
+	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/report"
-	"cylcav/cmd/cylcav/internal/cmd/root"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 )
-
-func cylcav(t *testing.T, args ...string) (stdout, stderr string, code int) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	code = root.Main(cmdutil.Test(&out, &errOut), args)
-	return out.String(), errOut.String(), code
-}
 
 // demo writes the demo datasheet (HTML and PDF) into a temporary folder.
 func demo(t *testing.T) (html, pdf string) {
 	t.Helper()
 	dir := t.TempDir()
 	html, pdf = filepath.Join(dir, "sheet.html"), filepath.Join(dir, "sheet.pdf")
-	out, errOut, code := cylcav(t, "report", "-o", html, "--pdf", pdf)
-	if code != 0 {
-		t.Fatalf("report: exit %d, stderr %q", code, errOut)
+	r := clitest.Run(t, "report", "-o", html, "--pdf", pdf)
+	if r.Code != 0 {
+		t.Fatalf("report: exit %d, stderr %q", r.Code, r.Stderr)
 	}
-	if !strings.Contains(out, "wrote "+html) || !strings.Contains(out, "demo scenario") {
-		t.Errorf("report output = %q", out)
+	if !strings.Contains(r.Stdout, "wrote "+html) || !strings.Contains(r.Stdout, "demo scenario") {
+		t.Errorf("report output = %q", r.Stdout)
 	}
 	return html, pdf
 }
@@ -64,6 +57,11 @@ func TestDemoDatasheet(t *testing.T) {
 	}
 	if n := strings.Count(s, "<svg"); n != 4 {
 		t.Errorf("datasheet has %d inline SVG charts, want 4", n)
+	}
+	// The RF caution stands once, in the safety notes: the one-line form
+	// that `cylcav design` adds to its cautions is not repeated here.
+	if n := strings.Count(strings.ToLower(s), "high rf power"); n != 1 {
+		t.Errorf("datasheet mentions high RF power %d times, want once (the safety note)", n)
 	}
 	for _, el := range []string{"table", "figure", "svg", "section", "ul"} {
 		if o, c := strings.Count(s, "<"+el), strings.Count(s, "</"+el+">"); o != c {
@@ -101,20 +99,20 @@ func TestDemoDatasheet(t *testing.T) {
 func TestSameDesignAsDesignCommand(t *testing.T) {
 	flags := []string{"--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--ratio-range", "0.6:2.5",
 		"--tuning", "1%", "--tolerance", "0.02mm", "--samples", "2000"}
-	out, errOut, code := cylcav(t, append([]string{"design", "--format", "json"}, flags...)...)
-	if code != 0 {
-		t.Fatalf("design: exit %d, %s", code, errOut)
+	r := clitest.Run(t, append([]string{"design", "--format", "json"}, flags...)...)
+	if r.Code != 0 {
+		t.Fatalf("design: exit %d, %s", r.Code, r.Stderr)
 	}
 	var d struct {
 		DiameterM float64 `json:"diameter_m"`
 		LengthM   float64 `json:"length_m"`
 	}
-	if err := json.Unmarshal([]byte(out), &d); err != nil {
+	if err := json.Unmarshal([]byte(r.Stdout), &d); err != nil {
 		t.Fatal(err)
 	}
 	path := filepath.Join(t.TempDir(), "s.html")
-	if _, errOut, code := cylcav(t, append([]string{"report", "-o", path}, flags...)...); code != 0 {
-		t.Fatalf("report: exit %d, %s", code, errOut)
+	if r := clitest.Run(t, append([]string{"report", "-o", path}, flags...)...); r.Code != 0 {
+		t.Fatalf("report: exit %d, %s", r.Code, r.Stderr)
 	}
 	b, _ := os.ReadFile(path)
 	s := string(b)
@@ -135,8 +133,8 @@ func TestSameDesignAsDesignCommand(t *testing.T) {
 // chart, and the caution that says why.
 func TestNoWall(t *testing.T) {
 	path := filepath.Join(t.TempDir(), "s.html")
-	if _, errOut, code := cylcav(t, "report", "-o", path, "--mode", "TM010", "--freq", "2.45GHz", "--samples", "1000"); code != 0 {
-		t.Fatalf("report: exit %d, %s", code, errOut)
+	if r := clitest.Run(t, "report", "-o", path, "--mode", "TM010", "--freq", "2.45GHz", "--samples", "1000"); r.Code != 0 {
+		t.Fatalf("report: exit %d, %s", r.Code, r.Stderr)
 	}
 	b, _ := os.ReadFile(path)
 	s := string(b)
@@ -165,9 +163,9 @@ func TestReportErrors(t *testing.T) {
 		// No D/L in 0.9..1.0 gives 20 % clearance: an impossible design.
 		{[]string{"report", "-o", html, "--mode", "TE011", "--freq", "10GHz", "--ratio-range", "0.9:1", "--min-clearance", "20%"}, 1, "no design meets"},
 	} {
-		_, errOut, code := cylcav(t, c.args...)
-		if code != c.code || !strings.Contains(errOut, c.want) {
-			t.Errorf("%v: exit %d, stderr %q; want %d and %q", c.args, code, errOut, c.code, c.want)
+		r := clitest.Run(t, c.args...)
+		if r.Code != c.code || !strings.Contains(r.Stderr, c.want) {
+			t.Errorf("%v: exit %d, stderr %q; want %d and %q", c.args, r.Code, r.Stderr, c.code, c.want)
 		}
 	}
 	if _, err := os.Stat(html); err == nil {
@@ -177,14 +175,14 @@ func TestReportErrors(t *testing.T) {
 	if err := os.WriteFile(html, []byte("keep"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	if _, errOut, code := cylcav(t, "report", "-o", html); code != 2 || !strings.Contains(errOut, "--force") {
-		t.Errorf("existing file: exit %d, stderr %q", code, errOut)
+	if r := clitest.Run(t, "report", "-o", html); r.Code != 2 || !strings.Contains(r.Stderr, "--force") {
+		t.Errorf("existing file: exit %d, stderr %q", r.Code, r.Stderr)
 	}
 	if b, _ := os.ReadFile(html); string(b) != "keep" {
 		t.Error("existing datasheet replaced without --force")
 	}
-	if _, errOut, code := cylcav(t, "report", "-o", html, "--force"); code != 0 {
-		t.Errorf("--force: exit %d, %s", code, errOut)
+	if r := clitest.Run(t, "report", "-o", html, "--force"); r.Code != 0 {
+		t.Errorf("--force: exit %d, %s", r.Code, r.Stderr)
 	}
 }
 

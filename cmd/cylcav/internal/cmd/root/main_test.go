@@ -1,12 +1,10 @@
 package root_test
 
 import (
-	"bytes"
 	"strings"
 	"testing"
 
-	"cylcav/cmd/cylcav/internal/cmd/root"
-	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/cmd/cylcav/internal/clitest"
 )
 
 // cheapCommands are the commands FuzzMain runs: each finishes in
@@ -66,19 +64,18 @@ func FuzzMain(f *testing.F) {
 				return // separated labels reach index 1000: slow listings
 			}
 		}
-		var out, errOut bytes.Buffer
-		code := root.Main(cmdutil.Test(&out, &errOut), args)
-		switch code {
+		r := clitest.Run(t, args...)
+		switch r.Code {
 		case 0:
 		case 1, 2:
-			if out.Len() != 0 {
-				t.Errorf("cylcav %q: exit %d with standard output %.100q, want none", args, code, out.String())
+			if r.Stdout != "" {
+				t.Errorf("cylcav %q: exit %d with standard output %.100q, want none", args, r.Code, r.Stdout)
 			}
-			if e := errOut.String(); !strings.HasPrefix(e, "cylcav: ") || strings.Count(e, "\n") != 1 {
-				t.Errorf("cylcav %q: exit %d, stderr %q, want one line starting \"cylcav: \"", args, code, e)
+			if e := r.Stderr; !strings.HasPrefix(e, "cylcav: ") || strings.Count(e, "\n") != 1 {
+				t.Errorf("cylcav %q: exit %d, stderr %q, want one line starting \"cylcav: \"", args, r.Code, e)
 			}
 		default:
-			t.Errorf("cylcav %q: exit %d, want 0, 1 or 2", args, code)
+			t.Errorf("cylcav %q: exit %d, want 0, 1 or 2", args, r.Code)
 		}
 	})
 }
@@ -95,16 +92,15 @@ func TestCompletionNeedsShell(t *testing.T) {
 		{[]string{"completion"}, 2, "completion needs a shell"},
 		{[]string{"completion", "tcsh"}, 2, `unknown command "tcsh"`},
 	} {
-		var out, errOut bytes.Buffer
-		code := root.Main(cmdutil.Test(&out, &errOut), tc.args)
-		if code != tc.code || !strings.Contains(errOut.String(), tc.want) {
-			t.Errorf("cylcav %q: exit %d, stderr %q; want exit %d and %q", tc.args, code, errOut.String(), tc.code, tc.want)
+		r := clitest.Run(t, tc.args...)
+		if r.Code != tc.code || !strings.Contains(r.Stderr, tc.want) {
+			t.Errorf("cylcav %q: exit %d, stderr %q; want exit %d and %q", tc.args, r.Code, r.Stderr, tc.code, tc.want)
 		}
-		if code == 0 && !strings.Contains(out.String(), "bash completion") {
-			t.Errorf("cylcav %q: stdout %.80q, want a bash completion script", tc.args, out.String())
+		if r.Code == 0 && !strings.Contains(r.Stdout, "bash completion") {
+			t.Errorf("cylcav %q: stdout %.80q, want a bash completion script", tc.args, r.Stdout)
 		}
-		if code != 0 && (out.Len() != 0 || strings.Count(errOut.String(), "\n") != 1) {
-			t.Errorf("cylcav %q: stdout %.80q, stderr %q; want no output and one line", tc.args, out.String(), errOut.String())
+		if r.Code != 0 && (r.Stdout != "" || strings.Count(r.Stderr, "\n") != 1) {
+			t.Errorf("cylcav %q: stdout %.80q, stderr %q; want no output and one line", tc.args, r.Stdout, r.Stderr)
 		}
 	}
 }

@@ -16,13 +16,6 @@ import (
 	"cylcav/physics"
 )
 
-// Frequency limits accepted by --freq (Hz): wider than any cavity cylcav
-// can hold, narrow enough to catch unit slips.
-const (
-	minFreq = 1e3
-	maxFreq = 1e14
-)
-
 // Options are the parsed and validated flags of `cylcav size`.
 type Options struct {
 	IO *cmdutil.IOStreams
@@ -43,8 +36,9 @@ type Options struct {
 // command's work (tests use it to inspect the parsed options).
 func NewCmdSize(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var mode, freq, ratio, diameter, length, fill string
+	var mode, freq, ratio string
 	var checkFormat func() error
+	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "size --mode MODE --freq F (--ratio R | --diameter D | --length L) [--fill SPEC]",
 		Short: "Find the cavity dimensions that put a mode at a target frequency",
@@ -86,7 +80,7 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 			if !fl.Changed("freq") {
 				return cmdutil.Usagef("missing --freq, the target resonant frequency (e.g. --freq 5GHz)")
 			}
-			if opts.Frequency, err = cmdutil.Frequency("freq", freq, minFreq, maxFreq); err != nil {
+			if opts.Frequency, err = cmdutil.Frequency("freq", freq, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
 				return err
 			}
 			opts.FreqText = freq
@@ -112,26 +106,19 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 				opts.By, opts.ByFlag, opts.ByValue = cavity.ByRatio(r), "ratio", ratio
 			case "--diameter":
 				var d float64
-				if d, err = cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize); err != nil {
+				if d, err = geo.Diameter(); err != nil {
 					return err
 				}
-				opts.By, opts.ByFlag, opts.ByValue = cavity.ByDiameter(d), "diameter", diameter
+				opts.By, opts.ByFlag, opts.ByValue = cavity.ByDiameter(d), "diameter", geo.Text("diameter")
 			case "--length":
 				var l float64
-				if l, err = cmdutil.Length("length", length, cavity.MinSize, cavity.MaxSize); err != nil {
+				if l, err = geo.Length(); err != nil {
 					return err
 				}
-				opts.By, opts.ByFlag, opts.ByValue = cavity.ByLength(l), "length", length
+				opts.By, opts.ByFlag, opts.ByValue = cavity.ByLength(l), "length", geo.Text("length")
 			}
-			if fl.Changed("fill") {
-				d, err := physics.ParseDielectric(fill)
-				if err != nil {
-					return cmdutil.FlagError("fill", fill, err)
-				}
-				opts.Fill, opts.FillName = cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}, d.Name
-				if err := opts.Fill.Validate(); err != nil {
-					return cmdutil.FlagError("fill", fill, err)
-				}
+			if opts.Fill, opts.FillName, err = geo.Fill(); err != nil {
+				return err
 			}
 			if err := checkFormat(); err != nil {
 				return err
@@ -146,9 +133,11 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 	fl.StringVar(&mode, "mode", "", "mode to size: TE011, TM010, TE(12,3,1), ...")
 	fl.StringVar(&freq, "freq", "", "target resonant frequency (e.g. 5GHz)")
 	fl.StringVar(&ratio, "ratio", "", "fix the ratio D/L of diameter to length")
-	fl.StringVar(&diameter, "diameter", "", "fix the inner diameter D (e.g. 40mm)")
-	fl.StringVar(&length, "length", "", "fix the inner length L (e.g. 30mm)")
-	fl.StringVar(&fill, "fill", "", "fill: material name or eps=E[,mu=M] (default vacuum)")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter: "fix the inner diameter D (e.g. 40mm)",
+		Length:   "fix the inner length L (e.g. 30mm)",
+		Fill:     "fill: material name or eps=E[,mu=M] (default vacuum)",
+	})
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.RegisterFlagCompletionFunc("mode", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
 		return []string{"TE011", "TE111", "TM010", "TM011", "TE013", "TM110"}, cobra.ShellCompDirectiveNoFileComp
@@ -214,7 +203,7 @@ func writeTable(w io.Writer, opts *Options, c cavity.Cavity, res Result) error {
 	}
 	by := opts.By.String()
 	if _, err := fmt.Fprintf(w, "%s at %s, %s, %s\nn azimuthal, m radial, p axial\n",
-		res.Mode, trim(physics.FormatFrequency(res.FHz, 6)), by, fill); err != nil {
+		res.Mode, cmdutil.TrimZeros(physics.FormatFrequency(res.FHz, 6)), by, fill); err != nil {
 		return err
 	}
 	t := cmdutil.NewTable(w)
@@ -230,14 +219,4 @@ func writeTable(w io.Writer, opts *Options, c cavity.Cavity, res Result) error {
 		return err
 	}
 	return nil
-}
-
-// trim drops trailing zeros from a formatted quantity ("5.00000 GHz" ->
-// "5 GHz").
-func trim(s string) string {
-	v, unit, ok := strings.Cut(s, " ")
-	if !ok || !strings.Contains(v, ".") {
-		return s
-	}
-	return strings.TrimRight(strings.TrimRight(v, "0"), ".") + " " + unit
 }

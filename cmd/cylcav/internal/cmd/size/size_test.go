@@ -1,36 +1,28 @@
 package size_test
 
 import (
-	"bytes"
 	"encoding/csv"
 	"encoding/json"
 	"math"
-	"regexp"
 	"slices"
 	"strings"
 	"testing"
 
-	"cylcav/cmd/cylcav/internal/cmd/root"
+	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/size"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
-func cylcav(t *testing.T, args ...string) (stdout, stderr string, code int) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	code = root.Main(cmdutil.Test(&out, &errOut), args)
-	return out.String(), errOut.String(), code
-}
-
 // TestSizePozarJSON sizes the PTFE-filled TE011 cavity with d = 2a (D/L =
-// 1) at 5 GHz of Pozar, Microwave Engineering, 4th ed., sec. 6.7 (Example
+// 1) at 5 GHz of Pozar, Microwave Engineering, 4th ed., sec. 6.4 (Example
 // 6.4 there, recalled from memory): a = 2.74 cm, d = 5.48 cm to the
 // printed digits.
 func TestSizePozarJSON(t *testing.T) {
-	out, errOut, code := cylcav(t, "size", "--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--fill", "eps=2.08", "--format", "json")
-	if code != 0 {
-		t.Fatalf("exit %d, stderr %q", code, errOut)
+	r := clitest.Run(t, "size", "--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--fill", "eps=2.08", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
+	out := r.Stdout
 	var v map[string]any
 	if err := json.Unmarshal([]byte(out), &v); err != nil {
 		t.Fatalf("invalid JSON: %v\n%s", err, out)
@@ -60,10 +52,11 @@ func TestSizePozarJSON(t *testing.T) {
 }
 
 func TestSizeTableAndCSV(t *testing.T) {
-	out, _, code := cylcav(t, "size", "--mode", "TM010", "--freq", "2.45GHz", "--length", "20mm")
-	if code != 0 {
-		t.Fatalf("exit %d", code)
+	r := clitest.Run(t, "size", "--mode", "TM010", "--freq", "2.45GHz", "--length", "20mm")
+	if r.Code != 0 {
+		t.Fatalf("exit %d", r.Code)
 	}
+	out := r.Stdout
 	// Radius j_{0,1} c/(2 pi f) = 46.8337 mm (mpmath 1.3.0); p = 0 makes
 	// the length free, which the table says.
 	for _, w := range []string{"TM010 at 2.45 GHz, length 20 mm, fill vacuum (eps_r 1, mu_r 1)", "n azimuthal, m radial, p axial",
@@ -72,10 +65,11 @@ func TestSizeTableAndCSV(t *testing.T) {
 			t.Errorf("output lacks %q:\n%s", w, out)
 		}
 	}
-	out, _, code = cylcav(t, "size", "--mode", "TE(1,1,3)", "--freq", "12GHz", "--diameter", "0.04", "--format", "csv")
-	if code != 0 {
-		t.Fatalf("exit %d", code)
+	r = clitest.Run(t, "size", "--mode", "TE(1,1,3)", "--freq", "12GHz", "--diameter", "0.04", "--format", "csv")
+	if r.Code != 0 {
+		t.Fatalf("exit %d", r.Code)
 	}
+	out = r.Stdout
 	recs, err := csv.NewReader(strings.NewReader(out)).ReadAll()
 	if err != nil {
 		t.Fatal(err)
@@ -88,87 +82,45 @@ func TestSizeTableAndCSV(t *testing.T) {
 	}
 }
 
+// TestSizeBadInput checks that bad input gives exit status 2, nothing on
+// standard output and one line on standard error naming the flag and the
+// value.
 func TestSizeBadInput(t *testing.T) {
-	for _, tc := range []struct {
-		args []string
-		want []string
-	}{
-		{[]string{"--mode", "TE010", "--freq", "5GHz", "--ratio", "1"}, []string{`--mode "TE010"`, "did you mean TE011 or TM010?"}},
-		{[]string{"--mode", "TX011", "--freq", "5GHz", "--ratio", "1"}, []string{`--mode "TX011"`, "TE or TM"}},
-		{[]string{"--freq", "5GHz", "--ratio", "1"}, []string{"missing --mode"}},
-		{[]string{"--mode", "TE011", "--ratio", "1"}, []string{"missing --freq"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz"}, []string{"--ratio", "--diameter", "--length"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--diameter", "3cm"}, []string{"--ratio and --diameter given"}},
-		{[]string{"--mode", "TE011", "--freq", "0", "--ratio", "1"}, []string{`--freq "0"`, "must be between"}},
-		{[]string{"--mode", "TE011", "--freq", "NaN", "--ratio", "1"}, []string{`--freq "NaN"`}},
-		{[]string{"--mode", "TE011", "--freq", "5 parsecs", "--ratio", "1"}, []string{`--freq "5 parsecs"`}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "-1"}, []string{`--ratio "-1"`, "between 0.001 and 1000"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "Inf"}, []string{`--ratio "Inf"`}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--diameter", "0"}, []string{`--diameter "0"`, "must be between"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--length", "-2mm"}, []string{`--length "-2mm"`, "must be between"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--fill", "eps=abc"}, []string{`--fill "eps=abc"`}},
+	clitest.CheckBadInput(t, "size", []clitest.BadCase{
+		{Args: []string{"--mode", "TE010", "--freq", "5GHz", "--ratio", "1"}, Code: 2, Want: []string{`--mode "TE010"`, "did you mean TE011 or TM010?"}},
+		{Args: []string{"--mode", "TX011", "--freq", "5GHz", "--ratio", "1"}, Code: 2, Want: []string{`--mode "TX011"`, "TE or TM"}},
+		{Args: []string{"--freq", "5GHz", "--ratio", "1"}, Code: 2, Want: []string{"missing --mode"}},
+		{Args: []string{"--mode", "TE011", "--ratio", "1"}, Code: 2, Want: []string{"missing --freq"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz"}, Code: 2, Want: []string{"--ratio", "--diameter", "--length"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--diameter", "3cm"}, Code: 2, Want: []string{"--ratio and --diameter given"}},
+		{Args: []string{"--mode", "TE011", "--freq", "0", "--ratio", "1"}, Code: 2, Want: []string{`--freq "0"`, "must be between"}},
+		{Args: []string{"--mode", "TE011", "--freq", "NaN", "--ratio", "1"}, Code: 2, Want: []string{`--freq "NaN"`}},
+		{Args: []string{"--mode", "TE011", "--freq", "5 parsecs", "--ratio", "1"}, Code: 2, Want: []string{`--freq "5 parsecs"`}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "-1"}, Code: 2, Want: []string{`--ratio "-1"`, "between 0.001 and 1000"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "Inf"}, Code: 2, Want: []string{`--ratio "Inf"`}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--diameter", "0"}, Code: 2, Want: []string{`--diameter "0"`, "must be between"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--length", "-2mm"}, Code: 2, Want: []string{`--length "-2mm"`, "must be between"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "--fill", "eps=abc"}, Code: 2, Want: []string{`--fill "eps=abc"`}},
 		// Targets that cannot be met name the least value that works
 		// (mpmath 1.3.0: 2 j_{1,1} c/(2 pi 10 GHz) = 36.5648 mm; c/(2 x 10
 		// GHz) = 14.9896 mm; 2 j_{0,1} c/(2 pi 10 GHz) = 22.9485 mm).
-		{[]string{"--mode", "TE011", "--freq", "10GHz", "--diameter", "20mm"}, []string{`--freq "10GHz" with --diameter "20mm"`, "must exceed 36.5648 mm"}},
-		{[]string{"--mode", "TE011", "--freq", "10GHz", "--length", "10mm"}, []string{`--length "10mm"`, "must exceed 14.9896 mm"}},
-		{[]string{"--mode", "TM010", "--freq", "10GHz", "--diameter", "20mm"}, []string{"p = 0", "use diameter 22.9485 mm with any length"}},
-		{[]string{"--mode", "TE011", "--freq", "2kHz", "--ratio", "1"}, []string{`--freq "2kHz" with --ratio "1"`, "must be in 1 um..1000 m"}},
+		{Args: []string{"--mode", "TE011", "--freq", "10GHz", "--diameter", "20mm"}, Code: 2, Want: []string{`--freq "10GHz" with --diameter "20mm"`, "must exceed 36.5648 mm"}},
+		{Args: []string{"--mode", "TE011", "--freq", "10GHz", "--length", "10mm"}, Code: 2, Want: []string{`--length "10mm"`, "must exceed 14.9896 mm"}},
+		{Args: []string{"--mode", "TM010", "--freq", "10GHz", "--diameter", "20mm"}, Code: 2, Want: []string{"p = 0", "use diameter 22.9485 mm with any length"}},
+		{Args: []string{"--mode", "TE011", "--freq", "2kHz", "--ratio", "1"}, Code: 2, Want: []string{`--freq "2kHz" with --ratio "1"`, "must be in 1 um..1000 m"}},
 		// Added by the CLI review: a plain number takes nothing after it.
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1abc"}, []string{`--ratio "1abc"`, `unexpected "abc"`, "between 0.001 and 1000"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1:2"}, []string{`--ratio "1:2"`, "between 0.001 and 1000"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", ""}, []string{`--ratio ""`, "empty"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1e400"}, []string{`--ratio "1e400"`, "out of range"}},
-		{[]string{"--mode", "TE011", "--freq", "10GHzz", "--ratio", "1"}, []string{`--freq "10GHzz"`, "unknown unit"}},
-		{[]string{"--mode", "TE0", "--freq", "5GHz", "--ratio", "1"}, []string{`--mode "TE0"`, "three indices"}},
-		{[]string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "extra"}, []string{"extra"}},
-	} {
-		args := append([]string{"size"}, tc.args...)
-		out, errOut, code := cylcav(t, args...)
-		if code != 2 || out != "" || strings.Count(errOut, "\n") != 1 {
-			t.Errorf("cylcav %s: exit %d, stdout %q, stderr %q; want exit 2 and one line on stderr", strings.Join(args, " "), code, out, errOut)
-		}
-		for _, w := range tc.want {
-			if !strings.Contains(errOut, w) {
-				t.Errorf("cylcav %s: stderr %q, want it to contain %q", strings.Join(args, " "), errOut, w)
-			}
-		}
-	}
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1abc"}, Code: 2, Want: []string{`--ratio "1abc"`, `unexpected "abc"`, "between 0.001 and 1000"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1:2"}, Code: 2, Want: []string{`--ratio "1:2"`, "between 0.001 and 1000"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", ""}, Code: 2, Want: []string{`--ratio ""`, "empty"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1e400"}, Code: 2, Want: []string{`--ratio "1e400"`, "out of range"}},
+		{Args: []string{"--mode", "TE011", "--freq", "10GHzz", "--ratio", "1"}, Code: 2, Want: []string{`--freq "10GHzz"`, "unknown unit"}},
+		{Args: []string{"--mode", "TE0", "--freq", "5GHz", "--ratio", "1"}, Code: 2, Want: []string{`--mode "TE0"`, "three indices"}},
+		{Args: []string{"--mode", "TE011", "--freq", "5GHz", "--ratio", "1", "extra"}, Code: 2, Want: []string{"extra"}},
+	})
 }
-
-var prompt = regexp.MustCompile(`^\s*\$ cylcav (.*)$`)
 
 // TestSizeHelpExample runs the worked examples of `cylcav size --help` and
 // checks that the lines they show appear, in order, in the real output.
 func TestSizeHelpExample(t *testing.T) {
-	lines := strings.Split(size.NewCmdSize(cmdutil.Test(nil, nil), nil).Example, "\n")
-	ran := 0
-	for i := 0; i < len(lines); i++ {
-		m := prompt.FindStringSubmatch(lines[i])
-		if m == nil {
-			continue
-		}
-		out, errOut, code := cylcav(t, strings.Fields(m[1])...)
-		if code != 0 {
-			t.Errorf("example %q: exit %d, stderr %q", m[1], code, errOut)
-			continue
-		}
-		ran++
-		got := strings.Split(out, "\n")
-		k := 0
-		for i+1 < len(lines) && strings.TrimSpace(lines[i+1]) != "" && !prompt.MatchString(lines[i+1]) {
-			i++
-			want := strings.TrimPrefix(lines[i], "  ")
-			for k < len(got) && got[k] != want {
-				k++
-			}
-			if k == len(got) {
-				t.Errorf("example %q: output lacks %q (in order); got:\n%s", m[1], want, out)
-				break
-			}
-		}
-	}
-	if ran == 0 {
-		t.Error("help text has no worked example")
-	}
+	clitest.CheckExamples(t, size.NewCmdSize(cmdutil.Test(nil, nil), nil).Example)
 }

@@ -39,8 +39,9 @@ type Options struct {
 // step (for tests of flag parsing).
 func NewCmdTune(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var mode, diameter, radius, lrange, fill, sphere, at string
+	var mode, lrange, sphere, at string
 	var checkFormat func() error
+	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "tune --mode MODE (--diameter D | --radius A) --length-range LO:HI [flags]",
 		Short: "Show the tuning curve of a movable end plate, with the clearance along it",
@@ -70,17 +71,8 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = cavity.ParseMode(mode); err != nil {
 				return cmdutil.FlagError("mode", mode, err)
 			}
-			fl := cmd.Flags()
-			if fl.Changed("diameter") {
-				d, err := cmdutil.Length("diameter", diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
-				if err != nil {
-					return err
-				}
-				opts.Cavity.Radius = d / 2
-			} else {
-				if opts.Cavity.Radius, err = cmdutil.Length("radius", radius, cavity.MinSize, cavity.MaxSize); err != nil {
-					return err
-				}
+			if opts.Cavity.Radius, err = geo.Radius(); err != nil {
+				return err
 			}
 			if opts.LMin, opts.LMax, err = physics.ParseRange(lrange, physics.ParseLength); err != nil {
 				return cmdutil.FlagError("length-range", lrange, err)
@@ -98,15 +90,16 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Steps < 1 || opts.Steps > cavity.MaxTuneSteps {
 				return cmdutil.FlagError("steps", strconv.Itoa(opts.Steps), fmt.Errorf("must be between 1 and %d", cavity.MaxTuneSteps))
 			}
-			fd, err := physics.ParseDielectric(fill)
+			fd, err := geo.Dielectric()
 			if err != nil {
-				return cmdutil.FlagError("fill", fill, err)
+				return err
 			}
 			opts.Cavity.EpsR, opts.Cavity.MuR, opts.FillName = fd.EpsR, fd.MuR, fd.Name
 			opts.Cavity.Length = opts.LMin
 			if err := opts.Cavity.Validate(); err != nil {
 				return cmdutil.Usagef("%v", err)
 			}
+			fl := cmd.Flags()
 			if fl.Changed("sphere") != fl.Changed("at") {
 				return cmdutil.Usagef("--sphere and --at go together, e.g. --sphere 1mm --at 20mm,0,15mm")
 			}
@@ -130,19 +123,21 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (required)")
-	f.StringVar(&diameter, "diameter", "", "inside diameter, e.g. 40mm")
-	f.StringVar(&radius, "radius", "", "inside radius (instead of --diameter)")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter:    "inside diameter, e.g. 40mm",
+		Radius:      "inside radius (instead of --diameter)",
+		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1",
+		FillDefault: "air",
+		CobraChecks: true,
+	})
 	f.StringVar(&lrange, "length-range", "", "end-plate spacing range LO:HI, e.g. 28mm:32mm (required)")
 	f.IntVar(&opts.Steps, "steps", 10, "number of steps between the ends of the range")
-	f.StringVar(&fill, "fill", "air", "fill dielectric: a library name (air, ptfe, ...) or eps=2.1")
 	f.BoolVar(&opts.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
 	f.StringVar(&sphere, "sphere", "", "radius of a small metal sphere or screw tip, e.g. 1mm")
 	f.StringVar(&at, "at", "", "its centre RHO,PHI,Z (PHI in degrees, Z from end plate A), e.g. 20mm,0,15mm")
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.MarkFlagRequired("mode")
 	_ = cmd.MarkFlagRequired("length-range")
-	cmd.MarkFlagsMutuallyExclusive("diameter", "radius")
-	cmd.MarkFlagsOneRequired("diameter", "radius")
 	return cmd
 }
 

@@ -1,45 +1,33 @@
-package tune
+package tune_test
 
 import (
-	"bytes"
 	"encoding/json"
 	"strings"
 	"testing"
 
-	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/tune"
 )
 
-func run(t *testing.T, args ...string) (string, error) {
-	t.Helper()
-	var out, errOut bytes.Buffer
-	cmd := NewCmdTune(cmdutil.Test(&out, &errOut), nil)
-	cmd.SetArgs(args)
-	cmd.SetOut(&out)
-	cmd.SetErr(&errOut)
-	cmd.SilenceUsage, cmd.SilenceErrors = true, true
-	err := cmd.Execute()
-	return out.String(), err
-}
-
 func TestTuneTable(t *testing.T) {
-	out, err := run(t, "--mode", "TE011", "--diameter", "40mm", "--length-range", "25mm:40mm", "--steps", "3", "--sphere", "1mm", "--at", "20mm,0,15mm")
-	if err != nil {
-		t.Fatal(err)
+	r := clitest.Run(t, "tune", "--mode", "TE011", "--diameter", "40mm", "--length-range", "25mm:40mm", "--steps", "3", "--sphere", "1mm", "--at", "20mm,0,15mm")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
 	for _, want := range []string{"n azimuthal", "Crossing: TE112", "Worst clearance", "screw tip", "TM111"} {
-		if !strings.Contains(out, want) {
-			t.Errorf("tune output lacks %q:\n%s", want, out)
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("tune output lacks %q:\n%s", want, r.Stdout)
 		}
 	}
 }
 
 func TestTuneJSON(t *testing.T) {
-	out, err := run(t, "--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--steps", "4", "--format", "json")
-	if err != nil {
-		t.Fatal(err)
+	r := clitest.Run(t, "tune", "--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--steps", "4", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
-	var o Output
-	if err := json.Unmarshal([]byte(out), &o); err != nil {
+	var o tune.Output
+	if err := json.Unmarshal([]byte(r.Stdout), &o); err != nil {
 		t.Fatal(err)
 	}
 	if len(o.Points) != 5 || o.Points[0].FHz <= o.Points[4].FHz {
@@ -54,8 +42,8 @@ func TestTuneErrors(t *testing.T) {
 		{"--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--sphere", "1mm"},
 		{"--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--sphere", "1mm", "--at", "19.5mm,0,15mm"},
 	} {
-		if _, err := run(t, args...); cmdutil.ExitStatus(err) != 2 {
-			t.Errorf("tune %v: error %v, want a usage error (status 2)", args, err)
+		if r := clitest.Run(t, append([]string{"tune"}, args...)...); r.Code != 2 {
+			t.Errorf("tune %v: exit %d, stderr %q; want a usage error (status 2)", args, r.Code, r.Stderr)
 		}
 	}
 }

@@ -1,0 +1,211 @@
+package cmdutil
+
+import (
+	"errors"
+
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
+
+	"cylcav/cavity"
+	"cylcav/physics"
+	"cylcav/qfactor"
+)
+
+// Geometry describes the cavity flags of one command: which of --diameter,
+// --radius, --length and --fill it has and their help texts, the default of
+// --fill, and how a missing or doubled size is reported. The zero value
+// registers no flag.
+type Geometry struct {
+	// Diameter, Radius, Length and Fill are the help texts of the flags; a
+	// flag with an empty help text is not registered.
+	Diameter, Radius, Length, Fill string
+
+	// FillDefault is the default of --fill, read like a given value when
+	// --fill is absent ("air"). Empty means vacuum: --fill is read only
+	// when given.
+	FillDefault string
+
+	// CobraChecks has cobra require exactly one of --diameter and --radius,
+	// and --length when registered, before the command runs, in cobra's
+	// words. Otherwise Radius and Cavity report those with SizeErrors.
+	CobraChecks bool
+
+	// SizeErrors word the usage errors of Radius and Cavity; an empty field
+	// takes the default wording (see SizeErrors).
+	SizeErrors SizeErrors
+}
+
+// SizeErrors are the messages of the usage errors for a missing or doubled
+// cavity size. The defaults are "give either --diameter or --radius, not
+// both", "--diameter or --radius is required, e.g. --diameter 50mm" and
+// "--length is required, e.g. --length 50mm".
+type SizeErrors struct {
+	Both, NoSize, NoLength string
+}
+
+func (e SizeErrors) both() error {
+	return sizeError(e.Both, "give either --diameter or --radius, not both")
+}
+
+func (e SizeErrors) noSize() error {
+	return sizeError(e.NoSize, "--diameter or --radius is required, e.g. --diameter 50mm")
+}
+
+func (e SizeErrors) noLength() error {
+	return sizeError(e.NoLength, "--length is required, e.g. --length 50mm")
+}
+
+func sizeError(msg, def string) error {
+	if msg == "" {
+		msg = def
+	}
+	return &UsageError{Err: errors.New(msg)}
+}
+
+// GeometryFlags are the cavity flags registered by AddGeometryFlags. Its
+// methods read them after parsing; every error is a usage error naming the
+// flag, the value and the valid range.
+type GeometryFlags struct {
+	flags                          *pflag.FlagSet
+	geo                            Geometry
+	diameter, radius, length, fill string
+}
+
+// AddGeometryFlags registers the cavity flags that g names on cmd.
+func AddGeometryFlags(cmd *cobra.Command, g Geometry) *GeometryFlags {
+	gf := &GeometryFlags{flags: cmd.Flags(), geo: g}
+	f := cmd.Flags()
+	for _, fl := range []struct {
+		p          *string
+		name, help string
+		def        string
+	}{
+		{&gf.diameter, "diameter", g.Diameter, ""},
+		{&gf.radius, "radius", g.Radius, ""},
+		{&gf.length, "length", g.Length, ""},
+		{&gf.fill, "fill", g.Fill, g.FillDefault},
+	} {
+		if fl.help != "" {
+			f.StringVar(fl.p, fl.name, fl.def, fl.help)
+		}
+	}
+	if g.CobraChecks {
+		cmd.MarkFlagsMutuallyExclusive("diameter", "radius")
+		cmd.MarkFlagsOneRequired("diameter", "radius")
+		if g.Length != "" {
+			_ = cmd.MarkFlagRequired("length")
+		}
+	}
+	return gf
+}
+
+// Changed reports whether the flag name was given on the command line (an
+// empty value counts: it is rejected when read, never taken as absent).
+func (gf *GeometryFlags) Changed(name string) bool { return gf.flags.Changed(name) }
+
+// Text returns the value of the geometry flag name as given ("" for a flag
+// that is not one of them), for error messages that quote it.
+func (gf *GeometryFlags) Text(name string) string {
+	switch name {
+	case "diameter":
+		return gf.diameter
+	case "radius":
+		return gf.radius
+	case "length":
+		return gf.length
+	case "fill":
+		return gf.fill
+	}
+	return ""
+}
+
+// Diameter returns --diameter in metres, between 2 cavity.MinSize and
+// 2 cavity.MaxSize.
+func (gf *GeometryFlags) Diameter() (float64, error) {
+	return Length("diameter", gf.diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+}
+
+// Length returns --length in metres, between cavity.MinSize and
+// cavity.MaxSize.
+func (gf *GeometryFlags) Length() (float64, error) {
+	return Length("length", gf.length, cavity.MinSize, cavity.MaxSize)
+}
+
+// Radius returns the cavity radius in metres: half of --diameter (see
+// Diameter) or --radius, between cavity.MinSize and cavity.MaxSize. Exactly
+// one of the two must be given.
+func (gf *GeometryFlags) Radius() (float64, error) {
+	set := gf.flags.Changed
+	switch {
+	case set("diameter") && set("radius"):
+		return 0, gf.geo.SizeErrors.both()
+	case set("diameter"):
+		d, err := gf.Diameter()
+		return d / 2, err
+	case set("radius"):
+		return Length("radius", gf.radius, cavity.MinSize, cavity.MaxSize)
+	}
+	return 0, gf.geo.SizeErrors.noSize()
+}
+
+// Cavity reads the whole cavity: the radius (Radius), --length (required)
+// and the fill (Dielectric), in that order. The cavity's EpsR and MuR are
+// the fill's; fill is the dielectric with its loss tangents.
+func (gf *GeometryFlags) Cavity() (c cavity.Cavity, fill physics.Dielectric, err error) {
+	if c.Radius, err = gf.Radius(); err != nil {
+		return c, fill, err
+	}
+	if !gf.flags.Changed("length") {
+		return c, fill, gf.geo.SizeErrors.noLength()
+	}
+	if c.Length, err = gf.Length(); err != nil {
+		return c, fill, err
+	}
+	if fill, err = gf.Dielectric(); err != nil {
+		return c, fill, err
+	}
+	c.EpsR, c.MuR = fill.EpsR, fill.MuR
+	return c, fill, nil
+}
+
+// Dielectric reads --fill (or its default, Geometry.FillDefault) with
+// physics.ParseDielectric and checks it against the limits of cavity.Fill
+// and qfactor.Fill. With nothing to read it returns vacuum: eps_r = mu_r = 1,
+// no loss, named "vacuum".
+func (gf *GeometryFlags) Dielectric() (physics.Dielectric, error) {
+	d, ok, err := gf.read()
+	if !ok && err == nil {
+		d = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
+	}
+	return d, err
+}
+
+// Fill reads --fill as Dielectric does and returns it as a cavity fill with
+// the material's name (a library name, or "user" for values given as
+// eps=...). With nothing to read it returns the zero Fill (vacuum) and "".
+func (gf *GeometryFlags) Fill() (cavity.Fill, string, error) {
+	d, ok, err := gf.read()
+	if !ok || err != nil {
+		return cavity.Fill{}, "", err
+	}
+	return cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}, d.Name, nil
+}
+
+// read parses and checks --fill; ok is false when there is nothing to read
+// (no --fill and no default).
+func (gf *GeometryFlags) read() (d physics.Dielectric, ok bool, err error) {
+	if !gf.flags.Changed("fill") && gf.geo.FillDefault == "" {
+		return d, false, nil
+	}
+	spec := gf.fill
+	if d, err = physics.ParseDielectric(spec); err != nil {
+		return d, false, FlagError("fill", spec, err)
+	}
+	if err := (cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}).Validate(); err != nil {
+		return d, false, FlagError("fill", spec, err)
+	}
+	if err := (qfactor.Fill{TanDelta: d.TanDelta, TanDeltaM: d.TanDeltaM}).Validate(); err != nil {
+		return d, false, FlagError("fill", spec, err)
+	}
+	return d, true, nil
+}
