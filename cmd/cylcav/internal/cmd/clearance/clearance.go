@@ -50,7 +50,7 @@ wanted frequency, or a frequency such as 500MHz).
 
 Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Example: `  # An air-filled TE011 cavity 40 mm across and 30 mm long
-  $ cylcav clearance --mode TE011 --diameter 40mm --length 30mm --window 15%
+  $ cylcav clearance --mode TE011 --diameter 40mm --length 30mm --fill air --window 15%
 
   # The same cavity filled with PTFE, as JSON
   $ cylcav clearance --mode TE011 --diameter 40mm --length 30mm --fill ptfe --format json`,
@@ -84,8 +84,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Diameter:    "inside diameter, e.g. 40mm",
 		Radius:      "inside radius (instead of --diameter)",
 		Length:      "inside length between the end plates, e.g. 30mm (required)",
-		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4",
-		FillDefault: "air",
+		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4 (default vacuum)",
 		CobraChecks: true,
 	})
 	f.StringVar(&window, "window", "10%", "list modes within this distance: a percentage or a frequency")

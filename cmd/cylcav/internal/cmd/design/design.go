@@ -73,7 +73,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
   $ cylcav design
 
   # An air-filled copper TE011 cavity at 10 GHz, D/L between 0.5 and 3
-  $ cylcav design --mode TE011 --freq 10GHz --wall copper --ratio-range 0.5:3
+  $ cylcav design --mode TE011 --freq 10GHz --fill air --wall copper --ratio-range 0.5:3
 
   # Highest Q0 with at least 5 % clearance, +-1 % tuning, -20 C..60 C,
   # machined to +-0.02 mm, as JSON
@@ -114,8 +114,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011")
 	f.StringVar(&freq, "freq", "", "wanted frequency, e.g. 10GHz")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
-		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm",
-		FillDefault: "air",
+		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
 	})
 	f.StringVar(&wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
 	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")

@@ -126,8 +126,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter:    "inside diameter, e.g. 40mm",
 		Radius:      "inside radius (instead of --diameter)",
-		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1",
-		FillDefault: "air",
+		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1 (default vacuum)",
 		CobraChecks: true,
 	})
 	f.StringVar(&lrange, "length-range", "", "end-plate spacing range LO:HI, e.g. 28mm:32mm (required)")
