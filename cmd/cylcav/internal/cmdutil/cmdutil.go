@@ -12,6 +12,7 @@ import (
 	"strconv"
 	"strings"
 
+	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 	"golang.org/x/term"
 )
@@ -115,4 +116,17 @@ func ExitStatus(err error) int {
 		return 2
 	}
 	return 1
+}
+
+// RejectEmptyFlags returns a UsageError for the first string-valued flag
+// that was given with an empty value (--fill= or --zeros ""), so that an
+// empty value is never mistaken for an absent flag.
+func RejectEmptyFlags(cmd *cobra.Command) error {
+	var err error
+	cmd.Flags().Visit(func(f *pflag.Flag) {
+		if err == nil && f.Value.Type() == "string" && f.Value.String() == "" {
+			err = FlagError(f.Name, "", errors.New("empty value; give a value or leave the flag out"))
+		}
+	})
+	return err
 }

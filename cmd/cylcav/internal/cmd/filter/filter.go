@@ -192,7 +192,12 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.IntVar(&opts.DPI, "dpi", modechart.DefaultDPI, "resolution of a PNG plot, dots per inch")
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
-	cmd.PreRunE = func(*cobra.Command, []string) error { return validFormat() }
+	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
+		if err := cmdutil.RejectEmptyFlags(c); err != nil {
+			return err
+		}
+		return validFormat()
+	}
 	_ = cmd.RegisterFlagCompletionFunc("response", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
 		return []string{"chebyshev", "butterworth"}, cobra.ShellCompDirectiveNoFileComp
 	})

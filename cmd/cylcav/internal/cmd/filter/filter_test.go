@@ -457,6 +457,9 @@ func TestBadInput(t *testing.T) {
 		{[]string{"--f0", "10GHz", "--bw", "200MHz", "--order", "3", "--format", "csv"}, "--format"},
 		{[]string{"--f0", "10GHz", "--bw", "200MHz", "--order", "abc"}, "--order"},
 		{[]string{"--f0", "10GHz", "--bw", "200MHz", "--order", "3", "--dpi", "5"}, "--dpi"},
+		{[]string{"--f0", "10GHz", "--bw", "200MHz", "--order", "3", "--fill="}, `--fill ""`},
+		{[]string{"--f0", "10GHz", "--bw", "200MHz", "--order", "3", "--zeros", ""}, `--zeros ""`},
+		{[]string{"--f0", "10GHz", "--bw", "", "--order", "3"}, `--bw ""`},
 	} {
 		dir := t.TempDir()
 		ts, pl := filepath.Join(dir, "x.s2p"), filepath.Join(dir, "x.png")
