@@ -2,11 +2,7 @@ package filter
 
 import (
 	"bytes"
-	"encoding/xml"
-	"errors"
 	"flag"
-	"image/png"
-	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -15,6 +11,7 @@ import (
 	"testing"
 
 	"cylcav/modechart"
+	"cylcav/modechart/rendertest"
 )
 
 var regenPlot = flag.Bool("regen", false, "rewrite testdata/filter/response_golden.svg")
@@ -325,51 +322,20 @@ func render(t testing.TB, f modechart.Format, points int) []byte {
 
 func TestResponsePlotFiles(t *testing.T) {
 	pngB := render(t, modechart.PNG, 201)
-	img, err := png.Decode(bytes.NewReader(pngB))
-	if err != nil {
-		t.Fatalf("PNG does not decode: %v", err)
-	}
-	// 8 x 6 in at 150 dpi (modechart defaults).
-	if b := img.Bounds(); b.Dx() != 1200 || b.Dy() != 900 {
-		t.Errorf("PNG size = %dx%d, want 1200x900", b.Dx(), b.Dy())
-	}
+	rendertest.PNG(t, pngB, 1200, 900) // 8 x 6 in at 150 dpi (modechart defaults)
 	svg := render(t, modechart.SVG, 201)
-	checkXML(t, svg)
+	rendertest.SVG(t, svg)
 	for _, want := range []string{"|S21|, transmission", "group delay of S21", "return-loss limit, -20 dB", "frequency   [GHz]"} {
 		if !bytes.Contains(svg, []byte(want)) {
 			t.Errorf("SVG lacks the text %q", want)
 		}
 	}
 	pdf := render(t, modechart.PDF, 201)
-	if !bytes.HasPrefix(pdf, []byte("%PDF-")) || !bytes.HasSuffix(bytes.TrimRight(pdf, "\r\n"), []byte("%%EOF")) {
-		t.Errorf("PDF lacks the %q header or the %q trailer", "%PDF-", "%%EOF")
-	}
+	rendertest.PDF(t, pdf)
 	for _, f := range []modechart.Format{modechart.PNG, modechart.SVG, modechart.PDF} {
 		if a, b := render(t, f, 201), render(t, f, 201); !bytes.Equal(a, b) {
 			t.Errorf("two %v renders of the same plot differ", f)
 		}
-	}
-}
-
-// checkXML parses b as XML to the end and checks that the root is svg.
-func checkXML(t *testing.T, b []byte) {
-	t.Helper()
-	dec := xml.NewDecoder(bytes.NewReader(b))
-	root := ""
-	for {
-		tok, err := dec.Token()
-		if errors.Is(err, io.EOF) {
-			break
-		}
-		if err != nil {
-			t.Fatalf("SVG is not well-formed XML: %v", err)
-		}
-		if se, ok := tok.(xml.StartElement); ok && root == "" {
-			root = se.Name.Local
-		}
-	}
-	if root != "svg" {
-		t.Errorf("SVG root element = %q, want svg", root)
 	}
 }
 

@@ -5,8 +5,6 @@ import (
 	"encoding/xml"
 	"flag"
 	"fmt"
-	"image/png"
-	"io"
 	"math"
 	"os"
 	"path/filepath"
@@ -20,6 +18,7 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 
 	"cylcav/cavity"
+	"cylcav/modechart/rendertest"
 )
 
 var regen = flag.Bool("regen", false, "rewrite the golden files in testdata/modechart")
@@ -214,31 +213,9 @@ func TestFormats(t *testing.T) {
 		}
 		switch f {
 		case PNG:
-			img, err := png.Decode(bytes.NewReader(a))
-			if err != nil {
-				t.Fatalf("PNG does not decode: %v", err)
-			}
-			if got := img.Bounds().Size(); got.X != 600 || got.Y != 450 {
-				t.Errorf("PNG size = %v, want 600x450 (6 x 4.5 in at 100 dpi)", got)
-			}
+			rendertest.PNG(t, a, 600, 450) // 6 x 4.5 in at 100 dpi
 		case SVG:
-			dec := xml.NewDecoder(bytes.NewReader(a))
-			root := ""
-			for {
-				tok, err := dec.Token()
-				if err == io.EOF {
-					break
-				}
-				if err != nil {
-					t.Fatalf("SVG is not well-formed XML: %v", err)
-				}
-				if se, ok := tok.(xml.StartElement); ok && root == "" {
-					root = se.Name.Local
-				}
-			}
-			if root != "svg" {
-				t.Errorf("SVG root element = %q, want svg", root)
-			}
+			rendertest.SVG(t, a)
 			if !bytes.Contains(a, []byte("TE011/TM111")) {
 				t.Error("SVG lacks the wanted mode's label")
 			}
@@ -246,12 +223,7 @@ func TestFormats(t *testing.T) {
 				t.Error("SVG fonts lack the sans-serif fallbacks")
 			}
 		case PDF:
-			if !bytes.HasPrefix(a, []byte("%PDF-")) {
-				t.Errorf("PDF starts %q, want %%PDF-", a[:min(8, len(a))])
-			}
-			if !bytes.HasSuffix(bytes.TrimRight(a, "\r\n"), []byte("%%EOF")) {
-				t.Errorf("PDF does not end in %%%%EOF")
-			}
+			rendertest.PDF(t, a)
 			if !bytes.Contains(a, []byte("/CreationDate (D:"+FixedPDFDate)) {
 				t.Error("PDF creation date not fixed")
 			}

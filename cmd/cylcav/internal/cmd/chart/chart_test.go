@@ -2,8 +2,6 @@ package chart_test
 
 import (
 	"bytes"
-	"encoding/xml"
-	"image/png"
 	"math"
 	"os"
 	"path/filepath"
@@ -14,6 +12,7 @@ import (
 	"cylcav/cmd/cylcav/internal/cmd/chart"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/modechart"
+	"cylcav/modechart/rendertest"
 )
 
 // parse runs `chart` with runF capturing the options.
@@ -48,21 +47,11 @@ func TestWritesEveryFormat(t *testing.T) {
 		}
 		switch ext {
 		case "png":
-			img, err := png.Decode(bytes.NewReader(b))
-			if err != nil {
-				t.Fatalf("PNG does not decode: %v", err)
-			}
-			if s := img.Bounds().Size(); s.X != 576 || s.Y != 432 {
-				t.Errorf("PNG size %v, want 576x432 (8 x 6 in at 72 dpi)", s)
-			}
+			rendertest.PNG(t, b, 576, 432) // 8 x 6 in at 72 dpi
 		case "svg":
-			if err := xml.Unmarshal(b, new(struct{})); err != nil {
-				t.Errorf("SVG is not XML: %v", err)
-			}
+			rendertest.SVG(t, b)
 		case "pdf":
-			if !bytes.HasPrefix(b, []byte("%PDF-")) || !bytes.Contains(b[len(b)-16:], []byte("%%EOF")) {
-				t.Error("PDF lacks its header or trailer")
-			}
+			rendertest.PDF(t, b)
 		}
 		for _, want := range []string{"wrote " + path, "spurious modes crossing the operating box: TM012, TE212",
 			"within 3 % clearance of it: TE112", "companion on the same line: TM111", "n azimuthal, m radial, p axial"} {

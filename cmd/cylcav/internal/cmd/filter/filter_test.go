@@ -4,9 +4,6 @@ import (
 	"bufio"
 	"bytes"
 	"encoding/json"
-	"encoding/xml"
-	"errors"
-	"image/png"
 	"io"
 	"math"
 	"os"
@@ -20,6 +17,7 @@ import (
 	filtercmd "cylcav/cmd/cylcav/internal/cmd/filter"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	bandpass "cylcav/filter"
+	"cylcav/modechart/rendertest"
 )
 
 // Tolerances.
@@ -366,31 +364,14 @@ func TestPlotFiles(t *testing.T) {
 		}
 		switch filepath.Ext(name) {
 		case ".png":
-			img, err := png.Decode(bytes.NewReader(b))
-			if err != nil {
-				t.Fatalf("%s does not decode: %v", name, err)
-			}
-			if s := img.Bounds().Size(); s.X != 576 || s.Y != 432 {
-				t.Errorf("%s is %dx%d, want 576x432 (8 x 6 in at 72 dpi)", name, s.X, s.Y)
-			}
+			rendertest.PNG(t, b, 576, 432) // 8 x 6 in at 72 dpi
 		case ".svg":
-			dec := xml.NewDecoder(bytes.NewReader(b))
-			for {
-				_, err := dec.Token()
-				if errors.Is(err, io.EOF) {
-					break
-				}
-				if err != nil {
-					t.Fatalf("%s is not well-formed XML: %v", name, err)
-				}
-			}
+			rendertest.SVG(t, b)
 			if !bytes.Contains(b, []byte("field solver")) {
 				t.Errorf("%s lacks the field-solver note", name)
 			}
 		case ".pdf":
-			if !bytes.HasPrefix(b, []byte("%PDF-")) || !bytes.HasSuffix(bytes.TrimRight(b, "\r\n"), []byte("%%EOF")) {
-				t.Errorf("%s lacks the PDF header or trailer", name)
-			}
+			rendertest.PDF(t, b)
 		}
 	}
 }

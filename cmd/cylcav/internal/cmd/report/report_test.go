@@ -16,6 +16,7 @@ import (
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/report"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/modechart/rendertest"
 	"cylcav/physics"
 )
 
@@ -78,9 +79,7 @@ func TestDemoDatasheet(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !bytes.HasPrefix(p, []byte("%PDF-")) || !bytes.HasSuffix(bytes.TrimRight(p, "\r\n"), []byte("%%EOF")) {
-		t.Error("PDF datasheet lacks its header or trailer")
-	}
+	rendertest.PDF(t, p)
 	if n := bytes.Count(p, []byte("/Type /Page\n")); n < 4 {
 		t.Errorf("PDF datasheet has %d pages, want at least 4", n)
 	}
