@@ -130,3 +130,32 @@ func RejectEmptyFlags(cmd *cobra.Command) error {
 	})
 	return err
 }
+
+// CheckedWriter passes writes through to another writer and remembers the
+// first error, so that a command whose output could not be written (a full
+// disk, `cylcav design >/dev/full`) exits with status 1 even where its code
+// does not look at the error of each print. root.Main wraps standard output
+// in one.
+type CheckedWriter struct {
+	w   io.Writer
+	err error
+}
+
+// NewCheckedWriter returns a CheckedWriter on w.
+func NewCheckedWriter(w io.Writer) *CheckedWriter { return &CheckedWriter{w: w} }
+
+// Write writes p to the underlying writer. After the first error it writes
+// nothing more and returns that error.
+func (c *CheckedWriter) Write(p []byte) (int, error) {
+	if c.err != nil {
+		return 0, c.err
+	}
+	n, err := c.w.Write(p)
+	if err != nil {
+		c.err = err
+	}
+	return n, err
+}
+
+// Err returns the first write error, or nil.
+func (c *CheckedWriter) Err() error { return c.err }

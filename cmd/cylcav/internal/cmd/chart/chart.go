@@ -164,6 +164,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Format, err = modechart.FormatOf(opts.Output); err != nil {
 				return cmdutil.FlagError("output", opts.Output, errors.New("the file name must end in .png, .svg or .pdf"))
 			}
+			if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "output", Path: opts.Output}); err != nil {
+				return err
+			}
 			if dpi < modechart.MinDPI || dpi > modechart.MaxDPI {
 				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", modechart.MinDPI, modechart.MaxDPI))
 			}
@@ -326,10 +329,11 @@ func runChart(opts *Options) error {
 	if err != nil {
 		return err
 	}
-	err = cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
-		return modechart.Render(b, fig, opts.Format, opts.Page)
-	})
-	if err != nil {
+	var b bytes.Buffer
+	if err := modechart.Render(&b, fig, opts.Format, opts.Page); err != nil {
+		return err
+	}
+	if err := cmdutil.WriteFiles(opts.Force, cmdutil.File{Flag: "output", Path: opts.Output, Data: b.Bytes()}); err != nil {
 		return err
 	}
 	return summary(opts.IO.Out, opts, ch)

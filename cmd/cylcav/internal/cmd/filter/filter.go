@@ -476,5 +476,12 @@ func (opts *Options) parseOutput(spanS string) error {
 	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
 		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)
 	}
-	return nil
+	var files []cmdutil.File
+	if opts.Touchstone != "" {
+		files = append(files, cmdutil.File{Flag: "touchstone", Path: opts.Touchstone})
+	}
+	if opts.Plot != "" {
+		files = append(files, cmdutil.File{Flag: "plot", Path: opts.Plot})
+	}
+	return cmdutil.CheckFiles(opts.Force, files...)
 }

@@ -1,10 +1,16 @@
 package root_test
 
 import (
+	"bytes"
+	"os"
+	"path/filepath"
 	"strings"
+	"syscall"
 	"testing"
 
 	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/root"
+	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
 // cheapCommands are the commands FuzzMain runs: each finishes in
@@ -101,6 +107,70 @@ func TestCompletionNeedsShell(t *testing.T) {
 		}
 		if r.Code != 0 && (r.Stdout != "" || strings.Count(r.Stderr, "\n") != 1) {
 			t.Errorf("cylcav %q: stdout %.80q, stderr %q; want no output and one line", tc.args, r.Stdout, r.Stderr)
+		}
+	}
+}
+
+// TestUnwritableStdout runs commands whose standard output is /dev/full
+// (every write fails with ENOSPC, Linux) and checks that each fails with
+// status 1 and says so: `cylcav design >/dev/full` exited 0 before.
+func TestUnwritableStdout(t *testing.T) {
+	full, err := os.OpenFile("/dev/full", os.O_WRONLY, 0)
+	if err != nil {
+		t.Skip("no /dev/full:", err)
+	}
+	defer full.Close()
+	for _, args := range [][]string{
+		{"design"},
+		{"design", "--format", "json"},
+		{"version"},
+		{"materials"},
+		{"modes", "--diameter", "50mm", "--length", "50mm"},
+		{"size", "--mode", "TE011", "--freq", "5GHz", "--ratio", "1"},
+		{"design", "--help"},
+	} {
+		var errOut bytes.Buffer
+		code := root.Main(cmdutil.Test(full, &errOut), args)
+		if code != 1 || !strings.Contains(errOut.String(), "no space left on device") {
+			t.Errorf("cylcav %s >/dev/full: exit %d, stderr %q; want exit 1 and the write error", strings.Join(args, " "), code, errOut.String())
+		}
+	}
+}
+
+// TestOutputsAllOrNone checks that the commands writing two files write
+// both or neither: a second path that cannot be written (an existing file
+// without --force, a missing directory, a device) is refused with status 2
+// before anything is written, and the first file is not left behind.
+func TestOutputsAllOrNone(t *testing.T) {
+	dir := t.TempDir()
+	existing := filepath.Join(dir, "old.pdf")
+	if err := os.WriteFile(existing, []byte("old"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	fifo := filepath.Join(dir, "pipe.pdf")
+	if err := syscall.Mkfifo(fifo, 0o644); err != nil {
+		t.Skip("mkfifo:", err)
+	}
+	html := filepath.Join(dir, "x.html")
+	s2p := filepath.Join(dir, "f.s2p")
+	filter := []string{"filter", "--f0", "10GHz", "--bw", "100MHz", "--order", "3", "--touchstone", s2p}
+	for _, tc := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"report", "-o", html, "--pdf", existing}, "--pdf"},
+		{[]string{"report", "-o", html, "--pdf", filepath.Join(dir, "nodir", "x.pdf")}, "does not exist"},
+		{[]string{"report", "-o", html, "--pdf", fifo, "--force"}, "not a regular file (a named pipe)"},
+		{append(filter, "--plot", filepath.Join(dir, "nodir", "p.svg")), "--plot"},
+		{append(filter, "--plot", fifo, "--force"), "not a regular file"},
+		{[]string{"chart", "--diameter", "40mm", "--length", "30mm", "-o", filepath.Join(dir, "nodir", "c.svg")}, "--output"},
+	} {
+		r := clitest.Run(t, tc.args...)
+		if r.Code != 2 || !strings.Contains(r.Stderr, tc.want) {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want exit 2 naming %q", strings.Join(tc.args, " "), r.Code, r.Stderr, tc.want)
+		}
+		if es, _ := os.ReadDir(dir); len(es) != 2 {
+			t.Errorf("cylcav %s: left %d files in the directory, want only old.pdf and pipe.pdf", strings.Join(tc.args, " "), len(es))
 		}
 	}
 }

@@ -3,7 +3,9 @@
 package root
 
 import (
+	"errors"
 	"fmt"
+	"io/fs"
 
 	"github.com/spf13/cobra"
 
@@ -62,8 +64,15 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 
 // Main runs cylcav with the given arguments and returns the exit status:
 // 0 on success, 2 for bad input, 1 for any other failure.
-func Main(io *cmdutil.IOStreams, args []string) int {
-	cmd := NewCmdRoot(io)
+//
+// Standard output goes through a cmdutil.CheckedWriter: a run whose output
+// could not be written (a full disk, a closed pipe) fails with status 1,
+// whichever command it was.
+func Main(streams *cmdutil.IOStreams, args []string) int {
+	out := cmdutil.NewCheckedWriter(streams.Out)
+	io := *streams
+	io.Out = out
+	cmd := NewCmdRoot(&io)
 	cmd.SetArgs(args)
 	// Cobra reports unknown commands, bad arguments, unknown flags and
 	// missing required flags as plain errors before any command runs; those
@@ -71,8 +80,16 @@ func Main(io *cmdutil.IOStreams, args []string) int {
 	// status, so every RunE is wrapped to record that it started.
 	started := false
 	markStarted(cmd, &started)
-	if err := cmd.Execute(); err != nil {
-		if !started && !cmdutil.IsUsage(err) {
+	err := cmd.Execute()
+	if werr := out.Err(); err == nil && werr != nil {
+		var pe *fs.PathError
+		if errors.As(werr, &pe) {
+			werr = pe.Err
+		}
+		err = fmt.Errorf("writing standard output: %w", werr)
+	}
+	if err != nil {
+		if !started && !cmdutil.IsUsage(err) && out.Err() == nil {
 			err = &cmdutil.UsageError{Err: err}
 		}
 		fmt.Fprintf(io.ErrOut, "cylcav: %v\n", err)
