@@ -63,8 +63,10 @@ func Usagef(format string, a ...any) error {
 // FlagError returns a UsageError that names the flag and its value:
 //
 //	--diameter "-3mm": must be > 0 m
+//
+// A value longer than 80 characters is quoted cut short, ending in "...".
 func FlagError(flag, value string, err error) error {
-	return &UsageError{Err: fmt.Errorf("--%s %q: %w", flag, value, err)}
+	return &UsageError{Err: fmt.Errorf("--%s %s: %w", flag, quoteValue(value), err)}
 }
 
 // FlagValueError rewrites the parser's error for a typed flag given a value
@@ -77,6 +79,9 @@ func FlagValueError(err error) error {
 	var ive *pflag.InvalidValueError
 	if !errors.As(err, &ive) {
 		return err
+	}
+	if ve, ok := asValueError(err); ok {
+		return fmt.Errorf("--%s %s: %s", ive.GetFlag().Name, quoteValue(ive.GetValue()), ve.msg)
 	}
 	var what string
 	switch t := ive.GetFlag().Value.Type(); {
@@ -91,7 +96,7 @@ func FlagValueError(err error) error {
 	default:
 		return err
 	}
-	return fmt.Errorf("--%s %q: %s", ive.GetFlag().Name, ive.GetValue(), what)
+	return fmt.Errorf("--%s %s: %s", ive.GetFlag().Name, quoteValue(ive.GetValue()), what)
 }
 
 // CautionRF is the general caution for cavities driven at high RF power,

@@ -133,6 +133,9 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	f.IntVar(&samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
 	f.Uint64Var(&seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
 	f.BoolVar(&countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	for _, mc := range []string{"samples", "seed", "tolerance-dist"} {
+		cmdutil.Needs(cmd, mc, "tolerance", "tolerance-length")
+	}
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
 }

@@ -191,6 +191,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.IntVar(&opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints))
 	f.IntVar(&opts.DPI, "dpi", modechart.DefaultDPI, "resolution of a PNG plot, dots per inch")
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
+	cmdutil.Needs(cmd, "points", "touchstone")
+	cmdutil.Needs(cmd, "dpi", "plot")
+	cmdutil.Needs(cmd, "force", "touchstone", "plot")
+	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
 		if err := cmdutil.RejectEmptyFlags(c); err != nil {

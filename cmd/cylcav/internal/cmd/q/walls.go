@@ -47,6 +47,12 @@ func AddWallFlags(cmd *cobra.Command) *WallFlags {
 	f.StringVar(&w.platingThickness, "plating-thickness", "", "plating thickness, e.g. 5um (required with --plating)")
 	f.BoolVar(&w.superconducting, "superconducting", false, "niobium walls in the superconducting state (BCS model; needs --temperature, e.g. 2K)")
 	f.StringVar(&w.residual, "residual", "", "residual surface resistance with --superconducting, e.g. 10nohm (default 10 nohm)")
+	cmdutil.Needs(cmd, "roughness-model", "roughness")
+	cmdutil.Needs(cmd, "plating-thickness", "plating")
+	cmdutil.Needs(cmd, "residual", "superconducting")
+	for _, name := range []string{"end-wall", "end-wall-a", "end-wall-b", "roughness", "temperature", "plating", "superconducting"} {
+		cmdutil.Needs(cmd, name, "wall")
+	}
 	return w
 }
 

@@ -174,3 +174,47 @@ func TestOutputsAllOrNone(t *testing.T) {
 		}
 	}
 }
+
+// TestFlagRules checks the rules every command's flags follow
+// (cmdutil.HardenFlags, cmdutil.Needs): integers in decimal digits only
+// (pflag reads "010" as octal 8), a single-valued flag given once, and a
+// flag that needs a companion refused alone, each with status 2 and a
+// message naming the flag(s).
+func TestFlagRules(t *testing.T) {
+	cav := []string{"--diameter", "50mm", "--length", "50mm"}
+	modes := func(a ...string) []string { return append(append([]string{"modes"}, cav...), a...) }
+	flt := []string{"filter", "--f0", "10GHz", "--bw", "100MHz", "--order", "3"}
+	with := func(base []string, a ...string) []string { return append(append([]string{}, base...), a...) }
+	for _, tc := range []struct {
+		args []string
+		want []string
+	}{
+		{modes("--count", "010"), []string{`--count "010"`, "decimal"}},
+		{modes("--count", "0x10"), []string{`--count "0x10"`}},
+		{modes("--count", "0b11"), []string{`--count "0b11"`}},
+		{modes("--count", "1_0"), []string{`--count "1_0"`}},
+		{[]string{"design", "--mode", "TE011", "--freq", "10GHz", "--tolerance", "0.02mm", "--seed", "007"}, []string{`--seed "007"`}},
+		{[]string{"modes", "--diameter", "50mm", "--diameter", "40mm", "--length", "50mm"}, []string{`--diameter "40mm"`, "given twice", `"50mm"`}},
+		{[]string{"size", "--mode", "TE011", "--freq", "5GHz", "--freq", "6GHz", "--ratio", "1"}, []string{"--freq", "given twice"}},
+		{modes("--roughness", "1um"), []string{"--roughness needs --wall"}},
+		{modes("--wall", "copper", "--roughness-model", "groiss"), []string{"--roughness-model needs --roughness"}},
+		{modes("--wall", "copper", "--plating-thickness", "5um"), []string{"--plating-thickness needs --plating"}},
+		{[]string{"q", "--mode", "TE011", "--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--residual", "5nohm"}, []string{"--residual needs --superconducting"}},
+		{[]string{"design", "--mode", "TE011", "--freq", "10GHz", "--samples", "5"}, []string{"--samples needs --tolerance or --tolerance-length"}},
+		{[]string{"report", "-o", "x.html", "--mode", "TE011", "--freq", "10GHz", "--seed", "5"}, []string{"--seed needs --tolerance"}},
+		{with(flt, "--points", "11"), []string{"--points needs --touchstone"}},
+		{with(flt, "--dpi", "100"), []string{"--dpi needs --plot"}},
+		{with(flt, "--force"), []string{"--force needs --touchstone or --plot"}},
+		{with(flt, "--temperature", "2K"), []string{"--temperature needs --wall"}},
+		{[]string{"tune", "--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--at", "1mm,0,1mm"}, []string{"--at needs --sphere"}},
+	} {
+		r := clitest.Run(t, tc.args...)
+		ok := r.Code == 2 && r.Stdout == "" && strings.Count(r.Stderr, "\n") == 1
+		for _, w := range tc.want {
+			ok = ok && strings.Contains(r.Stderr, w)
+		}
+		if !ok {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want exit 2 and one line containing %q", strings.Join(tc.args, " "), r.Code, r.Stderr, tc.want)
+		}
+	}
+}

@@ -40,6 +40,11 @@ Units: lengths m, cm, mm, um, in, mil; frequencies Hz, kHz, MHz, GHz.
 Plain numbers are SI. JSON and CSV output use SI base units.`,
 		SilenceUsage:  true,
 		SilenceErrors: true,
+		// A flag given without the flag it needs is refused before any
+		// command's own checks (cmdutil.Needs).
+		PersistentPreRunE: func(c *cobra.Command, _ []string) error {
+			return cmdutil.CheckNeeds(c)
+		},
 	}
 	cmd.SetOut(io.Out)
 	cmd.SetErr(io.ErrOut)
@@ -59,6 +64,7 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.AddCommand(filter.NewCmdFilter(io, nil))
 	cmd.AddCommand(report.NewCmdReport(io, nil))
 	requireShell(cmd)
+	cmdutil.HardenFlags(cmd)
 	return cmd
 }
 

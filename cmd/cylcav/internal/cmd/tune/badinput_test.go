@@ -27,7 +27,7 @@ func TestBadInputMain(t *testing.T) {
 		{Args: append(ok, "--steps", "0"), Code: 2, Want: []string{`--steps "0"`, "between 1 and 100000"}},
 		{Args: append(ok, "--steps", "-1"), Code: 2, Want: []string{`--steps "-1"`, "between 1 and 100000"}},
 		{Args: append(ok, "--steps", "1e3"), Code: 2, Want: []string{`--steps "1e3"`, "not a whole number"}},
-		{Args: append(ok, "--sphere", "1mm"), Code: 2, Want: []string{"--sphere and --at"}},
+		{Args: append(ok, "--sphere", "1mm"), Code: 2, Want: []string{"--sphere needs --at"}},
 		{Args: append(ok, "--sphere", "", "--at", "20mm,0,15mm"), Code: 2, Want: []string{`--sphere ""`, "empty"}},
 		{Args: append(ok, "--sphere", "1mm", "--at", ""), Code: 2, Want: []string{`--at ""`, "RHO,PHI,Z"}},
 		{Args: append(ok, "--sphere", "1mm", "--at", "20mm,x,15mm"), Code: 2, Want: []string{`--at "20mm,x,15mm"`, "degrees"}},

@@ -134,6 +134,8 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.BoolVar(&opts.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
 	f.StringVar(&sphere, "sphere", "", "radius of a small metal sphere or screw tip, e.g. 1mm")
 	f.StringVar(&at, "at", "", "its centre RHO,PHI,Z (PHI in degrees, Z from end plate A), e.g. 20mm,0,15mm")
+	cmdutil.Needs(cmd, "sphere", "at")
+	cmdutil.Needs(cmd, "at", "sphere")
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.MarkFlagRequired("mode")
 	_ = cmd.MarkFlagRequired("length-range")
