@@ -460,3 +460,31 @@ func formatPlain(v float64, digits int) string {
 	r, _ := strconv.ParseFloat(e, 64)
 	return strconv.FormatFloat(r, 'f', max(0, digits-1-exp), 64)
 }
+
+// BareNumber reports whether s is a plain number with no unit after it
+// ("176.5", " 2e9 "), and returns the number. It lets the command line
+// apply its rule for bare numbers (a length or frequency other than zero
+// must carry its unit) with the same number syntax as every Parse function.
+func BareNumber(s string) (v float64, ok bool) {
+	v, u, err := parseNumber("number", s)
+	return v, err == nil && u == ""
+}
+
+// UnitHint writes a bare number v with the unit a person most likely meant
+// for a quantity of the given kind, for the hint of an error message:
+// lengths in millimetres ("176.5mm"); frequencies in megahertz from 100 up
+// ("200MHz") and in gigahertz below ("2.45GHz"). Other kinds return "".
+// These are common practice in microwave work, not a physical rule.
+func UnitHint(kind string, v float64) string {
+	num := strconv.FormatFloat(v, 'g', -1, 64)
+	switch kind {
+	case "length":
+		return num + "mm"
+	case "frequency":
+		if math.Abs(v) >= 100 {
+			return num + "MHz"
+		}
+		return num + "GHz"
+	}
+	return ""
+}

@@ -33,7 +33,7 @@ func TestGeometryCavity(t *testing.T) {
 	}{
 		// 50 mm diameter: radius 25 mm; the default fill is vacuum.
 		{[]string{"--diameter", "50mm", "--length", "40mm"}, 0.025, 0.04, 1, "vacuum"},
-		{[]string{"--radius", "2cm", "--length", "0.03", "--fill", "eps=2.5"}, 0.02, 0.03, 2.5, "user"},
+		{[]string{"--radius", "2cm", "--length", "0.03m", "--fill", "eps=2.5"}, 0.02, 0.03, 2.5, "user"},
 		// PTFE: eps_r 2.08 (physics material library).
 		{[]string{"--radius", "2cm", "--length", "3cm", "--fill", "ptfe"}, 0.02, 0.03, 2.08, "ptfe"},
 	} {

@@ -307,8 +307,16 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	return nil
 }
 
+// minFBW is the least fractional bandwidth bw/f0 that --bw accepts. Below
+// about 1e-6 the band edges f0 -+ bw/2 differ from f0 in the last few of
+// the 16 significant digits of a float64, and the lossless response
+// computed at them loses its ripple (a 3-pole design at 10 GHz with
+// bw = 10 Hz reports its own ripple as not met); 1e-5 keeps four digits in
+// hand. No cavity filter comes near it: Q0 would have to exceed 1e5 / N.
+const minFBW = 1e-5
+
 // parseBandwidth parses --bw as a frequency or as a percentage of f0 and
-// checks 0 < bw < f0.
+// checks minFBW f0 <= bw < f0.
 func parseBandwidth(v string, f0 float64) (float64, error) {
 	t := strings.TrimSpace(v)
 	var bw float64
@@ -320,12 +328,13 @@ func parseBandwidth(v string, f0 float64) (float64, error) {
 		bw = frac * f0
 	} else {
 		var err error
-		if bw, err = physics.ParseFrequency(t); err != nil {
-			return 0, cmdutil.FlagError("bw", v, err)
+		if bw, err = cmdutil.ParseFrequency("bw", t); err != nil {
+			return 0, err
 		}
 	}
-	if !(bw > 0 && bw < f0) {
-		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("the bandwidth must be > 0 and below the centre frequency --f0 %s", physics.FormatFrequency(f0, 6)))
+	if !(bw/f0 >= minFBW && bw < f0) { // bw/f0 is correctly rounded: 100 kHz at 10 GHz is exactly minFBW
+		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("must be between %s (%g %% of --f0) and the centre frequency --f0 %s",
+			cmdutil.TrimZeros(physics.FormatFrequency(minFBW*f0, 4)), minFBW*100, cmdutil.TrimZeros(physics.FormatFrequency(f0, 6))))
 	}
 	return bw, nil
 }

@@ -218,3 +218,38 @@ func TestFlagRules(t *testing.T) {
 		}
 	}
 }
+
+// TestBareNumbers checks the one rule for bare numbers (cmdutil.ParseLength,
+// cmdutil.ParseFrequency): a length or frequency other than zero needs its
+// unit, refused with status 2 and both readings; zero needs none. It also
+// checks the lower bound of --bw (a fractional bandwidth below 1e-5).
+func TestBareNumbers(t *testing.T) {
+	for _, tc := range []struct {
+		args []string
+		want []string
+	}{
+		{[]string{"modes", "--diameter", "176.5", "--length", "50mm"}, []string{`--diameter "176.5"`, "176.5 m", "did you mean 176.5mm?"}},
+		{[]string{"filter", "--f0", "10GHz", "--bw", "200", "--order", "3"}, []string{`--bw "200"`, "200 Hz", "did you mean 200MHz?"}},
+		{[]string{"size", "--mode", "TE011", "--freq", "10", "--ratio", "1"}, []string{`--freq "10"`, "did you mean 10GHz?"}},
+		{[]string{"size", "--mode", "TE011", "--freq", "10GHz", "--length", "0.03"}, []string{`--length "0.03"`, "30 mm", "write 0.03m"}},
+		{[]string{"filter", "--f0", "10GHz", "--bw", "99kHz", "--order", "3"}, []string{`--bw "99kHz"`, "100 kHz"}},
+		{[]string{"filter", "--f0", "10GHz", "--bw", "0.0009%", "--order", "3"}, []string{`--bw "0.0009%"`, "0.001 %"}},
+	} {
+		r := clitest.Run(t, tc.args...)
+		ok := r.Code == 2 && r.Stdout == "" && strings.Count(r.Stderr, "\n") == 1
+		for _, w := range tc.want {
+			ok = ok && strings.Contains(r.Stderr, w)
+		}
+		if !ok {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want exit 2 and one line containing %q", strings.Join(tc.args, " "), r.Code, r.Stderr, tc.want)
+		}
+	}
+	for _, args := range [][]string{
+		{"design", "--mode", "TE011", "--freq", "10GHz", "--tolerance", "0"},
+		{"filter", "--f0", "10GHz", "--bw", "100kHz", "--order", "3"},
+	} {
+		if r := clitest.Run(t, args...); r.Code != 0 {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want success", strings.Join(args, " "), r.Code, r.Stderr)
+		}
+	}
+}
