@@ -252,7 +252,7 @@ func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, w
 		return s, cmdutil.Usagef("%v", err)
 	}
 	if set("tolerance") || set("tolerance-length") {
-		t := &sp.Tolerance
+		t := &s.Settings.Tolerance
 		if set("tolerance") {
 			if t.Diameter, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
 				return s, err
@@ -312,7 +312,7 @@ func runDesign(opts *Options) error {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, JSON(r))
 	case cmdutil.CSV:
-		return writeCSV(opts.IO.Out, r.Design.Curve)
+		return writeCSV(opts.IO.Out, r.Analysis.Curve)
 	}
 	return WriteTable(opts.IO.Out, r)
 }
@@ -388,7 +388,7 @@ func JSON(r Result) Output {
 		AtRangeEdge: d.AtRangeEdge,
 		Below:       clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
 		Degenerate:  clearance.DegenerateJSON(d.Clearance.Degenerate),
-		Sensitivity: Sensitivity{DfDDHzPerM: d.Sensitivity.DfDD, DfDLHzPerM: d.Sensitivity.DfDL, DfDTHzPerK: d.Sensitivity.DfDT},
+		Sensitivity: Sensitivity{DfDDHzPerM: r.Analysis.Sensitivity.DfDD, DfDLHzPerM: r.Analysis.Sensitivity.DfDL, DfDTHzPerK: r.Analysis.Sensitivity.DfDT},
 		Cautions:    printedCautions(r),
 	}
 	if d.Limit != cavity.NoLimit {
@@ -408,15 +408,15 @@ func JSON(r Result) Output {
 		o.QBreakdown = b
 	}
 	if d.Spec.Tuning > 0 {
-		t := d.TunedLength
+		t := r.Analysis.TunedLength
 		o.TunedLengthM = &t
 	}
 	if r.Scenario.TempGiven {
-		t := d.Drift
+		t := r.Analysis.Drift
 		o.DriftHz = &t
 	}
-	if sp := d.Spread; sp != nil {
-		t := d.Spec.Tolerance
+	if sp := r.Analysis.Spread; sp != nil {
+		t := r.Analysis.Settings.Tolerance
 		o.Tolerance = &Tolerance{
 			DiameterM: t.Diameter, LengthM: t.Length, Distribution: t.Distribution.String(),
 			Samples: sp.Samples, Seed: t.Seed, MeanHz: sp.Mean, StdHz: sp.Std, P01Hz: sp.P01, P99Hz: sp.P99,
@@ -479,23 +479,23 @@ func WriteTable(w io.Writer, r Result) error {
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
-	s := d.Sensitivity
+	s := r.Analysis.Sensitivity
 	fmt.Fprintf(w, "\nSensitivities:\n")
 	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))
 	fmt.Fprintf(w, "  df/dL = %s per mm\n", signedF(s.DfDL*1e-3))
 	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K)\n", signedF(s.DfDT), 1e6*s.TempCoeff)
 	if spec.Tuning > 0 {
 		fmt.Fprintf(w, "\nTuning +-%.4g %% by one end plate: L from %s (low end) to %s (high end)\n",
-			100*spec.Tuning, physics.FormatLength(d.TunedLength[0], 6), physics.FormatLength(d.TunedLength[1], 6))
+			100*spec.Tuning, physics.FormatLength(r.Analysis.TunedLength[0], 6), physics.FormatLength(r.Analysis.TunedLength[1], 6))
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
 		fmt.Fprintf(w, "\nTemperature %s..%s (alpha side %.3g ppm/K, alpha axial %.3g ppm/K): drift %s at the low end, %s at the high end\n",
 			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4), 1e6*th.AlphaRadial, 1e6*th.AlphaAxial,
-			signedF(d.Drift[0]), signedF(d.Drift[1]))
+			signedF(r.Analysis.Drift[0]), signedF(r.Analysis.Drift[1]))
 	}
-	if sp := d.Spread; sp != nil {
-		t := spec.Tolerance
+	if sp := r.Analysis.Spread; sp != nil {
+		t := r.Analysis.Settings.Tolerance
 		dist := "uniform"
 		if t.Distribution == cavity.Normal {
 			dist = fmt.Sprintf("normal, tolerance = %g sigma", sigmas(t))

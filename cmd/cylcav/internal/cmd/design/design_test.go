@@ -122,7 +122,7 @@ func TestDemoIsLibraryCall(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if r.Unloaded == nil || r.Design.Spread == nil || len(r.Cautions) == 0 {
+	if r.Unloaded == nil || r.Analysis.Spread == nil || len(r.Cautions) == 0 {
 		t.Errorf("Demo().Run = %+v, want Q breakdown, spread and cautions", r)
 	}
 	// The result's cautions are the design's own; the general RF caution

@@ -25,12 +25,16 @@ type Scenario struct {
 	Fill physics.Dielectric
 	// TempGiven records whether a temperature range was asked for.
 	TempGiven bool
+	// Settings are the settings of the analysis of the optimum (the
+	// machining tolerance, the curve points).
+	Settings cavity.AnalysisSettings
 }
 
 // Result is a design with its Q breakdown and cautions.
 type Result struct {
 	Scenario Scenario
 	Design   cavity.Design
+	Analysis cavity.Analysis
 	// Unloaded is the Q breakdown at the design; nil without a wall.
 	Unloaded *qfactor.Unloaded
 	// Cautions are plain sentences for people about this design; the
@@ -73,6 +77,8 @@ func Demo() (Scenario, error) {
 				AlphaRadial: wall.Expansion, AlphaAxial: invar.Expansion, TauEps: air.TCEps,
 				TMin: tmin, TMax: tmax,
 			},
+		},
+		Settings: cavity.AnalysisSettings{
 			Tolerance: cavity.Tolerance{Diameter: 10e-6, Length: 10e-6, Samples: 200000, Seed: 1},
 		},
 		Wall:      &wall,
@@ -107,12 +113,17 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	if s.Wall != nil {
 		spec.Q = QFunc(spec.Mode, *s.Wall, s.Fill)
 	}
-	spec.Tolerance.Progress = progress
 	d, err := cavity.Optimize(spec)
 	if err != nil {
 		return Result{}, err
 	}
-	r := Result{Scenario: s, Design: d}
+	set := s.Settings
+	set.Tolerance.Progress = progress
+	a, err := cavity.Analyze(d, set)
+	if err != nil {
+		return Result{}, err
+	}
+	r := Result{Scenario: s, Design: d, Analysis: a}
 	if s.Wall != nil {
 		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, s.Fill)
 		if err != nil {
@@ -132,7 +143,7 @@ const progressSamples = 100000
 // io's error stream while a long tolerance analysis (progressSamples or
 // more samples) runs; the bar shows on a terminal only.
 func (s Scenario) RunWithProgress(io *cmdutil.IOStreams) (Result, error) {
-	if s.Spec.Tolerance.Samples < progressSamples {
+	if s.Settings.Tolerance.Samples < progressSamples {
 		return s.Run(nil)
 	}
 	bar := cmdutil.NewProgress(io, "tolerance analysis")
@@ -170,7 +181,7 @@ func Cautions(r Result) []string {
 		if th.AlphaRadial == 0 && th.AlphaAxial == 0 {
 			out = append(out, "A temperature range was given but no expansion coefficients (give --wall or --alpha-side/--alpha-axial): the drift shown is zero.")
 		}
-		drift := math.Max(math.Abs(d.Drift[0]), math.Abs(d.Drift[1]))
+		drift := math.Max(math.Abs(r.Analysis.Drift[0]), math.Abs(r.Analysis.Drift[1]))
 		if spec.Tuning > 0 && drift > spec.Tuning*spec.Frequency {
 			out = append(out, fmt.Sprintf("The thermal drift (up to %s) exceeds the tuning range (+-%s).", physics.FormatFrequency(drift, 4), physics.FormatFrequency(spec.Tuning*spec.Frequency, 4)))
 		}
@@ -178,7 +189,7 @@ func Cautions(r Result) []string {
 			out = append(out, fmt.Sprintf("The temperature coefficient of the fill %q is not known; its drift is left out.", r.Scenario.Fill.Name))
 		}
 	}
-	if sp := d.Spread; sp != nil {
+	if sp := r.Analysis.Spread; sp != nil {
 		if sp.WorstClearance < 0.5*sp.NominalClearance {
 			out = append(out, fmt.Sprintf("Machining errors can bring %s within %.3f %% of the wanted mode (worst sample).", sp.WorstMode, 100*sp.WorstClearance))
 		}
