@@ -4,7 +4,7 @@ import (
 	"bytes"
 	"html/template"
 
-	"cylcav/cmd/cylcav/internal/cmd/version"
+	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/modechart"
 )
 
@@ -32,7 +32,7 @@ func (sh *Sheet) HTML() ([]byte, error) {
 		*Sheet
 		Version string
 		Chart   map[string]*svgChart
-	}{sh, version.Version, charts})
+	}{sh, cmdutil.Version, charts})
 	if err != nil {
 		return nil, err
 	}

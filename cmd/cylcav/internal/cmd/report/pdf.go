@@ -10,7 +10,7 @@ import (
 	"codeberg.org/go-pdf/fpdf"
 	"gonum.org/v1/plot/vg"
 
-	"cylcav/cmd/cylcav/internal/cmd/version"
+	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/modechart"
 )
 
@@ -39,7 +39,7 @@ func (sh *Sheet) PDF() ([]byte, error) {
 	pdf.SetModificationDate(pdfDate)
 	pdf.SetCatalogSort(true)
 	pdf.SetCompression(true)
-	pdf.SetCreator("cylcav "+version.Version, false)
+	pdf.SetCreator("cylcav "+cmdutil.Version, false)
 	pdf.SetTitle(modechart.WinAnsi(sh.Title), false)
 	pdf.SetMargins(pdfMargin, pdfMargin, pdfMargin)
 	pdf.SetAutoPageBreak(true, pdfMargin+5)
@@ -48,7 +48,7 @@ func (sh *Sheet) PDF() ([]byte, error) {
 		pdf.SetY(-pdfMargin)
 		pdf.SetFont("Helvetica", "", 7.5)
 		pdf.SetTextColor(90, 90, 90)
-		pdf.CellFormat(0, 4, modechart.WinAnsi(fmt.Sprintf("cylcav %s datasheet: %s", version.Version, sh.Headline)), "", 0, "L", false, 0, "")
+		pdf.CellFormat(0, 4, modechart.WinAnsi(fmt.Sprintf("cylcav %s datasheet: %s", cmdutil.Version, sh.Headline)), "", 0, "L", false, 0, "")
 		pdf.CellFormat(0, 4, fmt.Sprintf("page %d of {nb}", pdf.PageNo()), "", 0, "R", false, 0, "")
 		pdf.SetTextColor(0, 0, 0)
 	})

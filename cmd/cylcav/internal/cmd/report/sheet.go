@@ -9,7 +9,7 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/design"
 	"cylcav/modechart"
 	"cylcav/physics"
 )

@@ -1,3 +1,10 @@
+// Package design is the single-cavity design flow: a scenario (the design
+// problem with its wall metal, fill and analysis settings) is optimised by
+// cavity.Optimize, analysed by cavity.Analyze, its unloaded Q broken down by
+// package qfactor, and the result given the cautions a designer should read.
+// `cylcav design` prints a Result and `cylcav report` makes a datasheet of
+// one; both run the same Scenario.Run. Demo is the built-in invented
+// scenario.
 package design
 
 import (
@@ -5,14 +12,12 @@ import (
 	"math"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
 
-// Scenario is a complete design request, as `cylcav design` runs it. The
-// report command builds the same thing (Demo gives the built-in one) and
-// calls Run.
+// Scenario is a complete single-cavity design request. Demo gives the
+// built-in one; commands build theirs from flags.
 type Scenario struct {
 	// Title names the scenario; it is set for the built-in demo only.
 	Title string
@@ -30,7 +35,7 @@ type Scenario struct {
 	Settings cavity.AnalysisSettings
 }
 
-// Result is a design with its Q breakdown and cautions.
+// Result is the optimum with its analysis, Q breakdown and cautions.
 type Result struct {
 	Scenario Scenario
 	Design   cavity.Design
@@ -105,9 +110,11 @@ func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, fill physi
 	return qfactor.UnloadedQ(c, m, rs, qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM})
 }
 
-// Run solves the scenario: the library optimisation, the Q breakdown at
-// the design, and the cautions. progress, when not nil, receives the Monte
-// Carlo progress.
+// Run solves the scenario: the optimum (cavity.Optimize), its analysis
+// with s.Settings (cavity.Analyze), the Q breakdown at the design when a
+// wall is given, and the cautions. progress, when not nil, receives the
+// Monte Carlo progress. Errors of the optimisation are returned as they
+// are (an impossible request is a *cavity.InfeasibleError).
 func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	spec := s.Spec
 	if s.Wall != nil {
@@ -133,22 +140,6 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	}
 	r.Cautions = Cautions(r)
 	return r, nil
-}
-
-// progressSamples is the least number of Monte Carlo samples for which
-// RunWithProgress shows a progress bar.
-const progressSamples = 100000
-
-// RunWithProgress solves the scenario as Run does, with a progress bar on
-// io's error stream while a long tolerance analysis (progressSamples or
-// more samples) runs; the bar shows on a terminal only.
-func (s Scenario) RunWithProgress(io *cmdutil.IOStreams) (Result, error) {
-	if s.Settings.Tolerance.Samples < progressSamples {
-		return s.Run(nil)
-	}
-	bar := cmdutil.NewProgress(io, "tolerance analysis")
-	defer bar.Done()
-	return s.Run(bar.Update)
 }
 
 // Cautions returns the warnings a designer should read about a result.

@@ -1,0 +1,1 @@
+size --mode TE011 --freq 10GHz --ratio 1 --format csv

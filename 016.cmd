@@ -1,0 +1,1 @@
+q --mode TM010 --diameter 230mm --length 115mm --wall copper --format json

@@ -1,0 +1,1 @@
+clearance --mode TE011 --diameter 40mm --length 30mm --window 15%

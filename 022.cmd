@@ -1,0 +1,1 @@
+materials --kind dielectric --format json

@@ -1,0 +1,1 @@
+modes --diameter -3mm --length 50mm

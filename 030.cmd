@@ -1,0 +1,1 @@
+size --mode TE010 --freq 10GHz --ratio 1

@@ -1,0 +1,1 @@
+design --mode TE011 --freq NaN
