@@ -1,6 +1,8 @@
 // Package report implements `cylcav report`: the datasheet of a cavity
 // design as one self-contained HTML file (tables and inline SVG charts,
-// printable to PDF from a browser), and optionally a PDF datasheet.
+// printable to PDF from a browser), and optionally a PDF datasheet. The
+// datasheet is assembled and rendered by library package datasheet; this
+// command parses the flags and writes the files.
 //
 // It takes the same flags as `cylcav design` (cmdutil.ScenarioFlags) and
 // solves the same problem through the same library call
@@ -16,6 +18,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/datasheet"
 	"cylcav/design"
 	"cylcav/modechart"
 )
@@ -98,30 +101,27 @@ func runReport(opts *Options) error {
 	if err != nil {
 		return err // an impossible design exits with status 1
 	}
-	sh, err := build(r, modechart.DefaultTheme())
+	sh, err := datasheet.FromDesign(r, modechart.DefaultTheme())
 	if err != nil {
 		return err
 	}
-	html, err := sh.HTML()
-	if err != nil {
+	sh.Version = cmdutil.Version
+	var html, pdf bytes.Buffer
+	if err := sh.WriteHTML(&html); err != nil {
 		return err
 	}
-	var pdf []byte
 	if opts.PDF != "" {
-		if pdf, err = sh.PDF(); err != nil {
+		if err := sh.WritePDF(&pdf); err != nil {
 			return err
 		}
 	}
 	// Both files are rendered before either is written, so a failure
 	// leaves neither behind.
-	if err := cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
-		_, err := b.Write(html)
-		return err
-	}); err != nil {
+	if err := cmdutil.WriteFileAtomic(opts.Output, html.Bytes(), opts.Force); err != nil {
 		return err
 	}
 	if opts.PDF != "" {
-		if err := cmdutil.WriteFileAtomic(opts.PDF, pdf, opts.Force); err != nil {
+		if err := cmdutil.WriteFileAtomic(opts.PDF, pdf.Bytes(), opts.Force); err != nil {
 			return err
 		}
 	}

@@ -1,4 +1,4 @@
-package report
+package datasheet
 
 import (
 	"fmt"
@@ -17,6 +17,8 @@ import (
 // Sheet is the content of a datasheet, formatted for people: every number
 // is already a string with its unit. HTML and PDF render the same Sheet.
 type Sheet struct {
+	// Version is the cylcav version written into the files.
+	Version  string
 	Title    string
 	Demo     bool   // the built-in demo scenario
 	Headline string // one line: mode, frequency, D and L
@@ -80,8 +82,9 @@ type Chart struct {
 // Q-versus-frequency chart, as a fraction of the design frequency.
 const modeWindow = 0.25
 
-// build assembles the datasheet of a design result.
-func build(r design.Result, th modechart.Theme) (*Sheet, error) {
+// FromDesign assembles the datasheet of a single-cavity design result,
+// drawing its charts in theme th.
+func FromDesign(r design.Result, th modechart.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
