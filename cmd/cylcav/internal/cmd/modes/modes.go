@@ -3,9 +3,7 @@
 package modes
 
 import (
-	"bytes"
 	"fmt"
-	"io"
 	"strconv"
 	"strings"
 
@@ -177,17 +175,7 @@ func runModes(opts *Options) error {
 			return cmdutil.FlagError("count", strconv.Itoa(opts.Count), err)
 		}
 	}
-	rows := Rows(list)
-	if err := addQ(opts, list, rows); err != nil {
-		return err
-	}
-	switch opts.Format {
-	case cmdutil.JSON:
-		return writeJSON(opts.IO.Out, opts.Cavity, rows)
-	case cmdutil.CSV:
-		return writeCSV(opts.IO.Out, rows)
-	}
-	return writeTable(opts.IO.Out, opts, rows, what)
+	return write(opts, list, what)
 }
 
 // Row is one mode as printed. JSON keys and CSV headers are the snake_case
@@ -210,23 +198,29 @@ type Row struct {
 	Q0    *QValue `json:"q0,omitempty"`
 }
 
-// Rows converts resonances to output rows in the same order.
-// DegenerateWith lists the modes that share the frequency exactly in every
-// cylinder (TE0mp with TM1mp); it is empty, never nil, otherwise.
+// Rows converts resonances to output rows in the same order (see RowOf).
 func Rows(list []cavity.Resonance) []Row {
 	rows := make([]Row, len(list))
 	for i, r := range list {
-		rows[i] = Row{
-			Mode: r.Mode.String(), Family: r.Mode.Family.String(),
-			N: r.Mode.N, M: r.Mode.M, P: r.Mode.P,
-			FHz: r.Frequency, Degeneracy: r.Degeneracy(),
-			DegenerateWith: []string{},
-		}
-		if c, ok := r.Companion(); ok {
-			rows[i].DegenerateWith = append(rows[i].DegenerateWith, c.String())
-		}
+		rows[i] = RowOf(r)
 	}
 	return rows
+}
+
+// RowOf converts one resonance to its output row. DegenerateWith lists the
+// modes that share the frequency exactly in every cylinder (TE0mp with
+// TM1mp); it is empty, never nil, otherwise.
+func RowOf(r cavity.Resonance) Row {
+	row := Row{
+		Mode: r.Mode.String(), Family: r.Mode.Family.String(),
+		N: r.Mode.N, M: r.Mode.M, P: r.Mode.P,
+		FHz: r.Frequency, Degeneracy: r.Degeneracy(),
+		DegenerateWith: []string{},
+	}
+	if c, ok := r.Companion(); ok {
+		row.DegenerateWith = append(row.DegenerateWith, c.String())
+	}
+	return row
 }
 
 // column is one output column: its CSV header (equal to the JSON key), its
@@ -261,38 +255,12 @@ func Header() []string {
 	return h
 }
 
-func writeCSV(w io.Writer, rows []Row) error {
-	recs := make([][]string, len(rows))
-	cols := columnsFor(rows)
-	for i, r := range rows {
-		rec := make([]string, len(cols))
-		for j, c := range cols {
-			rec[j] = c.csv(r)
-		}
-		recs[i] = rec
-	}
-	return cmdutil.WriteCSV(w, headerFor(rows), recs)
-}
-
 // cavityJSON is the "cavity" object of the JSON output.
 type cavityJSON struct {
 	RadiusM float64 `json:"radius_m"`
 	LengthM float64 `json:"length_m"`
 	EpsR    float64 `json:"eps_r"`
 	MuR     float64 `json:"mu_r"`
-}
-
-func writeJSON(w io.Writer, c cavity.Cavity, rows []Row) error {
-	f := c.Fill()
-	return cmdutil.WriteJSON(w, struct {
-		Cavity          cavityJSON `json:"cavity"`
-		IndexConvention string     `json:"index_convention"`
-		Modes           []Row      `json:"modes"`
-	}{
-		Cavity:          cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: one(f.EpsR), MuR: one(f.MuR)},
-		IndexConvention: "n azimuthal, m radial, p axial",
-		Modes:           rows,
-	})
 }
 
 // one maps the zero value of a fill field to 1, its meaning.
@@ -322,50 +290,3 @@ func DescribeCavity(c cavity.Cavity, fillName string) string {
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
 
-func writeTable(w io.Writer, opts *Options, rows []Row, what string) error {
-	if _, err := fmt.Fprintf(w, "cavity: %s\nmodes TE_nmp / TM_nmp: n azimuthal, m radial, p axial; %s\n",
-		DescribeCavity(opts.Cavity, opts.FillName), what); err != nil {
-		return err
-	}
-	if len(rows) == 0 {
-		_, err := fmt.Fprintln(w, "no mode at or below the limit")
-		return err
-	}
-	titles := []string{"#"}
-	cols := columnsFor(rows)
-	for _, c := range cols {
-		titles = append(titles, c.title)
-	}
-	var buf bytes.Buffer
-	t := cmdutil.NewTable(&buf, titles...)
-	for i, r := range rows {
-		cells := []string{strconv.Itoa(i + 1)}
-		for _, c := range cols {
-			switch {
-			case c.key == "f_hz":
-				cells = append(cells, physics.FormatFrequency(r.FHz, opts.Digits))
-			case c.table != nil:
-				cells = append(cells, c.table(r))
-			default:
-				cells = append(cells, c.csv(r))
-			}
-		}
-		t.Row(cells...)
-	}
-	if err := t.Flush(); err != nil {
-		return err
-	}
-	return writeTrimmed(w, buf.Bytes())
-}
-
-// writeTrimmed writes text with the trailing blanks of each line removed
-// (the aligner pads cells before an empty last column).
-func writeTrimmed(w io.Writer, text []byte) error {
-	var out bytes.Buffer
-	for line := range bytes.Lines(text) {
-		out.Write(bytes.TrimRight(line, " \n"))
-		out.WriteByte('\n')
-	}
-	_, err := w.Write(out.Bytes())
-	return err
-}
