@@ -4,8 +4,8 @@ import (
 	"io"
 	"runtime"
 	"runtime/metrics"
-	"time"
 	"testing"
+	"time"
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"

@@ -289,4 +289,3 @@ func DescribeCavity(c cavity.Cavity, fillName string) string {
 }
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
-

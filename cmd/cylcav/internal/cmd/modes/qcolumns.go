@@ -75,4 +75,3 @@ var qColumns = []column{
 	{"q_fill", "Q_fill", func(r Row) string { return qCSV(r.QFill) }, func(r Row) string { return qTable(r.QFill) }},
 	{"q0", "Q0", func(r Row) string { return qCSV(r.Q0) }, func(r Row) string { return qTable(r.Q0) }},
 }
-
