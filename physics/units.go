@@ -342,6 +342,7 @@ func ParseRange(s string, parse func(string) (float64, error)) (lo, hi float64, 
 		return 0, 0, fmt.Errorf("invalid range %q: want LO:HI, for example 38mm:42mm", s)
 	}
 	a, b, _ := strings.Cut(s, ":")
+	a, b = strings.TrimSpace(a), strings.TrimSpace(b)
 	lo, err = parse(a)
 	if err != nil {
 		return 0, 0, fmt.Errorf("invalid range %q: low end: %w", s, err)
@@ -351,7 +352,7 @@ func ParseRange(s string, parse func(string) (float64, error)) (lo, hi float64, 
 		return 0, 0, fmt.Errorf("invalid range %q: high end: %w", s, err)
 	}
 	if lo > hi {
-		return 0, 0, fmt.Errorf("invalid range %q: low end %g is above high end %g (SI units)", s, lo, hi)
+		return 0, 0, fmt.Errorf("invalid range %q: low end %s is above high end %s", s, a, b)
 	}
 	return lo, hi, nil
 }

@@ -9,6 +9,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"regexp"
 	"strconv"
 	"strings"
 
@@ -164,3 +165,22 @@ func (c *CheckedWriter) Write(p []byte) (int, error) {
 
 // Err returns the first write error, or nil.
 func (c *CheckedWriter) Err() error { return c.err }
+
+// libraryPrefix matches the package prefix that a library error carries by
+// Go convention ("cavity: ...", "qfactor: ..."), at the start of the text
+// or after another message's colon.
+var libraryPrefix = regexp.MustCompile(`(^|: )(cavity|qfactor|modechart|filter|filterplot|figure|physics|bessel|design|datasheet): `)
+
+// Message returns the text of err as a user reads it: without the package
+// prefixes of library errors, which name Go packages, not anything the
+// user typed. root.Main prints every error through it.
+func Message(err error) string {
+	s := err.Error()
+	for {
+		t := libraryPrefix.ReplaceAllString(s, "$1")
+		if t == s {
+			return s
+		}
+		s = t
+	}
+}

@@ -1,6 +1,7 @@
 package cmdutil
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -150,6 +151,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		if sp.MaxDiameter, err = Length("max-diameter", sf.maxD, cavity.MinSize, cavity.MaxSize); err != nil {
 			return s, err
 		}
+		if err := checkCutoff(*sp); err != nil {
+			return s, FlagError("max-diameter", sf.maxD, err)
+		}
 	}
 	if set("max-length") {
 		if sp.MaxLength, err = Length("max-length", sf.maxL, cavity.MinSize, cavity.MaxSize); err != nil {
@@ -262,4 +266,25 @@ func RunScenario(io *IOStreams, s design.Scenario) (design.Result, error) {
 	bar := NewProgress(io, "tolerance analysis")
 	defer bar.Done()
 	return s.Run(bar.Update)
+}
+
+// checkCutoff tells whether the mode can exist at the design frequency in a
+// diameter of at most sp.MaxDiameter, by the check `cylcav size --diameter`
+// makes (cavity.Size), so that a diameter limit below the mode's cut-off
+// is refused as a value out of range (exit status 2) in every command. A
+// mode with p = 0 has one diameter for the frequency, whatever the length.
+func checkCutoff(sp cavity.DesignSpec) error {
+	if sp.Mode.P > 0 {
+		_, err := cavity.Size(sp.Mode, sp.Frequency, sp.Fill, cavity.ByDiameter(sp.MaxDiameter))
+		if errors.Is(err, cavity.ErrInfeasible) {
+			return err
+		}
+		return nil
+	}
+	c, err := cavity.Size(sp.Mode, sp.Frequency, sp.Fill, cavity.ByRatio(1))
+	if err == nil && c.Diameter() > sp.MaxDiameter {
+		return fmt.Errorf("%s at %s needs a diameter of %s (p = 0: the diameter alone sets the frequency)",
+			sp.Mode, TrimZeros(physics.FormatFrequency(sp.Frequency, 6)), TrimZeros(physics.FormatLength(c.Diameter(), 6)))
+	}
+	return nil
 }

@@ -39,6 +39,10 @@ type Options struct {
 	Format figure.Format
 	Page   figure.Page
 	Force  bool
+
+	// MinFDText and MaxFDText are --min-fd and --max-fd as given ("" when
+	// absent), for error messages.
+	MinFDText, MaxFDText string
 }
 
 // NewCmdChart returns `cylcav chart`. runF, if not nil, replaces the
@@ -130,6 +134,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					return err
 				}
 				s.MaxFD = v * u
+				opts.MaxFDText = maxFD
 			}
 			if fl.Changed("min-fd") {
 				v, err := cmdutil.Number("min-fd", minFD, 0, 1e12)
@@ -137,6 +142,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					return err
 				}
 				s.MinFD = v * u
+				opts.MinFDText = minFD
 			}
 			if fl.Changed("tuning") {
 				if s.Tuning, err = fraction("tuning", tuning, 0, 0.5); err != nil {
@@ -324,11 +330,11 @@ func runChart(opts *Options) error {
 	ch, err := modechart.New(opts.Spec)
 	if err != nil {
 		// Every chart error is a consequence of the flags.
-		return cmdutil.Usagef("%v", err)
+		return rangeError(opts, err, true)
 	}
 	fig, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
-		return err
+		return rangeError(opts, err, false)
 	}
 	var b bytes.Buffer
 	if err := figure.Render(&b, fig, opts.Format, opts.Page); err != nil {
@@ -338,6 +344,28 @@ func runChart(opts *Options) error {
 		return err
 	}
 	return summary(opts.IO.Out, opts, ch)
+}
+
+// rangeError turns a modechart.RangeError into a usage error naming the
+// flag that moves that end of the chart (--min-fd or --max-fd); any other
+// error of New (fromNew) is a usage error as it is, and of Figure a
+// failure.
+func rangeError(opts *Options, err error, fromNew bool) error {
+	var re *modechart.RangeError
+	if !errors.As(err, &re) {
+		if fromNew {
+			return cmdutil.Usagef("%v", err)
+		}
+		return err
+	}
+	flag, text := "max-fd", opts.MaxFDText
+	if re.Edge == modechart.Bottom {
+		flag, text = "min-fd", opts.MinFDText
+	}
+	if text == "" {
+		return cmdutil.Usagef("%s (give --%s in %s)", re.Msg, flag, opts.Spec.Units)
+	}
+	return cmdutil.FlagError(flag, text, errors.New(re.Msg))
 }
 
 // summary prints what was drawn: the file, the design and the spurious

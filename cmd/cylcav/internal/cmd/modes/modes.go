@@ -163,7 +163,7 @@ func runModes(opts *Options) error {
 		list, err = opts.Cavity.Modes(opts.FMax)
 		what = "every mode up to " + cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6))
 		if err != nil {
-			return cmdutil.FlagError("fmax", opts.FMaxText, err)
+			return cmdutil.FlagError("fmax", opts.FMaxText, fmt.Errorf("%w; give a lower --fmax", err))
 		}
 	} else {
 		list, err = opts.Cavity.Lowest(opts.Count)
@@ -172,7 +172,7 @@ func runModes(opts *Options) error {
 			what += fmt.Sprintf(" and %d tied with the last", len(list)-opts.Count)
 		}
 		if err != nil {
-			return cmdutil.FlagError("count", strconv.Itoa(opts.Count), err)
+			return cmdutil.FlagError("count", strconv.Itoa(opts.Count), fmt.Errorf("%w; give a smaller --count", err))
 		}
 	}
 	return write(opts, list, what)

@@ -98,7 +98,7 @@ func Main(streams *cmdutil.IOStreams, args []string) int {
 		if !started && !cmdutil.IsUsage(err) && out.Err() == nil {
 			err = &cmdutil.UsageError{Err: err}
 		}
-		fmt.Fprintf(io.ErrOut, "cylcav: %v\n", err)
+		fmt.Fprintf(io.ErrOut, "cylcav: %s\n", cmdutil.Message(err))
 		return cmdutil.ExitStatus(err)
 	}
 	return 0
