@@ -173,14 +173,49 @@ var libraryPrefix = regexp.MustCompile(`(^|: )(cavity|qfactor|modechart|filter|f
 
 // Message returns the text of err as a user reads it: without the package
 // prefixes of library errors, which name Go packages, not anything the
-// user typed. root.Main prints every error through it.
+// user typed, and with every quoted value longer than 80 characters cut
+// short ("xxxx..."...), wherever in the chain it was quoted. root.Main
+// prints every error through it.
 func Message(err error) string {
 	s := err.Error()
 	for {
 		t := libraryPrefix.ReplaceAllString(s, "$1")
 		if t == s {
-			return s
+			break
 		}
 		s = t
+	}
+	return shortenQuotes(s)
+}
+
+// shortenQuotes cuts every quoted value in s ("...", Go escapes) longer
+// than maxQuoted characters with quoteValue. Quotes pair from the left; a
+// quote left open ends the scan.
+func shortenQuotes(s string) string {
+	var b strings.Builder
+	for {
+		i := strings.IndexByte(s, '"')
+		if i < 0 {
+			b.WriteString(s)
+			return b.String()
+		}
+		j := i + 1
+		for j < len(s) && s[j] != '"' {
+			if s[j] == '\\' {
+				j++
+			}
+			j++
+		}
+		if j >= len(s) {
+			b.WriteString(s)
+			return b.String()
+		}
+		b.WriteString(s[:i])
+		q := s[i : j+1]
+		if v, err := strconv.Unquote(q); err == nil {
+			q = quoteValue(v)
+		}
+		b.WriteString(q)
+		s = s[j+1:]
 	}
 }

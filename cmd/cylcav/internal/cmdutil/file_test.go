@@ -197,3 +197,19 @@ func TestWriteFilesSignal(t *testing.T) {
 		}
 	}
 }
+
+func TestMessage(t *testing.T) {
+	long := strings.Repeat("y", 100)
+	for _, tc := range []struct{ in, want string }{
+		{"cavity: radius must be > 0", "radius must be > 0"},
+		{`--wall "x": wall: qfactor: conductor "copper": too hot`, `--wall "x": wall: conductor "copper": too hot`},
+		{`--wall "` + long + `": unknown`, `--wall "` + long[:80] + `"...: unknown`},
+		// Text between two short quotes is not a quoted value, however long.
+		{`a "b" ` + long + ` "c"`, `a "b" ` + long + ` "c"`},
+		{`open "` + long, `open "` + long},
+	} {
+		if got := Message(errors.New(tc.in)); got != tc.want {
+			t.Errorf("Message(%q) = %q, want %q", tc.in, got, tc.want)
+		}
+	}
+}

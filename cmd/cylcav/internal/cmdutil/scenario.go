@@ -164,8 +164,8 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		if sp.Tuning, err = fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
 			return s, err
 		}
-		if sp.Tuning > 0 && sp.Mode.P == 0 {
-			return s, FlagError("tuning", sf.tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
+		if err := CheckTunable("tuning", sf.tuning, sp.Mode, sp.Tuning); err != nil {
+			return s, err
 		}
 	}
 	th := &sp.Thermal
@@ -285,6 +285,16 @@ func checkCutoff(sp cavity.DesignSpec) error {
 	if err == nil && c.Diameter() > sp.MaxDiameter {
 		return fmt.Errorf("%s at %s needs a diameter of %s (p = 0: the diameter alone sets the frequency)",
 			sp.Mode, TrimZeros(physics.FormatFrequency(sp.Frequency, 6)), TrimZeros(physics.FormatLength(c.Diameter(), 6)))
+	}
+	return nil
+}
+
+// CheckTunable refuses a tuning range (the flag and its text, the range as
+// a fraction) for a mode that an end plate cannot tune, in the same words
+// in every command that has a tuning flag.
+func CheckTunable(flag, value string, m cavity.Mode, tuning float64) error {
+	if tuning > 0 && m.P == 0 {
+		return FlagError(flag, value, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", m))
 	}
 	return nil
 }

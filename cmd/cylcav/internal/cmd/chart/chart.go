@@ -148,6 +148,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				if s.Tuning, err = fraction("tuning", tuning, 0, 0.5); err != nil {
 					return err
 				}
+				if err := cmdutil.CheckTunable("tuning", tuning, s.Wanted, s.Tuning); err != nil {
+					return err
+				}
 			}
 			if fl.Changed("min-clearance") {
 				if s.Clearance, err = fraction("min-clearance", minClr, 0, 0.99); err != nil {
