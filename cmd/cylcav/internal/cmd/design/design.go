@@ -156,7 +156,7 @@ func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, w
 	if s.Fill, err = geo.Dielectric(); err != nil {
 		return s, err
 	}
-	sp.Fill = cavity.Fill{EpsR: s.Fill.EpsR, MuR: s.Fill.MuR}
+	sp.Fill = s.Fill.Medium
 	if set("wall") {
 		c, err := physics.ParseConductor(wall)
 		if err != nil {
@@ -234,8 +234,8 @@ func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, w
 			return s, err
 		}
 	}
-	if s.Fill.TCEpsKnown {
-		th.TauEps = s.Fill.TCEps
+	if sp.Fill.TCEpsKnown {
+		th.TauEps = sp.Fill.TCEps
 	}
 	if set("temp") {
 		tlo, thi, err := physics.ParseRange(temp, physics.ParseTemperature)
@@ -458,7 +458,7 @@ func WriteTable(w io.Writer, r Result) error {
 		fmt.Fprintf(w, "Demo scenario (no flags given): %s\n\n", r.Scenario.Title)
 	}
 	fmt.Fprintf(w, "Design: %s at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
-		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), r.Scenario.Fill.Name)
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), spec.Fill.Label())
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)

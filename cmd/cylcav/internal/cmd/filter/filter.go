@@ -62,8 +62,8 @@ type Options struct {
 	// --mode, --wall, --fill, --ratio or --holes given).
 	Cavities bool
 	Mode     cavity.Mode
-	// Fill is the fill dielectric (vacuum by default).
-	Fill physics.Dielectric
+	// Fill is the medium in the cavities (vacuum by default).
+	Fill physics.Medium
 	// Ratio is D/L of every cavity; zero means the design optimiser's D/L
 	// for the largest spurious-free clearance.
 	Ratio float64
@@ -407,13 +407,13 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 	}
 	// --fill given empty counts as absent (vacuum), as this command's other
 	// string flags do.
-	opts.Fill = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
+	opts.Fill = physics.Medium{}
 	if geo.Text("fill") != "" {
-		d, err := geo.Dielectric()
+		f, err := geo.Fill()
 		if err != nil {
 			return err
 		}
-		opts.Fill = d
+		opts.Fill = f
 	}
 	if ratioS != "" {
 		r, err := cmdutil.Number("ratio", ratioS, cavity.MinDesignRatio, cavity.MaxDesignRatio)

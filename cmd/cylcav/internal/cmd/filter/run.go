@@ -170,8 +170,6 @@ func (r *Result) Counted(c bandpass.Check) bool {
 // realise sizes the cavities.
 func (r *Result) realise() error {
 	opts := r.Opts
-	fill := cavity.Fill{EpsR: opts.Fill.EpsR, MuR: opts.Fill.MuR}
-	loss := qfactor.Fill{TanDelta: opts.Fill.TanDelta, TanDeltaM: opts.Fill.TanDeltaM}
 	var walls qfactor.WallsAt
 	if opts.Walls != nil {
 		seen := map[string]bool{}
@@ -184,10 +182,10 @@ func (r *Result) realise() error {
 	}
 	ratio := opts.Ratio
 	if ratio == 0 {
-		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: fill}
+		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: opts.Fill}
 		if walls != nil {
 			ds.Q = func(c cavity.Cavity) (float64, error) {
-				u, err := qfactor.UnloadedQ(c, opts.Mode, walls, loss)
+				u, err := qfactor.UnloadedQ(c, opts.Mode, walls)
 				return u.Q0, err
 			}
 		}
@@ -205,7 +203,7 @@ func (r *Result) realise() error {
 		r.Shape = fmt.Sprintf("D/L = %.5g (--ratio)", ratio)
 	}
 	ro := bandpass.RealiseOptions{
-		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: fill, Loss: loss, Walls: walls, Hole: opts.Hole,
+		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: walls, Hole: opts.Hole,
 	}
 	rz, err := bandpass.Realise(r.Design, ro)
 	if errors.Is(err, cavity.ErrInfeasible) {

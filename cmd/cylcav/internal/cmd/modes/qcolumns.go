@@ -15,21 +15,19 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmd/q"
-	"cylcav/physics"
 	"cylcav/qfactor"
 )
 
-// Loss holds what the Q columns need: the side wall, end plate A and end
-// plate B surfaces, and the fill's loss tangents.
+// Loss holds what the Q columns need besides the cavity (whose fill
+// carries the loss tangents): the side wall, end plate A and end plate B
+// surfaces.
 type Loss struct {
 	Walls [3]qfactor.Surface
-	Fill  qfactor.Fill
 }
 
-// parseLoss returns the Loss of the wall flags and the fill (its loss
-// tangents checked already, by cmdutil.GeometryFlags), or nil when --wall
-// is absent (no Q columns). Errors are usage errors.
-func parseLoss(w *q.WallFlags, fill physics.Dielectric) (*Loss, error) {
+// parseLoss returns the Loss of the wall flags, or nil when --wall is
+// absent (no Q columns). Errors are usage errors.
+func parseLoss(w *q.WallFlags) (*Loss, error) {
 	if !w.Given() {
 		return nil, nil
 	}
@@ -37,7 +35,7 @@ func parseLoss(w *q.WallFlags, fill physics.Dielectric) (*Loss, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &Loss{Walls: walls, Fill: qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM}}, nil
+	return &Loss{Walls: walls}, nil
 }
 
 // QValue is a Q in the JSON output: null when infinite (no loss).
@@ -60,7 +58,7 @@ func addQ(opts *Options, list []cavity.Resonance, rows []Row) error {
 		return nil
 	}
 	warn := func(s string) { fmt.Fprintf(opts.IO.ErrOut, "cylcav: note: %s\n", s) }
-	us, err := qfactor.UnloadedQAll(opts.Cavity, list, q.Resistance(opts.Loss.Walls, warn), opts.Loss.Fill)
+	us, err := qfactor.UnloadedQAll(opts.Cavity, list, q.Resistance(opts.Loss.Walls, warn))
 	if err != nil {
 		return err
 	}

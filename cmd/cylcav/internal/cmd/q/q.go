@@ -26,12 +26,7 @@ type Options struct {
 	Format cmdutil.Format
 
 	Mode   cavity.Mode
-	Cavity cavity.Cavity // dimensions and fill eps_r, mu_r
-
-	// Fill is the dielectric (vacuum when --fill is absent) and Loss its loss
-	// tangents.
-	Fill physics.Dielectric
-	Loss qfactor.Fill
+	Cavity cavity.Cavity // dimensions and fill (vacuum when --fill is absent)
 
 	// Walls are the side wall, end plate A (z = 0) and end plate B (z = d).
 	Walls [3]qfactor.Surface
@@ -143,10 +138,9 @@ func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls
 	}
 	opts.Mode = m
 
-	if opts.Cavity, opts.Fill, err = geo.Cavity(); err != nil {
+	if opts.Cavity, err = geo.Cavity(); err != nil {
 		return err
 	}
-	opts.Loss = qfactor.Fill{TanDelta: opts.Fill.TanDelta, TanDeltaM: opts.Fill.TanDeltaM}
 
 	if !walls.Given() {
 		return cmdutil.Usagef("--wall is required, e.g. --wall copper or --wall sigma=5.8e7")
@@ -209,7 +203,7 @@ func runQ(opts *Options) error {
 	r := result{opts: opts}
 	m, c := opts.Mode, opts.Cavity
 	rs := Resistance(opts.Walls, func(w string) { r.warnings = append(r.warnings, w) })
-	u, err := qfactor.UnloadedQ(c, m, rs, opts.Loss)
+	u, err := qfactor.UnloadedQ(c, m, rs)
 	if err != nil {
 		return err
 	}
@@ -248,7 +242,7 @@ func runQ(opts *Options) error {
 	if opts.Walls[0].Superconductor != nil {
 		r.cautions = append(r.cautions, cautionCryogenic)
 	}
-	if ft := opts.Fill.TanDeltaFreq; ft > 0 && opts.Loss.TanDelta > 0 && (f/ft > 2 || ft/f > 2) {
+	if ft := c.Fill.TanDeltaFreq; ft > 0 && c.Fill.TanDelta > 0 && (f/ft > 2 || ft/f > 2) {
 		r.warnings = append(r.warnings, fmt.Sprintf("the fill's loss tangent is stated at %s and used at %s; loss tangents vary with frequency",
 			physics.FormatFrequency(ft, 4), physics.FormatFrequency(f, 4)))
 	}
@@ -327,10 +321,10 @@ func (r *result) json() outJSON {
 		IndexConvention: indexConvention,
 		RadiusM:         number(o.Cavity.Radius),
 		LengthM:         number(o.Cavity.Length),
-		EpsR:            number(o.Cavity.EpsR),
-		MuR:             number(o.Cavity.MuR),
-		TanDelta:        number(o.Loss.TanDelta),
-		TanDeltaM:       number(o.Loss.TanDeltaM),
+		EpsR:            number(o.Cavity.Fill.Eps()),
+		MuR:             number(o.Cavity.Fill.Mu()),
+		TanDelta:        number(o.Cavity.Fill.TanDelta),
+		TanDeltaM:       number(o.Cavity.Fill.TanDeltaM),
 		FHz:             number(u.Wall.Frequency),
 		SkinDepthM:      number(r.delta[0]),
 		SkinDepthEndAM:  number(r.delta[1]),
@@ -405,14 +399,14 @@ func (r *result) table(w io.Writer) error {
 	o, u := r.opts, r.u
 	lossless := math.IsInf(u.Q0, 1)
 	fmt.Fprintf(w, "Mode %s: index convention %s\n", o.Mode, indexConvention)
-	fill := o.Fill.Name
+	fill := o.Cavity.Fill.Label()
 	if fill == "user" {
 		fill = "user values"
 	}
 	fmt.Fprintf(w, "Cavity: radius %s, length %s; fill %s (eps_r %g, mu_r %g, tan delta %g",
-		physics.FormatLength(o.Cavity.Radius, 6), physics.FormatLength(o.Cavity.Length, 6), fill, o.Cavity.EpsR, o.Cavity.MuR, o.Loss.TanDelta)
-	if o.Loss.TanDeltaM > 0 {
-		fmt.Fprintf(w, ", magnetic tan delta %g", o.Loss.TanDeltaM)
+		physics.FormatLength(o.Cavity.Radius, 6), physics.FormatLength(o.Cavity.Length, 6), fill, o.Cavity.Fill.Eps(), o.Cavity.Fill.Mu(), o.Cavity.Fill.TanDelta)
+	if o.Cavity.Fill.TanDeltaM > 0 {
+		fmt.Fprintf(w, ", magnetic tan delta %g", o.Cavity.Fill.TanDeltaM)
 	}
 	fmt.Fprintln(w, ")")
 	temp := "20 C"
