@@ -86,19 +86,17 @@ func Demo() (Scenario, error) {
 // (at 20 C, smooth) and the loss tangents of the cavity's fill, built on
 // package qfactor.
 func QFunc(m cavity.Mode, wall physics.Conductor) func(cavity.Cavity) (float64, error) {
-	return func(c cavity.Cavity) (float64, error) {
-		u, err := unloaded(c, m, wall)
-		return u.Q0, err
-	}
+	return qfactor.Q0Constraint(m, walls(wall))
+}
+
+// walls returns the wall set of metal wall on every part, at 20 C and
+// smooth.
+func walls(wall physics.Conductor) qfactor.WallSet {
+	return qfactor.SameWalls(qfactor.Surface{Conductor: wall})
 }
 
 func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor) (qfactor.Unloaded, error) {
-	surf := qfactor.Surface{Conductor: wall}
-	rs := func(f float64) (qfactor.Walls, error) {
-		r, _, err := surf.Resistance(f)
-		return qfactor.Uniform(r), err
-	}
-	return qfactor.UnloadedQ(c, m, rs)
+	return qfactor.UnloadedQ(c, m, walls(wall).At(nil))
 }
 
 // Run solves the scenario: the library optimisation, the Q breakdown at

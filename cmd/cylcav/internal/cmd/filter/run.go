@@ -11,7 +11,6 @@ import (
 	"strings"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/figure"
 	bandpass "cylcav/filter"
@@ -174,7 +173,7 @@ func (r *Result) realise() error {
 	var walls qfactor.WallsAt
 	if opts.Walls != nil {
 		seen := map[string]bool{}
-		walls = q.Resistance(*opts.Walls, func(w string) {
+		walls = opts.Walls.At(func(w string) {
 			if !seen[w] {
 				seen[w] = true
 				r.Warnings = append(r.Warnings, "walls: "+w)
@@ -184,11 +183,8 @@ func (r *Result) realise() error {
 	ratio := opts.Ratio
 	if ratio == 0 {
 		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: opts.Fill}
-		if walls != nil {
-			ds.Q = func(c cavity.Cavity) (float64, error) {
-				u, err := qfactor.UnloadedQ(c, opts.Mode, walls)
-				return u.Q0, err
-			}
+		if opts.Walls != nil {
+			ds.Q = qfactor.Q0Constraint(opts.Mode, *opts.Walls)
 		}
 		des, err := cavity.Optimize(ds)
 		if errors.Is(err, cavity.ErrInfeasible) {

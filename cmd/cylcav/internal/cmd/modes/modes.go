@@ -12,9 +12,9 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
+	"cylcav/qfactor"
 )
 
 // DefaultCount is the number of modes listed when neither --fmax nor
@@ -42,8 +42,9 @@ type Options struct {
 	// the table (JSON and CSV always carry full precision).
 	Digits int
 
-	// Loss, when not nil (--wall given), adds q_wall, q_fill and q0 columns.
-	Loss *Loss
+	// Walls, when not nil (--wall given), adds q_wall, q_fill and q0
+	// columns.
+	Walls *qfactor.WallSet
 
 	Format cmdutil.Format
 }
@@ -55,7 +56,7 @@ func NewCmdModes(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var fmax string
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
-	var walls *q.WallFlags
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "modes (--diameter D | --radius A) --length L [--fill SPEC] [--fmax F | --count K]",
 		Short: "List the resonant modes of a cylindrical cavity, sorted by frequency",
@@ -118,7 +119,7 @@ detail.`, DefaultCount),
 			default:
 				opts.Count = DefaultCount
 			}
-			if opts.Loss, err = parseLoss(walls); err != nil {
+			if opts.Walls, err = parseWalls(walls); err != nil {
 				return err
 			}
 			if opts.Digits < 3 || opts.Digits > 17 {
@@ -148,7 +149,7 @@ detail.`, DefaultCount),
 	fl.StringVar(&fmax, "fmax", "", "list every mode at or below this frequency (e.g. 12GHz)")
 	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
 	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
-	walls = q.AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
 }

@@ -1,7 +1,7 @@
 // Package q implements `cylcav q`: the unloaded Q of one mode from wall and
 // fill losses, with each loss's share, loaded Q and bandwidth for a given
 // coupling, and the accelerator figures of TM0mp modes.
-package q
+package unloadedq
 
 import (
 	"encoding/json"
@@ -29,7 +29,7 @@ type Options struct {
 	Cavity cavity.Cavity // dimensions and fill (vacuum when --fill is absent)
 
 	// Walls are the side wall, end plate A (z = 0) and end plate B (z = d).
-	Walls [3]qfactor.Surface
+	Walls qfactor.WallSet
 
 	// Coupling holds the coupling coefficient of each port (--beta), QExt
 	// the external Q of each port (--qext); at most one is set.
@@ -54,7 +54,7 @@ func NewCmdQ(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
 	var modeS, betaS, qextS, speedS string
 	var geo *cmdutil.GeometryFlags
-	var walls *WallFlags
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "q --mode MODE (--diameter D | --radius R) --length L --wall SPEC [flags]",
 		Short: "Unloaded Q, loss shares, loaded Q and accelerator figures of one mode",
@@ -109,7 +109,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		Length:   "inside length between the end plates, e.g. 54.8mm (required)",
 		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
 	})
-	walls = AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&betaS, "beta", "", "coupling coefficient of each port, e.g. 0.8 or 1,1 (two ports)")
 	f.StringVar(&qextS, "qext", "", "external Q of each port, e.g. 5000 or 4000,4000")
 	f.StringVar(&speedS, "particle-speed", "1", "particle speed as a fraction of c, for TM0mp accelerator figures")
@@ -126,7 +126,7 @@ type flagValues struct {
 
 // parse validates the flags into opts. Every error is a usage error naming
 // the flag, the value and the valid range.
-func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *WallFlags, v flagValues) error {
+func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags, v flagValues) error {
 	// A flag given with an empty value is an error below, never "absent".
 	set := cmd.Flags().Changed
 	if !set("mode") {
@@ -145,7 +145,7 @@ func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls
 	if !walls.Given() {
 		return cmdutil.Usagef("--wall is required, e.g. --wall copper or --wall sigma=5.8e7")
 	}
-	if opts.Walls, err = walls.Surfaces(); err != nil {
+	if opts.Walls, err = walls.Walls(); err != nil {
 		return err
 	}
 
@@ -202,21 +202,14 @@ type result struct {
 func runQ(opts *Options) error {
 	r := result{opts: opts}
 	m, c := opts.Mode, opts.Cavity
-	rs := Resistance(opts.Walls, func(w string) { r.warnings = append(r.warnings, w) })
+	rs := opts.Walls.At(func(w string) { r.warnings = append(r.warnings, w) })
 	u, err := qfactor.UnloadedQ(c, m, rs)
 	if err != nil {
 		return err
 	}
 	r.u = u
 	f := u.Wall.Frequency
-	for i, s := range opts.Walls {
-		r.delta[i] = math.NaN()
-		if s.Superconductor == nil {
-			if d, err := s.SkinDepth(f); err == nil {
-				r.delta[i] = d
-			}
-		}
-	}
+	r.delta = opts.Walls.SkinDepths(f)
 	switch {
 	case len(opts.Coupling) > 0:
 		r.ql, err = qfactor.LoadedByCoupling(u.Q0, opts.Coupling...)
@@ -239,7 +232,7 @@ func runQ(opts *Options) error {
 		r.accel = &a
 		r.cautions = append(r.cautions, cmdutil.CautionRF)
 	}
-	if opts.Walls[0].Superconductor != nil {
+	if opts.Walls.Side.Superconductor != nil {
 		r.cautions = append(r.cautions, cautionCryogenic)
 	}
 	if ft := c.Fill.TanDeltaFreq; ft > 0 && c.Fill.TanDelta > 0 && (f/ft > 2 || ft/f > 2) {
@@ -410,7 +403,7 @@ func (r *result) table(w io.Writer) error {
 	}
 	fmt.Fprintln(w, ")")
 	temp := "20 C"
-	if t := o.Walls[0].Temperature; t != 0 {
+	if t := o.Walls.Side.Temperature; t != 0 {
 		temp = physics.FormatTemperature(t, 4)
 	}
 	fmt.Fprintf(w, "Resonant frequency: %s; wall temperature %s\n\n", physics.FormatFrequency(u.Wall.Frequency, 7), temp)
@@ -419,12 +412,12 @@ func (r *result) table(w io.Writer) error {
 	rs := [3]float64{u.Wall.Rs.Side, u.Wall.Rs.EndA, u.Wall.Rs.EndB}
 	pq := [3]float64{u.Wall.QSide, u.Wall.QEndA, u.Wall.QEndB}
 	sh := [3]float64{u.Share.Side, u.Share.EndA, u.Share.EndB}
-	for i := range 3 {
+	for i, p := range qfactor.Parts() {
 		d := "-"
 		if !math.IsNaN(r.delta[i]) {
 			d = physics.FormatLength(r.delta[i], 4)
 		}
-		t.Row(PartNames[i], wallName(o.Walls[i]), d, physics.FormatSI(rs[i], "ohm", 4), fmtQ(pq[i]), fmtShare(sh[i], lossless))
+		t.Row(p.String(), wallName(o.Walls.Surface(p)), d, physics.FormatSI(rs[i], "ohm", 4), fmtQ(pq[i]), fmtShare(sh[i], lossless))
 	}
 	t.Row("fill", fill, "-", "-", fmtQ(u.QFill), fmtShare(u.Share.Fill, lossless))
 	if err := t.Flush(); err != nil {
