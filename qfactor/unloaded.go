@@ -64,7 +64,7 @@ func UnloadedQAll(c cavity.Cavity, res []cavity.Resonance, rs WallsAt) ([]Unload
 	// Bessel zeros per (family, n): index 2n for TE, 2n+1 for TM.
 	var most []int
 	for _, r := range res {
-		if err := validMode(r.Mode); err != nil {
+		if err := r.Mode.Validate(); err != nil {
 			return nil, err
 		}
 		if !(r.Frequency > 0) || math.IsInf(r.Frequency, 0) {
@@ -103,17 +103,6 @@ func slot(m cavity.Mode) int {
 		return 2 * m.N
 	}
 	return 2*m.N + 1
-}
-
-// validMode is m.Validate with a fast path for valid modes (Validate formats
-// the mode label every time, which dominates a long list).
-func validMode(m cavity.Mode) error {
-	ok := (m.Family == cavity.TE && m.P >= 1 || m.Family == cavity.TM && m.P >= 0) &&
-		m.N >= 0 && m.N <= cavity.MaxIndex && m.M >= 1 && m.M <= cavity.MaxIndex && m.P <= cavity.MaxIndex
-	if ok {
-		return nil
-	}
-	return m.Validate()
 }
 
 // unloaded is UnloadedQ for validated input, Bessel zero x, resonant
