@@ -341,3 +341,44 @@ func TestWallQErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestFrequencyIsCavitys checks that every frequency qfactor reports is
+// cavity.Cavity.Frequency bit for bit (one implementation of the resonance
+// formula), on seeded random cavities, fills and modes.
+func TestFrequencyIsCavitys(t *testing.T) {
+	rng := rand.New(rand.NewPCG(9, 10))
+	for range 500 {
+		c := cavity.Cavity{Radius: 0.005 + 0.1*rng.Float64(), Length: 0.005 + 0.2*rng.Float64(),
+			Fill: physics.Medium{EpsR: 1 + 9*rng.Float64(), MuR: 0.5 + rng.Float64()}}
+		fam := cavity.TM
+		p := rng.IntN(4)
+		if rng.IntN(2) == 0 {
+			fam, p = cavity.TE, 1+rng.IntN(3)
+		}
+		m := cavity.Mode{Family: fam, N: rng.IntN(5), M: 1 + rng.IntN(4), P: p}
+		want := c.Frequency(m)
+		w, err := qfactor.WallQ(c, m, qfactor.Uniform(0.01))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if w.Frequency != want {
+			t.Errorf("WallQ(%+v, %v).Frequency = %.17g, want cavity's %.17g", c, m, w.Frequency, want)
+		}
+		u, err := qfactor.UnloadedQ(c, m, qfactor.Fixed(qfactor.Uniform(0.01)))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if u.Wall.Frequency != want {
+			t.Errorf("UnloadedQ(%+v, %v) frequency = %.17g, want cavity's %.17g", c, m, u.Wall.Frequency, want)
+		}
+		if m.Family == cavity.TM && m.N == 0 {
+			a, err := qfactor.Acceleration(c, m, 1)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if a.Frequency != want {
+				t.Errorf("Acceleration(%+v, %v).Frequency = %.17g, want cavity's %.17g", c, m, a.Frequency, want)
+			}
+		}
+	}
+}
