@@ -1,8 +1,9 @@
-package report
+package datasheet
 
 import (
 	"bytes"
 	"fmt"
+	"io"
 	"math"
 	"strings"
 	"time"
@@ -13,7 +14,6 @@ import (
 	"golang.org/x/image/font/sfnt"
 	"gonum.org/v1/plot/vg"
 
-	"cylcav/cmd/cylcav/internal/cmd/version"
 	"cylcav/figure"
 )
 
@@ -46,25 +46,25 @@ const pdfFont = "LiberationSans"
 // design gives the same bytes.
 var pdfDate = time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC)
 
-// PDF renders the datasheet as an A4 PDF document with the sections of the
-// HTML one, in the same order: text in Liberation Sans with the fonts
-// embedded, tables with wrapped cells, charts as PNG images at
-// pdfChartDPI (shrunk to at most pdfMinChartScale to finish a page rather
-// than leave it half empty), page numbers in the footer. The output is
-// deterministic.
-func (sh *Sheet) PDF() ([]byte, error) {
+// WritePDF writes the datasheet to out as an A4 PDF document with the
+// sections of the HTML one, in the same order: text in Liberation Sans
+// with the fonts embedded, tables with wrapped cells, charts as PNG images
+// at pdfChartDPI (shrunk to at most pdfMinChartScale to finish a page
+// rather than leave it half empty), page numbers in the footer. The output
+// is deterministic.
+func (sh *Sheet) WritePDF(out io.Writer) error {
 	pdf := fpdf.New("P", "mm", "A4", "")
 	pdf.AddUTF8FontFromBytes(pdfFont, "", liberationsansregular.TTF)
 	pdf.AddUTF8FontFromBytes(pdfFont, "B", liberationsansbold.TTF)
 	glyphs, err := sfnt.Parse(liberationsansregular.TTF)
 	if err != nil {
-		return nil, fmt.Errorf("report: PDF font: %w", err)
+		return fmt.Errorf("datasheet: PDF font: %w", err)
 	}
 	pdf.SetCreationDate(pdfDate)
 	pdf.SetModificationDate(pdfDate)
 	pdf.SetCatalogSort(true)
 	pdf.SetCompression(true)
-	pdf.SetCreator("cylcav "+version.Version, false)
+	pdf.SetCreator("cylcav "+sh.Version, false)
 	pdf.SetTitle(sh.Title, true)
 	pdf.SetMargins(pdfMargin, pdfMargin, pdfMargin)
 	pdf.SetAutoPageBreak(true, pdfMargin+pdfFooter)
@@ -74,7 +74,7 @@ func (sh *Sheet) PDF() ([]byte, error) {
 		pdf.SetY(-pdfMargin)
 		pdf.SetFont(pdfFont, "", 7.5)
 		pdf.SetTextColor(90, 90, 90)
-		pdf.CellFormat(0, 4, w.t(fmt.Sprintf("cylcav %s datasheet: %s", version.Version, sh.Headline)), "", 0, "L", false, 0, "")
+		pdf.CellFormat(0, 4, w.t(fmt.Sprintf("cylcav %s datasheet: %s", sh.Version, sh.Headline)), "", 0, "L", false, 0, "")
 		pdf.CellFormat(0, 4, fmt.Sprintf("page %d of {nb}", pdf.PageNo()), "", 0, "R", false, 0, "")
 		pdf.SetTextColor(0, 0, 0)
 	})
@@ -119,18 +119,18 @@ func (sh *Sheet) PDF() ([]byte, error) {
 	w.table(sh.Dimensions)
 	w.heading("2  Mode chart", w.chartMin(sh, "mode-chart"))
 	if err := w.chart(sh, "mode-chart"); err != nil {
-		return nil, err
+		return err
 	}
 	w.heading("3  Modes near the band", w.tableStart())
 	w.table(sh.Modes)
 	w.note(sh.ModesNote)
 	if err := w.chart(sh, "q-frequency"); err != nil {
-		return nil, err
+		return err
 	}
 	w.heading("4  Spurious-mode clearance", w.tableStart())
 	w.table(sh.Clearance)
 	if err := w.chart(sh, "trade-off"); err != nil {
-		return nil, err
+		return err
 	}
 	if len(sh.Q.Rows) > 0 {
 		w.heading("5  Unloaded Q", w.tableStart())
@@ -144,7 +144,7 @@ func (sh *Sheet) PDF() ([]byte, error) {
 	}
 	w.heading("7  Tuning", w.chartMin(sh, "tuning"))
 	if err := w.chart(sh, "tuning"); err != nil {
-		return nil, err
+		return err
 	}
 	w.table(sh.Tuning)
 	w.heading("8  Materials and their sources", w.tableStart()+pdfCellH*2)
@@ -177,13 +177,12 @@ func (sh *Sheet) PDF() ([]byte, error) {
 		w.bullet(c)
 	}
 	if err := pdf.Error(); err != nil {
-		return nil, fmt.Errorf("report: PDF: %w", err)
+		return fmt.Errorf("datasheet: PDF: %w", err)
 	}
-	var buf bytes.Buffer
-	if err := pdf.Output(&buf); err != nil {
-		return nil, fmt.Errorf("report: PDF: %w", err)
+	if err := pdf.Output(out); err != nil {
+		return fmt.Errorf("datasheet: PDF: %w", err)
 	}
-	return buf.Bytes(), nil
+	return nil
 }
 
 type pdfWriter struct {
