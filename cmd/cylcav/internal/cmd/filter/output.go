@@ -250,7 +250,7 @@ func (r *Result) WriteTable(w io.Writer) error {
 	}
 	gd := r.Delay
 	fmt.Fprintf(&b, "  group delay of S21: %s at f0; %s..%s across the passband (variation %s)\n",
-		nsText(gd.AtF0), nsText(gd.Min), nsText(gd.Max), nsText(gd.Variation()))
+		nsText(gd.AtF0), strings.TrimSuffix(nsText(gd.Min), " ns"), nsText(gd.Max), nsText(gd.Variation()))
 
 	if rz := r.Realisation; rz != nil {
 		writeCavities(&b, r, ff)
