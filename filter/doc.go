@@ -44,10 +44,9 @@
 //     the specification pass/fail table (the cavities' spurious resonances
 //     and the model's range included), the group delay at f0 and across
 //     the passband, and the first-order midband loss estimates from the
-//     group delay and by Cohn; WriteTouchstone exports the
-//     response, and NewResponsePlot draws |S21|, |S11| with the
-//     specification mask and the group delay (SweepRange, Sweep choose the
-//     frequencies) for package modechart's Render.
+//     group delay and by Cohn; SweepRange and Sweep choose the frequencies,
+//     WriteTouchstone exports the response. Package filterplot draws it
+//     with the regions of Design.Mask; this package imports no plotting.
 //  8. Physical realisation (Realise): one cavity per resonator for the
 //     chosen mode, sized at the resonator's own frequency (the diagonal
 //     M_ii detunes it to the bandpass image of Omega = -M_ii), its Q0 from
