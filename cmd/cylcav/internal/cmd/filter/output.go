@@ -151,12 +151,22 @@ func (r *Result) WriteTable(w io.Writer) error {
 	case bandpass.Butterworth:
 		fmt.Fprintf(&b, "  Butterworth (maximally flat) response, 3.01 dB at the band edges\n")
 	}
-	for _, rj := range s.Rejections {
-		fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards\n", dbText(rj.Attenuation), ff(rj.F))
+	for _, g := range d.Mask().Regions {
+		side, end := "+", g.High
+		if !g.Above {
+			side, end = "-", g.Low
+		}
+		if g.OutsideModel {
+			fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards (beyond f0 %s %g %%, where the model does not hold)\n",
+				dbText(g.Attenuation), ff(g.F), side, 100*bandpass.ModelOffset)
+			continue
+		}
+		fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards to %s (f0 %s %g %%, the end of the band of interest)\n",
+			dbText(g.Attenuation), ff(g.F), ff(end), side, 100*bandpass.ModelOffset)
 	}
 	how := "given"
 	if r.OrderChosen {
-		how = "the smallest that meets the rejections"
+		how = "the smallest that meets every rejection band"
 	}
 	fmt.Fprintf(&b, "  order N = %d (%s)\n", n, how)
 
