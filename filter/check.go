@@ -178,8 +178,12 @@ func (d *Design) Check(q0 []float64, spurious []Spurious) ([]Check, error) {
 			c.Verdict, c.Spurious = OutsideModel, first
 			c.Note = fmt.Sprintf("beyond the first spurious resonance of the cavities, %s at %s, the coupling-matrix model does not hold", first.Mode, physics.FormatFrequency(first.F, 6))
 		case g.OutsideModel:
+			side := "+"
+			if !g.Above {
+				side = "-"
+			}
 			c.Verdict = OutsideModel
-			c.Note = fmt.Sprintf("beyond f0 %s %g %%, the coupling-matrix model does not hold (frequency-dependent couplings, cavity modes)", map[bool]string{true: "+", false: "-"}[g.Above], 100*ModelOffset)
+			c.Note = fmt.Sprintf("beyond f0 %s %g %%, the coupling-matrix model does not hold (frequency-dependent couplings, cavity modes)", side, 100*ModelOffset)
 		default:
 			lo, hi := g.Low, g.High
 			if first != nil && first.F >= lo && first.F <= hi {

@@ -392,3 +392,21 @@ func TestMaskRegions(t *testing.T) {
 		t.Errorf("ModelFBWError at 10 %% and 10.1 %%: %v, %v", ModelFBWError(10e9, 1e9), ModelFBWError(10e9, 1.01e9))
 	}
 }
+
+// TestCheckSpuriousAtF: a spurious resonance exactly at the rejection
+// frequency fails the line with the attenuation there, not an empty band.
+func TestCheckSpuriousAtF(t *testing.T) {
+	d, err := Synthesize(Spec{F0: 10e9, BW: 200e6, Order: 4, Rejections: []Rejection{{F: 10.3e9, Attenuation: 20}}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, _ := cavity.ParseMode("TE112")
+	cs, err := d.Check(nil, []Spurious{{Mode: m, F: 10.3e9}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, _ := ChebyshevAttenuation(4, RippleFromReturnLoss(DefaultReturnLoss), nil, LowpassOmega(10.3e9, 10e9, 200e6))
+	if c := cs[2]; c.Verdict != NotMet || math.Abs(c.Worst-10.3e9) > 1e-12*10.3e9 || math.Abs(c.Achieved-want) > 1e-9 {
+		t.Errorf("rejection with a spurious resonance at F: %+v, want a failure with %v dB at 10.3 GHz", c, want)
+	}
+}

@@ -148,6 +148,9 @@ func bandMinimum(f func(float64) float64, a, b float64, breaks []float64) (wmin,
 	if a > b {
 		a, b = b, a
 	}
+	if a == b {
+		return a, f(a)
+	}
 	nodes := []float64{a, b}
 	for _, z := range breaks {
 		if z > a && z < b {
