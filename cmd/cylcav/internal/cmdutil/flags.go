@@ -96,7 +96,25 @@ func HardenFlags(cmd *cobra.Command) {
 	}
 }
 
-const needsKey = "cylcav_needs"
+const (
+	needsKey   = "cylcav_needs"
+	needsEgKey = "cylcav_needs_example"
+)
+
+// NeedsExample sets the example command-line fragment that CheckNeeds
+// shows when the flag name is given without the flag it needs (a fragment
+// that, added, makes the command line valid: "--wall niobium
+// --superconducting --temperature 2K").
+func NeedsExample(cmd *cobra.Command, name, example string) {
+	f := cmd.Flags().Lookup(name)
+	if f == nil {
+		panic("cmdutil.NeedsExample: no flag --" + name)
+	}
+	if f.Annotations == nil {
+		f.Annotations = map[string][]string{}
+	}
+	f.Annotations[needsEgKey] = []string{example}
+}
 
 // Needs records that the flag name has no effect unless one of anyOf is
 // given too; CheckNeeds refuses it alone. Both must be flags of cmd.
@@ -136,7 +154,11 @@ func CheckNeeds(cmd *cobra.Command) error {
 			names[i] = "--" + n
 		}
 		list := strings.Join(names, " or ")
-		err = Usagef("--%s needs %s (alone it has no effect); give %s too, or leave --%s out", f.Name, list, list, f.Name)
+		eg := ""
+		if e := f.Annotations[needsEgKey]; len(e) > 0 {
+			eg = ", e.g. " + e[0]
+		}
+		err = Usagef("--%s needs %s (alone it has no effect; leave it out or give %s too%s)", f.Name, list, list, eg)
 	})
 	return err
 }

@@ -10,9 +10,9 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
+	"cylcav/qfactor"
 )
 
 // DefaultCount is the number of modes listed when neither --fmax nor
@@ -27,10 +27,9 @@ const DefaultDigits = 5
 type Options struct {
 	IO *cmdutil.IOStreams
 
+	// Cavity is the cavity; its fill's Name is a library name, "user" for
+	// values given as eps=..., or "" for the default (vacuum).
 	Cavity cavity.Cavity
-	// FillName names the fill for people: a library name, "user" for
-	// values given as eps=..., or "vacuum" for the default.
-	FillName string
 	// FMax, when > 0, lists every mode at or below it (Hz); otherwise
 	// Count modes are listed.
 	FMax  float64
@@ -41,8 +40,9 @@ type Options struct {
 	// the table (JSON and CSV always carry full precision).
 	Digits int
 
-	// Loss, when not nil (--wall given), adds q_wall, q_fill and q0 columns.
-	Loss *Loss
+	// Walls, when not nil (--wall given), adds q_wall, q_fill and q0
+	// columns.
+	Walls *qfactor.WallSet
 
 	Format cmdutil.Format
 }
@@ -54,7 +54,7 @@ func NewCmdModes(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var fmax string
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
-	var walls *q.WallFlags
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "modes (--diameter D | --radius A) --length L [--fill SPEC] [--fmax F | --count K]",
 		Short: "List the resonant modes of a cylindrical cavity, sorted by frequency",
@@ -97,11 +97,10 @@ detail.`, DefaultCount),
   $ cylcav modes --radius 27.4mm --length 54.8mm --fill ptfe --fmax 8GHz --format json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			c, fill, err := geo.Cavity()
-			if err != nil {
+			var err error
+			if opts.Cavity, err = geo.Cavity(); err != nil {
 				return err
 			}
-			opts.Cavity, opts.FillName = c, fill.Name
 			fl := cmd.Flags()
 			switch {
 			case fl.Changed("fmax") && fl.Changed("count"):
@@ -118,7 +117,7 @@ detail.`, DefaultCount),
 			default:
 				opts.Count = DefaultCount
 			}
-			if opts.Loss, err = parseLoss(walls, fill); err != nil {
+			if opts.Walls, err = parseWalls(walls); err != nil {
 				return err
 			}
 			if opts.Digits < 3 || opts.Digits > 17 {
@@ -148,7 +147,7 @@ detail.`, DefaultCount),
 	fl.StringVar(&fmax, "fmax", "", "list every mode at or below this frequency (e.g. 12GHz)")
 	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
 	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
-	walls = q.AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
 }
@@ -263,25 +262,14 @@ type cavityJSON struct {
 	MuR     float64 `json:"mu_r"`
 }
 
-// one maps the zero value of a fill field to 1, its meaning.
-func one(v float64) float64 {
-	if v == 0 {
-		return 1
-	}
-	return v
-}
-
 // DescribeCavity returns the one-line description of a cavity used in
 // table headers: dimensions in friendly units and the fill.
-func DescribeCavity(c cavity.Cavity, fillName string) string {
-	f := c.Fill()
-	name := fillName
-	if name == "" {
-		name = "vacuum"
-	}
-	fill := fmt.Sprintf("fill %s (eps_r %s, mu_r %s)", name, num(one(f.EpsR)), num(one(f.MuR)))
+func DescribeCavity(c cavity.Cavity) string {
+	f := c.Fill
+	name := f.Label()
+	fill := fmt.Sprintf("fill %s (eps_r %s, mu_r %s)", name, num(f.Eps()), num(f.Mu()))
 	if name == "user" {
-		fill = fmt.Sprintf("fill eps_r %s, mu_r %s", num(one(f.EpsR)), num(one(f.MuR)))
+		fill = fmt.Sprintf("fill eps_r %s, mu_r %s", num(f.Eps()), num(f.Mu()))
 	}
 	return fmt.Sprintf("radius %s, diameter %s, length %s, %s",
 		cmdutil.TrimZeros(physics.FormatLength(c.Radius, 6)), cmdutil.TrimZeros(physics.FormatLength(c.Diameter(), 6)),

@@ -17,7 +17,6 @@ import (
 	"strconv"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
@@ -41,15 +40,15 @@ type rowSource struct {
 
 func newRowSource(opts *Options, list []cavity.Resonance) *rowSource {
 	src := &rowSource{opts: opts, list: list}
-	if opts.Loss != nil {
+	if opts.Walls != nil {
 		warn := func(s string) { fmt.Fprintf(opts.IO.ErrOut, "cylcav: note: %s\n", s) }
-		src.rs = q.Resistance(opts.Loss.Walls, warn)
+		src.rs = opts.Walls.At(warn)
 	}
 	return src
 }
 
 // withQ reports whether the rows carry the Q columns.
-func (s *rowSource) withQ() bool { return s.opts.Loss != nil }
+func (s *rowSource) withQ() bool { return s.opts.Walls != nil }
 
 // row returns row i; rows must be asked for in order.
 func (s *rowSource) row(i int) (Row, error) {
@@ -59,7 +58,7 @@ func (s *rowSource) row(i int) (Row, error) {
 	}
 	if i < s.base || i >= s.base+len(s.us) {
 		end := min(i+qChunk, len(s.list))
-		us, err := qfactor.UnloadedQAll(s.opts.Cavity, s.list[i:end], s.rs, s.opts.Loss.Fill)
+		us, err := qfactor.UnloadedQAll(s.opts.Cavity, s.list[i:end], s.rs)
 		if err != nil {
 			return r, err
 		}
@@ -127,8 +126,7 @@ func writeCSV(w io.Writer, src *rowSource) error {
 // writeJSON writes what cmdutil.WriteJSON writes for the object
 // {cavity, index_convention, modes}, one mode at a time.
 func writeJSON(w io.Writer, c cavity.Cavity, src *rowSource) error {
-	f := c.Fill()
-	cav, err := json.MarshalIndent(cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: one(f.EpsR), MuR: one(f.MuR)}, "  ", "  ")
+	cav, err := json.MarshalIndent(cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: c.Fill.Eps(), MuR: c.Fill.Mu()}, "  ", "  ")
 	if err != nil {
 		return err
 	}
@@ -196,7 +194,7 @@ func (s *rowSource) cells(i int, cols []column, digits int, out []string) ([]str
 // blanks, as cmdutil.TableWriter lays them out.
 func writeTable(w io.Writer, opts *Options, src *rowSource, what string) error {
 	if _, err := fmt.Fprintf(w, "cavity: %s\nmodes TE_nmp / TM_nmp: n azimuthal, m radial, p axial; %s\n",
-		DescribeCavity(opts.Cavity, opts.FillName), what); err != nil {
+		DescribeCavity(opts.Cavity), what); err != nil {
 		return err
 	}
 	if len(src.list) == 0 {
