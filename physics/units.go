@@ -489,3 +489,23 @@ func UnitHint(kind string, v float64) string {
 	}
 	return ""
 }
+
+var resistanceUnits = []unit{
+	{[]string{"ohm", "ω"}, 1},
+	{[]string{"mohm", "mω"}, 1e-3}, // milliohm: there is no megohm surface resistance
+	{[]string{"uohm", "uω"}, 1e-6},
+	{[]string{"nohm", "nω"}, 1e-9},
+}
+
+// ParseResistance parses a (surface) resistance and returns it in ohms.
+// Accepted units: ohm, mohm (milliohm), uohm, nohm in any case, "ohm" also
+// written Ω (U+03A9 or U+2126). A plain number is ohms. See the common
+// rules at the top of this file.
+//
+// Special cases are:
+//
+//	ParseResistance("10nohm") = 1e-8, nil
+//	ParseResistance("0x10") = error (no hexadecimal)
+func ParseResistance(s string) (float64, error) {
+	return parseWithUnits("resistance", strings.ReplaceAll(s, "\u2126", "\u03a9"), resistanceUnits, 1, "ohm, mohm, uohm or nohm")
+}

@@ -175,6 +175,13 @@ func quoteValue(s string) string {
 	return fmt.Sprintf("%q", s)
 }
 
+// IsValueError reports whether err, a flag parsing error, comes from a
+// value's own check (ValueErrorf), which already says what is valid.
+func IsValueError(err error) bool {
+	_, ok := asValueError(err)
+	return ok
+}
+
 // asValueError reports whether err (the cause of a pflag InvalidValueError)
 // is a valueError.
 func asValueError(err error) (*valueError, bool) {

@@ -33,12 +33,20 @@ var siUnit = map[string]string{"length": "m", "frequency": "Hz"}
 // bare applies the rule above to the value of a flag of the given kind
 // ("length" or "frequency"), whose SI reading is printed by format.
 func bare(flag, value, kind string, format func(float64, int) string) error {
+	if err := bareError(value, kind, format); err != nil {
+		return FlagError(flag, value, err)
+	}
+	return nil
+}
+
+// bareError is bare's error without the flag.
+func bareError(value, kind string, format func(float64, int) string) error {
 	v, ok := physics.BareNumber(value)
 	if !ok || v == 0 {
 		return nil
 	}
-	return FlagError(flag, value, fmt.Errorf("a bare number needs a unit: as SI it reads %s (write %s%s), or did you mean %s?",
-		TrimZeros(format(v, 6)), strings.TrimSpace(value), siUnit[kind], physics.UnitHint(kind, v)))
+	return fmt.Errorf("a bare number needs a unit: as SI it reads %s (write %s%s), or did you mean %s?",
+		TrimZeros(format(v, 6)), strings.TrimSpace(value), siUnit[kind], physics.UnitHint(kind, v))
 }
 
 // ParseLength parses a length flag value with the rule for bare numbers;

@@ -71,7 +71,7 @@ modes tied exactly with the last one are listed too.
 
 --fill takes a material name (ptfe, alumina, ...) or values
 eps=2.08[,mu=1]; the default is vacuum. Lengths take m, cm, mm, um, in or
-mil; frequencies Hz, kHz, MHz or GHz; plain numbers are SI. Table output
+mil; frequencies Hz, kHz, MHz or GHz; a bare number needs a unit. Table output
 uses friendly units, frequencies to --digits significant digits (default
 5); JSON and CSV use hertz and metres at full precision.
 

@@ -37,7 +37,8 @@ Mode index convention: TE_nmp and TM_nmp with n azimuthal (cos n phi),
 m radial (m-th Bessel zero), p axial (half-wavelengths along the length).
 
 Units: lengths m, cm, mm, um, in, mil; frequencies Hz, kHz, MHz, GHz.
-Plain numbers are SI. JSON and CSV output use SI base units.`,
+A length or frequency other than 0 needs its unit (a bare 176.5 is
+refused with a hint). JSON and CSV output use SI base units.`,
 		SilenceUsage:  true,
 		SilenceErrors: true,
 		// A flag given without the flag it needs is refused before any
@@ -49,6 +50,9 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.SetOut(io.Out)
 	cmd.SetErr(io.ErrOut)
 	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
+		if cmdutil.IsValueError(err) {
+			return &cmdutil.UsageError{Err: cmdutil.FlagValueError(err)}
+		}
 		return &cmdutil.UsageError{Err: fmt.Errorf("%w (see '%s --help')", cmdutil.FlagValueError(err), c.CommandPath())}
 	})
 

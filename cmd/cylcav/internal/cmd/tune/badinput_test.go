@@ -12,9 +12,9 @@ func TestBadInputMain(t *testing.T) {
 	with := func(extra ...string) []string { return append(append([]string{}, base...), extra...) }
 	ok := slices.Clip(with("--length-range", "28mm:32mm")) // each append copies
 	clitest.CheckBadInput(t, "tune", []clitest.BadCase{
-		{Args: with("--length-range", "3:0.5"), Code: 2, Want: []string{`--length-range "3:0.5"`, "above high end"}},
+		{Args: with("--length-range", "3mm:0.5mm"), Code: 2, Want: []string{`--length-range "3mm:0.5mm"`, "above high end"}},
 		{Args: with("--length-range", "a:b"), Code: 2, Want: []string{`--length-range "a:b"`, "no number"}},
-		{Args: with("--length-range", "1:"), Code: 2, Want: []string{`--length-range "1:"`, "empty"}},
+		{Args: with("--length-range", "1mm:"), Code: 2, Want: []string{`--length-range "1mm:"`, "empty"}},
 		{Args: with("--length-range", ":2"), Code: 2, Want: []string{`--length-range ":2"`, "empty"}},
 		{Args: with("--length-range", "28mm"), Code: 2, Want: []string{`--length-range "28mm"`, "LO:HI"}},
 		{Args: with("--length-range", "0:30mm"), Code: 2, Want: []string{`--length-range "0:30mm"`, "must be between"}},
