@@ -127,7 +127,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		return s, FlagError("objective", sf.objective, fmt.Errorf("unknown objective; use clearance|q"))
 	}
 	if set("min-clearance") {
-		if sp.MinClearance, err = fraction("min-clearance", sf.minClear, 0, 1); err != nil {
+		if sp.MinClearance, err = Fraction("min-clearance", sf.minClear, 0, 1); err != nil {
 			return s, err
 		}
 	}
@@ -161,7 +161,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 	}
 	if set("tuning") {
-		if sp.Tuning, err = fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
+		if sp.Tuning, err = Fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
 			return s, err
 		}
 		if err := CheckTunable("tuning", sf.tuning, sp.Mode, sp.Tuning); err != nil {
@@ -228,17 +228,6 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	}
 	sp.CountDegenerate = sf.countDeg
 	return s, nil
-}
-
-func fraction(flag, value string, lo, hi float64) (float64, error) {
-	v, err := physics.ParseFraction(value)
-	if err != nil {
-		return 0, FlagError(flag, value, err)
-	}
-	if !(v >= lo && v <= hi) {
-		return 0, FlagError(flag, value, fmt.Errorf("must be between %g%% and %g%%", 100*lo, 100*hi))
-	}
-	return v, nil
 }
 
 func coefficient(flag, value string) (float64, error) {

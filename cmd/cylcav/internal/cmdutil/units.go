@@ -127,3 +127,17 @@ func TrimZeros(s string) string {
 	}
 	return strings.TrimRight(strings.TrimRight(v, "0"), ".") + " " + unit
 }
+
+// Fraction parses the value of a percentage flag (2%, or the fraction
+// 0.02) and checks that it lies in [lo, hi]; the one parser of every
+// percentage flag, as FractionVar is for typed flags.
+func Fraction(flag, value string, lo, hi float64) (float64, error) {
+	v, err := physics.ParseFraction(value)
+	if err != nil {
+		return 0, FlagError(flag, value, err)
+	}
+	if !(v >= lo && v <= hi) {
+		return 0, FlagError(flag, value, fmt.Errorf("must be between %s and %s", showPercent(lo), showPercent(hi)))
+	}
+	return v, nil
+}

@@ -142,7 +142,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				opts.MinFDText = minFD
 			}
 			if fl.Changed("tuning") {
-				if s.Tuning, err = fraction("tuning", tuning, 0, 0.5); err != nil {
+				if s.Tuning, err = cmdutil.Fraction("tuning", tuning, 0, cavity.MaxTuning); err != nil {
 					return err
 				}
 				if err := cmdutil.CheckTunable("tuning", tuning, s.Wanted, s.Tuning); err != nil {
@@ -150,7 +150,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				}
 			}
 			if fl.Changed("min-clearance") {
-				if s.Clearance, err = fraction("min-clearance", minClr, 0, 0.99); err != nil {
+				if s.Clearance, err = cmdutil.Fraction("min-clearance", minClr, 0, 0.99); err != nil {
 					return err
 				}
 			}
@@ -311,17 +311,6 @@ func plain(s string) (float64, error) {
 	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
 	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
 		return 0, fmt.Errorf("%q is not a number", s)
-	}
-	return v, nil
-}
-
-func fraction(flag, value string, lo, hi float64) (float64, error) {
-	v, err := physics.ParseFraction(value)
-	if err != nil {
-		return 0, cmdutil.FlagError(flag, value, err)
-	}
-	if !(v >= lo && v < hi) {
-		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be at least %g %% and below %g %%", 100*lo, 100*hi))
 	}
 	return v, nil
 }
