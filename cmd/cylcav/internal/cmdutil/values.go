@@ -43,6 +43,9 @@ func (q *Quantity) Text() string { return q.text }
 func (q *Quantity) Set(s string) error {
 	v, err := q.parse(s)
 	if err != nil {
+		if q.kind == "number" { // as Number: the unit cannot be the slip
+			return ValueErrorf("%v; want a number between %s and %s", err, q.show(q.lo), q.show(q.hi))
+		}
 		return ValueErrorf("%v", err)
 	}
 	if math.IsNaN(v) || v < q.lo || v > q.hi {
