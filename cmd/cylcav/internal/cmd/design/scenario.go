@@ -186,6 +186,11 @@ func Cautions(r Result) []string {
 			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
 		}
 	}
+	if u := r.Unloaded; u != nil {
+		for _, w := range qfactor.Validity(d.Cavity, walls(*r.Scenario.Wall), *u) {
+			out = append(out, w.Text+".")
+		}
+	}
 	if u := r.Unloaded; u != nil && u.Share.Fill > 0.5 {
 		out = append(out, fmt.Sprintf("The fill's loss dominates Q0 (%.0f %% of the loss); a better wall metal will not help much.", 100*u.Share.Fill))
 	}

@@ -211,6 +211,23 @@ func (r *Result) realise() error {
 	}
 	r.Realisation = rz
 	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
+	var ws qfactor.WallSet // perfectly conducting without --wall
+	if opts.Walls != nil {
+		ws = *opts.Walls
+	}
+	checks := make([][]qfactor.Warning, len(rz.Cavities))
+	for i, cd := range rz.Cavities {
+		checks[i] = qfactor.Validity(cd.Cavity, ws, cd.Loss)
+	}
+	first, count := qfactor.FirstOfEach(checks)
+	for k, w := range first {
+		i := slices.IndexFunc(checks, func(c []qfactor.Warning) bool { return slices.Contains(c, w) })
+		more := ""
+		if count[k] > 1 {
+			more = fmt.Sprintf(" (and %d more of the cavities)", count[k]-1)
+		}
+		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s%s", rz.Cavities[i].Resonator, w.Text, more))
+	}
 	return nil
 }
 

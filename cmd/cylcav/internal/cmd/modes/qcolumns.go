@@ -55,9 +55,20 @@ func addQ(opts *Options, list []cavity.Resonance, rows []Row) error {
 	if err != nil {
 		return err
 	}
+	checks := make([][]qfactor.Warning, len(us))
 	for i, u := range us {
 		w, f, q0 := QValue(u.Wall.QWall), QValue(u.QFill), QValue(u.Q0)
 		rows[i].QWall, rows[i].QFill, rows[i].Q0 = &w, &f, &q0
+		checks[i] = qfactor.Validity(opts.Cavity, *opts.Walls, u)
+	}
+	first, count := qfactor.FirstOfEach(checks)
+	for k, w := range first {
+		i := slices.IndexFunc(checks, func(ws []qfactor.Warning) bool { return slices.Contains(ws, w) })
+		more := ""
+		if count[k] > 1 {
+			more = fmt.Sprintf(" (and %d more of the listed modes)", count[k]-1)
+		}
+		warn(fmt.Sprintf("%s: %s%s", list[i].Mode, w.Text, more))
 	}
 	return nil
 }
