@@ -7,7 +7,6 @@ import (
 
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/design"
-	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
 // rfCaution is the general RF caution as design prints it: the sentence
@@ -113,27 +112,6 @@ func TestDesignErrors(t *testing.T) {
 	}
 }
 
-func TestDemoIsLibraryCall(t *testing.T) {
-	s, err := design.Demo()
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := s.Run(nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if r.Unloaded == nil || r.Design.Spread == nil || len(r.Cautions) == 0 {
-		t.Errorf("Demo().Run = %+v, want Q breakdown, spread and cautions", r)
-	}
-	// The result's cautions are the design's own; the general RF caution
-	// is added by the outputs (and the datasheet has its own safety notes).
-	for _, c := range r.Cautions {
-		if strings.Contains(c, cmdutil.CautionRF[1:]) {
-			t.Errorf("Demo().Run cautions include the general RF caution %q", c)
-		}
-	}
-}
-
 // TestDesignValidity checks that design prints the library's validity
 // warnings (qfactor.Validity, tested against independent routes there)
 // among its cautions: walls of a magnetic metal given by values.
@@ -142,7 +120,7 @@ func TestDesignValidity(t *testing.T) {
 	if r.Code != 0 {
 		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
-	if !strings.Contains(r.Stdout, "  - the wall metal given by its values has mu_r = 50: its microwave permeability is uncertain") {
+	if !strings.Contains(r.Stdout, "  - The wall metal given by its values has mu_r = 50: its microwave permeability is uncertain") {
 		t.Errorf("design output lacks the permeability caution:\n%s", r.Stdout)
 	}
 	if r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper"); strings.Contains(r.Stdout, "mu_r") {

@@ -1,4 +1,4 @@
-package report
+package datasheet
 
 import (
 	"fmt"
@@ -9,7 +9,7 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/design"
 	"cylcav/figure"
 	"cylcav/modechart"
 	"cylcav/physics"
@@ -18,6 +18,8 @@ import (
 // Sheet is the content of a datasheet, formatted for people: every number
 // is already a string with its unit. HTML and PDF render the same Sheet.
 type Sheet struct {
+	// Version is the cylcav version written into the files.
+	Version  string
 	Title    string
 	Demo     bool   // the built-in demo scenario
 	Headline string // one line: mode, frequency, D and L
@@ -81,8 +83,9 @@ type Chart struct {
 // Q-versus-frequency chart, as a fraction of the design frequency.
 const modeWindow = 0.25
 
-// build assembles the datasheet of a design result.
-func build(r design.Result, th figure.Theme) (*Sheet, error) {
+// FromDesign assembles the datasheet of a single-cavity design result,
+// drawing its charts in theme th.
+func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
@@ -119,14 +122,14 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by the %s constraint", d.Limit)
 	}
-	tol := spec.Tolerance
+	tol := r.Analysis.Settings.Tolerance
 	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
 	dim.add(false, "Radius a", length(c.Radius), "")
 	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
 	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
 	if spec.Tuning > 0 {
-		dim.add(false, "Length at f (1 − tuning)", length(d.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
-		dim.add(false, "Length at f (1 + tuning)", length(d.TunedLength[1]), "")
+		dim.add(false, "Length at f (1 − tuning)", length(r.Analysis.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
+		dim.add(false, "Length at f (1 + tuning)", length(r.Analysis.TunedLength[1]), "")
 	}
 	fill := r.Scenario.Fill
 	dim.add(false, "Fill", spec.Fill.Label(), fmt.Sprintf("εr = %.6g, μr = %.6g", spec.Fill.Eps(), spec.Fill.Mu()))
@@ -229,7 +232,7 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	sh.Clearance = ct
 
 	// Sensitivities and thermal drift.
-	s := d.Sensitivity
+	s := r.Analysis.Sensitivity
 	st := Table{Caption: "Sensitivities of the wanted frequency", Header: []string{"Quantity", "Value"}}
 	st.add(false, "df/dD", signedFreq(s.DfDD*1e-3)+" per mm")
 	st.add(false, "df/dL", signedFreq(s.DfDL*1e-3)+" per mm")
@@ -239,12 +242,12 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 		th := spec.Thermal
 		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
 		st.add(false, "Expansion: side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
-		st.add(false, "Drift at the range ends", signedFreq(d.Drift[0])+" / "+signedFreq(d.Drift[1]))
+		st.add(false, "Drift at the range ends", signedFreq(r.Analysis.Drift[0])+" / "+signedFreq(r.Analysis.Drift[1]))
 	}
 	sh.Sensitive = st
 
 	// Tolerance spread.
-	if sp := d.Spread; sp != nil {
+	if sp := r.Analysis.Spread; sp != nil {
 		dist := "uniform"
 		if tol.Distribution == cavity.Normal {
 			sig := tol.Sigmas
@@ -266,7 +269,7 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Tuning curve: over the tuning range widened by half, or L ± 5 %.
 	lLo, lHi := 0.95*c.Length, 1.05*c.Length
 	if spec.Tuning > 0 {
-		a, b := math.Min(d.TunedLength[0], d.TunedLength[1]), math.Max(d.TunedLength[0], d.TunedLength[1])
+		a, b := math.Min(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1]), math.Max(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1])
 		lLo, lHi = a-0.25*(b-a), b+0.25*(b-a)
 	}
 	tc, err := c.Tune(w, lLo, lHi, 120, spec.CountDegenerate)
@@ -344,7 +347,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	// Mode chart around the design, with the operating box.
 	cs := modechart.Spec{
 		Wanted: spec.Mode, Cavity: c, Tuning: spec.Tuning,
-		DiameterTol: spec.Tolerance.Diameter, LengthTol: spec.Tolerance.Length,
+		DiameterTol: r.Analysis.Settings.Tolerance.Diameter, LengthTol: r.Analysis.Settings.Tolerance.Length,
 		Clearance: spec.MinClearance,
 	}
 	if cs.Clearance == 0 {
@@ -358,7 +361,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	// The chart spans the allowed range and the whole operating box (the
 	// tuned lengths, widened by the tolerances) with a margin.
 	rLo, rHi := d.Ratio, d.Ratio
-	for _, L := range d.TunedLength {
+	for _, L := range r.Analysis.TunedLength {
 		if L > 0 {
 			rLo, rHi = math.Min(rLo, c.Diameter()/L), math.Max(rHi, c.Diameter()/L)
 		}
@@ -378,7 +381,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 		Figure:  fig, Page: page})
 
 	// Trade-off curves.
-	cv := d.Curve
+	cv := r.Analysis.Curve
 	if len(cv.Ratio) >= 2 {
 		tf, err := modechart.TradeOffFigure(th, "Design trade-off against D/L", modechart.TradeOffCurves{
 			Ratio: cv.Ratio, Clearance: cv.Clearance, WorstClearance: cv.WorstClearance, Q0: cv.Q0,
@@ -395,7 +398,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	// Tuning curve with the neighbouring modes.
 	tcv := modechart.TuningCurves{Wanted: spec.Mode.String(), Design: c.Length}
 	if spec.Tuning > 0 {
-		tcv.Range = d.TunedLength
+		tcv.Range = r.Analysis.TunedLength
 	}
 	others := map[cavity.Mode]bool{}
 	for _, L := range []float64{tc.Points[0].Length, tc.Points[len(tc.Points)-1].Length} {
