@@ -109,28 +109,44 @@ func Validity(c cavity.Cavity, w WallSet, u Unloaded) []Warning {
 	return out
 }
 
-// FirstOfEach condenses the Validity warnings of several results (the
-// modes of one cavity, or the cavities of a filter), given in the caller's
-// order: for each check that any result raised, in check order, the first
-// such warning and the number of results that raised it.
-func FirstOfEach(lists [][]Warning) (first []Warning, count []int) {
+// Condensed is one check of Condense: its first warning, the index of the
+// result that raised it first, and how many results raised it.
+type Condensed struct {
+	Warning
+	First, Count int
+}
+
+// Condense condenses the Validity warnings of several results (the modes
+// of one cavity, or the cavities of a filter), given in the caller's
+// order: one Condensed for each check that any result raised, in check
+// order.
+func Condense(lists [][]Warning) []Condensed {
+	var out []Condensed
 	for _, c := range []Check{ThickSkin, LowQ, MagneticWall} {
-		n := 0
-		var w Warning
-		for _, ws := range lists {
+		cd := Condensed{First: -1}
+		for i, ws := range lists {
 			for _, x := range ws {
 				if x.Check == c {
-					if n == 0 {
-						w = x
+					if cd.Count == 0 {
+						cd.Warning, cd.First = x, i
 					}
-					n++
+					cd.Count++
 					break
 				}
 			}
 		}
-		if n > 0 {
-			first, count = append(first, w), append(count, n)
+		if cd.Count > 0 {
+			out = append(out, cd)
 		}
 	}
-	return first, count
+	return out
+}
+
+// Text returns the warning's text, followed by "(and N more of the
+// <what>)" when more results than the first raised it.
+func (c Condensed) Text(what string) string {
+	if c.Count > 1 {
+		return fmt.Sprintf("%s (and %d more of the %s)", c.Warning.Text, c.Count-1, what)
+	}
+	return c.Warning.Text
 }

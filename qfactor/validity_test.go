@@ -141,15 +141,19 @@ func texts(ws []qfactor.Warning) []string {
 	return out
 }
 
-func TestFirstOfEach(t *testing.T) {
+func TestCondense(t *testing.T) {
 	a := qfactor.Warning{Check: qfactor.LowQ, Text: "a"}
 	b := qfactor.Warning{Check: qfactor.LowQ, Text: "b"}
 	s := qfactor.Warning{Check: qfactor.ThickSkin, Text: "s"}
-	first, count := qfactor.FirstOfEach([][]qfactor.Warning{{a}, nil, {s, b}, {b}})
-	if len(first) != 2 || first[0] != s || first[1] != a || count[0] != 1 || count[1] != 3 {
-		t.Errorf("FirstOfEach = %v, %v; want [s a], [1 3] (check order, first of each, counts)", first, count)
+	got := qfactor.Condense([][]qfactor.Warning{{a}, nil, {s, b}, {b}})
+	want := []qfactor.Condensed{{Warning: s, First: 2, Count: 1}, {Warning: a, First: 0, Count: 3}}
+	if len(got) != 2 || got[0] != want[0] || got[1] != want[1] {
+		t.Errorf("Condense = %+v, want %+v (check order, first of each, counts)", got, want)
 	}
-	if first, count := qfactor.FirstOfEach(nil); first != nil || count != nil {
-		t.Errorf("FirstOfEach(nil) = %v, %v; want nil, nil", first, count)
+	if got[0].Text("modes") != "s" || got[1].Text("modes") != "a (and 2 more of the modes)" {
+		t.Errorf("Text = %q, %q; want %q, %q", got[0].Text("modes"), got[1].Text("modes"), "s", "a (and 2 more of the modes)")
+	}
+	if got := qfactor.Condense(nil); got != nil {
+		t.Errorf("Condense(nil) = %v, want nil", got)
 	}
 }

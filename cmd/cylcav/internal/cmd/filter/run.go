@@ -219,14 +219,8 @@ func (r *Result) realise() error {
 	for i, cd := range rz.Cavities {
 		checks[i] = qfactor.Validity(cd.Cavity, ws, cd.Loss)
 	}
-	first, count := qfactor.FirstOfEach(checks)
-	for k, w := range first {
-		i := slices.IndexFunc(checks, func(c []qfactor.Warning) bool { return slices.Contains(c, w) })
-		more := ""
-		if count[k] > 1 {
-			more = fmt.Sprintf(" (and %d more of the cavities)", count[k]-1)
-		}
-		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s%s", rz.Cavities[i].Resonator, w.Text, more))
+	for _, c := range qfactor.Condense(checks) {
+		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s", rz.Cavities[c.First].Resonator, c.Text("cavities")))
 	}
 	return nil
 }

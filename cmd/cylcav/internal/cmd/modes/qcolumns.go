@@ -61,14 +61,8 @@ func addQ(opts *Options, list []cavity.Resonance, rows []Row) error {
 		rows[i].QWall, rows[i].QFill, rows[i].Q0 = &w, &f, &q0
 		checks[i] = qfactor.Validity(opts.Cavity, *opts.Walls, u)
 	}
-	first, count := qfactor.FirstOfEach(checks)
-	for k, w := range first {
-		i := slices.IndexFunc(checks, func(ws []qfactor.Warning) bool { return slices.Contains(ws, w) })
-		more := ""
-		if count[k] > 1 {
-			more = fmt.Sprintf(" (and %d more of the listed modes)", count[k]-1)
-		}
-		warn(fmt.Sprintf("%s: %s%s", list[i].Mode, w.Text, more))
+	for _, c := range qfactor.Condense(checks) {
+		warn(fmt.Sprintf("%s: %s", list[c.First].Mode, c.Text("listed modes")))
 	}
 	return nil
 }
