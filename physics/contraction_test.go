@@ -225,3 +225,25 @@ func TestTemperatureIn(t *testing.T) {
 		t.Error("TemperatureIn(NaN) = true, want false")
 	}
 }
+
+// TestExpansionAt checks the local coefficient against the linear model's
+// own coefficient (exact there, to the difference step) and against the room-temperature handbook
+// value for copper (CRC Handbook, 16.5 ppm/K, recalled from memory; NIST's
+// fit is stated to 1 %).
+func TestExpansionAt(t *testing.T) {
+	ag, _ := LookupConductor("silver")
+	// Linear model: L = L293 (1 + alpha (T - 293 K)), so (1/L) dL/dT =
+	// alpha / (1 + alpha (T - 293 K)).
+	T := ZeroCelsius + 60
+	want := ag.Expansion / (1 + ag.Expansion*(T-StrainReference))
+	if a, err := ag.ExpansionAt(T); err != nil || math.Abs(a/want-1) > 1e-9 {
+		t.Errorf("silver ExpansionAt(60 C) = %g, %v, want %g", a, err, want)
+	}
+	cu, _ := LookupConductor("copper")
+	if a, err := cu.ExpansionAt(293); err != nil || math.Abs(a/16.5e-6-1) > 0.02 {
+		t.Errorf("copper ExpansionAt(293 K) = %g, %v, want 16.5e-6 +- 2 %%", a, err)
+	}
+	if a, _ := cu.ExpansionAt(2); a != 0 {
+		t.Errorf("copper ExpansionAt(2 K) = %g, want 0 (contraction complete)", a)
+	}
+}
