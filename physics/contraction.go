@@ -64,6 +64,8 @@ const (
 // The zero value means no data. Values are built by the library rows of
 // Conductors; Conductor.Strain evaluates them.
 type Contraction struct {
+	// Label names the data in a few words for output ("NIST fit 4-300 K").
+	Label string
 	// Source names the publication the data come from.
 	Source string
 	// TMin and TMax bound the data, in kelvin.
@@ -191,6 +193,7 @@ const (
 // gives the one fit for 304, 304L, 310 and 316 (data 4-300 K, fit error 5 %).
 func contractionNIST304() Contraction {
 	return Contraction{
+		Label:  "NIST cryogenic fit, 4-300 K",
 		Source: srcNISTfit + ", 304 stainless (the same fit as 304L, 310 and 316)",
 		TMin:   4, TMax: 300, FitError: 0.05,
 		kind: nistPoly, coef: []float64{-2.9554e2, -3.9811e-1, 9.2683e-3, -2.0261e-5, 1.7127e-8},
@@ -202,6 +205,7 @@ func contractionNIST304() Contraction {
 // fit error 4 %; the same fit as 3003-F and 5083-O).
 func contractionNIST6061() Contraction {
 	return Contraction{
+		Label:  "NIST cryogenic fit, 4-300 K",
 		Source: srcNISTfit + ", 6061-T6 aluminium",
 		TMin:   4, TMax: 300, FitError: 0.04,
 		kind: nistPoly, coef: []float64{-4.1277e2, -3.0389e-1, 8.7696e-3, -9.9821e-6, 0},
@@ -213,6 +217,7 @@ func contractionNIST6061() Contraction {
 // 5 %).
 func contractionNISTInvar() Contraction {
 	return Contraction{
+		Label:  "NIST cryogenic fit, 4-300 K",
 		Source: srcNISTfit + ", invar Fe-36Ni",
 		TMin:   4, TMax: 300, FitError: 0.05,
 		kind: nistPoly, coef: []float64{-5.265e1, 1.009e-1, 8.395e-4, -1.973e-6, 8.794e-11},
@@ -224,6 +229,7 @@ func contractionNISTInvar() Contraction {
 // (4-300 K), integrated.
 func contractionNISTCopper() Contraction {
 	return Contraction{
+		Label:  "NIST cryogenic expansion fit integrated, 4-300 K",
 		Source: srcNISTcu,
 		TMin:   4, TMax: 300, FitError: 0.01,
 		kind: nistLogAlpha,
@@ -235,6 +241,7 @@ func contractionNISTCopper() Contraction {
 // contraction from 293 K (recalled from memory; see srcEkinNb).
 func contractionEkinNiobium() Contraction {
 	return Contraction{
+		Label:  "Ekin 2006 table A6.4 (recalled), 4-293 K",
 		Source: srcEkinNb,
 		TMin:   4, TMax: StrainReference, FitError: 0.02,
 		kind: table,

@@ -246,8 +246,8 @@ func Dielectrics() []Dielectric {
 			Source: "definition",
 		},
 		{
-			Name: "air", Aliases: []string{"dry-air"},
-			Description: "dry air, 20 C, 101.325 kPa",
+			Name: "air", Aliases: []string{"dry-air", "air-vented"},
+			Description: "dry air, 20 C, 101.325 kPa, vented (constant pressure)",
 			EpsR:        epsAir, MuR: 1,
 			// n-1 = 77.6e-6 P/T, so at constant pressure dn/dT = -(n-1)/T
 			// and d eps/dT = 2 n dn/dT (derived).
@@ -300,6 +300,19 @@ func Dielectrics() []Dielectric {
 			EpsR:        9.8, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1,
 			Note:   "grades differ by about 0.2 in eps and a factor of 3 in tan delta",
 			Source: srcKrupk + "; Pozar, Microwave Engineering, 4th ed., Appendix G lists 9.5-10 (recalled from memory)",
+		},
+		{
+			Name: "air-sealed", Aliases: []string{"sealed-air", "dry-air-sealed"},
+			Description: "dry air sealed at 20 C, 101.325 kPa (constant density)",
+			EpsR:        epsAir, MuR: 1,
+			// N = 77.6 P/T is proportional to the number density P/(k T)
+			// of an ideal gas, which a sealed rigid cavity keeps constant:
+			// eps does not change with T (derived). The walls' expansion
+			// lowers the density by 3 alpha dT, a coefficient of about
+			// 3e-8 1/K for copper, neglected.
+			TCEps: 0, TCEpsKnown: true,
+			Note:   "the pressure inside follows the temperature (ideal gas): mind the seal and window ratings",
+			Source: "eps derived from the Smith-Weintraub radio refractivity N = 77.6 P/T (Proc. IRE 41, 1035, 1953; recalled from memory); TC zero at constant density (ideal gas, derived)",
 		},
 	}
 }

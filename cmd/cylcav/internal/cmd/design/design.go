@@ -38,7 +38,7 @@ func NewCmdDesign(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var (
 		mode, freq, wall, ratioRange, objective, minClear, minQ      string
 		maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
-		tolDist                                                      string
+		tolDist, operating, machining                                string
 		samples                                                      int
 		seed                                                         uint64
 		countDeg                                                     bool
@@ -98,7 +98,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 				opts.Scenario = s
 			} else {
 				s, err := parseScenario(cmd, geo, mode, freq, wall, ratioRange, objective, minClear, minQ,
-					maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist, samples, seed, countDeg)
+					maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist, operating, machining, samples, seed, countDeg)
 				if err != nil {
 					return err
 				}
@@ -124,8 +124,10 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	f.StringVar(&maxD, "max-diameter", "", "largest allowed inside diameter")
 	f.StringVar(&maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
 	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
-	f.StringVar(&temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C (design frequency at the middle)")
-	f.StringVar(&alphaSide, "alpha-side", "", "expansion coefficient of the side wall (default: the wall metal's), e.g. 23ppm")
+	f.StringVar(&temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C or 2K:300K")
+	f.StringVar(&operating, "operating-temp", "", "set-point where the design frequency holds and the walls' Q0 is taken (default: middle of --temp, else 20C)")
+	f.StringVar(&machining, "machining-temp", "", "temperature at which the machining dimensions are given (default 20C)")
+	f.StringVar(&alphaSide, "alpha-side", "", "linear expansion coefficient of the side wall, -50 C..200 C only (default: the wall metal's data), e.g. 23ppm")
 	f.StringVar(&alphaAxial, "alpha-axial", "", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm")
 	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
 	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
@@ -138,7 +140,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 }
 
 func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, wall, ratioRange, objective, minClear, minQ,
-	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist string, samples int, seed uint64, countDeg bool) (Scenario, error) {
+	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist, operating, machining string, samples int, seed uint64, countDeg bool) (Scenario, error) {
 	var s Scenario
 	sp := &s.Spec
 	// A flag given with an empty value is an error below, never "absent".
@@ -220,22 +222,25 @@ func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, w
 		}
 	}
 	th := &sp.Thermal
+	sideFlag, axialFlag := "wall", "wall"
 	if s.Wall != nil {
-		th.AlphaRadial, th.AlphaAxial = s.Wall.Expansion, s.Wall.Expansion
+		s.Side, s.Axial = *s.Wall, *s.Wall
 	}
 	if set("alpha-side") {
-		if th.AlphaRadial, err = coefficient("alpha-side", alphaSide); err != nil {
+		a, err := coefficient("alpha-side", alphaSide)
+		if err != nil {
 			return s, err
 		}
-		th.AlphaAxial = th.AlphaRadial
+		s.Side = physics.Conductor{Name: "user (--alpha-side)", Expansion: a, Source: "user input"}
+		s.Axial, sideFlag, axialFlag = s.Side, "alpha-side", "alpha-side"
 	}
 	if set("alpha-axial") {
-		if th.AlphaAxial, err = coefficient("alpha-axial", alphaAxial); err != nil {
+		a, err := coefficient("alpha-axial", alphaAxial)
+		if err != nil {
 			return s, err
 		}
-	}
-	if s.Fill.TCEpsKnown {
-		th.TauEps = s.Fill.TCEps
+		s.Axial = physics.Conductor{Name: "user (--alpha-axial)", Expansion: a, Source: "user input"}
+		axialFlag = "alpha-axial"
 	}
 	if set("temp") {
 		tlo, thi, err := physics.ParseRange(temp, physics.ParseTemperature)
@@ -248,8 +253,34 @@ func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, w
 		th.TMin, th.TMax = tlo, thi
 		s.TempGiven = true
 	}
+	for _, t := range []struct {
+		flag, value string
+		dst         *float64
+	}{{"operating-temp", operating, &s.TOperate}, {"machining-temp", machining, &s.TMachine}} {
+		if !set(t.flag) {
+			continue
+		}
+		v, err := physics.ParseTemperature(t.value)
+		if err != nil {
+			return s, cmdutil.FlagError(t.flag, t.value, err)
+		}
+		if !(v >= 1 && v <= 3000) {
+			return s, cmdutil.FlagError(t.flag, t.value, fmt.Errorf("must be between 1 K and 3000 K"))
+		}
+		*t.dst = v
+	}
+	if s.TempGiven && s.TOperate != 0 && !physics.TemperatureIn(s.TOperate, th.TMin, th.TMax) {
+		return s, cmdutil.FlagError("operating-temp", operating, fmt.Errorf("must lie within --temp %s", temp))
+	}
+	if err := s.setThermal(sideFlag, axialFlag); err != nil {
+		return s, err
+	}
 	if err := th.Validate(); err != nil {
 		return s, cmdutil.Usagef("%v", err)
+	}
+	if ok, why := s.WallQ(); !ok && why != nil && (sp.Objective == cavity.MaxQ || sp.MinQ > 0) {
+		op, _ := s.Temps()
+		return s, cmdutil.Usagef("--objective q and --min-q need Q0 with the walls at the operating temperature %s, which the wall model does not give: %v", physics.FormatTemperature(op, 5), why)
 	}
 	if set("tolerance") || set("tolerance-length") {
 		t := &sp.Tolerance
@@ -344,6 +375,7 @@ type Tolerance struct {
 // QBreakdown is the JSON form of the Q0 breakdown.
 type QBreakdown struct {
 	Wall      string   `json:"wall"`
+	WallTempK float64  `json:"wall_temp_k"`
 	QWall     float64  `json:"q_wall"`
 	QFill     *float64 `json:"q_fill"`
 	ShareSide float64  `json:"loss_share_side"`
@@ -353,11 +385,17 @@ type QBreakdown struct {
 
 // Output is the JSON document of `cylcav design`.
 type Output struct {
-	Scenario          string  `json:"scenario,omitempty"`
-	Mode              string  `json:"mode"`
-	FHz               float64 `json:"f_hz"`
+	Scenario string  `json:"scenario,omitempty"`
+	Mode     string  `json:"mode"`
+	FHz      float64 `json:"f_hz"`
+	// DiameterM and LengthM hold at OperatingTempK; the machining
+	// dimensions hold at MachiningTempK.
+	OperatingTempK    float64 `json:"operating_temp_k"`
 	DiameterM         float64 `json:"diameter_m"`
 	LengthM           float64 `json:"length_m"`
+	MachiningTempK    float64 `json:"machining_temp_k"`
+	MachinedDiameterM float64 `json:"machined_diameter_m"`
+	MachinedLengthM   float64 `json:"machined_length_m"`
 	Ratio             float64 `json:"ratio_d_over_l"`
 	ClearancePct      float64 `json:"clearance_pct"`
 	WorstClearancePct float64 `json:"worst_clearance_pct"`
@@ -384,6 +422,7 @@ func JSON(r Result) Output {
 		Scenario: r.Scenario.Title,
 		Mode:     d.Spec.Mode.String(), FHz: d.Spec.Frequency,
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
+		MachinedDiameterM: r.Machined.Diameter(), MachinedLengthM: r.Machined.Length,
 		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
 		AtRangeEdge: d.AtRangeEdge,
 		Below:       clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
@@ -391,6 +430,7 @@ func JSON(r Result) Output {
 		Sensitivity: Sensitivity{DfDDHzPerM: d.Sensitivity.DfDD, DfDLHzPerM: d.Sensitivity.DfDL, DfDTHzPerK: d.Sensitivity.DfDT},
 		Cautions:    printedCautions(r),
 	}
+	o.OperatingTempK, o.MachiningTempK = r.Scenario.Temps()
 	if d.Limit != cavity.NoLimit {
 		l := string(d.Limit)
 		o.Limit = &l
@@ -400,7 +440,7 @@ func JSON(r Result) Output {
 		o.Q0 = &q
 	}
 	if u := r.Unloaded; u != nil {
-		b := &QBreakdown{Wall: r.Scenario.Wall.Name, QWall: u.Wall.QWall, ShareSide: u.Share.Side, ShareEnds: u.Share.EndA + u.Share.EndB, ShareFill: u.Share.Fill}
+		b := &QBreakdown{Wall: r.Scenario.Wall.Name, WallTempK: o.OperatingTempK, QWall: u.Wall.QWall, ShareSide: u.Share.Side, ShareEnds: u.Share.EndA + u.Share.EndB, ShareFill: u.Share.Fill}
 		if !math.IsInf(u.QFill, 0) {
 			q := u.QFill
 			b.QFill = &q
@@ -457,16 +497,24 @@ func WriteTable(w io.Writer, r Result) error {
 	if r.Scenario.Title != "" {
 		fmt.Fprintf(w, "Demo scenario (no flags given): %s\n\n", r.Scenario.Title)
 	}
-	fmt.Fprintf(w, "Design: %s at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
-		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), r.Scenario.Fill.Name)
+	operate, machine := r.Scenario.Temps()
+	fmt.Fprintf(w, "Design: %s at %s with the cavity at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4), r.Scenario.Fill.Name)
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by %s", d.Limit)
 	}
-	fmt.Fprintf(w, "  diameter D = %s\n", physics.FormatLength(d.Cavity.Diameter(), 6))
-	fmt.Fprintf(w, "  length   L = %s\n", physics.FormatLength(d.Cavity.Length, 6))
+	if m := r.Machined; m != d.Cavity {
+		fmt.Fprintf(w, "  diameter D = %s at %s (machining); %s at %s (operating)\n", physics.FormatLength(m.Diameter(), 6),
+			physics.FormatTemperature(machine, 4), physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatTemperature(operate, 4))
+		fmt.Fprintf(w, "  length   L = %s at %s (machining); %s at %s (operating)\n", physics.FormatLength(m.Length, 6),
+			physics.FormatTemperature(machine, 4), physics.FormatLength(d.Cavity.Length, 6), physics.FormatTemperature(operate, 4))
+	} else {
+		fmt.Fprintf(w, "  diameter D = %s at %s\n", physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatTemperature(machine, 4))
+		fmt.Fprintf(w, "  length   L = %s at %s\n", physics.FormatLength(d.Cavity.Length, 6), physics.FormatTemperature(machine, 4))
+	}
 	fmt.Fprintf(w, "  ratio  D/L = %.6f (allowed %.4g..%.4g; %s)\n", d.Ratio, d.AllowedRatio[0], d.AllowedRatio[1], edge)
 	fmt.Fprintf(w, "\nClearance: %.3f %% (set by %s)", 100*d.Clearance.Value, d.Clearance.Limiting)
 	if spec.Tuning > 0 || r.Scenario.TempGiven {
@@ -475,7 +523,7 @@ func WriteTable(w io.Writer, r Result) error {
 	fmt.Fprintln(w)
 	fmt.Fprint(w, clearance.FormatNeighbours(d.Clearance))
 	if u := r.Unloaded; u != nil {
-		fmt.Fprintf(w, "\nUnloaded Q (%s walls, 20 C, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, u.Q0)
+		fmt.Fprintf(w, "\nUnloaded Q (%s walls at %s, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, physics.FormatTemperature(operate, 4), u.Q0)
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
@@ -483,16 +531,17 @@ func WriteTable(w io.Writer, r Result) error {
 	fmt.Fprintf(w, "\nSensitivities:\n")
 	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))
 	fmt.Fprintf(w, "  df/dL = %s per mm\n", signedF(s.DfDL*1e-3))
-	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K)\n", signedF(s.DfDT), 1e6*s.TempCoeff)
+	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K) at %s%s\n", signedF(s.DfDT), 1e6*s.TempCoeff+0, physics.FormatTemperature(operate, 4), expansionText(r.Scenario))
 	if spec.Tuning > 0 {
 		fmt.Fprintf(w, "\nTuning +-%.4g %% by one end plate: L from %s (low end) to %s (high end)\n",
 			100*spec.Tuning, physics.FormatLength(d.TunedLength[0], 6), physics.FormatLength(d.TunedLength[1], 6))
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
-		fmt.Fprintf(w, "\nTemperature %s..%s (alpha side %.3g ppm/K, alpha axial %.3g ppm/K): drift %s at the low end, %s at the high end\n",
-			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4), 1e6*th.AlphaRadial, 1e6*th.AlphaAxial,
-			signedF(d.Drift[0]), signedF(d.Drift[1]))
+		fmt.Fprintf(w, "\nTemperature %s..%s: drift %s at the low end, %s at the high end, from %s at %s\n",
+			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4),
+			signedF(d.Drift[0]), signedF(d.Drift[1]), physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4))
+		fmt.Fprintf(w, "  side wall: %s\n  length:    %s\n  fill:      %s\n", strainText(r.Scenario.Side), strainText(r.Scenario.Axial), fillTCText(r.Scenario.Fill))
 	}
 	if sp := d.Spread; sp != nil {
 		t := spec.Tolerance
@@ -520,6 +569,37 @@ func WriteTable(w io.Writer, r Result) error {
 func printedCautions(r Result) []string {
 	rf := strings.ToUpper(cmdutil.CautionRF[:1]) + cmdutil.CautionRF[1:] + "."
 	return append(slices.Clone(r.Cautions), rf)
+}
+
+// expansionText says what the walls' expansion rests on.
+func expansionText(s Scenario) string {
+	if !expands(s.Side) && !expands(s.Axial) {
+		return "; ASSUMES WALLS THAT DO NOT EXPAND (no --wall, --alpha-side or --alpha-axial): the fill's part only"
+	}
+	return ""
+}
+
+// strainText names the thermal strain law of a metal.
+func strainText(c physics.Conductor) string {
+	switch {
+	case !expands(c):
+		return "no expansion data: taken not to expand"
+	case c.Contraction.Known():
+		return fmt.Sprintf("%s, integrated contraction data (%s)", c.Name, c.Contraction.Label)
+	}
+	return fmt.Sprintf("%s, linear %.3g ppm/K (valid -50 C..200 C)", c.Name, 1e6*c.Expansion)
+}
+
+// fillTCText states the fill's temperature coefficient and what it
+// assumes.
+func fillTCText(f physics.Dielectric) string {
+	switch {
+	case f.Name == "" || f.Name == "vacuum":
+		return "vacuum, no temperature coefficient"
+	case !f.TCEpsKnown:
+		return fmt.Sprintf("%s, temperature coefficient unknown: left out", f.Name)
+	}
+	return fmt.Sprintf("%s (%s), (1/eps) d eps/dT = %.3g ppm/K", f.Name, f.Description, 1e6*f.TCEps)
 }
 
 func signedF(v float64) string {

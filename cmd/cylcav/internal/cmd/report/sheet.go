@@ -137,8 +137,9 @@ func build(r design.Result, th modechart.Theme) (*Sheet, error) {
 		return nil, err
 	}
 	var qOf func(m cavity.Mode) (float64, error)
-	if r.Scenario.Wall != nil {
-		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, fill)(c) }
+	if ok, _ := r.Scenario.WallQ(); ok {
+		operate, _ := r.Scenario.Temps()
+		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, operate, fill)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
 		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},
