@@ -599,7 +599,7 @@ func fillTCText(f physics.Dielectric) string {
 	case !f.TCEpsKnown:
 		return fmt.Sprintf("%s, temperature coefficient unknown: left out", f.Name)
 	}
-	return fmt.Sprintf("%s (%s), (1/eps) d eps/dT = %.3g ppm/K", f.Name, f.Description, 1e6*f.TCEps)
+	return fmt.Sprintf("%s: %s; (1/eps) d eps/dT = %.3g ppm/K", f.Name, f.Description, 1e6*f.TCEps)
 }
 
 func signedF(v float64) string {
