@@ -5,7 +5,7 @@ import (
 	"html/template"
 
 	"cylcav/cmd/cylcav/internal/cmd/version"
-	"cylcav/modechart"
+	"cylcav/figure"
 )
 
 // HTML renders the datasheet as one self-contained HTML document: styles
@@ -20,12 +20,12 @@ func (sh *Sheet) HTML() ([]byte, error) {
 	// is nil and skipped by the template's "with".
 	var charts = map[string]*svgChart{}
 	for _, c := range sh.Charts {
-		b, err := modechart.Encode(c.Figure, modechart.SVG, c.Page)
+		b, err := figure.Encode(c.Figure, figure.SVG, c.Page)
 		if err != nil {
 			return nil, err
 		}
 		// The SVG comes from our own renderer, which escapes all text.
-		charts[c.ID] = &svgChart{Chart: c, SVG: template.HTML(modechart.InlineSVG(b, c.Title))}
+		charts[c.ID] = &svgChart{Chart: c, SVG: template.HTML(figure.InlineSVG(b, c.Title))}
 	}
 	var buf bytes.Buffer
 	err := page.Execute(&buf, struct {

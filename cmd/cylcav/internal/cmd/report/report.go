@@ -17,7 +17,7 @@ import (
 
 	"cylcav/cmd/cylcav/internal/cmd/design"
 	"cylcav/cmd/cylcav/internal/cmdutil"
-	"cylcav/modechart"
+	"cylcav/figure"
 )
 
 // Options are the parsed flags of `cylcav report`.
@@ -137,7 +137,7 @@ func runReport(opts *Options) error {
 	if err != nil {
 		return err // an impossible design exits with status 1
 	}
-	sh, err := build(r, modechart.DefaultTheme())
+	sh, err := build(r, figure.DefaultTheme())
 	if err != nil {
 		return err
 	}
