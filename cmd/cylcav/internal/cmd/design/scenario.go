@@ -3,6 +3,7 @@ package design
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
@@ -278,6 +279,19 @@ func (s Scenario) RunWithProgress(io *cmdutil.IOStreams) (Result, error) {
 	return s.Run(bar.Update)
 }
 
+// wallQCaution says why Q0 was not computed with the walls at operate.
+func wallQCaution(wall physics.Conductor, operate float64, why error) string {
+	lo, hi := wall.TMin, wall.TMax
+	if lo == 0 && hi == 0 {
+		lo, hi = physics.DefaultLinearTMin, physics.DefaultLinearTMax
+	}
+	if physics.TemperatureIn(operate, lo, hi) {
+		return "Q0 not computed: " + strings.TrimPrefix(why.Error(), "qfactor: ") + "."
+	}
+	return fmt.Sprintf("Q0 not computed: the walls operate at %s, outside %s..%s where the resistivity model of %s holds (cold and superconducting walls are not modelled by design yet).",
+		physics.FormatTemperature(operate, 4), physics.FormatTemperature(lo, 4), physics.FormatTemperature(hi, 4), wall.Name)
+}
+
 // cryogenicBelow is the temperature below which operation counts as
 // cryogenic for the caution: -150 C (123 K), the usual boundary of
 // cryogenics (common practice; NIST's definition).
@@ -324,7 +338,7 @@ func Cautions(r Result) []string {
 	}
 	if sc.Wall != nil {
 		if ok, why := sc.WallQ(); !ok {
-			out = append(out, fmt.Sprintf("Q0 not computed: the walls operate at %s, where the wall model does not hold (%v).", physics.FormatTemperature(operate, 4), why))
+			out = append(out, wallQCaution(*sc.Wall, operate, why))
 		}
 	}
 	if r.Scenario.TempGiven {
@@ -350,7 +364,6 @@ func Cautions(r Result) []string {
 	if r.Scenario.Wall == nil {
 		out = append(out, "No wall metal given (--wall): Q0 not computed.")
 	}
-	_ = machine
 	return out
 }
 
