@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 )
 
 // This file holds the thermal contraction of the wall metals: the relative
@@ -298,8 +299,14 @@ func (c Conductor) Strain(T float64) (float64, error) {
 		if c.Contraction.Known() {
 			return 0, fmt.Errorf("conductor %q: thermal contraction data hold up to %s, got %s", c.label(), FormatTemperature(hi, 4), FormatTemperature(T, 4))
 		}
-		return 0, fmt.Errorf("conductor %q: only a room-temperature expansion coefficient is known, which holds from %s to %s; got %s (cryogenic contraction data exist for copper, al6061-t6, ss304, ss316, invar and niobium)",
-			c.label(), FormatTemperature(lo, 4), FormatTemperature(hi, 4), FormatTemperature(T, 4))
+		var cold []string
+		for _, m := range Conductors() {
+			if m.Contraction.Known() {
+				cold = append(cold, m.Name)
+			}
+		}
+		return 0, fmt.Errorf("conductor %q: only a room-temperature expansion coefficient is known, which holds from %s to %s; got %s (cryogenic contraction data exist for %s)",
+			c.label(), FormatTemperature(lo, 4), FormatTemperature(hi, 4), FormatTemperature(T, 4), strings.Join(cold, ", "))
 	}
 	d := c.Contraction
 	if !d.Known() {

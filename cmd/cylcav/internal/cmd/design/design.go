@@ -585,7 +585,7 @@ func strainText(c physics.Conductor) string {
 	case !expands(c):
 		return "no expansion data: taken not to expand"
 	case c.Contraction.Known():
-		return fmt.Sprintf("%s, integrated contraction data (%s)", c.Name, c.Contraction.Label)
+		return fmt.Sprintf("%s, integrated contraction data (%s; %.3g ppm/K above)", c.Name, c.Contraction.Label, 1e6*c.Expansion)
 	}
 	return fmt.Sprintf("%s, linear %.3g ppm/K (valid -50 C..200 C)", c.Name, 1e6*c.Expansion)
 }
