@@ -92,8 +92,8 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	if sh.Demo {
 		sh.Title = r.Scenario.Title
 	}
-	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s", w, freq(spec.Frequency),
-		length(c.Diameter()), length(c.Length))
+	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s at %s", w, freq(spec.Frequency),
+		length(c.Diameter()), length(c.Length), temp(operateHead(r)))
 	sh.Convention = "Modes are named TE_nmp and TM_nmp: n is the azimuthal index (fields vary as cos nφ or sin nφ), " +
 		"m the radial index (the m-th zero of J'_n for TE, of J_n for TM), p the axial index (half-wavelengths along the length; " +
 		"p ≥ 1 for TE, p ≥ 0 for TM). TE0mp and TM1mp resonate at exactly the same frequency in every cylinder."
@@ -112,7 +112,8 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 
 	// Dimensions and tolerances.
-	dim := Table{Caption: "Dimensions and tolerances (inside surfaces)", Header: []string{"Quantity", "Value", "Note"}}
+	operate, machine := r.Scenario.Temps()
+	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("on the edge of the allowed range (%s)", d.Limit)
@@ -123,6 +124,10 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
 	dim.add(false, "Radius a", length(c.Radius), "")
 	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
+	if m := r.Machined; m != c {
+		dim.add(false, "Diameter D at "+temp(machine), length(m.Diameter()), "machine to this; it becomes D at "+temp(operate))
+		dim.add(false, "Length L at "+temp(machine), length(m.Length), "machine to this")
+	}
 	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
 	if spec.Tuning > 0 {
 		dim.add(false, "Length at f (1 − tuning)", length(d.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
@@ -195,7 +200,8 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Q0 breakdown.
 	if u := r.Unloaded; u != nil {
 		wall := r.Scenario.Wall
-		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at 20 °C, smooth surfaces)", w, wall.Name),
+		operate, _ := r.Scenario.Temps()
+		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at %s, smooth surfaces)", w, wall.Name, temp(operate)),
 			Header: []string{"Part", "Surface resistance", "Partial Q", "Share of loss"},
 			Num:    []bool{false, true, true, true}}
 		q.add(false, "Side wall", ohm(u.Wall.Rs.Side), qText(u.Wall.QSide), pct(u.Share.Side))
@@ -239,7 +245,7 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
 		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
-		st.add(false, "Expansion: side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
+		st.add(false, "Expansion at "+temp(operate)+": side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
 		st.add(false, "Drift at the range ends", signedFreq(d.Drift[0])+" / "+signedFreq(d.Drift[1]))
 	}
 	sh.Sensitive = st
@@ -311,9 +317,9 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
-		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients used",
+		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients at " + temp(operate),
 			Values: []KV{{"Side wall (sets D)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaRadial)}, {"Length (end spacers)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaAxial)}},
-			Source: "from the materials above or the --alpha-side / --alpha-axial flags"})
+			Source: "the local slope of each metal's thermal strain: integrated cryogenic contraction data where the metal has them (see cylcav materials), else its linear coefficient or the --alpha-side / --alpha-axial flags; the drift uses the full strain law"})
 	}
 
 	sh.Cautions = r.Cautions
@@ -477,6 +483,12 @@ func freq(f float64) string { return physics.FormatFrequency(f, 7) }
 func length(m float64) string { return micro(physics.FormatLength(m, 6)) }
 
 func micro(s string) string { return strings.Replace(s, " um", " µm", 1) }
+
+// operateHead returns the operating temperature of a result's scenario.
+func operateHead(r design.Result) float64 {
+	operate, _ := r.Scenario.Temps()
+	return operate
+}
 
 // temp prints a temperature in degrees Celsius (or kelvin when cold).
 func temp(k float64) string {
