@@ -62,6 +62,17 @@ chart's lines, not by a grid search; the output says when it sits on the
 edge of the allowed range. Impossible requests exit with status 1 and say
 what was achievable instead.
 
+Temperatures: the design frequency holds at --operating-temp (default the
+middle of --temp, else 20 C), where the walls' Q0 is taken; the dimensions
+are also given at --machining-temp (default 20 C), so that a cavity
+machined to them lands on frequency at the set-point. The metal's thermal
+strain comes from published cryogenic contraction data (NIST fits for
+copper, 6061-T6, 304/316 and invar; Ekin's table for niobium; see 'cylcav
+materials') down to 0 K, and from a linear coefficient only between -50 C
+and 200 C: a temperature outside the data exits with status 2. An air fill
+is vented (--fill air, constant pressure) or sealed (--fill air-sealed,
+constant density).
+
 With no flags at all, design runs a built-in demo scenario and says so on
 its first line. --format csv prints the trade-off curves (clearance and Q0
 against D/L).
@@ -74,6 +85,9 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 
   # An air-filled copper TE011 cavity at 10 GHz, D/L between 0.5 and 3
   $ cylcav design --mode TE011 --freq 10GHz --fill air --wall copper --ratio-range 0.5:3
+
+  # A niobium accelerator cell designed for 2 K, dimensions to machine at 20 C
+  $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --temp 2K:300K --operating-temp 2K
 
   # Highest Q0 with at least 5 % clearance, +-1 % tuning, -20 C..60 C,
   # machined to +-0.02 mm, as JSON
