@@ -7,7 +7,7 @@ import (
 	"testing"
 
 	"cylcav/cmd/cylcav/internal/clitest"
-	"cylcav/cmd/cylcav/internal/cmd/design"
+	libdesign "cylcav/design"
 )
 
 // arithTol is the relative tolerance of checks that repeat the design's
@@ -156,11 +156,11 @@ func TestThermalRefusals(t *testing.T) {
 // temperature does not.
 func TestCryogenicCaution(t *testing.T) {
 	r := clitest.Run(t, "design", "--mode", "TM010", "--freq", "1.3GHz", "--wall", "niobium", "--temp", "2K:300K")
-	if !strings.Contains(r.Stdout, design.CautionCryogenic) {
+	if !strings.Contains(r.Stdout, libdesign.CautionCryogenic) {
 		t.Errorf("2 K design lacks the cryogenic caution:\n%s", r.Stdout)
 	}
 	r = clitest.Run(t, "design")
-	if strings.Contains(r.Stdout, design.CautionCryogenic) {
+	if strings.Contains(r.Stdout, libdesign.CautionCryogenic) {
 		t.Errorf("the room-temperature demo carries the cryogenic caution")
 	}
 }

@@ -1,4 +1,4 @@
-package report
+package datasheet
 
 import (
 	"fmt"
@@ -9,7 +9,7 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/design"
 	"cylcav/figure"
 	"cylcav/modechart"
 	"cylcav/physics"
@@ -18,6 +18,8 @@ import (
 // Sheet is the content of a datasheet, formatted for people: every number
 // is already a string with its unit. HTML and PDF render the same Sheet.
 type Sheet struct {
+	// Version is the cylcav version written into the files.
+	Version  string
 	Title    string
 	Demo     bool   // the built-in demo scenario
 	Headline string // one line: mode, frequency, D and L
@@ -81,8 +83,9 @@ type Chart struct {
 // Q-versus-frequency chart, as a fraction of the design frequency.
 const modeWindow = 0.25
 
-// build assembles the datasheet of a design result.
-func build(r design.Result, th figure.Theme) (*Sheet, error) {
+// FromDesign assembles the datasheet of a single-cavity design result,
+// drawing its charts in theme th.
+func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
@@ -92,8 +95,9 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	if sh.Demo {
 		sh.Title = r.Scenario.Title
 	}
+	operate, machine := r.Scenario.Temps()
 	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s at %s", w, freq(spec.Frequency),
-		length(c.Diameter()), length(c.Length), temp(operateHead(r)))
+		length(c.Diameter()), length(c.Length), temp(operate))
 	sh.Convention = "Modes are named TE_nmp and TM_nmp: n is the azimuthal index (fields vary as cos nφ or sin nφ), " +
 		"m the radial index (the m-th zero of J'_n for TE, of J_n for TM), p the axial index (half-wavelengths along the length; " +
 		"p ≥ 1 for TE, p ≥ 0 for TM). TE0mp and TM1mp resonate at exactly the same frequency in every cylinder."
@@ -112,7 +116,6 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 
 	// Dimensions and tolerances.
-	operate, machine := r.Scenario.Temps()
 	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
 	edge := "interior optimum"
 	if d.AtRangeEdge {
@@ -120,7 +123,7 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by the %s constraint", d.Limit)
 	}
-	tol := spec.Tolerance
+	tol := r.Analysis.Settings.Tolerance
 	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
 	dim.add(false, "Radius a", length(c.Radius), "")
 	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
@@ -130,8 +133,8 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
 	if spec.Tuning > 0 {
-		dim.add(false, "Length at f (1 − tuning)", length(d.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
-		dim.add(false, "Length at f (1 + tuning)", length(d.TunedLength[1]), "")
+		dim.add(false, "Length at f (1 − tuning)", length(r.Analysis.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
+		dim.add(false, "Length at f (1 + tuning)", length(r.Analysis.TunedLength[1]), "")
 	}
 	fill := r.Scenario.Fill
 	dim.add(false, "Fill", fill.Name, fmt.Sprintf("εr = %.6g, μr = %.6g", orOne(spec.Fill.EpsR), orOne(spec.Fill.MuR)))
@@ -144,7 +147,6 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	var qOf func(m cavity.Mode) (float64, error)
 	if ok, _ := r.Scenario.WallQ(); ok {
-		operate, _ := r.Scenario.Temps()
 		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, operate, fill)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
@@ -200,7 +202,6 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Q0 breakdown.
 	if u := r.Unloaded; u != nil {
 		wall := r.Scenario.Wall
-		operate, _ := r.Scenario.Temps()
 		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at %s, smooth surfaces)", w, wall.Name, temp(operate)),
 			Header: []string{"Part", "Surface resistance", "Partial Q", "Share of loss"},
 			Num:    []bool{false, true, true, true}}
@@ -236,7 +237,7 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	sh.Clearance = ct
 
 	// Sensitivities and thermal drift.
-	s := d.Sensitivity
+	s := r.Analysis.Sensitivity
 	st := Table{Caption: "Sensitivities of the wanted frequency", Header: []string{"Quantity", "Value"}}
 	st.add(false, "df/dD", signedFreq(s.DfDD*1e-3)+" per mm")
 	st.add(false, "df/dL", signedFreq(s.DfDL*1e-3)+" per mm")
@@ -246,12 +247,12 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 		th := spec.Thermal
 		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
 		st.add(false, "Expansion at "+temp(operate)+": side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
-		st.add(false, "Drift at the range ends", signedFreq(d.Drift[0])+" / "+signedFreq(d.Drift[1]))
+		st.add(false, "Drift at the range ends", signedFreq(r.Analysis.Drift[0])+" / "+signedFreq(r.Analysis.Drift[1]))
 	}
 	sh.Sensitive = st
 
 	// Tolerance spread.
-	if sp := d.Spread; sp != nil {
+	if sp := r.Analysis.Spread; sp != nil {
 		dist := "uniform"
 		if tol.Distribution == cavity.Normal {
 			sig := tol.Sigmas
@@ -273,7 +274,7 @@ func build(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Tuning curve: over the tuning range widened by half, or L ± 5 %.
 	lLo, lHi := 0.95*c.Length, 1.05*c.Length
 	if spec.Tuning > 0 {
-		a, b := math.Min(d.TunedLength[0], d.TunedLength[1]), math.Max(d.TunedLength[0], d.TunedLength[1])
+		a, b := math.Min(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1]), math.Max(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1])
 		lLo, lHi = a-0.25*(b-a), b+0.25*(b-a)
 	}
 	tc, err := c.Tune(w, lLo, lHi, 120, spec.CountDegenerate)
@@ -351,7 +352,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	// Mode chart around the design, with the operating box.
 	cs := modechart.Spec{
 		Wanted: spec.Mode, Cavity: c, Tuning: spec.Tuning,
-		DiameterTol: spec.Tolerance.Diameter, LengthTol: spec.Tolerance.Length,
+		DiameterTol: r.Analysis.Settings.Tolerance.Diameter, LengthTol: r.Analysis.Settings.Tolerance.Length,
 		Clearance: spec.MinClearance,
 	}
 	if cs.Clearance == 0 {
@@ -365,7 +366,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	// The chart spans the allowed range and the whole operating box (the
 	// tuned lengths, widened by the tolerances) with a margin.
 	rLo, rHi := d.Ratio, d.Ratio
-	for _, L := range d.TunedLength {
+	for _, L := range r.Analysis.TunedLength {
 		if L > 0 {
 			rLo, rHi = math.Min(rLo, c.Diameter()/L), math.Max(rHi, c.Diameter()/L)
 		}
@@ -385,7 +386,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 		Figure:  fig, Page: page})
 
 	// Trade-off curves.
-	cv := d.Curve
+	cv := r.Analysis.Curve
 	if len(cv.Ratio) >= 2 {
 		tf, err := modechart.TradeOffFigure(th, "Design trade-off against D/L", modechart.TradeOffCurves{
 			Ratio: cv.Ratio, Clearance: cv.Clearance, WorstClearance: cv.WorstClearance, Q0: cv.Q0,
@@ -402,7 +403,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	// Tuning curve with the neighbouring modes.
 	tcv := modechart.TuningCurves{Wanted: spec.Mode.String(), Design: c.Length}
 	if spec.Tuning > 0 {
-		tcv.Range = d.TunedLength
+		tcv.Range = r.Analysis.TunedLength
 	}
 	others := map[cavity.Mode]bool{}
 	for _, L := range []float64{tc.Points[0].Length, tc.Points[len(tc.Points)-1].Length} {
@@ -483,12 +484,6 @@ func freq(f float64) string { return physics.FormatFrequency(f, 7) }
 func length(m float64) string { return micro(physics.FormatLength(m, 6)) }
 
 func micro(s string) string { return strings.Replace(s, " um", " µm", 1) }
-
-// operateHead returns the operating temperature of a result's scenario.
-func operateHead(r design.Result) float64 {
-	operate, _ := r.Scenario.Temps()
-	return operate
-}
 
 // temp prints a temperature in degrees Celsius (or kelvin when cold).
 func temp(k float64) string {

@@ -1,3 +1,10 @@
+// Package design is the single-cavity design flow: a scenario (the design
+// problem with its wall metal, fill and analysis settings) is optimised by
+// cavity.Optimize, analysed by cavity.Analyze, its unloaded Q broken down by
+// package qfactor, and the result given the cautions a designer should read.
+// `cylcav design` prints a Result and `cylcav report` makes a datasheet of
+// one; both run the same Scenario.Run. Demo is the built-in invented
+// scenario.
 package design
 
 import (
@@ -6,14 +13,12 @@ import (
 	"strings"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
 
-// Scenario is a complete design request, as `cylcav design` runs it. The
-// report command builds the same thing (Demo gives the built-in one) and
-// calls Run.
+// Scenario is a complete single-cavity design request. Demo gives the
+// built-in one; commands build theirs from flags.
 type Scenario struct {
 	// Title names the scenario; it is set for the built-in demo only.
 	Title string
@@ -26,6 +31,9 @@ type Scenario struct {
 	Fill physics.Dielectric
 	// TempGiven records whether a temperature range was asked for.
 	TempGiven bool
+	// Settings are the settings of the analysis of the optimum (the
+	// machining tolerance, the curve points).
+	Settings cavity.AnalysisSettings
 	// TOperate is the operating set-point in kelvin: the design frequency
 	// holds there, the printed operating dimensions hold there, and the
 	// walls are at it for Q0. Zero means the middle of the temperature
@@ -39,6 +47,22 @@ type Scenario struct {
 	// data at all is taken not to expand, and the output says so.
 	Side, Axial physics.Conductor
 }
+
+// TemperatureError is a temperature that the thermal data of a metal or
+// a fill do not cover: Flag names the flag behind it (temp,
+// operating-temp or machining-temp), With the flag of the data.
+type TemperatureError struct {
+	Flag string
+	T    float64 // kelvin
+	With string
+	Err  error
+}
+
+func (e *TemperatureError) Error() string {
+	return fmt.Sprintf("--%s %s with %s: %v", e.Flag, physics.FormatTemperature(e.T, 4), e.With, e.Err)
+}
+
+func (e *TemperatureError) Unwrap() error { return e.Err }
 
 // roomTemperature is 20 C in kelvin, the default machining temperature.
 const roomTemperature = physics.ZeroCelsius + 20
@@ -71,13 +95,14 @@ type thermalFlag struct {
 	T    float64 // kelvin
 }
 
-// setThermal fills s.Spec.Thermal from the metals, the range in
+// SetThermal fills s.Spec.Thermal from the metals, the range in
 // s.Spec.Thermal.TMin..TMax and the set-point: the size laws are the
 // metals' integrated strain (physics.Conductor.SizeRatio), the
-// coefficients the local ones at the set-point. It returns a usage error
-// when a temperature lies outside the data of a metal (or the fill's
-// coefficient) that must describe it.
-func (s *Scenario) setThermal(sideFlag, axialFlag string) error {
+// coefficients the local ones at the set-point. sideFlag and axialFlag
+// name the flags behind s.Side and s.Axial for errors. It returns a
+// *TemperatureError when a temperature lies outside the data of a metal
+// (or the fill's coefficient) that must describe it.
+func (s *Scenario) SetThermal(sideFlag, axialFlag string) error {
 	th := &s.Spec.Thermal
 	operate, machine := s.Temps()
 	var used []thermalFlag
@@ -95,15 +120,15 @@ func (s *Scenario) setThermal(sideFlag, axialFlag string) error {
 		}
 		for _, u := range used {
 			if _, err := b.metal.Strain(u.T); err != nil {
-				return cmdutil.Usagef("--%s %s with --%s: %v", u.flag, physics.FormatTemperature(u.T, 4), b.flag, err)
+				return &TemperatureError{Flag: u.flag, T: u.T, With: "--" + b.flag, Err: err}
 			}
 		}
 	}
 	if s.Fill.TCEpsKnown && s.Fill.TCEps != 0 {
 		for _, u := range used {
 			if !physics.TemperatureIn(u.T, physics.DefaultLinearTMin, physics.DefaultLinearTMax) {
-				return cmdutil.Usagef("--%s %s with --fill %s: the fill's temperature coefficient is a room-temperature value, valid from %s to %s",
-					u.flag, physics.FormatTemperature(u.T, 4), s.Fill.Name, physics.FormatTemperature(physics.DefaultLinearTMin, 4), physics.FormatTemperature(physics.DefaultLinearTMax, 4))
+				return &TemperatureError{Flag: u.flag, T: u.T, With: "--fill " + s.Fill.Name, Err: fmt.Errorf("the fill's temperature coefficient is a room-temperature value, valid from %s to %s",
+					physics.FormatTemperature(physics.DefaultLinearTMin, 4), physics.FormatTemperature(physics.DefaultLinearTMax, 4))}
 			}
 		}
 		th.TauEps = s.Fill.TCEps
@@ -144,10 +169,11 @@ func (s Scenario) Machined(c cavity.Cavity) cavity.Cavity {
 	return c
 }
 
-// Result is a design with its Q breakdown and cautions.
+// Result is the optimum with its analysis, Q breakdown and cautions.
 type Result struct {
 	Scenario Scenario
 	Design   cavity.Design
+	Analysis cavity.Analysis
 	// Machined is the design's cavity at the machining temperature
 	// (Design.Cavity holds at the operating temperature).
 	Machined cavity.Cavity
@@ -188,8 +214,10 @@ func Demo() (Scenario, error) {
 			Frequency: 10.5e9,
 			Fill:      cavity.Fill{EpsR: air.EpsR, MuR: air.MuR},
 			RatioMin:  0.8, RatioMax: 2.5,
-			Tuning:    0.005,
-			Thermal:   cavity.Thermal{TMin: tmin, TMax: tmax},
+			Tuning:  0.005,
+			Thermal: cavity.Thermal{TMin: tmin, TMax: tmax},
+		},
+		Settings: cavity.AnalysisSettings{
 			Tolerance: cavity.Tolerance{Diameter: 10e-6, Length: 10e-6, Samples: 200000, Seed: 1},
 		},
 		Wall:      &wall,
@@ -198,7 +226,7 @@ func Demo() (Scenario, error) {
 		Side:      wall,
 		Axial:     invar,
 	}
-	if err := s.setThermal("wall", "wall"); err != nil {
+	if err := s.SetThermal("wall", "wall"); err != nil {
 		return Scenario{}, err
 	}
 	return s, nil
@@ -236,9 +264,11 @@ func (s Scenario) WallQ() (ok bool, why error) {
 	return true, nil
 }
 
-// Run solves the scenario: the library optimisation, the Q breakdown at
-// the design, and the cautions. progress, when not nil, receives the Monte
-// Carlo progress.
+// Run solves the scenario: the optimum (cavity.Optimize), its analysis
+// with s.Settings (cavity.Analyze), the Q breakdown at the design when a
+// wall is given, and the cautions. progress, when not nil, receives the
+// Monte Carlo progress. Errors of the optimisation are returned as they
+// are (an impossible request is a *cavity.InfeasibleError).
 func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	spec := s.Spec
 	operate, _ := s.Temps()
@@ -246,12 +276,17 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	if wallQ {
 		spec.Q = QFunc(spec.Mode, *s.Wall, operate, s.Fill)
 	}
-	spec.Tolerance.Progress = progress
 	d, err := cavity.Optimize(spec)
 	if err != nil {
 		return Result{}, err
 	}
-	r := Result{Scenario: s, Design: d, Machined: s.Machined(d.Cavity)}
+	set := s.Settings
+	set.Tolerance.Progress = progress
+	a, err := cavity.Analyze(d, set)
+	if err != nil {
+		return Result{}, err
+	}
+	r := Result{Scenario: s, Design: d, Analysis: a, Machined: s.Machined(d.Cavity)}
 	if wallQ {
 		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, operate, s.Fill)
 		if err != nil {
@@ -261,22 +296,6 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	}
 	r.Cautions = Cautions(r)
 	return r, nil
-}
-
-// progressSamples is the least number of Monte Carlo samples for which
-// RunWithProgress shows a progress bar.
-const progressSamples = 100000
-
-// RunWithProgress solves the scenario as Run does, with a progress bar on
-// io's error stream while a long tolerance analysis (progressSamples or
-// more samples) runs; the bar shows on a terminal only.
-func (s Scenario) RunWithProgress(io *cmdutil.IOStreams) (Result, error) {
-	if s.Spec.Tolerance.Samples < progressSamples {
-		return s.Run(nil)
-	}
-	bar := cmdutil.NewProgress(io, "tolerance analysis")
-	defer bar.Done()
-	return s.Run(bar.Update)
 }
 
 // wallQCaution says why Q0 was not computed with the walls at operate.
@@ -342,7 +361,7 @@ func Cautions(r Result) []string {
 		}
 	}
 	if r.Scenario.TempGiven {
-		drift := math.Max(math.Abs(d.Drift[0]), math.Abs(d.Drift[1]))
+		drift := math.Max(math.Abs(r.Analysis.Drift[0]), math.Abs(r.Analysis.Drift[1]))
 		if spec.Tuning > 0 && drift > spec.Tuning*spec.Frequency {
 			out = append(out, fmt.Sprintf("The thermal drift (up to %s) exceeds the tuning range (+-%s).", physics.FormatFrequency(drift, 4), physics.FormatFrequency(spec.Tuning*spec.Frequency, 4)))
 		}
@@ -350,7 +369,7 @@ func Cautions(r Result) []string {
 			out = append(out, fmt.Sprintf("The temperature coefficient of the fill %q is not known; its drift is left out.", r.Scenario.Fill.Name))
 		}
 	}
-	if sp := d.Spread; sp != nil {
+	if sp := r.Analysis.Spread; sp != nil {
 		if sp.WorstClearance < 0.5*sp.NominalClearance {
 			out = append(out, fmt.Sprintf("Machining errors can bring %s within %.3f %% of the wanted mode (worst sample).", sp.WorstMode, 100*sp.WorstClearance))
 		}
