@@ -271,7 +271,7 @@ func WriteTable(w io.Writer, r design.Result) error {
 	}
 	operate, machine := r.Scenario.Temps()
 	fmt.Fprintf(w, "Design: %s at %s with the cavity at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
-		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4), r.Scenario.Fill.Name)
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4), spec.Fill.Label())
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
