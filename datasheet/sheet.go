@@ -444,8 +444,8 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 		Caption: "Resonant frequency against the end-plate spacing, with the modes within ±12 % of the wanted one, and the clearance along the path.",
 		Figure:  tf, Page: page})
 
-	// Q0 against frequency.
-	if len(qpts) > 0 {
+	// Q0 against frequency; a single mode (one dot) is left to the table.
+	if len(qpts) > 1 {
 		qf, err := modechart.QFigure(th, "Unloaded Q0 of the modes near the band", qpts)
 		if err != nil {
 			return err
