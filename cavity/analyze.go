@@ -106,8 +106,9 @@ func Analyze(d Design, set AnalysisSettings) (Analysis, error) {
 		for i, T := range []float64{th.TMin, th.TMax} {
 			dT := T - th.ref()
 			c := d.Cavity
-			c.Radius *= 1 + th.AlphaRadial*dT
-			c.Length *= 1 + th.AlphaAxial*dT
+			r, z := th.sizes(T)
+			c.Radius *= r
+			c.Length *= z
 			c.Fill.EpsR = spec.Fill.Eps() * (1 + th.TauEps*dT)
 			a.Drift[i] = c.Frequency(spec.Mode) - d.Cavity.Frequency(spec.Mode)
 		}

@@ -95,8 +95,9 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	if sh.Demo {
 		sh.Title = r.Scenario.Title
 	}
-	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s", w, freq(spec.Frequency),
-		length(c.Diameter()), length(c.Length))
+	operate, machine := r.Scenario.Temps()
+	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s at %s", w, freq(spec.Frequency),
+		length(c.Diameter()), length(c.Length), temp(operate))
 	sh.Convention = "Modes are named TE_nmp and TM_nmp: n is the azimuthal index (fields vary as cos nφ or sin nφ), " +
 		"m the radial index (the m-th zero of J'_n for TE, of J_n for TM), p the axial index (half-wavelengths along the length; " +
 		"p ≥ 1 for TE, p ≥ 0 for TM). TE0mp and TM1mp resonate at exactly the same frequency in every cylinder."
@@ -115,7 +116,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 
 	// Dimensions and tolerances.
-	dim := Table{Caption: "Dimensions and tolerances (inside surfaces)", Header: []string{"Quantity", "Value", "Note"}}
+	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("on the edge of the allowed range (%s)", d.Limit)
@@ -126,6 +127,10 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
 	dim.add(false, "Radius a", length(c.Radius), "")
 	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
+	if m := r.Machined; m != c {
+		dim.add(false, "Diameter D at "+temp(machine), length(m.Diameter()), "machine to this; it becomes D at "+temp(operate))
+		dim.add(false, "Length L at "+temp(machine), length(m.Length), "machine to this")
+	}
 	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
 	if spec.Tuning > 0 {
 		dim.add(false, "Length at f (1 − tuning)", length(r.Analysis.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
@@ -141,8 +146,8 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		return nil, err
 	}
 	var qOf func(m cavity.Mode) (float64, error)
-	if r.Scenario.Wall != nil {
-		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall)(c) }
+	if ok, _ := r.Scenario.WallQ(); ok {
+		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, operate)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
 		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},
@@ -197,7 +202,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Q0 breakdown.
 	if u := r.Unloaded; u != nil {
 		wall := r.Scenario.Wall
-		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at 20 °C, smooth surfaces)", w, wall.Name),
+		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at %s, smooth surfaces)", w, wall.Name, temp(operate)),
 			Header: []string{"Part", "Surface resistance", "Partial Q", "Share of loss"},
 			Num:    []bool{false, true, true, true}}
 		q.add(false, "Side wall", ohm(u.Wall.Rs.Side), qText(u.Wall.QSide), pct(u.Share.Side))
@@ -241,7 +246,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
 		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
-		st.add(false, "Expansion: side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
+		st.add(false, "Expansion at "+temp(operate)+": side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
 		st.add(false, "Drift at the range ends", signedFreq(r.Analysis.Drift[0])+" / "+signedFreq(r.Analysis.Drift[1]))
 	}
 	sh.Sensitive = st
@@ -313,9 +318,9 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
-		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients used",
+		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients at " + temp(operate),
 			Values: []KV{{"Side wall (sets D)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaRadial)}, {"Length (end spacers)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaAxial)}},
-			Source: "from the materials above or the --alpha-side / --alpha-axial flags"})
+			Source: "the local slope of each metal's thermal strain: integrated cryogenic contraction data where the metal has them (see cylcav materials), else its linear coefficient or the --alpha-side / --alpha-axial flags; the drift uses the full strain law"})
 	}
 
 	sh.Cautions = r.Cautions
@@ -439,8 +444,8 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 		Caption: "Resonant frequency against the end-plate spacing, with the modes within ±12 % of the wanted one, and the clearance along the path.",
 		Figure:  tf, Page: page})
 
-	// Q0 against frequency.
-	if len(qpts) > 0 {
+	// Q0 against frequency; a single mode (one dot) is left to the table.
+	if len(qpts) > 1 {
 		qf, err := modechart.QFigure(th, "Unloaded Q0 of the modes near the band", qpts)
 		if err != nil {
 			return err
