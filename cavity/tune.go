@@ -1,6 +1,7 @@
 package cavity
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -54,7 +55,8 @@ const MaxTuneSteps = 100000
 // which each ratio f_i/f_w is monotone (see chartMode), so the smallest
 // |f_i/f_w - 1| of each mode over the range is at an end of the segment or
 // zero where it crosses; crossings solve a linear equation in s (derived).
-// Errors: invalid cavity radius, fill or mode, lengths outside
+// Errors: invalid cavity radius, fill or mode, a mode an end plate does
+// not tune (p = 0; see EndPlateTuning), lengths outside
 // MinSize..MaxSize or lMin > lMax, D/L outside MinDesignRatio..MaxDesignRatio
 // anywhere on the range, more than MaxChartModes modes near the wanted one,
 // steps outside 1..MaxTuneSteps.
@@ -64,6 +66,9 @@ func (c Cavity) Tune(w Mode, lMin, lMax float64, steps int, countDegenerate bool
 		return TuningCurve{}, err
 	}
 	if err := w.Validate(); err != nil {
+		return TuningCurve{}, err
+	}
+	if err := w.EndPlateTuning(); err != nil {
 		return TuningCurve{}, err
 	}
 	if err := checkSize("maximum length", lMax); err != nil {
@@ -102,23 +107,18 @@ func (c Cavity) Tune(w Mode, lMin, lMax float64, steps int, countDegenerate bool
 		}
 		out.Points = append(out.Points, pt)
 	}
-	// Exact worst case over the segment.
-	for k, m := range env.modes {
-		for _, s := range []float64{full.lo, full.hi} {
-			if v := env.h(k, s); v < out.Worst {
-				out.Worst, out.WorstLength, out.WorstMode = v, D/math.Sqrt(s), m.mode
-			}
-		}
-		if d := m.gp - wc.gp; d != 0 {
-			if s := (wc.gx - m.gx) / d; s >= full.lo && s <= full.hi {
-				L := D / math.Sqrt(s)
-				cc := c
-				cc.Length = L
-				out.Crossings = append(out.Crossings, Crossing{Mode: m.mode, Length: L, Frequency: cc.Frequency(w)})
-				if out.Worst > 0 || L < out.WorstLength {
-					out.Worst, out.WorstLength, out.WorstMode = 0, L, m.mode
-				}
-			}
+	// Exact worst case over the segment: the same computation as Reach.
+	sp, err := spanClearance(wc, full, 0, countDegenerate)
+	if err != nil {
+		return TuningCurve{}, err
+	}
+	out.Worst, out.WorstMode, out.WorstLength = sp.worst, sp.worstMode, D/math.Sqrt(sp.worstS)
+	for i, o := range sp.modes {
+		if o.Crosses {
+			L := D / math.Sqrt(sp.crossS[i])
+			cc := c
+			cc.Length = L
+			out.Crossings = append(out.Crossings, Crossing{Mode: o.Mode, Length: L, Frequency: cc.Frequency(w)})
 		}
 	}
 	slices.SortFunc(out.Crossings, func(a, b Crossing) int { return cmpFloat(a.Length, b.Length) })
@@ -269,4 +269,34 @@ func gaussLegendre(n int) (x, w []float64) {
 		w[n-1-i] = w[i]
 	}
 	return x, w
+}
+
+// ErrNotTunable is matched by errors.Is for every NotTunableError.
+var ErrNotTunable = errors.New("cavity: an end plate does not tune this mode")
+
+// NotTunableError says that moving an end plate does not tune a mode.
+type NotTunableError struct{ Mode Mode }
+
+// Error says why, and what tunes the mode instead.
+func (e *NotTunableError) Error() string {
+	return fmt.Sprintf("%s has p = 0: its fields and frequency do not depend on the length (df/dL = 0), so an end plate does not tune it; tune it with a plunger, screw or dielectric in its strong field (Slater perturbation) or change the diameter", e.Mode)
+}
+
+// Is reports whether target is ErrNotTunable.
+func (e *NotTunableError) Is(target error) bool { return target == ErrNotTunable }
+
+// EndPlateTuning is the one verdict on whether moving an end plate tunes
+// mode m: nil for p >= 1, a *NotTunableError for p = 0 (TM0m0 and every
+// TMnm0: f = c x / (2 pi a sqrt(eps_r mu_r)) holds for any length; Pozar,
+// Microwave Engineering, 4th ed., sec. 6.4, with p = 0). Tune, Optimize
+// with a tuning range, Reach with a tuning range, the mode chart and the
+// datasheet all use it. It panics on an invalid mode.
+func (m Mode) EndPlateTuning() error {
+	if err := m.Validate(); err != nil {
+		panic(err)
+	}
+	if m.P == 0 {
+		return &NotTunableError{Mode: m}
+	}
+	return nil
 }

@@ -215,8 +215,10 @@ func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, w
 		if sp.Tuning, err = fraction("tuning", tuning, 0, cavity.MaxTuning); err != nil {
 			return s, err
 		}
-		if sp.Tuning > 0 && sp.Mode.P == 0 {
-			return s, cmdutil.FlagError("tuning", tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
+		if sp.Tuning > 0 {
+			if err := sp.Mode.EndPlateTuning(); err != nil {
+				return s, cmdutil.FlagError("tuning", tuning, err)
+			}
 		}
 	}
 	th := &sp.Thermal
@@ -361,7 +363,14 @@ type Output struct {
 	Ratio             float64 `json:"ratio_d_over_l"`
 	ClearancePct      float64 `json:"clearance_pct"`
 	WorstClearancePct float64 `json:"worst_clearance_pct"`
-	AtRangeEdge       bool    `json:"at_range_edge"`
+	WorstMode         string  `json:"worst_mode"`
+	// Reach is the reachable D/L span (tuning, temperature and machining
+	// tolerance) over which WorstClearancePct holds.
+	ReachRatio [2]float64 `json:"reach_ratio_d_over_l"`
+	// Offending lists the modes that cross the wanted one on the reachable
+	// set or come within the required clearance of it.
+	Offending   []Offender `json:"offending"`
+	AtRangeEdge bool       `json:"at_range_edge"`
 	// Limit names the bound that holds the optimum (a cavity.Limit); null
 	// when none does.
 	Limit        *string              `json:"limit"`
@@ -377,6 +386,24 @@ type Output struct {
 	Cautions     []string             `json:"cautions"`
 }
 
+// Offender is the JSON form of a cavity.Offender.
+type Offender struct {
+	Mode         string  `json:"mode"`
+	ClearancePct float64 `json:"clearance_pct"`
+	Crosses      bool    `json:"crosses"`
+	Ratio        float64 `json:"ratio_d_over_l"`
+}
+
+// OffendersJSON returns the JSON form of a reach's offending modes (an
+// empty list, never null).
+func OffendersJSON(r cavity.Reach) []Offender {
+	out := []Offender{}
+	for _, o := range r.Offending {
+		out = append(out, Offender{Mode: o.Mode.String(), ClearancePct: 100 * o.Clearance, Crosses: o.Crosses, Ratio: o.Ratio})
+	}
+	return out
+}
+
 // JSON returns the JSON document of a result.
 func JSON(r Result) Output {
 	d := r.Design
@@ -385,6 +412,8 @@ func JSON(r Result) Output {
 		Mode:     d.Spec.Mode.String(), FHz: d.Spec.Frequency,
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
 		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
+		WorstMode: d.WorstMode.String(), ReachRatio: [2]float64{d.Reach.RatioLo, d.Reach.RatioHi},
+		Offending:   OffendersJSON(d.Reach),
 		AtRangeEdge: d.AtRangeEdge,
 		Below:       clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
 		Degenerate:  clearance.DegenerateJSON(d.Clearance.Degenerate),
@@ -469,8 +498,8 @@ func WriteTable(w io.Writer, r Result) error {
 	fmt.Fprintf(w, "  length   L = %s\n", physics.FormatLength(d.Cavity.Length, 6))
 	fmt.Fprintf(w, "  ratio  D/L = %.6f (allowed %.4g..%.4g; %s)\n", d.Ratio, d.AllowedRatio[0], d.AllowedRatio[1], edge)
 	fmt.Fprintf(w, "\nClearance: %.3f %% (set by %s)", 100*d.Clearance.Value, d.Clearance.Limiting)
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		fmt.Fprintf(w, "; worst over tuning and temperature %.3f %% (%s)", 100*d.WorstClearance, d.WorstMode)
+	if d.Reach.Operation.Span() != "" || d.Reach.Operation.MinClearance > 0 {
+		fmt.Fprintf(w, "; %s", d.Reach.Verdict())
 	}
 	fmt.Fprintln(w)
 	fmt.Fprint(w, clearance.FormatNeighbours(d.Clearance))

@@ -160,10 +160,11 @@ func Cautions(r Result) []string {
 		out = append(out, fmt.Sprintf("The best clearance holds over a whole band, D/L = %.4g..%.4g; the design takes %s on it.",
 			d.Plateau[0], d.Plateau[1], plateauChoice(spec)))
 	}
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		if d.WorstClearance < d.Clearance.Value*(1-1e-9) {
-			out = append(out, fmt.Sprintf("Over the tuning and temperature range the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", 100*d.WorstClearance, d.WorstMode, 100*d.Clearance.Value))
-		}
+	if span := d.Reach.Operation.Span(); span != "" && d.WorstClearance < d.Clearance.Value*(1-1e-9) {
+		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*d.WorstClearance, d.WorstMode, 100*d.Clearance.Value))
+	}
+	if !d.Reach.Meets() {
+		out = append(out, fmt.Sprintf("The clearance requirement is not met everywhere the cavity operates: %s.", d.Reach.Verdict()))
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
@@ -185,6 +186,9 @@ func Cautions(r Result) []string {
 		if half := 0.5 * (sp.P99 - sp.P01); spec.Tuning > 0 && half > spec.Tuning*spec.Frequency {
 			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
 		}
+	}
+	if err := spec.Mode.EndPlateTuning(); err != nil {
+		out = append(out, "Tuning: "+err.Error()+".")
 	}
 	if u := r.Unloaded; u != nil && u.Share.Fill > 0.5 {
 		out = append(out, fmt.Sprintf("The fill's loss dominates Q0 (%.0f %% of the loss); a better wall metal will not help much.", 100*u.Share.Fill))

@@ -71,6 +71,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = cavity.ParseMode(mode); err != nil {
 				return cmdutil.FlagError("mode", mode, err)
 			}
+			if err := opts.Mode.EndPlateTuning(); err != nil {
+				return cmdutil.FlagError("mode", mode, err)
+			}
 			if opts.Cavity.Radius, err = geo.Radius(); err != nil {
 				return err
 			}
