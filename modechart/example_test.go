@@ -35,7 +35,7 @@ func ExampleNew() {
 	// Output:
 	// wanted line: TE011/TM111
 	// design point: D/L = 1.000, f·D = 39.52 GHz·cm
-		// TM012    crossing
+	// TM012    crossing
 	// TE212    crossing
 }
 
