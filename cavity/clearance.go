@@ -561,3 +561,41 @@ func (t Thermal) kappaRange() (kmin, kmax float64) {
 	}
 	return kmin, kmax
 }
+
+// ModesBelow returns the modes of c that resonate strictly below mode w,
+// lowest first, at most max of them, and how many there are in all. An
+// accelerating TM010 cell whose length exceeds about 2.03 times its
+// radius has TE111 below it (Pozar, Microwave Engineering, 4th ed., sec.
+// 6.4, with j'_11 = 1.8412 and j_01 = 2.4048: derived), so it is no longer
+// the fundamental mode. Errors: invalid cavity or mode, max < 1, or those
+// of Count.
+func (c Cavity) ModesBelow(w Mode, max int) ([]Resonance, int, error) {
+	if err := c.Validate(); err != nil {
+		return nil, 0, err
+	}
+	if err := w.Validate(); err != nil {
+		return nil, 0, err
+	}
+	if max < 1 {
+		return nil, 0, fmt.Errorf("cavity: number of modes must be >= 1, got %d", max)
+	}
+	f := math.Nextafter(c.Frequency(w), 0)
+	n, _, err := c.Count(f)
+	if err != nil {
+		return nil, 0, err
+	}
+	if n == 0 {
+		return nil, 0, nil
+	}
+	low, err := c.Lowest(min(n, max))
+	if err != nil {
+		return nil, 0, err
+	}
+	out := low[:0]
+	for _, r := range low {
+		if r.Frequency <= f {
+			out = append(out, r)
+		}
+	}
+	return out, n, nil
+}
