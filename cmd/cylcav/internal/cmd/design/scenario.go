@@ -3,6 +3,7 @@ package design
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
@@ -185,6 +186,16 @@ func Cautions(r Result) []string {
 		}
 		if half := 0.5 * (sp.P99 - sp.P01); spec.Tuning > 0 && half > spec.Tuning*spec.Frequency {
 			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
+		}
+	}
+	if m := spec.Mode; m.Family == cavity.TM && m.N == 0 {
+		// An accelerating (TM0mp) design: say when it is not the lowest mode.
+		if below, n, err := d.Cavity.ModesBelow(m, 3); err == nil && n > 0 {
+			names := make([]string, len(below))
+			for i, b := range below {
+				names[i] = fmt.Sprintf("%v at %s", b.Mode, physics.FormatFrequency(b.Frequency, 6))
+			}
+			out = append(out, fmt.Sprintf("%s is not the lowest mode of this cavity: %d mode(s) resonate below it (%s); a beam or coupler can excite them.", m, n, strings.Join(names, ", ")))
 		}
 	}
 	if err := spec.Mode.EndPlateTuning(); err != nil {
