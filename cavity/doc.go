@@ -59,6 +59,9 @@
 //     and L. C. Maier, J. C. Slater, Field strength measurements in
 //     resonant cavities, J. Appl. Phys. 23, 68 (1952): the perturbation
 //     theorem behind SphereShift and EndPlateShift.
+//   - G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
+//     Hopkins (2013), sec. 8.5: the cyclic Jacobi method that gives
+//     SphereShift the eigen-shifts of a degenerate set.
 //   - D. Kajfez, P. Guillon (eds.), Dielectric Resonators, Artech House
 //     (1986): tau_f = -alpha - tau_eps/2 (Sensitivity).
 //   - T. F. Chan, G. H. Golub, R. J. LeVeque, Updating formulae and a
