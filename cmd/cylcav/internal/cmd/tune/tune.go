@@ -169,23 +169,23 @@ func parsePoint(s string) (cavity.Point, error) {
 
 // SphereOutput is the JSON form of a sphere or screw perturbation.
 type SphereOutput struct {
-	RadiusM              float64 `json:"radius_m"`
-	RhoM                 float64 `json:"rho_m"`
-	PhiDeg               float64 `json:"phi_deg"`
-	ZM                   float64 `json:"z_m"`
-	OnWall               bool    `json:"on_wall"`
-	Contact              string  `json:"contact"`
-	LengthM              float64 `json:"length_m"`
+	RadiusM float64 `json:"radius_m"`
+	RhoM    float64 `json:"rho_m"`
+	PhiDeg  float64 `json:"phi_deg"`
+	ZM      float64 `json:"z_m"`
+	OnWall  bool    `json:"on_wall"`
+	Contact string  `json:"contact"`
+	LengthM float64 `json:"length_m"`
 	// Patterns is the degenerate set the object splits, and ShiftsHz and
 	// ShiftsPct its eigen-shifts, ascending.
 	Patterns  []string  `json:"patterns"`
 	ShiftsHz  []float64 `json:"shifts_hz"`
 	ShiftsPct []float64 `json:"shifts_pct"`
 	// Dominant names, per shift, the pattern with the largest weight.
-	Dominant []string `json:"dominant_patterns"`
-	RadiusOverWavelength float64 `json:"radius_over_wavelength"`
-	RadiusOverWallGap    float64 `json:"radius_over_wall_gap"`
-	Valid                bool    `json:"valid"`
+	Dominant             []string `json:"dominant_patterns"`
+	RadiusOverWavelength float64  `json:"radius_over_wavelength"`
+	RadiusOverWallGap    float64  `json:"radius_over_wall_gap"`
+	Valid                bool     `json:"valid"`
 }
 
 // Point is the JSON form of one tuning point.
