@@ -151,14 +151,6 @@ func runClearance(opts *Options) error {
 
 func g(v float64) string { return fmt.Sprintf("%.10g", v) }
 
-// Neighbour is the JSON form of a neighbouring mode.
-type Neighbour struct {
-	Mode      string  `json:"mode"`
-	FHz       float64 `json:"f_hz"`
-	OffsetHz  float64 `json:"offset_hz"`
-	OffsetPct float64 `json:"offset_pct"`
-}
-
 // WindowMode is the JSON form of a mode in the window.
 type WindowMode struct {
 	Mode      string  `json:"mode"`
@@ -168,38 +160,21 @@ type WindowMode struct {
 
 // Output is the JSON document of `cylcav clearance`.
 type Output struct {
-	Mode         string       `json:"mode"`
-	FHz          float64      `json:"f_hz"`
-	ClearancePct float64      `json:"clearance_pct"`
-	Below        *Neighbour   `json:"below"`
-	Above        *Neighbour   `json:"above"`
-	Degenerate   []string     `json:"degenerate"`
-	InWindow     []WindowMode `json:"in_window"`
-}
-
-// NeighbourJSON converts a neighbour (nil stays nil).
-func NeighbourJSON(nb *cavity.Neighbour) *Neighbour {
-	if nb == nil {
-		return nil
-	}
-	return &Neighbour{Mode: nb.Mode.String(), FHz: nb.Frequency, OffsetHz: nb.Offset, OffsetPct: 100 * nb.Relative}
-}
-
-// DegenerateJSON lists the companion labels (never null).
-func DegenerateJSON(ms []cavity.Mode) []string {
-	out := []string{}
-	for _, m := range ms {
-		out = append(out, m.String())
-	}
-	return out
+	Mode         string             `json:"mode"`
+	FHz          float64            `json:"f_hz"`
+	ClearancePct float64            `json:"clearance_pct"`
+	Below        *cmdutil.Neighbour `json:"below"`
+	Above        *cmdutil.Neighbour `json:"above"`
+	Degenerate   []string           `json:"degenerate"`
+	InWindow     []WindowMode       `json:"in_window"`
 }
 
 // JSON returns the JSON document for a clearance.
 func JSON(cl cavity.Clearance) Output {
 	o := Output{
 		Mode: cl.Mode.String(), FHz: cl.Frequency, ClearancePct: 100 * cl.Value,
-		Below: NeighbourJSON(cl.Below), Above: NeighbourJSON(cl.Above),
-		Degenerate: DegenerateJSON(cl.Degenerate), InWindow: []WindowMode{},
+		Below: cmdutil.NeighbourJSON(cl.Below), Above: cmdutil.NeighbourJSON(cl.Above),
+		Degenerate: cmdutil.DegenerateJSON(cl.Degenerate), InWindow: []WindowMode{},
 	}
 	for _, nb := range cl.InWindow {
 		o.InWindow = append(o.InWindow, WindowMode{Mode: nb.Mode.String(), FHz: nb.Frequency, OffsetPct: 100 * nb.Relative})
@@ -214,7 +189,7 @@ func writeTable(opts *Options, cl cavity.Clearance) error {
 		physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), c.Diameter()/c.Length, opts.FillName, orOne(c.EpsR))
 	fmt.Fprintf(w, "Wanted mode %s at %s (n azimuthal, m radial, p axial)\n", cl.Mode, physics.FormatFrequency(cl.Frequency, 7))
 	fmt.Fprintf(w, "Clearance: %.3f %% (set by %s)\n", 100*cl.Value, cl.Limiting)
-	fmt.Fprint(w, FormatNeighbours(cl))
+	fmt.Fprint(w, cmdutil.FormatNeighbours(cl))
 	if len(cl.InWindow) > 0 {
 		win := max(opts.Window.Window, opts.Window.WindowHz/cl.Frequency)
 		fmt.Fprintf(w, "\nModes within +-%.4g %%:\n", 100*win)
@@ -225,31 +200,6 @@ func writeTable(opts *Options, cl cavity.Clearance) error {
 		return t.Flush()
 	}
 	return nil
-}
-
-// FormatNeighbours returns the lines for the nearest modes, the
-// spurious-free window and the companion, shared with `cylcav design`.
-func FormatNeighbours(cl cavity.Clearance) string {
-	var b strings.Builder
-	line := func(label string, nb *cavity.Neighbour) {
-		if nb == nil {
-			fmt.Fprintf(&b, "  %s: none\n", label)
-			return
-		}
-		fmt.Fprintf(&b, "  %s: %s at %s (%s, %+.3f %%)\n", label, nb.Mode, physics.FormatFrequency(nb.Frequency, 7),
-			signed(physics.FormatFrequency(abs(nb.Offset), 5), nb.Offset), 100*nb.Relative)
-	}
-	line("nearest below", cl.Below)
-	line("nearest above", cl.Above)
-	lo := "0 Hz"
-	if cl.Below != nil {
-		lo = physics.FormatFrequency(cl.FreeLow, 7)
-	}
-	fmt.Fprintf(&b, "  spurious-free window: %s .. %s\n", lo, physics.FormatFrequency(cl.FreeHigh, 7))
-	for _, m := range cl.Degenerate {
-		fmt.Fprintf(&b, "  degenerate companion: %s (same frequency in every cylinder; suppress it with a mode trap or a plunger gap)\n", m)
-	}
-	return b.String()
 }
 
 func signed(s string, v float64) string {

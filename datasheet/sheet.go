@@ -1,4 +1,4 @@
-package report
+package datasheet
 
 import (
 	"fmt"
@@ -9,7 +9,8 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/design"
+	"cylcav/design"
+	"cylcav/figure"
 	"cylcav/modechart"
 	"cylcav/physics"
 )
@@ -17,6 +18,8 @@ import (
 // Sheet is the content of a datasheet, formatted for people: every number
 // is already a string with its unit. HTML and PDF render the same Sheet.
 type Sheet struct {
+	// Version is the cylcav version written into the files.
+	Version  string
 	Title    string
 	Demo     bool   // the built-in demo scenario
 	Headline string // one line: mode, frequency, D and L
@@ -72,16 +75,17 @@ type Material struct {
 // output format.
 type Chart struct {
 	ID, Title, Caption string
-	Figure             *modechart.Figure
-	Page               modechart.Page
+	Figure             *figure.Figure
+	Page               figure.Page
 }
 
 // modeWindow is the half-width of the band of the mode table and the
 // Q-versus-frequency chart, as a fraction of the design frequency.
 const modeWindow = 0.25
 
-// build assembles the datasheet of a design result.
-func build(r design.Result, th modechart.Theme) (*Sheet, error) {
+// FromDesign assembles the datasheet of a single-cavity design result,
+// drawing its charts in theme th.
+func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
@@ -118,14 +122,14 @@ func build(r design.Result, th modechart.Theme) (*Sheet, error) {
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by the %s constraint", d.Limit)
 	}
-	tol := spec.Tolerance
+	tol := r.Analysis.Settings.Tolerance
 	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
 	dim.add(false, "Radius a", length(c.Radius), "")
 	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
 	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
 	if spec.Tuning > 0 {
-		dim.add(false, "Length at f (1 − tuning)", length(d.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
-		dim.add(false, "Length at f (1 + tuning)", length(d.TunedLength[1]), "")
+		dim.add(false, "Length at f (1 − tuning)", length(r.Analysis.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
+		dim.add(false, "Length at f (1 + tuning)", length(r.Analysis.TunedLength[1]), "")
 	}
 	fill := r.Scenario.Fill
 	dim.add(false, "Fill", fill.Name, fmt.Sprintf("εr = %.6g, μr = %.6g", orOne(spec.Fill.EpsR), orOne(spec.Fill.MuR)))
@@ -216,9 +220,9 @@ func build(r design.Result, th modechart.Theme) (*Sheet, error) {
 		ct.add(false, "Nearest above", fmt.Sprintf("%v at %s (%s)", cl.Above.Mode, freq(cl.Above.Frequency), signedPct(cl.Above.Relative)))
 	}
 	ct.add(false, "Spurious-free window", freq(cl.FreeLow)+" .. "+freq(cl.FreeHigh))
-	reach := d.Reach
+	reach := r.Analysis.Reach
 	if span := reach.Operation.Span(); span != "" {
-		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(d.WorstClearance), d.WorstMode, reach.RatioLo, reach.RatioHi))
+		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(reach.Worst), reach.WorstMode, reach.RatioLo, reach.RatioHi))
 	}
 	if spec.MinClearance > 0 || !reach.Meets() {
 		verdict := "met"
@@ -233,7 +237,7 @@ func build(r design.Result, th modechart.Theme) (*Sheet, error) {
 	sh.Clearance = ct
 
 	// Sensitivities and thermal drift.
-	s := d.Sensitivity
+	s := r.Analysis.Sensitivity
 	st := Table{Caption: "Sensitivities of the wanted frequency", Header: []string{"Quantity", "Value"}}
 	st.add(false, "df/dD", signedFreq(s.DfDD*1e-3)+" per mm")
 	st.add(false, "df/dL", signedFreq(s.DfDL*1e-3)+" per mm")
@@ -243,12 +247,12 @@ func build(r design.Result, th modechart.Theme) (*Sheet, error) {
 		th := spec.Thermal
 		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
 		st.add(false, "Expansion: side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
-		st.add(false, "Drift at the range ends", signedFreq(d.Drift[0])+" / "+signedFreq(d.Drift[1]))
+		st.add(false, "Drift at the range ends", signedFreq(r.Analysis.Drift[0])+" / "+signedFreq(r.Analysis.Drift[1]))
 	}
 	sh.Sensitive = st
 
 	// Tolerance spread.
-	if sp := d.Spread; sp != nil {
+	if sp := r.Analysis.Spread; sp != nil {
 		dist := "uniform"
 		if tol.Distribution == cavity.Normal {
 			sig := tol.Sigmas
@@ -349,14 +353,14 @@ var safety = []string{
 }
 
 // addCharts renders the four figures of the datasheet.
-func (sh *Sheet) addCharts(r design.Result, th modechart.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
+func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
-	page := modechart.Page{Width: 7.5 * vg.Inch, Height: 5.6 * vg.Inch}
+	page := figure.Page{Width: 7.5 * vg.Inch, Height: 5.6 * vg.Inch}
 
 	// Mode chart around the design, with the operating box.
-	op := d.Reach.Operation
+	op := r.Analysis.Reach.Operation
 	cs := modechart.Spec{
 		Wanted: spec.Mode, Cavity: c, Tuning: op.Tuning,
 		DiameterTol: op.DiameterTol, LengthTol: op.LengthTol, Thermal: op.Thermal,
@@ -365,14 +369,14 @@ func (sh *Sheet) addCharts(r design.Result, th modechart.Theme, tc cavity.Tuning
 	if cs.Clearance == 0 {
 		// Without a requirement, mark the modes within the clearance the
 		// design achieves along its path.
-		cs.Clearance = d.WorstClearance * (1 + 1e-6)
+		cs.Clearance = r.Analysis.Reach.Worst * (1 + 1e-6)
 	}
 	if !(cs.Clearance > 0 && cs.Clearance < 1) {
 		cs.Clearance = 0
 	}
 	// The chart spans the allowed range and the whole reachable set with
 	// a margin.
-	rLo, rHi := d.Reach.RatioLo, d.Reach.RatioHi
+	rLo, rHi := r.Analysis.Reach.RatioLo, r.Analysis.Reach.RatioHi
 	cs.RatioMin = math.Max(modechart.MinRatio, math.Min(spec.RatioMin, 0.8*rLo))
 	cs.RatioMax = math.Min(modechart.MaxRatio, math.Max(spec.RatioMax, 1.25*rHi))
 	ch, err := modechart.New(cs)
@@ -388,7 +392,7 @@ func (sh *Sheet) addCharts(r design.Result, th modechart.Theme, tc cavity.Tuning
 		Figure:  fig, Page: page})
 
 	// Trade-off curves.
-	cv := d.Curve
+	cv := r.Analysis.Curve
 	if len(cv.Ratio) >= 2 {
 		tf, err := modechart.TradeOffFigure(th, "Design trade-off against D/L", modechart.TradeOffCurves{
 			Ratio: cv.Ratio, Clearance: cv.Clearance, WorstClearance: cv.WorstClearance, Q0: cv.Q0,
@@ -407,7 +411,7 @@ func (sh *Sheet) addCharts(r design.Result, th modechart.Theme, tc cavity.Tuning
 	if len(tc.Points) > 0 {
 		tcv := modechart.TuningCurves{Wanted: spec.Mode.String(), Design: c.Length}
 		if spec.Tuning > 0 {
-			tcv.Range = d.TunedLength
+			tcv.Range = r.Analysis.TunedLength
 		}
 		others := map[cavity.Mode]bool{}
 		for _, L := range []float64{tc.Points[0].Length, tc.Points[len(tc.Points)-1].Length} {
@@ -457,7 +461,7 @@ func (sh *Sheet) addCharts(r design.Result, th modechart.Theme, tc cavity.Tuning
 		}
 		sh.Charts = append(sh.Charts, Chart{ID: "q-frequency", Title: "Q0 against frequency",
 			Caption: fmt.Sprintf("Unloaded Q0 of every mode within ±%s of the wanted frequency, %s walls, smooth surfaces.", short(modeWindow), r.Scenario.Wall.Name),
-			Figure:  qf, Page: modechart.Page{Width: 7.5 * vg.Inch, Height: 4.2 * vg.Inch}})
+			Figure:  qf, Page: figure.Page{Width: 7.5 * vg.Inch, Height: 4.2 * vg.Inch}})
 	}
 	return nil
 }

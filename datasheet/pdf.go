@@ -1,17 +1,16 @@
-package report
+package datasheet
 
 import (
 	"bytes"
+	"cylcav/figure"
 	"fmt"
+	"io"
 	"math"
 	"strings"
 	"time"
 
 	"codeberg.org/go-pdf/fpdf"
 	"gonum.org/v1/plot/vg"
-
-	"cylcav/cmd/cylcav/internal/cmd/version"
-	"cylcav/modechart"
 )
 
 // PDF page layout, mm (A4 portrait).
@@ -29,18 +28,18 @@ const (
 // design gives the same bytes.
 var pdfDate = time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC)
 
-// PDF renders the datasheet as an A4 PDF document with the same sections
+// WritePDF writes the datasheet to out as an A4 PDF document with the same sections
 // as the HTML one: core Helvetica text (code page 1252, see
-// modechart.WinAnsi), tables with wrapped cells, charts as PNG images at
+// figure.WinAnsi), tables with wrapped cells, charts as PNG images at
 // pdfChartDPI, page numbers in the footer. The output is deterministic.
-func (sh *Sheet) PDF() ([]byte, error) {
+func (sh *Sheet) WritePDF(out io.Writer) error {
 	pdf := fpdf.New("P", "mm", "A4", "")
 	pdf.SetCreationDate(pdfDate)
 	pdf.SetModificationDate(pdfDate)
 	pdf.SetCatalogSort(true)
 	pdf.SetCompression(true)
-	pdf.SetCreator("cylcav "+version.Version, false)
-	pdf.SetTitle(modechart.WinAnsi(sh.Title), false)
+	pdf.SetCreator("cylcav "+sh.Version, false)
+	pdf.SetTitle(figure.WinAnsi(sh.Title), false)
 	pdf.SetMargins(pdfMargin, pdfMargin, pdfMargin)
 	pdf.SetAutoPageBreak(true, pdfMargin+5)
 	pdf.AliasNbPages("{nb}")
@@ -48,7 +47,7 @@ func (sh *Sheet) PDF() ([]byte, error) {
 		pdf.SetY(-pdfMargin)
 		pdf.SetFont("Helvetica", "", 7.5)
 		pdf.SetTextColor(90, 90, 90)
-		pdf.CellFormat(0, 4, modechart.WinAnsi(fmt.Sprintf("cylcav %s datasheet: %s", version.Version, sh.Headline)), "", 0, "L", false, 0, "")
+		pdf.CellFormat(0, 4, figure.WinAnsi(fmt.Sprintf("cylcav %s datasheet: %s", sh.Version, sh.Headline)), "", 0, "L", false, 0, "")
 		pdf.CellFormat(0, 4, fmt.Sprintf("page %d of {nb}", pdf.PageNo()), "", 0, "R", false, 0, "")
 		pdf.SetTextColor(0, 0, 0)
 	})
@@ -98,18 +97,18 @@ func (sh *Sheet) PDF() ([]byte, error) {
 	w.need(w.chartHeight(sh, "mode-chart") + 14)
 	w.heading("2  Mode chart")
 	if err := w.chart(sh, "mode-chart"); err != nil {
-		return nil, err
+		return err
 	}
 	w.heading("3  Modes near the band")
 	w.table(sh.Modes)
 	w.note(sh.ModesNote)
 	if err := w.chart(sh, "q-frequency"); err != nil {
-		return nil, err
+		return err
 	}
 	w.need(w.chartHeight(sh, "trade-off") + 14)
 	w.heading("4  Spurious-mode clearance (continued): trade-off")
 	if err := w.chart(sh, "trade-off"); err != nil {
-		return nil, err
+		return err
 	}
 	if len(sh.Q.Rows) > 0 {
 		w.heading("5  Unloaded Q")
@@ -124,7 +123,7 @@ func (sh *Sheet) PDF() ([]byte, error) {
 	w.need(w.chartHeight(sh, "tuning") + 14)
 	w.heading("7  Tuning")
 	if err := w.chart(sh, "tuning"); err != nil {
-		return nil, err
+		return err
 	}
 	w.table(sh.Tuning)
 	w.heading("8  Materials and their sources")
@@ -153,13 +152,12 @@ func (sh *Sheet) PDF() ([]byte, error) {
 		w.bullet(c)
 	}
 	if err := pdf.Error(); err != nil {
-		return nil, fmt.Errorf("report: PDF: %w", err)
+		return fmt.Errorf("datasheet: PDF: %w", err)
 	}
-	var buf bytes.Buffer
-	if err := pdf.Output(&buf); err != nil {
-		return nil, fmt.Errorf("report: PDF: %w", err)
+	if err := pdf.Output(out); err != nil {
+		return fmt.Errorf("datasheet: PDF: %w", err)
 	}
-	return buf.Bytes(), nil
+	return nil
 }
 
 type pdfWriter struct {
@@ -167,7 +165,7 @@ type pdfWriter struct {
 	width float64 // text width, mm
 }
 
-func (w *pdfWriter) t(s string) string { return modechart.WinAnsi(s) }
+func (w *pdfWriter) t(s string) string { return figure.WinAnsi(s) }
 
 // latin1 rewrites s with runes up to U+00FF only, for the line breaker,
 // which measures runes as code points of the font's code page: characters
@@ -180,7 +178,7 @@ func latin1(s string) string {
 			b.WriteRune(r)
 			continue
 		}
-		x := modechart.WinAnsi(string(r))
+		x := figure.WinAnsi(string(r))
 		switch {
 		case len(x) == 1 && x[0] >= 0xa0:
 			b.WriteRune(rune(x[0]))
@@ -271,7 +269,7 @@ func (w *pdfWriter) chart(sh *Sheet, id string) error {
 		// map order; one extra pixel per chart keeps the output
 		// reproducible.
 		pg.Width += vg.Length(i) * vg.Inch / pdfChartDPI
-		img, err := modechart.Encode(c.Figure, modechart.PNG, pg)
+		img, err := figure.Encode(c.Figure, figure.PNG, pg)
 		if err != nil {
 			return err
 		}

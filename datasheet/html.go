@@ -1,17 +1,15 @@
-package report
+package datasheet
 
 import (
-	"bytes"
+	"cylcav/figure"
 	"html/template"
-
-	"cylcav/cmd/cylcav/internal/cmd/version"
-	"cylcav/modechart"
+	"io"
 )
 
-// HTML renders the datasheet as one self-contained HTML document: styles
-// inline, charts as inline SVG, no scripts, no external resources. The
-// output is deterministic (no dates).
-func (sh *Sheet) HTML() ([]byte, error) {
+// WriteHTML writes the datasheet to w as one self-contained HTML document:
+// styles inline, charts as inline SVG, no scripts, no external resources.
+// The output is deterministic (no dates).
+func (sh *Sheet) WriteHTML(w io.Writer) error {
 	type svgChart struct {
 		Chart
 		SVG template.HTML
@@ -20,23 +18,17 @@ func (sh *Sheet) HTML() ([]byte, error) {
 	// is nil and skipped by the template's "with".
 	var charts = map[string]*svgChart{}
 	for _, c := range sh.Charts {
-		b, err := modechart.Encode(c.Figure, modechart.SVG, c.Page)
+		b, err := figure.Encode(c.Figure, figure.SVG, c.Page)
 		if err != nil {
-			return nil, err
+			return err
 		}
 		// The SVG comes from our own renderer, which escapes all text.
-		charts[c.ID] = &svgChart{Chart: c, SVG: template.HTML(modechart.InlineSVG(b, c.Title))}
+		charts[c.ID] = &svgChart{Chart: c, SVG: template.HTML(figure.InlineSVG(b, c.Title))}
 	}
-	var buf bytes.Buffer
-	err := page.Execute(&buf, struct {
+	return page.Execute(w, struct {
 		*Sheet
-		Version string
-		Chart   map[string]*svgChart
-	}{sh, version.Version, charts})
-	if err != nil {
-		return nil, err
-	}
-	return buf.Bytes(), nil
+		Chart map[string]*svgChart
+	}{sh, charts})
 }
 
 var page = template.Must(template.New("sheet").Parse(`<!DOCTYPE html>

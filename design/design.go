@@ -1,3 +1,10 @@
+// Package design is the single-cavity design flow: a scenario (the design
+// problem with its wall metal, fill and analysis settings) is optimised by
+// cavity.Optimize, analysed by cavity.Analyze, its unloaded Q broken down by
+// package qfactor, and the result given the cautions a designer should read.
+// `cylcav design` prints a Result and `cylcav report` makes a datasheet of
+// one; both run the same Scenario.Run. Demo is the built-in invented
+// scenario.
 package design
 
 import (
@@ -6,14 +13,12 @@ import (
 	"strings"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
 
-// Scenario is a complete design request, as `cylcav design` runs it. The
-// report command builds the same thing (Demo gives the built-in one) and
-// calls Run.
+// Scenario is a complete single-cavity design request. Demo gives the
+// built-in one; commands build theirs from flags.
 type Scenario struct {
 	// Title names the scenario; it is set for the built-in demo only.
 	Title string
@@ -26,12 +31,16 @@ type Scenario struct {
 	Fill physics.Dielectric
 	// TempGiven records whether a temperature range was asked for.
 	TempGiven bool
+	// Settings are the settings of the analysis of the optimum (the
+	// machining tolerance, the curve points).
+	Settings cavity.AnalysisSettings
 }
 
-// Result is a design with its Q breakdown and cautions.
+// Result is the optimum with its analysis, Q breakdown and cautions.
 type Result struct {
 	Scenario Scenario
 	Design   cavity.Design
+	Analysis cavity.Analysis
 	// Unloaded is the Q breakdown at the design; nil without a wall.
 	Unloaded *qfactor.Unloaded
 	// Cautions are plain sentences for people about this design; the
@@ -74,6 +83,8 @@ func Demo() (Scenario, error) {
 				AlphaRadial: wall.Expansion, AlphaAxial: invar.Expansion, TauEps: air.TCEps,
 				TMin: tmin, TMax: tmax,
 			},
+		},
+		Settings: cavity.AnalysisSettings{
 			Tolerance: cavity.Tolerance{Diameter: 10e-6, Length: 10e-6, Samples: 200000, Seed: 1},
 		},
 		Wall:      &wall,
@@ -100,20 +111,27 @@ func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, fill physi
 	return qfactor.UnloadedQ(c, m, rs, qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM})
 }
 
-// Run solves the scenario: the library optimisation, the Q breakdown at
-// the design, and the cautions. progress, when not nil, receives the Monte
-// Carlo progress.
+// Run solves the scenario: the optimum (cavity.Optimize), its analysis
+// with s.Settings (cavity.Analyze), the Q breakdown at the design when a
+// wall is given, and the cautions. progress, when not nil, receives the
+// Monte Carlo progress. Errors of the optimisation are returned as they
+// are (an impossible request is a *cavity.InfeasibleError).
 func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	spec := s.Spec
 	if s.Wall != nil {
 		spec.Q = QFunc(spec.Mode, *s.Wall, s.Fill)
 	}
-	spec.Tolerance.Progress = progress
 	d, err := cavity.Optimize(spec)
 	if err != nil {
 		return Result{}, err
 	}
-	r := Result{Scenario: s, Design: d}
+	set := s.Settings
+	set.Tolerance.Progress = progress
+	a, err := cavity.Analyze(d, set)
+	if err != nil {
+		return Result{}, err
+	}
+	r := Result{Scenario: s, Design: d, Analysis: a}
 	if s.Wall != nil {
 		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, s.Fill)
 		if err != nil {
@@ -123,22 +141,6 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	}
 	r.Cautions = Cautions(r)
 	return r, nil
-}
-
-// progressSamples is the least number of Monte Carlo samples for which
-// RunWithProgress shows a progress bar.
-const progressSamples = 100000
-
-// RunWithProgress solves the scenario as Run does, with a progress bar on
-// io's error stream while a long tolerance analysis (progressSamples or
-// more samples) runs; the bar shows on a terminal only.
-func (s Scenario) RunWithProgress(io *cmdutil.IOStreams) (Result, error) {
-	if s.Spec.Tolerance.Samples < progressSamples {
-		return s.Run(nil)
-	}
-	bar := cmdutil.NewProgress(io, "tolerance analysis")
-	defer bar.Done()
-	return s.Run(bar.Update)
 }
 
 // Cautions returns the warnings a designer should read about a result.
@@ -161,18 +163,19 @@ func Cautions(r Result) []string {
 		out = append(out, fmt.Sprintf("The best clearance holds over a whole band, D/L = %.4g..%.4g; the design takes %s on it.",
 			d.Plateau[0], d.Plateau[1], plateauChoice(spec)))
 	}
-	if span := d.Reach.Operation.Span(); span != "" && d.WorstClearance < d.Clearance.Value*(1-1e-9) {
-		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*d.WorstClearance, d.WorstMode, 100*d.Clearance.Value))
+	reach := r.Analysis.Reach
+	if span := reach.Operation.Span(); span != "" && reach.Worst < d.Clearance.Value*(1-1e-9) {
+		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*reach.Worst, reach.WorstMode, 100*d.Clearance.Value))
 	}
-	if !d.Reach.Meets() {
-		out = append(out, fmt.Sprintf("The clearance requirement is not met everywhere the cavity operates: %s.", d.Reach.Verdict()))
+	if !reach.Meets() {
+		out = append(out, fmt.Sprintf("The clearance requirement is not met everywhere the cavity operates: %s.", reach.Verdict()))
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
 		if th.AlphaRadial == 0 && th.AlphaAxial == 0 {
 			out = append(out, "A temperature range was given but no expansion coefficients (give --wall or --alpha-side/--alpha-axial): the drift shown is zero.")
 		}
-		drift := math.Max(math.Abs(d.Drift[0]), math.Abs(d.Drift[1]))
+		drift := math.Max(math.Abs(r.Analysis.Drift[0]), math.Abs(r.Analysis.Drift[1]))
 		if spec.Tuning > 0 && drift > spec.Tuning*spec.Frequency {
 			out = append(out, fmt.Sprintf("The thermal drift (up to %s) exceeds the tuning range (+-%s).", physics.FormatFrequency(drift, 4), physics.FormatFrequency(spec.Tuning*spec.Frequency, 4)))
 		}
@@ -180,7 +183,7 @@ func Cautions(r Result) []string {
 			out = append(out, fmt.Sprintf("The temperature coefficient of the fill %q is not known; its drift is left out.", r.Scenario.Fill.Name))
 		}
 	}
-	if sp := d.Spread; sp != nil {
+	if sp := r.Analysis.Spread; sp != nil {
 		if sp.WorstClearance < 0.5*sp.NominalClearance {
 			out = append(out, fmt.Sprintf("Machining errors can bring %s within %.3f %% of the wanted mode (worst sample).", sp.WorstMode, 100*sp.WorstClearance))
 		}
