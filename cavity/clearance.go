@@ -293,6 +293,18 @@ type Operation struct {
 	CountDegenerate bool
 }
 
+// ToleranceError reports a machining tolerance outside 0..a tenth of its
+// dimension, where the worst-case reach is no longer a small-error model.
+type ToleranceError struct {
+	Name       string  // "diameter tolerance" or "length tolerance"
+	Value, Max float64 // m
+}
+
+// Error names the tolerance, its value and the limit.
+func (e *ToleranceError) Error() string {
+	return fmt.Sprintf("cavity: %s must be in 0..%.4g m (below a tenth of the dimension), got %g m", e.Name, e.Max, e.Value)
+}
+
 // Span names, for people, what the reachable set of op spans: "tuning,
 // temperature and machining tolerance", any one or two of them, or ""
 // when the set is the nominal cavity alone.
@@ -429,7 +441,7 @@ func (c Cavity) Reach(op Operation) (Reach, error) {
 		v, dim float64
 	}{{"diameter tolerance", op.DiameterTol, D}, {"length tolerance", op.LengthTol, L}} {
 		if !(q.v >= 0 && q.v < q.dim/10) {
-			return Reach{}, fmt.Errorf("cavity: %s must be in 0..%.4g m (a tenth of the dimension), got %g m", q.name, q.dim/10, q.v)
+			return Reach{}, &ToleranceError{Name: q.name, Value: q.v, Max: q.dim / 10}
 		}
 	}
 	if !(op.Tuning >= 0 && op.Tuning <= MaxTuning) {
