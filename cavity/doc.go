@@ -33,6 +33,13 @@
 //     k lowest; Cavity.Count: how many, with and without polarisations.
 //   - Size: the dimensions that put a mode at a target frequency given one
 //     of the ratio D/L, the diameter or the length.
+//   - Cavity.Clearance: the spectrum around a wanted mode; Cavity.Reach: the
+//     reachable set of a cavity in operation (end-plate tuning, temperature
+//     range, worst-case machining tolerance) and its exact worst-case
+//     clearance and offending modes, the one verdict every command prints.
+//   - Mode.EndPlateTuning: whether an end plate tunes a mode (not for
+//     p = 0); Cavity.Tune: the tuning curve; Cavity.SphereShift: the Slater
+//     eigen-shifts of the degenerate set under a small sphere or screw tip.
 //
 // All quantities are SI (m, Hz, rad/m). Bessel zeros come from
 // physics/bessel; their accuracy (about 1e-14 relative) bounds that of
