@@ -373,6 +373,9 @@ func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
 			fmt.Fprintf(&b, "exact companion on the same line: %v (no D/L separates them; suppress it by other means)\n", comp)
 		}
 		fmt.Fprintf(&b, "reachable D/L %.4g..%.4g; clearance %s\n", ch.Reach.RatioLo, ch.Reach.RatioHi, ch.Reach.Verdict())
+		if err := ch.WantedMode.EndPlateTuning(); err != nil {
+			fmt.Fprintf(&b, "tuning: %v\n", err)
+		}
 	}
 	b.WriteString("mode index convention: n azimuthal, m radial, p axial\n")
 	_, err := io.WriteString(w, b.String())

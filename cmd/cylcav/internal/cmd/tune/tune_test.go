@@ -76,6 +76,7 @@ func TestEndPlateVerdictEverywhere(t *testing.T) {
 		{[]string{"chart", "--mode", "TM010", "--diameter", "90mm", "--length", "30mm", "--tuning", "1%", "-o", filepath.Join(dir, "c.svg")}, 2},
 		{[]string{"report", "--mode", "TM010", "--freq", "2.45GHz", "--tuning", "1%", "-o", filepath.Join(dir, "r1.html")}, 2},
 		{[]string{"design", "--mode", "TM010", "--freq", "2.45GHz"}, 0},
+		{[]string{"chart", "--mode", "TM010", "--diameter", "90mm", "--length", "30mm", "-o", filepath.Join(dir, "c2.svg")}, 0},
 	} {
 		r := clitest.Run(t, c.args...)
 		if r.Code != c.code || !strings.Contains(r.Stdout+r.Stderr, verdict.Error()) {
