@@ -453,8 +453,8 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 			Figure:  tf, Page: page})
 	}
 
-	// Q0 against frequency.
-	if len(qpts) > 0 {
+	// Q0 against frequency; a single mode (one dot) is left to the table.
+	if len(qpts) > 1 {
 		qf, err := modechart.QFigure(th, "Unloaded Q0 of the modes near the band", qpts)
 		if err != nil {
 			return err
