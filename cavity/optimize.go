@@ -165,6 +165,17 @@ type DesignSpec struct {
 	CountDegenerate bool
 }
 
+// Operation returns how a design of this spec is used, for Cavity.Reach:
+// its mode, tuning, temperature range, required clearance and companion
+// rule, with no machining tolerance (Analyze adds the tolerance of its
+// settings).
+func (spec DesignSpec) Operation() Operation {
+	return Operation{
+		Mode: spec.Mode, Tuning: spec.Tuning, Thermal: spec.Thermal,
+		MinClearance: spec.MinClearance, CountDegenerate: spec.CountDegenerate,
+	}
+}
+
 // Default and limiting ratio ranges of Optimize.
 const (
 	DefaultRatioMin = 0.5
@@ -198,9 +209,13 @@ type Design struct {
 	// Clearance is the spectrum at the nominal dimensions: clearance,
 	// nearest modes, companion.
 	Clearance Clearance
-	// WorstClearance is the clearance at the worst point of the tuning
-	// and temperature path (equal to Clearance.Value without either), and
-	// WorstMode the mode that sets it.
+	// Reach is the reachable set of the design over its tuning and
+	// temperature range with its worst-case clearance and offending modes:
+	// Cavity.Reach of spec.Operation(). Analysis.Reach adds the machining
+	// tolerance.
+	Reach Reach
+	// WorstClearance is Reach.Worst (equal to Clearance.Value without
+	// tuning or temperature range), and WorstMode the mode that sets it.
 	WorstClearance float64
 	WorstMode      Mode
 
@@ -391,14 +406,10 @@ func Optimize(spec DesignSpec) (Design, error) {
 	if err != nil {
 		return Design{}, err
 	}
-	v, k := envW.at(s, nil)
-	d.WorstClearance, d.WorstMode = v, d.Clearance.Limiting
-	if k >= 0 {
-		d.WorstMode = envW.modes[k].mode
+	if d.Reach, err = d.Cavity.Reach(spec.Operation()); err != nil {
+		return Design{}, err
 	}
-	if p.path.identity() {
-		d.WorstClearance, d.WorstMode = d.Clearance.Value, d.Clearance.Limiting
-	}
+	d.WorstClearance, d.WorstMode = d.Reach.Worst, d.Reach.WorstMode
 	d.Q0 = math.NaN()
 	if spec.Q != nil {
 		if d.Q0, err = spec.Q(d.Cavity); err != nil {
@@ -450,8 +461,10 @@ func newProblem(spec DesignSpec) (*problem, error) {
 	if !(spec.Tuning >= 0 && spec.Tuning <= MaxTuning) {
 		return nil, fmt.Errorf("cavity: tuning range must be in 0..%g (a fraction; 0.02 is +-2 %%), got %g", MaxTuning, spec.Tuning)
 	}
-	if spec.Tuning > 0 && spec.Mode.P == 0 {
-		return nil, fmt.Errorf("cavity: %s has p = 0, so its frequency does not depend on the length and an end plate cannot tune it; choose a mode with p >= 1 or drop the tuning range", spec.Mode)
+	if spec.Tuning > 0 {
+		if err := spec.Mode.EndPlateTuning(); err != nil {
+			return nil, err
+		}
 	}
 	if err := spec.Thermal.Validate(); err != nil {
 		return nil, err

@@ -338,10 +338,12 @@ func Cautions(r Result) []string {
 		out = append(out, fmt.Sprintf("The best clearance holds over a whole band, D/L = %.4g..%.4g; the design takes %s on it.",
 			d.Plateau[0], d.Plateau[1], plateauChoice(spec)))
 	}
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		if d.WorstClearance < d.Clearance.Value*(1-1e-9) {
-			out = append(out, fmt.Sprintf("Over the tuning and temperature range the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", 100*d.WorstClearance, d.WorstMode, 100*d.Clearance.Value))
-		}
+	reach := r.Analysis.Reach
+	if span := reach.Operation.Span(); span != "" && reach.Worst < d.Clearance.Value*(1-1e-9) {
+		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*reach.Worst, reach.WorstMode, 100*d.Clearance.Value))
+	}
+	if !reach.Meets() {
+		out = append(out, fmt.Sprintf("The clearance requirement is not met everywhere the cavity operates: %s.", reach.Verdict()))
 	}
 	sc := r.Scenario
 	if !expands(sc.Side) && !expands(sc.Axial) {
@@ -381,6 +383,19 @@ func Cautions(r Result) []string {
 		for _, w := range qfactor.Validity(d.Cavity, walls(*r.Scenario.Wall, operate), *u) {
 			out = append(out, strings.ToUpper(w.Text[:1])+w.Text[1:]+".") // a sentence, as the other cautions
 		}
+	}
+	if m := spec.Mode; m.Family == cavity.TM && m.N == 0 {
+		// An accelerating (TM0mp) design: say when it is not the lowest mode.
+		if below, n, err := d.Cavity.ModesBelow(m, 3); err == nil && n > 0 {
+			names := make([]string, len(below))
+			for i, b := range below {
+				names[i] = fmt.Sprintf("%v at %s", b.Mode, physics.FormatFrequency(b.Frequency, 6))
+			}
+			out = append(out, fmt.Sprintf("%s is not the lowest mode of this cavity: %d mode(s) resonate below it (%s); a beam or coupler can excite them.", m, n, strings.Join(names, ", ")))
+		}
+	}
+	if err := spec.Mode.EndPlateTuning(); err != nil {
+		out = append(out, "Tuning: "+err.Error()+".")
 	}
 	if u := r.Unloaded; u != nil && u.Share.Fill > 0.5 {
 		out = append(out, fmt.Sprintf("The fill's loss dominates Q0 (%.0f %% of the loss); a better wall metal will not help much.", 100*u.Share.Fill))

@@ -1,6 +1,7 @@
 package cmdutil
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -159,8 +160,8 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		if sp.Tuning, err = fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
 			return s, err
 		}
-		if sp.Tuning > 0 && sp.Mode.P == 0 {
-			return s, FlagError("tuning", sf.tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
+		if sp.Tuning > 0 && sp.Mode.EndPlateTuning() != nil {
+			return s, FlagError("tuning", sf.tuning, sp.Mode.EndPlateTuning())
 		}
 	}
 	th := &sp.Thermal
@@ -284,10 +285,23 @@ const progressSamples = 100000
 // io's error stream while a long tolerance analysis (progressSamples or
 // more samples) runs; the bar shows on a terminal only.
 func RunScenario(io *IOStreams, s design.Scenario) (design.Result, error) {
+	var r design.Result
+	var err error
 	if s.Settings.Tolerance.Samples < progressSamples {
-		return s.Run(nil)
+		r, err = s.Run(nil)
+	} else {
+		bar := NewProgress(io, "tolerance analysis")
+		r, err = s.Run(bar.Update)
+		bar.Done()
 	}
-	bar := NewProgress(io, "tolerance analysis")
-	defer bar.Done()
-	return s.Run(bar.Update)
+	// A tolerance too large for the design found is bad input (exit 2).
+	var te *cavity.ToleranceError
+	if errors.As(err, &te) {
+		flag := "tolerance"
+		if te.Name == "length tolerance" {
+			flag = "tolerance-length"
+		}
+		return r, Usagef("--%s %s: must be below a tenth of the designed dimension, %s", flag, physics.FormatLength(te.Value, 4), physics.FormatLength(te.Max, 4))
+	}
+	return r, err
 }

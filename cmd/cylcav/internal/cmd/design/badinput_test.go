@@ -27,6 +27,7 @@ func TestBadInputMain(t *testing.T) {
 		{Args: with("--min-clearance", "500%"), Code: 2, Want: []string{`--min-clearance "500%"`, "between 0% and 100%"}},
 		{Args: with("--min-clearance", ""), Code: 2, Want: []string{`--min-clearance ""`, "empty"}},
 		{Args: with("--tuning", ""), Code: 2, Want: []string{`--tuning ""`, "empty"}},
+		{Args: with("--tolerance", "5mm", "--samples", "10"), Code: 2, Want: []string{"--tolerance 5.000 mm", "a tenth of the designed dimension"}},
 		{Args: with("--tuning", "-1%"), Code: 2, Want: []string{`--tuning "-1%"`, "between 0% and 50%"}},
 		{Args: with("--temp", "-300C:20C"), Code: 2, Want: []string{`--temp "-300C:20C"`, "below absolute zero"}},
 		{Args: with("--temp", "60C:-20C"), Code: 2, Want: []string{`--temp "60C:-20C"`, "above high end"}},

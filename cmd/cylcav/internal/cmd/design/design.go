@@ -171,7 +171,14 @@ type Output struct {
 	Ratio             float64 `json:"ratio_d_over_l"`
 	ClearancePct      float64 `json:"clearance_pct"`
 	WorstClearancePct float64 `json:"worst_clearance_pct"`
-	AtRangeEdge       bool    `json:"at_range_edge"`
+	WorstMode         string  `json:"worst_mode"`
+	// Reach is the reachable D/L span (tuning, temperature and machining
+	// tolerance) over which WorstClearancePct holds.
+	ReachRatio [2]float64 `json:"reach_ratio_d_over_l"`
+	// Offending lists the modes that cross the wanted one on the reachable
+	// set or come within the required clearance of it.
+	Offending   []Offender `json:"offending"`
+	AtRangeEdge bool       `json:"at_range_edge"`
 	// Limit names the bound that holds the optimum (a cavity.Limit); null
 	// when none does.
 	Limit        *string            `json:"limit"`
@@ -187,15 +194,35 @@ type Output struct {
 	Cautions     []string           `json:"cautions"`
 }
 
+// Offender is the JSON form of a cavity.Offender.
+type Offender struct {
+	Mode         string  `json:"mode"`
+	ClearancePct float64 `json:"clearance_pct"`
+	Crosses      bool    `json:"crosses"`
+	Ratio        float64 `json:"ratio_d_over_l"`
+}
+
+// OffendersJSON returns the JSON form of a reach's offending modes (an
+// empty list, never null).
+func OffendersJSON(r cavity.Reach) []Offender {
+	out := []Offender{}
+	for _, o := range r.Offending {
+		out = append(out, Offender{Mode: o.Mode.String(), ClearancePct: 100 * o.Clearance, Crosses: o.Crosses, Ratio: o.Ratio})
+	}
+	return out
+}
+
 // JSON returns the JSON document of a result.
 func JSON(r design.Result) Output {
-	d := r.Design
+	d, reach := r.Design, r.Analysis.Reach
 	o := Output{
 		Scenario: r.Scenario.Title,
 		Mode:     d.Spec.Mode.String(), FHz: d.Spec.Frequency,
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
 		MachinedDiameterM: r.Machined.Diameter(), MachinedLengthM: r.Machined.Length,
-		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
+		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * reach.Worst,
+		WorstMode: reach.WorstMode.String(), ReachRatio: [2]float64{reach.RatioLo, reach.RatioHi},
+		Offending:   OffendersJSON(reach),
 		AtRangeEdge: d.AtRangeEdge,
 		Below:       cmdutil.NeighbourJSON(d.Clearance.Below), Above: cmdutil.NeighbourJSON(d.Clearance.Above),
 		Degenerate:  cmdutil.DegenerateJSON(d.Clearance.Degenerate),
@@ -289,8 +316,8 @@ func WriteTable(w io.Writer, r design.Result) error {
 	}
 	fmt.Fprintf(w, "  ratio  D/L = %.6f (allowed %.4g..%.4g; %s)\n", d.Ratio, d.AllowedRatio[0], d.AllowedRatio[1], edge)
 	fmt.Fprintf(w, "\nClearance: %.3f %% (set by %s)", 100*d.Clearance.Value, d.Clearance.Limiting)
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		fmt.Fprintf(w, "; worst over tuning and temperature %.3f %% (%s)", 100*d.WorstClearance, d.WorstMode)
+	if reach := r.Analysis.Reach; reach.Operation.Span() != "" || reach.Operation.MinClearance > 0 {
+		fmt.Fprintf(w, "; %s", reach.Verdict())
 	}
 	fmt.Fprintln(w)
 	fmt.Fprint(w, cmdutil.FormatNeighbours(d.Clearance))
