@@ -181,6 +181,9 @@ type ModeValue struct {
 func (m *ModeValue) String() string { return m.text }
 func (m *ModeValue) Type() string   { return "mode" }
 
+// Text returns the value as given.
+func (m *ModeValue) Text() string { return m.text }
+
 // Set parses s as a mode label.
 func (m *ModeValue) Set(s string) error {
 	v, err := cavity.ParseMode(strings.TrimSpace(s))

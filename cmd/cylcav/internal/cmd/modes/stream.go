@@ -36,15 +36,25 @@ type rowSource struct {
 	rs   qfactor.WallsAt
 	us   []qfactor.Unloaded // Q values of list[base:base+len(us)]
 	base int
+
+	// checks are the model-validity warnings raised so far, condensed as
+	// qfactor.Condense does (the first mode that raised each check and
+	// how many did), gathered on the first pass over the list only.
+	checks map[qfactor.Check]*qfactor.Condensed
+	done   int // modes whose validity has been checked
 }
 
 func newRowSource(opts *Options, list []cavity.Resonance) *rowSource {
 	src := &rowSource{opts: opts, list: list}
 	if opts.Walls != nil {
-		warn := func(s string) { fmt.Fprintf(opts.IO.ErrOut, "cylcav: note: %s\n", s) }
-		src.rs = opts.Walls.At(warn)
+		src.rs = opts.Walls.At(src.warn)
 	}
 	return src
+}
+
+// warn prints a note of the Q models on the error stream.
+func (s *rowSource) warn(text string) {
+	fmt.Fprintf(s.opts.IO.ErrOut, "cylcav: note: %s\n", text)
 }
 
 // withQ reports whether the rows carry the Q columns.
@@ -64,10 +74,49 @@ func (s *rowSource) row(i int) (Row, error) {
 		}
 		s.us, s.base = us, i
 	}
+	if i == s.done {
+		s.check(i, s.us[i-s.base])
+		s.done++
+	}
 	u := s.us[i-s.base]
 	w, f, q0 := QValue(u.Wall.QWall), QValue(u.QFill), QValue(u.Q0)
 	r.QWall, r.QFill, r.Q0 = &w, &f, &q0
 	return r, nil
+}
+
+// check adds the validity warnings of mode i's Q result u.
+func (s *rowSource) check(i int, u qfactor.Unloaded) {
+	for _, c := range qfactor.Condense([][]qfactor.Warning{qfactor.Validity(s.opts.Cavity, *s.opts.Walls, u)}) {
+		if s.checks == nil {
+			s.checks = make(map[qfactor.Check]*qfactor.Condensed)
+		}
+		if have, ok := s.checks[c.Check]; ok {
+			have.Count++
+			continue
+		}
+		c.First = i
+		s.checks[c.Check] = &c
+	}
+}
+
+// warnChecks prints the validity warnings once each, in qfactor.Condense's
+// order of checks, naming the first mode that raised each: the same lines
+// as condensing the warnings of the whole list at once.
+func (s *rowSource) warnChecks(warn func(string)) {
+	if len(s.checks) == 0 {
+		return
+	}
+	// Condense orders the checks; one list per check keeps them apart.
+	var firsts [][]qfactor.Warning
+	var all []*qfactor.Condensed
+	for _, c := range s.checks {
+		firsts = append(firsts, []qfactor.Warning{c.Warning})
+		all = append(all, c)
+	}
+	for _, o := range qfactor.Condense(firsts) {
+		c := all[o.First]
+		warn(fmt.Sprintf("%s: %s", s.list[c.First].Mode, c.Text("listed modes")))
+	}
 }
 
 // cols returns the output columns.
@@ -93,6 +142,9 @@ func write(opts *Options, list []cavity.Resonance, what string) error {
 	}
 	if ferr := bw.Flush(); err == nil {
 		err = ferr
+	}
+	if err == nil {
+		src.warnChecks(src.warn)
 	}
 	return err
 }
