@@ -63,6 +63,14 @@ func showTemperature(v float64) string {
 	return TrimZeros(physics.FormatTemperature(v, 5))
 }
 
+// LengthOf and FrequencyOf parse a length or a frequency that is part of
+// a flag's value (an item of a list, an end of a range) with the rule for
+// bare numbers; the error does not name the flag, which the caller adds.
+func LengthOf(s string) (float64, error) { return parseLength(s) }
+
+// FrequencyOf: see LengthOf.
+func FrequencyOf(s string) (float64, error) { return parseFrequency(s) }
+
 // parseLength and parseFrequency apply the rule for bare numbers.
 func parseLength(s string) (float64, error) {
 	if err := bareError(s, "length", physics.FormatLength); err != nil {

@@ -8,7 +8,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"strconv"
 	"strings"
 
@@ -316,8 +315,8 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium,
 func inches(l vg.Length) float64 { return float64(l/vg.Inch) * 0.0254 }
 
 func plain(s string) (float64, error) {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+	v, err := physics.ParseNumber(s)
+	if err != nil {
 		return 0, fmt.Errorf("%q is not a number", s)
 	}
 	return v, nil

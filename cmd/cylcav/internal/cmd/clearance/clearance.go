@@ -103,7 +103,7 @@ func parseMode(s string) (cavity.Mode, error) {
 // frequency (anything ending in Hz).
 func parseWindow(s string, o *cavity.ClearanceOptions) error {
 	if strings.HasSuffix(strings.ToLower(strings.TrimSpace(s)), "hz") {
-		v, err := physics.ParseFrequency(s)
+		v, err := cmdutil.FrequencyOf(s)
 		if err != nil {
 			return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz: %w", err))
 		}

@@ -370,7 +370,7 @@ func parseRejection(item string, f0, bw float64, band string) (bandpass.Rejectio
 	if !(att > 0 && att <= maxAttenuation) {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("attenuation must be > 0 dB and <= %g dB", maxAttenuation))
 	}
-	f, err := physics.ParseFrequency(fr)
+	f, err := cmdutil.FrequencyOf(fr)
 	if err != nil {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, err)
 	}
@@ -493,7 +493,7 @@ func wallHint(changed func(string) bool) string {
 func (opts *Options) parseOutput(spanS string) error {
 	t := strings.TrimSpace(spanS)
 	t = strings.TrimSuffix(strings.TrimSuffix(t, "x"), "X")
-	v, err := strconv.ParseFloat(strings.TrimSpace(t), 64)
+	v, err := physics.ParseNumber(t)
 	if err != nil || !(v > 1 && v <= bandpass.MaxSpan) {
 		return cmdutil.FlagError("span", spanS, fmt.Errorf("want a number of bandwidths above 1 and at most %g, e.g. 3x", bandpass.MaxSpan))
 	}
