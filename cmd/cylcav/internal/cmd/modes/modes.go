@@ -51,7 +51,7 @@ type Options struct {
 // command's work (tests use it to inspect the parsed options).
 func NewCmdModes(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var fmax string
+	var fmax *cmdutil.Quantity
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
@@ -106,10 +106,7 @@ detail.`, DefaultCount),
 			case fl.Changed("fmax") && fl.Changed("count"):
 				return cmdutil.Usagef("--fmax and --count both given; give one of them")
 			case fl.Changed("fmax"):
-				if opts.FMax, err = cmdutil.Frequency("fmax", fmax, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
-					return err
-				}
-				opts.FMaxText = fmax
+				opts.FMaxText = fmax.Text()
 			case fl.Changed("count"):
 				if opts.Count < 1 || opts.Count > cavity.MaxModes {
 					return cmdutil.FlagError("count", strconv.Itoa(opts.Count), fmt.Errorf("must be between 1 and %d", cavity.MaxModes))
@@ -144,7 +141,7 @@ detail.`, DefaultCount),
 		},
 	})
 	fl := cmd.Flags()
-	fl.StringVar(&fmax, "fmax", "", "list every mode at or below this frequency (e.g. 12GHz)")
+	fmax = cmdutil.FrequencyVar(fl, &opts.FMax, "fmax", "list every mode at or below this frequency (e.g. 12GHz)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
 	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
 	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
 	walls = cmdutil.AddWallFlags(cmd)
