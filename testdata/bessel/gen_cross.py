@@ -1,0 +1,143 @@
+#!/usr/bin/python3
+"""Generate reference zeros of Bessel cross products for cylcav/physics/bessel.
+
+Writes crosszeros.tsv next to this script: for each radius ratio c, order n
+and index m, the m-th positive root x of
+
+  tm:  J_n(x) Y_n(c x) - J_n(c x) Y_n(x) = 0
+  te:  J'_n(x) Y'_n(c x) - J'_n(c x) Y'_n(x) = 0
+
+(the cutoffs k a = x of the TM_nm and TE_nm modes of a coaxial guide of
+radii a and b = c a), each printed to 20 significant digits.
+
+Method, independent of the Go code: the roots are bracketed by sign changes
+of the cross product on a grid in x whose step, pi/(40 c), is a small share
+of the smallest possible root spacing (the phase of the cross product grows
+by pi from root to root at a rate below about c), evaluated in double
+precision with SciPy (python3-scipy 1.10.1, scipy.special.jv, yv, jvp, yvp);
+each bracket is then refined with mpmath (python3-mpmath 1.2.1,
+mpmath.findroot, solver 'anderson', on mpmath.besselj and mpmath.bessely)
+at mp.dps = 30. The grid starts at n/c (0.9 n/c for safety), below which no
+root lies (Rayleigh quotient of the radial eigenproblem; derived). The
+script checks that each refined root lies in its bracket, that the cross
+product changes sign across it at 30 digits, and that the roots increase.
+
+Usage (from the repository root; about 20 minutes on 2 cores):
+
+  /usr/bin/python3 testdata/bessel/gen_cross.py [--jobs 2]
+"""
+
+import argparse
+import multiprocessing
+import os
+import sys
+
+import mpmath
+import numpy as np
+import scipy
+from scipy import special
+
+DPS = 30      # working precision of mpmath, decimal digits
+DIGITS = 20   # significant digits written to the table
+RATIOS = ["1.1", "1.5", "2", "3.5", "10", "100"]
+ORDERS = [0, 1, 2, 3, 5, 10, 25, 50, 99]
+INDICES = list(range(1, 11)) + [15, 20, 30, 50, 100]
+GRID_SHARE = 40  # grid step pi/(GRID_SHARE c)
+
+
+def cross_fp(kind, n, c, x):
+    if kind == "tm":
+        return special.jv(n, x) * special.yv(n, c * x) - special.jv(n, c * x) * special.yv(n, x)
+    return special.jvp(n, x) * special.yvp(n, c * x) - special.jvp(n, c * x) * special.yvp(n, x)
+
+
+def cross_mp(kind, n, c, x):
+    """The cross product divided by the moduli (|J| + |Y|) at x and c x,
+    which has the same roots and is of order one near them (it is close to
+    the sine of the phase difference)."""
+    d = 0 if kind == "tm" else 1
+    j1, y1 = mpmath.besselj(n, x, d), mpmath.bessely(n, x, d)
+    j2, y2 = mpmath.besselj(n, c * x, d), mpmath.bessely(n, c * x, d)
+    return (j1 * y2 - j2 * y1) / ((abs(j1) + abs(y1)) * (abs(j2) + abs(y2)))
+
+
+def roots(task):
+    kind, cs, n = task
+    mpmath.mp.dps = DPS
+    c = float(cs)
+    cm = mpmath.mpf(cs)
+    need = max(INDICES)
+    h = np.pi / (GRID_SHARE * c)
+    start = max(0.9 * n / c, h)
+    found = []
+    lo = start
+    while len(found) < need:
+        # Scan in chunks until enough sign changes are found.
+        xs = lo + h * np.arange(20001)
+        f = cross_fp(kind, n, c, xs)
+        if not np.all(np.isfinite(f)):
+            raise SystemExit("%s n=%d c=%s: non-finite cross product on the grid" % (kind, n, cs))
+        idx = np.nonzero(np.sign(f[:-1]) * np.sign(f[1:]) < 0)[0]
+        for i in idx:
+            found.append((xs[i], xs[i + 1]))
+        lo = xs[-1]
+    rows = []
+    prev = mpmath.mpf(0)
+    for m in INDICES:
+        a, b = found[m - 1]
+        # Widen by one grid step on each side in case the double-precision
+        # sign was wrong right next to the root.
+        a, b = mpmath.mpf(a - h), mpmath.mpf(b + h)
+        if m > 1:
+            a = max(a, mpmath.mpf(found[m - 2][1]))
+        if m < len(found):
+            b = min(b, mpmath.mpf(found[m][0]))
+        fa, fb = cross_mp(kind, n, cm, a), cross_mp(kind, n, cm, b)
+        if fa * fb >= 0:
+            raise SystemExit("%s n=%d c=%s m=%d: no sign change at 30 digits in [%s, %s]" % (kind, n, cs, m, a, b))
+        x = mpmath.findroot(lambda t: cross_mp(kind, n, cm, t), (a, b), solver="anderson")
+        if not (a < x < b) or x <= prev:
+            raise SystemExit("%s n=%d c=%s m=%d: root %s outside its bracket" % (kind, n, cs, m, x))
+        e = x * mpmath.mpf(10) ** (-25)
+        if cross_mp(kind, n, cm, x - e) * cross_mp(kind, n, cm, x + e) >= 0:
+            raise SystemExit("%s n=%d c=%s m=%d: no sign change across %s" % (kind, n, cs, m, x))
+        prev = x
+        rows.append((kind, cs, n, m, mpmath.nstr(x, DIGITS, strip_zeros=False)))
+    # The grid must resolve every root: the smallest gap between
+    # consecutive roots found must span several grid steps.
+    gaps = [b[0] - a[1] for a, b in zip(found, found[1:])]
+    if gaps and min(gaps) < 4 * h:
+        raise SystemExit("%s n=%d c=%s: roots closer than 4 grid steps" % (kind, n, cs))
+    return rows
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--jobs", type=int, default=2)
+    args = ap.parse_args()
+    here = os.path.dirname(os.path.abspath(__file__))
+    work = [(k, c, n) for k in ("tm", "te") for c in RATIOS for n in reversed(ORDERS)]
+    with multiprocessing.Pool(args.jobs) as pool:
+        parts = pool.map(roots, work, chunksize=1)
+    order = {(k, c, n): i for i, (k, c, n) in enumerate(
+        (k, c, n) for k in ("tm", "te") for c in RATIOS for n in ORDERS)}
+    parts.sort(key=lambda rows: order[rows[0][:3]])
+    path = os.path.join(here, "crosszeros.tsv")
+    tmp = path + ".tmp"
+    with open(tmp, "w") as f:
+        f.write("# Roots x of the Bessel cross products, m-th positive root for ratio c and order n\n")
+        f.write("# tm: J_n(x) Y_n(c x) - J_n(c x) Y_n(x) = 0; te: J'_n(x) Y'_n(c x) - J'_n(c x) Y'_n(x) = 0\n")
+        f.write("# computed with mpmath %s (Debian python3-mpmath), mpmath.findroot on besselj/bessely, "
+                "mp.dps = %d, brackets from a SciPy %s sign scan; printed to %d significant digits\n"
+                % (mpmath.__version__, DPS, scipy.__version__, DIGITS))
+        f.write("# command: /usr/bin/python3 testdata/bessel/gen_cross.py\n")
+        f.write("# columns: kind<TAB>c<TAB>n<TAB>m<TAB>root\n")
+        for rows in parts:
+            for r in rows:
+                f.write("%s\t%s\t%d\t%d\t%s\n" % r)
+    os.replace(tmp, path)
+    print("wrote %d rows" % sum(len(p) for p in parts), file=sys.stderr)
+
+
+if __name__ == "__main__":
+    main()
