@@ -98,15 +98,19 @@
 //     and at c x. The rounding of c x is carried exactly (FMA) into the
 //     phase.
 //
-// Accuracy: against the 30-digit mpmath table (testdata/bessel, c = 1.1 to
-// 100, n up to 99, m up to 100) every root is within ACCURACY_FIGURE
-// relative; the tests hold 1e-14. The one exception to that bound is the
-// lowest TE root of each order n >= 1 for c close to 1 (the TE_n1 mode of a
-// thin coaxial line, whose phase difference vanishes at the root): its
-// relative error grows like a few 1e-16/(c-1), measured 2e-13 at
-// c = 1.001 for n = 1. Cost: about TIMING_FIGURE for the 100 x 100 table
-// (n = 0..99, m = 1..100) of one ratio (BenchmarkCrossTable); the cost of
-// a root grows with n, about 0.3 us + n times 2 ns per full evaluation.
+// The lowest TE root of each order n >= 1 (level 0) of a thin line is a
+// special case: there φ(cx) - φ(x) is of order c - 1, and a difference of
+// two phases would lose digits like 1/(c-1). For c x - x <= 2 it is formed
+// instead from the solution of Bessel's equation with value 1 and slope 0
+// at x, expanded to c x (derived in cross.go), without cancellation.
+//
+// Accuracy: against the 30-digit mpmath table (testdata/bessel: c = 1.1,
+// 1.5, 2, 3.5, 10, 100 with n up to 99 and m up to 100, and the first
+// roots at c = 1.001) every root is within ACCURACY_FIGURE relative; the
+// tests hold 1e-14. Cost: TIMING_FIGURE for the 100 x 100 table (n = 0..99,
+// m = 1..100) of one ratio (BenchmarkCrossTable); a root costs about 1.2
+// full evaluations at x and at c x, each about 0.2 us plus 3 ns per unit
+// of n.
 //
 // References:
 //   - DLMF: NIST Digital Library of Mathematical Functions, release 1.1.x,

@@ -186,24 +186,42 @@ const nearReach = 0x1p-4
 // evaluation (which becomes the base), corrected to first order in dt.
 func (nr *near) phaseAt(n int, t, dt float64) phase {
 	if h := t - nr.b.t; nr.ok && math.Abs(h) <= nr.reach {
-		h += dt
-		if h == 0 {
-			return nr.b.phase(n)
-		}
-		nu2 := float64(n) * float64(n)
-		out := nr.b
-		out.t = nr.b.t + h
-		out.j, out.dj = nr.j.expand(nu2, nr.b.t, h, nr.b.j, nr.b.dj, 0)
-		out.y, out.dy = nr.y.expand(nu2, nr.b.t, h, nr.b.y, nr.b.dy, 0)
-		return out.phase(n)
+		return nr.expanded(n, h+dt).phase(n)
 	}
-	nr.b = besselRaw(n, t)
-	nr.ok = true
-	nr.reach = math.Min(nearReach, maxRatio*t)
-	p := nr.b.phase(n)
+	p := nr.full(n, t).phase(n)
 	if dt != 0 {
 		p.frac += p.dth * dt
 		p.gap += (p.dph - p.dth) * dt
 	}
 	return p
+}
+
+// rawAt returns the values of order n at t, expanded or in full as
+// phaseAt does.
+func (nr *near) rawAt(n int, t float64) rawBessel {
+	if h := t - nr.b.t; nr.ok && math.Abs(h) <= nr.reach {
+		return nr.expanded(n, h)
+	}
+	return nr.full(n, t)
+}
+
+// full evaluates at t with besselRaw and makes t the base.
+func (nr *near) full(n int, t float64) rawBessel {
+	nr.b = besselRaw(n, t)
+	nr.ok = true
+	nr.reach = math.Min(nearReach, maxRatio*t)
+	return nr.b
+}
+
+// expanded returns the values at the base point plus h.
+func (nr *near) expanded(n int, h float64) rawBessel {
+	if h == 0 {
+		return nr.b
+	}
+	nu2 := float64(n) * float64(n)
+	out := nr.b
+	out.t = nr.b.t + h
+	out.j, out.dj = nr.j.expand(nu2, nr.b.t, h, nr.b.j, nr.b.dj, 0)
+	out.y, out.dy = nr.y.expand(nu2, nr.b.t, h, nr.b.y, nr.b.dy, 0)
+	return out
 }

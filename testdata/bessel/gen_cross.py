@@ -42,6 +42,10 @@ DIGITS = 20   # significant digits written to the table
 RATIOS = ["1.1", "1.5", "2", "3.5", "10", "100"]
 ORDERS = [0, 1, 2, 3, 5, 10, 25, 50, 99]
 INDICES = list(range(1, 9)) + [12, 20, 35, 60, 100]
+# A thin line, c = 1.001, where the lowest TE root of each order is the
+# hardest case: (kind, c, n) with the first THIN_COUNT roots.
+THIN = [("te", "1.001", n) for n in (1, 2, 7, 40)] + [("tm", "1.001", n) for n in (0, 1, 7)]
+THIN_COUNT = 3
 GRID_SHARE = 40  # grid step pi/(GRID_SHARE c)
 
 
@@ -62,14 +66,14 @@ def cross_mp(kind, n, c, x):
 
 
 def roots(task):
-    kind, cs, n, cache = task
+    kind, cs, n, cache, indices = task
     if cache:
         path = os.path.join(cache, "%s_%s_%d.tsv" % (kind, cs, n))
         if os.path.exists(path):
             with open(path) as f:
                 return [tuple(int(v) if i in (2, 3) else v for i, v in enumerate(line.rstrip("\n").split("\t")))
                         for line in f]
-    rows = compute(kind, cs, n)
+    rows = compute(kind, cs, n, indices)
     if cache:
         with open(path + ".tmp", "w") as f:
             for r in rows:
@@ -79,11 +83,11 @@ def roots(task):
     return rows
 
 
-def compute(kind, cs, n):
+def compute(kind, cs, n, indices):
     mpmath.mp.dps = DPS
     c = float(cs)
     cm = mpmath.mpf(cs)
-    need = max(INDICES)
+    need = max(indices)
     h = np.pi / (GRID_SHARE * c)
     start = max(0.9 * n / c, h)
     found = []
@@ -100,7 +104,7 @@ def compute(kind, cs, n):
         lo = xs[-1]
     rows = []
     prev = mpmath.mpf(0)
-    for m in INDICES:
+    for m in indices:
         a, b = found[m - 1]
         # Widen by one grid step on each side in case the double-precision
         # sign was wrong right next to the root.
@@ -136,11 +140,12 @@ def main():
     if args.cache:
         os.makedirs(args.cache, exist_ok=True)
     here = os.path.dirname(os.path.abspath(__file__))
-    work = [(k, c, n, args.cache) for k in ("tm", "te") for c in RATIOS for n in reversed(ORDERS)]
+    work = [(k, c, n, args.cache, INDICES) for k in ("tm", "te") for c in RATIOS for n in reversed(ORDERS)]
+    work += [(k, c, n, args.cache, list(range(1, THIN_COUNT + 1))) for k, c, n in THIN]
     with multiprocessing.Pool(args.jobs) as pool:
         parts = pool.map(roots, work, chunksize=1)
     order = {(k, c, n): i for i, (k, c, n) in enumerate(
-        (k, c, n) for k in ("tm", "te") for c in RATIOS for n in ORDERS)}
+        [(k, c, n) for k in ("tm", "te") for c in RATIOS for n in ORDERS] + THIN)}
     parts.sort(key=lambda rows: order[rows[0][:3]])
     path = os.path.join(here, "crosszeros.tsv")
     tmp = path + ".tmp"
