@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 
 	"cylcav/physics"
 )
@@ -106,9 +105,9 @@ func (t Thermal) ratioScale(T float64) float64 {
 // DesignSpec is a design problem for Optimize. Zero values of optional
 // fields mean "no constraint" or the stated default.
 type DesignSpec struct {
-	Mode      Mode    // wanted mode
-	Frequency float64 // wanted frequency at the reference temperature, Hz
-	Fill      Fill    // homogeneous fill
+	Mode      Mode           // wanted mode
+	Frequency float64        // wanted frequency at the reference temperature, Hz
+	Fill      physics.Medium // homogeneous fill
 
 	// RatioMin and RatioMax bound D/L; both zero means DefaultRatioMin..
 	// DefaultRatioMax. They must lie in MinDesignRatio..MaxDesignRatio.
@@ -144,13 +143,6 @@ type DesignSpec struct {
 	// CountDegenerate counts the exact companion as a spurious mode (see
 	// ClearanceOptions).
 	CountDegenerate bool
-
-	// CurvePoints is the number of grid points of the trade-off curves
-	// (exact breakpoints are added); zero means 121.
-	CurvePoints int
-
-	// Tolerance, when Tolerance.Samples > 0, runs MonteCarlo at the design.
-	Tolerance Tolerance
 }
 
 // Default and limiting ratio ranges of Optimize.
@@ -176,19 +168,6 @@ const (
 	LimitMinQ         Limit = "min-q"
 	LimitMinClearance Limit = "min-clearance"
 )
-
-// TradeOff holds the curves of a design problem against D/L, for plotting:
-// parallel slices, sorted by Ratio, with the exact breakpoints (mode
-// crossings, the optimum) among the grid points. Q0 is NaN everywhere when
-// no Q function was given.
-type TradeOff struct {
-	Ratio          []float64 // D/L
-	Diameter       []float64 // m, for the design frequency
-	Length         []float64 // m
-	Clearance      []float64 // at the nominal dimensions, fraction
-	WorstClearance []float64 // along the tuning and temperature path, fraction
-	Q0             []float64
-}
 
 // Design is the result of Optimize.
 type Design struct {
@@ -217,16 +196,14 @@ type Design struct {
 	// attained; its ends are equal when the optimum is a single point.
 	Plateau [2]float64
 
-	Q0          float64 // NaN without a Q function
-	Sensitivity Sensitivity
-	// TunedLength holds the lengths at f (1 - Tuning) and f (1 + Tuning);
-	// zero without tuning.
-	TunedLength [2]float64
-	// Drift holds f(TMin) - f and f(TMax) - f in Hz; zero without a range.
-	Drift [2]float64
-	// Spread is the Monte Carlo result; nil without a tolerance.
-	Spread *Spread
-	Curve  TradeOff
+	Q0 float64 // NaN without a Q function
+
+	// prob and env are the validated problem and the clearance envelope
+	// along its path, kept for Analyze; nil in a Design not made by
+	// Optimize, which Analyze then rebuilds from Spec.
+	prob *problem
+	env  *envelope
+	s    float64 // (D/L)^2 exactly as optimised
 }
 
 // InfeasibleError reports a design problem with no solution and what was
@@ -264,7 +241,13 @@ type problem struct {
 // Optimize solves a design problem: it returns the D/L (and so D and L for
 // the design frequency) that maximises the clearance of the wanted mode,
 // or, for MaxQ, the unloaded Q subject to a minimum clearance, under the
-// optional constraints of spec.
+// optional constraints of spec. It returns the optimum and the bound that
+// holds it, nothing more: the sensitivities, tuning lengths, thermal
+// drift, Monte Carlo spread and trade-off curves built on it are a second
+// call, Analyze, so a caller who wants the optimum pays for nothing else.
+// The shape follows gonum's optimize package: the problem (DesignSpec),
+// the method (the exact envelope search below), the result (Design), and
+// the analysis settings (AnalysisSettings) apart from the problem.
 //
 // Method (derived from the mode chart, Pozar, Microwave Engineering, 4th
 // ed., sec. 6.4): with a homogeneous fill every frequency ratio f_i/f_w
@@ -278,7 +261,7 @@ type problem struct {
 // attained clearance of 1 somewhere on the range can matter; they are
 // listed rigorously by Modes at the range ends. The fill's temperature
 // coefficient moves every frequency together and so does not change any
-// ratio; it enters the drift and the sensitivities.
+// ratio; it enters the drift and the sensitivities of Analyze.
 //
 // Accuracy: for MaxClearance, D/L and the clearance are exact to about
 // 1e-15 relative (far inside the 1e-9 asked of it) beyond the accuracy of
@@ -402,45 +385,8 @@ func Optimize(spec DesignSpec) (Design, error) {
 			return Design{}, err
 		}
 	}
-	if d.Sensitivity, err = d.Cavity.Sensitivity(spec.Mode, spec.Thermal); err != nil {
-		return Design{}, err
-	}
-	if spec.Tuning > 0 {
-		D := d.Cavity.Diameter()
-		for i, t := range []float64{-spec.Tuning, spec.Tuning} {
-			lam := (1 + t) * (1 + t)
-			d.TunedLength[i] = D / math.Sqrt(lam*(s+p.a0)-p.a0)
-		}
-	}
-	if th := spec.Thermal; th.hasRange() {
-		for i, T := range []float64{th.TMin, th.TMax} {
-			dT := T - th.ref()
-			c := d.Cavity
-			c.Radius *= 1 + th.AlphaRadial*dT
-			c.Length *= 1 + th.AlphaAxial*dT
-			c.EpsR = spec.Fill.eps() * (1 + th.TauEps*dT)
-			d.Drift[i] = c.Frequency(spec.Mode) - d.Cavity.Frequency(spec.Mode)
-		}
-	}
-	if spec.Tolerance.Samples > 0 {
-		sp, err := d.Cavity.MonteCarlo(spec.Mode, spec.Tolerance)
-		if err != nil {
-			return Design{}, err
-		}
-		d.Spread = &sp
-	}
-	if d.Curve, err = p.curve(envW, s); err != nil {
-		return Design{}, err
-	}
+	d.prob, d.env, d.s = p, envW, s
 	return d, nil
-}
-
-// eps returns the fill's eps_r with zero meaning 1.
-func (f Fill) eps() float64 {
-	if f.EpsR == 0 {
-		return 1
-	}
-	return f.EpsR
 }
 
 func newProblem(spec DesignSpec) (*problem, error) {
@@ -450,7 +396,7 @@ func newProblem(spec DesignSpec) (*problem, error) {
 	if !(spec.Frequency > 0) || math.IsInf(spec.Frequency, 0) {
 		return nil, fmt.Errorf("cavity: design frequency must be finite and > 0 Hz, got %g Hz", spec.Frequency)
 	}
-	if err := spec.Fill.Validate(); err != nil {
+	if err := checkFill(spec.Fill); err != nil {
 		return nil, err
 	}
 	if spec.RatioMin == 0 && spec.RatioMax == 0 {
@@ -489,12 +435,6 @@ func newProblem(spec DesignSpec) (*problem, error) {
 	}
 	if err := spec.Thermal.Validate(); err != nil {
 		return nil, err
-	}
-	if spec.CurvePoints == 0 {
-		spec.CurvePoints = 121
-	}
-	if spec.CurvePoints < 2 || spec.CurvePoints > 100000 {
-		return nil, fmt.Errorf("cavity: curve points must be in 2..100000, got %d", spec.CurvePoints)
 	}
 	p := &problem{spec: spec, w: newChartMode(spec.Mode)}
 	p.kf = 2 * math.Pi * spec.Frequency * spec.Fill.Index() / physics.SpeedOfLight
@@ -539,7 +479,7 @@ func newPath(a0, x, kmin, kmax float64) path {
 // relation), L = D / sqrt(s).
 func (p *problem) cavityAt(s float64) Cavity {
 	D := math.Sqrt(p.w.g(s)) / p.kf
-	return Cavity{Radius: D / 2, Length: D / math.Sqrt(s), EpsR: p.spec.Fill.EpsR, MuR: p.spec.Fill.MuR}
+	return Cavity{Radius: D / 2, Length: D / math.Sqrt(s), Fill: p.spec.Fill}
 }
 
 // allowed returns the user's s range narrowed by the size limits and by
@@ -851,72 +791,4 @@ func (p *problem) bisectQ(a, b float64, okA bool) (float64, error) {
 		return a, nil
 	}
 	return b, nil
-}
-
-// curve builds the trade-off curves over the user's ratio range.
-func (p *problem) curve(envW *envelope, sOpt float64) (TradeOff, error) {
-	env0 := envW
-	if !p.path.identity() {
-		var err error
-		if env0, _, err = p.envelope(newPath(p.a0, 0, 1, 1)); err != nil {
-			return TradeOff{}, err
-		}
-	}
-	full := p.full
-	n := p.spec.CurvePoints
-	ss := make([]float64, 0, n+len(env0.modes)+1)
-	for i := range n {
-		ss = append(ss, full.lo*math.Pow(full.hi/full.lo, float64(i)/float64(n-1)))
-	}
-	ss[n-1] = full.hi
-	ss = append(ss, sOpt)
-	// Exact breakpoints: where a mode crosses the wanted one (the
-	// clearance is zero there), rho_k(s) = 1, a linear equation. Their
-	// clearance is set to zero without evaluating the envelope, which keeps
-	// the curve O(CurvePoints * modes) rather than O(modes^2) for
-	// high-order modes with thousands of neighbours.
-	crossing := map[float64]bool{}
-	for _, m := range env0.modes {
-		if d := m.gp - p.w.gp; d != 0 {
-			if s := (p.w.gx - m.gx) / d; s > full.lo && s < full.hi {
-				ss = append(ss, s)
-				crossing[s] = true
-			}
-		}
-	}
-	slices.Sort(ss)
-	ss = slices.Compact(ss)
-	t := TradeOff{
-		Ratio: make([]float64, len(ss)), Diameter: make([]float64, len(ss)), Length: make([]float64, len(ss)),
-		Clearance: make([]float64, len(ss)), WorstClearance: make([]float64, len(ss)), Q0: make([]float64, len(ss)),
-	}
-	for i, s := range ss {
-		c := p.cavityAt(s)
-		t.Ratio[i] = math.Sqrt(s)
-		t.Diameter[i], t.Length[i] = c.Diameter(), c.Length
-		if crossing[s] {
-			// A mode meets the wanted one here, on the nominal path and
-			// so on every path through it.
-			t.Clearance[i], t.WorstClearance[i] = 0, 0
-		} else {
-			t.Clearance[i], _ = env0.at(s, nil)
-			t.WorstClearance[i] = t.Clearance[i]
-		}
-		if envW != env0 && !crossing[s] {
-			if envW.path.lo.at(s) >= minPathS {
-				t.WorstClearance[i], _ = envW.at(s, nil)
-			} else {
-				t.WorstClearance[i] = 0 // the tuning path needs L > D/MinDesignRatio
-			}
-		}
-		t.Q0[i] = math.NaN()
-		if p.spec.Q != nil {
-			q, err := p.qAt(s)
-			if err != nil {
-				return TradeOff{}, err
-			}
-			t.Q0[i] = q
-		}
-	}
-	return t, nil
 }

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"cylcav/physics"
 )
 
 // Tolerances of the optimiser tests.
@@ -112,7 +114,7 @@ func TestOptimizeTE011Reference(t *testing.T) {
 		wantRatio = 1.38796887560878412985 // testdata/cavity/gen_optimum.py
 		wantClear = 0.07364455297108049055 // testdata/cavity/gen_optimum.py
 	)
-	for _, fill := range []Fill{{}, {EpsR: 2.08}} {
+	for _, fill := range []physics.Medium{{}, {EpsR: 2.08}} {
 		d, err := Optimize(DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: fill})
 		if err != nil {
 			t.Fatal(err)
@@ -201,7 +203,7 @@ func TestOptimizeFillScaling(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	ptfe, err := Optimize(DesignSpec{Mode: w, Frequency: 5e9, Fill: Fill{EpsR: 2.08}})
+	ptfe, err := Optimize(DesignSpec{Mode: w, Frequency: 5e9, Fill: physics.Medium{EpsR: 2.08}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -235,7 +237,7 @@ func TestOptimizeTuningAndTemperature(t *testing.T) {
 			for i := 0; i <= 200; i++ {
 				tt := -spec.Tuning + 2*spec.Tuning*float64(i)/200
 				// Length that tunes to f0 (1 + tt) at this diameter.
-				k := 2 * math.Pi * f0 * (1 + tt) / 299792458.0 * ct.Fill().Index()
+				k := 2 * math.Pi * f0 * (1 + tt) / 299792458.0 * ct.Fill.Index()
 				kc := w.Root() / ct.Radius
 				cl := ct
 				cl.Length = math.Pi / math.Sqrt(k*k-kc*kc)
@@ -301,8 +303,12 @@ func TestOptimizeSizeLimit(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if d.TunedLength[0] > 0.025*(1+routeTol) {
-		t.Errorf("Optimize(L <= 25 mm, tuning 1 %%) longest tuned length = %.15g m, want <= 0.025 m", d.TunedLength[0])
+	a, err := Analyze(d, AnalysisSettings{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.TunedLength[0] > 0.025*(1+routeTol) {
+		t.Errorf("Optimize(L <= 25 mm, tuning 1 %%) longest tuned length = %.15g m, want <= 0.025 m", a.TunedLength[0])
 	}
 }
 
@@ -403,11 +409,15 @@ func TestOptimizeValidation(t *testing.T) {
 // TestTradeOffCurve checks the curves against the brute-force clearance.
 func TestTradeOffCurve(t *testing.T) {
 	w := mustMode(t, "TE011")
-	d, err := Optimize(DesignSpec{Mode: w, Frequency: 10e9, CurvePoints: 41})
+	d, err := Optimize(DesignSpec{Mode: w, Frequency: 10e9})
 	if err != nil {
 		t.Fatal(err)
 	}
-	c := d.Curve
+	a, err := Analyze(d, AnalysisSettings{CurvePoints: 41})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := a.Curve
 	if len(c.Ratio) < 41 || len(c.Clearance) != len(c.Ratio) || len(c.Q0) != len(c.Ratio) {
 		t.Fatalf("curve lengths %d, %d, %d, want equal and >= 41", len(c.Ratio), len(c.Clearance), len(c.Q0))
 	}
@@ -440,8 +450,43 @@ func ExampleOptimize() {
 	// clearance 7.36 %, nearest below TM110, companion [TM111]
 }
 
+// BenchmarkOptimizeTE011 and BenchmarkOptimizeTM010 time the optimum and
+// its cheapest analysis (two-point curves), the work one Optimize call did
+// before the analysis became a step of its own.
 func BenchmarkOptimizeTE011(b *testing.B) {
-	spec := DesignSpec{Mode: Mode{TE, 0, 1, 1}, Frequency: 10e9, RatioMin: 0.2, RatioMax: 5, CurvePoints: 2}
+	spec := DesignSpec{Mode: Mode{TE, 0, 1, 1}, Frequency: 10e9, RatioMin: 0.2, RatioMax: 5}
+	for b.Loop() {
+		d, err := Optimize(spec)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := Analyze(d, AnalysisSettings{CurvePoints: 2}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkOptimizeTM010(b *testing.B) {
+	spec := DesignSpec{Mode: Mode{TM, 0, 1, 0}, Frequency: 10e9, RatioMin: 0.2, RatioMax: 5}
+	for b.Loop() {
+		d, err := Optimize(spec)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := Analyze(d, AnalysisSettings{CurvePoints: 2}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkOptimizeOnly times the optimum alone, as a caller who wants
+// only D and L pays for it: the demo's TE011 problem with tuning and a
+// temperature range.
+func BenchmarkOptimizeOnly(b *testing.B) {
+	spec := DesignSpec{
+		Mode: Mode{TE, 0, 1, 1}, Frequency: 10.5e9, RatioMin: 0.8, RatioMax: 2.5, Tuning: 0.005,
+		Thermal: Thermal{AlphaRadial: 23e-6, AlphaAxial: 1.3e-6, TMin: 253.15, TMax: 333.15},
+	}
 	for b.Loop() {
 		if _, err := Optimize(spec); err != nil {
 			b.Fatal(err)
@@ -449,10 +494,20 @@ func BenchmarkOptimizeTE011(b *testing.B) {
 	}
 }
 
-func BenchmarkOptimizeTM010(b *testing.B) {
-	spec := DesignSpec{Mode: Mode{TM, 0, 1, 0}, Frequency: 10e9, RatioMin: 0.2, RatioMax: 5, CurvePoints: 2}
+// BenchmarkAnalyzeMonteCarlo times the analysis of that design with a
+// 2e4-sample tolerance run, the part Optimize no longer pays for.
+func BenchmarkAnalyzeMonteCarlo(b *testing.B) {
+	spec := DesignSpec{
+		Mode: Mode{TE, 0, 1, 1}, Frequency: 10.5e9, RatioMin: 0.8, RatioMax: 2.5, Tuning: 0.005,
+		Thermal: Thermal{AlphaRadial: 23e-6, AlphaAxial: 1.3e-6, TMin: 253.15, TMax: 333.15},
+	}
+	d, err := Optimize(spec)
+	if err != nil {
+		b.Fatal(err)
+	}
+	set := AnalysisSettings{Tolerance: Tolerance{Diameter: 10e-6, Length: 10e-6, Samples: 20000, Seed: 1}}
 	for b.Loop() {
-		if _, err := Optimize(spec); err != nil {
+		if _, err := Analyze(d, set); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -64,10 +64,9 @@ type RealiseOptions struct {
 	// diameter every cavity keeps it and resonators tuned apart differ in
 	// length only, as when they are tuned by an end plate.
 	Shape cavity.Constraint
-	// Fill is the homogeneous medium in the cavities (zero value: vacuum).
-	Fill cavity.Fill
-	// Loss holds the fill's loss tangents (zero value: lossless fill).
-	Loss qfactor.Fill
+	// Fill is the homogeneous medium in the cavities, with its loss
+	// tangents (zero value: lossless vacuum).
+	Fill physics.Medium
 	// Walls gives the surface resistances at a frequency (for example
 	// from qfactor.Surface.Resistance); nil means perfectly conducting
 	// walls, so that Q0 comes from the fill alone (+Inf with no loss).
@@ -77,10 +76,12 @@ type RealiseOptions struct {
 	// The window is widened to hold every stopband and rejection frequency.
 	Window float64
 	// Stopbands are rejection bands stated besides the specification's
-	// spot rejections. Each spot rejection of the Spec (Rejection{F, A})
-	// is added as the band from F away from the passband to the edge of
-	// the search window (common practice: a rejection quoted at one
-	// frequency is meant to hold beyond it), marked Derived.
+	// spot rejections. Each spot rejection of the Spec inside the model
+	// range is added as its region of the mask (Spec.Mask: from F away
+	// from the passband to the end of the band of interest; common
+	// practice, a rejection quoted at one frequency is meant to hold
+	// beyond it), marked Derived. Design.Check turns a spurious resonance
+	// in such a region into a failed rejection.
 	Stopbands []Stopband
 	// Hole, when not nil, places the coupling holes between neighbouring
 	// cavities (the same wall and position for all; Radius ignored): each
@@ -220,7 +221,7 @@ func (r *Realisation) Q0() []float64 {
 // f_i, not f0. Synchronously tuned designs (all-pole and symmetric ones)
 // have every f_i = f0. The cavity comes from cavity.Size with opts.Shape
 // and its Q0 from qfactor.UnloadedQ (wall loss from opts.Walls, fill loss
-// from opts.Loss).
+// from the loss tangents of opts.Fill).
 //
 // Spurious resonances: every other mode of each distinct cavity design
 // inside the search window, from cavity.Cavity.Modes (complete to the
@@ -261,9 +262,6 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	if opts.Shape.Name() == "none" {
 		return nil, errors.New("filter: Realise needs a cavity shape: cavity.ByRatio(D/L), cavity.ByDiameter(m) or cavity.ByLength(m)")
 	}
-	if err := opts.Loss.Validate(); err != nil {
-		return nil, err
-	}
 	walls := opts.Walls
 	if walls == nil {
 		walls = qfactor.Fixed(qfactor.Walls{})
@@ -299,32 +297,33 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 		if err != nil {
 			return nil, fmt.Errorf("filter: cavity of resonator %d at %s: %w", i, physics.FormatFrequency(fi, 6), err)
 		}
-		u, err := qfactor.UnloadedQ(c, mode, walls, opts.Loss)
+		u, err := qfactor.UnloadedQ(c, mode, walls)
 		if err != nil {
 			return nil, fmt.Errorf("filter: unloaded Q of resonator %d: %w", i, err)
 		}
 		r.Cavities[i-1] = CavityDesign{Resonator: i, SelfCoupling: mii, F: fi, Cavity: c, Q0: u.Q0, Loss: u}
 	}
 
-	// Window and stopbands.
+	// Window and stopbands: the mask's rejection regions (Spec.Mask) are the
+	// derived stopbands, and the window holds them all.
+	mask := d.Spec.mask()
 	lo, hi := f0*(1-w), f0*(1+w)
 	for _, s := range opts.Stopbands {
 		lo, hi = math.Min(lo, s.Low), math.Max(hi, s.High)
 	}
-	for _, rj := range d.Spec.Rejections {
-		lo, hi = math.Min(lo, rj.F), math.Max(hi, rj.F)
+	for _, g := range mask.Regions {
+		lo, hi = math.Min(lo, g.Low), math.Max(hi, g.High)
 	}
 	r.Window = [2]float64{lo, hi}
 	r.Stopbands = slices.Clone(opts.Stopbands)
 	for i := range r.Stopbands {
 		r.Stopbands[i].Derived = false
 	}
-	for _, rj := range d.Spec.Rejections {
-		s := Stopband{Low: rj.F, High: hi, Attenuation: rj.Attenuation, Derived: true}
-		if rj.F < f0 {
-			s.Low, s.High = lo, rj.F
+	for _, g := range mask.Regions {
+		if g.OutsideModel {
+			continue
 		}
-		r.Stopbands = append(r.Stopbands, s)
+		r.Stopbands = append(r.Stopbands, Stopband{Low: g.Low, High: g.High, Attenuation: g.Attenuation, Derived: true})
 	}
 	f1, f2 := BandpassFrequency(-1, f0, bw), BandpassFrequency(1, f0, bw)
 

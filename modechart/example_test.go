@@ -7,7 +7,9 @@ import (
 	"log"
 
 	"cylcav/cavity"
+	"cylcav/figure"
 	"cylcav/modechart"
+	"cylcav/physics"
 )
 
 // A reference cavity for an invented 10 GHz test bench: TE011 in an
@@ -43,16 +45,16 @@ func ExampleNew() {
 // Render draws any figure, here a plain mode chart of a PTFE-filled
 // cylinder, as PNG at a chosen resolution (or SVG, or PDF).
 func ExampleRender() {
-	ch, err := modechart.New(modechart.Spec{EpsR: 2.08, Units: modechart.GHzMm})
+	ch, err := modechart.New(modechart.Spec{Fill: physics.Medium{EpsR: 2.08}, Units: modechart.GHzMm})
 	if err != nil {
 		log.Fatal(err)
 	}
-	fig, err := ch.Figure(modechart.DefaultTheme())
+	fig, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
 		log.Fatal(err)
 	}
 	var buf bytes.Buffer
-	if err := modechart.Render(&buf, fig, modechart.PNG, modechart.Page{DPI: 100}); err != nil {
+	if err := figure.Render(&buf, fig, figure.PNG, figure.Page{DPI: 100}); err != nil {
 		log.Fatal(err)
 	}
 	cfg, err := png.DecodeConfig(&buf)

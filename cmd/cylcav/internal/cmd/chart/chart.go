@@ -17,6 +17,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
 	"cylcav/modechart"
 	"cylcav/physics"
 )
@@ -31,13 +32,10 @@ type Options struct {
 	// described by SizedBy ("D/L = 1").
 	Sized   bool
 	SizedBy string
-	// FillName is the fill's library name, "user", or "" for vacuum.
-	FillName string
-
-	Output string
-	Format modechart.Format
-	Page   modechart.Page
-	Force  bool
+	Output  string
+	Format  figure.Format
+	Page    figure.Page
+	Force   bool
 }
 
 // NewCmdChart returns `cylcav chart`. runF, if not nil, replaces the
@@ -98,8 +96,8 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					return cmdutil.FlagError("mode", mode, err)
 				}
 			}
-			var fillV cavity.Fill
-			if fillV, opts.FillName, err = geo.Fill(); err != nil {
+			var fillV physics.Medium
+			if fillV, err = geo.Fill(); err != nil {
 				return err
 			}
 			if err := parseCavity(geo, opts, fillV, mode, freq, ratio); err != nil {
@@ -161,15 +159,15 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Output == "" {
 				return cmdutil.Usagef("missing -o/--output, the image file to write (.png, .svg or .pdf)")
 			}
-			if opts.Format, err = modechart.FormatOf(opts.Output); err != nil {
+			if opts.Format, err = figure.FormatOf(opts.Output); err != nil {
 				return cmdutil.FlagError("output", opts.Output, errors.New("the file name must end in .png, .svg or .pdf"))
 			}
-			if dpi < modechart.MinDPI || dpi > modechart.MaxDPI {
-				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", modechart.MinDPI, modechart.MaxDPI))
+			if dpi < figure.MinDPI || dpi > figure.MaxDPI {
+				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
 			}
 			opts.Page.DPI = dpi
 			// Page limits in metres (1 in = 0.0254 m exactly).
-			pmin, pmax := inches(modechart.MinPage), inches(modechart.MaxPage)
+			pmin, pmax := inches(figure.MinPage), inches(figure.MaxPage)
 			w, err := cmdutil.Length("width", width, pmin, pmax)
 			if err != nil {
 				return err
@@ -205,7 +203,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the box are emphasised")
 	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
 	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
-	f.IntVar(&dpi, "dpi", modechart.DefaultDPI, "resolution of PNG output, dots per inch")
+	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
 	f.StringVar(&width, "width", "8in", "page width")
 	f.StringVar(&height, "height", "6in", "page height")
 	_ = cmd.RegisterFlagCompletionFunc("units", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
@@ -219,7 +217,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 
 // parseCavity fills opts.Spec.Cavity from --diameter and --length, or by
 // sizing --mode at --freq with one of --ratio, --diameter, --length.
-func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill cavity.Fill, mode, freq, ratio string) error {
+func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium, mode, freq, ratio string) error {
 	s := &opts.Spec
 	changed := geo.Changed
 	if changed("freq") {
@@ -284,12 +282,12 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill cavity.Fill, mo
 		if err != nil {
 			return err
 		}
-		s.Cavity = cavity.Cavity{Radius: d / 2, Length: l, EpsR: fill.EpsR, MuR: fill.MuR}
+		s.Cavity = cavity.Cavity{Radius: d / 2, Length: l, Fill: fill}
 	case changed("diameter") || changed("length"):
 		return cmdutil.Usagef("give both --diameter and --length (or --freq with one of them to size the cavity)")
 	default:
 		// No cavity: a plain chart of the fill.
-		s.EpsR, s.MuR = fill.EpsR, fill.MuR
+		s.Fill = fill
 	}
 	return nil
 }
@@ -322,12 +320,12 @@ func runChart(opts *Options) error {
 		// Every chart error is a consequence of the flags.
 		return cmdutil.Usagef("%v", err)
 	}
-	fig, err := ch.Figure(modechart.DefaultTheme())
+	fig, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
 		return err
 	}
 	err = cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
-		return modechart.Render(b, fig, opts.Format, opts.Page)
+		return figure.Render(b, fig, opts.Format, opts.Page)
 	})
 	if err != nil {
 		return err
@@ -340,7 +338,7 @@ func runChart(opts *Options) error {
 func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
 	var b strings.Builder
 	size := fmt.Sprintf("%.4g x %.4g in", opts.Page.Width/vg.Inch, opts.Page.Height/vg.Inch)
-	if opts.Format == modechart.PNG {
+	if opts.Format == figure.PNG {
 		size = fmt.Sprintf("%d x %d px at %d dpi",
 			int(float64(opts.Page.Width/vg.Inch)*float64(opts.Page.DPI)+0.5),
 			int(float64(opts.Page.Height/vg.Inch)*float64(opts.Page.DPI)+0.5), opts.Page.DPI)
@@ -356,8 +354,8 @@ func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
 		}
 		fmt.Fprintf(&b, "%s: D = %s, L = %s, D/L = %.4g", what,
 			physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), c.Diameter()/c.Length)
-		if opts.FillName != "" {
-			fmt.Fprintf(&b, ", fill %s", opts.FillName)
+		if c.Fill.Name != "" {
+			fmt.Fprintf(&b, ", fill %s", c.Fill.Name)
 		}
 		b.WriteString("\n")
 	}

@@ -17,10 +17,9 @@ import (
 type Options struct {
 	IO *cmdutil.IOStreams
 
-	Mode     cavity.Mode
-	Cavity   cavity.Cavity
-	FillName string
-	Window   cavity.ClearanceOptions
+	Mode   cavity.Mode
+	Cavity cavity.Cavity
+	Window cavity.ClearanceOptions
 	// WindowText is --window as given, for error messages.
 	WindowText string
 	Format     cmdutil.Format
@@ -60,11 +59,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = parseMode(mode); err != nil {
 				return err
 			}
-			c, fill, err := geo.Cavity()
-			if err != nil {
+			if opts.Cavity, err = geo.Cavity(); err != nil {
 				return err
 			}
-			opts.Cavity, opts.FillName = c, fill.Name
 			if err := parseWindow(window, &opts.Window); err != nil {
 				return err
 			}
@@ -151,14 +148,6 @@ func runClearance(opts *Options) error {
 
 func g(v float64) string { return fmt.Sprintf("%.10g", v) }
 
-// Neighbour is the JSON form of a neighbouring mode.
-type Neighbour struct {
-	Mode      string  `json:"mode"`
-	FHz       float64 `json:"f_hz"`
-	OffsetHz  float64 `json:"offset_hz"`
-	OffsetPct float64 `json:"offset_pct"`
-}
-
 // WindowMode is the JSON form of a mode in the window.
 type WindowMode struct {
 	Mode      string  `json:"mode"`
@@ -168,38 +157,21 @@ type WindowMode struct {
 
 // Output is the JSON document of `cylcav clearance`.
 type Output struct {
-	Mode         string       `json:"mode"`
-	FHz          float64      `json:"f_hz"`
-	ClearancePct float64      `json:"clearance_pct"`
-	Below        *Neighbour   `json:"below"`
-	Above        *Neighbour   `json:"above"`
-	Degenerate   []string     `json:"degenerate"`
-	InWindow     []WindowMode `json:"in_window"`
-}
-
-// NeighbourJSON converts a neighbour (nil stays nil).
-func NeighbourJSON(nb *cavity.Neighbour) *Neighbour {
-	if nb == nil {
-		return nil
-	}
-	return &Neighbour{Mode: nb.Mode.String(), FHz: nb.Frequency, OffsetHz: nb.Offset, OffsetPct: 100 * nb.Relative}
-}
-
-// DegenerateJSON lists the companion labels (never null).
-func DegenerateJSON(ms []cavity.Mode) []string {
-	out := []string{}
-	for _, m := range ms {
-		out = append(out, m.String())
-	}
-	return out
+	Mode         string             `json:"mode"`
+	FHz          float64            `json:"f_hz"`
+	ClearancePct float64            `json:"clearance_pct"`
+	Below        *cmdutil.Neighbour `json:"below"`
+	Above        *cmdutil.Neighbour `json:"above"`
+	Degenerate   []string           `json:"degenerate"`
+	InWindow     []WindowMode       `json:"in_window"`
 }
 
 // JSON returns the JSON document for a clearance.
 func JSON(cl cavity.Clearance) Output {
 	o := Output{
 		Mode: cl.Mode.String(), FHz: cl.Frequency, ClearancePct: 100 * cl.Value,
-		Below: NeighbourJSON(cl.Below), Above: NeighbourJSON(cl.Above),
-		Degenerate: DegenerateJSON(cl.Degenerate), InWindow: []WindowMode{},
+		Below: cmdutil.NeighbourJSON(cl.Below), Above: cmdutil.NeighbourJSON(cl.Above),
+		Degenerate: cmdutil.DegenerateJSON(cl.Degenerate), InWindow: []WindowMode{},
 	}
 	for _, nb := range cl.InWindow {
 		o.InWindow = append(o.InWindow, WindowMode{Mode: nb.Mode.String(), FHz: nb.Frequency, OffsetPct: 100 * nb.Relative})
@@ -211,10 +183,10 @@ func writeTable(opts *Options, cl cavity.Clearance) error {
 	w := opts.IO.Out
 	c := opts.Cavity
 	fmt.Fprintf(w, "Cavity: D = %s, L = %s, D/L = %.4f, fill %s (eps_r %.4g)\n",
-		physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), c.Diameter()/c.Length, opts.FillName, orOne(c.EpsR))
+		physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), c.Diameter()/c.Length, c.Fill.Label(), c.Fill.Eps())
 	fmt.Fprintf(w, "Wanted mode %s at %s (n azimuthal, m radial, p axial)\n", cl.Mode, physics.FormatFrequency(cl.Frequency, 7))
 	fmt.Fprintf(w, "Clearance: %.3f %% (set by %s)\n", 100*cl.Value, cl.Limiting)
-	fmt.Fprint(w, FormatNeighbours(cl))
+	fmt.Fprint(w, cmdutil.FormatNeighbours(cl))
 	if len(cl.InWindow) > 0 {
 		win := max(opts.Window.Window, opts.Window.WindowHz/cl.Frequency)
 		fmt.Fprintf(w, "\nModes within +-%.4g %%:\n", 100*win)
@@ -227,31 +199,6 @@ func writeTable(opts *Options, cl cavity.Clearance) error {
 	return nil
 }
 
-// FormatNeighbours returns the lines for the nearest modes, the
-// spurious-free window and the companion, shared with `cylcav design`.
-func FormatNeighbours(cl cavity.Clearance) string {
-	var b strings.Builder
-	line := func(label string, nb *cavity.Neighbour) {
-		if nb == nil {
-			fmt.Fprintf(&b, "  %s: none\n", label)
-			return
-		}
-		fmt.Fprintf(&b, "  %s: %s at %s (%s, %+.3f %%)\n", label, nb.Mode, physics.FormatFrequency(nb.Frequency, 7),
-			signed(physics.FormatFrequency(abs(nb.Offset), 5), nb.Offset), 100*nb.Relative)
-	}
-	line("nearest below", cl.Below)
-	line("nearest above", cl.Above)
-	lo := "0 Hz"
-	if cl.Below != nil {
-		lo = physics.FormatFrequency(cl.FreeLow, 7)
-	}
-	fmt.Fprintf(&b, "  spurious-free window: %s .. %s\n", lo, physics.FormatFrequency(cl.FreeHigh, 7))
-	for _, m := range cl.Degenerate {
-		fmt.Fprintf(&b, "  degenerate companion: %s (same frequency in every cylinder; suppress it with a mode trap or a plunger gap)\n", m)
-	}
-	return b.String()
-}
-
 func signed(s string, v float64) string {
 	if v < 0 {
 		return "-" + s
@@ -262,13 +209,6 @@ func signed(s string, v float64) string {
 func abs(v float64) float64 {
 	if v < 0 {
 		return -v
-	}
-	return v
-}
-
-func orOne(v float64) float64 {
-	if v == 0 {
-		return 1
 	}
 	return v
 }

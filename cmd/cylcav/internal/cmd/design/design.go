@@ -1,7 +1,9 @@
 // Package design implements `cylcav design`: the D/L that puts a wanted
 // mode on frequency with the widest spurious-mode clearance, with Q0,
-// sensitivities, tolerance spread and cautions. With no flags it runs a
-// built-in demo scenario (Demo).
+// sensitivities, tolerance spread and cautions. The design flow itself is
+// library package cylcav/design; this command parses its flags
+// (cmdutil.ScenarioFlags) and formats its result. With no flags it runs
+// the built-in demo scenario (design.Demo).
 package design
 
 import (
@@ -13,37 +15,27 @@ import (
 	"strings"
 
 	"github.com/spf13/cobra"
-	"github.com/spf13/pflag"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/clearance"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/design"
 	"cylcav/physics"
 )
 
 // Options holds the parsed flags of `cylcav design`.
 type Options struct {
 	IO       *cmdutil.IOStreams
-	Scenario Scenario
+	Scenario design.Scenario
 	Format   cmdutil.Format
 }
-
-// demoFlags are the flags that may accompany the demo run.
-var demoFlags = map[string]bool{"format": true}
 
 // NewCmdDesign returns `cylcav design`. runF, when not nil, replaces the
 // run step (for tests of flag parsing).
 func NewCmdDesign(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
 	var (
-		mode, freq, wall, ratioRange, objective, minClear, minQ      string
-		maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
-		tolDist                                                      string
-		samples                                                      int
-		seed                                                         uint64
-		countDeg                                                     bool
-		checkFormat                                                  func() error
-		geo                                                          *cmdutil.GeometryFlags
+		checkFormat func() error
+		scenario    *cmdutil.ScenarioFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "design [--mode MODE --freq F] [flags]",
@@ -84,227 +76,24 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 			if err := checkFormat(); err != nil {
 				return err
 			}
-			demo := true
-			cmd.Flags().Visit(func(f *pflag.Flag) {
-				if !demoFlags[f.Name] {
-					demo = false
-				}
-			})
-			if demo {
-				s, err := Demo()
-				if err != nil {
-					return err
-				}
-				opts.Scenario = s
-			} else {
-				s, err := parseScenario(cmd, geo, mode, freq, wall, ratioRange, objective, minClear, minQ,
-					maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist, samples, seed, countDeg)
-				if err != nil {
-					return err
-				}
-				opts.Scenario = s
+			s, err := scenario.Scenario()
+			if err != nil {
+				return err
 			}
+			opts.Scenario = s
 			if runF != nil {
 				return runF(opts)
 			}
 			return runDesign(opts)
 		},
 	}
-	f := cmd.Flags()
-	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011")
-	f.StringVar(&freq, "freq", "", "wanted frequency, e.g. 10GHz")
-	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
-		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
-	})
-	f.StringVar(&wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
-	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
-	f.StringVar(&objective, "objective", "clearance", "what to maximise: clearance|q")
-	f.StringVar(&minClear, "min-clearance", "", "least clearance, e.g. 3% (required with --objective q)")
-	f.StringVar(&minQ, "min-q", "", "least unloaded Q0 (needs --wall)")
-	f.StringVar(&maxD, "max-diameter", "", "largest allowed inside diameter")
-	f.StringVar(&maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
-	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
-	f.StringVar(&temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C (design frequency at the middle)")
-	f.StringVar(&alphaSide, "alpha-side", "", "expansion coefficient of the side wall (default: the wall metal's), e.g. 23ppm")
-	f.StringVar(&alphaAxial, "alpha-axial", "", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm")
-	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
-	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
-	f.StringVar(&tolDist, "tolerance-dist", "normal", "distribution of machining errors: normal (tolerance = 3 sigma) | uniform")
-	f.IntVar(&samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
-	f.Uint64Var(&seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
-	f.BoolVar(&countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	scenario = cmdutil.AddScenarioFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
 }
 
-func parseScenario(cmd *cobra.Command, geo *cmdutil.GeometryFlags, mode, freq, wall, ratioRange, objective, minClear, minQ,
-	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen, tolDist string, samples int, seed uint64, countDeg bool) (Scenario, error) {
-	var s Scenario
-	sp := &s.Spec
-	// A flag given with an empty value is an error below, never "absent".
-	set := cmd.Flags().Changed
-	if !set("mode") || !set("freq") {
-		return s, cmdutil.Usagef("design needs --mode and --freq (or no flags at all for the demo scenario)")
-	}
-	var err error
-	if sp.Mode, err = cavity.ParseMode(mode); err != nil {
-		return s, cmdutil.FlagError("mode", mode, err)
-	}
-	if sp.Frequency, err = cmdutil.Frequency("freq", freq, 1e3, 1e15); err != nil {
-		return s, err
-	}
-	if s.Fill, err = geo.Dielectric(); err != nil {
-		return s, err
-	}
-	sp.Fill = cavity.Fill{EpsR: s.Fill.EpsR, MuR: s.Fill.MuR}
-	if set("wall") {
-		c, err := physics.ParseConductor(wall)
-		if err != nil {
-			return s, cmdutil.FlagError("wall", wall, err)
-		}
-		s.Wall = &c
-	}
-	lo, hi, err := physics.ParseRange(ratioRange, physics.ParseNumber)
-	if err != nil {
-		return s, cmdutil.FlagError("ratio-range", ratioRange, err)
-	}
-	if !(lo >= cavity.MinDesignRatio && hi <= cavity.MaxDesignRatio) {
-		return s, cmdutil.FlagError("ratio-range", ratioRange, fmt.Errorf("both ends must be between %g and %g", cavity.MinDesignRatio, cavity.MaxDesignRatio))
-	}
-	sp.RatioMin, sp.RatioMax = lo, hi
-	switch objective {
-	case "clearance":
-		sp.Objective = cavity.MaxClearance
-	case "q":
-		sp.Objective = cavity.MaxQ
-	default:
-		return s, cmdutil.FlagError("objective", objective, fmt.Errorf("unknown objective; use clearance|q"))
-	}
-	if set("min-clearance") {
-		if sp.MinClearance, err = fraction("min-clearance", minClear, 0, 1); err != nil {
-			return s, err
-		}
-	}
-	if sp.Objective == cavity.MaxQ {
-		if s.Wall == nil {
-			return s, cmdutil.Usagef("--objective q needs --wall (the wall metal sets Q0)")
-		}
-		if !set("min-clearance") {
-			return s, cmdutil.Usagef("--objective q needs --min-clearance (the clearance Q0 may not go below)")
-		}
-	}
-	if set("min-q") {
-		if sp.MinQ, err = cmdutil.Number("min-q", minQ, 1, 1e12); err != nil {
-			return s, err
-		}
-		if s.Wall == nil {
-			return s, cmdutil.Usagef("--min-q needs --wall (the wall metal sets Q0)")
-		}
-	}
-	if set("max-diameter") {
-		if sp.MaxDiameter, err = cmdutil.Length("max-diameter", maxD, cavity.MinSize, cavity.MaxSize); err != nil {
-			return s, err
-		}
-	}
-	if set("max-length") {
-		if sp.MaxLength, err = cmdutil.Length("max-length", maxL, cavity.MinSize, cavity.MaxSize); err != nil {
-			return s, err
-		}
-	}
-	if set("tuning") {
-		if sp.Tuning, err = fraction("tuning", tuning, 0, cavity.MaxTuning); err != nil {
-			return s, err
-		}
-		if sp.Tuning > 0 && sp.Mode.P == 0 {
-			return s, cmdutil.FlagError("tuning", tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
-		}
-	}
-	th := &sp.Thermal
-	if s.Wall != nil {
-		th.AlphaRadial, th.AlphaAxial = s.Wall.Expansion, s.Wall.Expansion
-	}
-	if set("alpha-side") {
-		if th.AlphaRadial, err = coefficient("alpha-side", alphaSide); err != nil {
-			return s, err
-		}
-		th.AlphaAxial = th.AlphaRadial
-	}
-	if set("alpha-axial") {
-		if th.AlphaAxial, err = coefficient("alpha-axial", alphaAxial); err != nil {
-			return s, err
-		}
-	}
-	if s.Fill.TCEpsKnown {
-		th.TauEps = s.Fill.TCEps
-	}
-	if set("temp") {
-		tlo, thi, err := physics.ParseRange(temp, physics.ParseTemperature)
-		if err != nil {
-			return s, cmdutil.FlagError("temp", temp, err)
-		}
-		if !(tlo >= 1 && thi <= 3000) {
-			return s, cmdutil.FlagError("temp", temp, fmt.Errorf("both ends must be between 1 K and 3000 K"))
-		}
-		th.TMin, th.TMax = tlo, thi
-		s.TempGiven = true
-	}
-	if err := th.Validate(); err != nil {
-		return s, cmdutil.Usagef("%v", err)
-	}
-	if set("tolerance") || set("tolerance-length") {
-		t := &sp.Tolerance
-		if set("tolerance") {
-			if t.Diameter, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
-				return s, err
-			}
-			t.Length = t.Diameter
-		}
-		if set("tolerance-length") {
-			if t.Length, err = cmdutil.Length("tolerance-length", tolLen, 0, 1); err != nil {
-				return s, err
-			}
-		}
-		switch tolDist {
-		case "normal":
-			t.Distribution = cavity.Normal
-		case "uniform":
-			t.Distribution = cavity.Uniform
-		default:
-			return s, cmdutil.FlagError("tolerance-dist", tolDist, fmt.Errorf("unknown distribution; use normal|uniform"))
-		}
-		if samples < 1 || samples > cavity.MaxSamples {
-			return s, cmdutil.FlagError("samples", strconv.Itoa(samples), fmt.Errorf("must be between 1 and %d", cavity.MaxSamples))
-		}
-		t.Samples, t.Seed = samples, seed
-	}
-	sp.CountDegenerate = countDeg
-	return s, nil
-}
-
-func fraction(flag, value string, lo, hi float64) (float64, error) {
-	v, err := physics.ParseFraction(value)
-	if err != nil {
-		return 0, cmdutil.FlagError(flag, value, err)
-	}
-	if !(v >= lo && v <= hi) {
-		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be between %g%% and %g%%", 100*lo, 100*hi))
-	}
-	return v, nil
-}
-
-func coefficient(flag, value string) (float64, error) {
-	v, err := physics.ParseCoefficient(value)
-	if err != nil {
-		return 0, cmdutil.FlagError(flag, value, err)
-	}
-	if !(math.Abs(v) <= 1e-3) {
-		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be within +-1000 ppm/K"))
-	}
-	return v, nil
-}
-
 func runDesign(opts *Options) error {
-	r, err := opts.Scenario.RunWithProgress(opts.IO)
+	r, err := cmdutil.RunScenario(opts.IO, opts.Scenario)
 	if err != nil {
 		return err // an InfeasibleError exits with status 1
 	}
@@ -312,7 +101,7 @@ func runDesign(opts *Options) error {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, JSON(r))
 	case cmdutil.CSV:
-		return writeCSV(opts.IO.Out, r.Design.Curve)
+		return writeCSV(opts.IO.Out, r.Analysis.Curve)
 	}
 	return WriteTable(opts.IO.Out, r)
 }
@@ -364,21 +153,21 @@ type Output struct {
 	AtRangeEdge       bool    `json:"at_range_edge"`
 	// Limit names the bound that holds the optimum (a cavity.Limit); null
 	// when none does.
-	Limit        *string              `json:"limit"`
-	Below        *clearance.Neighbour `json:"below"`
-	Above        *clearance.Neighbour `json:"above"`
-	Degenerate   []string             `json:"degenerate"`
-	Q0           *float64             `json:"q0"`
-	QBreakdown   *QBreakdown          `json:"q_breakdown,omitempty"`
-	Sensitivity  Sensitivity          `json:"sensitivity"`
-	TunedLengthM *[2]float64          `json:"tuned_length_m,omitempty"`
-	DriftHz      *[2]float64          `json:"thermal_drift_hz,omitempty"`
-	Tolerance    *Tolerance           `json:"tolerance"`
-	Cautions     []string             `json:"cautions"`
+	Limit        *string            `json:"limit"`
+	Below        *cmdutil.Neighbour `json:"below"`
+	Above        *cmdutil.Neighbour `json:"above"`
+	Degenerate   []string           `json:"degenerate"`
+	Q0           *float64           `json:"q0"`
+	QBreakdown   *QBreakdown        `json:"q_breakdown,omitempty"`
+	Sensitivity  Sensitivity        `json:"sensitivity"`
+	TunedLengthM *[2]float64        `json:"tuned_length_m,omitempty"`
+	DriftHz      *[2]float64        `json:"thermal_drift_hz,omitempty"`
+	Tolerance    *Tolerance         `json:"tolerance"`
+	Cautions     []string           `json:"cautions"`
 }
 
 // JSON returns the JSON document of a result.
-func JSON(r Result) Output {
+func JSON(r design.Result) Output {
 	d := r.Design
 	o := Output{
 		Scenario: r.Scenario.Title,
@@ -386,9 +175,9 @@ func JSON(r Result) Output {
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
 		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
 		AtRangeEdge: d.AtRangeEdge,
-		Below:       clearance.NeighbourJSON(d.Clearance.Below), Above: clearance.NeighbourJSON(d.Clearance.Above),
-		Degenerate:  clearance.DegenerateJSON(d.Clearance.Degenerate),
-		Sensitivity: Sensitivity{DfDDHzPerM: d.Sensitivity.DfDD, DfDLHzPerM: d.Sensitivity.DfDL, DfDTHzPerK: d.Sensitivity.DfDT},
+		Below:       cmdutil.NeighbourJSON(d.Clearance.Below), Above: cmdutil.NeighbourJSON(d.Clearance.Above),
+		Degenerate:  cmdutil.DegenerateJSON(d.Clearance.Degenerate),
+		Sensitivity: Sensitivity{DfDDHzPerM: r.Analysis.Sensitivity.DfDD, DfDLHzPerM: r.Analysis.Sensitivity.DfDL, DfDTHzPerK: r.Analysis.Sensitivity.DfDT},
 		Cautions:    printedCautions(r),
 	}
 	if d.Limit != cavity.NoLimit {
@@ -408,15 +197,15 @@ func JSON(r Result) Output {
 		o.QBreakdown = b
 	}
 	if d.Spec.Tuning > 0 {
-		t := d.TunedLength
+		t := r.Analysis.TunedLength
 		o.TunedLengthM = &t
 	}
 	if r.Scenario.TempGiven {
-		t := d.Drift
+		t := r.Analysis.Drift
 		o.DriftHz = &t
 	}
-	if sp := d.Spread; sp != nil {
-		t := d.Spec.Tolerance
+	if sp := r.Analysis.Spread; sp != nil {
+		t := r.Analysis.Settings.Tolerance
 		o.Tolerance = &Tolerance{
 			DiameterM: t.Diameter, LengthM: t.Length, Distribution: t.Distribution.String(),
 			Samples: sp.Samples, Seed: t.Seed, MeanHz: sp.Mean, StdHz: sp.Std, P01Hz: sp.P01, P99Hz: sp.P99,
@@ -451,14 +240,14 @@ func writeCSV(w io.Writer, c cavity.TradeOff) error {
 func g(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) }
 
 // WriteTable prints a result for people.
-func WriteTable(w io.Writer, r Result) error {
+func WriteTable(w io.Writer, r design.Result) error {
 	d := r.Design
 	spec := d.Spec
 	if r.Scenario.Title != "" {
 		fmt.Fprintf(w, "Demo scenario (no flags given): %s\n\n", r.Scenario.Title)
 	}
 	fmt.Fprintf(w, "Design: %s at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
-		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), r.Scenario.Fill.Name)
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), spec.Fill.Label())
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
@@ -473,29 +262,29 @@ func WriteTable(w io.Writer, r Result) error {
 		fmt.Fprintf(w, "; worst over tuning and temperature %.3f %% (%s)", 100*d.WorstClearance, d.WorstMode)
 	}
 	fmt.Fprintln(w)
-	fmt.Fprint(w, clearance.FormatNeighbours(d.Clearance))
+	fmt.Fprint(w, cmdutil.FormatNeighbours(d.Clearance))
 	if u := r.Unloaded; u != nil {
 		fmt.Fprintf(w, "\nUnloaded Q (%s walls, 20 C, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, u.Q0)
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
-	s := d.Sensitivity
+	s := r.Analysis.Sensitivity
 	fmt.Fprintf(w, "\nSensitivities:\n")
 	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))
 	fmt.Fprintf(w, "  df/dL = %s per mm\n", signedF(s.DfDL*1e-3))
 	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K)\n", signedF(s.DfDT), 1e6*s.TempCoeff)
 	if spec.Tuning > 0 {
 		fmt.Fprintf(w, "\nTuning +-%.4g %% by one end plate: L from %s (low end) to %s (high end)\n",
-			100*spec.Tuning, physics.FormatLength(d.TunedLength[0], 6), physics.FormatLength(d.TunedLength[1], 6))
+			100*spec.Tuning, physics.FormatLength(r.Analysis.TunedLength[0], 6), physics.FormatLength(r.Analysis.TunedLength[1], 6))
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
 		fmt.Fprintf(w, "\nTemperature %s..%s (alpha side %.3g ppm/K, alpha axial %.3g ppm/K): drift %s at the low end, %s at the high end\n",
 			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4), 1e6*th.AlphaRadial, 1e6*th.AlphaAxial,
-			signedF(d.Drift[0]), signedF(d.Drift[1]))
+			signedF(r.Analysis.Drift[0]), signedF(r.Analysis.Drift[1]))
 	}
-	if sp := d.Spread; sp != nil {
-		t := spec.Tolerance
+	if sp := r.Analysis.Spread; sp != nil {
+		t := r.Analysis.Settings.Tolerance
 		dist := "uniform"
 		if t.Distribution == cavity.Normal {
 			dist = fmt.Sprintf("normal, tolerance = %g sigma", sigmas(t))
@@ -517,7 +306,7 @@ func WriteTable(w io.Writer, r Result) error {
 // the general caution for high RF power (cmdutil.CautionRF) as a sentence.
 // The datasheet of `cylcav report` prints the result's own and, in place of
 // the one-line RF caution, its fuller safety notes.
-func printedCautions(r Result) []string {
+func printedCautions(r design.Result) []string {
 	rf := strings.ToUpper(cmdutil.CautionRF[:1]) + cmdutil.CautionRF[1:] + "."
 	return append(slices.Clone(r.Cautions), rf)
 }

@@ -7,7 +7,6 @@ import (
 
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/design"
-	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
 // rfCaution is the general RF caution as design prints it: the sentence
@@ -109,27 +108,6 @@ func TestDesignErrors(t *testing.T) {
 		r := clitest.Run(t, append([]string{"design"}, tc.args...)...)
 		if r.Code != tc.status || !strings.Contains(r.Stderr, tc.want) {
 			t.Errorf("design %v: status %d, stderr %q; want status %d mentioning %q", tc.args, r.Code, r.Stderr, tc.status, tc.want)
-		}
-	}
-}
-
-func TestDemoIsLibraryCall(t *testing.T) {
-	s, err := design.Demo()
-	if err != nil {
-		t.Fatal(err)
-	}
-	r, err := s.Run(nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if r.Unloaded == nil || r.Design.Spread == nil || len(r.Cautions) == 0 {
-		t.Errorf("Demo().Run = %+v, want Q breakdown, spread and cautions", r)
-	}
-	// The result's cautions are the design's own; the general RF caution
-	// is added by the outputs (and the datasheet has its own safety notes).
-	for _, c := range r.Cautions {
-		if strings.Contains(c, cmdutil.CautionRF[1:]) {
-			t.Errorf("Demo().Run cautions include the general RF caution %q", c)
 		}
 	}
 }

@@ -15,10 +15,9 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
 	bandpass "cylcav/filter"
-	"cylcav/modechart"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -62,14 +61,14 @@ type Options struct {
 	// --mode, --wall, --fill, --ratio or --holes given).
 	Cavities bool
 	Mode     cavity.Mode
-	// Fill is the fill dielectric (vacuum by default).
-	Fill physics.Dielectric
+	// Fill is the medium in the cavities (vacuum by default).
+	Fill physics.Medium
 	// Ratio is D/L of every cavity; zero means the design optimiser's D/L
 	// for the largest spurious-free clearance.
 	Ratio float64
 	// Walls are the side wall, end plate A and end plate B; nil means
 	// perfectly conducting walls.
-	Walls *[3]qfactor.Surface
+	Walls *qfactor.WallSet
 	// Hole, when not nil, sizes the main-line couplings as holes.
 	Hole *bandpass.Hole
 
@@ -83,7 +82,7 @@ type Options struct {
 
 	Touchstone string
 	Plot       string
-	PlotFormat modechart.Format
+	PlotFormat figure.Format
 	DPI        int
 	Force      bool
 }
@@ -97,7 +96,7 @@ func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comm
 		mode, ratio, q0, holes, holeT, span         string
 		order                                       int
 	)
-	var walls *q.WallFlags
+	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "filter --f0 F --bw B (--order N | --reject ATT@F[,...]) [flags]",
@@ -115,15 +114,29 @@ specification to the numbers a designer builds it from:
      couplings k = FBW*M and external Q of the end resonators;
   4. with --mode/--wall/--fill/--ratio: one closed cylindrical cavity per
      resonator at its own frequency, its unloaded Q0, the cavity's spurious
-     modes near the band (warned when in a rejection band), and, with
-     --holes, the coupling holes by Bethe's small-aperture theory;
+     modes near the band, and, with --holes, the coupling holes by Bethe's
+     small-aperture theory;
   5. the response with the cavities' Q0 (or --q0): midband insertion loss
-     against Cohn's estimate, and the pass/fail table of the specification.
+     with the first-order estimates (from the group delay at f0, and Cohn's
+     for all-pole designs), the group delay, and the pass/fail table of the
+     specification.
 
 The passband runs from f1 to f2 with f2 - f1 = bw and f1*f2 = f0^2. A
-rejection "40dB@10.3GHz" asks for 40 dB from 10.3 GHz outwards. Transmission
-zeros are given in Hz and mapped to Omega = (f0/bw)(f/f0 - f0/f); at most N
-(N-1 with a plain folded network, N adds a source-load coupling).
+rejection "40dB@10.3GHz" asks for 40 dB at every frequency from 10.3 GHz
+outwards to the end of the band of interest, f0 -+ 20 %: the order and the
+check find the least attenuation there exactly, lobes between and beyond the
+transmission zeros included. A spurious resonance of the cavities inside a
+rejection band fails that rejection. Beyond f0 -+ 20 %, or beyond the
+cavities' first spurious resonance, the coupling-matrix model does not hold:
+such a rejection is reported as not checked. The --return-loss (or --ripple)
+requirement is checked on the designed (lossless) response; the effect of
+the losses (lossy return loss, rounding of the band edges) is shown apart.
+Transmission zeros are given in Hz and mapped to
+Omega = (f0/bw)(f/f0 - f0/f); at most N (N-1 with a plain folded network, N
+adds a source-load coupling).
+
+The coupling-matrix model is a narrowband model: a bandwidth above 10 % of
+f0 is refused (exit status 2).
 
 Without --mode, --wall, --fill, --ratio and --holes no cavities are sized and
 the response is lossless unless --q0 gives an unloaded Q. With only --wall
@@ -180,7 +193,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Fill: "fill: library name (air, ptfe, ...) or eps=...,tand=... (default vacuum)",
 	})
-	walls = q.AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&ratio, "ratio", "", "D/L of every cavity (default: the design optimiser's, largest clearance)")
 	f.StringVar(&holes, "holes", "", "size the main-line couplings as circular holes in the common end|side wall (Bethe)")
 	f.StringVar(&holeT, "hole-thickness", "", "wall thickness at the holes, e.g. 0.5mm (default 0, thin wall)")
@@ -189,7 +202,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&opts.Plot, "plot", "", "write the response plot: .png, .svg or .pdf")
 	f.StringVar(&span, "span", "3x", "frequency range: N bandwidths around f0 (Omega -N..N), widened to show every rejection and zero")
 	f.IntVar(&opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints))
-	f.IntVar(&opts.DPI, "dpi", modechart.DefaultDPI, "resolution of a PNG plot, dots per inch")
+	f.IntVar(&opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch")
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
@@ -224,6 +237,10 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	bw, err := parseBandwidth(bwS, f0)
 	if err != nil {
 		return err
+	}
+	if bandpass.ModelFBWError(f0, bw) != nil {
+		return cmdutil.FlagError("bw", bwS, fmt.Errorf("a fractional bandwidth of %.4g %% is above %g %% of f0, where the narrowband coupling-matrix model (frequency-invariant couplings) stops holding; a wider filter needs couplings modelled with their frequency dependence",
+			100*bw/f0, 100*bandpass.MaxModelFBW))
 	}
 	s.BW = bw
 	f1, f2 := bandpass.BandpassFrequency(-1, f0, bw), bandpass.BandpassFrequency(1, f0, bw)
@@ -368,7 +385,7 @@ func decibels(flag, v string, lo, hi float64) (float64, error) {
 }
 
 // parseCavities validates the realisation flags.
-func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags, geo *cmdutil.GeometryFlags, modeS, ratioS, q0S, holesS, holeTS string) error {
+func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.WallFlags, geo *cmdutil.GeometryFlags, modeS, ratioS, q0S, holesS, holeTS string) error {
 	wallGiven := walls.Given()
 	opts.Cavities = changed("mode") || wallGiven || changed("fill") || changed("ratio") || changed("holes")
 	if q0S != "" {
@@ -384,7 +401,7 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 	if !wallGiven {
 		for _, fl := range []string{"end-wall", "end-wall-a", "end-wall-b", "temperature", "roughness", "roughness-model", "plating", "plating-thickness", "superconducting", "residual"} {
 			if changed(fl) {
-				return cmdutil.Usagef("--%s describes the cavity walls; give --wall too (e.g. --wall copper)", fl)
+				return cmdutil.Usagef("--%s describes the cavity walls; %s", fl, wallHint(changed))
 			}
 		}
 	}
@@ -407,13 +424,13 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 	}
 	// --fill given empty counts as absent (vacuum), as this command's other
 	// string flags do.
-	opts.Fill = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
+	opts.Fill = physics.Medium{}
 	if geo.Text("fill") != "" {
-		d, err := geo.Dielectric()
+		f, err := geo.Fill()
 		if err != nil {
 			return err
 		}
-		opts.Fill = d
+		opts.Fill = f
 	}
 	if ratioS != "" {
 		r, err := cmdutil.Number("ratio", ratioS, cavity.MinDesignRatio, cavity.MaxDesignRatio)
@@ -423,7 +440,7 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 		opts.Ratio = r
 	}
 	if wallGiven {
-		s, err := walls.Surfaces()
+		s, err := walls.Walls()
 		if err != nil {
 			return err
 		}
@@ -448,6 +465,17 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 	return nil
 }
 
+// wallHint advises the --wall a wall flag needs, one that the wall flags
+// given accept: the superconducting model (--superconducting, --residual)
+// is niobium's and needs a temperature, so those flags get niobium; the
+// others a normal metal.
+func wallHint(changed func(string) bool) string {
+	if changed("superconducting") || changed("residual") {
+		return "give --wall niobium too, the only superconducting wall modelled (e.g. --wall niobium --superconducting --temperature 2K)"
+	}
+	return "give --wall too (e.g. --wall copper)"
+}
+
 // parseOutput validates --span, --points, --touchstone, --plot and --dpi.
 func (opts *Options) parseOutput(spanS string) error {
 	t := strings.TrimSpace(spanS)
@@ -464,14 +492,14 @@ func (opts *Options) parseOutput(spanS string) error {
 		return cmdutil.FlagError("touchstone", opts.Touchstone, errors.New("a two-port Touchstone file name must end in .s2p"))
 	}
 	if opts.Plot != "" {
-		f, err := modechart.FormatOf(opts.Plot)
+		f, err := figure.FormatOf(opts.Plot)
 		if err != nil {
 			return cmdutil.FlagError("plot", opts.Plot, errors.New("the file name must end in .png, .svg or .pdf"))
 		}
 		opts.PlotFormat = f
 	}
-	if opts.DPI < modechart.MinDPI || opts.DPI > modechart.MaxDPI {
-		return cmdutil.FlagError("dpi", strconv.Itoa(opts.DPI), fmt.Errorf("must be between %d and %d", modechart.MinDPI, modechart.MaxDPI))
+	if opts.DPI < figure.MinDPI || opts.DPI > figure.MaxDPI {
+		return cmdutil.FlagError("dpi", strconv.Itoa(opts.DPI), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
 	}
 	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
 		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)

@@ -1,10 +1,13 @@
 // Package report implements `cylcav report`: the datasheet of a cavity
 // design as one self-contained HTML file (tables and inline SVG charts,
-// printable to PDF from a browser), and optionally a PDF datasheet.
+// printable to PDF from a browser), and optionally a PDF datasheet. The
+// datasheet is assembled and rendered by library package datasheet; this
+// command parses the flags and writes the files.
 //
-// It takes the same flags as `cylcav design` and solves the same problem
-// through the same library call (design.Scenario.Run); with none of them it
-// reports the built-in demo scenario (design.Demo).
+// It takes the same flags as `cylcav design` (cmdutil.ScenarioFlags) and
+// solves the same problem through the same library call
+// (design.Scenario.Run); with none of them it reports the built-in demo
+// scenario (design.Demo).
 package report
 
 import (
@@ -13,30 +16,28 @@ import (
 	"strings"
 
 	"github.com/spf13/cobra"
-	"github.com/spf13/pflag"
 
-	"cylcav/cmd/cylcav/internal/cmd/design"
 	"cylcav/cmd/cylcav/internal/cmdutil"
-	"cylcav/modechart"
+	"cylcav/datasheet"
+	"cylcav/design"
+	"cylcav/figure"
 )
 
 // Options are the parsed flags of `cylcav report`.
 type Options struct {
 	IO *cmdutil.IOStreams
-	// Scenario is the design problem, parsed by the design command.
+	// Scenario is the design problem, parsed from the design flags.
 	Scenario design.Scenario
 	// Output is the HTML file; PDF, when not empty, the PDF datasheet.
 	Output, PDF string
 	Force       bool
 }
 
-// ownFlags are report's flags that are not design's.
-var ownFlags = map[string]bool{"output": true, "pdf": true, "force": true}
-
 // NewCmdReport returns `cylcav report`. runF, if not nil, replaces the
 // command's work (tests use it to inspect the parsed options).
 func NewCmdReport(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
+	var scenario *cmdutil.ScenarioFlags
 	cmd := &cobra.Command{
 		Use:   "report [design flags] -o FILE.html [--pdf FILE.pdf] [--force]",
 		Short: "Write the datasheet of a design: one HTML file with charts (demo with no design flags)",
@@ -75,7 +76,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.PDF != "" && !strings.HasSuffix(strings.ToLower(opts.PDF), ".pdf") {
 				return cmdutil.FlagError("pdf", opts.PDF, fmt.Errorf("end the file name in .pdf"))
 			}
-			sc, err := parseDesignFlags(ios, cmd.Flags())
+			sc, err := scenario.Scenario()
 			if err != nil {
 				return err
 			}
@@ -86,81 +87,41 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			return runReport(opts)
 		},
 	}
-	// The design command's flags, defined by the design command itself, so
-	// the two stay the same; --format is design's output format and has no
-	// meaning here.
-	cmd.Flags().AddFlagSet(designFlags(ios))
+	// The design command's flags, defined in one place for both commands;
+	// design's --format has no meaning here.
+	scenario = cmdutil.AddScenarioFlags(cmd)
 	cmd.Flags().StringVarP(&opts.Output, "output", "o", "", "HTML datasheet to write (.html)")
 	cmd.Flags().StringVar(&opts.PDF, "pdf", "", "also write a PDF datasheet (.pdf)")
 	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace existing files")
 	return cmd
 }
 
-// designFlags returns the flags of `cylcav design` except --format.
-func designFlags(ios *cmdutil.IOStreams) *pflag.FlagSet {
-	d := design.NewCmdDesign(ios, nil)
-	fs := pflag.NewFlagSet("design", pflag.ContinueOnError)
-	d.Flags().VisitAll(func(f *pflag.Flag) {
-		if f.Name != "format" {
-			fs.AddFlag(f)
-		}
-	})
-	return fs
-}
-
-// parseDesignFlags hands the design flags given to report to a fresh design
-// command, whose own parsing and validation produce the scenario (the demo
-// scenario when none is given).
-func parseDesignFlags(ios *cmdutil.IOStreams, given *pflag.FlagSet) (design.Scenario, error) {
-	var args []string
-	given.Visit(func(f *pflag.Flag) {
-		if !ownFlags[f.Name] {
-			args = append(args, "--"+f.Name+"="+f.Value.String())
-		}
-	})
-	var sc design.Scenario
-	d := design.NewCmdDesign(ios, func(o *design.Options) error {
-		sc = o.Scenario
-		return nil
-	})
-	if err := d.ParseFlags(args); err != nil {
-		return sc, cmdutil.Usagef("%v", err)
-	}
-	if err := d.RunE(d, nil); err != nil {
-		return sc, err
-	}
-	return sc, nil
-}
-
 func runReport(opts *Options) error {
-	r, err := opts.Scenario.RunWithProgress(opts.IO)
+	r, err := cmdutil.RunScenario(opts.IO, opts.Scenario)
 	if err != nil {
 		return err // an impossible design exits with status 1
 	}
-	sh, err := build(r, modechart.DefaultTheme())
+	sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
 	if err != nil {
 		return err
 	}
-	html, err := sh.HTML()
-	if err != nil {
+	sh.Version = cmdutil.Version
+	var html, pdf bytes.Buffer
+	if err := sh.WriteHTML(&html); err != nil {
 		return err
 	}
-	var pdf []byte
 	if opts.PDF != "" {
-		if pdf, err = sh.PDF(); err != nil {
+		if err := sh.WritePDF(&pdf); err != nil {
 			return err
 		}
 	}
 	// Both files are rendered before either is written, so a failure
 	// leaves neither behind.
-	if err := cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
-		_, err := b.Write(html)
-		return err
-	}); err != nil {
+	if err := cmdutil.WriteFileAtomic(opts.Output, html.Bytes(), opts.Force); err != nil {
 		return err
 	}
 	if opts.PDF != "" {
-		if err := cmdutil.WriteFileAtomic(opts.PDF, pdf, opts.Force); err != nil {
+		if err := cmdutil.WriteFileAtomic(opts.PDF, pdf.Bytes(), opts.Force); err != nil {
 			return err
 		}
 	}

@@ -11,10 +11,6 @@ import (
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
-// Version is the release version; builds from a checkout report "devel"
-// with the VCS revision when the Go toolchain recorded one.
-const Version = "0.1.0"
-
 // NewCmdVersion returns `cylcav version`.
 func NewCmdVersion(io *cmdutil.IOStreams) *cobra.Command {
 	return &cobra.Command{
@@ -31,7 +27,7 @@ func NewCmdVersion(io *cmdutil.IOStreams) *cobra.Command {
 					}
 				}
 			}
-			_, err := fmt.Fprintf(io.Out, "cylcav %s%s (%s %s/%s)\n", Version, rev, runtime.Version(), runtime.GOOS, runtime.GOARCH)
+			_, err := fmt.Fprintf(io.Out, "cylcav %s%s (%s %s/%s)\n", cmdutil.Version, rev, runtime.Version(), runtime.GOOS, runtime.GOARCH)
 			return err
 		},
 	}

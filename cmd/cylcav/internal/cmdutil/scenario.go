@@ -1,0 +1,262 @@
+package cmdutil
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
+
+	"cylcav/cavity"
+	"cylcav/design"
+	"cylcav/physics"
+)
+
+// ScenarioFlags are the flags of a single-cavity design request, shared by
+// `cylcav design` and `cylcav report` so the two read them alike.
+type ScenarioFlags struct {
+	flags *pflag.FlagSet
+	geo   *GeometryFlags
+	names map[string]bool
+
+	mode, freq, wall, ratioRange, objective, minClear, minQ      string
+	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
+	tolDist                                                      string
+	samples                                                      int
+	seed                                                         uint64
+	countDeg                                                     bool
+}
+
+// AddScenarioFlags defines the design-request flags on cmd.
+func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
+	f := cmd.Flags()
+	sf := &ScenarioFlags{flags: f, names: map[string]bool{}}
+	before := map[string]bool{}
+	f.VisitAll(func(fl *pflag.Flag) { before[fl.Name] = true })
+	f.StringVar(&sf.mode, "mode", "", "wanted mode, e.g. TE011")
+	f.StringVar(&sf.freq, "freq", "", "wanted frequency, e.g. 10GHz")
+	sf.geo = AddGeometryFlags(cmd, Geometry{
+		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
+	})
+	f.StringVar(&sf.wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
+	f.StringVar(&sf.ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
+	f.StringVar(&sf.objective, "objective", "clearance", "what to maximise: clearance|q")
+	f.StringVar(&sf.minClear, "min-clearance", "", "least clearance, e.g. 3% (required with --objective q)")
+	f.StringVar(&sf.minQ, "min-q", "", "least unloaded Q0 (needs --wall)")
+	f.StringVar(&sf.maxD, "max-diameter", "", "largest allowed inside diameter")
+	f.StringVar(&sf.maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
+	f.StringVar(&sf.tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
+	f.StringVar(&sf.temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C (design frequency at the middle)")
+	f.StringVar(&sf.alphaSide, "alpha-side", "", "expansion coefficient of the side wall (default: the wall metal's), e.g. 23ppm")
+	f.StringVar(&sf.alphaAxial, "alpha-axial", "", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm")
+	f.StringVar(&sf.tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
+	f.StringVar(&sf.tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
+	f.StringVar(&sf.tolDist, "tolerance-dist", "normal", "distribution of machining errors: normal (tolerance = 3 sigma) | uniform")
+	f.IntVar(&sf.samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
+	f.Uint64Var(&sf.seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
+	f.BoolVar(&sf.countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	f.VisitAll(func(fl *pflag.Flag) {
+		if !before[fl.Name] {
+			sf.names[fl.Name] = true
+		}
+	})
+	return sf
+}
+
+// Scenario returns the design request the flags give: the built-in demo
+// scenario (design.Demo) when none of them is given, else the scenario
+// they describe, validated (bad values are UsageErrors naming the flag).
+func (sf *ScenarioFlags) Scenario() (design.Scenario, error) {
+	demo := true
+	sf.flags.Visit(func(f *pflag.Flag) {
+		if sf.names[f.Name] {
+			demo = false
+		}
+	})
+	if demo {
+		return design.Demo()
+	}
+	return sf.parse()
+}
+
+func (sf *ScenarioFlags) parse() (design.Scenario, error) {
+	var s design.Scenario
+	sp := &s.Spec
+	// A flag given with an empty value is an error below, never "absent".
+	set := sf.flags.Changed
+	if !set("mode") || !set("freq") {
+		return s, Usagef("design needs --mode and --freq (or no flags at all for the demo scenario)")
+	}
+	var err error
+	if sp.Mode, err = cavity.ParseMode(sf.mode); err != nil {
+		return s, FlagError("mode", sf.mode, err)
+	}
+	if sp.Frequency, err = Frequency("freq", sf.freq, 1e3, 1e15); err != nil {
+		return s, err
+	}
+	if s.Fill, err = sf.geo.Dielectric(); err != nil {
+		return s, err
+	}
+	sp.Fill = s.Fill.Medium
+	if set("wall") {
+		c, err := physics.ParseConductor(sf.wall)
+		if err != nil {
+			return s, FlagError("wall", sf.wall, err)
+		}
+		s.Wall = &c
+	}
+	lo, hi, err := physics.ParseRange(sf.ratioRange, physics.ParseNumber)
+	if err != nil {
+		return s, FlagError("ratio-range", sf.ratioRange, err)
+	}
+	if !(lo >= cavity.MinDesignRatio && hi <= cavity.MaxDesignRatio) {
+		return s, FlagError("ratio-range", sf.ratioRange, fmt.Errorf("both ends must be between %g and %g", cavity.MinDesignRatio, cavity.MaxDesignRatio))
+	}
+	sp.RatioMin, sp.RatioMax = lo, hi
+	switch sf.objective {
+	case "clearance":
+		sp.Objective = cavity.MaxClearance
+	case "q":
+		sp.Objective = cavity.MaxQ
+	default:
+		return s, FlagError("objective", sf.objective, fmt.Errorf("unknown objective; use clearance|q"))
+	}
+	if set("min-clearance") {
+		if sp.MinClearance, err = fraction("min-clearance", sf.minClear, 0, 1); err != nil {
+			return s, err
+		}
+	}
+	if sp.Objective == cavity.MaxQ {
+		if s.Wall == nil {
+			return s, Usagef("--objective q needs --wall (the wall metal sets Q0)")
+		}
+		if !set("min-clearance") {
+			return s, Usagef("--objective q needs --min-clearance (the clearance Q0 may not go below)")
+		}
+	}
+	if set("min-q") {
+		if sp.MinQ, err = Number("min-q", sf.minQ, 1, 1e12); err != nil {
+			return s, err
+		}
+		if s.Wall == nil {
+			return s, Usagef("--min-q needs --wall (the wall metal sets Q0)")
+		}
+	}
+	if set("max-diameter") {
+		if sp.MaxDiameter, err = Length("max-diameter", sf.maxD, cavity.MinSize, cavity.MaxSize); err != nil {
+			return s, err
+		}
+	}
+	if set("max-length") {
+		if sp.MaxLength, err = Length("max-length", sf.maxL, cavity.MinSize, cavity.MaxSize); err != nil {
+			return s, err
+		}
+	}
+	if set("tuning") {
+		if sp.Tuning, err = fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
+			return s, err
+		}
+		if sp.Tuning > 0 && sp.Mode.P == 0 {
+			return s, FlagError("tuning", sf.tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
+		}
+	}
+	th := &sp.Thermal
+	if s.Wall != nil {
+		th.AlphaRadial, th.AlphaAxial = s.Wall.Expansion, s.Wall.Expansion
+	}
+	if set("alpha-side") {
+		if th.AlphaRadial, err = coefficient("alpha-side", sf.alphaSide); err != nil {
+			return s, err
+		}
+		th.AlphaAxial = th.AlphaRadial
+	}
+	if set("alpha-axial") {
+		if th.AlphaAxial, err = coefficient("alpha-axial", sf.alphaAxial); err != nil {
+			return s, err
+		}
+	}
+	if s.Fill.TCEpsKnown {
+		th.TauEps = s.Fill.TCEps
+	}
+	if set("temp") {
+		tlo, thi, err := physics.ParseRange(sf.temp, physics.ParseTemperature)
+		if err != nil {
+			return s, FlagError("temp", sf.temp, err)
+		}
+		if !(tlo >= 1 && thi <= 3000) {
+			return s, FlagError("temp", sf.temp, fmt.Errorf("both ends must be between 1 K and 3000 K"))
+		}
+		th.TMin, th.TMax = tlo, thi
+		s.TempGiven = true
+	}
+	if err := th.Validate(); err != nil {
+		return s, Usagef("%v", err)
+	}
+	if set("tolerance") || set("tolerance-length") {
+		t := &s.Settings.Tolerance
+		if set("tolerance") {
+			if t.Diameter, err = Length("tolerance", sf.tol, 0, 1); err != nil {
+				return s, err
+			}
+			t.Length = t.Diameter
+		}
+		if set("tolerance-length") {
+			if t.Length, err = Length("tolerance-length", sf.tolLen, 0, 1); err != nil {
+				return s, err
+			}
+		}
+		switch sf.tolDist {
+		case "normal":
+			t.Distribution = cavity.Normal
+		case "uniform":
+			t.Distribution = cavity.Uniform
+		default:
+			return s, FlagError("tolerance-dist", sf.tolDist, fmt.Errorf("unknown distribution; use normal|uniform"))
+		}
+		if sf.samples < 1 || sf.samples > cavity.MaxSamples {
+			return s, FlagError("samples", strconv.Itoa(sf.samples), fmt.Errorf("must be between 1 and %d", cavity.MaxSamples))
+		}
+		t.Samples, t.Seed = sf.samples, sf.seed
+	}
+	sp.CountDegenerate = sf.countDeg
+	return s, nil
+}
+
+func fraction(flag, value string, lo, hi float64) (float64, error) {
+	v, err := physics.ParseFraction(value)
+	if err != nil {
+		return 0, FlagError(flag, value, err)
+	}
+	if !(v >= lo && v <= hi) {
+		return 0, FlagError(flag, value, fmt.Errorf("must be between %g%% and %g%%", 100*lo, 100*hi))
+	}
+	return v, nil
+}
+
+func coefficient(flag, value string) (float64, error) {
+	v, err := physics.ParseCoefficient(value)
+	if err != nil {
+		return 0, FlagError(flag, value, err)
+	}
+	if !(math.Abs(v) <= 1e-3) {
+		return 0, FlagError(flag, value, fmt.Errorf("must be within +-1000 ppm/K"))
+	}
+	return v, nil
+}
+
+// progressSamples is the least number of Monte Carlo samples for which
+// RunScenario shows a progress bar.
+const progressSamples = 100000
+
+// RunScenario solves s as design.Scenario.Run does, with a progress bar on
+// io's error stream while a long tolerance analysis (progressSamples or
+// more samples) runs; the bar shows on a terminal only.
+func RunScenario(io *IOStreams, s design.Scenario) (design.Result, error) {
+	if s.Settings.Tolerance.Samples < progressSamples {
+		return s.Run(nil)
+	}
+	bar := NewProgress(io, "tolerance analysis")
+	defer bar.Done()
+	return s.Run(bar.Update)
+}

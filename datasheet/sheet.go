@@ -1,0 +1,538 @@
+package datasheet
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"gonum.org/v1/plot/vg"
+
+	"cylcav/cavity"
+	"cylcav/design"
+	"cylcav/figure"
+	"cylcav/modechart"
+	"cylcav/physics"
+)
+
+// Sheet is the content of a datasheet, formatted for people: every number
+// is already a string with its unit. HTML and PDF render the same Sheet.
+type Sheet struct {
+	// Version is the cylcav version written into the files.
+	Version  string
+	Title    string
+	Demo     bool   // the built-in demo scenario
+	Headline string // one line: mode, frequency, D and L
+	Facts    []KV   // the key figures at the top
+
+	Dimensions Table
+	Modes      Table // modes near the band
+	ModesNote  string
+	Q          Table
+	QNote      string
+	Clearance  Table
+	Sensitive  Table
+	Spread     Table
+	Tuning     Table
+	Materials  []Material
+	Cautions   []string // from the design
+	Safety     []string // always printed
+	Convention string
+
+	Charts []Chart
+}
+
+// KV is a labelled value.
+type KV struct{ Key, Value string }
+
+// Table is a captioned table of strings.
+type Table struct {
+	Caption string
+	Header  []string
+	Rows    [][]string
+	// Emph marks rows to emphasise (the wanted mode).
+	Emph []bool
+	// Num marks columns of numbers, set right-aligned.
+	Num []bool
+}
+
+// IsNum reports whether column j holds numbers.
+func (t Table) IsNum(j int) bool { return j < len(t.Num) && t.Num[j] }
+
+func (t *Table) add(emph bool, cells ...string) {
+	t.Rows = append(t.Rows, cells)
+	t.Emph = append(t.Emph, emph)
+}
+
+// Material is a material and where its values come from.
+type Material struct {
+	Role, Name, Description string
+	Values                  []KV
+	Source, Note            string
+}
+
+// Chart is one figure of the datasheet, rendered from its figure in each
+// output format.
+type Chart struct {
+	ID, Title, Caption string
+	Figure             *figure.Figure
+	Page               figure.Page
+}
+
+// modeWindow is the half-width of the band of the mode table and the
+// Q-versus-frequency chart, as a fraction of the design frequency.
+const modeWindow = 0.25
+
+// FromDesign assembles the datasheet of a single-cavity design result,
+// drawing its charts in theme th.
+func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
+	d := r.Design
+	spec := d.Spec
+	c := d.Cavity
+	w := spec.Mode
+	f0 := c.Frequency(w)
+	sh := &Sheet{Title: "Cavity datasheet: " + w.String() + " at " + freq(spec.Frequency), Demo: r.Scenario.Title != ""}
+	if sh.Demo {
+		sh.Title = r.Scenario.Title
+	}
+	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s", w, freq(spec.Frequency),
+		length(c.Diameter()), length(c.Length))
+	sh.Convention = "Modes are named TE_nmp and TM_nmp: n is the azimuthal index (fields vary as cos nφ or sin nφ), " +
+		"m the radial index (the m-th zero of J'_n for TE, of J_n for TM), p the axial index (half-wavelengths along the length; " +
+		"p ≥ 1 for TE, p ≥ 0 for TM). TE0mp and TM1mp resonate at exactly the same frequency in every cylinder."
+
+	// Key facts.
+	sh.Facts = []KV{
+		{"Wanted mode", w.String()},
+		{"Frequency", freq(f0)},
+		{"Diameter D", length(c.Diameter())},
+		{"Length L", length(c.Length)},
+		{"D/L", strconv.FormatFloat(d.Ratio, 'f', 4, 64)},
+		{"Clearance", pct(d.Clearance.Value) + " (" + d.Clearance.Limiting.String() + ")"},
+	}
+	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
+		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", fmt.Sprintf("%.0f", d.Q0)})
+	}
+
+	// Dimensions and tolerances.
+	dim := Table{Caption: "Dimensions and tolerances (inside surfaces)", Header: []string{"Quantity", "Value", "Note"}}
+	edge := "interior optimum"
+	if d.AtRangeEdge {
+		edge = fmt.Sprintf("on the edge of the allowed range (%s)", d.Limit)
+	} else if d.Limit != cavity.NoLimit {
+		edge = fmt.Sprintf("held by the %s constraint", d.Limit)
+	}
+	tol := r.Analysis.Settings.Tolerance
+	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
+	dim.add(false, "Radius a", length(c.Radius), "")
+	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
+	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
+	if spec.Tuning > 0 {
+		dim.add(false, "Length at f (1 − tuning)", length(r.Analysis.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
+		dim.add(false, "Length at f (1 + tuning)", length(r.Analysis.TunedLength[1]), "")
+	}
+	fill := r.Scenario.Fill
+	dim.add(false, "Fill", spec.Fill.Label(), fmt.Sprintf("εr = %.6g, μr = %.6g", spec.Fill.Eps(), spec.Fill.Mu()))
+	sh.Dimensions = dim
+
+	// Modes near the band, with Q0 where a wall is known.
+	cl, err := c.Clearance(w, cavity.ClearanceOptions{Window: modeWindow, CountDegenerate: spec.CountDegenerate})
+	if err != nil {
+		return nil, err
+	}
+	var qOf func(m cavity.Mode) (float64, error)
+	if r.Scenario.Wall != nil {
+		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall)(c) }
+	}
+	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
+		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},
+		Num:    []bool{false, true, true, true, true, false}}
+	type entry struct {
+		m       cavity.Mode
+		f       float64
+		wanted  bool
+		comment string
+	}
+	var entries []entry
+	for _, nb := range cl.InWindow {
+		entries = append(entries, entry{m: nb.Mode, f: nb.Frequency})
+	}
+	entries = append(entries, entry{m: w, f: f0, wanted: true, comment: "wanted"})
+	for _, m := range cl.Degenerate {
+		if !spec.CountDegenerate {
+			entries = append(entries, entry{m: m, f: c.Frequency(m), comment: "exact companion: suppress by other means"})
+		}
+	}
+	// Sort by frequency, the wanted mode before its companion.
+	for i := 1; i < len(entries); i++ {
+		for j := i; j > 0 && (entries[j].f < entries[j-1].f || (entries[j].f == entries[j-1].f && entries[j].wanted)); j-- {
+			entries[j], entries[j-1] = entries[j-1], entries[j]
+		}
+	}
+	var qpts []modechart.ModeQ
+	for _, e := range entries {
+		note := e.comment
+		if e.m == cl.Limiting && !e.wanted {
+			note = "sets the clearance"
+		} else if cl.Below != nil && e.m == cl.Below.Mode && note == "" {
+			note = "nearest below"
+		} else if cl.Above != nil && e.m == cl.Above.Mode && note == "" {
+			note = "nearest above"
+		}
+		q := "–"
+		if qOf != nil {
+			v, err := qOf(e.m)
+			if err != nil {
+				return nil, err
+			}
+			q = fmt.Sprintf("%.0f", v)
+			qpts = append(qpts, modechart.ModeQ{Mode: e.m, Frequency: e.f, Q0: v, Wanted: e.wanted})
+		}
+		off := e.f - f0
+		mt.add(e.wanted, e.m.String(), freq(e.f), signedFreq(off), signedPct(off/f0), q, note)
+	}
+	sh.Modes = mt
+	sh.ModesNote = "Each mode with n ≥ 1 has two polarisations (cos nφ and sin nφ) at the same frequency."
+
+	// Q0 breakdown.
+	if u := r.Unloaded; u != nil {
+		wall := r.Scenario.Wall
+		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at 20 °C, smooth surfaces)", w, wall.Name),
+			Header: []string{"Part", "Surface resistance", "Partial Q", "Share of loss"},
+			Num:    []bool{false, true, true, true}}
+		q.add(false, "Side wall", ohm(u.Wall.Rs.Side), qText(u.Wall.QSide), pct(u.Share.Side))
+		q.add(false, "End plate A", ohm(u.Wall.Rs.EndA), qText(u.Wall.QEndA), pct(u.Share.EndA))
+		q.add(false, "End plate B", ohm(u.Wall.Rs.EndB), qText(u.Wall.QEndB), pct(u.Share.EndB))
+		q.add(false, "Walls together", "", qText(u.Wall.QWall), pct(u.Share.Side+u.Share.EndA+u.Share.EndB))
+		q.add(false, "Fill ("+spec.Fill.Label()+")", "", qText(u.QFill), pct(u.Share.Fill))
+		q.add(true, "Unloaded Q0", "", qText(u.Q0), "100 %")
+		sh.Q = q
+		sh.QNote = "1/Q0 = 1/Q_wall + 1/Q_fill. Real surfaces (roughness, joints, plating) give less: allow 10–30 % below the smooth-wall figure (common practice)."
+	}
+
+	// Clearance.
+	ct := Table{Caption: "Spurious-mode clearance (smallest |f_i − f_w| / f_w over every other mode)", Header: []string{"Quantity", "Value"}}
+	ct.add(true, "Clearance at the nominal size", pct(d.Clearance.Value)+", set by "+d.Clearance.Limiting.String())
+	if cl.Below != nil {
+		ct.add(false, "Nearest below", fmt.Sprintf("%v at %s (%s)", cl.Below.Mode, freq(cl.Below.Frequency), signedPct(cl.Below.Relative)))
+	}
+	if cl.Above != nil {
+		ct.add(false, "Nearest above", fmt.Sprintf("%v at %s (%s)", cl.Above.Mode, freq(cl.Above.Frequency), signedPct(cl.Above.Relative)))
+	}
+	ct.add(false, "Spurious-free window", freq(cl.FreeLow)+" .. "+freq(cl.FreeHigh))
+	if spec.Tuning > 0 || r.Scenario.TempGiven {
+		ct.add(false, "Worst over tuning and temperature", pct(d.WorstClearance)+", set by "+d.WorstMode.String())
+	}
+	if spec.MinClearance > 0 {
+		ct.add(false, "Required", pct(spec.MinClearance))
+	}
+	for _, m := range cl.Degenerate {
+		ct.add(false, "Exact companion", m.String()+" (not counted; needs a mode trap, a plunger gap or coupling on its field nulls)")
+	}
+	sh.Clearance = ct
+
+	// Sensitivities and thermal drift.
+	s := r.Analysis.Sensitivity
+	st := Table{Caption: "Sensitivities of the wanted frequency", Header: []string{"Quantity", "Value"}}
+	st.add(false, "df/dD", signedFreq(s.DfDD*1e-3)+" per mm")
+	st.add(false, "df/dL", signedFreq(s.DfDL*1e-3)+" per mm")
+	st.add(false, "Axial share s = (β/k)²", fmt.Sprintf("%.4f", s.AxialShare))
+	st.add(false, "df/dT", fmt.Sprintf("%s per K (%s ppm/K)", signedFreq(s.DfDT), minus(fmt.Sprintf("%.4g", 1e6*s.TempCoeff))))
+	if r.Scenario.TempGiven {
+		th := spec.Thermal
+		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
+		st.add(false, "Expansion: side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
+		st.add(false, "Drift at the range ends", signedFreq(r.Analysis.Drift[0])+" / "+signedFreq(r.Analysis.Drift[1]))
+	}
+	sh.Sensitive = st
+
+	// Tolerance spread.
+	if sp := r.Analysis.Spread; sp != nil {
+		dist := "uniform"
+		if tol.Distribution == cavity.Normal {
+			sig := tol.Sigmas
+			if sig == 0 {
+				sig = cavity.DefaultSigmas
+			}
+			dist = fmt.Sprintf("normal, tolerance = %g σ", sig)
+		}
+		t := Table{Caption: fmt.Sprintf("Machining tolerance: Monte Carlo, %d samples, seed %d (%s)", sp.Samples, tol.Seed, dist),
+			Header: []string{"Quantity", "Value"}}
+		t.add(false, "Tolerances", "D "+tolText(tol.Diameter)+", L "+tolText(tol.Length))
+		t.add(false, "Mean frequency", freq(sp.Mean))
+		t.add(false, "Standard deviation", physics.FormatFrequency(sp.Std, 4)+" (linearised "+physics.FormatFrequency(sp.LinearStd, 4)+")")
+		t.add(false, "1st .. 99th percentile", freq(sp.P01)+" .. "+freq(sp.P99))
+		t.add(true, "Worst clearance among the samples", pct(sp.WorstClearance)+", set by "+sp.WorstMode.String())
+		sh.Spread = t
+	}
+
+	// Tuning curve: over the tuning range widened by half, or L ± 5 %.
+	lLo, lHi := 0.95*c.Length, 1.05*c.Length
+	if spec.Tuning > 0 {
+		a, b := math.Min(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1]), math.Max(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1])
+		lLo, lHi = a-0.25*(b-a), b+0.25*(b-a)
+	}
+	tc, err := c.Tune(w, lLo, lHi, 120, spec.CountDegenerate)
+	if err != nil {
+		return nil, err
+	}
+	tt := Table{Caption: fmt.Sprintf("Tuning by one end plate (diameter fixed); worst clearance on the range %s at L = %s (%v)",
+		pct(tc.Worst), length(tc.WorstLength), tc.WorstMode),
+		Header: []string{"Length L", "Frequency", "df/dL", "Clearance", "Set by"},
+		Num:    []bool{true, true, true, true, false}}
+	for i := 0; i < len(tc.Points); i += 15 {
+		p := tc.Points[i]
+		tt.add(false, length(p.Length), freq(p.Frequency), signedFreq(p.DfDL*1e-3)+"/mm", pct(p.Clearance), p.Limiting.String())
+	}
+	for _, x := range tc.Crossings {
+		tt.add(true, length(x.Length), freq(x.Frequency), "", "0 %", "crossed by "+x.Mode.String())
+	}
+	sh.Tuning = tt
+
+	// Materials.
+	if wall := r.Scenario.Wall; wall != nil {
+		m := Material{Role: "Wall metal", Name: wall.Name, Description: wall.Description, Source: wall.Source, Note: wall.Note}
+		m.Values = append(m.Values, KV{"Conductivity at 20 °C", fmt.Sprintf("%.4g MS/m (%.1f %% IACS)", wall.Conductivity/1e6, 100*wall.IACS())})
+		if wall.Expansion != 0 {
+			m.Values = append(m.Values, KV{"Expansion", fmt.Sprintf("%.3g ppm/K", 1e6*wall.Expansion)})
+		}
+		sh.Materials = append(sh.Materials, m)
+	}
+	{
+		m := Material{Role: "Fill", Name: spec.Fill.Label(), Description: fill.Description, Source: fill.Source, Note: fill.Note}
+		m.Values = append(m.Values, KV{"Relative permittivity", fmt.Sprintf("%.6g", spec.Fill.Eps())})
+		td := fmt.Sprintf("%.3g", spec.Fill.TanDelta)
+		if spec.Fill.TanDeltaFreq > 0 {
+			td += " at " + freq(spec.Fill.TanDeltaFreq)
+		}
+		m.Values = append(m.Values, KV{"Loss tangent", td})
+		if spec.Fill.TCEpsKnown {
+			m.Values = append(m.Values, KV{"Temperature coefficient of εr", minus(fmt.Sprintf("%.4g ppm/K", 1e6*spec.Fill.TCEps))})
+		}
+		sh.Materials = append(sh.Materials, m)
+	}
+	if r.Scenario.TempGiven {
+		th := spec.Thermal
+		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients used",
+			Values: []KV{{"Side wall (sets D)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaRadial)}, {"Length (end spacers)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaAxial)}},
+			Source: "from the materials above or the --alpha-side / --alpha-axial flags"})
+	}
+
+	sh.Cautions = r.Cautions
+	sh.Safety = safety
+
+	// Charts.
+	if err := sh.addCharts(r, th, tc, qpts); err != nil {
+		return nil, err
+	}
+	return sh, nil
+}
+
+// safety are the cautions every datasheet carries.
+var safety = []string{
+	"High RF power: a resonant cavity multiplies the incident power into strong fields. Keep covers, couplings and tuners fitted while power is applied; RF burns are deep and are not felt at once. Keep exposure within the limits of the applicable RF-exposure rules and check leakage at joints and tuning screws.",
+	"High voltage: the transmitters, amplifiers and power supplies that feed a cavity carry lethal voltages; only qualified people may open or adjust them.",
+	"Breakdown and multipaction: the peak fields of a high-Q cavity can arc in air or multipact in vacuum, damaging surfaces and detuning the cavity. Derate the input power, keep surfaces clean and dry, and condition vacuum cavities gradually.",
+	"Cryogenics: cooled cavities bring cold burns, embrittlement and asphyxiation from boil-off gas; follow cryogen-handling practice and ventilate.",
+	"This datasheet is a design aid, not a safety assessment: defer to local codes, the equipment maker's instructions and licensed practice.",
+}
+
+// addCharts renders the four figures of the datasheet.
+func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
+	d := r.Design
+	spec := d.Spec
+	c := d.Cavity
+	page := figure.Page{Width: 7.5 * vg.Inch, Height: 5.6 * vg.Inch}
+
+	// Mode chart around the design, with the operating box.
+	cs := modechart.Spec{
+		Wanted: spec.Mode, Cavity: c, Tuning: spec.Tuning,
+		DiameterTol: r.Analysis.Settings.Tolerance.Diameter, LengthTol: r.Analysis.Settings.Tolerance.Length,
+		Clearance: spec.MinClearance,
+	}
+	if cs.Clearance == 0 {
+		// Without a requirement, mark the modes within the clearance the
+		// design achieves along its path.
+		cs.Clearance = d.WorstClearance * (1 + 1e-6)
+	}
+	if !(cs.Clearance > 0 && cs.Clearance < 1) {
+		cs.Clearance = 0
+	}
+	// The chart spans the allowed range and the whole operating box (the
+	// tuned lengths, widened by the tolerances) with a margin.
+	rLo, rHi := d.Ratio, d.Ratio
+	for _, L := range r.Analysis.TunedLength {
+		if L > 0 {
+			rLo, rHi = math.Min(rLo, c.Diameter()/L), math.Max(rHi, c.Diameter()/L)
+		}
+	}
+	cs.RatioMin = math.Max(modechart.MinRatio, math.Min(spec.RatioMin, 0.8*rLo))
+	cs.RatioMax = math.Min(modechart.MaxRatio, math.Max(spec.RatioMax, 1.25*rHi))
+	ch, err := modechart.New(cs)
+	if err != nil {
+		return err
+	}
+	fig, err := ch.Figure(th)
+	if err != nil {
+		return err
+	}
+	sh.Charts = append(sh.Charts, Chart{ID: "mode-chart", Title: "Mode chart",
+		Caption: "Every TE and TM mode as a line of (f·D)² against (D/L)². The design point sits on the wanted mode's line; the operating box spans the tuning range and the D/L tolerance.",
+		Figure:  fig, Page: page})
+
+	// Trade-off curves.
+	cv := r.Analysis.Curve
+	if len(cv.Ratio) >= 2 {
+		tf, err := modechart.TradeOffFigure(th, "Design trade-off against D/L", modechart.TradeOffCurves{
+			Ratio: cv.Ratio, Clearance: cv.Clearance, WorstClearance: cv.WorstClearance, Q0: cv.Q0,
+			Chosen: d.Ratio, MinClearance: spec.MinClearance, MinQ: spec.MinQ,
+		})
+		if err != nil {
+			return err
+		}
+		sh.Charts = append(sh.Charts, Chart{ID: "trade-off", Title: "Trade-off",
+			Caption: "Clearance and unloaded Q0 of the wanted mode over the allowed D/L range, each cavity sized for the design frequency.",
+			Figure:  tf, Page: page})
+	}
+
+	// Tuning curve with the neighbouring modes.
+	tcv := modechart.TuningCurves{Wanted: spec.Mode.String(), Design: c.Length}
+	if spec.Tuning > 0 {
+		tcv.Range = r.Analysis.TunedLength
+	}
+	others := map[cavity.Mode]bool{}
+	for _, L := range []float64{tc.Points[0].Length, tc.Points[len(tc.Points)-1].Length} {
+		cc := c
+		cc.Length = L
+		cl, err := cc.Clearance(spec.Mode, cavity.ClearanceOptions{Window: 0.12})
+		if err != nil {
+			return err
+		}
+		for _, nb := range cl.InWindow {
+			others[nb.Mode] = true
+		}
+	}
+	var names []cavity.Mode
+	for m := range others {
+		names = append(names, m)
+	}
+	sortModes(names)
+	ys := make([][]float64, len(names))
+	for _, p := range tc.Points {
+		tcv.Length = append(tcv.Length, p.Length)
+		tcv.Freq = append(tcv.Freq, p.Frequency)
+		tcv.Clearance = append(tcv.Clearance, p.Clearance)
+		cc := c
+		cc.Length = p.Length
+		for i, m := range names {
+			ys[i] = append(ys[i], cc.Frequency(m))
+		}
+	}
+	for i, m := range names {
+		tcv.Others = append(tcv.Others, modechart.Series{Name: m.String(), Y: ys[i]})
+	}
+	tf, err := modechart.TuningFigure(th, "Tuning by one end plate", tcv)
+	if err != nil {
+		return err
+	}
+	sh.Charts = append(sh.Charts, Chart{ID: "tuning", Title: "Tuning curve",
+		Caption: "Resonant frequency against the end-plate spacing, with the modes within ±12 % of the wanted one, and the clearance along the path.",
+		Figure:  tf, Page: page})
+
+	// Q0 against frequency; a single mode (one dot) is left to the table.
+	if len(qpts) > 1 {
+		qf, err := modechart.QFigure(th, "Unloaded Q0 of the modes near the band", qpts)
+		if err != nil {
+			return err
+		}
+		sh.Charts = append(sh.Charts, Chart{ID: "q-frequency", Title: "Q0 against frequency",
+			Caption: fmt.Sprintf("Unloaded Q0 of every mode within ±%s of the wanted frequency, %s walls, smooth surfaces.", short(modeWindow), r.Scenario.Wall.Name),
+			Figure:  qf, Page: figure.Page{Width: 7.5 * vg.Inch, Height: 4.2 * vg.Inch}})
+	}
+	return nil
+}
+
+func sortModes(ms []cavity.Mode) {
+	for i := 1; i < len(ms); i++ {
+		for j := i; j > 0 && less(ms[j], ms[j-1]); j-- {
+			ms[j], ms[j-1] = ms[j-1], ms[j]
+		}
+	}
+}
+
+func less(a, b cavity.Mode) bool {
+	if a.Family != b.Family {
+		return a.Family < b.Family
+	}
+	if a.N != b.N {
+		return a.N < b.N
+	}
+	if a.M != b.M {
+		return a.M < b.M
+	}
+	return a.P < b.P
+}
+
+func freq(f float64) string { return physics.FormatFrequency(f, 7) }
+
+// length prints a length for people, micrometres as µm.
+func length(m float64) string { return micro(physics.FormatLength(m, 6)) }
+
+func micro(s string) string { return strings.Replace(s, " um", " µm", 1) }
+
+// temp prints a temperature in degrees Celsius (or kelvin when cold).
+func temp(k float64) string {
+	s := physics.FormatTemperature(k, 4)
+	if strings.HasSuffix(s, " C") {
+		s = strings.TrimSuffix(s, " C") + " °C"
+	}
+	return minus(s)
+}
+
+// minus writes a leading hyphen-minus as the minus sign.
+func minus(s string) string {
+	if strings.HasPrefix(s, "-") {
+		return "−" + s[1:]
+	}
+	return s
+}
+
+func signedFreq(v float64) string {
+	if v < 0 {
+		return "−" + physics.FormatFrequency(-v, 4)
+	}
+	return "+" + physics.FormatFrequency(v, 4)
+}
+
+func signedPct(f float64) string {
+	if f < 0 {
+		return fmt.Sprintf("−%.3f %%", -100*f)
+	}
+	return fmt.Sprintf("+%.3f %%", 100*f)
+}
+
+// short prints a fraction as a percentage with up to 3 significant digits.
+func short(f float64) string { return fmt.Sprintf("%.3g %%", 100*f) }
+
+func pct(f float64) string {
+	if math.IsInf(f, 1) {
+		return "∞"
+	}
+	return fmt.Sprintf("%.3f %%", 100*f)
+}
+
+func qText(q float64) string {
+	if math.IsInf(q, 1) {
+		return "∞ (lossless)"
+	}
+	return fmt.Sprintf("%.0f", q)
+}
+
+func ohm(r float64) string { return physics.FormatSI(r, "Ω", 4) }
+
+func tolText(t float64) string {
+	if t == 0 {
+		return "no tolerance given"
+	}
+	return "±" + micro(physics.FormatLength(t, 3))
+}
