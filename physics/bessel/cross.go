@@ -173,8 +173,8 @@ func (cr *crossRoot) eval(x float64, k int) (f, f1, f2 float64) {
 	t := c * x
 	dt := math.FMA(c, x, -t) // c x = t + dt exactly
 	b1 := cr.nx.rawAt(cr.n, x)
-	p1 := b1.phase(cr.n)
-	p2 := cr.nc.phaseAt(cr.n, t, dt)
+	p1 := b1.phase(cr.n, cr.prime)
+	p2 := cr.nc.phaseAt(cr.n, t, dt, cr.prime)
 	// 2π (turns2 - turns1) - K π = π (2 Δturns - K), an exact integer
 	// multiple of π.
 	d := (p2.frac - p1.frac) + float64(2*(int(p2.turns)-int(p1.turns))-k)*math.Pi

@@ -44,6 +44,11 @@ const (
 	// exp(-arccosh(k/t)), as for logDerivative in march.go).
 	millerTail     = 40
 	millerTailCbrt = 8
+	// millerDamp shortens the tail well below the turning point: there
+	// every J_k/J_{k-1}, k > n, is below exp(-arccosh(n/t)), so a tail of
+	// millerDamp/arccosh(n/t) orders damps the start error by
+	// exp(-2 millerDamp) < 1e-17 (derived as above).
+	millerDamp = 20
 )
 
 // rawBessel holds J_n, J'_n, Y_n, Y'_n at a point t, all four multiplied
@@ -58,7 +63,8 @@ type rawBessel struct {
 
 // besselRaw returns J_n, J'_n, Y_n, Y'_n of order n >= 0 at t > 0.
 //
-// Method: J_0, J_1, Y_0, Y_1 from the math package; Y_{n-1}, Y_n by
+// Method: J_0, J_1, Y_0, Y_1 from hankel01 for t >= hankelMin, else from
+// the math package; Y_{n-1}, Y_n by
 // forward recurrence (DLMF 10.6.1), stable for Y at every t (Gautschi
 // 1967). For t >= n, J_{n-1} and J_n by forward recurrence as well (the
 // order stays below the argument, where the recurrence is neutral, as in
@@ -72,8 +78,13 @@ type rawBessel struct {
 func besselRaw(n int, t float64) rawBessel {
 	fn := float64(n)
 	r := 2 / t
-	j0, j1 := math.J0(t), math.J1(t)
-	y0, y1 := math.Y0(t), math.Y1(t)
+	var j0, j1, y0, y1 float64
+	if t >= hankelMin {
+		j0, j1, y0, y1 = hankel01(t)
+	} else {
+		j0, j1 = math.J0(t), math.J1(t)
+		y0, y1 = math.Y0(t), math.Y1(t)
+	}
 	if n == 0 {
 		// J'_0 = -J_1, Y'_0 = -Y_1 (DLMF 10.6.3).
 		return rawBessel{t: t, j: j0, dj: -j1, y: y0, dy: -y1, s: 1}
@@ -97,7 +108,11 @@ func besselRaw(n int, t float64) rawBessel {
 			e += scaleExp
 		}
 	}
-	top := n + millerTail + int(millerTailCbrt*math.Cbrt(fn))
+	tail := millerTail + int(millerTailCbrt*math.Cbrt(fn))
+	if a := math.Acosh(fn / t); a > 0 {
+		tail = min(tail, 2+int(millerDamp/a))
+	}
+	top := n + tail
 	fk1, fk := 0.0, 1.0 // f_{k+1}, f_k for k = top
 	for k := top; k >= n; k-- {
 		fk1, fk = fk, math.FMA(float64(k)*r, fk, -fk1) // f_{k-1}
@@ -120,10 +135,11 @@ func besselRaw(n int, t float64) rawBessel {
 
 // besselPhase returns the modulus-phase data of order n >= 0 at t > 0.
 func besselPhase(n int, t float64) phase {
-	return besselRaw(n, t).phase(n)
+	return besselRaw(n, t).phase(n, true)
 }
 
-// phase returns the modulus-phase data of order n from the values at t.
+// phase returns the modulus-phase data of order n from the values at t;
+// gap, dph and ddph only with prime set (the TE roots need them).
 //
 // θ is the principal value of atan2(Y_n, J_n) for t <= n, where J_n > 0
 // and Y_n < 0 (t lies below j_{n,1} and y_{n,1}, DLMF 10.21.3); for t > n
@@ -133,7 +149,7 @@ func besselPhase(n int, t float64) phase {
 // for continuity). φ - θ = atan2(2/(π t), J_n J'_n + Y_n Y'_n), with the
 // sine part exact from the Wronskian (DLMF 10.5.2). Second derivatives
 // come from Bessel's equation (DLMF 10.2.1).
-func (b rawBessel) phase(n int) phase {
+func (b rawBessel) phase(n int, prime bool) phase {
 	fn := float64(n)
 	t := b.t
 	var p phase
@@ -145,9 +161,12 @@ func (b rawBessel) phase(n int) phase {
 	w := b.s * 2 / (math.Pi * t) // J~ Y~' - J~' Y~ = 2^-2e 2/(π t)
 	mm := b.j*b.j + b.y*b.y      // M~^2 = 2^-2e M^2
 	half := b.j*b.dj + b.y*b.dy
-	p.gap = math.Atan2(w, half)
 	p.dth = w / mm // 2/(π t M^2)
 	p.ddth = -p.dth * (1/t + 2*half/mm)
+	if !prime {
+		return p
+	}
+	p.gap = math.Atan2(w, half)
 	// φ' and φ'' with N^2 and (N^2)' from J'' = -J'/t - (1 - n^2/t^2) J.
 	q := (t - fn) * (t + fn) / (t * t) // 1 - n^2/t^2
 	d2j := -b.dj/t - q*b.j
@@ -173,22 +192,28 @@ type near struct {
 	j, y  expansion
 }
 
-// nearReach bounds the step over which values come from a Taylor
-// expansion. The iteration for a root ends with steps far below it, which
-// then cost a few terms; a longer step costs as much as a full evaluation
-// (measured), so the bound is short. The step is also kept below
-// maxRatio t, inside the disc of convergence.
-const nearReach = 0x1p-4
+// nearReach and nearShare bound the step over which values come from a
+// Taylor expansion: the iteration for a root ends with steps far below
+// them, which cost a few terms, while the step from one root to the next
+// costs as much by Taylor series as by a full evaluation (measured), so
+// the bounds are short: |h| <= 1/16, |h| <= t/100 (well inside the disc of
+// convergence, |h| < t), and |h| <= t/(n+1), the scale on which J_n and
+// Y_n change below the turning point.
+const (
+	nearReach = 0x1p-4
+	nearShare = 0.01
+)
 
-// phaseAt returns the modulus-phase data of order n at t + dt, with dt a
+// phaseAt returns the modulus-phase data of order n (with the TE parts if
+// prime is set) at t + dt, with dt a
 // correction below the rounding of t, from a Taylor expansion about the
 // last full evaluation when t is within reach of it, else from a new full
 // evaluation (which becomes the base), corrected to first order in dt.
-func (nr *near) phaseAt(n int, t, dt float64) phase {
+func (nr *near) phaseAt(n int, t, dt float64, prime bool) phase {
 	if h := t - nr.b.t; nr.ok && math.Abs(h) <= nr.reach {
-		return nr.expanded(n, h+dt).phase(n)
+		return nr.expanded(n, h+dt).phase(n, prime)
 	}
-	p := nr.full(n, t).phase(n)
+	p := nr.full(n, t).phase(n, prime)
 	if dt != 0 {
 		p.frac += p.dth * dt
 		p.gap += (p.dph - p.dth) * dt
@@ -209,11 +234,12 @@ func (nr *near) rawAt(n int, t float64) rawBessel {
 func (nr *near) full(n int, t float64) rawBessel {
 	nr.b = besselRaw(n, t)
 	nr.ok = true
-	nr.reach = math.Min(nearReach, maxRatio*t)
+	nr.reach = math.Min(nearReach, math.Min(nearShare, 1/float64(n+1))*t)
 	return nr.b
 }
 
-// expanded returns the values at the base point plus h.
+// expanded returns the values at the base point plus h, or evaluates in
+// full at that point if a series did not reach its tolerance.
 func (nr *near) expanded(n int, h float64) rawBessel {
 	if h == 0 {
 		return nr.b
@@ -221,7 +247,16 @@ func (nr *near) expanded(n int, h float64) rawBessel {
 	nu2 := float64(n) * float64(n)
 	out := nr.b
 	out.t = nr.b.t + h
-	out.j, out.dj = nr.j.expand(nu2, nr.b.t, h, nr.b.j, nr.b.dj, 0)
+	// J_n underflows to 0 after scaling far below the turning point;
+	// it then stays 0.
+	jok := true
+	if nr.b.j != 0 || nr.b.dj != 0 {
+		out.j, out.dj = nr.j.expand(nu2, nr.b.t, h, nr.b.j, nr.b.dj, 0)
+		jok = nr.j.ok
+	}
 	out.y, out.dy = nr.y.expand(nu2, nr.b.t, h, nr.b.y, nr.b.dy, 0)
+	if !jok || !nr.y.ok {
+		return besselRaw(n, out.t)
+	}
 	return out
 }

@@ -8,7 +8,9 @@ and index m, the m-th positive root x of
   te:  J'_n(x) Y'_n(c x) - J'_n(c x) Y'_n(x) = 0
 
 (the cutoffs k a = x of the TM_nm and TE_nm modes of a coaxial guide of
-radii a and b = c a), each printed to 20 significant digits.
+radii a and b = c a), each printed to 20 significant digits. The ratio c is
+the float64 nearest to the decimal in the table, exactly, as the Go tests
+use it.
 
 Method, independent of the Go code: the roots are bracketed by sign changes
 of the cross product on a grid in x whose step, pi/(40 c), is a small share
@@ -49,6 +51,11 @@ THIN_COUNT = 3
 GRID_SHARE = 40  # grid step pi/(GRID_SHARE c)
 
 
+# Roots of an earlier run, keyed by (kind, c, n, m), that may narrow the
+# first bracket (--hints FILE); the result does not depend on them.
+HINTS = {}
+
+
 def cross_fp(kind, n, c, x):
     if kind == "tm":
         return special.jv(n, x) * special.yv(n, c * x) - special.jv(n, c * x) * special.yv(n, x)
@@ -86,7 +93,10 @@ def roots(task):
 def compute(kind, cs, n, indices):
     mpmath.mp.dps = DPS
     c = float(cs)
-    cm = mpmath.mpf(cs)
+    # The ratio as the Go code sees it: the float64 nearest to the decimal
+    # c, exactly. (Roots near m pi/(c-1) move by about ulp(c)/(c-1)
+    # relative with c: 1e-13 at c = 1.001.)
+    cm = mpmath.mpf(c)
     need = max(indices)
     h = np.pi / (GRID_SHARE * c)
     start = max(0.9 * n / c, h)
@@ -113,6 +123,14 @@ def compute(kind, cs, n, indices):
             a = max(a, mpmath.mpf(found[m - 2][1]))
         if m < len(found):
             b = min(b, mpmath.mpf(found[m][0]))
+        hint = HINTS.get((kind, cs, n, m))
+        if hint is not None and a < hint < b:
+            # A root from an earlier run (--hints): try a tight bracket
+            # around it first; it is used only if it brackets a sign
+            # change at 30 digits.
+            ta, tb = hint * (1 - mpmath.mpf(10) ** -11), hint * (1 + mpmath.mpf(10) ** -11)
+            if cross_mp(kind, n, cm, ta) * cross_mp(kind, n, cm, tb) < 0:
+                a, b = ta, tb
         fa, fb = cross_mp(kind, n, cm, a), cross_mp(kind, n, cm, b)
         if fa * fb >= 0:
             raise SystemExit("%s n=%d c=%s m=%d: no sign change at 30 digits in [%s, %s]" % (kind, n, cs, m, a, b))
@@ -136,9 +154,17 @@ def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--jobs", type=int, default=2)
     ap.add_argument("--cache", default="", help="directory keeping finished (kind, c, n) parts between runs")
+    ap.add_argument("--hints", default="", help="an earlier crosszeros.tsv whose roots may narrow the brackets")
     args = ap.parse_args()
     if args.cache:
         os.makedirs(args.cache, exist_ok=True)
+    if args.hints:
+        with open(args.hints) as f:
+            for line in f:
+                if line.startswith("#") or not line.strip():
+                    continue
+                k, c, n, m, x = line.split("\t")
+                HINTS[(k, c, int(n), int(m))] = mpmath.mpf(x)
     here = os.path.dirname(os.path.abspath(__file__))
     work = [(k, c, n, args.cache, INDICES) for k in ("tm", "te") for c in RATIOS for n in reversed(ORDERS)]
     work += [(k, c, n, args.cache, list(range(1, THIN_COUNT + 1))) for k, c, n in THIN]
