@@ -80,11 +80,13 @@
 // or repeated, and its sign brackets each root. A priori bounds from the
 // Rayleigh quotient keep every iterate inside the root's interval.
 //
-//  1. Values: at each point J_n, J'_n, Y_n, Y'_n come from math.J0, J1,
-//     Y0, Y1 and recurrence in the order: forward for Y, forward for J
-//     when x >= n, otherwise Miller's backward recurrence for J_n/J_{n-1}
-//     with the size from the Wronskian (DLMF 10.5.4), scaled so that no
-//     order or argument overflows. The multiple of 2π in θ is fixed by the
+//  1. Values: at each point J_n, J'_n, Y_n, Y'_n come from J_0, J_1, Y_0,
+//     Y_1 (for x >= 25 all four from one sine and cosine and Hankel's
+//     expansions, DLMF 10.17.3; below, the math package) and recurrence in
+//     the order: forward for Y, forward for J when x >= n, otherwise
+//     Miller's backward recurrence for J_n/J_{n-1} with the size from the
+//     Wronskian (DLMF 10.5.4), scaled so that no order or argument
+//     overflows. The multiple of 2π in θ is fixed by the
 //     Debye phase (DLMF 10.19.6); φ - θ in (0, π) by the Wronskian.
 //  2. First approximation: for the first root of an order, the thin-annulus
 //     value sqrt((Kπ/(c-1))^2 + (2n/(1+c))^2) for c < 3, else j_{n,m}/c or
@@ -116,7 +118,8 @@
 //   - DLMF: NIST Digital Library of Mathematical Functions, release 1.1.x,
 //     https://dlmf.nist.gov/, chapters 9 (Airy functions) and 10 (Bessel
 //     functions): 10.2.1 (Bessel's equation), 10.5 (Wronskians),
-//     10.6.1-10.6.3 (recurrences and derivatives), 10.9.30 (Nicholson's
+//     10.6.1-10.6.3 (recurrences and derivatives), 10.17 (Hankel's
+//     expansions), 10.9.30 (Nicholson's
 //     formula), 10.18 (modulus and phase), 10.19.6 (Debye), 10.21 (zeros;
 //     10.21(x) zeros of cross products).
 //   - M. Abramowitz and I. A. Stegun, Handbook of Mathematical Functions,

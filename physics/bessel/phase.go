@@ -79,10 +79,15 @@ func besselRaw(n int, t float64) rawBessel {
 	fn := float64(n)
 	r := 2 / t
 	var j0, j1, y0, y1 float64
-	if t >= hankelMin {
+	switch {
+	case t >= hankelMin:
 		j0, j1, y0, y1 = hankel01(t)
-	} else {
+	case t >= fn:
 		j0, j1 = math.J0(t), math.J1(t)
+		y0, y1 = math.Y0(t), math.Y1(t)
+	default:
+		// Below the turning point J comes from Miller's algorithm and
+		// the Wronskian; J_0 and J_1 are not needed (n >= 1 here).
 		y0, y1 = math.Y0(t), math.Y1(t)
 	}
 	if n == 0 {

@@ -181,6 +181,7 @@ def main():
         f.write("# computed with mpmath %s (Debian python3-mpmath), mpmath.findroot on besselj/bessely, "
                 "mp.dps = %d, brackets from a SciPy %s sign scan; printed to %d significant digits\n"
                 % (mpmath.__version__, DPS, scipy.__version__, DIGITS))
+        f.write("# the ratio c is the float64 nearest to the decimal in column 2, taken exactly\n")
         f.write("# command: /usr/bin/python3 testdata/bessel/gen_cross.py\n")
         f.write("# columns: kind<TAB>c<TAB>n<TAB>m<TAB>root\n")
         for rows in parts:
