@@ -506,3 +506,30 @@ func TestCrossSpecialCases(t *testing.T) {
 		}()
 	}
 }
+
+// TestCrossParallelPlates checks the limit c -> 1 directly: the annulus
+// becomes a parallel-plate guide of spacing b - a, where x (c-1) -> K π
+// with K = m (TM) or m - 1 (TE, n >= 1). The McMahon-type expansion above
+// puts the relative deviation at p (c-1)^2/(K π)^2 to leading order, with
+// |p| <= (μ+3)/8; the test allows twice that.
+func TestCrossParallelPlates(t *testing.T) {
+	const c = 1 + 0x1p-20 // c - 1 exact
+	for _, n := range []int{0, 1, 3, 10} {
+		mu := 4 * float64(n) * float64(n)
+		for _, prime := range []bool{false, true} {
+			x := crossRoots(n, c, 5, prime)
+			cr := crossRoot{n: n, c: c, prime: prime}
+			for m := 1; m <= 5; m++ {
+				k := float64(cr.level(m))
+				if k == 0 {
+					continue
+				}
+				got := x[m-1] * (c - 1) / (k * math.Pi)
+				tol := 2*(mu+3)/8*(c-1)*(c-1)/(k*k*math.Pi*math.Pi) + 1e-15
+				if math.Abs(got-1) > tol {
+					t.Errorf("%s(%d, 1+2^-20)[%d] (c-1)/(%v π) = %.17g, want 1 within %.3g", crossName(prime), n, m-1, k, got, tol)
+				}
+			}
+		}
+	}
+}
