@@ -8,7 +8,7 @@ import (
 // CrossZeros returns the first count positive roots x_{n,1} < x_{n,2} <
 // ... < x_{n,count} of the Bessel cross product
 //
-//	J_n(x) Y_n(c x) - J_n(c x) Y_n(x) = 0        (DLMF 10.21(x), A&S 9.5.27)
+//	J_n(x) Y_n(c x) - J_n(c x) Y_n(x) = 0        (DLMF §10.21(x), A&S Section 9.5)
 //
 // for order n >= 0 and radius ratio c > 1, in ascending order. In a coaxial
 // guide of inner radius a and outer radius b = c a the TM_nm mode has cutoff
@@ -39,7 +39,7 @@ func CrossZeros(n int, c float64, count int) []float64 {
 // CrossPrimeZeros returns the first count positive roots x'_{n,1} <
 // x'_{n,2} < ... < x'_{n,count} of the cross product of derivatives
 //
-//	J'_n(x) Y'_n(c x) - J'_n(c x) Y'_n(x) = 0    (DLMF 10.21(x), A&S 9.5.30)
+//	J'_n(x) Y'_n(c x) - J'_n(c x) Y'_n(x) = 0    (DLMF §10.21(x), A&S Section 9.5)
 //
 // for order n >= 0 and radius ratio c > 1, in ascending order. In a coaxial
 // guide of inner radius a and outer radius b = c a the TE_nm mode has cutoff
