@@ -21,12 +21,15 @@ type ScenarioFlags struct {
 	geo   *GeometryFlags
 	names map[string]bool
 
-	mode, freq, wall, ratioRange, objective, minClear, minQ      string
-	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
-	tolDist, operating, machining                                string
-	samples                                                      int
-	seed                                                         uint64
-	countDeg                                                     bool
+	wall, ratioRange, objective, minQ        string
+	temp, alphaSide, alphaAxial, tol, tolLen string
+	tolDist, operating, machining            string
+	mode                                     cavity.Mode
+	freq, maxD, maxL, tuning, minClear       float64
+	maxDText, tuningText                     func() string
+	samples                                  int
+	seed                                     uint64
+	countDeg                                 bool
 }
 
 // AddScenarioFlags defines the design-request flags on cmd.
@@ -35,19 +38,19 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	sf := &ScenarioFlags{flags: f, names: map[string]bool{}}
 	before := map[string]bool{}
 	f.VisitAll(func(fl *pflag.Flag) { before[fl.Name] = true })
-	f.StringVar(&sf.mode, "mode", "", "wanted mode, e.g. TE011")
-	f.StringVar(&sf.freq, "freq", "", "wanted frequency, e.g. 10GHz")
+	ModeVar(f, &sf.mode, "mode", "wanted mode, e.g. TE011")
+	FrequencyVar(f, &sf.freq, "freq", "wanted frequency, e.g. 10GHz", 1e3, 1e15)
 	sf.geo = AddGeometryFlags(cmd, Geometry{
 		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
 	})
 	f.StringVar(&sf.wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
 	f.StringVar(&sf.ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
 	f.StringVar(&sf.objective, "objective", "clearance", "what to maximise: clearance|q")
-	f.StringVar(&sf.minClear, "min-clearance", "", "least clearance, e.g. 3% (required with --objective q)")
+	FractionVar(f, &sf.minClear, "min-clearance", "least clearance, e.g. 3% (required with --objective q)", 0, 1)
 	f.StringVar(&sf.minQ, "min-q", "", "least unloaded Q0 (needs --wall)")
-	f.StringVar(&sf.maxD, "max-diameter", "", "largest allowed inside diameter")
-	f.StringVar(&sf.maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
-	f.StringVar(&sf.tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
+	sf.maxDText = LengthVar(f, &sf.maxD, "max-diameter", "largest allowed inside diameter", cavity.MinSize, cavity.MaxSize).Text
+	LengthVar(f, &sf.maxL, "max-length", "largest allowed inside length (at the longest tuning position)", cavity.MinSize, cavity.MaxSize)
+	sf.tuningText = FractionVar(f, &sf.tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
 	f.StringVar(&sf.temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C or 2K:300K")
 	f.StringVar(&sf.operating, "operating-temp", "", "set-point where the design frequency holds and the walls' Q0 is taken (default: middle of --temp, else 20C)")
 	f.StringVar(&sf.machining, "machining-temp", "", "temperature at which the machining dimensions are given (default 20C)")
@@ -95,12 +98,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		return s, Usagef("design needs --mode and --freq (or no flags at all for the demo scenario)")
 	}
 	var err error
-	if sp.Mode, err = cavity.ParseMode(sf.mode); err != nil {
-		return s, FlagError("mode", sf.mode, err)
-	}
-	if sp.Frequency, err = Frequency("freq", sf.freq, 1e3, 1e15); err != nil {
-		return s, err
-	}
+	sp.Mode, sp.Frequency = sf.mode, sf.freq
 	if s.Fill, err = sf.geo.Dielectric(); err != nil {
 		return s, err
 	}
@@ -128,11 +126,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	default:
 		return s, FlagError("objective", sf.objective, fmt.Errorf("unknown objective; use clearance|q"))
 	}
-	if set("min-clearance") {
-		if sp.MinClearance, err = Fraction("min-clearance", sf.minClear, 0, 1); err != nil {
-			return s, err
-		}
-	}
+	sp.MinClearance = sf.minClear
 	if sp.Objective == cavity.MaxQ {
 		if s.Wall == nil {
 			return s, Usagef("--objective q needs --wall (the wall metal sets Q0)")
@@ -149,26 +143,14 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 			return s, Usagef("--min-q needs --wall (the wall metal sets Q0)")
 		}
 	}
+	sp.MaxDiameter, sp.MaxLength, sp.Tuning = sf.maxD, sf.maxL, sf.tuning
 	if set("max-diameter") {
-		if sp.MaxDiameter, err = Length("max-diameter", sf.maxD, cavity.MinSize, cavity.MaxSize); err != nil {
-			return s, err
-		}
 		if err := checkCutoff(*sp); err != nil {
-			return s, FlagError("max-diameter", sf.maxD, err)
+			return s, FlagError("max-diameter", sf.maxDText(), err)
 		}
 	}
-	if set("max-length") {
-		if sp.MaxLength, err = Length("max-length", sf.maxL, cavity.MinSize, cavity.MaxSize); err != nil {
-			return s, err
-		}
-	}
-	if set("tuning") {
-		if sp.Tuning, err = Fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
-			return s, err
-		}
-		if err := CheckTunable("tuning", sf.tuning, sp.Mode, sp.Tuning); err != nil {
-			return s, err
-		}
+	if err := CheckTunable("tuning", sf.tuningText(), sp.Mode, sp.Tuning); err != nil {
+		return s, err
 	}
 	th := &sp.Thermal
 	sideFlag, axialFlag := "wall", "wall"
