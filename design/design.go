@@ -135,7 +135,6 @@ func (s *Scenario) SetThermal(sideFlag, axialFlag string) error {
 					physics.FormatTemperature(physics.DefaultLinearTMin, 4), physics.FormatTemperature(physics.DefaultLinearTMax, 4))}
 			}
 		}
-		th.TauEps = s.Fill.TCEps
 	}
 	var err error
 	if th.AlphaRadial, err = s.Side.ExpansionAt(operate); err != nil {
