@@ -33,7 +33,7 @@ const qChunk = 4096
 type rowSource struct {
 	opts *Options
 	list []cavity.Resonance
-	rs   qfactor.WallsAt
+	rs   qfactor.ResistancesAt
 	us   []qfactor.Unloaded // Q values of list[base:base+len(us)]
 	base int
 
