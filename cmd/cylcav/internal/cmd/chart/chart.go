@@ -46,11 +46,13 @@ type Options struct {
 func NewCmdChart(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var (
-		mode, freq, ratio, ratioRange                          string
-		maxFD, minFD, units, axes, tuning, tol, tolLen, minClr string
-		width, height                                          string
-		dpi                                                    int
-		geo                                                    *cmdutil.GeometryFlags
+		mode, freq, ratio, ratioRange string
+		maxFD, minFD, units, axes     string
+		tol, tolLen                   float64
+		tuningText                    func() string
+		width, height                 string
+		dpi                           int
+		geo                           *cmdutil.GeometryFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "chart (--diameter D --length L | --mode MODE --freq F --ratio R) -o FILE [flags]",
@@ -143,34 +145,14 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				s.MinFD = v * u
 				opts.MinFDText = minFD
 			}
-			if fl.Changed("tuning") {
-				if s.Tuning, err = cmdutil.Fraction("tuning", tuning, 0, cavity.MaxTuning); err != nil {
-					return err
-				}
-				if err := cmdutil.CheckTunable("tuning", tuning, s.Wanted, s.Tuning); err != nil {
-					return err
-				}
-				if s.Tuning > 0 {
-					if err := s.Wanted.EndPlateTuning(); err != nil {
-						return cmdutil.FlagError("tuning", tuning, err)
-					}
-				}
-			}
-			if fl.Changed("min-clearance") {
-				if s.Clearance, err = cmdutil.Fraction("min-clearance", minClr, 0, 0.99); err != nil {
-					return err
-				}
+			if err := cmdutil.CheckTunable("tuning", tuningText(), s.Wanted, s.Tuning); err != nil {
+				return err
 			}
 			if fl.Changed("tolerance") {
-				if s.DiameterTol, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
-					return err
-				}
-				s.LengthTol = s.DiameterTol
+				s.DiameterTol, s.LengthTol = tol, tol
 			}
 			if fl.Changed("tolerance-length") {
-				if s.LengthTol, err = cmdutil.Length("tolerance-length", tolLen, 0, 1); err != nil {
-					return err
-				}
+				s.LengthTol = tolLen
 			}
 			if opts.Output == "" {
 				return cmdutil.Usagef("missing -o/--output, the image file to write (.png, .svg or .pdf)")
@@ -216,10 +198,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&minFD, "min-fd", "", "bottom of the chart as f·D in --units (default 0)")
 	f.StringVar(&units, "units", "ghz-cm", "unit of f·D: ghz-cm|ghz-mm|mhz-in")
 	f.StringVar(&axes, "axes", "squared", "axes: squared ((f·D)² vs (D/L)², straight lines) | linear (f·D vs D/L)")
-	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
-	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
-	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
-	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the wanted one on the reachable set are emphasised")
+	tuningText = cmdutil.FractionVar(f, &opts.Spec.Tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
+	cmdutil.LengthVar(f, &tol, "tolerance", "machining tolerance +-t of diameter and length, e.g. 0.02mm", 0, 1)
+	cmdutil.LengthVar(f, &tolLen, "tolerance-length", "machining tolerance of the length if different from --tolerance", 0, 1)
+	cmdutil.FractionVar(f, &opts.Spec.Clearance, "min-clearance", "required clearance, e.g. 3%: modes this close to the wanted one on the reachable set are emphasised", 0, 0.99)
 	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
 	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
 	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
