@@ -21,11 +21,12 @@ type ScenarioFlags struct {
 	geo   *GeometryFlags
 	names map[string]bool
 
-	wall, ratioRange, objective, minQ        string
+	wall, objective                          string
 	temp, alphaSide, alphaAxial, tol, tolLen string
 	tolDist, operating, machining            string
 	mode                                     cavity.Mode
-	freq, maxD, maxL, tuning, minClear       float64
+	freq, maxD, maxL, tuning, minClear, minQ float64
+	ratioLo, ratioHi                         float64
 	maxDText, tuningText                     func() string
 	samples                                  int
 	seed                                     uint64
@@ -44,10 +45,11 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
 	})
 	f.StringVar(&sf.wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
-	f.StringVar(&sf.ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
+	NumberRangeVar(f, &sf.ratioLo, &sf.ratioHi, "ratio-range", "allowed D/L range LO:HI", cavity.MinDesignRatio, cavity.MaxDesignRatio)
+	SetDefault(f, "ratio-range", "0.5:3")
 	f.StringVar(&sf.objective, "objective", "clearance", "what to maximise: clearance|q")
 	FractionVar(f, &sf.minClear, "min-clearance", "least clearance, e.g. 3% (required with --objective q)", 0, 1)
-	f.StringVar(&sf.minQ, "min-q", "", "least unloaded Q0 (needs --wall)")
+	NumberVar(f, &sf.minQ, "min-q", "least unloaded Q0 (needs --wall)", 1, 1e12)
 	sf.maxDText = LengthVar(f, &sf.maxD, "max-diameter", "largest allowed inside diameter", cavity.MinSize, cavity.MaxSize).Text
 	LengthVar(f, &sf.maxL, "max-length", "largest allowed inside length (at the longest tuning position)", cavity.MinSize, cavity.MaxSize)
 	sf.tuningText = FractionVar(f, &sf.tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
@@ -109,14 +111,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 		s.Wall = &c
 	}
-	lo, hi, err := physics.ParseRange(sf.ratioRange, physics.ParseNumber)
-	if err != nil {
-		return s, FlagError("ratio-range", sf.ratioRange, err)
-	}
-	if !(lo >= cavity.MinDesignRatio && hi <= cavity.MaxDesignRatio) {
-		return s, FlagError("ratio-range", sf.ratioRange, fmt.Errorf("both ends must be between %g and %g", cavity.MinDesignRatio, cavity.MaxDesignRatio))
-	}
-	sp.RatioMin, sp.RatioMax = lo, hi
+	sp.RatioMin, sp.RatioMax = sf.ratioLo, sf.ratioHi
 	switch sf.objective {
 	case "clearance":
 		sp.Objective = cavity.MaxClearance
@@ -135,9 +130,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 	}
 	if set("min-q") {
-		if sp.MinQ, err = Number("min-q", sf.minQ, 1, 1e12); err != nil {
-			return s, err
-		}
+		sp.MinQ = sf.minQ
 		if s.Wall == nil {
 			return s, Usagef("--min-q needs --wall (the wall metal sets Q0)")
 		}

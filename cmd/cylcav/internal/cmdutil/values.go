@@ -139,7 +139,7 @@ type Range struct {
 }
 
 func (r *Range) String() string { return r.text }
-func (r *Range) Type() string   { return r.q.kind + "-range" }
+func (r *Range) Type() string   { return "range" }
 
 // Text returns the value as given.
 func (r *Range) Text() string { return r.text }
@@ -207,4 +207,16 @@ func ModeVar(fs *pflag.FlagSet, p *cavity.Mode, name, usage string) *ModeValue {
 	m := &ModeValue{p: p}
 	fs.Var(m, name, usage)
 	return m
+}
+
+// SetDefault gives the flag name of fs its default value, parsed by the
+// flag's own Set as a given value would be, and shows it in the help. The
+// flag stays "not given" (Changed is false). It panics on a default that
+// does not parse: that is a programming error.
+func SetDefault(fs *pflag.FlagSet, name, value string) {
+	f := fs.Lookup(name)
+	if err := f.Value.Set(value); err != nil {
+		panic("cmdutil.SetDefault: --" + name + ": " + err.Error())
+	}
+	f.DefValue = value
 }
