@@ -220,3 +220,7 @@ func SetDefault(fs *pflag.FlagSet, name, value string) {
 	}
 	f.DefValue = value
 }
+
+// Text returns the value of the flag name of fs as given on the command
+// line (its default when not given), for messages that quote it.
+func Text(fs *pflag.FlagSet, name string) string { return fs.Lookup(name).Value.String() }
