@@ -3,6 +3,7 @@ package cmdutil
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -91,13 +92,14 @@ func TimesVar(fs *pflag.FlagSet, p *float64, name, def, usage, what string, lo, 
 	return t
 }
 
-// Choice is one word an Enum flag accepts, the value it stands for, and
-// an optional note shown in the error ("end (cavities stacked on one
-// axis)").
+// Choice is one word an Enum flag accepts, the value it stands for, an
+// optional note shown in the error ("end (cavities stacked on one
+// axis)"), and other words accepted for it but not shown (plurals).
 type Choice[T any] struct {
 	Word  string
 	Value T
 	Note  string
+	Also  []string
 }
 
 // Enum is a flag value holding one of a fixed list of words, matched
@@ -116,7 +118,7 @@ func (e *Enum[T]) Type() string   { return "word" }
 func (e *Enum[T]) Set(s string) error {
 	w := strings.ToLower(strings.TrimSpace(s))
 	for _, c := range e.choices {
-		if w == c.Word {
+		if w == c.Word || slices.Contains(c.Also, w) {
 			*e.p, e.text = c.Value, s
 			return nil
 		}
@@ -312,6 +314,50 @@ func (l *LevelList) parse(it string) (LevelAt, error) {
 // most maxDB.
 func LevelListVar(fs *pflag.FlagSet, p *[]LevelAt, name, usage string, maxDB float64) *LevelList {
 	l := &LevelList{p: p, maxDB: maxDB}
+	fs.Var(l, name, usage)
+	return l
+}
+
+// NumberList is a flag value holding a comma-separated list of at most max
+// dimensionless numbers, each in [lo, hi] (one value per port: "0.8" or
+// "1,1").
+type NumberList struct {
+	p      *[]float64
+	text   string
+	lo, hi float64
+	max    int
+	per    string // "port": "give one value per port, at most 2 ports"
+}
+
+func (l *NumberList) String() string { return l.text }
+func (l *NumberList) Type() string   { return "numbers" }
+
+// Set parses each item of s; an error about one item quotes it.
+func (l *NumberList) Set(s string) error {
+	parts := strings.Split(s, ",")
+	if len(parts) > l.max {
+		return ValueErrorf("give one value per %s, at most %d %ss", l.per, l.max, l.per)
+	}
+	vs := make([]float64, len(parts))
+	for i, p := range parts {
+		it := strings.TrimSpace(p)
+		v, err := physics.ParseNumber(it)
+		if err != nil {
+			return ItemErrorf(it, "%v; want a number between %g and %g", err, l.lo, l.hi)
+		}
+		if !(v >= l.lo && v <= l.hi) {
+			return ItemErrorf(it, "must be between %g and %g", l.lo, l.hi)
+		}
+		vs[i] = v
+	}
+	*l.p, l.text = vs, s
+	return nil
+}
+
+// NumberListVar defines a list flag of at most max numbers, one per what
+// ("port"), each in [lo, hi], stored in p.
+func NumberListVar(fs *pflag.FlagSet, p *[]float64, name, usage string, lo, hi float64, max int, per string) *NumberList {
+	l := &NumberList{p: p, lo: lo, hi: hi, max: max, per: per}
 	fs.Var(l, name, usage)
 	return l
 }
