@@ -29,10 +29,11 @@ const (
 // design gives the same bytes.
 var pdfDate = time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC)
 
-// WritePDF writes the datasheet to out as an A4 PDF document with the same sections
-// as the HTML one: core Helvetica text (code page 1252, see
-// modechart.WinAnsi), tables with wrapped cells, charts as PNG images at
-// pdfChartDPI, page numbers in the footer. The output is deterministic.
+// WritePDF writes the datasheet to out as an A4 PDF document with the
+// same sections, in the same order, as the HTML one: core Helvetica text
+// (code page 1252, see modechart.WinAnsi), tables with wrapped cells,
+// charts as PNG images at pdfChartDPI, page numbers in the footer. The
+// output is deterministic.
 func (sh *Sheet) WritePDF(out io.Writer) error {
 	pdf := fpdf.New("P", "mm", "A4", "")
 	pdf.SetCreationDate(pdfDate)
@@ -60,17 +61,17 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	// Title block.
 	pdf.SetFont("Helvetica", "", 8)
 	pdf.SetTextColor(90, 90, 90)
-	pdf.CellFormat(0, 4, "CAVITY RESONATOR DATASHEET", "", 1, "L", false, 0, "")
+	pdf.CellFormat(0, 4, w.t(strings.ToUpper(sh.Kind)), "", 1, "L", false, 0, "")
 	pdf.SetTextColor(0, 0, 0)
 	pdf.SetFont("Helvetica", "B", 15)
 	pdf.MultiCell(0, 6.5, w.t(sh.Title), "", "L", false)
 	pdf.SetFont("Helvetica", "", 10.5)
 	pdf.MultiCell(0, 5.5, w.t(sh.Headline), "", "L", false)
-	if sh.Demo {
+	if n := sh.Notice; n != nil {
 		pdf.Ln(1)
 		pdf.SetFillColor(243, 241, 230)
 		pdf.SetFont("Helvetica", "", 8.5)
-		pdf.MultiCell(0, 4.2, w.t("Demo scenario: made by 'cylcav report' with no design flags, from the built-in invented scenario. Give the flags of 'cylcav design' to report your own design."), "", "L", true)
+		pdf.MultiCell(0, 4.2, w.t(n.Text()), "", "L", true)
 	}
 	y := pdf.GetY() + 1.5
 	pdf.SetLineWidth(0.6)
@@ -88,69 +89,44 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	}
 	w.table(facts)
 
-	// The PDF keeps the numbered sections of the HTML datasheet but sets
-	// the clearance table on the first page, beside the dimensions, where
-	// a full-width chart would not fit.
-	w.heading("1  Dimensions and tolerances")
-	w.table(sh.Dimensions)
-	w.heading("4  Spurious-mode clearance")
-	w.table(sh.Clearance)
-	w.need(w.chartHeight(sh, "mode-chart") + 14)
-	w.heading("2  Mode chart")
-	if err := w.chart(sh, "mode-chart"); err != nil {
-		return err
+	// The sections in order, numbered as in the HTML datasheet. A section
+	// that opens with a chart starts on a new page unless the chart fits
+	// below its heading.
+	charts := map[*Chart]int{}
+	for i, c := range sh.Charts() {
+		charts[c] = i
 	}
-	w.heading("3  Modes near the band")
-	w.table(sh.Modes)
-	w.note(sh.ModesNote)
-	if err := w.chart(sh, "q-frequency"); err != nil {
-		return err
-	}
-	w.need(w.chartHeight(sh, "trade-off") + 14)
-	w.heading("4  Spurious-mode clearance (continued): trade-off")
-	if err := w.chart(sh, "trade-off"); err != nil {
-		return err
-	}
-	if len(sh.Q.Rows) > 0 {
-		w.heading("5  Unloaded Q")
-		w.table(sh.Q)
-		w.note(sh.QNote)
-	}
-	w.heading("6  Sensitivities and tolerance spread")
-	w.table(sh.Sensitive)
-	if len(sh.Spread.Rows) > 0 {
-		w.table(sh.Spread)
-	}
-	w.need(w.chartHeight(sh, "tuning") + 14)
-	w.heading("7  Tuning")
-	if err := w.chart(sh, "tuning"); err != nil {
-		return err
-	}
-	w.table(sh.Tuning)
-	w.heading("8  Materials and their sources")
-	for _, m := range sh.Materials {
-		t := Table{Caption: m.Role + ": " + m.Name, Header: []string{"Property", "Value"}}
-		if m.Description != "" {
-			t.add(false, "Description", m.Description)
+	for i, sec := range sh.Sections {
+		if len(sec.Blocks) > 0 && sec.Blocks[0].Chart != nil {
+			w.need(w.chartHeight(sec.Blocks[0].Chart) + 14)
 		}
-		for _, kv := range m.Values {
-			t.add(false, kv.Key, kv.Value)
+		w.heading(fmt.Sprintf("%d  %s", i+1, sec.Heading))
+		for j, b := range sec.Blocks {
+			switch {
+			case b.Table != nil:
+				w.table(*b.Table)
+			case b.Chart != nil:
+				if err := w.chart(b.Chart, charts[b.Chart]); err != nil {
+					return err
+				}
+			case b.Note != "":
+				w.note(b.Note)
+			case b.Para != "":
+				w.para(b.Para)
+			case b.List != nil:
+				if j > 0 {
+					pdf.Ln(1)
+				}
+				if b.List.Lead != "" {
+					w.para(b.List.Lead)
+				}
+				for _, item := range b.List.Items {
+					w.bullet(item)
+				}
+			case b.Materials != nil:
+				w.materials(b.Materials)
+			}
 		}
-		if m.Note != "" {
-			t.add(false, "Note", m.Note)
-		}
-		t.add(false, "Source", m.Source)
-		w.table(t)
-	}
-	w.heading("9  Index convention")
-	w.para(sh.Convention)
-	w.heading("10  Cautions")
-	for _, c := range sh.Cautions {
-		w.bullet(c)
-	}
-	pdf.Ln(1)
-	for _, c := range sh.Safety {
-		w.bullet(c)
 	}
 	if err := pdf.Error(); err != nil {
 		return fmt.Errorf("datasheet: PDF: %w", err)
@@ -247,50 +223,57 @@ func (w *pdfWriter) bullet(s string) {
 	p.Ln(0.6)
 }
 
-// chartHeight returns the height in mm of chart id with its caption.
-func (w *pdfWriter) chartHeight(sh *Sheet, id string) float64 {
-	for _, c := range sh.Charts {
-		if c.ID == id {
-			return w.width*float64(c.Page.Height)/float64(c.Page.Width) + 10
-		}
-	}
-	return 0
+// chartHeight returns the height in mm of chart c with its caption.
+func (w *pdfWriter) chartHeight(c *Chart) float64 {
+	return w.width*float64(c.Page.Height)/float64(c.Page.Width) + 10
 }
 
-// chart places the chart with the given ID as a PNG image across the text
-// width, with its caption.
-func (w *pdfWriter) chart(sh *Sheet, id string) error {
-	for i, c := range sh.Charts {
-		if c.ID != id {
-			continue
-		}
-		pg := c.Page
-		pg.DPI = pdfChartDPI
-		// The PDF writer orders images by pixel width and breaks ties in
-		// map order; one extra pixel per chart keeps the output
-		// reproducible.
-		pg.Width += vg.Length(i) * vg.Inch / pdfChartDPI
-		img, err := modechart.Encode(c.Figure, modechart.PNG, pg)
-		if err != nil {
-			return err
-		}
-		ratio := float64(pg.Height) / float64(pg.Width)
-		h := w.width * ratio
-		w.need(h + 10)
-		p := w.pdf
-		opt := fpdf.ImageOptions{ImageType: "PNG"}
-		p.RegisterImageOptionsReader(id, opt, bytes.NewReader(img))
-		y := p.GetY() + 1
-		p.ImageOptions(id, pdfMargin, y, w.width, h, false, opt, 0, "")
-		p.SetY(y + h + 1)
-		p.SetFont("Helvetica", "B", 8)
-		p.CellFormat(p.GetStringWidth(w.t(c.Title+". "))+0.5, 3.8, w.t(c.Title+". "), "", 0, "L", false, 0, "")
-		p.SetFont("Helvetica", "", 8)
-		p.MultiCell(0, 3.8, w.t(c.Caption), "", "L", false)
-		p.Ln(2)
-		return nil
+// chart places chart c, the i-th of the sheet, as a PNG image across the
+// text width, with its caption.
+func (w *pdfWriter) chart(c *Chart, i int) error {
+	pg := c.Page
+	pg.DPI = pdfChartDPI
+	// The PDF writer orders images by pixel width and breaks ties in map
+	// order; one extra pixel per chart keeps the output reproducible.
+	pg.Width += vg.Length(i) * vg.Inch / pdfChartDPI
+	img, err := modechart.Encode(c.Figure, modechart.PNG, pg)
+	if err != nil {
+		return err
 	}
+	ratio := float64(pg.Height) / float64(pg.Width)
+	h := w.width * ratio
+	w.need(h + 10)
+	p := w.pdf
+	opt := fpdf.ImageOptions{ImageType: "PNG"}
+	id := fmt.Sprintf("chart%d", i)
+	p.RegisterImageOptionsReader(id, opt, bytes.NewReader(img))
+	y := p.GetY() + 1
+	p.ImageOptions(id, pdfMargin, y, w.width, h, false, opt, 0, "")
+	p.SetY(y + h + 1)
+	p.SetFont("Helvetica", "B", 8)
+	p.CellFormat(p.GetStringWidth(w.t(c.Title+". "))+0.5, 3.8, w.t(c.Title+". "), "", 0, "L", false, 0, "")
+	p.SetFont("Helvetica", "", 8)
+	p.MultiCell(0, 3.8, w.t(c.Caption), "", "L", false)
+	p.Ln(2)
 	return nil
+}
+
+// materials sets each material as a small table of its values and source.
+func (w *pdfWriter) materials(ms []Material) {
+	for _, m := range ms {
+		t := Table{Caption: m.Role + ": " + m.Name, Header: []string{"Property", "Value"}}
+		if m.Description != "" {
+			t.add(false, "Description", m.Description)
+		}
+		for _, kv := range m.Values {
+			t.add(false, kv.Key, kv.Value)
+		}
+		if m.Note != "" {
+			t.add(false, "Note", m.Note)
+		}
+		t.add(false, "Source", m.Source)
+		w.table(t)
+	}
 }
 
 // table draws t with column widths from its content, wrapping long cells,

@@ -14,11 +14,9 @@ import (
 	"cylcav/physics"
 )
 
-// Sheet is the content of a datasheet, formatted for people: every number
-// is already a string with its unit. HTML and PDF render the same Sheet.
-type Sheet struct {
-	// Version is the cylcav version written into the files.
-	Version  string
+// cavitySheet is the content of a cavity design's datasheet, part by
+// part, before FromDesign arranges it into the sections of a Sheet.
+type cavitySheet struct {
 	Title    string
 	Demo     bool   // the built-in demo scenario
 	Headline string // one line: mode, frequency, D and L
@@ -83,14 +81,16 @@ type Chart struct {
 const modeWindow = 0.25
 
 // FromDesign assembles the datasheet of a single-cavity design result,
-// drawing its charts in theme th.
+// drawing its charts in theme th: ten sections from the dimensions to the
+// cautions, with the mode chart, Q0 against frequency, the trade-off and
+// the tuning curve (no Q section and no Q chart without a wall metal).
 func FromDesign(r design.Result, th modechart.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
 	w := spec.Mode
 	f0 := c.Frequency(w)
-	sh := &Sheet{Title: "Cavity datasheet: " + w.String() + " at " + freq(spec.Frequency), Demo: r.Scenario.Title != ""}
+	sh := &cavitySheet{Title: "Cavity datasheet: " + w.String() + " at " + freq(spec.Frequency), Demo: r.Scenario.Title != ""}
 	if sh.Demo {
 		sh.Title = r.Scenario.Title
 	}
@@ -324,7 +324,72 @@ func FromDesign(r design.Result, th modechart.Theme) (*Sheet, error) {
 	if err := sh.addCharts(r, th, tc, qpts); err != nil {
 		return nil, err
 	}
-	return sh, nil
+	return sh.sheet(), nil
+}
+
+// cavityMethod is the closing note of a cavity datasheet: where its
+// numbers come from.
+const cavityMethod = "Resonant frequencies from the closed-cylinder resonance condition (Pozar, Microwave Engineering, 4th ed., sec. 6.4; Harrington, Time-Harmonic Electromagnetic Fields, sec. 5.3); unloaded Q by the surface-resistance perturbation method; clearance, optimum and tolerance analysis as described in the cylcav documentation."
+
+// sheet arranges the parts into the sections of the datasheet.
+func (sh *cavitySheet) sheet() *Sheet {
+	chart := func(id string) []Block {
+		for i := range sh.Charts {
+			if sh.Charts[i].ID == id {
+				return []Block{{Chart: &sh.Charts[i]}}
+			}
+		}
+		return nil
+	}
+	join := func(bs ...[]Block) []Block {
+		var out []Block
+		for _, b := range bs {
+			out = append(out, b...)
+		}
+		return out
+	}
+	table := func(t Table) []Block { return []Block{{Table: &t}} }
+	out := &Sheet{
+		Kind:     "Cavity resonator datasheet",
+		Title:    sh.Title,
+		Headline: sh.Headline,
+		Facts:    sh.Facts,
+		Method:   cavityMethod,
+	}
+	if sh.Demo {
+		out.Notice = &Notice{Lead: "Demo scenario", Parts: []Span{
+			{Text: "This datasheet was made by "}, {Text: "cylcav report", Code: true},
+			{Text: " with no design flags, from the built-in invented scenario. Give the flags of "},
+			{Text: "cylcav design", Code: true}, {Text: " to report your own design."},
+		}}
+	}
+	secs := []Section{
+		{"Dimensions and tolerances", table(sh.Dimensions)},
+		{"Mode chart", chart("mode-chart")},
+		{"Modes near the band", join(table(sh.Modes), []Block{{Note: sh.ModesNote}}, chart("q-frequency"))},
+		{"Spurious-mode clearance", join(table(sh.Clearance), chart("trade-off"))},
+	}
+	if len(sh.Q.Rows) > 0 {
+		secs = append(secs, Section{"Unloaded Q", join(table(sh.Q), []Block{{Note: sh.QNote}})})
+	}
+	sens := table(sh.Sensitive)
+	if len(sh.Spread.Rows) > 0 {
+		sens = join(sens, table(sh.Spread))
+	}
+	var cautions []Block
+	if len(sh.Cautions) > 0 {
+		cautions = []Block{{List: &List{Lead: "For this design:", Class: "cautions", Items: sh.Cautions}}}
+	}
+	cautions = append(cautions, Block{List: &List{Lead: "Safety:", Class: "safety", Items: sh.Safety}})
+	secs = append(secs,
+		Section{"Sensitivities and tolerance spread", sens},
+		Section{"Tuning", join(chart("tuning"), table(sh.Tuning))},
+		Section{"Materials and their sources", []Block{{Materials: sh.Materials}}},
+		Section{"Index convention", []Block{{Para: sh.Convention}}},
+		Section{"Cautions", cautions},
+	)
+	out.Sections = secs
+	return out
 }
 
 // safety are the cautions every datasheet carries.
@@ -337,7 +402,7 @@ var safety = []string{
 }
 
 // addCharts renders the four figures of the datasheet.
-func (sh *Sheet) addCharts(r design.Result, th modechart.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
+func (sh *cavitySheet) addCharts(r design.Result, th modechart.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity

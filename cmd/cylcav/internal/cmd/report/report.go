@@ -134,6 +134,6 @@ func runReport(opts *Options) error {
 		extra = " and " + opts.PDF + " (PDF datasheet)"
 	}
 	_, err = fmt.Fprintf(opts.IO.Out, "wrote %s (HTML datasheet, %d charts)%s: %s, %s\nmode index convention: n azimuthal, m radial, p axial\n",
-		opts.Output, len(sh.Charts), extra, what, sh.Headline)
+		opts.Output, len(sh.Charts()), extra, what, sh.Headline)
 	return err
 }
