@@ -9,8 +9,8 @@ import (
 	"cylcav/cavity"
 	"cylcav/datasheet"
 	"cylcav/design"
-	"cylcav/modechart"
-	"cylcav/modechart/rendertest"
+	"cylcav/figure"
+	"cylcav/figure/rendertest"
 )
 
 // sample is a sheet of another kind than a cavity design, built from
@@ -102,7 +102,7 @@ func TestFromDesignSections(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		sh, err := datasheet.FromDesign(r, modechart.DefaultTheme())
+		sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -4,7 +4,7 @@ import (
 	"html/template"
 	"io"
 
-	"cylcav/modechart"
+	"cylcav/figure"
 )
 
 // WriteHTML writes the datasheet to w as one self-contained HTML document:
@@ -26,12 +26,12 @@ func (sh *Sheet) WriteHTML(w io.Writer) error {
 		for _, b := range s.Blocks {
 			hb := htmlBlock{Block: b}
 			if c := b.Chart; c != nil {
-				svg, err := modechart.Encode(c.Figure, modechart.SVG, c.Page)
+				svg, err := figure.Encode(c.Figure, figure.SVG, c.Page)
 				if err != nil {
 					return err
 				}
 				// The SVG comes from our own renderer, which escapes all text.
-				hb.SVG = template.HTML(modechart.InlineSVG(svg, c.Title))
+				hb.SVG = template.HTML(figure.InlineSVG(svg, c.Title))
 			}
 			secs[i].Blocks = append(secs[i].Blocks, hb)
 		}

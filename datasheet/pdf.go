@@ -11,7 +11,7 @@ import (
 	"codeberg.org/go-pdf/fpdf"
 	"gonum.org/v1/plot/vg"
 
-	"cylcav/modechart"
+	"cylcav/figure"
 )
 
 // PDF page layout, mm (A4 portrait).
@@ -31,7 +31,7 @@ var pdfDate = time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC)
 
 // WritePDF writes the datasheet to out as an A4 PDF document with the
 // same sections, in the same order, as the HTML one: core Helvetica text
-// (code page 1252, see modechart.WinAnsi), tables with wrapped cells,
+// (code page 1252, see figure.WinAnsi), tables with wrapped cells,
 // charts as PNG images at pdfChartDPI, page numbers in the footer. The
 // output is deterministic.
 func (sh *Sheet) WritePDF(out io.Writer) error {
@@ -41,7 +41,7 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	pdf.SetCatalogSort(true)
 	pdf.SetCompression(true)
 	pdf.SetCreator("cylcav "+sh.Version, false)
-	pdf.SetTitle(modechart.WinAnsi(sh.Title), false)
+	pdf.SetTitle(figure.WinAnsi(sh.Title), false)
 	pdf.SetMargins(pdfMargin, pdfMargin, pdfMargin)
 	pdf.SetAutoPageBreak(true, pdfMargin+5)
 	pdf.AliasNbPages("{nb}")
@@ -49,7 +49,7 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 		pdf.SetY(-pdfMargin)
 		pdf.SetFont("Helvetica", "", 7.5)
 		pdf.SetTextColor(90, 90, 90)
-		pdf.CellFormat(0, 4, modechart.WinAnsi(fmt.Sprintf("cylcav %s datasheet: %s", sh.Version, sh.Headline)), "", 0, "L", false, 0, "")
+		pdf.CellFormat(0, 4, figure.WinAnsi(fmt.Sprintf("cylcav %s datasheet: %s", sh.Version, sh.Headline)), "", 0, "L", false, 0, "")
 		pdf.CellFormat(0, 4, fmt.Sprintf("page %d of {nb}", pdf.PageNo()), "", 0, "R", false, 0, "")
 		pdf.SetTextColor(0, 0, 0)
 	})
@@ -142,7 +142,7 @@ type pdfWriter struct {
 	width float64 // text width, mm
 }
 
-func (w *pdfWriter) t(s string) string { return modechart.WinAnsi(s) }
+func (w *pdfWriter) t(s string) string { return figure.WinAnsi(s) }
 
 // latin1 rewrites s with runes up to U+00FF only, for the line breaker,
 // which measures runes as code points of the font's code page: characters
@@ -155,7 +155,7 @@ func latin1(s string) string {
 			b.WriteRune(r)
 			continue
 		}
-		x := modechart.WinAnsi(string(r))
+		x := figure.WinAnsi(string(r))
 		switch {
 		case len(x) == 1 && x[0] >= 0xa0:
 			b.WriteRune(rune(x[0]))
@@ -236,7 +236,7 @@ func (w *pdfWriter) chart(c *Chart, i int) error {
 	// The PDF writer orders images by pixel width and breaks ties in map
 	// order; one extra pixel per chart keeps the output reproducible.
 	pg.Width += vg.Length(i) * vg.Inch / pdfChartDPI
-	img, err := modechart.Encode(c.Figure, modechart.PNG, pg)
+	img, err := figure.Encode(c.Figure, figure.PNG, pg)
 	if err != nil {
 		return err
 	}

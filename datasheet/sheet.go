@@ -10,6 +10,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/design"
+	"cylcav/figure"
 	"cylcav/modechart"
 	"cylcav/physics"
 )
@@ -72,8 +73,8 @@ type Material struct {
 // output format.
 type Chart struct {
 	ID, Title, Caption string
-	Figure             *modechart.Figure
-	Page               modechart.Page
+	Figure             *figure.Figure
+	Page               figure.Page
 }
 
 // modeWindow is the half-width of the band of the mode table and the
@@ -84,7 +85,7 @@ const modeWindow = 0.25
 // drawing its charts in theme th: ten sections from the dimensions to the
 // cautions, with the mode chart, Q0 against frequency, the trade-off and
 // the tuning curve (no Q section and no Q chart without a wall metal).
-func FromDesign(r design.Result, th modechart.Theme) (*Sheet, error) {
+func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
@@ -402,11 +403,11 @@ var safety = []string{
 }
 
 // addCharts renders the four figures of the datasheet.
-func (sh *cavitySheet) addCharts(r design.Result, th modechart.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
+func (sh *cavitySheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
-	page := modechart.Page{Width: 7.5 * vg.Inch, Height: 5.6 * vg.Inch}
+	page := figure.Page{Width: 7.5 * vg.Inch, Height: 5.6 * vg.Inch}
 
 	// Mode chart around the design, with the operating box.
 	cs := modechart.Spec{
@@ -511,7 +512,7 @@ func (sh *cavitySheet) addCharts(r design.Result, th modechart.Theme, tc cavity.
 		}
 		sh.Charts = append(sh.Charts, Chart{ID: "q-frequency", Title: "Q0 against frequency",
 			Caption: fmt.Sprintf("Unloaded Q0 of every mode within ±%s of the wanted frequency, %s walls, smooth surfaces.", short(modeWindow), r.Scenario.Wall.Name),
-			Figure:  qf, Page: modechart.Page{Width: 7.5 * vg.Inch, Height: 4.2 * vg.Inch}})
+			Figure:  qf, Page: figure.Page{Width: 7.5 * vg.Inch, Height: 4.2 * vg.Inch}})
 	}
 	return nil
 }

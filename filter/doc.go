@@ -37,10 +37,9 @@
 //     cavities (CKM sec. 8.3).
 //  7. Analysis (Response, Design.Check, CohnLoss): S11, S21, S22, group
 //     delay with per-resonator unloaded Q, the specification pass/fail
-//     table, and Cohn's midband loss estimate; WriteTouchstone exports the
-//     response, and NewResponsePlot draws |S21|, |S11| with the
-//     specification mask and the group delay (SweepRange, Sweep choose the
-//     frequencies) for package modechart's Render.
+//     table, and Cohn's midband loss estimate; SweepRange and Sweep choose
+//     the frequencies, WriteTouchstone exports the response. Package
+//     filterplot draws it; this package imports no plotting.
 //  8. Physical realisation (Realise): one cavity per resonator for the
 //     chosen mode, sized at the resonator's own frequency (the diagonal
 //     M_ii detunes it to the bandpass image of Omega = -M_ii), its Q0 from

@@ -3,6 +3,8 @@ package modechart
 import (
 	"io"
 	"testing"
+
+	"cylcav/figure"
 )
 
 // bench200 returns the spec of a chart with about 200 mode lines (the demo
@@ -33,7 +35,7 @@ func BenchmarkNew200(b *testing.B) {
 	}
 }
 
-func benchRender(b *testing.B, f Format) {
+func benchRender(b *testing.B, f figure.Format) {
 	s := bench200(b)
 	b.ResetTimer()
 	for b.Loop() {
@@ -41,11 +43,11 @@ func benchRender(b *testing.B, f Format) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		fig, err := ch.Figure(DefaultTheme())
+		fig, err := ch.Figure(figure.DefaultTheme())
 		if err != nil {
 			b.Fatal(err)
 		}
-		if err := Render(io.Discard, fig, f, Page{}); err != nil {
+		if err := figure.Render(io.Discard, fig, f, figure.Page{}); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -53,10 +55,10 @@ func benchRender(b *testing.B, f Format) {
 
 // BenchmarkRender200PNG builds and renders a 200-line chart to PNG at
 // 8 x 6 in and 150 dpi (label layout included).
-func BenchmarkRender200PNG(b *testing.B) { benchRender(b, PNG) }
+func BenchmarkRender200PNG(b *testing.B) { benchRender(b, figure.PNG) }
 
 // BenchmarkRender200SVG builds and renders a 200-line chart to SVG.
-func BenchmarkRender200SVG(b *testing.B) { benchRender(b, SVG) }
+func BenchmarkRender200SVG(b *testing.B) { benchRender(b, figure.SVG) }
 
 // BenchmarkRender200PDF builds and renders a 200-line chart to PDF.
-func BenchmarkRender200PDF(b *testing.B) { benchRender(b, PDF) }
+func BenchmarkRender200PDF(b *testing.B) { benchRender(b, figure.PDF) }

@@ -10,6 +10,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
+	"cylcav/figure"
 	"cylcav/physics"
 )
 
@@ -17,7 +18,7 @@ import (
 // operating box, mode lines with on-line labels and the design point. The
 // ModeLines plotter is returned too, so callers can inspect its label
 // layout.
-func (ch *Chart) Plot(th Theme) (*plot.Plot, *ModeLines, error) {
+func (ch *Chart) Plot(th figure.Theme) (*plot.Plot, *ModeLines, error) {
 	ml, err := NewModeLines(ch)
 	if err != nil {
 		return nil, nil, err
@@ -29,19 +30,19 @@ func (ch *Chart) Plot(th Theme) (*plot.Plot, *ModeLines, error) {
 
 	if ch.HasDesign {
 		b := ch.Box
-		band, err := NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi),
+		band, err := figure.NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi),
 			ch.Y(b.FDLo*(1-ch.Clearance)), ch.Y(b.FDHi*(1+ch.Clearance)))
 		if err != nil {
 			return nil, nil, err
 		}
 		band.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}
-		band.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot()}
-		box, err := NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi), ch.Y(b.FDLo), ch.Y(b.FDHi))
+		band.LineStyle = draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.6), Dashes: figure.Dotted()}
+		box, err := figure.NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi), ch.Y(b.FDLo), ch.Y(b.FDHi))
 		if err != nil {
 			return nil, nil, err
 		}
 		box.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}
-		box.LineStyle = draw.LineStyle{Color: Ink, Width: vg.Points(0.9)}
+		box.LineStyle = draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.9)}
 		ml.Avoid = append(ml.Avoid,
 			Rect{band.XMin, band.XMax, band.YMin, band.YMax},
 			Rect{ch.X(ch.Design.Ratio), ch.X(ch.Design.Ratio), ch.Y(ch.Design.FD), ch.Y(ch.Design.FD)})
@@ -74,7 +75,7 @@ func (ch *Chart) Plot(th Theme) (*plot.Plot, *ModeLines, error) {
 
 // markStyle is the vertical line at a cavity's D/L.
 func markStyle() draw.LineStyle {
-	return draw.LineStyle{Color: Ink, Width: vg.Points(1.2), Dashes: dashLong()}
+	return draw.LineStyle{Color: figure.Ink, Width: vg.Points(1.2), Dashes: figure.LongDashed()}
 }
 
 // designGlyphs is the design-point marker: an ink dot in a white ring, seen
@@ -82,19 +83,19 @@ func markStyle() draw.LineStyle {
 func designGlyphs() []draw.GlyphStyle {
 	return []draw.GlyphStyle{
 		{Color: color.White, Radius: vg.Points(5.2), Shape: draw.CircleGlyph{}},
-		{Color: Ink, Radius: vg.Points(3.4), Shape: draw.CircleGlyph{}},
+		{Color: figure.Ink, Radius: vg.Points(3.4), Shape: draw.CircleGlyph{}},
 	}
 }
 
 // Figure returns the chart as a page: title, the panel of Plot, a legend
 // of the line styles present, and notes with the index convention, the
 // line equation and its source, and the design.
-func (ch *Chart) Figure(th Theme) (*Figure, error) {
+func (ch *Chart) Figure(th figure.Theme) (*figure.Figure, error) {
 	p, ml, err := ch.Plot(th)
 	if err != nil {
 		return nil, err
 	}
-	f := NewFigure(th, ch.Title())
+	f := figure.NewFigure(th, ch.Title())
 	f.Panels = []*plot.Plot{p}
 
 	present := map[Kind]bool{}
@@ -106,39 +107,39 @@ func (ch *Chart) Figure(th Theme) (*Figure, error) {
 		roles[l.Role] = true
 	}
 	if present[KindTE] {
-		f.Legend.Add("TE mode", LineThumb{ml.ModeLine(KindTE, Ordinary)})
+		f.Legend.Add("TE mode", figure.LineThumb{LineStyle: ml.ModeLine(KindTE, Ordinary)})
 	}
 	if present[KindTM] {
-		f.Legend.Add("TM mode", LineThumb{ml.ModeLine(KindTM, Ordinary)})
+		f.Legend.Add("TM mode", figure.LineThumb{LineStyle: ml.ModeLine(KindTM, Ordinary)})
 	}
 	if present[KindPair] {
-		f.Legend.Add("TE0mp/TM1mp pair (one line)", LineThumb{ml.ModeLine(KindPair, Ordinary)})
+		f.Legend.Add("TE0mp/TM1mp pair (one line)", figure.LineThumb{LineStyle: ml.ModeLine(KindPair, Ordinary)})
 	}
 	if ch.Wanted >= 0 {
 		l := ch.Lines[ch.Wanted]
-		f.Legend.Add("wanted: "+l.Label(), LineThumb{ml.ModeLine(l.Kind(), Wanted)})
+		f.Legend.Add("wanted: "+l.Label(), figure.LineThumb{LineStyle: ml.ModeLine(l.Kind(), Wanted)})
 	}
 	if roles[Crossing] {
-		f.Legend.Add("spurious, crosses operating box", LineThumb{ml.ModeLine(KindTE, Crossing)})
+		f.Legend.Add("spurious, crosses operating box", figure.LineThumb{LineStyle: ml.ModeLine(KindTE, Crossing)})
 	}
 	if roles[Near] || (ch.HasDesign && ch.Clearance > 0) {
-		f.Legend.Add(fmt.Sprintf("spurious, within %s clearance", pct(ch.Clearance)), LineThumb{ml.ModeLine(KindTE, Near)})
+		f.Legend.Add(fmt.Sprintf("spurious, within %s clearance", pct(ch.Clearance)), figure.LineThumb{LineStyle: ml.ModeLine(KindTE, Near)})
 	}
 	if ch.HasDesign {
-		f.Legend.Add(ch.boxCaption(), BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.9)}})
+		f.Legend.Add(ch.boxCaption(), figure.BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}, LineStyle: draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.9)}})
 		if ch.Clearance > 0 {
 			f.Legend.Add(fmt.Sprintf("clearance band ±%s", pct(ch.Clearance)),
-				BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}, LineStyle: draw.LineStyle{Color: Ink, Width: vg.Points(0.6), Dashes: dashDot()}})
+				figure.BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}, LineStyle: draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.6), Dashes: figure.Dotted()}})
 		}
 		thumbs := []plot.Thumbnailer{}
 		for _, g := range designGlyphs() {
-			thumbs = append(thumbs, GlyphThumb{g})
+			thumbs = append(thumbs, figure.GlyphThumb{GlyphStyle: g})
 		}
 		f.Legend.Add(fmt.Sprintf("design point, D/L = %.4g", ch.Design.Ratio), thumbs...)
 	}
 
 	if ch.MarkRatio != 0 {
-		f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), LineThumb{markStyle()})
+		f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), figure.LineThumb{LineStyle: markStyle()})
 	}
 
 	f.Notes = append(f.Notes,
@@ -146,7 +147,7 @@ func (ch *Chart) Figure(th Theme) (*Figure, error) {
 	if ch.HasDesign {
 		c := ch.Cavity
 		if ch.MarkRatio != 0 {
-			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), LineThumb{markStyle()})
+			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), figure.LineThumb{LineStyle: markStyle()})
 		}
 
 		f.Notes = append(f.Notes, fmt.Sprintf("Design: D = %s, L = %s, %v at %s%s.",
@@ -158,7 +159,7 @@ func (ch *Chart) Figure(th Theme) (*Figure, error) {
 			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), fillNote(ch.EpsR, ch.MuR)))
 	} else if ch.EpsR != 1 || ch.MuR != 1 {
 		if ch.MarkRatio != 0 {
-			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), LineThumb{markStyle()})
+			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), figure.LineThumb{LineStyle: markStyle()})
 		}
 
 		f.Notes = append(f.Notes, "Fill:"+strings.TrimPrefix(fillNote(ch.EpsR, ch.MuR), ",")+".")

@@ -13,6 +13,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 
 	"cylcav/cavity"
+	"cylcav/figure"
 )
 
 // TradeOffCurves are a design problem's curves against D/L, as the design
@@ -37,7 +38,7 @@ type TradeOffCurves struct {
 
 // TradeOffFigure returns the trade-off page: clearance (%) against D/L with
 // the requirement and the chosen design, and below it Q0 against D/L.
-func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
+func TradeOffFigure(th figure.Theme, title string, d TradeOffCurves) (*figure.Figure, error) {
 	n := len(d.Ratio)
 	if n < 2 {
 		return nil, fmt.Errorf("modechart: trade-off curves need at least 2 points, got %d", n)
@@ -50,16 +51,16 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 	if err := increasing("D/L", d.Ratio); err != nil {
 		return nil, err
 	}
-	f := NewFigure(th, title)
+	f := figure.NewFigure(th, title)
 	top := th.NewPlot("", "D/L   (diameter over length)", "clearance   [%]")
 	series := 0
 	add := func(p *plot.Plot, name string, xs, ys []float64, scale float64, sty draw.LineStyle) error {
-		segs, err := addCurve(p, xs, ys, scale, sty)
+		segs, err := figure.AddCurve(p, xs, ys, scale, sty)
 		if err != nil {
 			return err
 		}
 		if len(segs) > 0 && name != "" {
-			f.Legend.Add(name, LineThumb{sty})
+			f.Legend.Add(name, figure.LineThumb{LineStyle: sty})
 		}
 		return nil
 	}
@@ -77,7 +78,7 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 	if series == 0 && !hasFinite(d.WorstClearance) {
 		return nil, errors.New("modechart: trade-off curves hold no finite clearance")
 	}
-	req := draw.LineStyle{Color: Red, Width: vg.Points(1), Dashes: dashLong()}
+	req := draw.LineStyle{Color: figure.Red, Width: vg.Points(1), Dashes: figure.LongDashed()}
 	if d.MinClearance > 0 {
 		if err := addHLine(top, d.Ratio[0], d.Ratio[n-1], 100*d.MinClearance, req); err != nil {
 			return nil, err
@@ -98,11 +99,11 @@ func TradeOffFigure(th Theme, title string, d TradeOffCurves) (*Figure, error) {
 	}
 	switch {
 	case d.MinClearance > 0 && d.MinQ > 0 && hasFinite(d.Q0):
-		f.Legend.Add(fmt.Sprintf("requirements: clearance >= %s, Q0 >= %.5g", pct(d.MinClearance), d.MinQ), LineThumb{req})
+		f.Legend.Add(fmt.Sprintf("requirements: clearance >= %s, Q0 >= %.5g", pct(d.MinClearance), d.MinQ), figure.LineThumb{LineStyle: req})
 	case d.MinClearance > 0:
-		f.Legend.Add("required clearance >= "+pct(d.MinClearance), LineThumb{req})
+		f.Legend.Add("required clearance >= "+pct(d.MinClearance), figure.LineThumb{LineStyle: req})
 	case d.MinQ > 0 && hasFinite(d.Q0):
-		f.Legend.Add(fmt.Sprintf("required Q0 >= %.5g", d.MinQ), LineThumb{req})
+		f.Legend.Add(fmt.Sprintf("required Q0 >= %.5g", d.MinQ), figure.LineThumb{LineStyle: req})
 	}
 	stackPanels(f)
 	if d.Chosen != 0 {
@@ -157,7 +158,7 @@ type Series struct {
 // TuningFigure returns the tuning page: frequency against length for the
 // wanted mode (thick) and its neighbours (thin, named at their ends), and
 // the clearance along the path below.
-func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
+func TuningFigure(th figure.Theme, title string, d TuningCurves) (*figure.Figure, error) {
 	n := len(d.Length)
 	if n < 2 {
 		return nil, fmt.Errorf("modechart: tuning curve needs at least 2 points, got %d", n)
@@ -168,12 +169,12 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 	if len(d.Freq) != n || (d.Clearance != nil && len(d.Clearance) != n) {
 		return nil, fmt.Errorf("modechart: tuning curve has %d lengths but %d frequencies and %d clearances", n, len(d.Freq), len(d.Clearance))
 	}
-	fs, fu := FrequencyUnit(slices.Max(d.Freq))
+	fs, fu := figure.FrequencyUnit(slices.Max(d.Freq))
 	mm := make([]float64, n)
 	for i, l := range d.Length {
 		mm[i] = l * 1e3
 	}
-	f := NewFigure(th, title)
+	f := figure.NewFigure(th, title)
 	top := th.NewPlot("", "cavity length L   [mm]", "resonant frequency   ["+fu+"]")
 	var bot *plot.Plot
 	if hasFinite(d.Clearance) {
@@ -190,22 +191,22 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 			if p == nil {
 				continue
 			}
-			reg, err := NewRegion(lo*1e3, hi*1e3, 0, 1)
+			reg, err := figure.NewRegion(lo*1e3, hi*1e3, 0, 1)
 			if err != nil {
 				return nil, err
 			}
 			reg.Fill, reg.LineStyle.Width, reg.NoRange, reg.FullHeight = band, 0, true, true
 			p.Add(reg)
 		}
-		f.Legend.Add("tuning range", BoxThumb{Fill: band})
+		f.Legend.Add("tuning range", figure.BoxThumb{Fill: band})
 	}
 	var ends []PointLabel
-	thin := draw.LineStyle{Color: Blue, Width: th.LineWidth}
+	thin := draw.LineStyle{Color: figure.Blue, Width: th.LineWidth}
 	for _, o := range d.Others {
 		if len(o.Y) != n {
 			return nil, fmt.Errorf("modechart: tuning curve has %d lengths but %s has %d points", n, o.Name, len(o.Y))
 		}
-		segs, err := addCurve(top, mm, o.Y, 1/fs, thin)
+		segs, err := figure.AddCurve(top, mm, o.Y, 1/fs, thin)
 		if err != nil {
 			return nil, err
 		}
@@ -216,17 +217,17 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 		}
 	}
 	if len(d.Others) > 0 {
-		f.Legend.Add("other modes", LineThumb{thin})
+		f.Legend.Add("other modes", figure.LineThumb{LineStyle: thin})
 	}
-	wsty := draw.LineStyle{Color: Ink, Width: 2.6 * th.LineWidth}
-	segs, err := addCurve(top, mm, d.Freq, 1/fs, wsty)
+	wsty := draw.LineStyle{Color: figure.Ink, Width: 2.6 * th.LineWidth}
+	segs, err := figure.AddCurve(top, mm, d.Freq, 1/fs, wsty)
 	if err != nil {
 		return nil, err
 	}
 	if len(segs) == 0 {
 		return nil, errors.New("modechart: tuning curve holds no finite frequency")
 	}
-	f.Legend.Add("wanted: "+d.Wanted, LineThumb{wsty})
+	f.Legend.Add("wanted: "+d.Wanted, figure.LineThumb{LineStyle: wsty})
 	if len(ends) > 0 {
 		pl, err := NewPointLabels(ends)
 		if err != nil {
@@ -237,10 +238,10 @@ func TuningFigure(th Theme, title string, d TuningCurves) (*Figure, error) {
 	}
 	f.Panels = append(f.Panels, top)
 	if bot != nil {
-		if _, err := addCurve(bot, mm, d.Clearance, 100, th.Series(2)); err != nil {
+		if _, err := figure.AddCurve(bot, mm, d.Clearance, 100, th.Series(2)); err != nil {
 			return nil, err
 		}
-		f.Legend.Add("clearance along the tuning path", LineThumb{th.Series(2)})
+		f.Legend.Add("clearance along the tuning path", figure.LineThumb{LineStyle: th.Series(2)})
 		f.Panels = append(f.Panels, bot)
 	}
 	stackPanels(f)
@@ -273,7 +274,7 @@ type ModeQ struct {
 // QFigure returns the plot of unloaded Q0 against frequency for a set of
 // modes of one cavity: TE as circles, TM as triangles, the wanted mode as
 // the design marker, every point named where there is room.
-func QFigure(th Theme, title string, modes []ModeQ) (*Figure, error) {
+func QFigure(th figure.Theme, title string, modes []ModeQ) (*figure.Figure, error) {
 	if len(modes) == 0 {
 		return nil, errors.New("modechart: no modes to plot")
 	}
@@ -284,18 +285,18 @@ func QFigure(th Theme, title string, modes []ModeQ) (*Figure, error) {
 		}
 		fmax = math.Max(fmax, m.Frequency)
 	}
-	fs, fu := FrequencyUnit(fmax)
+	fs, fu := figure.FrequencyUnit(fmax)
 	p := th.NewPlot("", "resonant frequency   ["+fu+"]", "unloaded Q0")
-	f := NewFigure(th, title)
+	f := figure.NewFigure(th, title)
 	groups := []struct {
 		name string
 		keep func(ModeQ) bool
 		sty  []draw.GlyphStyle
 	}{
 		{"TE modes", func(m ModeQ) bool { return !m.Wanted && m.Mode.Family == cavity.TE },
-			[]draw.GlyphStyle{{Color: Blue, Radius: vg.Points(3.2), Shape: draw.CircleGlyph{}}}},
+			[]draw.GlyphStyle{{Color: figure.Blue, Radius: vg.Points(3.2), Shape: draw.CircleGlyph{}}}},
 		{"TM modes", func(m ModeQ) bool { return !m.Wanted && m.Mode.Family == cavity.TM },
-			[]draw.GlyphStyle{{Color: Purple, Radius: vg.Points(3.6), Shape: draw.TriangleGlyph{}}}},
+			[]draw.GlyphStyle{{Color: figure.Purple, Radius: vg.Points(3.6), Shape: draw.TriangleGlyph{}}}},
 		{"wanted mode", func(m ModeQ) bool { return m.Wanted }, designGlyphs()},
 	}
 	var labels []PointLabel
@@ -318,7 +319,7 @@ func QFigure(th Theme, title string, modes []ModeQ) (*Figure, error) {
 			}
 			s.GlyphStyle = sty
 			p.Add(s)
-			thumbs = append(thumbs, GlyphThumb{sty})
+			thumbs = append(thumbs, figure.GlyphThumb{GlyphStyle: sty})
 		}
 		f.Legend.Add(g.name, thumbs...)
 	}
@@ -336,44 +337,10 @@ func QFigure(th Theme, title string, modes []ModeQ) (*Figure, error) {
 	return f, nil
 }
 
-// FrequencyUnit picks the unit of a frequency axis whose values reach f
-// (Hz): the largest of Hz, kHz, MHz and GHz not above f, returned as its
-// size in Hz and its name. Frequencies below 1 kHz, including zero,
-// negative and NaN ones, give Hz; those from 1 THz up stay in GHz.
-func FrequencyUnit(f float64) (scale float64, name string) {
-	switch {
-	case f >= 1e9:
-		return 1e9, "GHz"
-	case f >= 1e6:
-		return 1e6, "MHz"
-	case f >= 1e3:
-		return 1e3, "kHz"
-	}
-	return 1, "Hz"
-}
-
-// addCurve draws (x, y·scale) on p as lines in style sty, broken where y is
-// not finite (see segments), and returns the runs drawn.
-func addCurve(p *plot.Plot, xs, ys []float64, scale float64, sty draw.LineStyle) ([]plotter.XYs, error) {
-	segs, err := segments(xs, ys, scale)
-	if err != nil {
-		return nil, err
-	}
-	for _, s := range segs {
-		l, err := plotter.NewLine(s)
-		if err != nil {
-			return nil, err
-		}
-		l.LineStyle = sty
-		p.Add(l)
-	}
-	return segs, nil
-}
-
 // stackPanels readies the panels of a figure whose plots share the x axis:
 // every y range padded so that markers at the extremes are not clipped, and
 // the x-axis title kept on the bottom panel only.
-func stackPanels(f *Figure) {
+func stackPanels(f *figure.Figure) {
 	for _, p := range f.Panels {
 		padY(p, 0.08)
 	}
@@ -415,32 +382,6 @@ func hasFinite(ys []float64) bool {
 		}
 	}
 	return false
-}
-
-// segments splits (x, y·scale) at NaN or infinite y into runs of at least
-// two points (single finite points are dropped).
-func segments(xs, ys []float64, scale float64) ([]plotter.XYs, error) {
-	if len(xs) != len(ys) {
-		return nil, fmt.Errorf("modechart: %d x values but %d y values", len(xs), len(ys))
-	}
-	var out []plotter.XYs
-	var cur plotter.XYs
-	flush := func() {
-		if len(cur) >= 2 {
-			out = append(out, cur)
-		}
-		cur = nil
-	}
-	for i := range xs {
-		y := ys[i] * scale
-		if math.IsNaN(y) || math.IsInf(y, 0) {
-			flush()
-			continue
-		}
-		cur = append(cur, plotter.XY{X: xs[i], Y: y})
-	}
-	flush()
-	return out, nil
 }
 
 // interp returns y at x by linear interpolation on increasing xs (NaN
@@ -490,7 +431,7 @@ func addMarker(p *plot.Plot, x, y float64) error {
 func glyphThumbs() []plot.Thumbnailer {
 	var out []plot.Thumbnailer
 	for _, g := range designGlyphs() {
-		out = append(out, GlyphThumb{g})
+		out = append(out, figure.GlyphThumb{GlyphStyle: g})
 	}
 	return out
 }

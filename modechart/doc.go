@@ -1,6 +1,7 @@
 // Package modechart draws the mode chart of a closed circular-cylindrical
-// cavity and the other pictures of a cavity design, and holds the plotting
-// layer every cylcav image shares.
+// cavity and the other pictures of a cavity design (trade-off, tuning and
+// Q-versus-frequency figures), through the shared plotting layer of
+// package figure.
 //
 // The chart is data first: New lists every TE and TM mode whose line enters
 // the chart, each as the straight line
@@ -14,13 +15,8 @@
 // by a deterministic greedy method (ModeLines.Layout) that keeps them inside
 // the axes and apart from each other.
 //
-// The plotting layer, used by the mode chart, the design plots of this
-// package and by the filter response plots: Theme (fonts, the palette and
-// the line-style scheme, readable in greyscale and by colour-blind
-// readers), Figure and Legend (stacked panels with a legend and notes), the
-// Region plotter (shaded boxes and masks), and Render/Encode, which write
-// any Drawer (a *plot.Plot or a *Figure) as PNG at a chosen resolution, SVG
-// or PDF, byte-for-byte reproducibly.
+// The mode-chart styles (ModeLines.ModeLine: family by dash, role by
+// colour and width) use the palette of package figure.
 //
 // The index convention, used everywhere in cylcav: n azimuthal, m radial,
 // p axial.
@@ -31,7 +27,4 @@
 //   - R. F. Harrington, Time-Harmonic Electromagnetic Fields, McGraw-Hill
 //     1961, sec. 5.3 (resonant frequencies of the circular cavity).
 //   - DLMF 10.6.3 (J'_0 = -J_1, hence TE0mp and TM1mp coincide).
-//   - P. Tol, Colour Schemes, SRON/EPS/TN/09-002, issue 3.2 (2021)
-//     (colour-blind-safe qualitative palettes).
-//   - ISO 32000-1:2008, sec. 7.9.4 (PDF date strings).
 package modechart

@@ -7,6 +7,7 @@ import (
 	"log"
 
 	"cylcav/cavity"
+	"cylcav/figure"
 	"cylcav/modechart"
 )
 
@@ -47,12 +48,12 @@ func ExampleRender() {
 	if err != nil {
 		log.Fatal(err)
 	}
-	fig, err := ch.Figure(modechart.DefaultTheme())
+	fig, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
 		log.Fatal(err)
 	}
 	var buf bytes.Buffer
-	if err := modechart.Render(&buf, fig, modechart.PNG, modechart.Page{DPI: 100}); err != nil {
+	if err := figure.Render(&buf, fig, figure.PNG, figure.Page{DPI: 100}); err != nil {
 		log.Fatal(err)
 	}
 	cfg, err := png.DecodeConfig(&buf)

@@ -2,7 +2,6 @@ package modechart
 
 import (
 	"bytes"
-	"fmt"
 	"image/png"
 	"math"
 	"strings"
@@ -11,70 +10,8 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"cylcav/cavity"
+	"cylcav/figure"
 )
-
-// TestFrequencyUnit checks the axis unit at and around each SI prefix step
-// (BIPM, The International System of Units, 9th ed., Table 7: k = 1e3,
-// M = 1e6, G = 1e9).
-func TestFrequencyUnit(t *testing.T) {
-	for _, c := range []struct {
-		f     float64
-		scale float64
-		name  string
-	}{
-		{0, 1, "Hz"}, {math.NaN(), 1, "Hz"}, {999, 1, "Hz"},
-		{1e3, 1e3, "kHz"}, {999e3, 1e3, "kHz"},
-		{1e6, 1e6, "MHz"}, {915e6, 1e6, "MHz"},
-		{1e9, 1e9, "GHz"}, {24e9, 1e9, "GHz"}, {3e12, 1e9, "GHz"},
-	} {
-		scale, name := FrequencyUnit(c.f)
-		if scale != c.scale || name != c.name {
-			t.Errorf("FrequencyUnit(%g) = %g, %q, want %g, %q", c.f, scale, name, c.scale, c.name)
-		}
-	}
-}
-
-// TestTicks checks the nice-number ticks (Heckbert 1990): majors are
-// multiples of a 1-2-5 step inside the range, labelled, and about N of
-// them; minors lie between them.
-func TestTicks(t *testing.T) {
-	for _, c := range []struct {
-		min, max float64
-		step     float64 // hand-computed from Heckbert's rules
-	}{
-		{0, 9, 2},         // 9/6 = 1.5, not below 1.5, so 2
-		{0, 100, 20},      // 100/6 = 16.7 -> 2 x 10
-		{0.25, 9, 1},      // 8.75/6 = 1.46 -> 1
-		{1800, 4000, 500}, // 2200/6 = 367 -> 5 x 100
-		{-0.3, 0.7, 0.2},  // 1/6 = 0.167 -> 2 x 0.1
-	} {
-		// Tick values are built as multiples of the step, so they carry a
-		// few roundings: tickEdgeTol (absolute, for ranges of order 1 to
-		// 4000) at the range ends and tickStepTol (relative) in the step.
-		const tickEdgeTol, tickStepTol = 1e-12, 1e-9
-		ticks := Ticks{}.Ticks(c.min, c.max)
-		var majors []float64
-		for _, tk := range ticks {
-			if tk.Value < c.min-tickEdgeTol || tk.Value > c.max+tickEdgeTol {
-				t.Errorf("Ticks(%g, %g): tick %g outside the range", c.min, c.max, tk.Value)
-			}
-			if tk.Label != "" {
-				majors = append(majors, tk.Value)
-			}
-		}
-		if len(majors) < 3 || len(majors) > 11 {
-			t.Errorf("Ticks(%g, %g): %d major ticks, want 3..11", c.min, c.max, len(majors))
-		}
-		for i := 1; i < len(majors); i++ {
-			if d := majors[i] - majors[i-1]; math.Abs(d-c.step) > tickStepTol*c.step {
-				t.Errorf("Ticks(%g, %g): step %g, want %g", c.min, c.max, d, c.step)
-			}
-		}
-	}
-	if got := (Ticks{}).Ticks(1, 1); got != nil {
-		t.Errorf("Ticks(1, 1) = %v, want none", got)
-	}
-}
 
 func TestTradeOffFigure(t *testing.T) {
 	n := 50
@@ -87,7 +24,7 @@ func TestTradeOffFigure(t *testing.T) {
 		d.Q0 = append(d.Q0, 23000-2000*(r-1)*(r-1))
 	}
 	d.Q0[10] = math.NaN() // a gap in the curve is allowed
-	f, err := TradeOffFigure(DefaultTheme(), "trade-off", d)
+	f, err := TradeOffFigure(figure.DefaultTheme(), "trade-off", d)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -98,15 +35,15 @@ func TestTradeOffFigure(t *testing.T) {
 	bad := d
 	bad.Ratio = append([]float64(nil), d.Ratio...)
 	bad.Ratio[5] = bad.Ratio[4]
-	if _, err := TradeOffFigure(DefaultTheme(), "", bad); err == nil || !strings.Contains(err.Error(), "increase strictly") {
+	if _, err := TradeOffFigure(figure.DefaultTheme(), "", bad); err == nil || !strings.Contains(err.Error(), "increase strictly") {
 		t.Errorf("repeated ratio: error = %v", err)
 	}
 	bad = d
 	bad.Chosen = 7
-	if _, err := TradeOffFigure(DefaultTheme(), "", bad); err == nil || !strings.Contains(err.Error(), "outside") {
+	if _, err := TradeOffFigure(figure.DefaultTheme(), "", bad); err == nil || !strings.Contains(err.Error(), "outside") {
 		t.Errorf("chosen outside: error = %v", err)
 	}
-	if _, err := TradeOffFigure(DefaultTheme(), "", TradeOffCurves{Ratio: []float64{1}}); err == nil {
+	if _, err := TradeOffFigure(figure.DefaultTheme(), "", TradeOffCurves{Ratio: []float64{1}}); err == nil {
 		t.Error("one point: no error")
 	}
 }
@@ -127,13 +64,13 @@ func TestTuningAndQFigures(t *testing.T) {
 		s.Y = append(s.Y, cavity.Cavity{Radius: c.Radius, Length: p.Length}.Frequency(other))
 	}
 	d.Others = []Series{s}
-	f, err := TuningFigure(DefaultTheme(), "tuning", d)
+	f, err := TuningFigure(figure.DefaultTheme(), "tuning", d)
 	if err != nil {
 		t.Fatal(err)
 	}
 	checkPNG(t, "tuning", f)
 	d.Range = [2]float64{0.02, 0.031}
-	if _, err := TuningFigure(DefaultTheme(), "", d); err == nil || !strings.Contains(err.Error(), "tuning range") {
+	if _, err := TuningFigure(figure.DefaultTheme(), "", d); err == nil || !strings.Contains(err.Error(), "tuning range") {
 		t.Errorf("range outside: error = %v", err)
 	}
 
@@ -141,13 +78,13 @@ func TestTuningAndQFigures(t *testing.T) {
 	for i, m := range []cavity.Mode{te011, tm111, tm010, {Family: cavity.TE, N: 1, M: 1, P: 1}} {
 		qs = append(qs, ModeQ{Mode: m, Frequency: c.Frequency(m), Q0: 10000 + 3000*float64(i), Wanted: i == 0})
 	}
-	qf, err := QFigure(DefaultTheme(), "Q", qs)
+	qf, err := QFigure(figure.DefaultTheme(), "Q", qs)
 	if err != nil {
 		t.Fatal(err)
 	}
 	checkPNG(t, "Q", qf)
 	qs[1].Q0 = math.Inf(1)
-	if _, err := QFigure(DefaultTheme(), "", qs); err == nil || !strings.Contains(err.Error(), "TM111") {
+	if _, err := QFigure(figure.DefaultTheme(), "", qs); err == nil || !strings.Contains(err.Error(), "TM111") {
 		t.Errorf("infinite Q0: error = %v", err)
 	}
 }
@@ -155,7 +92,7 @@ func TestTuningAndQFigures(t *testing.T) {
 // TestPointLabels checks the point-label layout: inside the axes, clear
 // of each other and of every marker.
 func TestPointLabels(t *testing.T) {
-	th := DefaultTheme()
+	th := figure.DefaultTheme()
 	p := th.NewPlot("", "x", "y")
 	var ls []PointLabel
 	for i := 0; i < 30; i++ {
@@ -201,57 +138,26 @@ func TestPointLabels(t *testing.T) {
 }
 
 func TestPlotterContract(t *testing.T) {
-	if _, err := NewRegion(0, 1, 0, math.Inf(1)); err == nil {
-		t.Error("NewRegion with Inf: no error")
-	}
-	if _, err := NewRegion(2, 1, 0, 1); err == nil {
-		t.Error("NewRegion with xmin > xmax: no error")
-	}
-	r, err := NewRegion(0, 1, 2, 3)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if x0, x1, y0, y1 := r.DataRange(); x0 != 0 || x1 != 1 || y0 != 2 || y1 != 3 {
-		t.Errorf("Region.DataRange = %g %g %g %g, want 0 1 2 3", x0, x1, y0, y1)
-	}
 	if _, err := NewModeLines(&Chart{}); err == nil {
 		t.Error("NewModeLines of an empty chart: no error")
 	}
 }
 
-// TestSeriesStylesDistinct checks that the six series styles differ in
-// dash pattern or in width and lightness, so they stay apart in greyscale.
-func TestSeriesStylesDistinct(t *testing.T) {
-	th := DefaultTheme()
-	type key struct {
-		dash string
-		grey uint8
-	}
-	seen := map[key]int{}
-	for i := 0; i < 6; i++ {
-		s := th.Series(i)
-		r, g, b, _ := s.Color.RGBA()
-		// ITU-R BT.601 luma, the usual greyscale conversion.
-		y := uint8((299*r + 587*g + 114*b) / 1000 >> 8)
-		k := key{dash: fmtDashes(s.Dashes), grey: y / 32}
-		if j, dup := seen[k]; dup {
-			t.Errorf("series %d and %d look alike in greyscale (dash %q, grey band %d)", j, i, k.dash, k.grey)
-		}
-		seen[k] = i
-	}
+// TestModeLineStyles checks that the wanted line of every kind is solid and
+// over twice as wide as an ordinary one, so it stands out in greyscale.
+func TestModeLineStyles(t *testing.T) {
+	ml := &ModeLines{Theme: figure.DefaultTheme()}
 	for _, k := range []Kind{KindTE, KindTM, KindPair} {
-		o, w := th.ModeLine(k, Ordinary), th.ModeLine(k, Wanted)
+		o, w := ml.ModeLine(k, Ordinary), ml.ModeLine(k, Wanted)
 		if w.Width <= 2*o.Width || w.Dashes != nil {
 			t.Errorf("wanted %v line: width %v dashes %v, want solid and over twice %v", k, w.Width, w.Dashes, o.Width)
 		}
 	}
 }
 
-func fmtDashes(d []vg.Length) string { return fmt.Sprint(d) }
-
-func checkPNG(t *testing.T, name string, d Drawer) {
+func checkPNG(t *testing.T, name string, d figure.Drawer) {
 	t.Helper()
-	b, err := Encode(d, PNG, Page{Width: 5 * vg.Inch, Height: 4 * vg.Inch, DPI: 72})
+	b, err := figure.Encode(d, figure.PNG, figure.Page{Width: 5 * vg.Inch, Height: 4 * vg.Inch, DPI: 72})
 	if err != nil {
 		t.Fatalf("%s: %v", name, err)
 	}

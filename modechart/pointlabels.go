@@ -9,6 +9,8 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+
+	"cylcav/figure"
 )
 
 // PointLabel is a text to be placed next to a data point.
@@ -26,7 +28,7 @@ type PointLabels struct {
 	// Labels are the points and texts, copied.
 	Labels []PointLabel
 	// Theme gives the font (LabelSize) and colour.
-	Theme
+	figure.Theme
 	// Offset is the gap between a point and its label; MarkerRadius the
 	// radius of the points' markers, kept free of labels.
 	Offset, MarkerRadius vg.Length
@@ -45,7 +47,7 @@ func NewPointLabels(ls []PointLabel) (*PointLabels, error) {
 	}
 	return &PointLabels{
 		Labels:       append([]PointLabel(nil), ls...),
-		Theme:        DefaultTheme(),
+		Theme:        figure.DefaultTheme(),
 		Offset:       vg.Points(3),
 		MarkerRadius: vg.Points(4),
 	}, nil
@@ -53,7 +55,7 @@ func NewPointLabels(ls []PointLabel) (*PointLabels, error) {
 
 func (pl *PointLabels) style(l PointLabel) text.Style {
 	if l.Bold {
-		return pl.Bold(pl.LabelSize*1.15, Ink)
+		return pl.Bold(pl.LabelSize*1.15, figure.Ink)
 	}
 	return pl.Text(pl.LabelSize*1.1, color.Gray{Y: 0x22})
 }

@@ -2,13 +2,10 @@ package modechart
 
 import (
 	"bytes"
-	"encoding/xml"
 	"flag"
-	"fmt"
 	"math"
 	"os"
 	"path/filepath"
-	"strings"
 	"testing"
 
 	"gonum.org/v1/plot"
@@ -18,7 +15,8 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 
 	"cylcav/cavity"
-	"cylcav/modechart/rendertest"
+	"cylcav/figure"
+	"cylcav/figure/rendertest"
 )
 
 var regen = flag.Bool("regen", false, "rewrite the golden files in testdata/modechart")
@@ -68,7 +66,7 @@ func TestLabelLayout(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: %v", lc.name, err)
 		}
-		p, ml, err := ch.Plot(DefaultTheme())
+		p, ml, err := ch.Plot(figure.DefaultTheme())
 		if err != nil {
 			t.Fatalf("%s: %v", lc.name, err)
 		}
@@ -148,7 +146,7 @@ func TestDrawnLabelsInside(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, _, err := ch.Plot(DefaultTheme())
+	p, _, err := ch.Plot(figure.DefaultTheme())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -168,7 +166,7 @@ func TestDrawnLabelsInside(t *testing.T) {
 			continue
 		}
 		drawn++
-		sty := DefaultTheme().Text(fs.Size, Ink)
+		sty := figure.DefaultTheme().Text(fs.Size, figure.Ink)
 		sty.Font = fs.Font
 		right := fs.Point.X + sty.Width(fs.String)
 		if !dc.Contains(fs.Point) || right > dc.Max.X {
@@ -180,13 +178,13 @@ func TestDrawnLabelsInside(t *testing.T) {
 	}
 }
 
-func demoFigure(t testing.TB) *Figure {
+func demoFigure(t testing.TB) *figure.Figure {
 	t.Helper()
 	ch, err := New(designSpec())
 	if err != nil {
 		t.Fatal(err)
 	}
-	f, err := ch.Figure(DefaultTheme())
+	f, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -198,13 +196,13 @@ func demoFigure(t testing.TB) *Figure {
 // has its header and trailer) and that rendering twice gives the same
 // bytes.
 func TestFormats(t *testing.T) {
-	pg := Page{Width: 6 * vg.Inch, Height: 4.5 * vg.Inch, DPI: 100}
-	for _, f := range []Format{PNG, SVG, PDF} {
-		a, err := Encode(demoFigure(t), f, pg)
+	pg := figure.Page{Width: 6 * vg.Inch, Height: 4.5 * vg.Inch, DPI: 100}
+	for _, f := range []figure.Format{figure.PNG, figure.SVG, figure.PDF} {
+		a, err := figure.Encode(demoFigure(t), f, pg)
 		if err != nil {
 			t.Fatalf("%v: %v", f, err)
 		}
-		b, err := Encode(demoFigure(t), f, pg)
+		b, err := figure.Encode(demoFigure(t), f, pg)
 		if err != nil {
 			t.Fatalf("%v: %v", f, err)
 		}
@@ -212,9 +210,9 @@ func TestFormats(t *testing.T) {
 			t.Errorf("%v: two renders of the same chart differ (%d and %d bytes)", f, len(a), len(b))
 		}
 		switch f {
-		case PNG:
+		case figure.PNG:
 			rendertest.PNG(t, a, 600, 450) // 6 x 4.5 in at 100 dpi
-		case SVG:
+		case figure.SVG:
 			rendertest.SVG(t, a)
 			if !bytes.Contains(a, []byte("TE011/TM111")) {
 				t.Error("SVG lacks the wanted mode's label")
@@ -222,82 +220,11 @@ func TestFormats(t *testing.T) {
 			if !bytes.Contains(a, []byte("Liberation Sans,Arial,Helvetica,sans-serif")) {
 				t.Error("SVG fonts lack the sans-serif fallbacks")
 			}
-		case PDF:
+		case figure.PDF:
 			rendertest.PDF(t, a)
-			if !bytes.Contains(a, []byte("/CreationDate (D:"+FixedPDFDate)) {
+			if !bytes.Contains(a, []byte("/CreationDate (D:"+figure.FixedPDFDate)) {
 				t.Error("PDF creation date not fixed")
 			}
-			checkPDFXref(t, a)
-		}
-	}
-}
-
-// checkPDFXref checks that the startxref offset points at the xref table,
-// which the date rewrite must not disturb.
-func checkPDFXref(t *testing.T, b []byte) {
-	t.Helper()
-	i := bytes.LastIndex(b, []byte("startxref"))
-	if i < 0 {
-		t.Fatal("PDF has no startxref")
-	}
-	var off int
-	if _, err := fmt.Sscan(string(b[i+len("startxref"):]), &off); err != nil {
-		t.Fatalf("PDF startxref: %v", err)
-	}
-	if off <= 0 || off >= len(b) || !bytes.HasPrefix(b[off:], []byte("xref")) {
-		t.Errorf("PDF startxref %d does not point at the xref table", off)
-	}
-}
-
-func TestEncodeAs(t *testing.T) {
-	p := DefaultTheme().NewPlot("a plot", "x [1]", "y [1]")
-	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = 0, 1, 0, 1
-	b, err := EncodeAs(p, "plot.svg", Page{Width: 3 * vg.Inch, Height: 2 * vg.Inch})
-	if err != nil || !bytes.Contains(b, []byte("<svg")) {
-		t.Errorf("EncodeAs(plot.svg) = %d bytes, %v; want an SVG", len(b), err)
-	}
-	if _, err := EncodeAs(p, "plot.bmp", Page{}); err == nil {
-		t.Error("EncodeAs(plot.bmp): no error")
-	}
-}
-
-func TestPageErrors(t *testing.T) {
-	f := demoFigure(t)
-	for _, c := range []struct {
-		pg   Page
-		want string
-	}{
-		{Page{DPI: 5}, "36..1200 dpi, got 5"},
-		{Page{Width: 100 * vg.Inch, Height: 2 * vg.Inch}, "width must be in 1..40 in, got 100 in"},
-		{Page{Width: 40 * vg.Inch, Height: 40 * vg.Inch, DPI: 1200}, "megapixel limit"},
-	} {
-		if _, err := Encode(f, PNG, c.pg); err == nil || !strings.Contains(err.Error(), c.want) {
-			t.Errorf("Encode(%+v) error = %v, want one containing %q", c.pg, err, c.want)
-		}
-	}
-	if _, err := Encode(f, Format(9), Page{}); err == nil {
-		t.Error("Encode with an unknown format: no error")
-	}
-}
-
-func TestFormatOf(t *testing.T) {
-	for _, c := range []struct {
-		path string
-		want Format
-		err  string
-	}{
-		{"chart.png", PNG, ""}, {"a/b/Chart.SVG", SVG, ""}, {"sheet.pdf", PDF, ""},
-		{"chart", 0, "no extension"}, {"chart.jpg", 0, `unknown extension ".jpg"`},
-	} {
-		got, err := FormatOf(c.path)
-		if c.err != "" {
-			if err == nil || !strings.Contains(err.Error(), c.err) {
-				t.Errorf("FormatOf(%q) error = %v, want %q", c.path, err, c.err)
-			}
-			continue
-		}
-		if err != nil || got != c.want {
-			t.Errorf("FormatOf(%q) = %v, %v, want %v", c.path, got, err, c.want)
 		}
 	}
 }
@@ -316,11 +243,11 @@ func TestGoldenSVG(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	f, err := ch.Figure(DefaultTheme())
+	f, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
 		t.Fatal(err)
 	}
-	got, err := Encode(f, SVG, Page{Width: 5 * vg.Inch, Height: 4 * vg.Inch})
+	got, err := figure.Encode(f, figure.SVG, figure.Page{Width: 5 * vg.Inch, Height: 4 * vg.Inch})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -337,26 +264,5 @@ func TestGoldenSVG(t *testing.T) {
 	}
 	if !bytes.Equal(got, want) {
 		t.Errorf("SVG differs from %s (%d bytes, want %d); if intended, rerun with -regen and view the file", path, len(got), len(want))
-	}
-}
-
-func TestInlineSVG(t *testing.T) {
-	svg, err := Encode(demoFigure(t), SVG, Page{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	in := InlineSVG(svg, "Mode chart <demo>")
-	if bytes.Contains(in, []byte("<?xml")) || !bytes.HasPrefix(in, []byte("<svg")) {
-		t.Errorf("inline SVG starts %q, want <svg without the XML declaration", in[:20])
-	}
-	head := string(in[:bytes.IndexByte(in, '>')])
-	if strings.Contains(head, `width="`) || strings.Contains(head, ` height="`) || !strings.Contains(head, "viewBox=") {
-		t.Errorf("inline SVG start tag %q: want no width/height and a viewBox", head)
-	}
-	if !bytes.Contains(in, []byte("<title>Mode chart &lt;demo&gt;</title>")) {
-		t.Error("inline SVG lacks the escaped title")
-	}
-	if err := xml.Unmarshal(in, new(struct{})); err != nil {
-		t.Errorf("inline SVG is not well-formed: %v", err)
 	}
 }

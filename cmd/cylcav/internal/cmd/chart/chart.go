@@ -17,6 +17,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
 	"cylcav/modechart"
 	"cylcav/physics"
 )
@@ -35,8 +36,8 @@ type Options struct {
 	FillName string
 
 	Output string
-	Format modechart.Format
-	Page   modechart.Page
+	Format figure.Format
+	Page   figure.Page
 	Force  bool
 }
 
@@ -161,15 +162,15 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Output == "" {
 				return cmdutil.Usagef("missing -o/--output, the image file to write (.png, .svg or .pdf)")
 			}
-			if opts.Format, err = modechart.FormatOf(opts.Output); err != nil {
+			if opts.Format, err = figure.FormatOf(opts.Output); err != nil {
 				return cmdutil.FlagError("output", opts.Output, errors.New("the file name must end in .png, .svg or .pdf"))
 			}
-			if dpi < modechart.MinDPI || dpi > modechart.MaxDPI {
-				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", modechart.MinDPI, modechart.MaxDPI))
+			if dpi < figure.MinDPI || dpi > figure.MaxDPI {
+				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
 			}
 			opts.Page.DPI = dpi
 			// Page limits in metres (1 in = 0.0254 m exactly).
-			pmin, pmax := inches(modechart.MinPage), inches(modechart.MaxPage)
+			pmin, pmax := inches(figure.MinPage), inches(figure.MaxPage)
 			w, err := cmdutil.Length("width", width, pmin, pmax)
 			if err != nil {
 				return err
@@ -205,7 +206,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the box are emphasised")
 	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
 	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
-	f.IntVar(&dpi, "dpi", modechart.DefaultDPI, "resolution of PNG output, dots per inch")
+	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
 	f.StringVar(&width, "width", "8in", "page width")
 	f.StringVar(&height, "height", "6in", "page height")
 	_ = cmd.RegisterFlagCompletionFunc("units", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
@@ -322,12 +323,12 @@ func runChart(opts *Options) error {
 		// Every chart error is a consequence of the flags.
 		return cmdutil.Usagef("%v", err)
 	}
-	fig, err := ch.Figure(modechart.DefaultTheme())
+	fig, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
 		return err
 	}
 	err = cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
-		return modechart.Render(b, fig, opts.Format, opts.Page)
+		return figure.Render(b, fig, opts.Format, opts.Page)
 	})
 	if err != nil {
 		return err
@@ -340,7 +341,7 @@ func runChart(opts *Options) error {
 func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
 	var b strings.Builder
 	size := fmt.Sprintf("%.4g x %.4g in", opts.Page.Width/vg.Inch, opts.Page.Height/vg.Inch)
-	if opts.Format == modechart.PNG {
+	if opts.Format == figure.PNG {
 		size = fmt.Sprintf("%d x %d px at %d dpi",
 			int(float64(opts.Page.Width/vg.Inch)*float64(opts.Page.DPI)+0.5),
 			int(float64(opts.Page.Height/vg.Inch)*float64(opts.Page.DPI)+0.5), opts.Page.DPI)

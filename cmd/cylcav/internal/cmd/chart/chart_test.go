@@ -11,8 +11,9 @@ import (
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/chart"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
+	"cylcav/figure/rendertest"
 	"cylcav/modechart"
-	"cylcav/modechart/rendertest"
 )
 
 // parse runs `chart` with runF capturing the options.
@@ -118,7 +119,7 @@ func TestSizeFirst(t *testing.T) {
 	if f := c.Frequency(o.Spec.Wanted); math.Abs(f-5e9) > 5e9*1e-12 {
 		t.Errorf("sized frequency = %.12g Hz, want 5e9", f)
 	}
-	if o.Spec.Units != modechart.MHzIn || o.Spec.Axes != modechart.Linear || o.Format != modechart.SVG {
+	if o.Spec.Units != modechart.MHzIn || o.Spec.Axes != modechart.Linear || o.Format != figure.SVG {
 		t.Errorf("units %v axes %v format %v", o.Spec.Units, o.Spec.Axes, o.Format)
 	}
 	// --max-fd is in the chosen units: 20000 MHz·in = 20000 x 25400 Hz·m.

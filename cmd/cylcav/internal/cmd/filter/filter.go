@@ -17,8 +17,8 @@ import (
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
 	bandpass "cylcav/filter"
-	"cylcav/modechart"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -83,7 +83,7 @@ type Options struct {
 
 	Touchstone string
 	Plot       string
-	PlotFormat modechart.Format
+	PlotFormat figure.Format
 	DPI        int
 	Force      bool
 }
@@ -189,7 +189,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&opts.Plot, "plot", "", "write the response plot: .png, .svg or .pdf")
 	f.StringVar(&span, "span", "3x", "frequency range: N bandwidths around f0 (Omega -N..N), widened to show every rejection and zero")
 	f.IntVar(&opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints))
-	f.IntVar(&opts.DPI, "dpi", modechart.DefaultDPI, "resolution of a PNG plot, dots per inch")
+	f.IntVar(&opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch")
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
@@ -464,14 +464,14 @@ func (opts *Options) parseOutput(spanS string) error {
 		return cmdutil.FlagError("touchstone", opts.Touchstone, errors.New("a two-port Touchstone file name must end in .s2p"))
 	}
 	if opts.Plot != "" {
-		f, err := modechart.FormatOf(opts.Plot)
+		f, err := figure.FormatOf(opts.Plot)
 		if err != nil {
 			return cmdutil.FlagError("plot", opts.Plot, errors.New("the file name must end in .png, .svg or .pdf"))
 		}
 		opts.PlotFormat = f
 	}
-	if opts.DPI < modechart.MinDPI || opts.DPI > modechart.MaxDPI {
-		return cmdutil.FlagError("dpi", strconv.Itoa(opts.DPI), fmt.Errorf("must be between %d and %d", modechart.MinDPI, modechart.MaxDPI))
+	if opts.DPI < figure.MinDPI || opts.DPI > figure.MaxDPI {
+		return cmdutil.FlagError("dpi", strconv.Itoa(opts.DPI), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
 	}
 	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
 		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)

@@ -16,8 +16,8 @@ import (
 	"cylcav/cmd/cylcav/internal/clitest"
 	filtercmd "cylcav/cmd/cylcav/internal/cmd/filter"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure/rendertest"
 	bandpass "cylcav/filter"
-	"cylcav/modechart/rendertest"
 )
 
 // Tolerances.

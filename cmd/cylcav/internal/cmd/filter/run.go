@@ -13,8 +13,9 @@ import (
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
 	bandpass "cylcav/filter"
-	"cylcav/modechart"
+	"cylcav/filterplot"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -251,17 +252,17 @@ func (r *Result) buildTouchstone() error {
 }
 
 func (r *Result) buildPlot() error {
-	rp, err := bandpass.NewResponsePlot(r.Design, bandpass.PlotOptions{
+	rp, err := filterplot.NewResponsePlot(r.Design, filterplot.PlotOptions{
 		Lo: r.Sweep[0], Hi: r.Sweep[1], Q0: r.Q0, Notes: []string{FieldSolverNote},
 	})
 	if err != nil {
 		return err
 	}
-	fig, err := rp.Figure(modechart.DefaultTheme())
+	fig, err := rp.Figure(figure.DefaultTheme())
 	if err != nil {
 		return err
 	}
-	r.plot, err = modechart.Encode(fig, r.Opts.PlotFormat, modechart.Page{DPI: r.Opts.DPI})
+	r.plot, err = figure.Encode(fig, r.Opts.PlotFormat, figure.Page{DPI: r.Opts.DPI})
 	return err
 }
 

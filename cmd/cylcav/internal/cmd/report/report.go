@@ -20,7 +20,7 @@ import (
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/datasheet"
 	"cylcav/design"
-	"cylcav/modechart"
+	"cylcav/figure"
 )
 
 // Options are the parsed flags of `cylcav report`.
@@ -101,7 +101,7 @@ func runReport(opts *Options) error {
 	if err != nil {
 		return err // an impossible design exits with status 1
 	}
-	sh, err := datasheet.FromDesign(r, modechart.DefaultTheme())
+	sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
 	if err != nil {
 		return err
 	}

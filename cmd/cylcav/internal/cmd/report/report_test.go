@@ -16,7 +16,7 @@ import (
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/report"
 	"cylcav/cmd/cylcav/internal/cmdutil"
-	"cylcav/modechart/rendertest"
+	"cylcav/figure/rendertest"
 	"cylcav/physics"
 )
 

@@ -1,4 +1,4 @@
-package filter
+package filterplot
 
 import (
 	"errors"
@@ -13,85 +13,27 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
-	"cylcav/modechart"
+	"cylcav/figure"
+	"cylcav/filter"
 )
 
 // Response plots: |S21| and |S11| in dB with the specification mask, and the
-// group delay of S21, drawn through the rendering layer of package
-// modechart (modechart.Render writes the figure as PNG, SVG or PDF).
+// group delay of S21, drawn through package figure (figure.Render writes
+// the figure as PNG, SVG or PDF).
 
-// Sweep defaults and limits.
-const (
-	// DefaultSpan is the half-width of the default frequency range in the
-	// normalised lowpass frequency: Omega from -DefaultSpan to +DefaultSpan
-	// (three bandwidths around f0 for a narrow band).
-	DefaultSpan = 3.0
-	// MaxSpan is the largest span SweepRange accepts.
-	MaxSpan = 1000.0
-	// DefaultPlotPoints is the number of uniformly spaced frequencies of a
-	// response plot when PlotOptions.Points is zero (the exact band edges,
-	// centre and transmission zeros are added to them).
-	DefaultPlotPoints = 2001
-	// MaxSweepPoints bounds the number of points of a sweep.
-	MaxSweepPoints = 1000001
-)
-
-// sweepMargin is the factor by which SweepRange reaches beyond the outermost
-// rejection frequency or transmission zero (in Omega), so that the point
-// and the response around it are both inside the range.
-const sweepMargin = 1.15
-
-// SweepRange returns the frequency range lo..hi (Hz) that covers the
-// normalised lowpass frequencies -span..+span of design d (span > 1, at most
-// MaxSpan; span 3 shows three bandwidths), widened to hold every rejection
-// frequency and transmission zero of the design with a margin of 15 % in
-// Omega. The range is geometrically centred on f0 (LowpassOmega maps
-// lo and hi to -span and +span before any widening).
-func SweepRange(d *Design, span float64) (lo, hi float64, err error) {
-	if d == nil || d.Spec.Order < 1 {
-		return 0, 0, errors.New("filter: SweepRange needs a synthesised design (from Synthesize)")
-	}
-	if !(span > 1 && span <= MaxSpan) {
-		return 0, 0, fmt.Errorf("filter: sweep span must be > 1 and <= %g (normalised Omega, 1 = the band edge), got %g", MaxSpan, span)
-	}
-	wlo, whi := -span, span
-	ws := slices.Clone(d.Zeros)
-	for _, r := range d.Spec.Rejections {
-		ws = append(ws, LowpassOmega(r.F, d.Spec.F0, d.Spec.BW))
-	}
-	for _, w := range ws {
-		wlo = math.Min(wlo, sweepMargin*w)
-		whi = math.Max(whi, sweepMargin*w)
-	}
-	return BandpassFrequency(wlo, d.Spec.F0, d.Spec.BW), BandpassFrequency(whi, d.Spec.F0, d.Spec.BW), nil
-}
-
-// Sweep returns n frequencies (Hz) spaced uniformly from lo to hi, both
-// included: 0 < lo < hi, 2 <= n <= MaxSweepPoints. The last value is hi
-// exactly.
-func Sweep(lo, hi float64, n int) ([]float64, error) {
-	if !(lo > 0) || !(hi > lo) || math.IsInf(hi, 0) {
-		return nil, fmt.Errorf("filter: sweep needs 0 < lo < hi < Inf Hz, got %g..%g Hz", lo, hi)
-	}
-	if n < 2 || n > MaxSweepPoints {
-		return nil, fmt.Errorf("filter: sweep needs 2..%d points, got %d", MaxSweepPoints, n)
-	}
-	fs := make([]float64, n)
-	for i := range fs {
-		fs[i] = lo + (hi-lo)*float64(i)/float64(n-1)
-	}
-	fs[n-1] = hi
-	return fs, nil
-}
+// DefaultPlotPoints is the number of uniformly spaced frequencies of a
+// response plot when PlotOptions.Points is zero (the exact band edges,
+// centre and transmission zeros are added to them).
+const DefaultPlotPoints = 2001
 
 // PlotOptions selects what a response plot shows. The zero value of each
 // field is a documented default.
 type PlotOptions struct {
 	// Lo and Hi are the frequency range, Hz; both zero means
-	// SweepRange(d, DefaultSpan).
+	// filter.SweepRange(d, filter.DefaultSpan).
 	Lo, Hi float64
 	// Points is the number of uniformly spaced frequencies, 2..
-	// MaxSweepPoints; zero means DefaultPlotPoints.
+	// filter.MaxSweepPoints; zero means DefaultPlotPoints.
 	Points int
 	// Q0 holds one unloaded Q per resonator (+Inf allowed), or is empty
 	// for the lossless response.
@@ -162,15 +104,15 @@ const delayHeadroom = 1.4
 // down to the deeper of -80 dB and 20 dB below the deepest requirement,
 // rounded to 10 dB; the delay axis to 1.4 times the largest passband delay.
 // Errors: a nil design, a bad range, point count or Q0.
-func NewResponsePlot(d *Design, opts PlotOptions) (*ResponsePlot, error) {
+func NewResponsePlot(d *filter.Design, opts PlotOptions) (*ResponsePlot, error) {
 	if d == nil || d.Folded == nil || d.Spec.Order < 1 {
-		return nil, errors.New("filter: response plot needs a synthesised design (from Synthesize)")
+		return nil, errors.New("filterplot: response plot needs a synthesised design (from Synthesize)")
 	}
 	s := d.Spec
 	lo, hi := opts.Lo, opts.Hi
 	if lo == 0 && hi == 0 {
 		var err error
-		if lo, hi, err = SweepRange(d, DefaultSpan); err != nil {
+		if lo, hi, err = filter.SweepRange(d, filter.DefaultSpan); err != nil {
 			return nil, err
 		}
 	}
@@ -178,15 +120,15 @@ func NewResponsePlot(d *Design, opts PlotOptions) (*ResponsePlot, error) {
 	if n == 0 {
 		n = DefaultPlotPoints
 	}
-	fs, err := Sweep(lo, hi, n)
+	fs, err := filter.Sweep(lo, hi, n)
 	if err != nil {
 		return nil, err
 	}
-	f1, f2 := BandpassFrequency(-1, s.F0, s.BW), BandpassFrequency(1, s.F0, s.BW)
+	f1, f2 := filter.BandpassFrequency(-1, s.F0, s.BW), filter.BandpassFrequency(1, s.F0, s.BW)
 	extra := []float64{f1, s.F0, f2}
 	rp := &ResponsePlot{Lo: lo, Hi: hi, Passband: [2]float64{f1, f2}, DBMax: 3, Lossless: true}
 	for _, z := range d.Zeros {
-		fz := BandpassFrequency(z, s.F0, s.BW)
+		fz := filter.BandpassFrequency(z, s.F0, s.BW)
 		if fz >= lo && fz <= hi {
 			extra = append(extra, fz)
 			rp.Zeros = append(rp.Zeros, fz)
@@ -220,7 +162,7 @@ func NewResponsePlot(d *Design, opts PlotOptions) (*ResponsePlot, error) {
 			maxDelay = math.Max(maxDelay, p.GroupDelay)
 		}
 	}
-	if s.Family == Chebyshev {
+	if s.Family == filter.Chebyshev {
 		rp.ReturnLoss = s.ReturnLoss
 	}
 	deepest := rp.ReturnLoss
@@ -248,9 +190,9 @@ func NewResponsePlot(d *Design, opts PlotOptions) (*ResponsePlot, error) {
 }
 
 // plotTitle describes the design in one line.
-func plotTitle(d *Design) string {
+func plotTitle(d *filter.Design) string {
 	s := d.Spec
-	fs, fu := modechart.FrequencyUnit(s.F0)
+	fs, fu := figure.FrequencyUnit(s.F0)
 	t := fmt.Sprintf("%d-resonator %s bandpass filter, f0 = %s %s, bw = %s",
 		s.Order, familyName(s.Family), trimFloat(s.F0/fs, 6), fu, plainFrequency(s.BW))
 	switch len(d.Zeros) {
@@ -263,8 +205,8 @@ func plotTitle(d *Design) string {
 	return t
 }
 
-func familyName(f Family) string {
-	if f == Butterworth {
+func familyName(f filter.Family) string {
+	if f == filter.Butterworth {
 		return "Butterworth"
 	}
 	return "Chebyshev"
@@ -289,7 +231,7 @@ func (rp *ResponsePlot) lossNote(q0 []float64, n int) string {
 // plainFrequency prints f with up to 6 significant digits in its own unit,
 // without trailing zeros ("200 MHz", "1.25 GHz").
 func plainFrequency(f float64) string {
-	sc, u := modechart.FrequencyUnit(f)
+	sc, u := figure.FrequencyUnit(f)
 	return trimFloat(f/sc, 6) + " " + u
 }
 
@@ -314,20 +256,20 @@ var (
 // on the frequency axis), the lower panel the group delay in ns; both over
 // the same frequency axis with the passband shaded, a legend and notes
 // below. Values beyond the axes are clipped.
-func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
+func (rp *ResponsePlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	if len(rp.F) < 2 || len(rp.S21DB) != len(rp.F) || len(rp.S11DB) != len(rp.F) || len(rp.GroupDelay) != len(rp.F) {
-		return nil, fmt.Errorf("filter: response plot needs at least 2 points in parallel slices, got %d frequencies", len(rp.F))
+		return nil, fmt.Errorf("filterplot: response plot needs at least 2 points in parallel slices, got %d frequencies", len(rp.F))
 	}
 	if !(rp.DBMin < rp.DBMax) || !(rp.DelayMax > 0) || !(rp.Hi > rp.Lo) {
-		return nil, fmt.Errorf("filter: response plot axes are empty: %g..%g Hz, %g..%g dB, delay to %g s", rp.Lo, rp.Hi, rp.DBMin, rp.DBMax, rp.DelayMax)
+		return nil, fmt.Errorf("filterplot: response plot axes are empty: %g..%g Hz, %g..%g dB, delay to %g s", rp.Lo, rp.Hi, rp.DBMin, rp.DBMax, rp.DelayMax)
 	}
-	fs, fu := modechart.FrequencyUnit(rp.Hi)
+	fs, fu := figure.FrequencyUnit(rp.Hi)
 	x := make([]float64, len(rp.F))
 	for i, f := range rp.F {
 		x[i] = f / fs
 	}
 	xlo, xhi := rp.Lo/fs, rp.Hi/fs
-	fig := modechart.NewFigure(th, rp.Title)
+	fig := figure.NewFigure(th, rp.Title)
 	xLabel := "frequency   [" + fu + "]"
 	top := th.NewPlot("", xLabel, "|S21|, |S11|   [dB]")
 	bot := th.NewPlot("", xLabel, "group delay of S21   [ns]")
@@ -337,7 +279,7 @@ func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
 		p      *plot.Plot
 		y0, y1 float64
 	}{{top, rp.DBMin, rp.DBMax}, {bot, 0, rp.DelayMax * 1e9}} {
-		r, err := modechart.NewRegion(rp.Passband[0]/fs, rp.Passband[1]/fs, pp.y0, pp.y1)
+		r, err := figure.NewRegion(rp.Passband[0]/fs, rp.Passband[1]/fs, pp.y0, pp.y1)
 		if err != nil {
 			return nil, err
 		}
@@ -346,11 +288,11 @@ func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
 	}
 
 	// Rejection masks: the forbidden region above each level.
-	req := draw.LineStyle{Color: modechart.Red, Width: vg.Points(1.2), Dashes: []vg.Length{vg.Points(6), vg.Points(2.5)}}
-	rejGlyph := draw.GlyphStyle{Color: modechart.Red, Radius: vg.Points(3.2), Shape: draw.TriangleGlyph{}}
+	req := draw.LineStyle{Color: figure.Red, Width: vg.Points(1.2), Dashes: []vg.Length{vg.Points(6), vg.Points(2.5)}}
+	rejGlyph := draw.GlyphStyle{Color: figure.Red, Radius: vg.Points(3.2), Shape: draw.TriangleGlyph{}}
 	for _, m := range rp.Rejections {
 		a, b := math.Min(m.F, m.Edge)/fs, math.Max(m.F, m.Edge)/fs
-		r, err := modechart.NewRegion(a, b, m.Level, rp.DBMax)
+		r, err := figure.NewRegion(a, b, m.Level, rp.DBMax)
 		if err != nil {
 			return nil, err
 		}
@@ -382,17 +324,17 @@ func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
 			return nil, err
 		}
 	}
-	fig.Legend.Add("|S21|, transmission", modechart.LineThumb{LineStyle: s21})
-	fig.Legend.Add("|S11|, reflection", modechart.LineThumb{LineStyle: s11})
+	fig.Legend.Add("|S21|, transmission", figure.LineThumb{LineStyle: s21})
+	fig.Legend.Add("|S11|, reflection", figure.LineThumb{LineStyle: s11})
 	if rp.ReturnLoss > 0 {
-		fig.Legend.Add(fmt.Sprintf("return-loss limit, -%s dB", trimFloat(rp.ReturnLoss, 4)), modechart.LineThumb{LineStyle: req})
+		fig.Legend.Add(fmt.Sprintf("return-loss limit, -%s dB", trimFloat(rp.ReturnLoss, 4)), figure.LineThumb{LineStyle: req})
 	}
 	if len(rp.Rejections) > 0 {
 		fig.Legend.Add("rejection limit, from the marker outwards",
-			modechart.BoxThumb{Fill: maskFill}, modechart.LineThumb{LineStyle: req}, modechart.GlyphThumb{GlyphStyle: rejGlyph})
+			figure.BoxThumb{Fill: maskFill}, figure.LineThumb{LineStyle: req}, figure.GlyphThumb{GlyphStyle: rejGlyph})
 	}
 	if len(rp.Zeros) > 0 {
-		zg := draw.GlyphStyle{Color: modechart.Ink, Radius: vg.Points(3.4), Shape: draw.PyramidGlyph{}}
+		zg := draw.GlyphStyle{Color: figure.Ink, Radius: vg.Points(3.4), Shape: draw.PyramidGlyph{}}
 		var xys plotter.XYs
 		for _, z := range rp.Zeros {
 			xys = append(xys, plotter.XY{X: z / fs, Y: rp.DBMin + 0.035*(rp.DBMax-rp.DBMin)})
@@ -403,13 +345,13 @@ func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
 		}
 		sc.GlyphStyle = zg
 		top.Add(sc)
-		fig.Legend.Add("transmission zero of the design", modechart.GlyphThumb{GlyphStyle: zg})
+		fig.Legend.Add("transmission zero of the design", figure.GlyphThumb{GlyphStyle: zg})
 	}
-	fig.Legend.Add("passband", modechart.BoxThumb{Fill: passbandFill})
+	fig.Legend.Add("passband", figure.BoxThumb{Fill: passbandFill})
 
 	// The delay is alone in its panel: a solid line in a colour the mask
 	// does not use.
-	gd := draw.LineStyle{Color: modechart.Purple, Width: 1.6 * th.LineWidth}
+	gd := draw.LineStyle{Color: figure.Purple, Width: 1.6 * th.LineWidth}
 	ns := make([]float64, len(rp.GroupDelay))
 	for i, v := range rp.GroupDelay {
 		ns[i] = v * 1e9
@@ -417,11 +359,11 @@ func (rp *ResponsePlot) Figure(th modechart.Theme) (*modechart.Figure, error) {
 	if err := addLine(bot, x, ns, gd); err != nil {
 		return nil, err
 	}
-	fig.Legend.Add("group delay of S21", modechart.LineThumb{LineStyle: gd})
+	fig.Legend.Add("group delay of S21", figure.LineThumb{LineStyle: gd})
 
 	top.X.Min, top.X.Max, top.Y.Min, top.Y.Max = xlo, xhi, rp.DBMin, rp.DBMax
 	bot.X.Min, bot.X.Max, bot.Y.Min, bot.Y.Max = xlo, xhi, 0, rp.DelayMax*1e9
-	top.Y.Tick.Marker = modechart.Ticks{N: 8}
+	top.Y.Tick.Marker = figure.Ticks{N: 8}
 	fig.Panels = []*plot.Plot{top, bot}
 	fig.Notes = rp.Notes
 	return fig, nil
@@ -442,37 +384,8 @@ func clampBelow(ys []float64, floor float64) []float64 {
 }
 
 // addLine adds the polyline (xs, ys) in style sty to p, split at NaN or
-// infinite values (see runs).
+// infinite values (see figure.Runs).
 func addLine(p *plot.Plot, xs, ys []float64, sty draw.LineStyle) error {
-	for _, r := range runs(xs, ys) {
-		l, err := plotter.NewLine(r)
-		if err != nil {
-			return err
-		}
-		l.LineStyle = sty
-		p.Add(l)
-	}
-	return nil
-}
-
-// runs splits the polyline (xs, ys) at NaN or infinite y into runs of at
-// least two points; single finite points between gaps are dropped.
-func runs(xs, ys []float64) []plotter.XYs {
-	var out []plotter.XYs
-	var run plotter.XYs
-	flush := func() {
-		if len(run) >= 2 {
-			out = append(out, run)
-		}
-		run = nil
-	}
-	for i := range xs {
-		if math.IsNaN(ys[i]) || math.IsInf(ys[i], 0) {
-			flush()
-			continue
-		}
-		run = append(run, plotter.XY{X: xs[i], Y: ys[i]})
-	}
-	flush()
-	return out
+	_, err := figure.AddCurve(p, xs, ys, 1, sty)
+	return err
 }

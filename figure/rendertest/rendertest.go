@@ -1,5 +1,6 @@
 // Package rendertest checks that rendered chart files are valid, for the
-// tests of every package that writes PNG, SVG or PDF through modechart.
+// tests of every package that writes PNG, SVG or PDF through package
+// figure.
 package rendertest
 
 import (

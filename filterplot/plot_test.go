@@ -1,4 +1,4 @@
-package filter
+package filterplot
 
 import (
 	"bytes"
@@ -10,11 +10,12 @@ import (
 	"strings"
 	"testing"
 
-	"cylcav/modechart"
-	"cylcav/modechart/rendertest"
+	"cylcav/figure"
+	"cylcav/figure/rendertest"
+	"cylcav/filter"
 )
 
-var regenPlot = flag.Bool("regen", false, "rewrite testdata/filter/response_golden.svg")
+var regenPlot = flag.Bool("regen", false, "rewrite testdata/response_golden.svg")
 
 // Tolerances of the plot tests.
 const (
@@ -34,12 +35,12 @@ const (
 // plotDesign is the invented scenario of the plot tests: a six-resonator
 // 20 dB Chebyshev filter at 10 GHz, 200 MHz wide, with zeros at 9.8 and
 // 10.18 GHz and rejections of 40 dB at 10.25 GHz and 35 dB at 9.75 GHz.
-func plotDesign(t testing.TB) *Design {
+func plotDesign(t testing.TB) *filter.Design {
 	t.Helper()
 	const f0, bw = 10e9, 200e6
-	d, err := Synthesize(Spec{F0: f0, BW: bw, Order: 6, ReturnLoss: 20,
-		Zeros:      []float64{LowpassOmega(9.8e9, f0, bw), LowpassOmega(10.18e9, f0, bw)},
-		Rejections: []Rejection{{F: 10.25e9, Attenuation: 40}, {F: 9.75e9, Attenuation: 35}}})
+	d, err := filter.Synthesize(filter.Spec{F0: f0, BW: bw, Order: 6, ReturnLoss: 20,
+		Zeros:      []float64{filter.LowpassOmega(9.8e9, f0, bw), filter.LowpassOmega(10.18e9, f0, bw)},
+		Rejections: []filter.Rejection{{F: 10.25e9, Attenuation: 40}, {F: 9.75e9, Attenuation: 35}}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -54,72 +55,6 @@ func uniformQ(n int, q float64) []float64 {
 	return out
 }
 
-func TestSweepRange(t *testing.T) {
-	d := plotDesign(t)
-	s := d.Spec
-	// Span 5 covers every zero (|Omega| <= 2.1) and rejection (|Omega| <=
-	// 2.56): the range maps back to exactly -5..5.
-	lo, hi, err := SweepRange(d, 5)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if w := LowpassOmega(lo, s.F0, s.BW); math.Abs(w+5) > 5*mapTol {
-		t.Errorf("LowpassOmega(lo) = %v, want -5", w)
-	}
-	if w := LowpassOmega(hi, s.F0, s.BW); math.Abs(w-5) > 5*mapTol {
-		t.Errorf("LowpassOmega(hi) = %v, want 5", w)
-	}
-	// Geometric centring (derived from f1 f2 = f0^2 of the mapping).
-	if g := math.Sqrt(lo * hi); math.Abs(g-s.F0) > mapTol*s.F0 {
-		t.Errorf("sqrt(lo hi) = %v, want f0 = %v", g, s.F0)
-	}
-	// Span 1.5 does not reach the rejection at 10.25 GHz (Omega 2.47): the
-	// range widens to 1.15 times the outermost Omega on each side.
-	lo, hi, err = SweepRange(d, 1.5)
-	if err != nil {
-		t.Fatal(err)
-	}
-	wantHi := sweepMargin * LowpassOmega(10.25e9, s.F0, s.BW)
-	wantLo := sweepMargin * LowpassOmega(9.75e9, s.F0, s.BW)
-	if w := LowpassOmega(hi, s.F0, s.BW); math.Abs(w-wantHi) > 5*mapTol {
-		t.Errorf("widened LowpassOmega(hi) = %v, want %v", w, wantHi)
-	}
-	if w := LowpassOmega(lo, s.F0, s.BW); math.Abs(w-wantLo) > 5*mapTol {
-		t.Errorf("widened LowpassOmega(lo) = %v, want %v", w, wantLo)
-	}
-	for _, span := range []float64{1, 0.5, -3, math.NaN(), MaxSpan * 2} {
-		if _, _, err := SweepRange(d, span); err == nil {
-			t.Errorf("SweepRange(d, %v) = nil error, want a range error", span)
-		}
-	}
-	if _, _, err := SweepRange(nil, 3); err == nil {
-		t.Error("SweepRange(nil, 3) = nil error, want an error")
-	}
-}
-
-func TestSweep(t *testing.T) {
-	fs, err := Sweep(1e9, 2e9, 11)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if len(fs) != 11 || fs[0] != 1e9 || fs[10] != 2e9 {
-		t.Fatalf("Sweep(1e9, 2e9, 11) = %v, want 11 points from 1e9 to 2e9", fs)
-	}
-	for i := 1; i < len(fs); i++ {
-		if step := fs[i] - fs[i-1]; math.Abs(step-1e8) > 1e-6 {
-			t.Errorf("Sweep step %d = %v, want 1e8", i, step)
-		}
-	}
-	for _, c := range []struct {
-		lo, hi float64
-		n      int
-	}{{0, 1e9, 10}, {2e9, 1e9, 10}, {1e9, math.Inf(1), 10}, {1e9, 2e9, 1}, {1e9, 2e9, MaxSweepPoints + 1}, {math.NaN(), 1e9, 10}} {
-		if _, err := Sweep(c.lo, c.hi, c.n); err == nil {
-			t.Errorf("Sweep(%v, %v, %d) = nil error, want an error", c.lo, c.hi, c.n)
-		}
-	}
-}
-
 func TestResponsePlotMask(t *testing.T) {
 	d := plotDesign(t)
 	s := d.Spec
@@ -127,11 +62,11 @@ func TestResponsePlotMask(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lo, hi, _ := SweepRange(d, DefaultSpan)
+	lo, hi, _ := filter.SweepRange(d, filter.DefaultSpan)
 	if rp.Lo != lo || rp.Hi != hi {
-		t.Errorf("default range = %v..%v, want SweepRange(d, %v) = %v..%v", rp.Lo, rp.Hi, DefaultSpan, lo, hi)
+		t.Errorf("default range = %v..%v, want SweepRange(d, %v) = %v..%v", rp.Lo, rp.Hi, filter.DefaultSpan, lo, hi)
 	}
-	f1, f2 := BandpassFrequency(-1, s.F0, s.BW), BandpassFrequency(1, s.F0, s.BW)
+	f1, f2 := filter.BandpassFrequency(-1, s.F0, s.BW), filter.BandpassFrequency(1, s.F0, s.BW)
 	if rp.Passband != [2]float64{f1, f2} {
 		t.Errorf("Passband = %v, want %v..%v", rp.Passband, f1, f2)
 	}
@@ -180,7 +115,7 @@ func TestResponsePlotMask(t *testing.T) {
 		}
 	}
 	// Deeper requirements push the floor: 70 dB -> 70 + 20 = 90 dB.
-	d.Spec.Rejections = []Rejection{{F: 10.4e9, Attenuation: 70}}
+	d.Spec.Rejections = []filter.Rejection{{F: 10.4e9, Attenuation: 70}}
 	rp, err = NewResponsePlot(d, PlotOptions{Points: 101})
 	if err != nil {
 		t.Fatal(err)
@@ -201,7 +136,7 @@ func TestResponsePlotMask(t *testing.T) {
 // Microwave Engineering, 4th ed., sec. 6.1, recalled from memory).
 func TestResponsePlotSingleResonator(t *testing.T) {
 	const f0, bw = 2.45e9, 50e6
-	d, err := Synthesize(Spec{F0: f0, BW: bw, Order: 1, Family: Butterworth})
+	d, err := filter.Synthesize(filter.Spec{F0: f0, BW: bw, Order: 1, Family: filter.Butterworth})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -265,11 +200,11 @@ func TestResponsePlotErrors(t *testing.T) {
 	d := plotDesign(t)
 	for _, c := range []struct {
 		name string
-		d    *Design
+		d    *filter.Design
 		o    PlotOptions
 	}{
 		{"nil design", nil, PlotOptions{}},
-		{"empty design", &Design{}, PlotOptions{}},
+		{"empty design", &filter.Design{}, PlotOptions{}},
 		{"reversed range", d, PlotOptions{Lo: 11e9, Hi: 9e9}},
 		{"one point", d, PlotOptions{Points: 1}},
 		{"wrong Q0 count", d, PlotOptions{Q0: []float64{1000}}},
@@ -279,12 +214,12 @@ func TestResponsePlotErrors(t *testing.T) {
 		}
 	}
 	var bad ResponsePlot
-	if _, err := bad.Figure(modechart.DefaultTheme()); err == nil {
+	if _, err := bad.Figure(figure.DefaultTheme()); err == nil {
 		t.Error("Figure of an empty ResponsePlot = nil error, want an error")
 	}
 }
 
-func TestClampAndSplit(t *testing.T) {
+func TestClampBelow(t *testing.T) {
 	got := clampBelow([]float64{0, -50, math.Inf(-1), math.NaN(), -200}, -100)
 	want := []float64{0, -50, -100, math.NaN(), -100}
 	for i := range want {
@@ -292,28 +227,21 @@ func TestClampAndSplit(t *testing.T) {
 			t.Errorf("clampBelow[%d] = %v, want %v", i, got[i], want[i])
 		}
 	}
-	xs := []float64{1, 2, 3, 4, 5, 6, 7}
-	ys := []float64{1, 2, math.NaN(), 4, math.Inf(1), 6, 7}
-	// Runs {1,2} and {6,7}; the lone point 4 is dropped.
-	rs := runs(xs, ys)
-	if len(rs) != 2 || len(rs[0]) != 2 || len(rs[1]) != 2 || rs[0][0].X != 1 || rs[1][0].X != 6 {
-		t.Errorf("runs = %v, want [[{1 1} {2 2}] [{6 6} {7 7}]]", rs)
-	}
 }
 
 // render draws the plot of the scenario with Q0 = 8000 in format f.
-func render(t testing.TB, f modechart.Format, points int) []byte {
+func render(t testing.TB, f figure.Format, points int) []byte {
 	t.Helper()
 	d := plotDesign(t)
 	rp, err := NewResponsePlot(d, PlotOptions{Q0: uniformQ(6, 8000), Points: points})
 	if err != nil {
 		t.Fatal(err)
 	}
-	fig, err := rp.Figure(modechart.DefaultTheme())
+	fig, err := rp.Figure(figure.DefaultTheme())
 	if err != nil {
 		t.Fatal(err)
 	}
-	b, err := modechart.Encode(fig, f, modechart.Page{})
+	b, err := figure.Encode(fig, f, figure.Page{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -321,18 +249,18 @@ func render(t testing.TB, f modechart.Format, points int) []byte {
 }
 
 func TestResponsePlotFiles(t *testing.T) {
-	pngB := render(t, modechart.PNG, 201)
-	rendertest.PNG(t, pngB, 1200, 900) // 8 x 6 in at 150 dpi (modechart defaults)
-	svg := render(t, modechart.SVG, 201)
+	pngB := render(t, figure.PNG, 201)
+	rendertest.PNG(t, pngB, 1200, 900) // 8 x 6 in at 150 dpi (figure defaults)
+	svg := render(t, figure.SVG, 201)
 	rendertest.SVG(t, svg)
 	for _, want := range []string{"|S21|, transmission", "group delay of S21", "return-loss limit, -20 dB", "frequency   [GHz]"} {
 		if !bytes.Contains(svg, []byte(want)) {
 			t.Errorf("SVG lacks the text %q", want)
 		}
 	}
-	pdf := render(t, modechart.PDF, 201)
+	pdf := render(t, figure.PDF, 201)
 	rendertest.PDF(t, pdf)
-	for _, f := range []modechart.Format{modechart.PNG, modechart.SVG, modechart.PDF} {
+	for _, f := range []figure.Format{figure.PNG, figure.SVG, figure.PDF} {
 		if a, b := render(t, f, 201), render(t, f, 201); !bytes.Equal(a, b) {
 			t.Errorf("two %v renders of the same plot differ", f)
 		}
@@ -340,11 +268,11 @@ func TestResponsePlotFiles(t *testing.T) {
 }
 
 // TestResponsePlotGolden compares the SVG of the scenario (201 points) with
-// testdata/filter/response_golden.svg exactly; run with -regen to rewrite
+// testdata/response_golden.svg exactly; run with -regen to rewrite
 // it after an intended change of the drawing.
 func TestResponsePlotGolden(t *testing.T) {
-	got := render(t, modechart.SVG, 201)
-	path := filepath.Join("..", "testdata", "filter", "response_golden.svg")
+	got := render(t, figure.SVG, 201)
+	path := filepath.Join("testdata", "response_golden.svg")
 	if *regenPlot {
 		if err := os.WriteFile(path, got, 0o644); err != nil {
 			t.Fatal(err)
@@ -368,11 +296,11 @@ func BenchmarkResponsePlotSVG(b *testing.B) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		fig, err := rp.Figure(modechart.DefaultTheme())
+		fig, err := rp.Figure(figure.DefaultTheme())
 		if err != nil {
 			b.Fatal(err)
 		}
-		if _, err := modechart.Encode(fig, modechart.SVG, modechart.Page{}); err != nil {
+		if _, err := figure.Encode(fig, figure.SVG, figure.Page{}); err != nil {
 			b.Fatal(err)
 		}
 	}

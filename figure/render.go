@@ -1,4 +1,4 @@
-package modechart
+package figure
 
 import (
 	"bytes"
@@ -58,7 +58,7 @@ func ParseFormat(s string) (Format, error) {
 	case "pdf":
 		return PDF, nil
 	}
-	return 0, fmt.Errorf("modechart: unknown image format %q; use png, svg or pdf", s)
+	return 0, fmt.Errorf("figure: unknown image format %q; use png, svg or pdf", s)
 }
 
 // FormatOf returns the format named by a file name's extension
@@ -66,11 +66,11 @@ func ParseFormat(s string) (Format, error) {
 func FormatOf(path string) (Format, error) {
 	ext := filepath.Ext(path)
 	if ext == "" {
-		return 0, fmt.Errorf("modechart: file name %q has no extension; end it in .png, .svg or .pdf", path)
+		return 0, fmt.Errorf("figure: file name %q has no extension; end it in .png, .svg or .pdf", path)
 	}
 	f, err := ParseFormat(ext)
 	if err != nil {
-		return 0, fmt.Errorf("modechart: file name %q: unknown extension %q; use .png, .svg or .pdf", path, ext)
+		return 0, fmt.Errorf("figure: file name %q: unknown extension %q; use .png, .svg or .pdf", path, ext)
 	}
 	return f, nil
 }
@@ -113,16 +113,16 @@ func (pg Page) resolve() (Page, error) {
 		v    vg.Length
 	}{{"width", pg.Width}, {"height", pg.Height}} {
 		if math.IsNaN(float64(d.v)) || d.v < MinPage || d.v > MaxPage {
-			return pg, fmt.Errorf("modechart: page %s must be in %g..%g in, got %g in",
+			return pg, fmt.Errorf("figure: page %s must be in %g..%g in, got %g in",
 				d.name, MinPage/vg.Inch, MaxPage/vg.Inch, d.v/vg.Inch)
 		}
 	}
 	if pg.DPI < MinDPI || pg.DPI > MaxDPI {
-		return pg, fmt.Errorf("modechart: resolution must be in %d..%d dpi, got %d", MinDPI, MaxDPI, pg.DPI)
+		return pg, fmt.Errorf("figure: resolution must be in %d..%d dpi, got %d", MinDPI, MaxDPI, pg.DPI)
 	}
 	px := float64(pg.Width/vg.Inch) * float64(pg.Height/vg.Inch) * float64(pg.DPI*pg.DPI)
 	if px > MaxPixels {
-		return pg, fmt.Errorf("modechart: %.0f megapixels at %d dpi is above the %g megapixel limit; lower the dpi",
+		return pg, fmt.Errorf("figure: %.0f megapixels at %d dpi is above the %g megapixel limit; lower the dpi",
 			px/1e6, pg.DPI, MaxPixels/1e6)
 	}
 	return pg, nil
@@ -152,12 +152,12 @@ func Render(w io.Writer, d Drawer, f Format, pg Page) error {
 		pdfSortOnce.Do(func() { fpdf.SetDefaultCatalogSort(true) })
 		c = pdfCanvas{vgpdf.New(pg.Width, pg.Height)}
 	default:
-		return fmt.Errorf("modechart: unknown image format %v; use PNG, SVG or PDF", f)
+		return fmt.Errorf("figure: unknown image format %v; use PNG, SVG or PDF", f)
 	}
 	d.Draw(draw.New(c))
 	var buf bytes.Buffer
 	if _, err := c.WriteTo(&buf); err != nil {
-		return fmt.Errorf("modechart: encoding %v: %w", f, err)
+		return fmt.Errorf("figure: encoding %v: %w", f, err)
 	}
 	out := buf.Bytes()
 	switch f {

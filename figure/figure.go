@@ -1,4 +1,4 @@
-package modechart
+package figure
 
 import (
 	"image/color"

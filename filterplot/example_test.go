@@ -1,11 +1,12 @@
-package filter_test
+package filterplot_test
 
 import (
 	"bytes"
 	"fmt"
 
+	"cylcav/figure"
 	"cylcav/filter"
-	"cylcav/modechart"
+	"cylcav/filterplot"
 )
 
 // An invented scenario: a four-cavity 1.5 GHz filter, 30 MHz wide, 22 dB
@@ -24,7 +25,7 @@ func ExampleNewResponsePlot() {
 		fmt.Println(err)
 		return
 	}
-	rp, err := filter.NewResponsePlot(d, filter.PlotOptions{Lo: lo, Hi: hi, Q0: []float64{4000, 4000, 4000, 4000}})
+	rp, err := filterplot.NewResponsePlot(d, filterplot.PlotOptions{Lo: lo, Hi: hi, Q0: []float64{4000, 4000, 4000, 4000}})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -33,13 +34,13 @@ func ExampleNewResponsePlot() {
 	fmt.Printf("return-loss line at -%g dB; rejection: %g dB from %.3f GHz to %.4f GHz\n",
 		rp.ReturnLoss, -rp.Rejections[0].Level, rp.Rejections[0].F/1e9, rp.Rejections[0].Edge/1e9)
 	fmt.Printf("axes: %g..%g dB, group delay 0..%.1f ns\n", rp.DBMin, rp.DBMax, rp.DelayMax*1e9)
-	fig, err := rp.Figure(modechart.DefaultTheme())
+	fig, err := rp.Figure(figure.DefaultTheme())
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	var svg bytes.Buffer
-	if err := modechart.Render(&svg, fig, modechart.SVG, modechart.Page{}); err != nil {
+	if err := figure.Render(&svg, fig, figure.SVG, figure.Page{}); err != nil {
 		fmt.Println(err)
 		return
 	}

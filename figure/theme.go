@@ -1,4 +1,4 @@
-package modechart
+package figure
 
 import (
 	"image/color"
@@ -54,15 +54,26 @@ const (
 	GridGrey RGB = 0xdddddd
 )
 
-// Dash patterns in points; each call returns a new slice, so a style can
-// be changed without touching another's. Solid is nil.
-func dashTM() []vg.Length { return []vg.Length{vg.Points(5), vg.Points(2.5)} }
-func dashPair() []vg.Length {
+// Dash patterns in points, for draw.LineStyle.Dashes; each call returns a
+// new slice, so a style can be changed without touching another's. Solid
+// is nil.
+
+// Dashed is a plain dash: 5 pt on, 2.5 pt off.
+func Dashed() []vg.Length { return []vg.Length{vg.Points(5), vg.Points(2.5)} }
+
+// DashDotted is a long dash and a dot.
+func DashDotted() []vg.Length {
 	return []vg.Length{vg.Points(7), vg.Points(2), vg.Points(1.5), vg.Points(2)}
 }
-func dashDot() []vg.Length  { return []vg.Length{vg.Points(1.2), vg.Points(2.2)} }
-func dashLong() []vg.Length { return []vg.Length{vg.Points(9), vg.Points(3)} }
-func dashDashDot() []vg.Length {
+
+// Dotted is a row of dots.
+func Dotted() []vg.Length { return []vg.Length{vg.Points(1.2), vg.Points(2.2)} }
+
+// LongDashed is a long dash: 9 pt on, 3 pt off.
+func LongDashed() []vg.Length { return []vg.Length{vg.Points(9), vg.Points(3)} }
+
+// DashDotDotted is a dash and two dots.
+func DashDotDotted() []vg.Length {
 	return []vg.Length{vg.Points(5), vg.Points(2), vg.Points(1.2), vg.Points(2), vg.Points(1.2), vg.Points(2)}
 }
 
@@ -175,11 +186,11 @@ func (th Theme) Series(i int) draw.LineStyle {
 		w    float64
 	}{
 		{Ink, nil, 1.8},
-		{Blue, dashTM(), 1.4},
-		{Red, dashPair(), 1.4},
-		{Green, dashDot(), 1.6},
-		{Purple, dashLong(), 1.3},
-		{Teal, dashDashDot(), 1.3},
+		{Blue, Dashed(), 1.4},
+		{Red, DashDotted(), 1.4},
+		{Green, Dotted(), 1.6},
+		{Purple, LongDashed(), 1.3},
+		{Teal, DashDotDotted(), 1.3},
 	}
 	if i < 0 {
 		i = 0
@@ -203,109 +214,4 @@ func (th Theme) Marker(i int) draw.GlyphStyle {
 		Radius: vg.Points(3),
 		Shape:  shapes[i%len(shapes)],
 	}
-}
-
-// Role is what a line means on a mode chart; it decides its style and the
-// priority of its label.
-type Role uint8
-
-// The roles, in increasing order of emphasis.
-const (
-	// Ordinary is any mode away from the operating box.
-	Ordinary Role = iota
-	// Near is a spurious mode that comes within the required clearance
-	// of the operating box without crossing it.
-	Near
-	// Crossing is a spurious mode whose line passes through the operating
-	// box: it resonates inside the tuning range somewhere.
-	Crossing
-	// Wanted is the operating mode (with its exact companion, if any).
-	Wanted
-)
-
-// String returns the role's name as used in legends.
-func (r Role) String() string {
-	switch r {
-	case Ordinary:
-		return "ordinary"
-	case Near:
-		return "near"
-	case Crossing:
-		return "crossing"
-	case Wanted:
-		return "wanted"
-	}
-	return "Role(?)"
-}
-
-// Kind is the family of a chart line: TE, TM, or a TE0mp/TM1mp pair that
-// shares one line.
-type Kind uint8
-
-// The line kinds.
-const (
-	KindTE Kind = iota
-	KindTM
-	KindPair
-)
-
-// String returns "TE", "TM" or "TE0mp/TM1mp".
-func (k Kind) String() string {
-	switch k {
-	case KindTE:
-		return "TE"
-	case KindTM:
-		return "TM"
-	case KindPair:
-		return "TE0mp/TM1mp"
-	}
-	return "Kind(?)"
-}
-
-// ModeLine returns the line style of a mode-chart line of the given kind
-// and role. Families are told apart by dash (TE solid, TM dashed, pairs
-// dash-dot) and roles by colour and width: ordinary thin blue/purple/green,
-// near medium orange, crossing wide red, wanted widest ink and always solid.
-func (th Theme) ModeLine(k Kind, r Role) draw.LineStyle {
-	var s draw.LineStyle
-	switch k {
-	case KindTM:
-		s = draw.LineStyle{Color: Purple, Dashes: dashTM()}
-	case KindPair:
-		s = draw.LineStyle{Color: Green, Dashes: dashPair()}
-	default:
-		s = draw.LineStyle{Color: Blue}
-	}
-	s.Width = th.LineWidth
-	switch r {
-	case Near:
-		s.Color, s.Width = Orange, 1.8*th.LineWidth
-	case Crossing:
-		s.Color, s.Width = Red, 2.2*th.LineWidth
-	case Wanted:
-		// Always solid: the label names the family.
-		s.Color, s.Width, s.Dashes = Ink, 2.8*th.LineWidth, nil
-	}
-	if r != Ordinary {
-		// Wider lines need longer dashes to read as dashed.
-		for i := range s.Dashes {
-			s.Dashes[i] *= 1.5
-		}
-	}
-	return s
-}
-
-// LabelColor returns the text colour of an on-line label for a line of the
-// given kind and role: the line colour, darkened where the line colour is
-// too light for small text on white.
-func (th Theme) LabelColor(k Kind, r Role) color.Color {
-	switch r {
-	case Near:
-		return DarkOrange
-	case Crossing:
-		return Red
-	case Wanted:
-		return Ink
-	}
-	return th.ModeLine(k, r).Color
 }

@@ -1,4 +1,4 @@
-package modechart
+package figure
 
 import (
 	"math"
@@ -85,4 +85,20 @@ func niceNum(x float64, round bool) float64 {
 		}
 	}
 	return nf * math.Pow(10, exp)
+}
+
+// FrequencyUnit picks the unit of a frequency axis whose values reach f
+// (Hz): the largest of Hz, kHz, MHz and GHz not above f, returned as its
+// size in Hz and its name. Frequencies below 1 kHz, including zero,
+// negative and NaN ones, give Hz; those from 1 THz up stay in GHz.
+func FrequencyUnit(f float64) (scale float64, name string) {
+	switch {
+	case f >= 1e9:
+		return 1e9, "GHz"
+	case f >= 1e6:
+		return 1e6, "MHz"
+	case f >= 1e3:
+		return 1e3, "kHz"
+	}
+	return 1, "Hz"
 }
