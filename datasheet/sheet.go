@@ -319,7 +319,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 
 	sh.Cautions = r.Cautions
-	sh.Safety = safety
+	sh.Safety = SafetyNotes()
 
 	// Charts.
 	if err := sh.addCharts(r, th, tc, qpts); err != nil {
@@ -393,13 +393,16 @@ func (sh *cavitySheet) sheet() *Sheet {
 	return out
 }
 
-// safety are the cautions every datasheet carries.
-var safety = []string{
-	"High RF power: a resonant cavity multiplies the incident power into strong fields. Keep covers, couplings and tuners fitted while power is applied; RF burns are deep and are not felt at once. Keep exposure within the limits of the applicable RF-exposure rules and check leakage at joints and tuning screws.",
-	"High voltage: the transmitters, amplifiers and power supplies that feed a cavity carry lethal voltages; only qualified people may open or adjust them.",
-	"Breakdown and multipaction: the peak fields of a high-Q cavity can arc in air or multipact in vacuum, damaging surfaces and detuning the cavity. Derate the input power, keep surfaces clean and dry, and condition vacuum cavities gradually.",
-	"Cryogenics: cooled cavities bring cold burns, embrittlement and asphyxiation from boil-off gas; follow cryogen-handling practice and ventilate.",
-	"This datasheet is a design aid, not a safety assessment: defer to local codes, the equipment maker's instructions and licensed practice.",
+// SafetyNotes returns the safety notes every cavity or filter datasheet
+// carries (a new slice on each call).
+func SafetyNotes() []string {
+	return []string{
+		"High RF power: a resonant cavity multiplies the incident power into strong fields. Keep covers, couplings and tuners fitted while power is applied; RF burns are deep and are not felt at once. Keep exposure within the limits of the applicable RF-exposure rules and check leakage at joints and tuning screws.",
+		"High voltage: the transmitters, amplifiers and power supplies that feed a cavity carry lethal voltages; only qualified people may open or adjust them.",
+		"Breakdown and multipaction: the peak fields of a high-Q cavity can arc in air or multipact in vacuum, damaging surfaces and detuning the cavity. Derate the input power, keep surfaces clean and dry, and condition vacuum cavities gradually.",
+		"Cryogenics: cooled cavities bring cold burns, embrittlement and asphyxiation from boil-off gas; follow cryogen-handling practice and ventilate.",
+		"This datasheet is a design aid, not a safety assessment: defer to local codes, the equipment maker's instructions and licensed practice.",
+	}
 }
 
 // addCharts renders the four figures of the datasheet.
