@@ -1,1 +1,0 @@
-modes --diameter 50mm --length 50mm --count 3 --format json

@@ -1,1 +1,0 @@
-clearance --mode TE011 --diameter 40mm --length 30mm --window 15% --format json

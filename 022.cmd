@@ -1,1 +1,0 @@
-materials --kind dielectric --format json

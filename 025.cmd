@@ -1,1 +1,0 @@
-report -o datasheet.html

@@ -1,1 +1,0 @@
-modes --diameter -3mm --length 50mm

@@ -1,1 +1,0 @@
-size --mode TE010 --freq 10GHz --ratio 1

@@ -1,1 +1,0 @@
-design --mode TE011 --freq NaN

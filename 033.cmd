@@ -1,1 +1,0 @@
-filter --f0 10GHz --bw 20GHz --order 4
