@@ -19,7 +19,7 @@ import (
 // part, before FromDesign arranges it into the sections of a Sheet.
 type cavitySheet struct {
 	Title    string
-	Demo     bool   // the built-in demo scenario
+	Demo     bool   // the built-in demo scenario (its title is the sheet's)
 	Headline string // one line: mode, frequency, D and L
 	Facts    []KV   // the key figures at the top
 
@@ -356,13 +356,6 @@ func (sh *cavitySheet) sheet() *Sheet {
 		Headline: sh.Headline,
 		Facts:    sh.Facts,
 		Method:   cavityMethod,
-	}
-	if sh.Demo {
-		out.Notice = &Notice{Lead: "Demo scenario", Parts: []Span{
-			{Text: "This datasheet was made by "}, {Text: "cylcav report", Code: true},
-			{Text: " with no design flags, from the built-in invented scenario. Give the flags of "},
-			{Text: "cylcav design", Code: true}, {Text: " to report your own design."},
-		}}
 	}
 	secs := []Section{
 		{"Dimensions and tolerances", table(sh.Dimensions)},
