@@ -129,7 +129,7 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 <caption>{{.Caption}}</caption>
 <thead><tr>{{range $j, $h := .Header}}<th scope="col"{{if $.IsNum $j}} class="num"{{end}}>{{$h}}</th>{{end}}</tr></thead>
 <tbody>
-{{range $i, $r := .Rows}}<tr{{if index $.Emph $i}} class="emph"{{end}}>{{range $j, $c := $r}}<td{{if $.IsNum $j}} class="num"{{end}}>{{$c}}</td>{{end}}</tr>
+{{range $i, $r := .Rows}}<tr{{if $.IsEmph $i}} class="emph"{{end}}>{{range $j, $c := $r}}<td{{if $.IsNum $j}} class="num"{{end}}>{{$c}}</td>{{end}}</tr>
 {{end}}</tbody>
 </table>{{end}}
 {{define "block"}}{{with .Table}}{{template "table" .}}{{end}}{{with .Chart}}<figure id="{{.ID}}">

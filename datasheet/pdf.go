@@ -322,7 +322,7 @@ func (w *pdfWriter) table(t Table) {
 	header()
 	for i, r := range t.Rows {
 		style := ""
-		if i < len(t.Emph) && t.Emph[i] {
+		if t.IsEmph(i) {
 			style = "B"
 		}
 		p.SetFont("Helvetica", style, size)

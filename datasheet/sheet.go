@@ -48,11 +48,15 @@ type Table struct {
 	Caption string
 	Header  []string
 	Rows    [][]string
-	// Emph marks rows to emphasise (the wanted mode).
+	// Emph marks rows to emphasise (the wanted mode); missing entries
+	// are false.
 	Emph []bool
 	// Num marks columns of numbers, set right-aligned.
 	Num []bool
 }
+
+// IsEmph reports whether row i is emphasised.
+func (t Table) IsEmph(i int) bool { return i < len(t.Emph) && t.Emph[i] }
 
 // IsNum reports whether column j holds numbers.
 func (t Table) IsNum(j int) bool { return j < len(t.Num) && t.Num[j] }
