@@ -108,7 +108,7 @@ func Analyze(d Design, set AnalysisSettings) (Analysis, error) {
 			c := d.Cavity
 			c.Radius *= 1 + th.AlphaRadial*dT
 			c.Length *= 1 + th.AlphaAxial*dT
-			c.EpsR = spec.Fill.eps() * (1 + th.TauEps*dT)
+			c.Fill.EpsR = spec.Fill.Eps() * (1 + th.TauEps*dT)
 			a.Drift[i] = c.Frequency(spec.Mode) - d.Cavity.Frequency(spec.Mode)
 		}
 	}

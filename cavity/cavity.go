@@ -9,14 +9,14 @@ import (
 )
 
 // Cavity is a closed circular cylinder of radius Radius and length Length
-// (metres) with perfectly conducting walls, homogeneously filled with a
-// medium of relative permittivity EpsR and relative permeability MuR.
+// (metres) with perfectly conducting walls, homogeneously filled with the
+// medium Fill.
 //
-// The zero value of EpsR or MuR means 1 (vacuum), so Cavity{Radius: a,
-// Length: d} is an empty cavity.
+// The zero Fill is vacuum, so Cavity{Radius: a, Length: d} is an empty
+// cavity.
 type Cavity struct {
 	Radius, Length float64
-	EpsR, MuR      float64
+	Fill           physics.Medium
 }
 
 // Size limits accepted by Validate. They exclude typing slips (a length in
@@ -27,58 +27,9 @@ const (
 	MaxSize = 1e3  // m
 )
 
-// Fill limits accepted by Validate; they match the material parser of
-// package physics. A relative permeability below 1 occurs in magnetised
-// ferrites above resonance and in diamagnetic media.
-const (
-	MinEpsR, MaxEpsR = 1, 1e4
-	MinMuR, MaxMuR   = 1e-3, 1e5
-)
-
-// Fill is the homogeneous medium inside a cavity. The zero value of either
-// field means 1, so the zero Fill is vacuum (and, to the accuracy of any
-// cavity calculation here, dry air).
-type Fill struct {
-	EpsR, MuR float64
-}
-
-// Validate reports whether the fill is physical: MinEpsR <= EpsR <= MaxEpsR
-// and MinMuR <= MuR <= MaxMuR, zero meaning 1.
-func (f Fill) Validate() error {
-	for _, q := range []struct {
-		name   string
-		v      float64
-		lo, hi float64
-	}{{"eps_r", f.EpsR, MinEpsR, MaxEpsR}, {"mu_r", f.MuR, MinMuR, MaxMuR}} {
-		if q.v == 0 {
-			continue
-		}
-		if !(q.v >= q.lo && q.v <= q.hi) {
-			return fmt.Errorf("cavity: %s must be in %g..%g, got %g", q.name, q.lo, q.hi, q.v)
-		}
-	}
-	return nil
-}
-
-// Index returns the fill's refractive index sqrt(mu_r eps_r), zero fields
-// counting as 1.
-func (f Fill) Index() float64 {
-	e, u := f.EpsR, f.MuR
-	if e == 0 {
-		e = 1
-	}
-	if u == 0 {
-		u = 1
-	}
-	return math.Sqrt(e * u)
-}
-
-// Fill returns the cavity's filling medium.
-func (c Cavity) Fill() Fill { return Fill{EpsR: c.EpsR, MuR: c.MuR} }
-
 // Validate reports whether the cavity's dimensions and fill are finite and
 // physical: MinSize <= Radius, Length <= MaxSize, and the fill as in
-// Fill.Validate.
+// physics.Medium.Validate.
 func (c Cavity) Validate() error {
 	if err := checkSize("radius", c.Radius); err != nil {
 		return err
@@ -86,7 +37,15 @@ func (c Cavity) Validate() error {
 	if err := checkSize("length", c.Length); err != nil {
 		return err
 	}
-	return c.Fill().Validate()
+	return checkFill(c.Fill)
+}
+
+// checkFill is physics.Medium.Validate with this package's error prefix.
+func checkFill(m physics.Medium) error {
+	if err := m.Validate(); err != nil {
+		return fmt.Errorf("cavity: %w", err)
+	}
+	return nil
 }
 
 func checkSize(name string, v float64) error {
@@ -134,7 +93,7 @@ func root(f Family, n, m int) float64 {
 // scale returns c / (2 pi sqrt(mu_r eps_r)), the factor that turns a total
 // wavenumber in rad/m into a frequency in Hz.
 func (c Cavity) scale() float64 {
-	return physics.SpeedOfLight / (2 * math.Pi * c.Fill().Index())
+	return physics.SpeedOfLight / (2 * math.Pi * c.Fill.Index())
 }
 
 // frequency is the single implementation of the resonance formula

@@ -43,7 +43,7 @@ func TestModeChart(t *testing.T) {
 	c0 := physics.SpeedOfLight
 	for range 500 {
 		m := randomMode(rng, 12)
-		fill := Fill{EpsR: 1 + 20*rng.Float64(), MuR: 0.5 + rng.Float64()}
+		fill := physics.Medium{EpsR: 1 + 20*rng.Float64(), MuR: 0.5 + rng.Float64()}
 		D := 0.002 + 0.2*rng.Float64()
 		em := fill.EpsR * fill.MuR
 		slope := (c0 * float64(m.P) / 2) * (c0 * float64(m.P) / 2) / em
@@ -51,7 +51,7 @@ func TestModeChart(t *testing.T) {
 		intercept := (c0 * x / math.Pi) * (c0 * x / math.Pi) / em
 		for range 3 {
 			L := 0.002 + 0.3*rng.Float64()
-			c := Cavity{Radius: D / 2, Length: L, EpsR: fill.EpsR, MuR: fill.MuR}
+			c := Cavity{Radius: D / 2, Length: L, Fill: fill}
 			f := c.Frequency(m)
 			got := (f * D) * (f * D)
 			want := intercept + slope*(D/L)*(D/L)
@@ -69,7 +69,7 @@ func TestWavenumbers(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 4))
 	for range 200 {
 		m := randomMode(rng, 20)
-		c := Cavity{Radius: 0.001 + 0.1*rng.Float64(), Length: 0.001 + 0.1*rng.Float64(), EpsR: 1 + 10*rng.Float64()}
+		c := Cavity{Radius: 0.001 + 0.1*rng.Float64(), Length: 0.001 + 0.1*rng.Float64(), Fill: physics.Medium{EpsR: 1 + 10*rng.Float64()}}
 		kc, beta, k := c.Wavenumbers(m)
 		if e := relErr(kc, m.Root()/c.Radius); e > tol {
 			t.Errorf("kc(%v) = %g, want %g", m, kc, m.Root()/c.Radius)
@@ -77,7 +77,7 @@ func TestWavenumbers(t *testing.T) {
 		if e := relErr(beta, float64(m.P)*math.Pi/c.Length); e > tol && m.P > 0 {
 			t.Errorf("beta(%v) = %g, want %g", m, beta, float64(m.P)*math.Pi/c.Length)
 		}
-		want := 2 * math.Pi * c.Frequency(m) * math.Sqrt(c.EpsR) / physics.SpeedOfLight
+		want := 2 * math.Pi * c.Frequency(m) * math.Sqrt(c.Fill.EpsR) / physics.SpeedOfLight
 		if e := relErr(k, want); e > tol {
 			t.Errorf("k(%v) = %.17g, want %.17g from Frequency", m, k, want)
 		}
@@ -90,13 +90,13 @@ func TestCavityValidate(t *testing.T) {
 		want string // "" for valid
 	}{
 		{Cavity{Radius: 0.025, Length: 0.05}, ""},
-		{Cavity{Radius: 0.025, Length: 0.05, EpsR: 2.08, MuR: 1}, ""},
+		{Cavity{Radius: 0.025, Length: 0.05, Fill: physics.Medium{EpsR: 2.08, MuR: 1}}, ""},
 		{Cavity{Radius: 0, Length: 0.05}, "cavity: radius must be in 1e-06..1000 m, got 0 m"},
 		{Cavity{Radius: -0.003, Length: 0.05}, "cavity: radius must be in 1e-06..1000 m, got -0.003 m"},
 		{Cavity{Radius: 0.025, Length: math.Inf(1)}, "cavity: length must be in 1e-06..1000 m, got +Inf m"},
 		{Cavity{Radius: math.NaN(), Length: 0.05}, "got NaN m"},
-		{Cavity{Radius: 0.025, Length: 0.05, EpsR: 0.9}, "cavity: eps_r must be in 1..10000, got 0.9"},
-		{Cavity{Radius: 0.025, Length: 0.05, MuR: math.NaN()}, "cavity: mu_r must be in 0.001..100000, got NaN"},
+		{Cavity{Radius: 0.025, Length: 0.05, Fill: physics.Medium{EpsR: 0.9}}, "cavity: eps_r must be in 1..10000, got 0.9"},
+		{Cavity{Radius: 0.025, Length: 0.05, Fill: physics.Medium{MuR: math.NaN()}}, "cavity: mu_r must be in 0.001..100000, got NaN"},
 	} {
 		err := tc.c.Validate()
 		if (tc.want == "") != (err == nil) || (err != nil && !strings.Contains(err.Error(), tc.want)) {

@@ -5,6 +5,8 @@ import (
 	"math/rand/v2"
 	"slices"
 	"testing"
+
+	"cylcav/physics"
 )
 
 // Bessel zeros for independent frequencies, from Abramowitz & Stegun,
@@ -23,7 +25,7 @@ const (
 // (kD)^2 = 4x^2 + (p pi D/L)^2 at D/L = 1.
 func TestClearancePozarPTFE(t *testing.T) {
 	const eps = 2.08
-	c := Cavity{Radius: 0.0274, Length: 0.0548, EpsR: eps}
+	c := Cavity{Radius: 0.0274, Length: 0.0548, Fill: physics.Medium{EpsR: eps}}
 	f := func(x float64, p int) float64 {
 		return math.Sqrt(4*x*x+float64(p*p)*math.Pi*math.Pi) / (2 * 0.0274) / (2 * math.Pi * math.Sqrt(eps)) * 299792458
 	}

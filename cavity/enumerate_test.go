@@ -46,7 +46,7 @@ func TestModesBruteForce(t *testing.T) {
 	// bruteTol: bisection to 1e-15 relative plus math.Jn's accuracy near
 	// the zeros (Go's jn.go: within a few ulps there for x >= n).
 	const bruteTol = 1e-12
-	c := Cavity{Radius: 0.03, Length: 0.045, EpsR: 2.1}
+	c := Cavity{Radius: 0.03, Length: 0.045, Fill: physics.Medium{EpsR: 2.1}}
 	const fmax = 2.5e10
 	s := physics.SpeedOfLight / (2 * math.Pi * math.Sqrt(2.1))
 	xmax := fmax / s * c.Radius
@@ -160,9 +160,9 @@ func TestScaling(t *testing.T) {
 	const scaleTol = 1e-15 * 4
 	rng := rand.New(rand.NewPCG(1, 2))
 	for range 20 {
-		c := Cavity{Radius: 0.005 + 0.05*rng.Float64(), Length: 0.005 + 0.1*rng.Float64(), EpsR: 1 + 9*rng.Float64()}
+		c := Cavity{Radius: 0.005 + 0.05*rng.Float64(), Length: 0.005 + 0.1*rng.Float64(), Fill: physics.Medium{EpsR: 1 + 9*rng.Float64()}}
 		s := math.Exp(3 * (rng.Float64() - 0.5))
-		cs := Cavity{Radius: s * c.Radius, Length: s * c.Length, EpsR: c.EpsR}
+		cs := Cavity{Radius: s * c.Radius, Length: s * c.Length, Fill: c.Fill}
 		a, err := c.Lowest(200)
 		if err != nil {
 			t.Fatal(err)
@@ -189,7 +189,7 @@ func TestScaling(t *testing.T) {
 // DLMF 10.6.3), bit for bit, that each is reported as the other's
 // companion, and that the pair is listed TE first.
 func TestCompanions(t *testing.T) {
-	c := Cavity{Radius: 0.021, Length: 0.033, EpsR: 1.7}
+	c := Cavity{Radius: 0.021, Length: 0.033, Fill: physics.Medium{EpsR: 1.7}}
 	modes, err := c.Modes(4e10)
 	if err != nil {
 		t.Fatal(err)
@@ -305,7 +305,7 @@ func TestModesErrors(t *testing.T) {
 		{good, math.Inf(1), "got +Inf Hz"},
 		{Cavity{Radius: -0.003, Length: 0.02}, 1e9, "radius must be in 1e-06..1000 m, got -0.003 m"},
 		{Cavity{Radius: 0.01, Length: math.NaN()}, 1e9, "length must be in"},
-		{Cavity{Radius: 0.01, Length: 0.02, EpsR: 0.5}, 1e9, "eps_r must be in 1..10000, got 0.5"},
+		{Cavity{Radius: 0.01, Length: 0.02, Fill: physics.Medium{EpsR: 0.5}}, 1e9, "eps_r must be in 1..10000, got 0.5"},
 		{good, 1e15, "index"},
 		{Cavity{Radius: 1e-3, Length: 1000}, 2e11, "axial index p above 1000"},
 		{Cavity{Radius: 1, Length: 1}, 3e10, fmt.Sprintf("more than %d modes", MaxModes)},
@@ -351,7 +351,7 @@ func BenchmarkModes1e5(b *testing.B) {
 
 // BenchmarkLowest1000 lists the lowest 1000 modes of a filled cavity.
 func BenchmarkLowest1000(b *testing.B) {
-	c := Cavity{Radius: 0.0274, Length: 0.0548, EpsR: 2.08}
+	c := Cavity{Radius: 0.0274, Length: 0.0548, Fill: physics.Medium{EpsR: 2.08}}
 	for b.Loop() {
 		if _, err := c.Lowest(1000); err != nil {
 			b.Fatal(err)

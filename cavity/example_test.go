@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"cylcav/cavity"
+	"cylcav/physics"
 )
 
 // The sixth to ninth lowest modes of an invented air-filled test cavity,
@@ -34,7 +35,7 @@ func ExampleCavity_Lowest() {
 // with mpmath: TM010 3.0544 GHz, TM110 4.8667 GHz; the lowest TE mode,
 // TE111, is at 8.316 GHz).
 func ExampleCavity_Modes() {
-	c := cavity.Cavity{Radius: 0.012, Length: 0.006, EpsR: 9.8}
+	c := cavity.Cavity{Radius: 0.012, Length: 0.006, Fill: physics.Medium{EpsR: 9.8}}
 	modes, err := c.Modes(6e9)
 	if err != nil {
 		fmt.Println(err)
@@ -53,13 +54,13 @@ func ExampleCavity_Modes() {
 // with mpmath: D = 36.3836 mm, L = 30.3197 mm, least diameter 32.6471 mm).
 func ExampleSize() {
 	te011, _ := cavity.ParseMode("TE011")
-	c, err := cavity.Size(te011, 11.2e9, cavity.Fill{}, cavity.ByRatio(1.2))
+	c, err := cavity.Size(te011, 11.2e9, physics.Medium{}, cavity.ByRatio(1.2))
 	if err != nil {
 		fmt.Println(err)
 		return
 	}
 	fmt.Printf("D = %.2f mm, L = %.2f mm\n", c.Diameter()*1e3, c.Length*1e3)
-	_, err = cavity.Size(te011, 11.2e9, cavity.Fill{}, cavity.ByDiameter(0.03))
+	_, err = cavity.Size(te011, 11.2e9, physics.Medium{}, cavity.ByDiameter(0.03))
 	fmt.Println(err)
 	// Output:
 	// D = 36.38 mm, L = 30.32 mm

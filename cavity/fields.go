@@ -67,14 +67,7 @@ func (c Cavity) ModeField(m Mode) (ModeField, error) {
 	if err := m.Validate(); err != nil {
 		return ModeField{}, err
 	}
-	f := c.Fill()
-	epsR, muR := f.EpsR, f.MuR
-	if epsR == 0 {
-		epsR = 1
-	}
-	if muR == 0 {
-		muR = 1
-	}
+	epsR, muR := c.Fill.Eps(), c.Fill.Mu()
 	kc, beta, _ := c.Wavenumbers(m)
 	mf := ModeField{
 		mode: m, kc: kc, beta: beta,

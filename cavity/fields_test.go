@@ -5,6 +5,8 @@ import (
 	"math"
 	"math/rand/v2"
 	"testing"
+
+	"cylcav/physics"
 )
 
 var fieldCases = []struct {
@@ -12,12 +14,12 @@ var fieldCases = []struct {
 	c    Cavity
 }{
 	{"TE011", Cavity{Radius: 0.02, Length: 0.03}},
-	{"TE111", Cavity{Radius: 0.015, Length: 0.04, EpsR: 2.08}},
+	{"TE111", Cavity{Radius: 0.015, Length: 0.04, Fill: physics.Medium{EpsR: 2.08}}},
 	{"TE213", Cavity{Radius: 0.03, Length: 0.05}},
 	{"TE021", Cavity{Radius: 0.03, Length: 0.02}},
 	{"TM010", Cavity{Radius: 0.05, Length: 0.02}},
 	{"TM111", Cavity{Radius: 0.02, Length: 0.03}},
-	{"TM212", Cavity{Radius: 0.025, Length: 0.03, EpsR: 9.8}},
+	{"TM212", Cavity{Radius: 0.025, Length: 0.03, Fill: physics.Medium{EpsR: 9.8}}},
 	{"TM020", Cavity{Radius: 0.05, Length: 0.02}},
 }
 

@@ -64,6 +64,10 @@ func (m Mode) Validate() error {
 	default:
 		return fmt.Errorf("invalid mode family %d: want TE or TM", uint8(m.Family))
 	}
+	bad := m.N < 0 || m.N > MaxIndex || m.M < 1 || m.M > MaxIndex || m.P < 0 || m.P > MaxIndex || m.Family == TE && m.P == 0
+	if !bad {
+		return nil // the label is formatted only for an error: long mode lists validate every entry
+	}
 	label := m.String()
 	switch {
 	case m.N < 0 || m.N > MaxIndex:

@@ -173,7 +173,7 @@ func (c Cavity) MonteCarlo(w Mode, tol Tolerance) (Spread, error) {
 	chunks := (n + MonteCarloChunk - 1) / MonteCarloChunk
 	freqs := make([]float64, n)
 	stats := make([]mcChunk, chunks)
-	K := physics.SpeedOfLight / (2 * math.Pi * c.Fill().Index())
+	K := physics.SpeedOfLight / (2 * math.Pi * c.Fill.Index())
 	var next atomic.Int64
 	done := make(chan int, chunks)
 	var wg sync.WaitGroup

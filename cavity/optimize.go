@@ -105,9 +105,9 @@ func (t Thermal) ratioScale(T float64) float64 {
 // DesignSpec is a design problem for Optimize. Zero values of optional
 // fields mean "no constraint" or the stated default.
 type DesignSpec struct {
-	Mode      Mode    // wanted mode
-	Frequency float64 // wanted frequency at the reference temperature, Hz
-	Fill      Fill    // homogeneous fill
+	Mode      Mode           // wanted mode
+	Frequency float64        // wanted frequency at the reference temperature, Hz
+	Fill      physics.Medium // homogeneous fill
 
 	// RatioMin and RatioMax bound D/L; both zero means DefaultRatioMin..
 	// DefaultRatioMax. They must lie in MinDesignRatio..MaxDesignRatio.
@@ -389,14 +389,6 @@ func Optimize(spec DesignSpec) (Design, error) {
 	return d, nil
 }
 
-// eps returns the fill's eps_r with zero meaning 1.
-func (f Fill) eps() float64 {
-	if f.EpsR == 0 {
-		return 1
-	}
-	return f.EpsR
-}
-
 func newProblem(spec DesignSpec) (*problem, error) {
 	if err := spec.Mode.Validate(); err != nil {
 		return nil, err
@@ -404,7 +396,7 @@ func newProblem(spec DesignSpec) (*problem, error) {
 	if !(spec.Frequency > 0) || math.IsInf(spec.Frequency, 0) {
 		return nil, fmt.Errorf("cavity: design frequency must be finite and > 0 Hz, got %g Hz", spec.Frequency)
 	}
-	if err := spec.Fill.Validate(); err != nil {
+	if err := checkFill(spec.Fill); err != nil {
 		return nil, err
 	}
 	if spec.RatioMin == 0 && spec.RatioMax == 0 {
@@ -487,7 +479,7 @@ func newPath(a0, x, kmin, kmax float64) path {
 // relation), L = D / sqrt(s).
 func (p *problem) cavityAt(s float64) Cavity {
 	D := math.Sqrt(p.w.g(s)) / p.kf
-	return Cavity{Radius: D / 2, Length: D / math.Sqrt(s), EpsR: p.spec.Fill.EpsR, MuR: p.spec.Fill.MuR}
+	return Cavity{Radius: D / 2, Length: D / math.Sqrt(s), Fill: p.spec.Fill}
 }
 
 // allowed returns the user's s range narrowed by the size limits and by

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"cylcav/physics"
 )
 
 // Tolerances of the optimiser tests.
@@ -112,7 +114,7 @@ func TestOptimizeTE011Reference(t *testing.T) {
 		wantRatio = 1.38796887560878412985 // testdata/cavity/gen_optimum.py
 		wantClear = 0.07364455297108049055 // testdata/cavity/gen_optimum.py
 	)
-	for _, fill := range []Fill{{}, {EpsR: 2.08}} {
+	for _, fill := range []physics.Medium{{}, {EpsR: 2.08}} {
 		d, err := Optimize(DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: fill})
 		if err != nil {
 			t.Fatal(err)
@@ -201,7 +203,7 @@ func TestOptimizeFillScaling(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	ptfe, err := Optimize(DesignSpec{Mode: w, Frequency: 5e9, Fill: Fill{EpsR: 2.08}})
+	ptfe, err := Optimize(DesignSpec{Mode: w, Frequency: 5e9, Fill: physics.Medium{EpsR: 2.08}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -235,7 +237,7 @@ func TestOptimizeTuningAndTemperature(t *testing.T) {
 			for i := 0; i <= 200; i++ {
 				tt := -spec.Tuning + 2*spec.Tuning*float64(i)/200
 				// Length that tunes to f0 (1 + tt) at this diameter.
-				k := 2 * math.Pi * f0 * (1 + tt) / 299792458.0 * ct.Fill().Index()
+				k := 2 * math.Pi * f0 * (1 + tt) / 299792458.0 * ct.Fill.Index()
 				kc := w.Root() / ct.Radius
 				cl := ct
 				cl.Length = math.Pi / math.Sqrt(k*k-kc*kc)

@@ -7,6 +7,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"cylcav/physics"
 )
 
 // The reference table testdata/cavity/modes.txt lists every mode up to a
@@ -55,7 +57,7 @@ func readReference(t testing.TB) []refCavity {
 			}
 			out = append(out, refCavity{
 				name: fs[1],
-				cav:  Cavity{Radius: num(fs[2]), Length: num(fs[3]), EpsR: num(fs[4]), MuR: num(fs[5])},
+				cav:  Cavity{Radius: num(fs[2]), Length: num(fs[3]), Fill: physics.Medium{EpsR: num(fs[4]), MuR: num(fs[5])}},
 				fmax: num(fs[6]),
 			})
 			continue

@@ -3,6 +3,8 @@ package cavity
 import (
 	"math"
 	"testing"
+
+	"cylcav/physics"
 )
 
 // sensTol is the agreement asked of the analytic derivatives and central
@@ -20,8 +22,8 @@ func TestSensitivityFiniteDifference(t *testing.T) {
 		c    Cavity
 	}{
 		{"TE011", Cavity{Radius: 0.02, Length: 0.03}},
-		{"TM010", Cavity{Radius: 0.05, Length: 0.02, EpsR: 9.8}},
-		{"TE113", Cavity{Radius: 0.011, Length: 0.07, EpsR: 2.08}},
+		{"TM010", Cavity{Radius: 0.05, Length: 0.02, Fill: physics.Medium{EpsR: 9.8}}},
+		{"TE113", Cavity{Radius: 0.011, Length: 0.07, Fill: physics.Medium{EpsR: 2.08}}},
 		{"TM212", Cavity{Radius: 0.03, Length: 0.01}},
 	} {
 		m := mustMode(t, tc.mode)
@@ -45,7 +47,7 @@ func TestSensitivityFiniteDifference(t *testing.T) {
 			c := tc.c
 			c.Radius *= 1 + th.AlphaRadial*dT
 			c.Length *= 1 + th.AlphaAxial*dT
-			c.EpsR = c.Fill().eps() * (1 + th.TauEps*dT)
+			c.Fill.EpsR = c.Fill.Eps() * (1 + th.TauEps*dT)
 			return c.Frequency(m)
 		}
 		fdT := (at(0.01) - at(-0.01)) / 0.02

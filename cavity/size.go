@@ -116,11 +116,11 @@ func (e *sizeError) Is(target error) bool { return target == ErrInfeasible }
 // cannot be met (errors.Is(err, ErrInfeasible)), including results outside
 // MinSize..MaxSize. Accuracy: the returned cavity resonates at f to about
 // 1e-15 relative beyond the accuracy of the Bessel zero.
-func Size(m Mode, f float64, fill Fill, by Constraint) (Cavity, error) {
+func Size(m Mode, f float64, fill physics.Medium, by Constraint) (Cavity, error) {
 	if err := m.Validate(); err != nil {
 		return Cavity{}, err
 	}
-	if err := fill.Validate(); err != nil {
+	if err := checkFill(fill); err != nil {
 		return Cavity{}, err
 	}
 	if !(f > 0 && f <= math.MaxFloat64) {
@@ -143,7 +143,7 @@ func Size(m Mode, f float64, fill Fill, by Constraint) (Cavity, error) {
 	p := float64(m.P)
 	k := 2 * math.Pi * f * fill.Index() / physics.SpeedOfLight
 	label, freq := m.String(), shortFrequency(f)
-	c := Cavity{EpsR: fill.EpsR, MuR: fill.MuR}
+	c := Cavity{Fill: fill}
 	switch by.kind {
 	case byRatio:
 		// Derived: with d = 2a/R, (p pi/d)^2 = (p pi R/(2a))^2, so

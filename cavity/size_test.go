@@ -18,7 +18,7 @@ import (
 // printed three digits (with exact c they move by 0.07 %, well inside).
 func TestSizePozar(t *testing.T) {
 	m := Mode{TE, 0, 1, 1}
-	fill := Fill{EpsR: 2.08}
+	fill := physics.Medium{EpsR: 2.08}
 	c, err := Size(m, 5e9, fill, ByRatio(1)) // d = 2a means D/L = 1
 	if err != nil {
 		t.Fatal(err)
@@ -34,8 +34,8 @@ func TestSizePozar(t *testing.T) {
 	if got := math.Round(c.Length*1e4) / 1e2; got != 5.48 {
 		t.Errorf("d = %.4f cm, want 5.48 cm (Pozar)", c.Length*100)
 	}
-	if c.EpsR != 2.08 {
-		t.Errorf("fill eps_r = %g, want 2.08", c.EpsR)
+	if c.Fill.EpsR != 2.08 {
+		t.Errorf("fill eps_r = %g, want 2.08", c.Fill.EpsR)
 	}
 }
 
@@ -49,7 +49,7 @@ func TestSizeRoundTrip(t *testing.T) {
 	for range 300 {
 		m := randomMode(rng, 9)
 		f := 1e9 * math.Exp(5*rng.Float64())
-		fill := Fill{EpsR: 1 + 9*rng.Float64(), MuR: 1}
+		fill := physics.Medium{EpsR: 1 + 9*rng.Float64(), MuR: 1}
 		k := 2 * math.Pi * f * fill.Index() / physics.SpeedOfLight
 		var by Constraint
 		switch rng.IntN(3) {
@@ -99,18 +99,18 @@ func TestSizeCutoff(t *testing.T) {
 	const f = 10e9
 	x := m.Root()
 	dmin := 2 * x * physics.SpeedOfLight / (2 * math.Pi * f) // 36.5648 mm (mpmath: 2 j_{1,1} c/(2 pi f))
-	if _, err := Size(m, f, Fill{}, ByDiameter(dmin*1.0001)); err != nil {
+	if _, err := Size(m, f, physics.Medium{}, ByDiameter(dmin*1.0001)); err != nil {
 		t.Errorf("Size(TE011, 10 GHz, diameter %g) error: %v", dmin*1.0001, err)
 	}
-	_, err := Size(m, f, Fill{}, ByDiameter(dmin*0.9999))
+	_, err := Size(m, f, physics.Medium{}, ByDiameter(dmin*0.9999))
 	if !errors.Is(err, ErrInfeasible) || !strings.Contains(err.Error(), "the diameter must exceed 36.5648 mm") {
 		t.Errorf("Size(TE011, 10 GHz, diameter %g) error = %v, want ErrInfeasible naming 36.5648 mm", dmin*0.9999, err)
 	}
 	lmin := physics.SpeedOfLight / f / 2 // one half-wavelength, 14.9896 mm
-	if _, err := Size(m, f, Fill{}, ByLength(lmin*1.0001)); err != nil {
+	if _, err := Size(m, f, physics.Medium{}, ByLength(lmin*1.0001)); err != nil {
 		t.Errorf("Size(TE011, 10 GHz, length %g) error: %v", lmin*1.0001, err)
 	}
-	_, err = Size(m, f, Fill{}, ByLength(lmin*0.9999))
+	_, err = Size(m, f, physics.Medium{}, ByLength(lmin*0.9999))
 	if !errors.Is(err, ErrInfeasible) || !strings.Contains(err.Error(), "the length must exceed 14.9896 mm") {
 		t.Errorf("Size(TE011, 10 GHz, length %g) error = %v, want ErrInfeasible naming 14.9896 mm", lmin*0.9999, err)
 	}
@@ -124,7 +124,7 @@ func TestSizeP0(t *testing.T) {
 	// Given a length, any length works and the radius is j_01 c/(2 pi f).
 	want := m.Root() * physics.SpeedOfLight / (2 * math.Pi * f) // 46.8337 mm
 	for _, L := range []float64{0.001, 0.05, 3} {
-		c, err := Size(m, f, Fill{}, ByLength(L))
+		c, err := Size(m, f, physics.Medium{}, ByLength(L))
 		const p0Tol = 1e-15 // the same two operations as Size: a few ulp
 		if err != nil || relErr(c.Radius, want) > p0Tol || c.Length != L {
 			t.Errorf("Size(TM010, %g Hz, length %g) = %+v, %v; want radius %g, length %g", f, L, c, err, want, L)
@@ -132,7 +132,7 @@ func TestSizeP0(t *testing.T) {
 	}
 	// Given a diameter, the frequency is fixed: an error naming both.
 	// 93.6674 mm = 2 j_{0,1} c/(2 pi f), computed with mpmath 1.3.0.
-	_, err := Size(m, f, Fill{}, ByDiameter(0.05))
+	_, err := Size(m, f, physics.Medium{}, ByDiameter(0.05))
 	// 4.5897 GHz: TM010 of the 25 mm radius cavity (testdata/cavity/modes.txt).
 	for _, s := range []string{"p = 0", "diameter 50 mm gives 4.5897 GHz", "use diameter 93.6674 mm with any length"} {
 		if !errors.Is(err, ErrInfeasible) || !strings.Contains(err.Error(), s) {
@@ -146,20 +146,20 @@ func TestSizeErrors(t *testing.T) {
 	for _, tc := range []struct {
 		m    Mode
 		f    float64
-		fill Fill
+		fill physics.Medium
 		by   Constraint
 		want string
 	}{
-		{Mode{TE, 0, 1, 0}, 5e9, Fill{}, ByRatio(1), `invalid mode "TE010"`},
-		{te011, 0, Fill{}, ByRatio(1), "frequency must be finite and > 0 Hz, got 0 Hz"},
-		{te011, math.NaN(), Fill{}, ByRatio(1), "got NaN Hz"},
-		{te011, 5e9, Fill{EpsR: 0.5}, ByRatio(1), "eps_r must be in 1..10000, got 0.5"},
-		{te011, 5e9, Fill{}, Constraint{}, "no sizing constraint"},
-		{te011, 5e9, Fill{}, ByRatio(0), "ratio D/L must be in 0.001..1000, got 0"},
-		{te011, 5e9, Fill{}, ByRatio(math.Inf(1)), "got +Inf"},
-		{te011, 5e9, Fill{}, ByDiameter(-0.01), "diameter must be finite and > 0 m, got -0.01 m"},
-		{te011, 5e9, Fill{}, ByLength(math.NaN()), "length must be finite and > 0 m, got NaN m"},
-		{te011, 1, Fill{}, ByRatio(1), "gives radius"},
+		{Mode{TE, 0, 1, 0}, 5e9, physics.Medium{}, ByRatio(1), `invalid mode "TE010"`},
+		{te011, 0, physics.Medium{}, ByRatio(1), "frequency must be finite and > 0 Hz, got 0 Hz"},
+		{te011, math.NaN(), physics.Medium{}, ByRatio(1), "got NaN Hz"},
+		{te011, 5e9, physics.Medium{EpsR: 0.5}, ByRatio(1), "eps_r must be in 1..10000, got 0.5"},
+		{te011, 5e9, physics.Medium{}, Constraint{}, "no sizing constraint"},
+		{te011, 5e9, physics.Medium{}, ByRatio(0), "ratio D/L must be in 0.001..1000, got 0"},
+		{te011, 5e9, physics.Medium{}, ByRatio(math.Inf(1)), "got +Inf"},
+		{te011, 5e9, physics.Medium{}, ByDiameter(-0.01), "diameter must be finite and > 0 m, got -0.01 m"},
+		{te011, 5e9, physics.Medium{}, ByLength(math.NaN()), "length must be finite and > 0 m, got NaN m"},
+		{te011, 1, physics.Medium{}, ByRatio(1), "gives radius"},
 	} {
 		_, err := Size(tc.m, tc.f, tc.fill, tc.by)
 		if err == nil || !strings.Contains(err.Error(), tc.want) {

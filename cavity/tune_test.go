@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"cylcav/physics"
 )
 
 // TestSlaterEndPlateMatchesTuningSlope: Slater's theorem applied to the
@@ -18,7 +20,7 @@ func TestSlaterEndPlateMatchesTuningSlope(t *testing.T) {
 	}{
 		{"TE011", Cavity{Radius: 0.02, Length: 0.03}},
 		{"TE012", Cavity{Radius: 0.02, Length: 0.05}},
-		{"TE013", Cavity{Radius: 0.015, Length: 0.09, EpsR: 2.08}},
+		{"TE013", Cavity{Radius: 0.015, Length: 0.09, Fill: physics.Medium{EpsR: 2.08}}},
 		{"TE021", Cavity{Radius: 0.04, Length: 0.03}},
 		{"TE111", Cavity{Radius: 0.01, Length: 0.03}},
 		{"TM011", Cavity{Radius: 0.02, Length: 0.03}},

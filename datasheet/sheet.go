@@ -136,7 +136,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		dim.add(false, "Length at f (1 + tuning)", length(r.Analysis.TunedLength[1]), "")
 	}
 	fill := r.Scenario.Fill
-	dim.add(false, "Fill", fill.Name, fmt.Sprintf("εr = %.6g, μr = %.6g", orOne(spec.Fill.EpsR), orOne(spec.Fill.MuR)))
+	dim.add(false, "Fill", spec.Fill.Label(), fmt.Sprintf("εr = %.6g, μr = %.6g", spec.Fill.Eps(), spec.Fill.Mu()))
 	sh.Dimensions = dim
 
 	// Modes near the band, with Q0 where a wall is known.
@@ -146,7 +146,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	var qOf func(m cavity.Mode) (float64, error)
 	if r.Scenario.Wall != nil {
-		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, fill)(c) }
+		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
 		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},
@@ -208,7 +208,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		q.add(false, "End plate A", ohm(u.Wall.Rs.EndA), qText(u.Wall.QEndA), pct(u.Share.EndA))
 		q.add(false, "End plate B", ohm(u.Wall.Rs.EndB), qText(u.Wall.QEndB), pct(u.Share.EndB))
 		q.add(false, "Walls together", "", qText(u.Wall.QWall), pct(u.Share.Side+u.Share.EndA+u.Share.EndB))
-		q.add(false, "Fill ("+fill.Name+")", "", qText(u.QFill), pct(u.Share.Fill))
+		q.add(false, "Fill ("+spec.Fill.Label()+")", "", qText(u.QFill), pct(u.Share.Fill))
 		q.add(true, "Unloaded Q0", "", qText(u.Q0), "100 %")
 		sh.Q = q
 		sh.QNote = "1/Q0 = 1/Q_wall + 1/Q_fill. Real surfaces (roughness, joints, plating) give less: allow 10–30 % below the smooth-wall figure (common practice)."
@@ -303,15 +303,15 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		sh.Materials = append(sh.Materials, m)
 	}
 	{
-		m := Material{Role: "Fill", Name: fill.Name, Description: fill.Description, Source: fill.Source, Note: fill.Note}
-		m.Values = append(m.Values, KV{"Relative permittivity", fmt.Sprintf("%.6g", orOne(fill.EpsR))})
-		td := fmt.Sprintf("%.3g", fill.TanDelta)
-		if fill.TanDeltaFreq > 0 {
-			td += " at " + freq(fill.TanDeltaFreq)
+		m := Material{Role: "Fill", Name: spec.Fill.Label(), Description: fill.Description, Source: fill.Source, Note: fill.Note}
+		m.Values = append(m.Values, KV{"Relative permittivity", fmt.Sprintf("%.6g", spec.Fill.Eps())})
+		td := fmt.Sprintf("%.3g", spec.Fill.TanDelta)
+		if spec.Fill.TanDeltaFreq > 0 {
+			td += " at " + freq(spec.Fill.TanDeltaFreq)
 		}
 		m.Values = append(m.Values, KV{"Loss tangent", td})
-		if fill.TCEpsKnown {
-			m.Values = append(m.Values, KV{"Temperature coefficient of εr", minus(fmt.Sprintf("%.4g ppm/K", 1e6*fill.TCEps))})
+		if spec.Fill.TCEpsKnown {
+			m.Values = append(m.Values, KV{"Temperature coefficient of εr", minus(fmt.Sprintf("%.4g ppm/K", 1e6*spec.Fill.TCEps))})
 		}
 		sh.Materials = append(sh.Materials, m)
 	}
@@ -600,11 +600,4 @@ func tolText(t float64) string {
 		return "no tolerance given"
 	}
 	return "±" + micro(physics.FormatLength(t, 3))
-}
-
-func orOne(v float64) float64 {
-	if v == 0 {
-		return 1
-	}
-	return v
 }

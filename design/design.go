@@ -26,7 +26,8 @@ type Scenario struct {
 	Spec cavity.DesignSpec
 	// Wall is the wall metal; nil means no Q0.
 	Wall *physics.Conductor
-	// Fill is the fill dielectric (its eps_r and mu_r are in Spec.Fill).
+	// Fill is the library row of the fill, with its description and source
+	// for a datasheet; its Medium is Spec.Fill.
 	Fill physics.Dielectric
 	// TempGiven records whether a temperature range was asked for.
 	TempGiven bool
@@ -75,7 +76,7 @@ func Demo() (Scenario, error) {
 		Spec: cavity.DesignSpec{
 			Mode:      m,
 			Frequency: 10.5e9,
-			Fill:      cavity.Fill{EpsR: air.EpsR, MuR: air.MuR},
+			Fill:      air.Medium,
 			RatioMin:  0.8, RatioMax: 2.5,
 			Tuning: 0.005,
 			Thermal: cavity.Thermal{
@@ -93,21 +94,20 @@ func Demo() (Scenario, error) {
 }
 
 // QFunc returns the unloaded-Q function of mode m for walls of metal wall
-// (at 20 C, smooth) and the fill's loss tangents, built on package qfactor.
-func QFunc(m cavity.Mode, wall physics.Conductor, fill physics.Dielectric) func(cavity.Cavity) (float64, error) {
-	return func(c cavity.Cavity) (float64, error) {
-		u, err := unloaded(c, m, wall, fill)
-		return u.Q0, err
-	}
+// (at 20 C, smooth) and the loss tangents of the cavity's fill, built on
+// package qfactor.
+func QFunc(m cavity.Mode, wall physics.Conductor) func(cavity.Cavity) (float64, error) {
+	return qfactor.Q0Constraint(m, walls(wall))
 }
 
-func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, fill physics.Dielectric) (qfactor.Unloaded, error) {
-	surf := qfactor.Surface{Conductor: wall}
-	rs := func(f float64) (qfactor.Walls, error) {
-		r, _, err := surf.Resistance(f)
-		return qfactor.Uniform(r), err
-	}
-	return qfactor.UnloadedQ(c, m, rs, qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM})
+// walls returns the wall set of metal wall on every part, at 20 C and
+// smooth.
+func walls(wall physics.Conductor) qfactor.WallSet {
+	return qfactor.SameWalls(qfactor.Surface{Conductor: wall})
+}
+
+func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor) (qfactor.Unloaded, error) {
+	return qfactor.UnloadedQ(c, m, walls(wall).At(nil))
 }
 
 // Run solves the scenario: the optimum (cavity.Optimize), its analysis
@@ -118,7 +118,7 @@ func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, fill physi
 func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	spec := s.Spec
 	if s.Wall != nil {
-		spec.Q = QFunc(spec.Mode, *s.Wall, s.Fill)
+		spec.Q = QFunc(spec.Mode, *s.Wall)
 	}
 	d, err := cavity.Optimize(spec)
 	if err != nil {
@@ -132,7 +132,7 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	}
 	r := Result{Scenario: s, Design: d, Analysis: a}
 	if s.Wall != nil {
-		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, s.Fill)
+		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall)
 		if err != nil {
 			return Result{}, err
 		}
@@ -176,8 +176,8 @@ func Cautions(r Result) []string {
 		if spec.Tuning > 0 && drift > spec.Tuning*spec.Frequency {
 			out = append(out, fmt.Sprintf("The thermal drift (up to %s) exceeds the tuning range (+-%s).", physics.FormatFrequency(drift, 4), physics.FormatFrequency(spec.Tuning*spec.Frequency, 4)))
 		}
-		if !r.Scenario.Fill.TCEpsKnown && spec.Fill.EpsR > 1 {
-			out = append(out, fmt.Sprintf("The temperature coefficient of the fill %q is not known; its drift is left out.", r.Scenario.Fill.Name))
+		if !spec.Fill.TCEpsKnown && spec.Fill.Eps() > 1 {
+			out = append(out, fmt.Sprintf("The temperature coefficient of the fill %q is not known; its drift is left out.", spec.Fill.Label()))
 		}
 	}
 	if sp := r.Analysis.Spread; sp != nil {

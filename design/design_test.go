@@ -62,7 +62,7 @@ func TestRunIsOptimizeThenAnalyze(t *testing.T) {
 		t.Fatal(err)
 	}
 	spec := s.Spec
-	spec.Q = design.QFunc(spec.Mode, cu, s.Fill)
+	spec.Q = design.QFunc(spec.Mode, cu)
 	d, err := cavity.Optimize(spec)
 	if err != nil {
 		t.Fatal(err)
@@ -90,7 +90,7 @@ func TestCautions(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lossy := physics.Dielectric{Name: "lossy", EpsR: 2, TanDelta: 1e-2}
+	lossy := physics.Dielectric{Medium: physics.Medium{Name: "lossy", EpsR: 2, TanDelta: 1e-2}}
 	for _, tc := range []struct {
 		name string
 		s    design.Scenario
@@ -98,7 +98,7 @@ func TestCautions(t *testing.T) {
 	}{
 		{"degenerate companion", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9}}, "TM111 resonates at exactly the frequency of TE011"},
 		{"range edge", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, MaxDiameter: 0.0419}}, "edge of the allowed D/L range (max-diameter"},
-		{"lossy fill", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: cavity.Fill{EpsR: 2}}, Wall: &cu, Fill: lossy}, "The fill's loss dominates Q0"},
+		{"lossy fill", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: lossy.Medium}, Wall: &cu, Fill: lossy}, "The fill's loss dominates Q0"},
 		{"no wall", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TM010"), Frequency: 3e9}}, "Q0 not computed"},
 	} {
 		r, err := tc.s.Run(nil)

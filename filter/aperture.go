@@ -341,7 +341,7 @@ func newHolePair(c1, c2 cavity.Cavity, m cavity.Mode, h Hole) (*holePair, error)
 	}
 	p := &holePair{c1: c1, c2: c2, m: m, f1: f1, f2: f2}
 	f := math.Sqrt(f1.Omega() * f2.Omega() / (4 * math.Pi * math.Pi))
-	p.lambda = physics.SpeedOfLight / (f * c1.Fill().Index())
+	p.lambda = physics.SpeedOfLight / (f * c1.Fill.Index())
 	p.k = 2 * math.Pi / p.lambda
 	p.position = h.Position
 	if p.position == 0 {

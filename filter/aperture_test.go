@@ -200,9 +200,9 @@ func TestHoleClosedForms(t *testing.T) {
 	te011, tm010 := apMode(t, "TE011"), apMode(t, "TM010")
 	const r0 = 0.4e-3
 	for _, c := range []cavity.Cavity{
-		{Radius: 0.0185, Length: 0.0285},               // invented X-band cavity
-		{Radius: 0.03, Length: 0.012, EpsR: 2.1},       // invented PTFE-filled pill box
-		{Radius: 0.011, Length: 0.04, MuR: 1, EpsR: 1}, // invented long cavity
+		{Radius: 0.0185, Length: 0.0285},                                     // invented X-band cavity
+		{Radius: 0.03, Length: 0.012, Fill: physics.Medium{EpsR: 2.1}},       // invented PTFE-filled pill box
+		{Radius: 0.011, Length: 0.04, Fill: physics.Medium{MuR: 1, EpsR: 1}}, // invented long cavity
 	} {
 		kc, beta, k := c.Wavenumbers(te011)
 		x := kc * c.Radius
@@ -295,7 +295,7 @@ func TestHoleEvenOdd(t *testing.T) {
 		{cavity.Cavity{Radius: 0.0185, Length: 0.0285}, "TE011", SideWall, 0.37},
 		{cavity.Cavity{Radius: 0.02, Length: 0.015}, "TM010", EndWall, 0.55}, // mixed
 		{cavity.Cavity{Radius: 0.02, Length: 0.015}, "TM010", EndWall, 0.2},  // mixed, electric
-		{cavity.Cavity{Radius: 0.02, Length: 0.025, EpsR: 2.1}, "TM110", EndWall, 0.5},
+		{cavity.Cavity{Radius: 0.02, Length: 0.025, Fill: physics.Medium{EpsR: 2.1}}, "TM110", EndWall, 0.5},
 		{cavity.Cavity{Radius: 0.02, Length: 0.025}, "TE111", SideWall, 0.4},
 		{cavity.Cavity{Radius: 0.02, Length: 0.035}, "TM012", EndWall, 0.6},
 	} {
@@ -482,7 +482,7 @@ func TestHoleErrors(t *testing.T) {
 		{"negative thickness", second(CouplingThrough(c, c, m, Hole{Radius: 1e-3, Thickness: -1})), "wall thickness must be >= 0 m"},
 		{"negative A", second(CouplingThrough(c, c, m, Hole{Radius: 1e-3, A: -1})), "thickness constant A must be >= 0"},
 		{"NaN phi", second(CouplingThrough(c, c, m, Hole{Radius: 1e-3, Phi: math.NaN()})), "hole azimuth must be finite"},
-		{"fills", second(CouplingThrough(c, cavity.Cavity{Radius: 0.0185, Length: 0.0285, EpsR: 2}, m, Hole{Radius: 1e-3})), "must share their fill"},
+		{"fills", second(CouplingThrough(c, cavity.Cavity{Radius: 0.0185, Length: 0.0285, Fill: physics.Medium{EpsR: 2}}, m, Hole{Radius: 1e-3})), "must share their fill"},
 		{"bad cavity", second(CouplingThrough(cavity.Cavity{Radius: -1, Length: 1}, c, m, Hole{Radius: 1e-3})), "radius must be in"},
 		{"bad mode", second(CouplingThrough(c, c, cavity.Mode{Family: cavity.TE, M: 1}, Hole{Radius: 1e-3})), "TE modes need p >= 1"},
 		{"k 0", second(SizeHole(c, c, m, Hole{}, 0)), "coupling to realise must be finite and nonzero"},
@@ -518,7 +518,7 @@ func BenchmarkSizeHole(b *testing.B) {
 // through a hole in their common 1 mm end plate.
 func ExampleSizeHole() {
 	m, _ := cavity.ParseMode("TE011")
-	c, _ := cavity.Size(m, 10.7e9, cavity.Fill{}, cavity.ByRatio(1.2))
+	c, _ := cavity.Size(m, 10.7e9, physics.Medium{}, cavity.ByRatio(1.2))
 	hc, err := SizeHole(c, c, m, Hole{Wall: EndWall, Thickness: 1e-3}, 0.002)
 	if err != nil {
 		fmt.Println(err)

@@ -64,10 +64,9 @@ type RealiseOptions struct {
 	// diameter every cavity keeps it and resonators tuned apart differ in
 	// length only, as when they are tuned by an end plate.
 	Shape cavity.Constraint
-	// Fill is the homogeneous medium in the cavities (zero value: vacuum).
-	Fill cavity.Fill
-	// Loss holds the fill's loss tangents (zero value: lossless fill).
-	Loss qfactor.Fill
+	// Fill is the homogeneous medium in the cavities, with its loss
+	// tangents (zero value: lossless vacuum).
+	Fill physics.Medium
 	// Walls gives the surface resistances at a frequency (for example
 	// from qfactor.Surface.Resistance); nil means perfectly conducting
 	// walls, so that Q0 comes from the fill alone (+Inf with no loss).
@@ -220,7 +219,7 @@ func (r *Realisation) Q0() []float64 {
 // f_i, not f0. Synchronously tuned designs (all-pole and symmetric ones)
 // have every f_i = f0. The cavity comes from cavity.Size with opts.Shape
 // and its Q0 from qfactor.UnloadedQ (wall loss from opts.Walls, fill loss
-// from opts.Loss).
+// from the loss tangents of opts.Fill).
 //
 // Spurious resonances: every other mode of each distinct cavity design
 // inside the search window, from cavity.Cavity.Modes (complete to the
@@ -261,9 +260,6 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	if opts.Shape.Name() == "none" {
 		return nil, errors.New("filter: Realise needs a cavity shape: cavity.ByRatio(D/L), cavity.ByDiameter(m) or cavity.ByLength(m)")
 	}
-	if err := opts.Loss.Validate(); err != nil {
-		return nil, err
-	}
 	walls := opts.Walls
 	if walls == nil {
 		walls = qfactor.Fixed(qfactor.Walls{})
@@ -299,7 +295,7 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 		if err != nil {
 			return nil, fmt.Errorf("filter: cavity of resonator %d at %s: %w", i, physics.FormatFrequency(fi, 6), err)
 		}
-		u, err := qfactor.UnloadedQ(c, mode, walls, opts.Loss)
+		u, err := qfactor.UnloadedQ(c, mode, walls)
 		if err != nil {
 			return nil, fmt.Errorf("filter: unloaded Q of resonator %d: %w", i, err)
 		}

@@ -88,7 +88,7 @@ func bruteModes(t *testing.T, c cavity.Cavity, lo, hi float64) []cavity.Resonanc
 		}
 	}
 	var out []cavity.Resonance
-	scale := physics.SpeedOfLight / (2 * math.Pi * c.Fill().Index())
+	scale := physics.SpeedOfLight / (2 * math.Pi * c.Fill.Index())
 	for _, fam := range []cavity.Family{cavity.TE, cavity.TM} {
 		for n := 0; n < nMax; n++ {
 			roots := bessel.JZeros(n, mMax)
@@ -149,7 +149,7 @@ func TestRealiseFourCavityTE011(t *testing.T) {
 		if want := pozarTE0mpQ(c, te011, rs); apRel(cd.Q0, want) > realRouteTol {
 			t.Errorf("cavity %d: Q0 = %.12g, want %.12g (Pozar sec. 6.4 closed form)", i+1, cd.Q0, want)
 		}
-		u, err := qfactor.UnloadedQ(c, te011, copperWalls, qfactor.Fill{})
+		u, err := qfactor.UnloadedQ(c, te011, copperWalls)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -466,8 +466,8 @@ func TestRealiseErrors(t *testing.T) {
 		{"negative window", d, RealiseOptions{Shape: shape, Window: -0.1}, "got -0.1"},
 		{"bad stopband", d, RealiseOptions{Shape: shape, Stopbands: []Stopband{{Low: 12e9, High: 11e9}}}, "stopband 1 must have 0 < low < high"},
 		{"bad attenuation", d, RealiseOptions{Shape: shape, Stopbands: []Stopband{{Low: 11e9, High: 12e9, Attenuation: math.NaN()}}}, "attenuation must be >= 0 dB"},
-		{"bad loss", d, RealiseOptions{Shape: shape, Loss: qfactor.Fill{TanDelta: -1}}, "loss tangent"},
-		{"bad fill", d, RealiseOptions{Shape: shape, Fill: cavity.Fill{EpsR: 0.5}}, "resonator 1"},
+		{"bad loss", d, RealiseOptions{Shape: shape, Fill: physics.Medium{TanDelta: -1}}, "loss tangent"},
+		{"bad fill", d, RealiseOptions{Shape: shape, Fill: physics.Medium{EpsR: 0.5}}, "resonator 1"},
 		{"infeasible", d, RealiseOptions{Shape: cavity.ByDiameter(0.01)}, "cut off"},
 		{"walls error", d, RealiseOptions{Shape: shape, Walls: func(float64) (qfactor.Walls, error) { return qfactor.Walls{}, fmt.Errorf("no data") }}, "no data"},
 	} {

@@ -122,10 +122,10 @@ type Spec struct {
 	// are left out.
 	MinFD float64
 
-	// EpsR and MuR are the relative permittivity and permeability of the
-	// fill (zero means 1). With a design cavity they must be zero or equal
-	// to the cavity's, which sets the fill.
-	EpsR, MuR float64
+	// Fill is the medium inside the cavity; the zero value is vacuum. With
+	// a design cavity it must be the zero value or have the cavity fill's
+	// permittivity and permeability; the cavity's fill is used.
+	Fill physics.Medium
 
 	Axes  Axes
 	Units Units
@@ -253,7 +253,8 @@ type Chart struct {
 	// Hz·m.
 	RatioMin, RatioMax float64
 	FDMin, FDMax       float64
-	EpsR, MuR          float64
+	// Fill is the medium the chart is drawn for.
+	Fill physics.Medium
 
 	// Lines are sorted by intercept, then slope, then label.
 	Lines []Line
@@ -306,23 +307,21 @@ func New(s Spec) (*Chart, error) {
 	}
 	hasCavity := s.Cavity.Radius != 0
 	hasDesign := hasCavity && hasWanted
-	eps, mu := s.EpsR, s.MuR
+	fill := s.Fill
 	if hasCavity {
 		if err := s.Cavity.Validate(); err != nil {
 			return nil, fmt.Errorf("modechart: design %w", err)
 		}
-		ce, cm := one(s.Cavity.EpsR), one(s.Cavity.MuR)
-		if (eps != 0 && eps != ce) || (mu != 0 && mu != cm) {
+		cf := s.Cavity.Fill
+		if fill != (physics.Medium{}) && (fill.Eps() != cf.Eps() || fill.Mu() != cf.Mu()) {
 			return nil, fmt.Errorf("modechart: chart fill (eps_r %g, mu_r %g) differs from the design cavity's (eps_r %g, mu_r %g); give one",
-				one(eps), one(mu), ce, cm)
+				fill.Eps(), fill.Mu(), cf.Eps(), cf.Mu())
 		}
-		eps, mu = ce, cm
-	} else {
-		if err := (cavity.Cavity{Radius: 1, Length: 1, EpsR: eps, MuR: mu}).Validate(); err != nil {
-			return nil, fmt.Errorf("modechart: fill: %w", err)
-		}
-		eps, mu = one(eps), one(mu)
+		fill = cf
+	} else if err := fill.Validate(); err != nil {
+		return nil, fmt.Errorf("modechart: fill: cavity: %w", err)
 	}
+	eps, mu := fill.Eps(), fill.Mu()
 	if !hasDesign && (s.Tuning != 0 || s.DiameterTol != 0 || s.LengthTol != 0 || s.Clearance != 0) {
 		return nil, fmt.Errorf("modechart: tuning, tolerances and clearance need a design: a cavity and a wanted mode")
 	}
@@ -348,7 +347,7 @@ func New(s Spec) (*Chart, error) {
 	ch := &Chart{
 		Axes: s.Axes, Units: s.Units,
 		RatioMin: s.RatioMin, RatioMax: s.RatioMax,
-		EpsR: eps, MuR: mu,
+		Fill:       fill,
 		Wanted:     -1,
 		Clearance:  s.Clearance,
 		Tuning:     s.Tuning,
@@ -427,7 +426,7 @@ func New(s Spec) (*Chart, error) {
 	// Every mode whose line enters the chart: its lowest point is at
 	// RatioMin, so these are the modes of a cavity with D = 1 m and
 	// L = 1/RatioMin (whose frequency is f·D) at or below FDMax.
-	ref := cavity.Cavity{Radius: 0.5, Length: 1 / s.RatioMin, EpsR: eps, MuR: mu}
+	ref := cavity.Cavity{Radius: 0.5, Length: 1 / s.RatioMin, Fill: fill}
 	count, _, err := ref.Count(ch.FDMax)
 	if err != nil {
 		return nil, fmt.Errorf("modechart: listing modes up to f·D = %.4g Hz·m: %w; lower the top of the chart", ch.FDMax, err)
@@ -492,13 +491,6 @@ func New(s Spec) (*Chart, error) {
 		ch.classify()
 	}
 	return ch, nil
-}
-
-func one(v float64) float64 {
-	if v == 0 {
-		return 1
-	}
-	return v
 }
 
 func sortPair(ms []cavity.Mode) {

@@ -10,6 +10,7 @@ import (
 	"testing"
 
 	"cylcav/cavity"
+	"cylcav/physics"
 )
 
 // Tolerances.
@@ -99,7 +100,7 @@ func relErr(got, want float64) float64 {
 // table's modes with each TE0mp/TM1mp pair merged into one line.
 func TestLinesAgainstReference(t *testing.T) {
 	for _, rc := range readLines(t) {
-		ch, err := New(Spec{RatioMin: rc.rmin, RatioMax: 3, MaxFD: rc.top, EpsR: rc.eps, MuR: rc.mu})
+		ch, err := New(Spec{RatioMin: rc.rmin, RatioMax: 3, MaxFD: rc.top, Fill: physics.Medium{EpsR: rc.eps, MuR: rc.mu}})
 		if err != nil {
 			t.Fatalf("%s: New: %v", rc.name, err)
 		}
@@ -147,7 +148,7 @@ func TestLinesAgainstSolver(t *testing.T) {
 	rng := rand.New(rand.NewPCG(1, 2))
 	for trial := 0; trial < 8; trial++ {
 		eps := 1 + 9*rng.Float64()
-		ch, err := New(Spec{RatioMin: 0.3, RatioMax: 4, MaxFD: 3e8, EpsR: eps})
+		ch, err := New(Spec{RatioMin: 0.3, RatioMax: 4, MaxFD: 3e8, Fill: physics.Medium{EpsR: eps}})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -156,7 +157,7 @@ func TestLinesAgainstSolver(t *testing.T) {
 			r1, r2 := 0.3+3.7*rng.Float64(), 0.3+3.7*rng.Float64()
 			for _, m := range l.Modes {
 				fd := func(r float64) float64 {
-					return cavity.Cavity{Radius: d / 2, Length: d / r, EpsR: eps}.Frequency(m) * d
+					return cavity.Cavity{Radius: d / 2, Length: d / r, Fill: physics.Medium{EpsR: eps}}.Frequency(m) * d
 				}
 				if got, want := l.FD(r1), fd(r1); relErr(got, want) > solverTol {
 					t.Errorf("eps %.3g: %v FD(%.4g) = %.15g, want %.15g (solver)", eps, m, r1, got, want)
@@ -330,7 +331,7 @@ func TestScaling(t *testing.T) {
 		t.Fatal(err)
 	}
 	const k = 4
-	b, err := New(Spec{MaxFD: 4e8 / 2, EpsR: k})
+	b, err := New(Spec{MaxFD: 4e8 / 2, Fill: physics.Medium{EpsR: k}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -394,7 +395,7 @@ func TestSpecErrors(t *testing.T) {
 		{"tuning", func(s *Spec) { s.Tuning = 0.7 }, "tuning must be in [0, 0.5)"},
 		{"clearance", func(s *Spec) { s.Clearance = -0.1 }, "got -0.1"},
 		{"tolerance", func(s *Spec) { s.DiameterTol = 0.01 }, "diameter tolerance"},
-		{"fill clash", func(s *Spec) { s.EpsR = 2 }, "differs from the design cavity"},
+		{"fill clash", func(s *Spec) { s.Fill.EpsR = 2 }, "differs from the design cavity"},
 		{"tm010 tuning", func(s *Spec) { s.Wanted = tm010 }, "cannot be tuned by moving an end plate"},
 		{"top below box", func(s *Spec) { s.MaxFD = 1e8 }, "raise the chart top"},
 		{"box outside range", func(s *Spec) { s.RatioMin, s.RatioMax = 1.5, 3 }, "widen the range"},

@@ -152,17 +152,17 @@ func (ch *Chart) Figure(th figure.Theme) (*figure.Figure, error) {
 
 		f.Notes = append(f.Notes, fmt.Sprintf("Design: D = %s, L = %s, %v at %s%s.",
 			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5),
-			ch.WantedMode, physics.FormatFrequency(ch.DesignFreq, 6), fillNote(ch.EpsR, ch.MuR)))
+			ch.WantedMode, physics.FormatFrequency(ch.DesignFreq, 6), fillNote(ch.Fill)))
 	} else if ch.MarkRatio != 0 {
 		c := ch.Cavity
 		f.Notes = append(f.Notes, fmt.Sprintf("Cavity: D = %s, L = %s%s; read each mode's f·D where its line meets the D/L mark.",
-			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), fillNote(ch.EpsR, ch.MuR)))
-	} else if ch.EpsR != 1 || ch.MuR != 1 {
+			physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), fillNote(ch.Fill)))
+	} else if ch.Fill.Eps() != 1 || ch.Fill.Mu() != 1 {
 		if ch.MarkRatio != 0 {
 			f.Legend.Add(fmt.Sprintf("this cavity, D/L = %.4g", ch.MarkRatio), figure.LineThumb{LineStyle: markStyle()})
 		}
 
-		f.Notes = append(f.Notes, "Fill:"+strings.TrimPrefix(fillNote(ch.EpsR, ch.MuR), ",")+".")
+		f.Notes = append(f.Notes, "Fill:"+strings.TrimPrefix(fillNote(ch.Fill), ",")+".")
 	}
 	return f, nil
 }
@@ -190,7 +190,8 @@ func (ch *Chart) boxCaption() string {
 	return "operating box: " + strings.Join(parts, " × ")
 }
 
-func fillNote(eps, mu float64) string {
+func fillNote(fill physics.Medium) string {
+	eps, mu := fill.Eps(), fill.Mu()
 	switch {
 	case eps == 1 && mu == 1:
 		return ", empty (vacuum)"

@@ -9,6 +9,7 @@ import (
 	"cylcav/cavity"
 	"cylcav/figure"
 	"cylcav/modechart"
+	"cylcav/physics"
 )
 
 // A reference cavity for an invented 10 GHz test bench: TE011 in an
@@ -44,7 +45,7 @@ func ExampleNew() {
 // Render draws any figure, here a plain mode chart of a PTFE-filled
 // cylinder, as PNG at a chosen resolution (or SVG, or PDF).
 func ExampleRender() {
-	ch, err := modechart.New(modechart.Spec{EpsR: 2.08, Units: modechart.GHzMm})
+	ch, err := modechart.New(modechart.Spec{Fill: physics.Medium{EpsR: 2.08}, Units: modechart.GHzMm})
 	if err != nil {
 		log.Fatal(err)
 	}

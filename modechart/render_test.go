@@ -17,6 +17,7 @@ import (
 	"cylcav/cavity"
 	"cylcav/figure"
 	"cylcav/figure/rendertest"
+	"cylcav/physics"
 )
 
 var regen = flag.Bool("regen", false, "rewrite the golden files in testdata/modechart")
@@ -40,7 +41,7 @@ func layoutCases() []layoutCase {
 	mm.Units = MHzIn
 	dense := designSpec()
 	dense.MaxFD = 1.2e9 // about 200 lines
-	ptfe := Spec{RatioMin: 0.4, RatioMax: 2.5, EpsR: 2.08, Units: GHzMm, Axes: Linear}
+	ptfe := Spec{RatioMin: 0.4, RatioMax: 2.5, Fill: physics.Medium{EpsR: 2.08}, Units: GHzMm, Axes: Linear}
 	return []layoutCase{
 		{"design squared", d, 8 * vg.Inch, 6 * vg.Inch},
 		{"design linear", lin, 8 * vg.Inch, 6 * vg.Inch},

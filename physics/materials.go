@@ -59,6 +59,10 @@ type Conductor struct {
 	Source string
 }
 
+// Mu returns the relative permeability of the wall metal, MuR with zero
+// meaning 1.
+func (c Conductor) Mu() float64 { return orOne(c.MuR) }
+
 // Resistivity returns 1/Conductivity at 20 C, in ohm m.
 func (c Conductor) Resistivity() float64 { return 1 / c.Conductivity }
 
@@ -66,28 +70,15 @@ func (c Conductor) Resistivity() float64 { return 1 / c.Conductivity }
 // (1 = 100 % IACS).
 func (c Conductor) IACS() float64 { return c.Conductivity / IACSConductivity }
 
-// Dielectric is a fill material. Values are SI; loss tangents are at the
-// stated frequency.
+// Dielectric is a row of the fill library: a Medium (name, permittivity,
+// permeability, loss tangents at the stated frequency, temperature
+// coefficient) with the aliases, description, note and source that go with
+// it. Its Medium is the cavity fill (see cavity.Cavity).
 type Dielectric struct {
-	Name        string   // canonical library name, lower case ("ptfe"), or "user"
+	Medium               // Name is the canonical library name, lower case ("ptfe"), or "user"
 	Aliases     []string // other accepted names, lower case
 	Description string   // one line for people
 
-	// EpsR is the relative permittivity (real part).
-	EpsR float64
-	// TanDelta is the dielectric loss tangent at TanDeltaFreq.
-	TanDelta float64
-	// TanDeltaFreq is the frequency at which TanDelta was measured, in Hz;
-	// zero means not stated.
-	TanDeltaFreq float64
-	// MuR is the relative permeability; zero means 1.
-	MuR float64
-	// TanDeltaM is the magnetic loss tangent (zero for non-magnetic fills).
-	TanDeltaM float64
-	// TCEps is the temperature coefficient of permittivity (1/eps) d eps/dT
-	// near 20 C, in 1/K; meaningful only when TCEpsKnown is true.
-	TCEps      float64
-	TCEpsKnown bool
 	// Note is a caution for users, or empty.
 	Note string
 	// Source names where each value comes from: the book, table or paper,
@@ -237,66 +228,66 @@ func Dielectrics() []Dielectric {
 	epsAir := nAir * nAir
 	return []Dielectric{
 		{
-			Name: "vacuum", Aliases: []string{"vac", "none"},
+			Medium:      Medium{Name: "vacuum", EpsR: 1, MuR: 1, TCEpsKnown: true},
+			Aliases:     []string{"vac", "none"},
 			Description: "vacuum",
-			EpsR:        1, MuR: 1, TCEpsKnown: true,
-			Source: "definition",
+			Source:      "definition",
 		},
 		{
-			Name: "air", Aliases: []string{"dry-air"},
+			Medium: Medium{Name: "air", EpsR: epsAir, MuR: 1,
+				// n-1 = 77.6e-6 P/T, so at constant pressure dn/dT = -(n-1)/T
+				// and d eps/dT = 2 n dn/dT (derived).
+				TCEps: -2 * nAir * (nAir - 1) / (ZeroCelsius + 20) / epsAir, TCEpsKnown: true},
+			Aliases:     []string{"dry-air"},
 			Description: "dry air, 20 C, 101.325 kPa",
-			EpsR:        epsAir, MuR: 1,
-			// n-1 = 77.6e-6 P/T, so at constant pressure dn/dT = -(n-1)/T
-			// and d eps/dT = 2 n dn/dT (derived).
-			TCEps: -2 * nAir * (nAir - 1) / (ZeroCelsius + 20) / epsAir, TCEpsKnown: true,
-			Note:   "humidity raises eps: about +1e-4 at 20 C and 60 % relative humidity",
-			Source: "eps derived from the Smith-Weintraub radio refractivity N = 77.6 P/T (Proc. IRE 41, 1035, 1953; recalled from memory); TC derived for an ideal gas at constant pressure; loss negligible",
+			Note:        "humidity raises eps: about +1e-4 at 20 C and 60 % relative humidity",
+			Source:      "eps derived from the Smith-Weintraub radio refractivity N = 77.6 P/T (Proc. IRE 41, 1035, 1953; recalled from memory); TC derived for an ideal gas at constant pressure; loss negligible",
 		},
 		{
-			Name: "ptfe", Aliases: []string{"polytetrafluoroethylene"},
+			Medium:      Medium{Name: "ptfe", EpsR: 2.08, TanDelta: 4e-4, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"polytetrafluoroethylene"},
 			Description: "PTFE",
-			EpsR:        2.08, TanDelta: 4e-4, TanDeltaFreq: 10e9, MuR: 1,
-			Note:   "phase transitions near 19 C and 30 C change eps by a few tenths of a percent",
-			Source: srcPozar,
+			Note:        "phase transitions near 19 C and 30 C change eps by a few tenths of a percent",
+			Source:      srcPozar,
 		},
 		{
-			Name: "polyethylene", Aliases: []string{"pe"},
+			Medium:      Medium{Name: "polyethylene", EpsR: 2.25, TanDelta: 4e-4, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"pe"},
 			Description: "polyethylene",
-			EpsR:        2.25, TanDelta: 4e-4, TanDeltaFreq: 10e9, MuR: 1,
-			Source: srcPozar,
+			Source:      srcPozar,
 		},
 		{
-			Name: "polystyrene", Aliases: []string{"ps"},
+			Medium:      Medium{Name: "polystyrene", EpsR: 2.54, TanDelta: 3.3e-4, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"ps"},
 			Description: "polystyrene",
-			EpsR:        2.54, TanDelta: 3.3e-4, TanDeltaFreq: 10e9, MuR: 1,
-			Source: srcPozar,
+			Source:      srcPozar,
 		},
 		{
-			Name: "fused-silica", Aliases: []string{"silica", "fused-quartz", "sio2"},
+			Medium:      Medium{Name: "fused-silica", EpsR: 3.78, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"silica", "fused-quartz", "sio2"},
 			Description: "fused silica (amorphous SiO2)",
-			EpsR:        3.78, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1,
-			Source: srcPozar,
+			Source:      srcPozar,
 		},
 		{
-			Name: "sapphire-perp", Aliases: []string{"sapphire-perpendicular", "al2o3-perp"},
+			Medium:      Medium{Name: "sapphire-perp", EpsR: 9.39, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"sapphire-perpendicular", "al2o3-perp"},
 			Description: "single-crystal sapphire, field perpendicular to the c axis",
-			EpsR:        9.39, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1,
-			Note:   "uniaxial: a full fill sees both axes unless the field lies in one plane; tan delta falls by orders of magnitude when cooled",
-			Source: srcKrupk,
+			Note:        "uniaxial: a full fill sees both axes unless the field lies in one plane; tan delta falls by orders of magnitude when cooled",
+			Source:      srcKrupk,
 		},
 		{
-			Name: "sapphire-par", Aliases: []string{"sapphire-parallel", "al2o3-par"},
+			Medium:      Medium{Name: "sapphire-par", EpsR: 11.59, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"sapphire-parallel", "al2o3-par"},
 			Description: "single-crystal sapphire, field parallel to the c axis",
-			EpsR:        11.59, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1,
-			Note:   "uniaxial: a full fill sees both axes unless the field lies in one plane; tan delta falls by orders of magnitude when cooled",
-			Source: srcKrupk,
+			Note:        "uniaxial: a full fill sees both axes unless the field lies in one plane; tan delta falls by orders of magnitude when cooled",
+			Source:      srcKrupk,
 		},
 		{
-			Name: "alumina", Aliases: []string{"alumina-99.5", "al2o3"},
+			Medium:      Medium{Name: "alumina", EpsR: 9.8, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"alumina-99.5", "al2o3"},
 			Description: "polycrystalline alumina, 99.5 %",
-			EpsR:        9.8, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1,
-			Note:   "grades differ by about 0.2 in eps and a factor of 3 in tan delta",
-			Source: srcKrupk + "; Pozar, Microwave Engineering, 4th ed., Appendix G lists 9.5-10 (recalled from memory)",
+			Note:        "grades differ by about 0.2 in eps and a factor of 3 in tan delta",
+			Source:      srcKrupk + "; Pozar, Microwave Engineering, 4th ed., Appendix G lists 9.5-10 (recalled from memory)",
 		},
 	}
 }
@@ -369,7 +360,7 @@ const (
 	minMu, maxMu       = 1e-3, 1e5
 	maxAlpha           = 0.01 // 1/K, |alpha|
 	minCTE, maxCTE     = -1e-4, 1e-3
-	minEps, maxEps     = 1, 1e4
+	minEps, maxEps     = MinEpsR, MaxEpsR
 	maxCoef            = 0.01 // 1/K, |tceps|
 	maxTanFreq         = 1e15 // Hz
 )
@@ -554,7 +545,7 @@ func ParseDielectric(spec string) (Dielectric, error) {
 			return Dielectric{}, err
 		}
 	} else {
-		d = Dielectric{Name: "user", Description: "user values", MuR: 1, Source: "user input"}
+		d = Dielectric{Medium: Medium{Name: "user", MuR: 1}, Description: "user values", Source: "user input"}
 	}
 	var keys []string
 	haveEps := false
@@ -573,8 +564,8 @@ func ParseDielectric(spec string) (Dielectric, error) {
 			if v, err = parseBare(kind, f.key, f.value); err != nil {
 				return Dielectric{}, err
 			}
-			if !(v >= 0 && v <= 1) {
-				return Dielectric{}, rangeErr(kind, f.key, 0, 1, "", v)
+			if !(v >= 0 && v <= MaxTanDelta) {
+				return Dielectric{}, rangeErr(kind, f.key, 0, MaxTanDelta, "", v)
 			}
 			if f.key == "tand" {
 				d.TanDelta = v
@@ -618,6 +609,9 @@ func ParseDielectric(spec string) (Dielectric, error) {
 	}
 	if name != "" && len(keys) > 0 {
 		d.Source += "; user input: " + strings.Join(keys, ", ")
+	}
+	if err := d.Medium.Validate(); err != nil {
+		return Dielectric{}, fmt.Errorf("%s %q: %w", kind, spec, err)
 	}
 	return d, nil
 }

@@ -105,7 +105,7 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 		return Accel{}, fmt.Errorf("qfactor: particle speed must be in 0 < beta <= 1 (fraction of c), got %g", speed)
 	}
 	x := m.Root()
-	epsR, muR := fill(c)
+	epsR, muR := c.Fill.Eps(), c.Fill.Mu()
 	eps := epsR * physics.VacuumPermittivity
 	a, d := c.Radius, c.Length
 	kc := x / a
@@ -133,7 +133,7 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 
 	f := Accel{
 		Mode:        m,
-		Frequency:   omega / (2 * math.Pi),
+		Frequency:   c.Frequency(m),
 		Speed:       speed,
 		Gap:         gap,
 		TransitTime: gap / v0,

@@ -29,9 +29,10 @@ func BenchmarkUnloadedQAll(b *testing.B) {
 	rs := func(f float64) (qfactor.Walls, error) {
 		return qfactor.Uniform(qfactor.SurfaceResistance(f, 5.8e7, 1)), nil
 	}
-	fill := qfactor.Fill{TanDelta: 1e-4}
+	c := benchCavity
+	c.Fill.TanDelta = 1e-4
 	for b.Loop() {
-		if _, err := qfactor.UnloadedQAll(benchCavity, res, rs, fill); err != nil {
+		if _, err := qfactor.UnloadedQAll(c, res, rs); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -47,7 +48,7 @@ func BenchmarkModesAndQ(b *testing.B) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		if _, err := qfactor.UnloadedQAll(benchCavity, res, rs, qfactor.Fill{}); err != nil {
+		if _, err := qfactor.UnloadedQAll(benchCavity, res, rs); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"cylcav/cavity"
+	"cylcav/physics"
 	"cylcav/qfactor"
 )
 
@@ -32,12 +33,12 @@ func ExampleWallQ() {
 // low-loss plastic (eps_r = 2.54, tan delta = 3e-4). The wall Rs follows
 // the mode's frequency.
 func ExampleUnloadedQ() {
-	c := cavity.Cavity{Radius: 0.030, Length: 0.070, EpsR: 2.54}
+	c := cavity.Cavity{Radius: 0.030, Length: 0.070, Fill: physics.Medium{EpsR: 2.54, TanDelta: 3e-4}}
 	m, _ := cavity.ParseMode("TE012")
 	rs := func(f float64) (qfactor.Walls, error) {
 		return qfactor.Uniform(qfactor.SurfaceResistance(f, 3.5e7, 1)), nil
 	}
-	u, err := qfactor.UnloadedQ(c, m, rs, qfactor.Fill{TanDelta: 3e-4})
+	u, err := qfactor.UnloadedQ(c, m, rs)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -40,13 +40,7 @@ type field struct {
 }
 
 func newField(c cavity.Cavity, m cavity.Mode) field {
-	epsR, muR := c.EpsR, c.MuR
-	if epsR == 0 {
-		epsR = 1
-	}
-	if muR == 0 {
-		muR = 1
-	}
+	epsR, muR := c.Fill.Eps(), c.Fill.Mu()
 	f := field{
 		fam: m.Family, n: m.N, a: c.Radius, d: c.Length,
 		kc:   m.Root() / c.Radius,
@@ -144,7 +138,7 @@ func TestFieldsSolveMaxwell(t *testing.T) {
 	rng := rand.New(rand.NewPCG(1, 2))
 	for _, m := range spreadModes() {
 		for _, aspect := range []float64{0.35, 1, 2.6} {
-			c := cavity.Cavity{Radius: 0.02, Length: 0.02 * aspect, EpsR: 2.1, MuR: 1.3}
+			c := cavity.Cavity{Radius: 0.02, Length: 0.02 * aspect, Fill: physics.Medium{EpsR: 2.1, MuR: 1.3}}
 			f := newField(c, m)
 			// With the phasor conventions of field: TE has curl e = -omega mu h,
 			// curl h = -omega eps e; TM has curl e = omega mu h, curl h = omega eps e.
@@ -336,7 +330,7 @@ func TestWallQQuadrature(t *testing.T) {
 	aspects := []float64{0.3, 1.1, 3.7}
 	for i, m := range spreadModes() {
 		aspect := aspects[i%len(aspects)]
-		c := cavity.Cavity{Radius: 0.013, Length: 0.013 * aspect, EpsR: 1 + 3*rng.Float64(), MuR: 1 + rng.Float64()}
+		c := cavity.Cavity{Radius: 0.013, Length: 0.013 * aspect, Fill: physics.Medium{EpsR: 1 + 3*rng.Float64(), MuR: 1 + rng.Float64()}}
 		rs := qfactor.Walls{Side: 0.01 + 0.05*rng.Float64(), EndA: 0.01 + 0.05*rng.Float64(), EndB: 0.01 + 0.05*rng.Float64()}
 		nu := quadrature(c, m)
 

@@ -337,14 +337,6 @@ func (s Surface) temperature() float64 {
 	return s.Temperature
 }
 
-// wallMu returns the relative permeability of c, zero meaning 1.
-func wallMu(c physics.Conductor) float64 {
-	if c.MuR == 0 {
-		return 1
-	}
-	return c.MuR
-}
-
 // checkFrequency rejects frequencies that are not finite and > 0.
 func checkFrequency(f float64) error {
 	if !(f > 0) || math.IsInf(f, 0) {
@@ -360,7 +352,7 @@ func (s Surface) top() (physics.Conductor, float64, error) {
 	if s.Plating != nil {
 		c = s.Plating.Metal
 	}
-	if m := wallMu(c); !(m > 0) || math.IsInf(m, 0) {
+	if m := c.Mu(); !(m > 0) || math.IsInf(m, 0) {
 		return c, 0, fmt.Errorf("qfactor: conductor %q: mu_r must be finite and > 0, got %g", c.Name, m)
 	}
 	sigma, err := Conductivity(c, s.temperature())
@@ -382,7 +374,7 @@ func (s Surface) SkinDepth(f float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return SkinDepth(f, sigma, wallMu(c)), nil
+	return SkinDepth(f, sigma, c.Mu()), nil
 }
 
 // Resistance returns the surface resistance Rs in ohm at frequency f (Hz),
@@ -428,7 +420,7 @@ func (s Surface) Resistance(f float64) (rs float64, warnings []string, err error
 	if err != nil {
 		return 0, nil, err
 	}
-	mu := wallMu(c)
+	mu := c.Mu()
 	delta := SkinDepth(f, sigma, mu)
 	if s.Plating != nil {
 		t := s.Plating.Thickness
@@ -436,14 +428,14 @@ func (s Surface) Resistance(f float64) (rs float64, warnings []string, err error
 			return 0, nil, fmt.Errorf("qfactor: plating thickness must be finite and >= 0 m, got %g m", t)
 		}
 		base := s.Conductor
-		if m := wallMu(base); !(m > 0) || math.IsInf(m, 0) {
+		if m := base.Mu(); !(m > 0) || math.IsInf(m, 0) {
 			return 0, nil, fmt.Errorf("qfactor: conductor %q: mu_r must be finite and > 0, got %g", base.Name, m)
 		}
 		sigmaBase, err := Conductivity(base, s.temperature())
 		if err != nil {
 			return 0, nil, err
 		}
-		rs = real(layeredImpedance(f, sigma, mu, t, sigmaBase, wallMu(base)))
+		rs = real(layeredImpedance(f, sigma, mu, t, sigmaBase, base.Mu()))
 		// The base carries current when the plating is thinner than a few
 		// skin depths (field at the interface exp(-5) = 0.7 %).
 		if t < 5*delta {
@@ -482,7 +474,7 @@ func anomalyWarning(c physics.Conductor, sigma, f float64) []string {
 		n, assumed = copperElectronDensity, ", estimated with copper's electron density"
 	}
 	l := MeanFreePath(sigma, n)
-	delta := SkinDepth(f, sigma, wallMu(c))
+	delta := SkinDepth(f, sigma, c.Mu())
 	a := AnomalyParameter(l, delta)
 	if !(a > AnomalyThreshold) {
 		return nil

@@ -36,19 +36,16 @@ type Unloaded struct {
 //
 // (Pozar 2012, sec. 6.3, eq. (6.49) as recalled from memory), with Q_wall
 // from WallQ for the surface resistances rs(f) at the mode's frequency f and
-// Q_fill from Fill.Q. Invalid input, or an error from rs, is an error.
-func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs WallsAt, f Fill) (Unloaded, error) {
+// Q_fill = c.Fill.Q() from the loss tangents of the cavity's fill. Invalid
+// input, or an error from rs, is an error.
+func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs WallsAt) (Unloaded, error) {
 	if err := c.Validate(); err != nil {
 		return Unloaded{}, err
 	}
 	if err := m.Validate(); err != nil {
 		return Unloaded{}, err
 	}
-	qf, err := f.Q()
-	if err != nil {
-		return Unloaded{}, err
-	}
-	return unloaded(c, m, m.Root(), c.Frequency(m), rs, qf)
+	return unloaded(c, m, m.Root(), c.Frequency(m), rs, c.Fill.Q())
 }
 
 // UnloadedQAll returns UnloadedQ for each resonance in res (as listed by
@@ -58,19 +55,16 @@ func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs WallsAt, f Fill) (Unloaded, er
 // Bessel zeros are computed once per family and azimuthal index, so this is
 // much faster than calling UnloadedQ in a loop for a long list. An invalid
 // mode or frequency, or an error from rs, stops the run and is returned.
-func UnloadedQAll(c cavity.Cavity, res []cavity.Resonance, rs WallsAt, f Fill) ([]Unloaded, error) {
+func UnloadedQAll(c cavity.Cavity, res []cavity.Resonance, rs WallsAt) ([]Unloaded, error) {
 	if err := c.Validate(); err != nil {
 		return nil, err
 	}
-	qf, err := f.Q()
-	if err != nil {
-		return nil, err
-	}
+	qf := c.Fill.Q()
 	// Largest radial index per family and azimuthal order, then one table of
 	// Bessel zeros per (family, n): index 2n for TE, 2n+1 for TM.
 	var most []int
 	for _, r := range res {
-		if err := validMode(r.Mode); err != nil {
+		if err := r.Mode.Validate(); err != nil {
 			return nil, err
 		}
 		if !(r.Frequency > 0) || math.IsInf(r.Frequency, 0) {
@@ -109,17 +103,6 @@ func slot(m cavity.Mode) int {
 		return 2 * m.N
 	}
 	return 2*m.N + 1
-}
-
-// validMode is m.Validate with a fast path for valid modes (Validate formats
-// the mode label every time, which dominates a long list).
-func validMode(m cavity.Mode) error {
-	ok := (m.Family == cavity.TE && m.P >= 1 || m.Family == cavity.TM && m.P >= 0) &&
-		m.N >= 0 && m.N <= cavity.MaxIndex && m.M >= 1 && m.M <= cavity.MaxIndex && m.P <= cavity.MaxIndex
-	if ok {
-		return nil
-	}
-	return m.Validate()
 }
 
 // unloaded is UnloadedQ for validated input, Bessel zero x, resonant

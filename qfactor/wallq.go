@@ -87,9 +87,8 @@ type WallLoss struct {
 // plates have the surface resistances rs, with each part's share of the loss.
 //
 // It holds for every mode that exists: TE_nmp with n >= 0, m >= 1, p >= 1
-// and TM_nmp with n >= 0, m >= 1, p >= 0, in a homogeneous fill (EpsR, MuR of
-// c). Each of the two polarisations cos(n phi), sin(n phi) of a mode with
-// n >= 1 has the same Q and the same shares. An invalid cavity, mode or Rs is
+// and TM_nmp with n >= 0, m >= 1, p >= 0, in a homogeneous fill (c.Fill).
+// Each of the two polarisations cos(n phi), sin(n phi) of a mode with n >= 1 has the same Q and the same shares. An invalid cavity, mode or Rs is
 // an error.
 //
 // The method is the usual surface-resistance perturbation (Harrington 1961,
@@ -132,7 +131,9 @@ func WallQ(c cavity.Cavity, m cavity.Mode, rs Walls) (WallLoss, error) {
 	if err := rs.Validate(); err != nil {
 		return WallLoss{}, err
 	}
-	return wallQ(c, m, m.Root(), rs), nil
+	w := wallQ(c, m, m.Root(), rs)
+	w.Frequency = c.Frequency(m)
+	return w, nil
 }
 
 // GeometryFactors returns the partial geometry factors of mode m of cavity
@@ -149,10 +150,12 @@ func GeometryFactors(c cavity.Cavity, m cavity.Mode) (Geometry, error) {
 	return geometry(c, m, m.Root()), nil
 }
 
-// wallQ is WallQ for validated input and the mode's Bessel zero x.
+// wallQ is WallQ for validated input and the mode's Bessel zero x, without
+// the frequency (the caller sets it from cavity.Cavity.Frequency or from a
+// mode list, the one implementation of the resonance formula).
 func wallQ(c cavity.Cavity, m cavity.Mode, x float64, rs Walls) WallLoss {
 	g := geometry(c, m, x)
-	w := WallLoss{Mode: m, Frequency: frequency(c, m, x), Rs: rs, Geometry: g}
+	w := WallLoss{Mode: m, Rs: rs, Geometry: g}
 	side, a, b := rs.Side/g.Side, rs.EndA/g.EndA, rs.EndB/g.EndB
 	w.QSide, w.QEndA, w.QEndB = inv(side), inv(a), inv(b)
 	total := side + a + b
@@ -171,33 +174,11 @@ func inv(x float64) float64 {
 	return 1 / x
 }
 
-// fill returns the relative permittivity and permeability of c's fill, with
-// the zero value meaning 1.
-func fill(c cavity.Cavity) (epsR, muR float64) {
-	epsR, muR = c.EpsR, c.MuR
-	if epsR == 0 {
-		epsR = 1
-	}
-	if muR == 0 {
-		muR = 1
-	}
-	return epsR, muR
-}
-
-// frequency returns the resonant frequency of mode m with Bessel zero x:
-// f = c/(2 pi sqrt(mu_r eps_r)) sqrt((x/a)^2 + (p pi/d)^2) (Pozar 2012,
-// sec. 6.4; the same formula as cavity.Cavity.Frequency).
-func frequency(c cavity.Cavity, m cavity.Mode, x float64) float64 {
-	epsR, muR := fill(c)
-	k := math.Hypot(x/c.Radius, float64(m.P)*math.Pi/c.Length)
-	return physics.SpeedOfLight * k / (2 * math.Pi * math.Sqrt(epsR*muR))
-}
-
 // geometry returns the partial geometry factors of mode m with Bessel zero
 // x (formulas in WallQ: Harrington 1961, ch. 5 and Pozar 2012, sec. 6.4 for
 // the uniform sum; per part derived).
 func geometry(c cavity.Cavity, m cavity.Mode, x float64) Geometry {
-	epsR, muR := fill(c)
+	epsR, muR := c.Fill.Eps(), c.Fill.Mu()
 	a, d := c.Radius, c.Length
 	beta := float64(m.P) * math.Pi / d
 	k := math.Hypot(x/a, beta)

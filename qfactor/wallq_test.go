@@ -44,7 +44,7 @@ func TestPozarTE011Example(t *testing.T) {
 	// With the book's rounded dimensions and Rs, the book's Q_c. The book
 	// rounds a to 3 digits and prints Q_c to 4: bookTol covers that.
 	const bookTol = 2e-3
-	book := cavity.Cavity{Radius: 0.0274, Length: 0.0548, EpsR: 2.08}
+	book := cavity.Cavity{Radius: 0.0274, Length: 0.0548, Fill: physics.Medium{EpsR: 2.08}}
 	w, err := qfactor.WallQ(book, te011, qfactor.Uniform(0.0184))
 	if err != nil {
 		t.Fatal(err)
@@ -59,9 +59,9 @@ func TestPozarTE011Example(t *testing.T) {
 	// stated in issue 3; the 0.13 % difference from the book's 29,390 is the
 	// book's rounding of Rs to 0.0184 ohm, against 0.018427 here).
 	const issueTol = 1e-4
-	c := cavity.Cavity{Radius: 0.0274008, Length: 0.0548016, EpsR: 2.08}
+	c := cavity.Cavity{Radius: 0.0274008, Length: 0.0548016, Fill: physics.Medium{EpsR: 2.08, TanDelta: 4e-4}}
 	rs := func(f float64) (qfactor.Walls, error) { return qfactor.Uniform(classicalRs(f, 5.813e7)), nil }
-	u, err := qfactor.UnloadedQ(c, te011, rs, qfactor.Fill{TanDelta: 4e-4})
+	u, err := qfactor.UnloadedQ(c, te011, rs)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -127,12 +127,12 @@ func TestPozarTEFormula(t *testing.T) {
 		m := cavity.Mode{Family: cavity.TE, N: rng.IntN(8), M: 1 + rng.IntN(4), P: 1 + rng.IntN(6)}
 		a := 0.01 + 0.05*rng.Float64()
 		d := a * (0.2 + 5*rng.Float64())
-		c := cavity.Cavity{Radius: a, Length: d, EpsR: 1 + 9*rng.Float64()}
+		c := cavity.Cavity{Radius: a, Length: d, Fill: physics.Medium{EpsR: 1 + 9*rng.Float64()}}
 		rs := 0.005 + 0.05*rng.Float64()
 		pp := m.Root()
 		beta := float64(m.P) * math.Pi / d
 		k := math.Hypot(pp/a, beta)
-		eta := physics.VacuumPermeability * physics.SpeedOfLight / math.Sqrt(c.EpsR) // Z0 = mu0 c
+		eta := physics.VacuumPermeability * physics.SpeedOfLight / math.Sqrt(c.Fill.EpsR) // Z0 = mu0 c
 		n := float64(m.N)
 		u := 1 - (n/pp)*(n/pp)
 		t1 := beta * a * n / (pp * pp)
@@ -220,7 +220,7 @@ func TestSynchronousTransitTime(t *testing.T) {
 		// omega/c exceeds p pi/d in vacuum, so a synchronous particle needs a
 		// slow-wave fill: eps_r = 4 and d/a = 1.2 give speeds 0.68 c and below.
 		m := cavity.Mode{Family: cavity.TM, N: 0, M: 1, P: p}
-		c := cavity.Cavity{Radius: 0.05, Length: 0.06, EpsR: 4}
+		c := cavity.Cavity{Radius: 0.05, Length: 0.06, Fill: physics.Medium{EpsR: 4}}
 		f := c.Frequency(m)
 		// Choose the speed that makes the particle synchronous.
 		speed := 2 * math.Pi * f * c.Length / (float64(p) * math.Pi * physics.SpeedOfLight) // omega d/(beta c) = p pi
@@ -251,14 +251,14 @@ func TestWallIdentities(t *testing.T) {
 		if fam == cavity.TM && rng.IntN(3) == 0 {
 			m.P = 0
 		}
-		c := cavity.Cavity{Radius: 0.01 + 0.1*rng.Float64(), Length: 0.01 + 0.2*rng.Float64(), EpsR: 1 + rng.Float64()}
+		c := cavity.Cavity{Radius: 0.01 + 0.1*rng.Float64(), Length: 0.01 + 0.2*rng.Float64(), Fill: physics.Medium{EpsR: 1 + rng.Float64()}}
 		rs := qfactor.Walls{Side: 0.01 * rng.Float64(), EndA: 0.01 * rng.Float64(), EndB: 0.01 * rng.Float64()}
 		w, err := qfactor.WallQ(c, m, rs)
 		if err != nil {
 			t.Fatal(err)
 		}
 		s := 3.7
-		big := cavity.Cavity{Radius: s * c.Radius, Length: s * c.Length, EpsR: c.EpsR}
+		big := cavity.Cavity{Radius: s * c.Radius, Length: s * c.Length, Fill: c.Fill}
 		wb, _ := qfactor.WallQ(big, m, rs)
 		if relErr(wb.Geometry.Total(), w.Geometry.Total()) > veryclose {
 			t.Errorf("G(%s scaled by %g) = %.15g, want %.15g", m, s, wb.Geometry.Total(), w.Geometry.Total())
@@ -338,6 +338,47 @@ func TestWallQErrors(t *testing.T) {
 	for _, s := range []float64{0, -0.5, 1.01, math.NaN()} {
 		if _, err := qfactor.Acceleration(good, mode("TM010"), s); err == nil {
 			t.Errorf("Acceleration(speed %g) error = nil, want an error", s)
+		}
+	}
+}
+
+// TestFrequencyIsCavitys checks that every frequency qfactor reports is
+// cavity.Cavity.Frequency bit for bit (one implementation of the resonance
+// formula), on seeded random cavities, fills and modes.
+func TestFrequencyIsCavitys(t *testing.T) {
+	rng := rand.New(rand.NewPCG(9, 10))
+	for range 500 {
+		c := cavity.Cavity{Radius: 0.005 + 0.1*rng.Float64(), Length: 0.005 + 0.2*rng.Float64(),
+			Fill: physics.Medium{EpsR: 1 + 9*rng.Float64(), MuR: 0.5 + rng.Float64()}}
+		fam := cavity.TM
+		p := rng.IntN(4)
+		if rng.IntN(2) == 0 {
+			fam, p = cavity.TE, 1+rng.IntN(3)
+		}
+		m := cavity.Mode{Family: fam, N: rng.IntN(5), M: 1 + rng.IntN(4), P: p}
+		want := c.Frequency(m)
+		w, err := qfactor.WallQ(c, m, qfactor.Uniform(0.01))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if w.Frequency != want {
+			t.Errorf("WallQ(%+v, %v).Frequency = %.17g, want cavity's %.17g", c, m, w.Frequency, want)
+		}
+		u, err := qfactor.UnloadedQ(c, m, qfactor.Fixed(qfactor.Uniform(0.01)))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if u.Wall.Frequency != want {
+			t.Errorf("UnloadedQ(%+v, %v) frequency = %.17g, want cavity's %.17g", c, m, u.Wall.Frequency, want)
+		}
+		if m.Family == cavity.TM && m.N == 0 {
+			a, err := qfactor.Acceleration(c, m, 1)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if a.Frequency != want {
+				t.Errorf("Acceleration(%+v, %v).Frequency = %.17g, want cavity's %.17g", c, m, a.Frequency, want)
+			}
 		}
 	}
 }

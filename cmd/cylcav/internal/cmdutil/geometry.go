@@ -8,7 +8,6 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
-	"cylcav/qfactor"
 )
 
 // Geometry describes the cavity flags of one command: which of --diameter,
@@ -149,63 +148,43 @@ func (gf *GeometryFlags) Radius() (float64, error) {
 }
 
 // Cavity reads the whole cavity: the radius (Radius), --length (required)
-// and the fill (Dielectric), in that order. The cavity's EpsR and MuR are
-// the fill's; fill is the dielectric with its loss tangents.
-func (gf *GeometryFlags) Cavity() (c cavity.Cavity, fill physics.Dielectric, err error) {
+// and the fill (Fill), in that order.
+func (gf *GeometryFlags) Cavity() (c cavity.Cavity, err error) {
 	if c.Radius, err = gf.Radius(); err != nil {
-		return c, fill, err
+		return c, err
 	}
 	if !gf.flags.Changed("length") {
-		return c, fill, gf.geo.SizeErrors.noLength()
+		return c, gf.geo.SizeErrors.noLength()
 	}
 	if c.Length, err = gf.Length(); err != nil {
-		return c, fill, err
+		return c, err
 	}
-	if fill, err = gf.Dielectric(); err != nil {
-		return c, fill, err
-	}
-	c.EpsR, c.MuR = fill.EpsR, fill.MuR
-	return c, fill, nil
+	c.Fill, err = gf.Fill()
+	return c, err
+}
+
+// Fill reads --fill (or its default, Geometry.FillDefault) and returns the
+// medium, named by its library name or "user" for values given as eps=...
+// (see Dielectric). With nothing to read it returns the zero Medium
+// (vacuum, no name).
+func (gf *GeometryFlags) Fill() (physics.Medium, error) {
+	d, err := gf.Dielectric()
+	return d.Medium, err
 }
 
 // Dielectric reads --fill (or its default, Geometry.FillDefault) with
-// physics.ParseDielectric and checks it against the limits of cavity.Fill
-// and qfactor.Fill. With nothing to read it returns vacuum: eps_r = mu_r = 1,
-// no loss, named "vacuum".
+// physics.ParseDielectric, which checks its Medium against
+// physics.Medium.Validate, and returns the whole material row (with its
+// description and source, for a datasheet). With nothing to read it
+// returns the zero Dielectric, whose Medium is vacuum.
 func (gf *GeometryFlags) Dielectric() (physics.Dielectric, error) {
-	d, ok, err := gf.read()
-	if !ok && err == nil {
-		d = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
-	}
-	return d, err
-}
-
-// Fill reads --fill as Dielectric does and returns it as a cavity fill with
-// the material's name (a library name, or "user" for values given as
-// eps=...). With nothing to read it returns the zero Fill (vacuum) and "".
-func (gf *GeometryFlags) Fill() (cavity.Fill, string, error) {
-	d, ok, err := gf.read()
-	if !ok || err != nil {
-		return cavity.Fill{}, "", err
-	}
-	return cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}, d.Name, nil
-}
-
-// read parses and checks --fill; ok is false when there is nothing to read
-// (no --fill and no default).
-func (gf *GeometryFlags) read() (d physics.Dielectric, ok bool, err error) {
 	if !gf.flags.Changed("fill") && gf.geo.FillDefault == "" {
-		return d, false, nil
+		return physics.Dielectric{}, nil
 	}
 	spec := gf.fill
-	if d, err = physics.ParseDielectric(spec); err != nil {
-		return d, false, FlagError("fill", spec, err)
+	d, err := physics.ParseDielectric(spec)
+	if err != nil {
+		return physics.Dielectric{}, FlagError("fill", spec, err)
 	}
-	if err := (cavity.Fill{EpsR: d.EpsR, MuR: d.MuR}).Validate(); err != nil {
-		return d, false, FlagError("fill", spec, err)
-	}
-	if err := (qfactor.Fill{TanDelta: d.TanDelta, TanDeltaM: d.TanDeltaM}).Validate(); err != nil {
-		return d, false, FlagError("fill", spec, err)
-	}
-	return d, true, nil
+	return d, nil
 }

@@ -7,7 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"cylcav/cavity"
+	"cylcav/physics"
 )
 
 // geometryCmd returns a command with the geometry flags of g whose run
@@ -41,14 +41,14 @@ func TestGeometryCavity(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		c, fill, err := gf.Cavity()
+		c, err := gf.Cavity()
 		if err != nil {
 			t.Errorf("Cavity(%q) error %v", tc.args, err)
 			continue
 		}
-		if !nearly(c.Radius, tc.radius) || !nearly(c.Length, tc.length) || c.EpsR != tc.epsR || fill.Name != tc.fillName {
+		if !nearly(c.Radius, tc.radius) || !nearly(c.Length, tc.length) || c.Fill.Eps() != tc.epsR || c.Fill.Label() != tc.fillName {
 			t.Errorf("Cavity(%q) = %+v, fill %q; want radius %g m, length %g m, eps_r %g, fill %q",
-				tc.args, c, fill.Name, tc.radius, tc.length, tc.epsR, tc.fillName)
+				tc.args, c, c.Fill.Label(), tc.radius, tc.length, tc.epsR, tc.fillName)
 		}
 	}
 }
@@ -84,7 +84,7 @@ func TestGeometryErrors(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		_, _, err = gf.Cavity()
+		_, err = gf.Cavity()
 		if err == nil || !IsUsage(err) || !strings.Contains(err.Error(), tc.want) {
 			t.Errorf("Cavity(%q) error = %v, want a usage error containing %q", tc.args, err, tc.want)
 		}
@@ -111,33 +111,32 @@ func TestGeometryCobraChecks(t *testing.T) {
 }
 
 func TestGeometryFill(t *testing.T) {
-	// No --fill and no default: the zero Fill and no name; Dielectric says
-	// vacuum.
+	// No --fill and no default: the zero Medium, no name, labelled vacuum.
 	gf, err := geometryCmd(t, Geometry{Fill: "fill"})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if f, name, err := gf.Fill(); err != nil || f != (cavity.Fill{}) || name != "" {
-		t.Errorf("Fill() without --fill = %+v, %q, %v; want the zero fill and no name", f, name, err)
+	if f, err := gf.Fill(); err != nil || f != (physics.Medium{}) || f.Name != "" {
+		t.Errorf("Fill() without --fill = %+v, %v; want the zero medium and no name", f, err)
 	}
-	if d, err := gf.Dielectric(); err != nil || d.Name != "vacuum" || d.EpsR != 1 || d.MuR != 1 {
-		t.Errorf("Dielectric() without --fill = %+v, %v; want vacuum", d, err)
+	if f, err := gf.Fill(); err != nil || f.Label() != "vacuum" || f.Eps() != 1 || f.Mu() != 1 {
+		t.Errorf("Fill() without --fill = %+v, %v; want vacuum", f, err)
 	}
 	// A default is read like a given value.
 	gf, err = geometryCmd(t, Geometry{Fill: "fill", FillDefault: "air"})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if f, name, err := gf.Fill(); err != nil || name != "air" || !(f.EpsR > 1) {
-		t.Errorf("Fill() with default air = %+v, %q, %v; want air (eps_r just above 1)", f, name, err)
+	if f, err := gf.Fill(); err != nil || f.Name != "air" || !(f.EpsR > 1) {
+		t.Errorf("Fill() with default air = %+v, %v; want air (eps_r just above 1)", f, err)
 	}
 	// Loss tangents are kept.
 	gf, err = geometryCmd(t, Geometry{Fill: "fill"}, "--fill", "eps=2.08,tand=4e-4")
 	if err != nil {
 		t.Fatal(err)
 	}
-	if d, err := gf.Dielectric(); err != nil || d.EpsR != 2.08 || d.TanDelta != 4e-4 || gf.Text("fill") != "eps=2.08,tand=4e-4" {
-		t.Errorf("Dielectric(eps=2.08,tand=4e-4) = %+v, %v", d, err)
+	if d, err := gf.Fill(); err != nil || d.EpsR != 2.08 || d.TanDelta != 4e-4 || gf.Text("fill") != "eps=2.08,tand=4e-4" {
+		t.Errorf("Fill(eps=2.08,tand=4e-4) = %+v, %v", d, err)
 	}
 }
 

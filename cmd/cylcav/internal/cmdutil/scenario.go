@@ -98,7 +98,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	if s.Fill, err = sf.geo.Dielectric(); err != nil {
 		return s, err
 	}
-	sp.Fill = cavity.Fill{EpsR: s.Fill.EpsR, MuR: s.Fill.MuR}
+	sp.Fill = s.Fill.Medium
 	if set("wall") {
 		c, err := physics.ParseConductor(sf.wall)
 		if err != nil {

@@ -32,13 +32,10 @@ type Options struct {
 	// described by SizedBy ("D/L = 1").
 	Sized   bool
 	SizedBy string
-	// FillName is the fill's library name, "user", or "" for vacuum.
-	FillName string
-
-	Output string
-	Format figure.Format
-	Page   figure.Page
-	Force  bool
+	Output  string
+	Format  figure.Format
+	Page    figure.Page
+	Force   bool
 }
 
 // NewCmdChart returns `cylcav chart`. runF, if not nil, replaces the
@@ -99,8 +96,8 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					return cmdutil.FlagError("mode", mode, err)
 				}
 			}
-			var fillV cavity.Fill
-			if fillV, opts.FillName, err = geo.Fill(); err != nil {
+			var fillV physics.Medium
+			if fillV, err = geo.Fill(); err != nil {
 				return err
 			}
 			if err := parseCavity(geo, opts, fillV, mode, freq, ratio); err != nil {
@@ -220,7 +217,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 
 // parseCavity fills opts.Spec.Cavity from --diameter and --length, or by
 // sizing --mode at --freq with one of --ratio, --diameter, --length.
-func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill cavity.Fill, mode, freq, ratio string) error {
+func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium, mode, freq, ratio string) error {
 	s := &opts.Spec
 	changed := geo.Changed
 	if changed("freq") {
@@ -285,12 +282,12 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill cavity.Fill, mo
 		if err != nil {
 			return err
 		}
-		s.Cavity = cavity.Cavity{Radius: d / 2, Length: l, EpsR: fill.EpsR, MuR: fill.MuR}
+		s.Cavity = cavity.Cavity{Radius: d / 2, Length: l, Fill: fill}
 	case changed("diameter") || changed("length"):
 		return cmdutil.Usagef("give both --diameter and --length (or --freq with one of them to size the cavity)")
 	default:
 		// No cavity: a plain chart of the fill.
-		s.EpsR, s.MuR = fill.EpsR, fill.MuR
+		s.Fill = fill
 	}
 	return nil
 }
@@ -357,8 +354,8 @@ func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
 		}
 		fmt.Fprintf(&b, "%s: D = %s, L = %s, D/L = %.4g", what,
 			physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), c.Diameter()/c.Length)
-		if opts.FillName != "" {
-			fmt.Fprintf(&b, ", fill %s", opts.FillName)
+		if c.Fill.Name != "" {
+			fmt.Fprintf(&b, ", fill %s", c.Fill.Name)
 		}
 		b.WriteString("\n")
 	}

@@ -17,10 +17,9 @@ import (
 type Options struct {
 	IO *cmdutil.IOStreams
 
-	Mode     cavity.Mode
-	Cavity   cavity.Cavity
-	FillName string
-	Window   cavity.ClearanceOptions
+	Mode   cavity.Mode
+	Cavity cavity.Cavity
+	Window cavity.ClearanceOptions
 	// WindowText is --window as given, for error messages.
 	WindowText string
 	Format     cmdutil.Format
@@ -60,11 +59,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Mode, err = parseMode(mode); err != nil {
 				return err
 			}
-			c, fill, err := geo.Cavity()
-			if err != nil {
+			if opts.Cavity, err = geo.Cavity(); err != nil {
 				return err
 			}
-			opts.Cavity, opts.FillName = c, fill.Name
 			if err := parseWindow(window, &opts.Window); err != nil {
 				return err
 			}
@@ -186,7 +183,7 @@ func writeTable(opts *Options, cl cavity.Clearance) error {
 	w := opts.IO.Out
 	c := opts.Cavity
 	fmt.Fprintf(w, "Cavity: D = %s, L = %s, D/L = %.4f, fill %s (eps_r %.4g)\n",
-		physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), c.Diameter()/c.Length, opts.FillName, orOne(c.EpsR))
+		physics.FormatLength(c.Diameter(), 5), physics.FormatLength(c.Length, 5), c.Diameter()/c.Length, c.Fill.Label(), c.Fill.Eps())
 	fmt.Fprintf(w, "Wanted mode %s at %s (n azimuthal, m radial, p axial)\n", cl.Mode, physics.FormatFrequency(cl.Frequency, 7))
 	fmt.Fprintf(w, "Clearance: %.3f %% (set by %s)\n", 100*cl.Value, cl.Limiting)
 	fmt.Fprint(w, cmdutil.FormatNeighbours(cl))
@@ -212,13 +209,6 @@ func signed(s string, v float64) string {
 func abs(v float64) float64 {
 	if v < 0 {
 		return -v
-	}
-	return v
-}
-
-func orOne(v float64) float64 {
-	if v == 0 {
-		return 1
 	}
 	return v
 }

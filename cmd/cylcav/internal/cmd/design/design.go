@@ -247,7 +247,7 @@ func WriteTable(w io.Writer, r design.Result) error {
 		fmt.Fprintf(w, "Demo scenario (no flags given): %s\n\n", r.Scenario.Title)
 	}
 	fmt.Fprintf(w, "Design: %s at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
-		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), r.Scenario.Fill.Name)
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), spec.Fill.Label())
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)

@@ -15,7 +15,6 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/figure"
 	bandpass "cylcav/filter"
@@ -62,14 +61,14 @@ type Options struct {
 	// --mode, --wall, --fill, --ratio or --holes given).
 	Cavities bool
 	Mode     cavity.Mode
-	// Fill is the fill dielectric (vacuum by default).
-	Fill physics.Dielectric
+	// Fill is the medium in the cavities (vacuum by default).
+	Fill physics.Medium
 	// Ratio is D/L of every cavity; zero means the design optimiser's D/L
 	// for the largest spurious-free clearance.
 	Ratio float64
 	// Walls are the side wall, end plate A and end plate B; nil means
 	// perfectly conducting walls.
-	Walls *[3]qfactor.Surface
+	Walls *qfactor.WallSet
 	// Hole, when not nil, sizes the main-line couplings as holes.
 	Hole *bandpass.Hole
 
@@ -97,7 +96,7 @@ func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comm
 		mode, ratio, q0, holes, holeT, span         string
 		order                                       int
 	)
-	var walls *q.WallFlags
+	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "filter --f0 F --bw B (--order N | --reject ATT@F[,...]) [flags]",
@@ -180,7 +179,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Fill: "fill: library name (air, ptfe, ...) or eps=...,tand=... (default vacuum)",
 	})
-	walls = q.AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&ratio, "ratio", "", "D/L of every cavity (default: the design optimiser's, largest clearance)")
 	f.StringVar(&holes, "holes", "", "size the main-line couplings as circular holes in the common end|side wall (Bethe)")
 	f.StringVar(&holeT, "hole-thickness", "", "wall thickness at the holes, e.g. 0.5mm (default 0, thin wall)")
@@ -368,7 +367,7 @@ func decibels(flag, v string, lo, hi float64) (float64, error) {
 }
 
 // parseCavities validates the realisation flags.
-func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags, geo *cmdutil.GeometryFlags, modeS, ratioS, q0S, holesS, holeTS string) error {
+func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.WallFlags, geo *cmdutil.GeometryFlags, modeS, ratioS, q0S, holesS, holeTS string) error {
 	wallGiven := walls.Given()
 	opts.Cavities = changed("mode") || wallGiven || changed("fill") || changed("ratio") || changed("holes")
 	if q0S != "" {
@@ -407,13 +406,13 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 	}
 	// --fill given empty counts as absent (vacuum), as this command's other
 	// string flags do.
-	opts.Fill = physics.Dielectric{Name: "vacuum", EpsR: 1, MuR: 1}
+	opts.Fill = physics.Medium{}
 	if geo.Text("fill") != "" {
-		d, err := geo.Dielectric()
+		f, err := geo.Fill()
 		if err != nil {
 			return err
 		}
-		opts.Fill = d
+		opts.Fill = f
 	}
 	if ratioS != "" {
 		r, err := cmdutil.Number("ratio", ratioS, cavity.MinDesignRatio, cavity.MaxDesignRatio)
@@ -423,7 +422,7 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *q.WallFlags
 		opts.Ratio = r
 	}
 	if wallGiven {
-		s, err := walls.Surfaces()
+		s, err := walls.Walls()
 		if err != nil {
 			return err
 		}

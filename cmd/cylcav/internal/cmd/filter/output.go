@@ -256,7 +256,7 @@ func (r *Result) WriteTable(w io.Writer) error {
 func writeCavities(b *strings.Builder, r *Result, ff func(float64) string) {
 	rz := r.Realisation
 	opts := r.Opts
-	fmt.Fprintf(b, "\nCavities: %s, fill %s, %s\n", rz.Mode, opts.Fill.Name, r.Shape)
+	fmt.Fprintf(b, "\nCavities: %s, fill %s, %s\n", rz.Mode, opts.Fill.Label(), r.Shape)
 	t := cmdutil.NewTable(b, "  resonator", "f", "diameter D", "length L", "Q0")
 	for _, c := range rz.Cavities {
 		t.Row(fmt.Sprintf("  %d", c.Resonator), ff(c.F), physics.FormatLength(c.Cavity.Diameter(), 6),

@@ -11,7 +11,6 @@ import (
 	"strings"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/figure"
 	bandpass "cylcav/filter"
@@ -171,12 +170,10 @@ func (r *Result) Counted(c bandpass.Check) bool {
 // realise sizes the cavities.
 func (r *Result) realise() error {
 	opts := r.Opts
-	fill := cavity.Fill{EpsR: opts.Fill.EpsR, MuR: opts.Fill.MuR}
-	loss := qfactor.Fill{TanDelta: opts.Fill.TanDelta, TanDeltaM: opts.Fill.TanDeltaM}
 	var walls qfactor.WallsAt
 	if opts.Walls != nil {
 		seen := map[string]bool{}
-		walls = q.Resistance(*opts.Walls, func(w string) {
+		walls = opts.Walls.At(func(w string) {
 			if !seen[w] {
 				seen[w] = true
 				r.Warnings = append(r.Warnings, "walls: "+w)
@@ -185,12 +182,9 @@ func (r *Result) realise() error {
 	}
 	ratio := opts.Ratio
 	if ratio == 0 {
-		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: fill}
-		if walls != nil {
-			ds.Q = func(c cavity.Cavity) (float64, error) {
-				u, err := qfactor.UnloadedQ(c, opts.Mode, walls, loss)
-				return u.Q0, err
-			}
+		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: opts.Fill}
+		if opts.Walls != nil {
+			ds.Q = qfactor.Q0Constraint(opts.Mode, *opts.Walls)
 		}
 		des, err := cavity.Optimize(ds)
 		if errors.Is(err, cavity.ErrInfeasible) {
@@ -206,7 +200,7 @@ func (r *Result) realise() error {
 		r.Shape = fmt.Sprintf("D/L = %.5g (--ratio)", ratio)
 	}
 	ro := bandpass.RealiseOptions{
-		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: fill, Loss: loss, Walls: walls, Hole: opts.Hole,
+		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: walls, Hole: opts.Hole,
 	}
 	rz, err := bandpass.Realise(r.Design, ro)
 	if errors.Is(err, cavity.ErrInfeasible) {

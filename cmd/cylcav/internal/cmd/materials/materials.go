@@ -132,13 +132,6 @@ func ptr(v float64, known bool) *float64 {
 	return &v
 }
 
-func muOrOne(m float64) float64 {
-	if m == 0 {
-		return 1
-	}
-	return m
-}
-
 func conductorRows() []conductorJSON {
 	var rows []conductorJSON
 	for _, c := range physics.Conductors() {
@@ -150,7 +143,7 @@ func conductorRows() []conductorJSON {
 			Name: c.Name, Aliases: c.Aliases, Description: c.Description,
 			ConductivitySPerM: c.Conductivity, IACSFraction: c.IACS(),
 			AlphaPerK: ptr(c.Alpha, c.AlphaKnown), LinearTMinK: lo, LinearTMaxK: hi,
-			MuR: muOrOne(c.MuR), ExpansionPerK: ptr(c.Expansion, c.Expansion != 0),
+			MuR: c.Mu(), ExpansionPerK: ptr(c.Expansion, c.Expansion != 0),
 			ElectronDensityPerM3: ptr(c.ElectronDensity, c.ElectronDensity != 0),
 			Ferromagnetic:        c.Ferromagnetic, Note: c.Note, Source: c.Source,
 		})
@@ -164,7 +157,7 @@ func dielectricRows() []dielectricJSON {
 		rows = append(rows, dielectricJSON{
 			Name: d.Name, Aliases: d.Aliases, Description: d.Description,
 			EpsR: d.EpsR, TanDelta: d.TanDelta, TanDeltaFreqHz: ptr(d.TanDeltaFreq, d.TanDeltaFreq != 0),
-			MuR: muOrOne(d.MuR), TanDeltaM: d.TanDeltaM, TCEpsPerK: ptr(d.TCEps, d.TCEpsKnown),
+			MuR: d.Mu(), TanDeltaM: d.TanDeltaM, TCEpsPerK: ptr(d.TCEps, d.TCEpsKnown),
 			Note: d.Note, Source: d.Source,
 		})
 	}

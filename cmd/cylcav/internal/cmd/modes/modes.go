@@ -12,9 +12,9 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
+	"cylcav/qfactor"
 )
 
 // DefaultCount is the number of modes listed when neither --fmax nor
@@ -29,10 +29,9 @@ const DefaultDigits = 5
 type Options struct {
 	IO *cmdutil.IOStreams
 
+	// Cavity is the cavity; its fill's Name is a library name, "user" for
+	// values given as eps=..., or "" for the default (vacuum).
 	Cavity cavity.Cavity
-	// FillName names the fill for people: a library name, "user" for
-	// values given as eps=..., or "vacuum" for the default.
-	FillName string
 	// FMax, when > 0, lists every mode at or below it (Hz); otherwise
 	// Count modes are listed.
 	FMax  float64
@@ -43,8 +42,9 @@ type Options struct {
 	// the table (JSON and CSV always carry full precision).
 	Digits int
 
-	// Loss, when not nil (--wall given), adds q_wall, q_fill and q0 columns.
-	Loss *Loss
+	// Walls, when not nil (--wall given), adds q_wall, q_fill and q0
+	// columns.
+	Walls *qfactor.WallSet
 
 	Format cmdutil.Format
 }
@@ -56,7 +56,7 @@ func NewCmdModes(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var fmax string
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
-	var walls *q.WallFlags
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "modes (--diameter D | --radius A) --length L [--fill SPEC] [--fmax F | --count K]",
 		Short: "List the resonant modes of a cylindrical cavity, sorted by frequency",
@@ -99,11 +99,10 @@ detail.`, DefaultCount),
   $ cylcav modes --radius 27.4mm --length 54.8mm --fill ptfe --fmax 8GHz --format json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			c, fill, err := geo.Cavity()
-			if err != nil {
+			var err error
+			if opts.Cavity, err = geo.Cavity(); err != nil {
 				return err
 			}
-			opts.Cavity, opts.FillName = c, fill.Name
 			fl := cmd.Flags()
 			switch {
 			case fl.Changed("fmax") && fl.Changed("count"):
@@ -120,7 +119,7 @@ detail.`, DefaultCount),
 			default:
 				opts.Count = DefaultCount
 			}
-			if opts.Loss, err = parseLoss(walls, fill); err != nil {
+			if opts.Walls, err = parseWalls(walls); err != nil {
 				return err
 			}
 			if opts.Digits < 3 || opts.Digits > 17 {
@@ -150,7 +149,7 @@ detail.`, DefaultCount),
 	fl.StringVar(&fmax, "fmax", "", "list every mode at or below this frequency (e.g. 12GHz)")
 	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
 	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
-	walls = q.AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
 }
@@ -283,37 +282,25 @@ type cavityJSON struct {
 }
 
 func writeJSON(w io.Writer, c cavity.Cavity, rows []Row) error {
-	f := c.Fill()
 	return cmdutil.WriteJSON(w, struct {
 		Cavity          cavityJSON `json:"cavity"`
 		IndexConvention string     `json:"index_convention"`
 		Modes           []Row      `json:"modes"`
 	}{
-		Cavity:          cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: one(f.EpsR), MuR: one(f.MuR)},
+		Cavity:          cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: c.Fill.Eps(), MuR: c.Fill.Mu()},
 		IndexConvention: "n azimuthal, m radial, p axial",
 		Modes:           rows,
 	})
 }
 
-// one maps the zero value of a fill field to 1, its meaning.
-func one(v float64) float64 {
-	if v == 0 {
-		return 1
-	}
-	return v
-}
-
 // DescribeCavity returns the one-line description of a cavity used in
 // table headers: dimensions in friendly units and the fill.
-func DescribeCavity(c cavity.Cavity, fillName string) string {
-	f := c.Fill()
-	name := fillName
-	if name == "" {
-		name = "vacuum"
-	}
-	fill := fmt.Sprintf("fill %s (eps_r %s, mu_r %s)", name, num(one(f.EpsR)), num(one(f.MuR)))
+func DescribeCavity(c cavity.Cavity) string {
+	f := c.Fill
+	name := f.Label()
+	fill := fmt.Sprintf("fill %s (eps_r %s, mu_r %s)", name, num(f.Eps()), num(f.Mu()))
 	if name == "user" {
-		fill = fmt.Sprintf("fill eps_r %s, mu_r %s", num(one(f.EpsR)), num(one(f.MuR)))
+		fill = fmt.Sprintf("fill eps_r %s, mu_r %s", num(f.Eps()), num(f.Mu()))
 	}
 	return fmt.Sprintf("radius %s, diameter %s, length %s, %s",
 		cmdutil.TrimZeros(physics.FormatLength(c.Radius, 6)), cmdutil.TrimZeros(physics.FormatLength(c.Diameter(), 6)),
@@ -324,7 +311,7 @@ func num(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
 
 func writeTable(w io.Writer, opts *Options, rows []Row, what string) error {
 	if _, err := fmt.Fprintf(w, "cavity: %s\nmodes TE_nmp / TM_nmp: n azimuthal, m radial, p axial; %s\n",
-		DescribeCavity(opts.Cavity, opts.FillName), what); err != nil {
+		DescribeCavity(opts.Cavity), what); err != nil {
 		return err
 	}
 	if len(rows) == 0 {

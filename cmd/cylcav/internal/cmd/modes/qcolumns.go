@@ -2,7 +2,7 @@ package modes
 
 // This file adds the unloaded-Q columns q_wall, q_fill and q0 to every mode
 // when --wall is given (issue 3). The wall flags and their parsing are the
-// ones of `cylcav q` (package q); the numbers come from
+// ones of `cylcav q` (cmdutil.WallFlags); the numbers come from
 // qfactor.UnloadedQAll, with the wall surface resistance evaluated at each
 // mode's own frequency.
 
@@ -14,30 +14,21 @@ import (
 	"strconv"
 
 	"cylcav/cavity"
-	"cylcav/cmd/cylcav/internal/cmd/q"
-	"cylcav/physics"
+	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/qfactor"
 )
 
-// Loss holds what the Q columns need: the side wall, end plate A and end
-// plate B surfaces, and the fill's loss tangents.
-type Loss struct {
-	Walls [3]qfactor.Surface
-	Fill  qfactor.Fill
-}
-
-// parseLoss returns the Loss of the wall flags and the fill (its loss
-// tangents checked already, by cmdutil.GeometryFlags), or nil when --wall
-// is absent (no Q columns). Errors are usage errors.
-func parseLoss(w *q.WallFlags, fill physics.Dielectric) (*Loss, error) {
+// parseWalls returns the wall set of the wall flags, or nil when --wall is
+// absent (no Q columns). Errors are usage errors.
+func parseWalls(w *cmdutil.WallFlags) (*qfactor.WallSet, error) {
 	if !w.Given() {
 		return nil, nil
 	}
-	walls, err := w.Surfaces()
+	walls, err := w.Walls()
 	if err != nil {
 		return nil, err
 	}
-	return &Loss{Walls: walls, Fill: qfactor.Fill{TanDelta: fill.TanDelta, TanDeltaM: fill.TanDeltaM}}, nil
+	return &walls, nil
 }
 
 // QValue is a Q in the JSON output: null when infinite (no loss).
@@ -56,11 +47,11 @@ func (v QValue) MarshalJSON() ([]byte, error) {
 // a Loss. Warnings of the surface models (anomalous skin effect, ...) go to
 // the error stream once each.
 func addQ(opts *Options, list []cavity.Resonance, rows []Row) error {
-	if opts.Loss == nil {
+	if opts.Walls == nil {
 		return nil
 	}
 	warn := func(s string) { fmt.Fprintf(opts.IO.ErrOut, "cylcav: note: %s\n", s) }
-	us, err := qfactor.UnloadedQAll(opts.Cavity, list, q.Resistance(opts.Loss.Walls, warn), opts.Loss.Fill)
+	us, err := qfactor.UnloadedQAll(opts.Cavity, list, opts.Walls.At(warn))
 	if err != nil {
 		return err
 	}

@@ -13,10 +13,10 @@ import (
 	"cylcav/cmd/cylcav/internal/cmd/filter"
 	"cylcav/cmd/cylcav/internal/cmd/materials"
 	"cylcav/cmd/cylcav/internal/cmd/modes"
-	"cylcav/cmd/cylcav/internal/cmd/q"
 	"cylcav/cmd/cylcav/internal/cmd/report"
 	"cylcav/cmd/cylcav/internal/cmd/size"
 	"cylcav/cmd/cylcav/internal/cmd/tune"
+	"cylcav/cmd/cylcav/internal/cmd/unloadedq"
 	"cylcav/cmd/cylcav/internal/cmd/version"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
@@ -48,7 +48,7 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.AddCommand(version.NewCmdVersion(io))
 	cmd.AddCommand(materials.NewCmdMaterials(io, nil))
 	cmd.AddCommand(modes.NewCmdModes(io, nil))
-	cmd.AddCommand(q.NewCmdQ(io, nil))
+	cmd.AddCommand(unloadedq.NewCmdQ(io, nil))
 	cmd.AddCommand(size.NewCmdSize(io, nil))
 	cmd.AddCommand(design.NewCmdDesign(io, nil))
 	cmd.AddCommand(clearance.NewCmdClearance(io, nil))

@@ -22,8 +22,7 @@ type Options struct {
 
 	Mode      cavity.Mode
 	Frequency float64 // Hz
-	Fill      cavity.Fill
-	FillName  string // library name, "user", or "" for vacuum
+	Fill      physics.Medium
 	By        cavity.Constraint
 	// FreqText, ByFlag and ByValue are --freq as given and the
 	// constraint's flag and text as given, for error messages.
@@ -117,7 +116,7 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 				}
 				opts.By, opts.ByFlag, opts.ByValue = cavity.ByLength(l), "length", geo.Text("length")
 			}
-			if opts.Fill, opts.FillName, err = geo.Fill(); err != nil {
+			if opts.Fill, err = geo.Fill(); err != nil {
 				return err
 			}
 			if err := checkFormat(); err != nil {
@@ -167,17 +166,10 @@ func runSize(opts *Options) error {
 	if err != nil {
 		return err
 	}
-	f := c.Fill()
 	res := Result{
 		Mode: opts.Mode.String(), FHz: opts.Frequency,
 		RadiusM: c.Radius, DiameterM: c.Diameter(), LengthM: c.Length, RatioDL: c.Diameter() / c.Length,
-		EpsR: f.EpsR, MuR: f.MuR,
-	}
-	if res.EpsR == 0 {
-		res.EpsR = 1
-	}
-	if res.MuR == 0 {
-		res.MuR = 1
+		EpsR: c.Fill.Eps(), MuR: c.Fill.Mu(),
 	}
 	w := opts.IO.Out
 	switch opts.Format {
@@ -193,10 +185,7 @@ func runSize(opts *Options) error {
 }
 
 func writeTable(w io.Writer, opts *Options, c cavity.Cavity, res Result) error {
-	name := opts.FillName
-	if name == "" {
-		name = "vacuum"
-	}
+	name := c.Fill.Label()
 	fill := fmt.Sprintf("fill %s (eps_r %g, mu_r %g)", name, res.EpsR, res.MuR)
 	if name == "user" {
 		fill = fmt.Sprintf("fill eps_r %g, mu_r %g", res.EpsR, res.MuR)

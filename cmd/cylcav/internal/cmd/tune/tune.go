@@ -22,7 +22,6 @@ type Options struct {
 
 	Mode            cavity.Mode
 	Cavity          cavity.Cavity // Length unused
-	FillName        string
 	LMin, LMax      float64
 	Steps           int
 	CountDegenerate bool
@@ -90,11 +89,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Steps < 1 || opts.Steps > cavity.MaxTuneSteps {
 				return cmdutil.FlagError("steps", strconv.Itoa(opts.Steps), fmt.Errorf("must be between 1 and %d", cavity.MaxTuneSteps))
 			}
-			fd, err := geo.Dielectric()
-			if err != nil {
+			if opts.Cavity.Fill, err = geo.Fill(); err != nil {
 				return err
 			}
-			opts.Cavity.EpsR, opts.Cavity.MuR, opts.FillName = fd.EpsR, fd.MuR, fd.Name
 			opts.Cavity.Length = opts.LMin
 			if err := opts.Cavity.Validate(); err != nil {
 				return cmdutil.Usagef("%v", err)
@@ -253,7 +250,7 @@ func g(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) }
 func writeTable(opts *Options, tc cavity.TuningCurve, o Output) error {
 	w := opts.IO.Out
 	fmt.Fprintf(w, "Tuning %s (n azimuthal, m radial, p axial) in a cavity of diameter %s, fill %s, by moving one end plate\n",
-		tc.Mode, physics.FormatLength(tc.Diameter, 6), opts.FillName)
+		tc.Mode, physics.FormatLength(tc.Diameter, 6), opts.Cavity.Fill.Label())
 	t := cmdutil.NewTable(w, "length", "D/L", "f", "df/dL per mm", "clearance %", "limited by")
 	for _, p := range tc.Points {
 		t.Row(physics.FormatLength(p.Length, 6), fmt.Sprintf("%.5f", tc.Diameter/p.Length), physics.FormatFrequency(p.Frequency, 8),

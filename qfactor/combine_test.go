@@ -7,31 +7,6 @@ import (
 	"cylcav/qfactor"
 )
 
-func TestFillQ(t *testing.T) {
-	for _, tc := range []struct {
-		f    qfactor.Fill
-		want float64
-		src  string
-	}{
-		{qfactor.Fill{TanDelta: 4e-4}, 2500, "Pozar sec. 6.4 example, PTFE: Q_d = 1/tan delta = 2500"},
-		{qfactor.Fill{TanDelta: 1e-4, TanDeltaM: 4e-4}, 2000, "1/Q = tan delta_e + tan delta_m"},
-		{qfactor.Fill{}, math.Inf(1), "lossless fill"},
-	} {
-		got, err := qfactor.Fill.Q(tc.f)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if got != tc.want && relErr(got, tc.want) > veryclose {
-			t.Errorf("Fill%+v.Q() = %g, want %g (%s)", tc.f, got, tc.want, tc.src)
-		}
-	}
-	for _, f := range []qfactor.Fill{{TanDelta: -1e-3}, {TanDeltaM: 2}, {TanDelta: math.NaN()}} {
-		if _, err := f.Q(); err == nil {
-			t.Errorf("Fill%+v.Q() error = nil, want an error", f)
-		}
-	}
-}
-
 func TestCombine(t *testing.T) {
 	inf := math.Inf(1)
 	for _, tc := range []struct {

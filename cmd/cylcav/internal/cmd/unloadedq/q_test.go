@@ -1,4 +1,4 @@
-package q_test
+package unloadedq_test
 
 import (
 	"bytes"
@@ -8,7 +8,7 @@ import (
 	"testing"
 
 	"cylcav/cmd/cylcav/internal/clitest"
-	"cylcav/cmd/cylcav/internal/cmd/q"
+	"cylcav/cmd/cylcav/internal/cmd/unloadedq"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
@@ -221,7 +221,7 @@ func TestBadInput(t *testing.T) {
 }
 
 func TestHelpHasExample(t *testing.T) {
-	cmd := q.NewCmdQ(cmdutil.Test(new(bytes.Buffer), new(bytes.Buffer)), nil)
+	cmd := unloadedq.NewCmdQ(cmdutil.Test(new(bytes.Buffer), new(bytes.Buffer)), nil)
 	if !strings.Contains(cmd.Example, "cylcav q --mode") {
 		t.Errorf("Example = %q, want a worked example", cmd.Example)
 	}

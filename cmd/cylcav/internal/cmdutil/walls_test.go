@@ -1,7 +1,4 @@
-package q
-
-// Tests of the unexported helpers; the command itself is tested through
-// clitest in the external test package.
+package cmdutil
 
 import (
 	"math"
@@ -21,18 +18,6 @@ func TestParseOhm(t *testing.T) {
 	for _, bad := range []string{"", "nohm", "ten ohm", "NaN", "1e999"} {
 		if _, err := parseOhm(bad); err == nil {
 			t.Errorf("parseOhm(%q) error = nil, want an error", bad)
-		}
-	}
-}
-
-func TestNumberJSON(t *testing.T) {
-	for _, tc := range []struct {
-		v    float64
-		want string
-	}{{math.Inf(1), "null"}, {math.NaN(), "null"}, {2500, "2500"}, {0.5, "0.5"}} {
-		b, err := number(tc.v).MarshalJSON()
-		if err != nil || string(b) != tc.want {
-			t.Errorf("number(%g).MarshalJSON() = %s, %v; want %s", tc.v, b, err, tc.want)
 		}
 	}
 }

@@ -1,7 +1,7 @@
 // Package q implements `cylcav q`: the unloaded Q of one mode from wall and
 // fill losses, with each loss's share, loaded Q and bandwidth for a given
 // coupling, and the accelerator figures of TM0mp modes.
-package q
+package unloadedq
 
 import (
 	"encoding/json"
@@ -26,15 +26,10 @@ type Options struct {
 	Format cmdutil.Format
 
 	Mode   cavity.Mode
-	Cavity cavity.Cavity // dimensions and fill eps_r, mu_r
-
-	// Fill is the dielectric (vacuum when --fill is absent) and Loss its loss
-	// tangents.
-	Fill physics.Dielectric
-	Loss qfactor.Fill
+	Cavity cavity.Cavity // dimensions and fill (vacuum when --fill is absent)
 
 	// Walls are the side wall, end plate A (z = 0) and end plate B (z = d).
-	Walls [3]qfactor.Surface
+	Walls qfactor.WallSet
 
 	// Coupling holds the coupling coefficient of each port (--beta), QExt
 	// the external Q of each port (--qext); at most one is set.
@@ -59,7 +54,7 @@ func NewCmdQ(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
 	var modeS, betaS, qextS, speedS string
 	var geo *cmdutil.GeometryFlags
-	var walls *WallFlags
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "q --mode MODE (--diameter D | --radius R) --length L --wall SPEC [flags]",
 		Short: "Unloaded Q, loss shares, loaded Q and accelerator figures of one mode",
@@ -114,7 +109,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		Length:   "inside length between the end plates, e.g. 54.8mm (required)",
 		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
 	})
-	walls = AddWallFlags(cmd)
+	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&betaS, "beta", "", "coupling coefficient of each port, e.g. 0.8 or 1,1 (two ports)")
 	f.StringVar(&qextS, "qext", "", "external Q of each port, e.g. 5000 or 4000,4000")
 	f.StringVar(&speedS, "particle-speed", "1", "particle speed as a fraction of c, for TM0mp accelerator figures")
@@ -131,7 +126,7 @@ type flagValues struct {
 
 // parse validates the flags into opts. Every error is a usage error naming
 // the flag, the value and the valid range.
-func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *WallFlags, v flagValues) error {
+func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags, v flagValues) error {
 	// A flag given with an empty value is an error below, never "absent".
 	set := cmd.Flags().Changed
 	if !set("mode") {
@@ -143,15 +138,14 @@ func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls
 	}
 	opts.Mode = m
 
-	if opts.Cavity, opts.Fill, err = geo.Cavity(); err != nil {
+	if opts.Cavity, err = geo.Cavity(); err != nil {
 		return err
 	}
-	opts.Loss = qfactor.Fill{TanDelta: opts.Fill.TanDelta, TanDeltaM: opts.Fill.TanDeltaM}
 
 	if !walls.Given() {
 		return cmdutil.Usagef("--wall is required, e.g. --wall copper or --wall sigma=5.8e7")
 	}
-	if opts.Walls, err = walls.Surfaces(); err != nil {
+	if opts.Walls, err = walls.Walls(); err != nil {
 		return err
 	}
 
@@ -208,21 +202,14 @@ type result struct {
 func runQ(opts *Options) error {
 	r := result{opts: opts}
 	m, c := opts.Mode, opts.Cavity
-	rs := Resistance(opts.Walls, func(w string) { r.warnings = append(r.warnings, w) })
-	u, err := qfactor.UnloadedQ(c, m, rs, opts.Loss)
+	rs := opts.Walls.At(func(w string) { r.warnings = append(r.warnings, w) })
+	u, err := qfactor.UnloadedQ(c, m, rs)
 	if err != nil {
 		return err
 	}
 	r.u = u
 	f := u.Wall.Frequency
-	for i, s := range opts.Walls {
-		r.delta[i] = math.NaN()
-		if s.Superconductor == nil {
-			if d, err := s.SkinDepth(f); err == nil {
-				r.delta[i] = d
-			}
-		}
-	}
+	r.delta = opts.Walls.SkinDepths(f)
 	switch {
 	case len(opts.Coupling) > 0:
 		r.ql, err = qfactor.LoadedByCoupling(u.Q0, opts.Coupling...)
@@ -245,10 +232,10 @@ func runQ(opts *Options) error {
 		r.accel = &a
 		r.cautions = append(r.cautions, cmdutil.CautionRF)
 	}
-	if opts.Walls[0].Superconductor != nil {
+	if opts.Walls.Side.Superconductor != nil {
 		r.cautions = append(r.cautions, cautionCryogenic)
 	}
-	if ft := opts.Fill.TanDeltaFreq; ft > 0 && opts.Loss.TanDelta > 0 && (f/ft > 2 || ft/f > 2) {
+	if ft := c.Fill.TanDeltaFreq; ft > 0 && c.Fill.TanDelta > 0 && (f/ft > 2 || ft/f > 2) {
 		r.warnings = append(r.warnings, fmt.Sprintf("the fill's loss tangent is stated at %s and used at %s; loss tangents vary with frequency",
 			physics.FormatFrequency(ft, 4), physics.FormatFrequency(f, 4)))
 	}
@@ -327,10 +314,10 @@ func (r *result) json() outJSON {
 		IndexConvention: indexConvention,
 		RadiusM:         number(o.Cavity.Radius),
 		LengthM:         number(o.Cavity.Length),
-		EpsR:            number(o.Cavity.EpsR),
-		MuR:             number(o.Cavity.MuR),
-		TanDelta:        number(o.Loss.TanDelta),
-		TanDeltaM:       number(o.Loss.TanDeltaM),
+		EpsR:            number(o.Cavity.Fill.Eps()),
+		MuR:             number(o.Cavity.Fill.Mu()),
+		TanDelta:        number(o.Cavity.Fill.TanDelta),
+		TanDeltaM:       number(o.Cavity.Fill.TanDeltaM),
 		FHz:             number(u.Wall.Frequency),
 		SkinDepthM:      number(r.delta[0]),
 		SkinDepthEndAM:  number(r.delta[1]),
@@ -405,18 +392,18 @@ func (r *result) table(w io.Writer) error {
 	o, u := r.opts, r.u
 	lossless := math.IsInf(u.Q0, 1)
 	fmt.Fprintf(w, "Mode %s: index convention %s\n", o.Mode, indexConvention)
-	fill := o.Fill.Name
+	fill := o.Cavity.Fill.Label()
 	if fill == "user" {
 		fill = "user values"
 	}
 	fmt.Fprintf(w, "Cavity: radius %s, length %s; fill %s (eps_r %g, mu_r %g, tan delta %g",
-		physics.FormatLength(o.Cavity.Radius, 6), physics.FormatLength(o.Cavity.Length, 6), fill, o.Cavity.EpsR, o.Cavity.MuR, o.Loss.TanDelta)
-	if o.Loss.TanDeltaM > 0 {
-		fmt.Fprintf(w, ", magnetic tan delta %g", o.Loss.TanDeltaM)
+		physics.FormatLength(o.Cavity.Radius, 6), physics.FormatLength(o.Cavity.Length, 6), fill, o.Cavity.Fill.Eps(), o.Cavity.Fill.Mu(), o.Cavity.Fill.TanDelta)
+	if o.Cavity.Fill.TanDeltaM > 0 {
+		fmt.Fprintf(w, ", magnetic tan delta %g", o.Cavity.Fill.TanDeltaM)
 	}
 	fmt.Fprintln(w, ")")
 	temp := "20 C"
-	if t := o.Walls[0].Temperature; t != 0 {
+	if t := o.Walls.Side.Temperature; t != 0 {
 		temp = physics.FormatTemperature(t, 4)
 	}
 	fmt.Fprintf(w, "Resonant frequency: %s; wall temperature %s\n\n", physics.FormatFrequency(u.Wall.Frequency, 7), temp)
@@ -425,12 +412,12 @@ func (r *result) table(w io.Writer) error {
 	rs := [3]float64{u.Wall.Rs.Side, u.Wall.Rs.EndA, u.Wall.Rs.EndB}
 	pq := [3]float64{u.Wall.QSide, u.Wall.QEndA, u.Wall.QEndB}
 	sh := [3]float64{u.Share.Side, u.Share.EndA, u.Share.EndB}
-	for i := range 3 {
+	for i, p := range qfactor.Parts() {
 		d := "-"
 		if !math.IsNaN(r.delta[i]) {
 			d = physics.FormatLength(r.delta[i], 4)
 		}
-		t.Row(PartNames[i], wallName(o.Walls[i]), d, physics.FormatSI(rs[i], "ohm", 4), fmtQ(pq[i]), fmtShare(sh[i], lossless))
+		t.Row(p.String(), wallName(o.Walls.Surface(p)), d, physics.FormatSI(rs[i], "ohm", 4), fmtQ(pq[i]), fmtShare(sh[i], lossless))
 	}
 	t.Row("fill", fill, "-", "-", fmtQ(u.QFill), fmtShare(u.Share.Fill, lossless))
 	if err := t.Flush(); err != nil {

@@ -1,4 +1,4 @@
-package q_test
+package unloadedq_test
 
 import (
 	"testing"

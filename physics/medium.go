@@ -1,0 +1,125 @@
+package physics
+
+import (
+	"fmt"
+	"math"
+)
+
+// Medium is a homogeneous, isotropic fill: the one value every package uses
+// for what is inside a cavity. Values are SI.
+//
+// The zero value is vacuum: a zero EpsR or MuR means 1 (see Eps and Mu, the
+// only place that default lives), and zero loss tangents mean no loss. To
+// the accuracy of any cavity calculation here vacuum is also dry air; the
+// library row "air" (LookupDielectric) has its small excess permittivity.
+type Medium struct {
+	// Name is a label for people ("air", "ptfe", "user"); "" means vacuum.
+	Name string
+	// EpsR is the relative permittivity (real part); zero means 1.
+	EpsR float64
+	// MuR is the relative permeability (real part); zero means 1.
+	MuR float64
+	// TanDelta is the electric loss tangent, imaginary over real part of
+	// eps, at TanDeltaFreq.
+	TanDelta float64
+	// TanDeltaFreq is the frequency at which TanDelta was measured, in Hz;
+	// zero means not stated.
+	TanDeltaFreq float64
+	// TanDeltaM is the magnetic loss tangent, imaginary over real part of
+	// mu (zero for non-magnetic fills).
+	TanDeltaM float64
+	// TCEps is the temperature coefficient of permittivity (1/eps) d eps/dT
+	// near 20 C, in 1/K; meaningful only when TCEpsKnown is true.
+	TCEps      float64
+	TCEpsKnown bool
+}
+
+// Limits of a Medium accepted by Validate. The permittivity and
+// permeability limits reject typing slips, not physics: a relative
+// permeability below 1 occurs in magnetised ferrites above resonance and in
+// diamagnetic media. The loss models that use a Medium (package qfactor) are
+// first order in the loss tangent, so their relative error is of the order
+// of tan delta and results beyond about 0.01 are estimates.
+const (
+	MinEpsR, MaxEpsR = 1, 1e4
+	MinMuR, MaxMuR   = 1e-3, 1e5
+	MaxTanDelta      = 1.0
+)
+
+// Eps returns the relative permittivity, EpsR with zero meaning 1.
+func (m Medium) Eps() float64 { return orOne(m.EpsR) }
+
+// Mu returns the relative permeability, MuR with zero meaning 1.
+func (m Medium) Mu() float64 { return orOne(m.MuR) }
+
+func orOne(v float64) float64 {
+	if v == 0 {
+		return 1
+	}
+	return v
+}
+
+// Label returns Name, or "vacuum" for the unnamed (zero) medium, for
+// people.
+func (m Medium) Label() string {
+	if m.Name == "" {
+		return "vacuum"
+	}
+	return m.Name
+}
+
+// Index returns the refractive index sqrt(mu_r eps_r) of the medium.
+func (m Medium) Index() float64 { return math.Sqrt(m.Eps() * m.Mu()) }
+
+// Validate reports whether the medium is physical: MinEpsR <= eps_r <=
+// MaxEpsR and MinMuR <= mu_r <= MaxMuR (zero meaning 1), both loss tangents
+// in 0..MaxTanDelta, and TanDeltaFreq and TCEps finite with TanDeltaFreq
+// >= 0. The error names the quantity, the valid range and the value.
+func (m Medium) Validate() error {
+	for _, q := range []struct {
+		name   string
+		v      float64
+		lo, hi float64
+	}{
+		{"eps_r", m.Eps(), MinEpsR, MaxEpsR},
+		{"mu_r", m.Mu(), MinMuR, MaxMuR},
+		{"electric loss tangent tand", m.TanDelta, 0, MaxTanDelta},
+		{"magnetic loss tangent tandm", m.TanDeltaM, 0, MaxTanDelta},
+	} {
+		if !(q.v >= q.lo && q.v <= q.hi) {
+			return fmt.Errorf("%s must be in %g..%g, got %g", q.name, q.lo, q.hi, q.v)
+		}
+	}
+	if !(m.TanDeltaFreq >= 0) || math.IsInf(m.TanDeltaFreq, 0) {
+		return fmt.Errorf("loss-tangent frequency must be finite and >= 0 Hz, got %g Hz", m.TanDeltaFreq)
+	}
+	if math.IsNaN(m.TCEps) || math.IsInf(m.TCEps, 0) {
+		return fmt.Errorf("temperature coefficient of eps must be finite, got %g 1/K", m.TCEps)
+	}
+	return nil
+}
+
+// Q returns the Q of the medium filling a whole cavity,
+//
+//	1/Q_fill = tan delta_e + tan delta_m,
+//
+// the same for every mode. The electric term is Pozar's Q_d = 1/tan delta
+// (Pozar, Microwave Engineering, 4th ed. (2012), sec. 6.3, eq. (6.48), as
+// recalled from memory); the magnetic term is derived the same way: the
+// fill dissipates omega eps_i |E|^2/2 and omega mu_i |H|^2/2 per unit volume
+// (eps_i, mu_i the imaginary parts), and at resonance the time-averaged
+// electric and magnetic energies are equal, each half of W, so
+// P_fill = omega W (tan delta_e + tan delta_m).
+//
+// Special cases are:
+//
+//	Q = +Inf for a lossless medium
+//
+// Q does not validate; call Validate first on user input.
+func (m Medium) Q() float64 {
+	s := m.TanDelta + m.TanDeltaM
+	if s == 0 {
+		return math.Inf(1)
+	}
+	return 1 / s
+}
