@@ -8,9 +8,7 @@ import (
 	"math"
 	"path/filepath"
 	"strings"
-	"sync"
 
-	"codeberg.org/go-pdf/fpdf"
 	xfont "golang.org/x/image/font"
 	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/vg"
@@ -149,8 +147,7 @@ func Render(w io.Writer, d Drawer, f Format, pg Page) error {
 	case SVG:
 		c = vgsvg.New(pg.Width, pg.Height)
 	case PDF:
-		pdfSortOnce.Do(func() { fpdf.SetDefaultCatalogSort(true) })
-		c = pdfCanvas{vgpdf.New(pg.Width, pg.Height)}
+		c = &pdfCanvas{Canvas: vgpdf.New(pg.Width, pg.Height)}
 	default:
 		return fmt.Errorf("figure: unknown image format %v; use PNG, SVG or PDF", f)
 	}
@@ -170,34 +167,41 @@ func Render(w io.Writer, d Drawer, f Format, pg Page) error {
 	return err
 }
 
-// pdfSortOnce switches on, once per process, the PDF writer's package-wide
-// default of sorting its font and resource catalogs. Without it the writer
-// emits them in map order and two renders of one drawing differ. The
-// setting changes only the order of objects, never the page.
-var pdfSortOnce sync.Once
-
-// pdfCanvas works around two limits of the PDF writer with more than one
-// face: it registers each face under its full name but asks for styled
-// faces with a style suffix ("undefined font"), and it stores every
-// embedded font file under one name, so a second face (bold) is drawn with
-// the glyphs of the first. Every face is therefore drawn in the regular
-// face of its family, and bold is simulated by overstriking the text a
-// fraction of a point to the right (the usual fake-bold of PDF work).
-// Layout is unchanged: text is measured with the real faces before it
-// reaches the canvas.
-type pdfCanvas struct{ *vgpdf.Canvas }
+// pdfCanvas works around three limits of the PDF writer. (1) With more
+// than one face it registers each face under its full name but asks for
+// styled faces with a style suffix ("undefined font"); (2) it stores every
+// embedded font file under one name, so a second face is drawn with the
+// glyphs of the first; (3) it writes its font catalogue in map order, so a
+// document with two faces comes out in either order, unless a
+// process-wide default of the writer is changed (which cylcav never does:
+// it would race with any other PDF made at the same time). Every text of
+// the page is therefore drawn in one face, the regular weight of the
+// first typeface used (Liberation Sans in the default theme), and bold is
+// simulated by overstriking the text a fraction of a point to the right
+// (the usual fake-bold of PDF work). A page then holds exactly one font,
+// whose catalogue has one order. Layout is unchanged: text is measured
+// with the real faces before it reaches the canvas.
+type pdfCanvas struct {
+	*vgpdf.Canvas
+	// face is the one face of the page, set by the first text drawn; its
+	// size is replaced by each text's own.
+	face  font.Font
+	fixed bool
+}
 
 // FillString implements vg.Canvas.
-func (c pdfCanvas) FillString(f font.Face, pt vg.Point, s string) {
+func (c *pdfCanvas) FillString(f font.Face, pt vg.Point, s string) {
 	s = WinAnsi(s)
-	if f.Font.Weight == xfont.WeightNormal && f.Font.Style == xfont.StyleNormal {
-		c.Canvas.FillString(f, pt, s)
-		return
+	if !c.fixed {
+		c.face = font.Font{Typeface: f.Font.Typeface, Variant: f.Font.Variant}
+		c.fixed = true
 	}
 	bold := f.Font.Weight >= xfont.WeightSemiBold
-	reg := f.Font
-	reg.Weight, reg.Style = xfont.WeightNormal, xfont.StyleNormal
-	f = font.DefaultCache.Lookup(reg, reg.Size)
+	reg := c.face
+	reg.Size = f.Font.Size
+	if f.Font != reg {
+		f = font.DefaultCache.Lookup(reg, reg.Size)
+	}
 	c.Canvas.FillString(f, pt, s)
 	if bold {
 		c.Canvas.FillString(f, vg.Point{X: pt.X + reg.Size*0.035, Y: pt.Y}, s)
@@ -208,7 +212,7 @@ func (c pdfCanvas) FillString(f font.Face, pt vg.Point, s string) {
 // premultiplied components as the colour and applies the alpha again, so a
 // translucent white prints grey; translucent colours are handed over with
 // straight (non-premultiplied) components.
-func (c pdfCanvas) SetColor(clr color.Color) {
+func (c *pdfCanvas) SetColor(clr color.Color) {
 	if clr != nil {
 		if _, _, _, a := clr.RGBA(); a != 0 && a != 0xffff {
 			clr = straightAlpha(color.NRGBAModel.Convert(clr).(color.NRGBA))

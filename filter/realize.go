@@ -76,10 +76,12 @@ type RealiseOptions struct {
 	// The window is widened to hold every stopband and rejection frequency.
 	Window float64
 	// Stopbands are rejection bands stated besides the specification's
-	// spot rejections. Each spot rejection of the Spec (Rejection{F, A})
-	// is added as the band from F away from the passband to the edge of
-	// the search window (common practice: a rejection quoted at one
-	// frequency is meant to hold beyond it), marked Derived.
+	// spot rejections. Each spot rejection of the Spec inside the model
+	// range is added as its region of the mask (Spec.Mask: from F away
+	// from the passband to the end of the band of interest; common
+	// practice, a rejection quoted at one frequency is meant to hold
+	// beyond it), marked Derived. Design.Check turns a spurious resonance
+	// in such a region into a failed rejection.
 	Stopbands []Stopband
 	// Hole, when not nil, places the coupling holes between neighbouring
 	// cavities (the same wall and position for all; Radius ignored): each
@@ -302,25 +304,26 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 		r.Cavities[i-1] = CavityDesign{Resonator: i, SelfCoupling: mii, F: fi, Cavity: c, Q0: u.Q0, Loss: u}
 	}
 
-	// Window and stopbands.
+	// Window and stopbands: the mask's rejection regions (Spec.Mask) are the
+	// derived stopbands, and the window holds them all.
+	mask := d.Spec.mask()
 	lo, hi := f0*(1-w), f0*(1+w)
 	for _, s := range opts.Stopbands {
 		lo, hi = math.Min(lo, s.Low), math.Max(hi, s.High)
 	}
-	for _, rj := range d.Spec.Rejections {
-		lo, hi = math.Min(lo, rj.F), math.Max(hi, rj.F)
+	for _, g := range mask.Regions {
+		lo, hi = math.Min(lo, g.Low), math.Max(hi, g.High)
 	}
 	r.Window = [2]float64{lo, hi}
 	r.Stopbands = slices.Clone(opts.Stopbands)
 	for i := range r.Stopbands {
 		r.Stopbands[i].Derived = false
 	}
-	for _, rj := range d.Spec.Rejections {
-		s := Stopband{Low: rj.F, High: hi, Attenuation: rj.Attenuation, Derived: true}
-		if rj.F < f0 {
-			s.Low, s.High = lo, rj.F
+	for _, g := range mask.Regions {
+		if g.OutsideModel {
+			continue
 		}
-		r.Stopbands = append(r.Stopbands, s)
+		r.Stopbands = append(r.Stopbands, Stopband{Low: g.Low, High: g.High, Attenuation: g.Attenuation, Derived: true})
 	}
 	f1, f2 := BandpassFrequency(-1, f0, bw), BandpassFrequency(1, f0, bw)
 

@@ -32,8 +32,12 @@ var conventionLines = []string{
 // (a transmission zero hit exactly) is written exactly.
 //
 // The frequencies must be strictly ascending and every value finite;
-// comment lines must not contain line breaks. Numbers are written with 12
-// significant digits.
+// comment lines must not contain line breaks. Each frequency is written in
+// the shortest form that reads back as exactly the same float64 (at most 17
+// significant digits, strconv's round-trip formatting), so that the data
+// belong to the frequency as printed: a narrow filter's response changes
+// by many parts in 1e12 between two frequencies 1e-12 apart. The
+// S-parameters are written with 12 significant digits.
 func WriteTouchstone(w io.Writer, pts []Point, comments []string) error {
 	if len(pts) == 0 {
 		return fmt.Errorf("filter: Touchstone file needs at least one frequency point")
@@ -66,7 +70,7 @@ func WriteTouchstone(w io.Writer, pts []Point, comments []string) error {
 	fmt.Fprintf(bw, "# HZ S RI R %s\n", strconv.FormatFloat(ReferenceImpedance, 'g', -1, 64))
 	num := func(x float64) string { return strconv.FormatFloat(x, 'e', 11, 64) }
 	for _, p := range pts {
-		bw.WriteString(strconv.FormatFloat(p.F, 'e', 11, 64))
+		bw.WriteString(strconv.FormatFloat(p.F, 'e', -1, 64)) // exact round trip
 		for _, s := range [...]complex128{p.S11, p.S21, p.S21, p.S22} {
 			bw.WriteByte(' ')
 			bw.WriteString(num(real(s)))

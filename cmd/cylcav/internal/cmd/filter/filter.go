@@ -114,15 +114,29 @@ specification to the numbers a designer builds it from:
      couplings k = FBW*M and external Q of the end resonators;
   4. with --mode/--wall/--fill/--ratio: one closed cylindrical cavity per
      resonator at its own frequency, its unloaded Q0, the cavity's spurious
-     modes near the band (warned when in a rejection band), and, with
-     --holes, the coupling holes by Bethe's small-aperture theory;
+     modes near the band, and, with --holes, the coupling holes by Bethe's
+     small-aperture theory;
   5. the response with the cavities' Q0 (or --q0): midband insertion loss
-     against Cohn's estimate, and the pass/fail table of the specification.
+     with the first-order estimates (from the group delay at f0, and Cohn's
+     for all-pole designs), the group delay, and the pass/fail table of the
+     specification.
 
 The passband runs from f1 to f2 with f2 - f1 = bw and f1*f2 = f0^2. A
-rejection "40dB@10.3GHz" asks for 40 dB from 10.3 GHz outwards. Transmission
-zeros are given in Hz and mapped to Omega = (f0/bw)(f/f0 - f0/f); at most N
-(N-1 with a plain folded network, N adds a source-load coupling).
+rejection "40dB@10.3GHz" asks for 40 dB at every frequency from 10.3 GHz
+outwards to the end of the band of interest, f0 -+ 20 %: the order and the
+check find the least attenuation there exactly, lobes between and beyond the
+transmission zeros included. A spurious resonance of the cavities inside a
+rejection band fails that rejection. Beyond f0 -+ 20 %, or beyond the
+cavities' first spurious resonance, the coupling-matrix model does not hold:
+such a rejection is reported as not checked. The --return-loss (or --ripple)
+requirement is checked on the designed (lossless) response; the effect of
+the losses (lossy return loss, rounding of the band edges) is shown apart.
+Transmission zeros are given in Hz and mapped to
+Omega = (f0/bw)(f/f0 - f0/f); at most N (N-1 with a plain folded network, N
+adds a source-load coupling).
+
+The coupling-matrix model is a narrowband model: a bandwidth above 10 % of
+f0 is refused (exit status 2).
 
 Without --mode, --wall, --fill, --ratio and --holes no cavities are sized and
 the response is lossless unless --q0 gives an unloaded Q. With only --wall
@@ -223,6 +237,10 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	bw, err := parseBandwidth(bwS, f0)
 	if err != nil {
 		return err
+	}
+	if bandpass.ModelFBWError(f0, bw) != nil {
+		return cmdutil.FlagError("bw", bwS, fmt.Errorf("a fractional bandwidth of %.4g %% is above %g %% of f0, where the narrowband coupling-matrix model (frequency-invariant couplings) stops holding; a wider filter needs couplings modelled with their frequency dependence",
+			100*bw/f0, 100*bandpass.MaxModelFBW))
 	}
 	s.BW = bw
 	f1, f2 := bandpass.BandpassFrequency(-1, f0, bw), bandpass.BandpassFrequency(1, f0, bw)
@@ -383,7 +401,7 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.Wal
 	if !wallGiven {
 		for _, fl := range []string{"end-wall", "end-wall-a", "end-wall-b", "temperature", "roughness", "roughness-model", "plating", "plating-thickness", "superconducting", "residual"} {
 			if changed(fl) {
-				return cmdutil.Usagef("--%s describes the cavity walls; give --wall too (e.g. --wall copper)", fl)
+				return cmdutil.Usagef("--%s describes the cavity walls; %s", fl, wallHint(changed))
 			}
 		}
 	}
@@ -445,6 +463,17 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.Wal
 		opts.Hole.Thickness = t
 	}
 	return nil
+}
+
+// wallHint advises the --wall a wall flag needs, one that the wall flags
+// given accept: the superconducting model (--superconducting, --residual)
+// is niobium's and needs a temperature, so those flags get niobium; the
+// others a normal metal.
+func wallHint(changed func(string) bool) string {
+	if changed("superconducting") || changed("residual") {
+		return "give --wall niobium too, the only superconducting wall modelled (e.g. --wall niobium --superconducting --temperature 2K)"
+	}
+	return "give --wall too (e.g. --wall copper)"
 }
 
 // parseOutput validates --span, --points, --touchstone, --plot and --dpi.

@@ -243,9 +243,9 @@ func TestCohn(t *testing.T) {
 
 func TestTable(t *testing.T) {
 	out := mustRun(t, args("--mode", "TE011", "--wall", "copper")...)
-	for _, want := range []string{"Specification", "order N = 5 (the smallest that meets the rejections)", "Transmission zeros",
+	for _, want := range []string{"Specification", "order N = 5 (the smallest that meets every rejection band)", "Transmission zeros",
 		"Coupling matrix M, folded", "k1,2", "Qext in =", "insertion loss at f0", "Cavities: TE011",
-		"Spurious modes", "exact companion", "Coupling realisation", "Specification check", "rejection at 10.2500 GHz",
+		"Spurious modes", "exact companion", "Coupling realisation", "Specification check", "rejection from 10.2500 GHz",
 		"Sign convention", "n azimuthal, m radial, p axial", filtercmd.FieldSolverNote} {
 		if !strings.Contains(out, want) {
 			t.Errorf("table output lacks %q", want)
