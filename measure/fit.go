@@ -22,6 +22,7 @@ type Circle struct {
 
 	Residual float64 // RMS distance between measured and fitted S
 	Points   int     // points used
+	Lo, Hi   float64 // the fitted window, Hz
 
 	fL float64
 	a  [3]complex128
@@ -441,7 +442,7 @@ func (w *workspace) circle(b [3]complex128, sigma2 float64, minv [3][3]complex12
 		F0: f0, F0Err: w.fL * math.Sqrt(v[0]), QL: ql, QLErr: math.Sqrt(v[1]),
 		Diameter: diam, DiameterErr: math.Sqrt(v[2]),
 		Delay: tau, Detuned: det, Resonant: res,
-		Residual: math.Sqrt(sigma2), Points: len(w.f), fL: w.fL,
+		Residual: math.Sqrt(sigma2), Points: len(w.f), Lo: w.f[0], Hi: w.f[len(w.f)-1], fL: w.fL,
 		a: [3]complex128{b[0] * complex(w.q, 0), b[1], b[2] * complex(w.q, 0)},
 	}
 	return c, nil
