@@ -1,0 +1,114 @@
+package resonances_test
+
+import (
+	"encoding/json"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/resonances"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure/rendertest"
+)
+
+const root = "../../../../.."
+
+func sweep(name string) string { return filepath.Join(root, "testdata", "measure", name) }
+
+func TestExamples(t *testing.T) {
+	t.Chdir(root)
+	clitest.CheckExamples(t, resonances.NewCmdResonances(cmdutil.Test(nil, nil), nil).Example)
+}
+
+// TestJSON: the JSON output carries the fit of the reflection sweep made by
+// testdata/measure/gen_sweeps.py (truth: f0 = 5 GHz, Q0 = 12000,
+// beta = 0.45) in SI fields.
+func TestJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("refl_under.s1p"), "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Kind       string
+		Resonances []map[string]any
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if out.Kind != "reflection" || len(out.Resonances) != 1 {
+		t.Fatalf("kind %q, %d resonances", out.Kind, len(out.Resonances))
+	}
+	res := out.Resonances[0]
+	for key, want := range map[string]float64{"f0_hz": 5e9, "q0": 12000, "beta1": 0.45} {
+		got, _ := res[key].(float64)
+		errv, _ := res[strings.TrimSuffix(key, "_hz")+"_err"+map[bool]string{true: "_hz", false: ""}[strings.HasSuffix(key, "_hz")]].(float64)
+		if !(math.Abs(got-want) <= 4*errv) {
+			t.Errorf("%s = %v +- %v, want %v", key, got, errv, want)
+		}
+	}
+	if res["beta2"].(float64) != 0 {
+		t.Errorf("beta2 of a one-port = %v, want 0", res["beta2"])
+	}
+}
+
+func TestPlots(t *testing.T) {
+	dir := t.TempDir()
+	plot, fits := filepath.Join(dir, "sweep.svg"), filepath.Join(dir, "fit.svg")
+	r := clitest.Run(t, "resonances", sweep("wide.s2p"), "--plot", plot, "--fit-plots", fits)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	for _, p := range []string{plot, filepath.Join(dir, "fit-1.svg"), filepath.Join(dir, "fit-5.svg")} {
+		b, err := os.ReadFile(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rendertest.SVG(t, b)
+		if !strings.Contains(r.Stdout, "wrote "+p) {
+			t.Errorf("output does not report %s", p)
+		}
+	}
+	// An existing file is not replaced without --force, and nothing is written.
+	r = clitest.Run(t, "resonances", sweep("wide.s2p"), "--plot", plot)
+	if r.Code != 2 || !strings.Contains(r.Stderr, "--force") {
+		t.Errorf("second run: exit %d, stderr %q", r.Code, r.Stderr)
+	}
+}
+
+func TestBadInput(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad.s2p")
+	os.WriteFile(bad, []byte("! a sweep\n# GHZ S RI R 50\n1 1 0 0 0 0 0 1 0\n0.5 1 0 0 0 0 0 1 0\n"), 0o644)
+	short := filepath.Join(dir, "short.s1p")
+	os.WriteFile(short, []byte("# GHZ S RI R 50\n1 1 0 0\n"), 0o644)
+	clitest.CheckBadInput(t, "resonances", []clitest.BadCase{
+		{Args: []string{filepath.Join(dir, "missing.s2p")}, Code: 2, Want: []string{"missing.s2p", "cannot read"}},
+		{Args: []string{bad}, Code: 2, Want: []string{"bad.s2p:4:", "strictly ascending"}},
+		{Args: []string{short}, Code: 2, Want: []string{"short.s1p:2:", "a 1-port line has 3"}},
+		{Args: []string{sweep("wide.s2p"), "--window", "0"}, Code: 2, Want: []string{`--window "0"`, "between 1 and 20"}},
+		{Args: []string{sweep("wide.s2p"), "--min-height", "loud"}, Code: 2, Want: []string{`--min-height "loud"`, "0.1 dB and 200 dB"}},
+		{Args: []string{sweep("wide.s2p"), "--plot", "x.gif"}, Code: 2, Want: []string{`--plot "x.gif"`}},
+		{Args: []string{sweep("wide.s2p"), "--format", "xml"}, Code: 2, Want: []string{`--format "xml"`}},
+		{Args: []string{}, Code: 2, Want: []string{"1 arg"}},
+	})
+}
+
+// TestNoResonance: a sweep with no resonance is an error that says so.
+func TestNoResonance(t *testing.T) {
+	dir := t.TempDir()
+	flat := filepath.Join(dir, "flat.s1p")
+	var b strings.Builder
+	b.WriteString("# HZ S RI R 50\n")
+	for i := 0; i < 300; i++ {
+		fmt.Fprintf(&b, "%d 0.9 0.1\n", 1000000000+i*100000)
+	}
+	os.WriteFile(flat, []byte(b.String()), 0o644)
+	r := clitest.Run(t, "resonances", flat)
+	if r.Code != 1 || !strings.Contains(r.Stderr, "no resonance") || !strings.Contains(r.Stderr, "flat.s1p") {
+		t.Errorf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+}
