@@ -49,11 +49,12 @@ func NewSweepPlot(f []float64, s []complex128, name string, res []measure.Resona
 func (sp *SweepPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	scale, unit := figure.FrequencyUnit(sp.F[len(sp.F)-1])
 	p := th.NewPlot("", "Frequency ("+unit+")", "|"+sp.Name+"| (dB)")
+	xs := make([]float64, len(sp.S))
 	ys := make([]float64, len(sp.S))
 	for i, v := range sp.S {
-		ys[i] = db(v)
+		xs[i], ys[i] = sp.F[i]/scale, db(v)
 	}
-	if _, err := figure.AddCurve(p, sp.F, ys, scale, th.Series(0)); err != nil {
+	if _, err := figure.AddCurve(p, xs, ys, 1, th.Series(0)); err != nil {
 		return nil, err
 	}
 	var pts plotter.XYs
@@ -156,7 +157,7 @@ func (fp *FitPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	for i := range fx {
 		f := c.Lo + (c.Hi-c.Lo)*float64(i)/(fitCurvePoints-1)
 		m := c.Model(f)
-		fx[i], fy[i] = f, db(m)
+		fx[i], fy[i] = f/scale, db(m)
 		v := m * cmplx.Exp(complex(0, 2*math.Pi*f*c.Delay))
 		fitC = append(fitC, plotter.XY{X: real(v), Y: imag(v)})
 	}
@@ -167,7 +168,7 @@ func (fp *FitPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	sc.GlyphStyle = th.Marker(1)
 	sc.GlyphStyle.Radius = vg.Points(1.8)
 	mag.Add(sc)
-	if _, err := figure.AddCurve(mag, fx, fy, scale, th.Series(2)); err != nil {
+	if _, err := figure.AddCurve(mag, fx, fy, 1, th.Series(2)); err != nil {
 		return nil, err
 	}
 
@@ -197,8 +198,9 @@ func (fp *FitPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	}
 	l2.LineStyle = th.Series(2)
 	plane.Add(l2)
-	// Equal scales on both axes, so the circle looks round: a square
-	// range around the data.
+	// Equal ranges on both axes, a square around the data; the circle is
+	// drawn round only where the panel is square (it is an ellipse on a
+	// wide page).
 	xmin, xmax, ymin, ymax := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
 	for _, q := range [][]plotter.XY{circ, fitC} {
 		for _, v := range q {
