@@ -18,9 +18,11 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/benchplot"
+	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/figure"
 	"cylcav/measure"
+	"cylcav/physics"
 	"cylcav/touchstone"
 )
 
@@ -31,6 +33,11 @@ type Options struct {
 
 	File     string // the sweep file
 	Settings measure.Settings
+
+	// Identify is set when the cavity's nominal size was given: the modes
+	// are then named (measure.Identify).
+	Identify bool
+	Ident    measure.IdentifySettings
 
 	Plot     string // whole-sweep plot file, "" for none
 	FitPlots string // BASE.EXT: one plot per resonance, BASE-1.EXT, ...
@@ -44,6 +51,7 @@ func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.C
 	opts := &Options{IO: io}
 	var minHeight, window string
 	var dpi int
+	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
 		Use:   "resonances SWEEP.s1p|SWEEP.s2p [flags]",
 		Short: "Find and fit the resonances of a measured sweep: f0, loaded Q, coupling, Q0",
@@ -65,6 +73,15 @@ Resonances are peaks of |S21| standing --min-height dB above the
 background (default 10 dB) or dips of |S11| (default 1 dB). Each fit uses
 the points within --window half-power bandwidths of the peak (default 3).
 
+With the cavity's nominal size (--diameter or --radius, --length, and
+--fill when filled) each resonance is also given its mode: the effective
+D and L are fitted to the measured frequencies (or, with --fit-fill, the
+fill's permittivity with D and L held), every resonance goes to the
+nearest mode of the fitted cavity, a TE0mp/TM1mp pair split in two is
+resolved by Q (TE0mp has the higher Q) and its splitting printed, and a
+resonance that matches no mode within 0.3 % is flagged (a coupling
+structure's own resonance, or a cavity far from its drawing).
+
 --plot writes the sweep with the resonances numbered; --fit-plots BASE.EXT
 writes one plot per resonance (BASE-1.EXT, BASE-2.EXT, ...): measured
 points against the fitted curve, in dB and in the complex plane. The file
@@ -78,10 +95,16 @@ replaced only with --force.`,
   5  5.83000033 ± 0.00000027  2871.78 ± 0.77  0.120018 ± 0.000011    0.1000190 ± 0.0000099  3503.67 ± 0.94  2857    agrees
 
   # The same as CSV; add --plot sweep.svg --fit-plots fit.svg for pictures
-  $ cylcav resonances testdata/measure/wide.s2p --format csv`,
+  $ cylcav resonances testdata/measure/wide.s2p --format csv
+
+  # Name the modes of a whole-cavity sweep, drawn as D = 40 mm, L = 31 mm
+  $ cylcav resonances testdata/measure/modes.s2p --diameter 40mm --length 31mm
+  ...
+  Effective cavity: D = 40.0785 ± 0.0058 mm, L = 30.8473 ± 0.0074 mm (drawn 40.0000 mm, 31.0000 mm); RMS residual 206 ppm.
+  Resonances 8 (TE011) and 7 (TM111): a degenerate pair split by 20.43 MHz; the higher Q is taken as TE011.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, args, minHeight, window, dpi); err != nil {
+			if err := opts.parse(cmd, args, minHeight, window, dpi, geo); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -94,6 +117,13 @@ replaced only with --force.`,
 	checkFormat := cmdutil.FormatFlag(cmd, &opts.Format)
 	f.StringVar(&minHeight, "min-height", "", "smallest peak height (dip depth) above the background, e.g. 20dB (default 10 dB peaks, 1 dB dips)")
 	f.StringVar(&window, "window", "3", "half width of each fitted window, in half-power bandwidths")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter: "nominal inside diameter, to name the modes, e.g. 40mm",
+		Radius:   "nominal inside radius, to name the modes, e.g. 20mm",
+		Length:   "nominal inside length, to name the modes, e.g. 31mm",
+		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
+	})
+	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
 	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
@@ -102,9 +132,18 @@ replaced only with --force.`,
 	return cmd
 }
 
-func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int) error {
+func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags) error {
 	if err := cmdutil.RejectEmptyFlags(cmd); err != nil {
 		return err
+	}
+	if geo.Changed("diameter") || geo.Changed("radius") || geo.Changed("length") || geo.Changed("fill") {
+		c, err := geo.Cavity()
+		if err != nil {
+			return err
+		}
+		opts.Identify, opts.Ident.Nominal = true, c
+	} else if opts.Ident.FitFill {
+		return cmdutil.Usagef("--fit-fill needs the cavity's size: give --diameter (or --radius) and --length")
 	}
 	opts.File = args[0]
 	if cmd.Flags().Changed("min-height") {
@@ -164,6 +203,22 @@ func runResonances(opts *Options) error {
 	if err != nil {
 		return fmt.Errorf("%s: %w", opts.File, err)
 	}
+	var id *measure.Identification
+	if opts.Identify {
+		f0 := make([]float64, 0, len(rs))
+		q0 := make([]float64, 0, len(rs))
+		for _, r := range rs {
+			f0, q0 = append(f0, r.F0), append(q0, r.Q0)
+		}
+		if hasNaN(f0) {
+			return fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --diameter", opts.File)
+		}
+		got, err := measure.Identify(f0, q0, opts.Ident)
+		if err != nil {
+			return fmt.Errorf("%s: %w", opts.File, err)
+		}
+		id = &got
+	}
 	files, err := renderPlots(opts, d, rs)
 	if err != nil {
 		return err
@@ -175,11 +230,11 @@ func runResonances(opts *Options) error {
 	}
 	switch opts.Format {
 	case cmdutil.JSON:
-		return cmdutil.WriteJSON(opts.IO.Out, toJSON(opts.File, d, rs))
+		return cmdutil.WriteJSON(opts.IO.Out, toJSON(opts.File, d, rs, id))
 	case cmdutil.CSV:
-		return writeCSV(opts, rs)
+		return writeCSV(opts, rs, id)
 	}
-	if err := writeTable(opts, d, rs); err != nil {
+	if err := writeTable(opts, d, rs, id); err != nil {
 		return err
 	}
 	for _, f := range files {
@@ -276,12 +331,40 @@ type resonanceJSON struct {
 	Points     int    `json:"fit_points"`
 	PeakHeight number `json:"peak_height_db"`
 	Problem    string `json:"problem"`
+
+	*modeJSON
+}
+
+type modeJSON struct {
+	Mode        string `json:"mode"`
+	Unresolved  bool   `json:"pair_unresolved"`
+	Matched     bool   `json:"matched"`
+	PredictedHz number `json:"model_f_hz"`
+	Residual    number `json:"model_residual"`
+}
+
+type cavityJSON struct {
+	DiameterM    number     `json:"diameter_m"`
+	DiameterErrM number     `json:"diameter_err_m"`
+	LengthM      number     `json:"length_m"`
+	LengthErrM   number     `json:"length_err_m"`
+	EpsR         number     `json:"eps_r"`
+	EpsRErr      number     `json:"eps_r_err"`
+	RMSResidual  number     `json:"rms_residual"`
+	Pairs        []pairJSON `json:"split_pairs"`
+}
+
+type pairJSON struct {
+	TE      int    `json:"te_index"`
+	TM      int    `json:"tm_index"`
+	SplitHz number `json:"split_hz"`
 }
 
 type outJSON struct {
 	File       string          `json:"file"`
 	Kind       string          `json:"kind"`
 	Points     int             `json:"points"`
+	Cavity     *cavityJSON     `json:"fitted_cavity,omitempty"`
 	Resonances []resonanceJSON `json:"resonances"`
 }
 
@@ -296,18 +379,42 @@ func rowJSON(i int, r measure.Resonance) resonanceJSON {
 	return j
 }
 
-func toJSON(file string, d *touchstone.Data, rs []measure.Resonance) outJSON {
+func toJSON(file string, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) outJSON {
 	o := outJSON{File: file, Kind: rs[0].Kind.String(), Points: len(d.Freq)}
 	for i, r := range rs {
-		o.Resonances = append(o.Resonances, rowJSON(i, r))
+		j := rowJSON(i, r)
+		if id != nil {
+			a := id.Assign[i]
+			j.modeJSON = &modeJSON{Mode: a.Mode.String(), Unresolved: a.Unresolved, Matched: a.Matched,
+				PredictedHz: number(a.Predicted), Residual: number(a.Residual)}
+		}
+		o.Resonances = append(o.Resonances, j)
+	}
+	if id != nil {
+		c := id.Cavity
+		o.Cavity = &cavityJSON{DiameterM: number(c.Diameter()), DiameterErrM: number(2 * id.RadiusErr),
+			LengthM: number(c.Length), LengthErrM: number(id.LengthErr), EpsR: number(c.Fill.Eps()), EpsRErr: number(id.EpsErr),
+			RMSResidual: number(id.RMS), Pairs: []pairJSON{}}
+		for _, p := range id.Pairs {
+			o.Cavity.Pairs = append(o.Cavity.Pairs, pairJSON{TE: p.TE + 1, TM: p.TM + 1, SplitHz: number(p.Split)})
+		}
 	}
 	return o
+}
+
+func hasNaN(v []float64) bool {
+	for _, x := range v {
+		if math.IsNaN(x) {
+			return true
+		}
+	}
+	return false
 }
 
 var csvHeader = []string{"index", "f0_hz", "f0_err_hz", "ql", "ql_err", "beta1", "beta1_err", "beta2", "beta2_err",
 	"q0", "q0_err", "ql_3db", "ql_3db_agrees", "cable_delay_s", "fit_residual", "fit_points", "peak_height_db", "problem"}
 
-func writeCSV(opts *Options, rs []measure.Resonance) error {
+func writeCSV(opts *Options, rs []measure.Resonance, id *measure.Identification) error {
 	g := func(v number) string {
 		if math.IsNaN(float64(v)) {
 			return ""
@@ -320,8 +427,17 @@ func writeCSV(opts *Options, rs []measure.Resonance) error {
 		rows = append(rows, []string{strconv.Itoa(j.Index), g(j.F0Hz), g(j.F0ErrHz), g(j.QL), g(j.QLErr), g(j.Beta1), g(j.Beta1Err),
 			g(j.Beta2), g(j.Beta2Err), g(j.Q0), g(j.Q0Err), g(j.Q3dB), strconv.FormatBool(j.Agree), g(j.DelayS), g(j.Residual),
 			strconv.Itoa(j.Points), g(j.PeakHeight), j.Problem})
+		if id != nil {
+			a := id.Assign[i]
+			rows[i] = append(rows[i], a.Mode.String(), strconv.FormatBool(a.Unresolved), strconv.FormatBool(a.Matched),
+				g(number(a.Predicted)), g(number(a.Residual)))
+		}
 	}
-	return cmdutil.WriteCSV(opts.IO.Out, csvHeader, rows)
+	header := csvHeader
+	if id != nil {
+		header = append(append([]string(nil), csvHeader...), "mode", "pair_unresolved", "matched", "model_f_hz", "model_residual")
+	}
+	return cmdutil.WriteCSV(opts.IO.Out, header, rows)
 }
 
 // pm formats v +- e with e to two significant digits and v to the same
@@ -339,7 +455,7 @@ func pm(v, e, scale float64) string {
 	return fmt.Sprintf("%.*f ± %.*f", dec, v, dec, e)
 }
 
-func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance) error {
+func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) error {
 	w := opts.IO.Out
 	kind := rs[0].Kind
 	fmt.Fprintf(w, "%s: %d points, %s (%d-port), %d resonances\n", opts.File, len(d.Freq), kind, d.Ports, len(rs))
@@ -348,6 +464,9 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance) error
 		header = append(header, "beta2")
 	}
 	header = append(header, "Q0", "QL 3dB", "3 dB check")
+	if id != nil {
+		header = append(header, "mode", "vs model (ppm)")
+	}
 	t := cmdutil.NewTable(w, header...)
 	var problems []string
 	for i, r := range rs {
@@ -358,6 +477,9 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance) error
 				row = append(row, "-")
 			}
 			row = append(row, "-", "-", "not fitted, see below")
+			if id != nil {
+				row = append(row, "-", "-")
+			}
 			t.Row(row...)
 			problems = append(problems, fmt.Sprintf("resonance %d: %s", i+1, r.Problem))
 			continue
@@ -374,6 +496,17 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance) error
 			check = fmt.Sprintf("differs by %+.1f %%: trust the fit", 100*(r.Q3dB-r.QL)/r.QL)
 		}
 		row = append(row, pm(r.Q0, r.Q0Err, 1), strconv.FormatFloat(r.Q3dB, 'f', 0, 64), check)
+		if id != nil {
+			a := id.Assign[i]
+			switch {
+			case !a.Matched:
+				row = append(row, "none (nearest "+a.Mode.String()+")", fmt.Sprintf("%+.0f", 1e6*a.Residual))
+			case a.Unresolved:
+				row = append(row, a.Mode.String()+"/"+companion(a.Mode), fmt.Sprintf("%+.0f", 1e6*a.Residual))
+			default:
+				row = append(row, a.Mode.String(), fmt.Sprintf("%+.0f", 1e6*a.Residual))
+			}
+		}
 		t.Row(row...)
 	}
 	if err := t.Flush(); err != nil {
@@ -382,6 +515,46 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance) error
 	for _, p := range problems {
 		fmt.Fprintln(w, p)
 	}
+	if id != nil {
+		c := id.Cavity
+		if opts.Ident.FitFill {
+			fmt.Fprintf(w, "Fitted fill: eps_r = %s with D = %s, L = %s held; RMS residual %.0f ppm.\n",
+				pm(c.Fill.Eps(), id.EpsErr, 1), physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), 1e6*id.RMS)
+		} else {
+			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (drawn %s, %s); RMS residual %.0f ppm.\n",
+				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3),
+				physics.FormatLength(opts.Ident.Nominal.Diameter(), 6), physics.FormatLength(opts.Ident.Nominal.Length, 6), 1e6*id.RMS)
+		}
+		for _, p := range id.Pairs {
+			fmt.Fprintf(w, "Resonances %d (%s) and %d (%s): a degenerate pair split by %s; the higher Q is taken as %s.\n",
+				p.TE+1, id.Assign[p.TE].Mode, p.TM+1, id.Assign[p.TM].Mode, physics.FormatFrequency(p.Split, 4), id.Assign[p.TE].Mode)
+		}
+		unmatched := 0
+		for _, a := range id.Assign {
+			if !a.Matched {
+				unmatched++
+			}
+		}
+		if unmatched > 0 {
+			fmt.Fprintf(w, "%d resonance(s) match no cavity mode within %.1f %%: coupling structures, port modes, or a cavity far from its drawing.\n", unmatched, 100*matchTol(opts.Ident))
+		}
+		fmt.Fprintln(w, "Mode index convention: n azimuthal (cos n phi), m radial (m-th Bessel zero), p axial (half-wavelengths along the length).")
+	}
 	fmt.Fprintln(w, "Uncertainties are one standard deviation from the fit residuals (noise only; not the analyser's calibration).")
 	return nil
+}
+
+// companion names the mode that shares m's frequency (TE0mp with TM1mp).
+func companion(m cavity.Mode) string {
+	if c, ok := m.Companion(); ok {
+		return c.String()
+	}
+	return "?"
+}
+
+func matchTol(s measure.IdentifySettings) float64 {
+	if s.MatchTol == 0 {
+		return 0.003
+	}
+	return s.MatchTol
 }

@@ -94,6 +94,9 @@ func TestBadInput(t *testing.T) {
 		{Args: []string{sweep("wide.s2p"), "--plot", "x.gif"}, Code: 2, Want: []string{`--plot "x.gif"`}},
 		{Args: []string{sweep("wide.s2p"), "--format", "xml"}, Code: 2, Want: []string{`--format "xml"`}},
 		{Args: []string{}, Code: 2, Want: []string{"1 arg"}},
+		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm"}, Code: 2, Want: []string{"--length"}},
+		{Args: []string{sweep("modes.s2p"), "--diameter", "-4mm", "--length", "31mm"}, Code: 2, Want: []string{`--diameter "-4mm"`}},
+		{Args: []string{sweep("modes.s2p"), "--fit-fill"}, Code: 2, Want: []string{"--fit-fill", "--diameter"}},
 	})
 }
 
@@ -110,5 +113,43 @@ func TestNoResonance(t *testing.T) {
 	r := clitest.Run(t, "resonances", flat)
 	if r.Code != 1 || !strings.Contains(r.Stderr, "no resonance") || !strings.Contains(r.Stderr, "flat.s1p") {
 		t.Errorf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+}
+
+// TestIdentifyJSON: the modes of testdata/measure/gen_modes.py's sweep
+// (built D 40.08 mm, L 30.85 mm) come out in the JSON with the fitted cavity.
+func TestIdentifyJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Cavity struct {
+			D    float64 `json:"diameter_m"`
+			DErr float64 `json:"diameter_err_m"`
+			L    float64 `json:"length_m"`
+			LErr float64 `json:"length_err_m"`
+		} `json:"fitted_cavity"`
+		Resonances []struct {
+			Mode    string
+			Matched bool
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(out.Cavity.D-40.08e-3) > 4*out.Cavity.DErr || math.Abs(out.Cavity.L-30.85e-3) > 4*out.Cavity.LErr {
+		t.Errorf("fitted D %g +- %g, L %g +- %g; built 40.08 mm, 30.85 mm", out.Cavity.D, out.Cavity.DErr, out.Cavity.L, out.Cavity.LErr)
+	}
+	var modes []string
+	for _, res := range out.Resonances {
+		m := res.Mode
+		if !res.Matched {
+			m = "none"
+		}
+		modes = append(modes, m)
+	}
+	if got, want := strings.Join(modes, " "), "TM010 TE111 none TM011 TE211 TM110 TM111 TE011 TE112"; got != want {
+		t.Errorf("modes %s, want %s", got, want)
 	}
 }
