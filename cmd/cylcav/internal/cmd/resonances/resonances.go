@@ -23,6 +23,7 @@ import (
 	"cylcav/figure"
 	"cylcav/measure"
 	"cylcav/physics"
+	"cylcav/qfactor"
 	"cylcav/touchstone"
 )
 
@@ -39,6 +40,10 @@ type Options struct {
 	Identify bool
 	Ident    measure.IdentifySettings
 
+	// Walls, when set (--wall), gives each identified mode's model Q0 for
+	// the wall diagnosis.
+	Walls *qfactor.WallSet
+
 	Plot     string // whole-sweep plot file, "" for none
 	FitPlots string // BASE.EXT: one plot per resonance, BASE-1.EXT, ...
 	Page     figure.Page
@@ -52,6 +57,7 @@ func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.C
 	var minHeight, window string
 	var dpi int
 	var geo *cmdutil.GeometryFlags
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "resonances SWEEP.s1p|SWEEP.s2p [flags]",
 		Short: "Find and fit the resonances of a measured sweep: f0, loaded Q, coupling, Q0",
@@ -104,7 +110,7 @@ replaced only with --force.`,
   Resonances 8 (TE011) and 7 (TM111): a degenerate pair split by 20.43 MHz; the higher Q is taken as TE011.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, args, minHeight, window, dpi, geo); err != nil {
+			if err := opts.parse(cmd, args, minHeight, window, dpi, geo, walls); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -123,6 +129,7 @@ replaced only with --force.`,
 		Length:   "nominal inside length, to name the modes, e.g. 31mm",
 		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
 	})
+	walls = cmdutil.AddWallFlags(cmd)
 	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
@@ -132,7 +139,7 @@ replaced only with --force.`,
 	return cmd
 }
 
-func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags) error {
+func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
 	if err := cmdutil.RejectEmptyFlags(cmd); err != nil {
 		return err
 	}
@@ -144,6 +151,20 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window 
 		opts.Identify, opts.Ident.Nominal = true, c
 	} else if opts.Ident.FitFill {
 		return cmdutil.Usagef("--fit-fill needs the cavity's size: give --diameter (or --radius) and --length")
+	}
+	for _, name := range []string{"wall", "end-wall", "end-wall-a", "end-wall-b", "roughness", "roughness-model", "temperature", "plating", "plating-thickness", "superconducting", "residual"} {
+		if !cmd.Flags().Changed(name) {
+			continue
+		}
+		if !opts.Identify {
+			return cmdutil.Usagef("--%s needs the cavity's size: give --diameter (or --radius) and --length", name)
+		}
+		ws, err := walls.Walls()
+		if err != nil {
+			return err
+		}
+		opts.Walls = &ws
+		break
 	}
 	opts.File = args[0]
 	if cmd.Flags().Changed("min-height") {
@@ -204,6 +225,7 @@ func runResonances(opts *Options) error {
 		return fmt.Errorf("%s: %w", opts.File, err)
 	}
 	var id *measure.Identification
+	var wd *measure.WallDiagnosis
 	if opts.Identify {
 		f0 := make([]float64, 0, len(rs))
 		q0 := make([]float64, 0, len(rs))
@@ -218,6 +240,10 @@ func runResonances(opts *Options) error {
 			return fmt.Errorf("%s: %w", opts.File, err)
 		}
 		id = &got
+		wd, err = diagnose(opts, rs, id)
+		if err != nil {
+			return fmt.Errorf("%s: %w", opts.File, err)
+		}
 	}
 	files, err := renderPlots(opts, d, rs)
 	if err != nil {
@@ -230,11 +256,16 @@ func runResonances(opts *Options) error {
 	}
 	switch opts.Format {
 	case cmdutil.JSON:
-		return cmdutil.WriteJSON(opts.IO.Out, toJSON(opts.File, d, rs, id))
+		o := toJSON(opts.File, d, rs, id)
+		o.Walls = wallsJSON(wd)
+		return cmdutil.WriteJSON(opts.IO.Out, o)
 	case cmdutil.CSV:
 		return writeCSV(opts, rs, id)
 	}
 	if err := writeTable(opts, d, rs, id); err != nil {
+		return err
+	}
+	if err := writeWalls(opts, wd); err != nil {
 		return err
 	}
 	for _, f := range files {
@@ -365,6 +396,7 @@ type outJSON struct {
 	Kind       string          `json:"kind"`
 	Points     int             `json:"points"`
 	Cavity     *cavityJSON     `json:"fitted_cavity,omitempty"`
+	Walls      *wallJSON       `json:"walls,omitempty"`
 	Resonances []resonanceJSON `json:"resonances"`
 }
 
@@ -557,4 +589,96 @@ func matchTol(s measure.IdentifySettings) float64 {
 		return 0.003
 	}
 	return s.MatchTol
+}
+
+// diagnose runs measure.DiagnoseWalls on the matched, resolved resonances;
+// nil when there is none.
+func diagnose(opts *Options, rs []measure.Resonance, id *measure.Identification) (*measure.WallDiagnosis, error) {
+	var idx []int
+	var modes []cavity.Mode
+	var q0, q0e []float64
+	for i, a := range id.Assign {
+		if !a.Matched || a.Unresolved || rs[i].Problem != "" {
+			continue
+		}
+		idx = append(idx, i)
+		modes = append(modes, a.Mode)
+		q0, q0e = append(q0, rs[i].Q0), append(q0e, rs[i].Q0Err)
+	}
+	if len(idx) == 0 {
+		return nil, nil
+	}
+	d, err := measure.DiagnoseWalls(id.Cavity, idx, modes, q0, q0e, opts.Walls)
+	if err != nil {
+		return nil, err
+	}
+	return &d, nil
+}
+
+type modeWallJSON struct {
+	Index        int    `json:"index"`
+	Mode         string `json:"mode"`
+	Q0           number `json:"q0"`
+	QWall        number `json:"q_wall"`
+	IACS         number `json:"iacs_fraction"`
+	IACSErr      number `json:"iacs_fraction_err"`
+	ModelQ0      number `json:"model_q0"`
+	ModelIACS    number `json:"model_iacs_fraction"`
+	Conductivity number `json:"conductivity_s_per_m"`
+}
+
+type wallJSON struct {
+	Mean         number         `json:"mean_iacs_fraction"`
+	Spread       number         `json:"spread_iacs_fraction"`
+	TE0          number         `json:"te0_iacs_fraction"`
+	TM           number         `json:"tm_iacs_fraction"`
+	JointSuspect bool           `json:"end_plate_contact_suspect"`
+	Modes        []modeWallJSON `json:"modes"`
+}
+
+func wallsJSON(wd *measure.WallDiagnosis) *wallJSON {
+	if wd == nil {
+		return nil
+	}
+	o := &wallJSON{Mean: number(wd.Mean), Spread: number(wd.Spread), TE0: number(wd.TE0), TM: number(wd.TM), JointSuspect: wd.Joint}
+	for _, m := range wd.Modes {
+		o.Modes = append(o.Modes, modeWallJSON{Index: m.Index + 1, Mode: m.Mode.String(), Q0: number(m.Q0), QWall: number(m.QWall),
+			IACS: number(m.IACS), IACSErr: number(m.IACSErr), ModelQ0: number(m.ModelQ0), ModelIACS: number(m.ModelIACS),
+			Conductivity: number(m.IACS * physics.IACSConductivity)})
+	}
+	return o
+}
+
+func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
+	if wd == nil {
+		return nil
+	}
+	w := opts.IO.Out
+	fmt.Fprintln(w)
+	fmt.Fprintln(w, "Walls: the conductivity of a smooth uniform wall that gives each measured Q0 (fill loss removed):")
+	header := []string{"#", "mode", "Q0", "conductivity (% IACS)"}
+	if opts.Walls != nil {
+		header = append(header, "model Q0 (--wall)", "model (% IACS)")
+	}
+	t := cmdutil.NewTable(w, header...)
+	for _, m := range wd.Modes {
+		row := []string{strconv.Itoa(m.Index + 1), m.Mode.String(), pm(m.Q0, m.Q0Err, 1), pm(100*m.IACS, 100*m.IACSErr, 1)}
+		if opts.Walls != nil {
+			row = append(row, strconv.FormatFloat(m.ModelQ0, 'f', 0, 64), strconv.FormatFloat(100*m.ModelIACS, 'f', 1, 64))
+		}
+		t.Row(row...)
+	}
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	fmt.Fprintf(w, "Mean %.1f %% IACS (%.3g MS/m), spread %.1f %% IACS across %d modes", 100*wd.Mean, wd.Mean*physics.IACSConductivity/1e6, 100*wd.Spread, len(wd.Modes))
+	if !math.IsNaN(wd.TE0) && !math.IsNaN(wd.TM) {
+		fmt.Fprintf(w, "; TE0mp modes %.1f %%, TM modes %.1f %%", 100*wd.TE0, 100*wd.TM)
+	}
+	fmt.Fprintln(w, ".")
+	if wd.Joint {
+		fmt.Fprintln(w, "The TM modes, whose wall currents cross the joints between side wall and end plates, lose clearly more than the TE0mp modes, whose currents do not: suspect the end-plate contact (clean, flatten or tighten the joints).")
+	}
+	fmt.Fprintln(w, "Roughness, plating and the coupling structures' own loss all lower the effective conductivity; it is a figure of merit of the walls as built, not the metal's bulk value.")
+	return nil
 }

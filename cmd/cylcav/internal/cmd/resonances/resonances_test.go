@@ -153,3 +153,39 @@ func TestIdentifyJSON(t *testing.T) {
 		t.Errorf("modes %s, want %s", got, want)
 	}
 }
+
+// TestWallsJSON: with --wall the walls section gives each resolved mode's
+// effective conductivity, and the model's for the given metal (copper,
+// 100 % IACS in the materials table).
+func TestWallsJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--wall", "copper", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Walls struct {
+			Mean  float64 `json:"mean_iacs_fraction"`
+			Modes []struct {
+				Mode      string
+				IACS      float64 `json:"iacs_fraction"`
+				ModelIACS float64 `json:"model_iacs_fraction"`
+			}
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	// Eight resonances are matched and resolved; the loop is not a mode.
+	if len(out.Walls.Modes) != 8 || !(out.Walls.Mean > 0) {
+		t.Fatalf("walls: %+v", out.Walls)
+	}
+	for _, m := range out.Walls.Modes {
+		if math.Abs(m.ModelIACS-1) > 0.01 || !(m.IACS > 0) {
+			t.Errorf("%s: IACS %g, model %g (copper, smooth: 1)", m.Mode, m.IACS, m.ModelIACS)
+		}
+	}
+	r = clitest.Run(t, "resonances", sweep("modes.s2p"), "--wall", "copper")
+	if r.Code != 2 || !strings.Contains(r.Stderr, "--wall needs the cavity's size") {
+		t.Errorf("--wall without size: exit %d, %q", r.Code, r.Stderr)
+	}
+}
