@@ -31,26 +31,30 @@ func (o Objective) String() string {
 }
 
 // Thermal describes how a cavity's dimensions and fill change with
-// temperature, in the linear model D(T) = D0 (1 + AlphaRadial (T - TRef)),
-// L(T) = L0 (1 + AlphaAxial (T - TRef)), eps(T) = eps0 (1 + TauEps (T -
-// TRef)). The zero value is a cavity that does not change and no
-// temperature range.
+// temperature. By default the model is linear: D(T) = D0 (1 + AlphaRadial
+// (T - TRef)), L(T) = L0 (1 + AlphaAxial (T - TRef)); SizeRadial and
+// SizeAxial, when set, replace it with any measured law (for example the
+// integrated cryogenic contraction of physics.Conductor.SizeRatio). The
+// fill's permittivity follows its own temperature coefficient
+// (physics.Medium.EpsAt); Thermal describes only the metal. The zero value
+// is a cavity that does not change and no temperature range.
 type Thermal struct {
 	// AlphaRadial is the linear expansion coefficient of the side wall
-	// (it sets the diameter), 1/K.
+	// (it sets the diameter) at TRef, 1/K. The sensitivities use it.
 	AlphaRadial float64
 	// AlphaAxial is that of whatever sets the length (end spacers, the
 	// tuning rod), 1/K.
 	AlphaAxial float64
-	// TauEps is the fill's temperature coefficient of permittivity
-	// (1/eps) d eps/dT, 1/K.
-	TauEps float64
 	// TMin and TMax bound the operating temperature range in K; both zero
 	// means no range (only the sensitivities use the coefficients).
 	TMin, TMax float64
 	// TRef is the temperature at which the design frequency holds, K; zero
 	// means the middle of TMin..TMax.
 	TRef float64
+	// SizeRadial and SizeAxial, when not nil, return D(T)/D(TRef) and
+	// L(T)/L(TRef) over TMin..TMax, in place of the linear model. They
+	// must return 1 at TRef.
+	SizeRadial, SizeAxial func(T float64) float64
 }
 
 // hasRange reports whether a temperature range is set.
@@ -64,14 +68,27 @@ func (t Thermal) ref() float64 {
 	return 0.5 * (t.TMin + t.TMax)
 }
 
+// sizes returns D(T)/D(TRef) and L(T)/L(TRef).
+func (t Thermal) sizes(T float64) (radial, axial float64) {
+	dT := T - t.ref()
+	radial, axial = 1+t.AlphaRadial*dT, 1+t.AlphaAxial*dT // linear model
+	if t.SizeRadial != nil {
+		radial = t.SizeRadial(T)
+	}
+	if t.SizeAxial != nil {
+		axial = t.SizeAxial(T)
+	}
+	return radial, axial
+}
+
 // Validate reports whether the coefficients are finite and within +-1e-3
 // 1/K, and the range, if any, is ordered within 1..3000 K with a positive
-// reference temperature and every 1 + alpha dT > 0.
+// reference temperature and every size factor finite and > 0 at both ends.
 func (t Thermal) Validate() error {
 	for _, q := range []struct {
 		name string
 		v    float64
-	}{{"radial expansion coefficient", t.AlphaRadial}, {"axial expansion coefficient", t.AlphaAxial}, {"temperature coefficient of eps", t.TauEps}} {
+	}{{"radial expansion coefficient", t.AlphaRadial}, {"axial expansion coefficient", t.AlphaAxial}} {
 		if !(math.Abs(q.v) <= 1e-3) {
 			return fmt.Errorf("cavity: %s must be within +-1e-3 1/K, got %g 1/K", q.name, q.v)
 		}
@@ -87,19 +104,37 @@ func (t Thermal) Validate() error {
 	}
 	for _, T := range []float64{t.TMin, t.TMax} {
 		dT := T - t.ref()
-		if 1+t.AlphaRadial*dT <= 0 || 1+t.AlphaAxial*dT <= 0 || 1+t.TauEps*dT <= 0 {
-			return fmt.Errorf("cavity: the linear thermal model breaks down %g K away from the reference temperature", dT)
+		r, a := t.sizes(T)
+		if !(r > 0 && a > 0) || math.IsInf(r, 0) || math.IsInf(a, 0) {
+			return fmt.Errorf("cavity: the thermal model breaks down %g K away from the reference temperature", dT)
 		}
 	}
 	return nil
 }
 
-// ratioScale returns the factor kappa(T) = (1 + alpha_r dT)/(1 + alpha_z dT)
-// by which D/L changes from the reference temperature to T (derived from
-// the linear model).
+// checkFillDrift reports whether the fill's permittivity stays positive and
+// its linear temperature model within +-1e-3 1/K over th's range.
+func checkFillDrift(fill physics.Medium, th Thermal) error {
+	tc := fill.EpsTempCoeff()
+	if !(math.Abs(tc) <= 1e-3) {
+		return fmt.Errorf("cavity: temperature coefficient of eps must be within +-1e-3 1/K, got %g 1/K", tc)
+	}
+	if !th.hasRange() {
+		return nil
+	}
+	for _, T := range []float64{th.TMin, th.TMax} {
+		if dT := T - th.ref(); !(fill.EpsAt(dT) > 0) {
+			return fmt.Errorf("cavity: the fill's permittivity model breaks down %g K away from the reference temperature", dT)
+		}
+	}
+	return nil
+}
+
+// ratioScale returns the factor kappa(T) = (D(T)/D(TRef))/(L(T)/L(TRef))
+// by which D/L changes from the reference temperature to T (derived).
 func (t Thermal) ratioScale(T float64) float64 {
-	dT := T - t.ref()
-	return (1 + t.AlphaRadial*dT) / (1 + t.AlphaAxial*dT)
+	r, a := t.sizes(T)
+	return r / a
 }
 
 // DesignSpec is a design problem for Optimize. Zero values of optional
@@ -145,6 +180,17 @@ type DesignSpec struct {
 	CountDegenerate bool
 }
 
+// Operation returns how a design of this spec is used, for Cavity.Reach:
+// its mode, tuning, temperature range, required clearance and companion
+// rule, with no machining tolerance (Analyze adds the tolerance of its
+// settings).
+func (spec DesignSpec) Operation() Operation {
+	return Operation{
+		Mode: spec.Mode, Tuning: spec.Tuning, Thermal: spec.Thermal,
+		MinClearance: spec.MinClearance, CountDegenerate: spec.CountDegenerate,
+	}
+}
+
 // Default and limiting ratio ranges of Optimize.
 const (
 	DefaultRatioMin = 0.5
@@ -178,9 +224,13 @@ type Design struct {
 	// Clearance is the spectrum at the nominal dimensions: clearance,
 	// nearest modes, companion.
 	Clearance Clearance
-	// WorstClearance is the clearance at the worst point of the tuning
-	// and temperature path (equal to Clearance.Value without either), and
-	// WorstMode the mode that sets it.
+	// Reach is the reachable set of the design over its tuning and
+	// temperature range with its worst-case clearance and offending modes:
+	// Cavity.Reach of spec.Operation(). Analysis.Reach adds the machining
+	// tolerance.
+	Reach Reach
+	// WorstClearance is Reach.Worst (equal to Clearance.Value without
+	// tuning or temperature range), and WorstMode the mode that sets it.
 	WorstClearance float64
 	WorstMode      Mode
 
@@ -371,14 +421,10 @@ func Optimize(spec DesignSpec) (Design, error) {
 	if err != nil {
 		return Design{}, err
 	}
-	v, k := envW.at(s, nil)
-	d.WorstClearance, d.WorstMode = v, d.Clearance.Limiting
-	if k >= 0 {
-		d.WorstMode = envW.modes[k].mode
+	if d.Reach, err = d.Cavity.Reach(spec.Operation()); err != nil {
+		return Design{}, err
 	}
-	if p.path.identity() {
-		d.WorstClearance, d.WorstMode = d.Clearance.Value, d.Clearance.Limiting
-	}
+	d.WorstClearance, d.WorstMode = d.Reach.Worst, d.Reach.WorstMode
 	d.Q0 = math.NaN()
 	if spec.Q != nil {
 		if d.Q0, err = spec.Q(d.Cavity); err != nil {
@@ -430,10 +476,15 @@ func newProblem(spec DesignSpec) (*problem, error) {
 	if !(spec.Tuning >= 0 && spec.Tuning <= MaxTuning) {
 		return nil, fmt.Errorf("cavity: tuning range must be in 0..%g (a fraction; 0.02 is +-2 %%), got %g", MaxTuning, spec.Tuning)
 	}
-	if spec.Tuning > 0 && spec.Mode.P == 0 {
-		return nil, fmt.Errorf("cavity: %s has p = 0, so its frequency does not depend on the length and an end plate cannot tune it; choose a mode with p >= 1 or drop the tuning range", spec.Mode)
+	if spec.Tuning > 0 {
+		if err := spec.Mode.EndPlateTuning(); err != nil {
+			return nil, err
+		}
 	}
 	if err := spec.Thermal.Validate(); err != nil {
+		return nil, err
+	}
+	if err := checkFillDrift(spec.Fill, spec.Thermal); err != nil {
 		return nil, err
 	}
 	p := &problem{spec: spec, w: newChartMode(spec.Mode)}
@@ -511,8 +562,8 @@ func (p *problem) allowed() (interval, error) {
 		switch {
 		case K <= w.gx:
 			return interval{}, &InfeasibleError{
-				Need:       fmt.Sprintf("diameter <= %.6g m", spec.MaxDiameter),
-				Achievable: fmt.Sprintf("%s at %.6g Hz needs a diameter above %.6g m (its cutoff diameter) at any D/L", spec.Mode, spec.Frequency, math.Sqrt(w.gx)/p.kf),
+				Need:       "diameter <= " + shortLength(spec.MaxDiameter),
+				Achievable: fmt.Sprintf("%s at %s needs a diameter above %s (its cutoff diameter) at any D/L", spec.Mode, shortFrequency(spec.Frequency), shortLength(math.Sqrt(w.gx)/p.kf)),
 				Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
 			}
 		case w.gp > 0:
@@ -534,8 +585,8 @@ func (p *problem) allowed() (interval, error) {
 		}
 		if iv.hi < iv.lo || a >= 0 && b < 0 {
 			return interval{}, &InfeasibleError{
-				Need:       fmt.Sprintf("length <= %.6g m", spec.MaxLength),
-				Achievable: fmt.Sprintf("%s at %.6g Hz needs more length than that over %s%s", spec.Mode, spec.Frequency, rangeText, tuningText(spec.Tuning)),
+				Need:       "length <= " + shortLength(spec.MaxLength),
+				Achievable: fmt.Sprintf("%s at %s needs more length than that over %s%s", spec.Mode, shortFrequency(spec.Frequency), rangeText, tuningText(spec.Tuning)),
 				Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
 			}
 		}

@@ -71,3 +71,34 @@ func BenchmarkResponse1e4Mixed(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkCheck12x4 times the specification check of that filter with
+// losses and two rejection regions (each searched from F to the end of the
+// band of interest with exact minima), and the order selection for it.
+func BenchmarkCheck12x4(b *testing.B) {
+	s := benchSpec
+	s.Rejections = []Rejection{{F: 10.13e9, Attenuation: 60}, {F: 9.87e9, Attenuation: 60}}
+	d, err := Synthesize(s)
+	if err != nil {
+		b.Fatal(err)
+	}
+	q0 := make([]float64, 12)
+	for i := range q0 {
+		q0[i] = 8000
+	}
+	b.Run("check", func(b *testing.B) {
+		for b.Loop() {
+			if _, err := d.Check(q0, nil); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+	s.Order = 0
+	b.Run("minorder", func(b *testing.B) {
+		for b.Loop() {
+			if _, err := s.MinOrder(); err != nil {
+				b.Fatal(err)
+			}
+		}
+	})
+}

@@ -15,9 +15,13 @@
 //     Butterworth response), the order or the stopband rejections it must
 //     meet, and the finite transmission zeros in the normalised lowpass
 //     frequency Omega = (f0/bw)(f/f0 - f0/f) (LowpassOmega).
-//  2. Order (Spec.MinOrder, ButterworthOrder, ChebyshevOrder): the closed
-//     forms of Matthaei, Young & Jones sec. 4.03 for all-pole responses,
-//     the generalised Chebyshev attenuation with zeros.
+//  2. Mask and order (Spec.Mask, Spec.MinOrder, ButterworthOrder,
+//     ChebyshevOrder): the one mask of pass and fail, each rejection a
+//     region from its frequency outwards to the end of the band of
+//     interest f0 (1 -+ ModelOffset); the order meets every region, its
+//     least attenuation located exactly (lobes between and beyond the
+//     zeros); the closed forms of Matthaei, Young & Jones sec. 4.03 for
+//     all-pole responses.
 //  3. All-pole prototypes (ButterworthG, ChebyshevG): the element values of
 //     MYJ sec. 4.05; the direct-coupled bandpass values
 //     k_{i,i+1} = FBW/sqrt(g_i g_{i+1}), Qext = g_0 g_1/FBW and
@@ -35,11 +39,14 @@
 //     transversal matrix to the folded pattern (InFoldedPattern), which
 //     maps onto a two-row cavity layout with cross couplings between facing
 //     cavities (CKM sec. 8.3).
-//  7. Analysis (Response, Design.Check, CohnLoss): S11, S21, S22, group
-//     delay with per-resonator unloaded Q, the specification pass/fail
-//     table, and Cohn's midband loss estimate; SweepRange and Sweep choose
-//     the frequencies, WriteTouchstone exports the response. Package
-//     filterplot draws it; this package imports no plotting.
+//  7. Analysis (Response, Design.Check, Overall, Design.Delay, DelayLoss,
+//     CohnLoss): S11, S21, S22, group delay with per-resonator unloaded Q,
+//     the specification pass/fail table (the cavities' spurious resonances
+//     and the model's range included), the group delay at f0 and across
+//     the passband, and the first-order midband loss estimates from the
+//     group delay and by Cohn; SweepRange and Sweep choose the frequencies,
+//     WriteTouchstone exports the response. Package filterplot draws it
+//     with the regions of Design.Mask; this package imports no plotting.
 //  8. Physical realisation (Realise): one cavity per resonator for the
 //     chosen mode, sized at the resonator's own frequency (the diagonal
 //     M_ii detunes it to the bandpass image of Omega = -M_ii), its Q0 from
@@ -113,6 +120,8 @@
 //     sec. 8.3 reduction to the folded form).
 //   - S. B. Cohn, "Direct-coupled-resonator filters", Proc. IRE 45 (1957)
 //     187-196.
+//   - R. P. Brent, Algorithms for Minimization without Derivatives,
+//     Prentice-Hall 1973, ch. 5 (golden-section search on a bracket).
 //   - S. B. Cohn, "Dissipation loss in multiple-coupled-resonator filters",
 //     Proc. IRE 47 (1959) 1342-1348.
 //   - O. Aberth, "Iteration methods for finding all zeros of a polynomial

@@ -193,12 +193,12 @@ func TestCohnLoss(t *testing.T) {
 
 func TestCheck(t *testing.T) {
 	sp := Spec{F0: tf0, BW: tbw, Order: 6, ReturnLoss: 22, Zeros: []float64{1.3, -1.7},
-		Rejections: []Rejection{{F: BandpassFrequency(1.3, tf0, tbw), Attenuation: 60}, {F: BandpassFrequency(-3, tf0, tbw), Attenuation: 200}}}
+		Rejections: []Rejection{{F: BandpassFrequency(1.3, tf0, tbw), Attenuation: 25}, {F: BandpassFrequency(-3, tf0, tbw), Attenuation: 200}}}
 	d, err := Synthesize(sp)
 	if err != nil {
 		t.Fatal(err)
 	}
-	cs, err := d.Check(nil)
+	cs, err := d.Check(nil, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -206,31 +206,44 @@ func TestCheck(t *testing.T) {
 		t.Fatalf("Check rows: %+v", cs)
 	}
 	// Lossless: return loss and ripple met exactly (the minimum return
-	// loss is the spec value at the ripple peaks), the rejection at the
-	// zero is met, 200 dB at Omega = -3 is not.
+	// loss is the spec value at the ripple peaks), the 25 dB rejection
+	// from the zero outwards is met (the lobe beyond it stays above), 200 dB
+	// from Omega = -3 outwards is not: beyond the outermost zero the
+	// attenuation grows outwards, so its minimum is at Omega = -3.
 	if !cs[0].Pass || !close(cs[0].Achieved, 22, 1e-9) || !cs[1].Pass || !close(cs[1].Achieved, RippleFromReturnLoss(22), 1e-9) {
 		t.Errorf("lossless passband checks: %+v, %+v", cs[0], cs[1])
 	}
-	if !cs[2].Pass || cs[3].Pass || cs[3].Required != 200 || cs[3].F != sp.Rejections[1].F {
+	if !cs[2].Pass || cs[3].Pass || cs[3].Verdict != NotMet || cs[3].Required != 200 || cs[3].F != sp.Rejections[1].F {
 		t.Errorf("rejection checks: %+v, %+v", cs[2], cs[3])
 	}
 	want, _ := ChebyshevAttenuation(6, RippleFromReturnLoss(22), sp.Zeros, -3)
 	if !close(cs[3].Achieved, want, 1e-9) {
-		t.Errorf("rejection at Omega -3 = %v dB, want %v dB (ChebyshevAttenuation)", cs[3].Achieved, want)
+		t.Errorf("rejection from Omega -3 = %v dB, want %v dB (ChebyshevAttenuation at -3)", cs[3].Achieved, want)
 	}
-	// With loss the insertion loss varies more across the band.
+	if Overall(cs) != NotMet {
+		t.Errorf("Overall = %v, want fail", Overall(cs))
+	}
+	// With loss the ripple requirement still reads the design (lossless)
+	// and passes; the wider spread of the lossy insertion loss is its own
+	// information line, and so is the lossy return loss.
 	q := []float64{2000, 2000, 2000, 2000, 2000, 2000}
-	cl, err := d.Check(q)
+	cl, err := d.Check(q, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if cl[1].Pass || cl[1].Achieved <= cs[1].Achieved {
-		t.Errorf("lossy ripple check %+v, want a failing larger spread than %v", cl[1], cs[1].Achieved)
+	if len(cl) != 6 || !cl[1].Pass || cl[1].Achieved != cs[1].Achieved {
+		t.Fatalf("lossy ripple check %+v, want the lossless %v passing", cl[1], cs[1].Achieved)
 	}
-	// Butterworth: 3.01 dB at the band edges.
+	if r := cl[3]; r.Name != "passband rounding with losses" || !r.Info || !math.IsNaN(r.Required) || r.Achieved <= cs[1].Achieved {
+		t.Errorf("rounding line %+v, want an Info line above the lossless ripple %v", r, cs[1].Achieved)
+	}
+	if r := cl[2]; r.Name != "return loss with losses" || !r.Info {
+		t.Errorf("lossy return-loss line %+v", r)
+	}
+	// Butterworth: 3.01 dB at the band edges, for information.
 	b, _ := Synthesize(Spec{F0: tf0, BW: tbw, Order: 5, Family: Butterworth})
-	cb, _ := b.Check(nil)
-	if !cb[0].Pass || !close(cb[0].Achieved, 10*math.Log10(2), 1e-9) || !cb[1].Pass {
+	cb, _ := b.Check(nil, nil)
+	if !cb[0].Pass || !close(cb[0].Achieved, 10*math.Log10(2), 1e-9) || !cb[1].Pass || !cb[0].Info || !cb[1].Info {
 		t.Errorf("Butterworth checks %+v", cb)
 	}
 }

@@ -3,6 +3,8 @@ package filter
 import (
 	"fmt"
 	"math"
+
+	"cylcav/physics"
 )
 
 // Family selects the lowpass prototype response.
@@ -160,14 +162,20 @@ func (s Spec) attenuation(n int, omega float64) (float64, error) {
 	return ChebyshevAttenuation(n, s.Ripple, s.Zeros, omega)
 }
 
-// MinOrder returns the smallest order that meets every rejection
-// requirement of s with the lossless prototype response, by evaluating the
-// prototype attenuation (ButterworthAttenuation, or ChebyshevAttenuation
-// with the spec's zeros) at each rejection frequency for
-// N = max(1, len(Zeros)), ..., MaxOrder. Without zeros the result equals
-// the closed forms ButterworthOrder and ChebyshevOrder. The spec's Order
-// field is ignored. It is an error if s is invalid, has no rejection
-// requirement, or needs an order above MaxOrder.
+// MinOrder returns the smallest order whose lossless prototype meets every
+// rejection requirement of s over its whole region of the mask (Spec.Mask):
+// from the rejection frequency outwards to the end of the band of interest,
+// lobes between and beyond the transmission zeros included. For each
+// N = max(1, len(Zeros)), ..., MaxOrder the least prototype attenuation
+// (ButterworthAttenuation, or ChebyshevAttenuation with the spec's zeros)
+// on each region is located exactly (bandMinimum: bracketing on samples,
+// then golden-section refinement) and compared with the requirement.
+// Without zeros the attenuation grows outwards, so the result equals the
+// closed forms ButterworthOrder and ChebyshevOrder at the rejection
+// frequency. Rejections outside the model range (MaskRegion.OutsideModel)
+// cannot be predicted and do not choose the order. The spec's Order field
+// is ignored. It is an error if s is invalid, has no rejection requirement
+// inside the model range, or needs an order above MaxOrder.
 func (s Spec) MinOrder() (int, error) {
 	s.Order = 0
 	ns, err := s.normalized()
@@ -179,15 +187,27 @@ func (s Spec) MinOrder() (int, error) {
 
 // minOrder is MinOrder for a normalised spec.
 func (ns Spec) minOrder() (int, error) {
+	m := ns.mask()
+	var regions []MaskRegion
+	for _, g := range m.Regions {
+		if !g.OutsideModel {
+			regions = append(regions, g)
+		}
+	}
+	if len(regions) == 0 {
+		lo, hi := ModelRange(ns.F0)
+		return 0, fmt.Errorf("filter: every rejection lies outside %s..%s (f0 -+ %g %%), where the coupling-matrix model does not hold, so none can choose the order; give the order",
+			physics.FormatFrequency(lo, 6), physics.FormatFrequency(hi, 6), 100*ModelOffset)
+	}
 	lo := max(1, len(ns.Zeros))
 	for n := lo; n <= MaxOrder; n++ {
 		ok := true
-		for _, r := range ns.Rejections {
-			a, err := ns.attenuation(n, LowpassOmega(r.F, ns.F0, ns.BW))
+		for _, g := range regions {
+			a, err := ns.regionMinimum(n, g)
 			if err != nil {
 				return 0, err
 			}
-			if a < r.Attenuation-checkTol {
+			if a < g.Attenuation-checkTol {
 				ok = false
 				break
 			}
@@ -197,4 +217,19 @@ func (ns Spec) minOrder() (int, error) {
 		}
 	}
 	return 0, fmt.Errorf("filter: the rejection requirements need an order above the maximum %d", MaxOrder)
+}
+
+// regionMinimum is the least lossless prototype attenuation (dB) of order n
+// on mask region g.
+func (ns Spec) regionMinimum(n int, g MaskRegion) (float64, error) {
+	var err error
+	att := func(w float64) float64 {
+		a, e := ns.attenuation(n, w)
+		if e != nil && err == nil {
+			err = e
+		}
+		return a
+	}
+	_, a := bandMinimum(att, LowpassOmega(g.Low, ns.F0, ns.BW), LowpassOmega(g.High, ns.F0, ns.BW), ns.Zeros)
+	return a, err
 }

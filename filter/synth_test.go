@@ -481,7 +481,7 @@ func TestMinOrderWithZeros(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		cs, err := d.Check(nil)
+		cs, err := d.Check(nil, nil)
 		if err != nil {
 			t.Fatal(err)
 		}

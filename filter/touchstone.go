@@ -31,8 +31,12 @@ var conventionLines = []string{
 // that a zero of S21 (a transmission zero hit exactly) is written exactly.
 //
 // The frequencies must be strictly ascending and every value finite;
-// comment lines must not contain line breaks. Numbers are written with 12
-// significant digits.
+// comment lines must not contain line breaks. Each frequency is written in
+// the shortest form that reads back as exactly the same float64 (at most 17
+// significant digits, strconv's round-trip formatting), so that the data
+// belong to the frequency as printed: a narrow filter's response changes
+// by many parts in 1e12 between two frequencies 1e-12 apart. The
+// S-parameters are written with 12 significant digits.
 func WriteTouchstone(w io.Writer, pts []Point, comments []string) error {
 	d := &touchstone.Data{
 		Ports:    2,

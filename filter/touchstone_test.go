@@ -161,3 +161,51 @@ func TestTouchstoneErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestTouchstoneFrequencyDigits: every frequency reads back as exactly the
+// float64 written, and the response recomputed at the frequency as read
+// equals the data to the 12 digits written. The filter is 50 kHz wide at
+// 10 GHz (FBW 5e-6), where Omega = (f0/bw)(f/f0 - f0/f) amplifies a
+// relative frequency error by 2 f0/bw = 4e5: a frequency printed with 12
+// digits (rounding up to 5e-12 relative) moves Omega by up to 2e-6 and the
+// steep skirt's S21 by far more than 12 digits allow.
+func TestTouchstoneFrequencyDigits(t *testing.T) {
+	const f0, bw = 10e9, 50e3
+	d, err := Synthesize(Spec{F0: f0, BW: bw, Order: 8, ReturnLoss: 26})
+	if err != nil {
+		t.Fatal(err)
+	}
+	lo, hi := BandpassFrequency(-3, f0, bw), BandpassFrequency(3, f0, bw)
+	fs, err := Sweep(lo, hi, 1001)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pts, err := d.Response(fs, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var buf bytes.Buffer
+	if err := WriteTouchstone(&buf, pts, nil); err != nil {
+		t.Fatal(err)
+	}
+	ts, err := readTouchstone(&buf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	again, err := d.Response(ts.freq, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// dataTol: 12 significant digits written for |S| <= 1.
+	const dataTol = 1e-11
+	bad := 0
+	for i, p := range again {
+		if ts.freq[i] != fs[i] {
+			t.Errorf("point %d: frequency read back %v Hz, written %v Hz", i, ts.freq[i], fs[i])
+		}
+		if e := cmplx.Abs(ts.s[i][1] - p.S21); e > dataTol && bad < 5 {
+			bad++
+			t.Errorf("point %d at %v Hz: S21 in the file %v, at the frequency as read %v (|diff| %.3g)", i, ts.freq[i], ts.s[i][1], p.S21, e)
+		}
+	}
+}

@@ -46,9 +46,11 @@ type PlotOptions struct {
 	Notes []string
 }
 
-// RejectionMask is the drawn form of one rejection requirement: |S21| must
-// stay at or below Level dB from F outwards to Edge (Edge > F above the
-// band, Edge < F below it), as Realise reads a spot rejection.
+// RejectionMask is the drawn form of one region of the specification mask
+// (Spec.Mask): |S21| must stay at or below Level dB from F outwards to Edge
+// (Edge > F above the band, Edge < F below it), the end of the region's
+// band of interest or of the plot, whichever is nearer; Edge = F for a
+// rejection outside the model range, which is not checked.
 type RejectionMask struct {
 	F     float64 // Hz, the stated frequency
 	Edge  float64 // Hz, the edge of the plot on the same side of the band
@@ -162,17 +164,19 @@ func NewResponsePlot(d *filter.Design, opts PlotOptions) (*ResponsePlot, error) 
 			maxDelay = math.Max(maxDelay, p.GroupDelay)
 		}
 	}
-	if s.Family == filter.Chebyshev {
-		rp.ReturnLoss = s.ReturnLoss
-	}
+	mask := d.Mask() // the specification mask that Check and MinOrder use
+	rp.ReturnLoss = mask.ReturnLoss
 	deepest := rp.ReturnLoss
-	for _, r := range s.Rejections {
-		edge := hi
-		if r.F < s.F0 {
-			edge = lo
+	for _, g := range mask.Regions {
+		edge := math.Min(g.High, hi)
+		if !g.Above {
+			edge = math.Max(g.Low, lo)
 		}
-		rp.Rejections = append(rp.Rejections, RejectionMask{F: r.F, Edge: edge, Level: -r.Attenuation})
-		deepest = math.Max(deepest, r.Attenuation)
+		if g.OutsideModel {
+			edge = g.F // not checkable: the marker only
+		}
+		rp.Rejections = append(rp.Rejections, RejectionMask{F: g.F, Edge: edge, Level: -g.Attenuation})
+		deepest = math.Max(deepest, g.Attenuation)
 	}
 	floor := math.Max(dbFloorMin, deepest+dbFloorExtra)
 	rp.DBMin = -10 * math.Ceil(floor/10)

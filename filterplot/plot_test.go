@@ -305,3 +305,21 @@ func BenchmarkResponsePlotSVG(b *testing.B) {
 		}
 	}
 }
+
+// TestResponsePlotDrawsMask: the plot draws the regions of the library's
+// mask (Design.Mask), clipped to the plot: a region ends at the end of the
+// band of interest when that lies inside the plot, and a rejection beyond
+// the model range gets its marker only.
+func TestResponsePlotDrawsMask(t *testing.T) {
+	d := plotDesign(t)
+	d.Spec.Rejections = []filter.Rejection{{F: 10.25e9, Attenuation: 40}, {F: 12.5e9, Attenuation: 50}}
+	rp, err := NewResponsePlot(d, PlotOptions{Lo: 9e9, Hi: 13e9, Points: 101})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := d.Mask()
+	want := []RejectionMask{{F: 10.25e9, Edge: m.Regions[0].High, Level: -40}, {F: 12.5e9, Edge: 12.5e9, Level: -50}}
+	if !slices.Equal(rp.Rejections, want) || m.Regions[0].High != 12e9 {
+		t.Errorf("Rejections = %+v, want %+v (mask %+v)", rp.Rejections, want, m.Regions)
+	}
+}

@@ -13,8 +13,11 @@ import (
 // per frequency with the frequency in hertz and the S-parameters as real
 // and imaginary parts (for two ports in the order N11 N21 N12 N22 of
 // version 1.1). RI is used rather than dB/angle so that a zero (a
-// transmission zero hit exactly) is written exactly. Numbers are written
-// with 12 significant digits.
+// transmission zero hit exactly) is written exactly. Each frequency is
+// written in the shortest form that reads back as exactly the same float64
+// (strconv's round-trip formatting), so that the data belong to the
+// frequency as printed; the S-parameters are written with 12 significant
+// digits.
 //
 // d must pass Validate, every port must have the same reference impedance
 // (version 1.1 has one), and comments must not contain line breaks.
@@ -43,7 +46,7 @@ func Write(w io.Writer, d *Data) error {
 	}
 	num := func(x float64) string { return strconv.FormatFloat(x, 'e', 11, 64) }
 	for k, f := range d.Freq {
-		bw.WriteString(num(f))
+		bw.WriteString(strconv.FormatFloat(f, 'e', -1, 64)) // exact round trip
 		for _, idx := range order {
 			s := d.S[idx][k]
 			bw.WriteByte(' ')

@@ -27,10 +27,17 @@ func TestBadInputMain(t *testing.T) {
 		{Args: with("--min-clearance", "500%"), Code: 2, Want: []string{`--min-clearance "500%"`, "between 0% and 100%"}},
 		{Args: with("--min-clearance", ""), Code: 2, Want: []string{`--min-clearance ""`, "empty"}},
 		{Args: with("--tuning", ""), Code: 2, Want: []string{`--tuning ""`, "empty"}},
+		{Args: with("--tolerance", "5mm", "--samples", "10"), Code: 2, Want: []string{"--tolerance 5.000 mm", "a tenth of the designed dimension"}},
 		{Args: with("--tuning", "-1%"), Code: 2, Want: []string{`--tuning "-1%"`, "between 0% and 50%"}},
 		{Args: with("--temp", "-300C:20C"), Code: 2, Want: []string{`--temp "-300C:20C"`, "below absolute zero"}},
 		{Args: with("--temp", "60C:-20C"), Code: 2, Want: []string{`--temp "60C:-20C"`, "above high end"}},
 		{Args: with("--temp", ""), Code: 2, Want: []string{`--temp ""`, "LO:HI"}},
+		{Args: with("--operating-temp", ""), Code: 2, Want: []string{`--operating-temp ""`, "empty"}},
+		{Args: with("--operating-temp", "20"), Code: 2, Want: []string{`--operating-temp "20"`, "ambiguous"}},
+		{Args: with("--operating-temp", "-300C"), Code: 2, Want: []string{`--operating-temp "-300C"`, "below absolute zero"}},
+		{Args: with("--machining-temp", "5000K"), Code: 2, Want: []string{`--machining-temp "5000K"`, "between 1 K and 3000 K"}},
+		{Args: with("--wall", "copper", "--machining-temp", "300C"), Code: 2, Want: []string{"--machining-temp", "up to 200.0 C"}},
+		{Args: with("--wall", "brass", "--operating-temp", "77K"), Code: 2, Want: []string{"--operating-temp", "-50.00 C to 200.0 C"}},
 		{Args: with("--wall", ""), Code: 2, Want: []string{`--wall ""`, "empty"}},
 		{Args: with("--wall", "unobtainium"), Code: 2, Want: []string{`--wall "unobtainium"`, "available"}},
 		{Args: with("--wall", "copper", "--min-q", "1abc"), Code: 2, Want: []string{`--min-q "1abc"`, `unexpected "abc"`}},
@@ -46,7 +53,7 @@ func TestBadInputMain(t *testing.T) {
 		// Impossible requests: status 1 and what was achievable
 		// (7.364 % at D/L = 1.388: testdata/cavity/gen_optimum.py).
 		{Args: with("--min-clearance", "50%"), Code: 1, Want: []string{"best clearance", "7.364 %"}},
-		{Args: with("--max-diameter", "10mm"), Code: 1, Want: []string{"cutoff diameter"}},
+		{Args: with("--max-diameter", "10mm"), Code: 2, Want: []string{`--max-diameter "10mm"`, "cut off", "must exceed 36.5648 mm"}},
 		{Args: with("--tuning", "45%"), Code: 1, Want: []string{"tuning", "D/L >="}},
 		// Beyond the reach of the mode chart (cavity.MaxChartModes).
 		{Args: []string{"--mode", "TE(50,50,50)", "--freq", "10GHz"}, Code: 1, Want: []string{"lower-order mode"}},

@@ -68,7 +68,7 @@ func TestDesignJSON(t *testing.T) {
 // JSON "limit" (here --min-clearance, which --objective q keeps at 5 %).
 func TestDesignLimit(t *testing.T) {
 	r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--objective", "q",
-		"--min-clearance", "5%", "--samples", "100", "--format", "json")
+		"--min-clearance", "5%", "--format", "json")
 	if r.Code != 0 {
 		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}
@@ -109,5 +109,21 @@ func TestDesignErrors(t *testing.T) {
 		if r.Code != tc.status || !strings.Contains(r.Stderr, tc.want) {
 			t.Errorf("design %v: status %d, stderr %q; want status %d mentioning %q", tc.args, r.Code, r.Stderr, tc.status, tc.want)
 		}
+	}
+}
+
+// TestDesignValidity checks that design prints the library's validity
+// warnings (qfactor.Validity, tested against independent routes there)
+// among its cautions: walls of a magnetic metal given by values.
+func TestDesignValidity(t *testing.T) {
+	r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "sigma=1e7,mur=50")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+	if !strings.Contains(r.Stdout, "  - The wall metal given by its values has mu_r = 50: its microwave permeability is uncertain") {
+		t.Errorf("design output lacks the permeability caution:\n%s", r.Stdout)
+	}
+	if r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper"); strings.Contains(r.Stdout, "mu_r") {
+		t.Errorf("copper design mentions mu_r:\n%s", r.Stdout)
 	}
 }

@@ -114,15 +114,29 @@ specification to the numbers a designer builds it from:
      couplings k = FBW*M and external Q of the end resonators;
   4. with --mode/--wall/--fill/--ratio: one closed cylindrical cavity per
      resonator at its own frequency, its unloaded Q0, the cavity's spurious
-     modes near the band (warned when in a rejection band), and, with
-     --holes, the coupling holes by Bethe's small-aperture theory;
+     modes near the band, and, with --holes, the coupling holes by Bethe's
+     small-aperture theory;
   5. the response with the cavities' Q0 (or --q0): midband insertion loss
-     against Cohn's estimate, and the pass/fail table of the specification.
+     with the first-order estimates (from the group delay at f0, and Cohn's
+     for all-pole designs), the group delay, and the pass/fail table of the
+     specification.
 
 The passband runs from f1 to f2 with f2 - f1 = bw and f1*f2 = f0^2. A
-rejection "40dB@10.3GHz" asks for 40 dB from 10.3 GHz outwards. Transmission
-zeros are given in Hz and mapped to Omega = (f0/bw)(f/f0 - f0/f); at most N
-(N-1 with a plain folded network, N adds a source-load coupling).
+rejection "40dB@10.3GHz" asks for 40 dB at every frequency from 10.3 GHz
+outwards to the end of the band of interest, f0 -+ 20 %: the order and the
+check find the least attenuation there exactly, lobes between and beyond the
+transmission zeros included. A spurious resonance of the cavities inside a
+rejection band fails that rejection. Beyond f0 -+ 20 %, or beyond the
+cavities' first spurious resonance, the coupling-matrix model does not hold:
+such a rejection is reported as not checked. The --return-loss (or --ripple)
+requirement is checked on the designed (lossless) response; the effect of
+the losses (lossy return loss, rounding of the band edges) is shown apart.
+Transmission zeros are given in Hz and mapped to
+Omega = (f0/bw)(f/f0 - f0/f); at most N (N-1 with a plain folded network, N
+adds a source-load coupling).
+
+The coupling-matrix model is a narrowband model: a bandwidth above 10 % of
+f0 is refused (exit status 2).
 
 Without --mode, --wall, --fill, --ratio and --holes no cavities are sized and
 the response is lossless unless --q0 gives an unloaded Q. With only --wall
@@ -190,6 +204,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.IntVar(&opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints))
 	f.IntVar(&opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch")
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
+	cmdutil.Needs(cmd, "points", "touchstone")
+	cmdutil.Needs(cmd, "dpi", "plot")
+	cmdutil.Needs(cmd, "force", "touchstone", "plot")
+	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
 		if err := cmdutil.RejectEmptyFlags(c); err != nil {
@@ -223,6 +241,10 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	bw, err := parseBandwidth(bwS, f0)
 	if err != nil {
 		return err
+	}
+	if bandpass.ModelFBWError(f0, bw) != nil {
+		return cmdutil.FlagError("bw", bwS, fmt.Errorf("a fractional bandwidth of %.4g %% is above %g %% of f0, where the narrowband coupling-matrix model (frequency-invariant couplings) stops holding; a wider filter needs couplings modelled with their frequency dependence",
+			100*bw/f0, 100*bandpass.MaxModelFBW))
 	}
 	s.BW = bw
 	f1, f2 := bandpass.BandpassFrequency(-1, f0, bw), bandpass.BandpassFrequency(1, f0, bw)
@@ -302,8 +324,16 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	return nil
 }
 
+// minFBW is the least fractional bandwidth bw/f0 that --bw accepts. Below
+// about 1e-6 the band edges f0 -+ bw/2 differ from f0 in the last few of
+// the 16 significant digits of a float64, and the lossless response
+// computed at them loses its ripple (a 3-pole design at 10 GHz with
+// bw = 10 Hz reports its own ripple as not met); 1e-5 keeps four digits in
+// hand. No cavity filter comes near it: Q0 would have to exceed 1e5 / N.
+const minFBW = 1e-5
+
 // parseBandwidth parses --bw as a frequency or as a percentage of f0 and
-// checks 0 < bw < f0.
+// checks minFBW f0 <= bw < f0.
 func parseBandwidth(v string, f0 float64) (float64, error) {
 	t := strings.TrimSpace(v)
 	var bw float64
@@ -315,12 +345,13 @@ func parseBandwidth(v string, f0 float64) (float64, error) {
 		bw = frac * f0
 	} else {
 		var err error
-		if bw, err = physics.ParseFrequency(t); err != nil {
-			return 0, cmdutil.FlagError("bw", v, err)
+		if bw, err = cmdutil.ParseFrequency("bw", t); err != nil {
+			return 0, err
 		}
 	}
-	if !(bw > 0 && bw < f0) {
-		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("the bandwidth must be > 0 and below the centre frequency --f0 %s", physics.FormatFrequency(f0, 6)))
+	if !(bw/f0 >= minFBW && bw < f0) { // bw/f0 is correctly rounded: 100 kHz at 10 GHz is exactly minFBW
+		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("must be between %s (%g %% of --f0) and the centre frequency --f0 %s",
+			cmdutil.TrimZeros(physics.FormatFrequency(minFBW*f0, 4)), minFBW*100, cmdutil.TrimZeros(physics.FormatFrequency(f0, 6))))
 	}
 	return bw, nil
 }
@@ -339,7 +370,7 @@ func parseRejection(item string, f0, bw float64, band string) (bandpass.Rejectio
 	if !(att > 0 && att <= maxAttenuation) {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("attenuation must be > 0 dB and <= %g dB", maxAttenuation))
 	}
-	f, err := physics.ParseFrequency(fr)
+	f, err := cmdutil.FrequencyOf(fr)
 	if err != nil {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, err)
 	}
@@ -383,7 +414,7 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.Wal
 	if !wallGiven {
 		for _, fl := range []string{"end-wall", "end-wall-a", "end-wall-b", "temperature", "roughness", "roughness-model", "plating", "plating-thickness", "superconducting", "residual"} {
 			if changed(fl) {
-				return cmdutil.Usagef("--%s describes the cavity walls; give --wall too (e.g. --wall copper)", fl)
+				return cmdutil.Usagef("--%s describes the cavity walls; %s", fl, wallHint(changed))
 			}
 		}
 	}
@@ -447,11 +478,22 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.Wal
 	return nil
 }
 
+// wallHint advises the --wall a wall flag needs, one that the wall flags
+// given accept: the superconducting model (--superconducting, --residual)
+// is niobium's and needs a temperature, so those flags get niobium; the
+// others a normal metal.
+func wallHint(changed func(string) bool) string {
+	if changed("superconducting") || changed("residual") {
+		return "give --wall niobium too, the only superconducting wall modelled (e.g. --wall niobium --superconducting --temperature 2K)"
+	}
+	return "give --wall too (e.g. --wall copper)"
+}
+
 // parseOutput validates --span, --points, --touchstone, --plot and --dpi.
 func (opts *Options) parseOutput(spanS string) error {
 	t := strings.TrimSpace(spanS)
 	t = strings.TrimSuffix(strings.TrimSuffix(t, "x"), "X")
-	v, err := strconv.ParseFloat(strings.TrimSpace(t), 64)
+	v, err := physics.ParseNumber(t)
 	if err != nil || !(v > 1 && v <= bandpass.MaxSpan) {
 		return cmdutil.FlagError("span", spanS, fmt.Errorf("want a number of bandwidths above 1 and at most %g, e.g. 3x", bandpass.MaxSpan))
 	}
@@ -475,5 +517,12 @@ func (opts *Options) parseOutput(spanS string) error {
 	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
 		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)
 	}
-	return nil
+	var files []cmdutil.File
+	if opts.Touchstone != "" {
+		files = append(files, cmdutil.File{Flag: "touchstone", Path: opts.Touchstone})
+	}
+	if opts.Plot != "" {
+		files = append(files, cmdutil.File{Flag: "plot", Path: opts.Plot})
+	}
+	return cmdutil.CheckFiles(opts.Force, files...)
 }

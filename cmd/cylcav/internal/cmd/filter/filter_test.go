@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"io"
 	"math"
 	"os"
@@ -243,9 +244,9 @@ func TestCohn(t *testing.T) {
 
 func TestTable(t *testing.T) {
 	out := mustRun(t, args("--mode", "TE011", "--wall", "copper")...)
-	for _, want := range []string{"Specification", "order N = 5 (the smallest that meets the rejections)", "Transmission zeros",
+	for _, want := range []string{"Specification", "order N = 5 (the smallest that meets every rejection band)", "Transmission zeros",
 		"Coupling matrix M, folded", "k1,2", "Qext in =", "insertion loss at f0", "Cavities: TE011",
-		"Spurious modes", "exact companion", "Coupling realisation", "Specification check", "rejection at 10.2500 GHz",
+		"Spurious modes", "exact companion", "Coupling realisation", "Specification check", "rejection from 10.2500 GHz",
 		"Sign convention", "n azimuthal, m radial, p axial", filtercmd.FieldSolverNote} {
 		if !strings.Contains(out, want) {
 			t.Errorf("table output lacks %q", want)
@@ -493,10 +494,11 @@ func TestForce(t *testing.T) {
 	if _, err := os.Stat(ts); err != nil {
 		t.Errorf("--force run did not write the Touchstone file: %v", err)
 	}
-	// A write that fails after the first file leaves nothing behind.
+	// A second path that cannot be written leaves nothing behind; a
+	// missing directory is bad input, refused before anything is written.
 	ts2 := filepath.Join(dir, "second.s2p")
-	if r := run(t, args("--touchstone", ts2, "--plot", filepath.Join(dir, "missing", "p.svg"))...); r.Code != 1 {
-		t.Errorf("plot into a missing directory: exit %d, want 1", r.Code)
+	if r := run(t, args("--touchstone", ts2, "--plot", filepath.Join(dir, "missing", "p.svg"))...); r.Code != 2 {
+		t.Errorf("plot into a missing directory: exit %d, want 2", r.Code)
 	}
 	if _, err := os.Stat(ts2); err == nil {
 		t.Error("the Touchstone file was left behind after the plot failed")
@@ -543,5 +545,23 @@ func BenchmarkFilterCLI(b *testing.B) {
 		if r := run(b, a...); r.Code != 0 {
 			b.Fatalf("exit %d: %s", r.Code, r.Stderr)
 		}
+	}
+}
+
+// TestValidityWarnings checks that the filter realisation prints the
+// library's validity warnings (qfactor.Validity, tested against independent
+// routes there) once per kind, naming the first cavity: a lossy fill with
+// Q_fill = 1/tan delta = 50 (Pozar sec. 6.3) and magnetic walls.
+func TestValidityWarnings(t *testing.T) {
+	v := decode(t, mustRun(t, "--f0", "10GHz", "--bw", "200MHz", "--order", "3", "--mode", "TE011",
+		"--fill", "eps=2,tand=0.02", "--wall", "sigma=1e7,mur=50", "--format", "json"))
+	ws := fmt.Sprint(v["warnings"])
+	for _, w := range []string{"cavity 1: Q0 = ", "is not much greater than 1", "cavity 1: the wall metal given by its values has mu_r = 50", "(and 2 more of the cavities)"} {
+		if !strings.Contains(ws, w) {
+			t.Errorf("warnings %s lack %q", ws, w)
+		}
+	}
+	if n := strings.Count(ws, "mu_r = 50"); n != 1 {
+		t.Errorf("warnings %s mention mu_r = 50 %d times, want once", ws, n)
 	}
 }

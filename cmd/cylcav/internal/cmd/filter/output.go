@@ -33,21 +33,67 @@ func cleanM(d *bandpass.Design, i, j int) float64 {
 }
 
 // checkName names a check for people: "return loss", "passband ripple",
-// "rejection at 10.25 GHz".
+// "rejection from 10.25 GHz" (a rejection holds from F outwards).
 func checkName(c bandpass.Check) string {
 	if c.F != 0 {
-		return c.Name + " at " + physics.FormatFrequency(c.F, 6)
+		return c.Name + " from " + physics.FormatFrequency(c.F, 6)
 	}
 	return c.Name
 }
 
-// failText states the required and achieved values of a check.
+// failText states the required and achieved values of a failed check and
+// why it fails.
 func failText(c bandpass.Check) string {
+	if c.Spurious != nil {
+		return c.Note
+	}
+	return fmt.Sprintf("achieved %s, required %s", achievedText(c), requiredText(c))
+}
+
+// requiredText prints the requirement of a check: ">= 40.00 dB", or
+// "(info)" for an information line without one.
+func requiredText(c bandpass.Check) string {
+	if math.IsNaN(c.Required) {
+		return "(info)"
+	}
 	rel := "<="
 	if c.AtLeast {
 		rel = ">="
 	}
-	return fmt.Sprintf("achieved %s dB, required %s %s dB", dbText(c.Achieved), rel, dbText(c.Required))
+	return rel + " " + dbText(c.Required) + " dB"
+}
+
+// achievedText prints the achieved value of a check, with the frequency of
+// a rejection's least attenuation: "41.28 dB at 10.2500 GHz"; "not
+// computed" for a line outside the model.
+func achievedText(c bandpass.Check) string {
+	if c.Verdict == bandpass.OutsideModel && math.IsNaN(c.Achieved) {
+		return "not computed"
+	}
+	t := dbText(c.Achieved) + " dB"
+	if c.Name == "rejection" {
+		t += " at " + physics.FormatFrequency(c.Worst, 6)
+	}
+	return t
+}
+
+// resultText is the result column of a check.
+func resultText(c bandpass.Check) string {
+	switch {
+	case c.Info:
+		return "info"
+	case c.Verdict == bandpass.NotMet:
+		return "FAIL"
+	case c.Verdict == bandpass.OutsideModel:
+		return "NOT CHECKED"
+	}
+	return "pass"
+}
+
+// verdictKey is the JSON form of a verdict: "pass", "fail" or
+// "outside_model".
+func verdictKey(v bandpass.Verdict) string {
+	return strings.ReplaceAll(v.String(), " ", "_")
 }
 
 // dbText prints a level in dB to 4 significant digits, "infinite" for
@@ -70,6 +116,11 @@ func dbDecimals(v float64) int {
 		return 3
 	}
 	return 4
+}
+
+// nsText prints a time in ns to 4 significant digits.
+func nsText(sec float64) string {
+	return strconv.FormatFloat(sec*1e9, 'g', 4, 64) + " ns"
 }
 
 // rowName names row i of an N+2 matrix: S, 1..N, L.
@@ -100,12 +151,22 @@ func (r *Result) WriteTable(w io.Writer) error {
 	case bandpass.Butterworth:
 		fmt.Fprintf(&b, "  Butterworth (maximally flat) response, 3.01 dB at the band edges\n")
 	}
-	for _, rj := range s.Rejections {
-		fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards\n", dbText(rj.Attenuation), ff(rj.F))
+	for _, g := range d.Mask().Regions {
+		side, end := "+", g.High
+		if !g.Above {
+			side, end = "-", g.Low
+		}
+		if g.OutsideModel {
+			fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards (beyond f0 %s %g %%, where the model does not hold)\n",
+				dbText(g.Attenuation), ff(g.F), side, 100*bandpass.ModelOffset)
+			continue
+		}
+		fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards to %s (f0 %s %g %%, the end of the band of interest)\n",
+			dbText(g.Attenuation), ff(g.F), ff(end), side, 100*bandpass.ModelOffset)
 	}
 	how := "given"
 	if r.OrderChosen {
-		how = "the smallest that meets the rejections"
+		how = "the smallest that meets every rejection band"
 	}
 	fmt.Fprintf(&b, "  order N = %d (%s)\n", n, how)
 
@@ -184,17 +245,22 @@ func (r *Result) WriteTable(w io.Writer) error {
 		fmt.Fprintf(&b, "  resonators tuned off f0 (M_ii != 0): %s\n", strings.Join(detuned, ", "))
 	}
 
-	fmt.Fprintf(&b, "\nLosses\n")
+	fmt.Fprintf(&b, "\nLosses and group delay\n")
 	fmt.Fprintf(&b, "  unloaded Q0: %s\n", q0Text(r.Q0, n))
-	fmt.Fprintf(&b, "  insertion loss at f0: %s dB (lossless: %s dB)\n", dbText(r.InsertionLoss), dbText(r.LosslessLoss))
-	switch {
-	case !math.IsNaN(r.Cohn):
-		fmt.Fprintf(&b, "  Cohn's estimate (Proc. IRE 1959): %s dB\n", dbText(r.Cohn))
-	case r.Lossless:
-		fmt.Fprintf(&b, "  Cohn's estimate: not applicable (lossless response)\n")
-	default:
-		fmt.Fprintf(&b, "  Cohn's estimate: not applicable (it is for all-pole designs)\n")
+	fmt.Fprintf(&b, "  insertion loss at f0: %s dB with the losses (lossless: %s dB)\n", dbText(r.InsertionLoss), dbText(r.LosslessLoss))
+	if r.Lossless {
+		fmt.Fprintf(&b, "  dissipation estimates: not applicable (lossless response)\n")
+	} else {
+		fmt.Fprintf(&b, "  estimate from the group delay: %s dB (lossless loss + 4.343*w0*tau(f0)/Q0, first order in 1/Q0)\n", dbText(r.DelayEstimate))
+		if !math.IsNaN(r.Cohn) {
+			fmt.Fprintf(&b, "  Cohn's estimate (Proc. IRE 1959): %s dB (lossless loss + 4.343*sum(g_i)/(FBW*Q0), first order in 1/Q0)\n", dbText(r.Cohn))
+		} else {
+			fmt.Fprintf(&b, "  Cohn's estimate: not applicable (all-pole designs only)\n")
+		}
 	}
+	gd := r.Delay
+	fmt.Fprintf(&b, "  group delay of S21: %s at f0; %s..%s across the passband (variation %s)\n",
+		nsText(gd.AtF0), strings.TrimSuffix(nsText(gd.Min), " ns"), nsText(gd.Max), nsText(gd.Variation()))
 
 	if rz := r.Realisation; rz != nil {
 		writeCavities(&b, r, ff)
@@ -204,31 +270,28 @@ func (r *Result) WriteTable(w io.Writer) error {
 
 	fmt.Fprintf(&b, "\nSpecification check\n")
 	t = cmdutil.NewTable(&b, "  requirement", "required", "achieved", "result")
-	info := false
+	var notes []string
 	for _, c := range r.Checks {
-		rel := "<="
-		if c.AtLeast {
-			rel = ">="
+		t.Row("  "+checkName(c), requiredText(c), achievedText(c), resultText(c))
+		if !c.Info && c.Verdict != bandpass.Met && c.Note != "" {
+			notes = append(notes, checkName(c)+": "+c.Note)
 		}
-		res := "pass"
-		switch {
-		case !r.Counted(c):
-			info = true
-			res = "met (info)"
-			if !c.Pass {
-				res = "not met (info)"
-			}
-		case !c.Pass:
-			res = "FAIL"
-		}
-		t.Row("  "+checkName(c), rel+" "+dbText(c.Required)+" dB", dbText(c.Achieved)+" dB", res)
 	}
 	if err := t.Flush(); err != nil {
 		return err
 	}
-	if info {
-		fmt.Fprintf(&b, "  (info: derived from the stated requirement, not required; with losses the band edges round off)\n")
+	for _, nt := range notes {
+		fmt.Fprintf(&b, "  - %s\n", nt)
 	}
+	switch r.Verdict {
+	case bandpass.Met:
+		fmt.Fprintf(&b, "  overall: pass\n")
+	case bandpass.NotMet:
+		fmt.Fprintf(&b, "  overall: FAIL\n")
+	default:
+		fmt.Fprintf(&b, "  overall: NOT FULLY CHECKED (no requirement fails where the model holds)\n")
+	}
+	fmt.Fprintf(&b, "  (return loss and ripple are checked on the designed, lossless response; info lines show the losses' effect)\n")
 
 	if len(r.Written) > 0 {
 		fmt.Fprintf(&b, "\nFiles (frequency range %s..%s)\n", ff(r.Sweep[0]), ff(r.Sweep[1]))
@@ -356,7 +419,12 @@ type Output struct {
 	Q0                    []*float64     `json:"q0"`
 	InsertionLoss         float64        `json:"insertion_loss_db"`
 	LosslessInsertionLoss float64        `json:"lossless_insertion_loss_db"`
+	DelayInsertionLoss    *float64       `json:"delay_estimate_insertion_loss_db"`
 	CohnInsertionLoss     *float64       `json:"cohn_insertion_loss_db"`
+	GroupDelayF0          float64        `json:"group_delay_f0_s"`
+	GroupDelayMin         float64        `json:"group_delay_passband_min_s"`
+	GroupDelayMax         float64        `json:"group_delay_passband_max_s"`
+	GroupDelayVariation   float64        `json:"group_delay_passband_variation_s"`
 	Mode                  *string        `json:"mode"`
 	CavityShape           *string        `json:"cavity_shape"`
 	Cavities              []CavityOut    `json:"cavities"`
@@ -365,6 +433,7 @@ type Output struct {
 	Ports                 []PortOut      `json:"ports"`
 	Checks                []CheckOut     `json:"checks"`
 	Pass                  bool           `json:"pass"`
+	Verdict               string         `json:"verdict"`
 	SweepHz               [2]float64     `json:"sweep_hz"`
 	Files                 []string       `json:"files"`
 	Warnings              []string       `json:"warnings"`
@@ -433,13 +502,25 @@ type PortOut struct {
 type CheckOut struct {
 	Name     string   `json:"name"`
 	F        *float64 `json:"f_hz"`
-	Required float64  `json:"required_db"`
+	Required *float64 `json:"required_db"`
 	Achieved *float64 `json:"achieved_db"`
 	AtLeast  bool     `json:"at_least"`
 	Pass     bool     `json:"pass"`
-	// Stated is false for a value shown for information only (see
-	// Result.Counted); the overall "pass" ignores it.
+	// Verdict is "pass", "fail", "outside_model" (not checkable) or
+	// "info" (not a requirement).
+	Verdict string `json:"verdict"`
+	// Stated is false for a value shown for information only
+	// (bandpass.Check.Info); the overall verdict ignores it.
 	Stated bool `json:"stated"`
+	// Band is the range searched for a rejection's least attenuation (Hz),
+	// WorstF where the achieved value lies.
+	Band   *[2]float64 `json:"band_hz"`
+	WorstF *float64    `json:"worst_f_hz"`
+	// SpuriousMode and SpuriousF name the cavity resonance that fails the
+	// rejection or puts it outside the model.
+	SpuriousMode *string  `json:"spurious_mode"`
+	SpuriousF    *float64 `json:"spurious_f_hz"`
+	Note         string   `json:"note"`
 }
 
 // finite returns &v, or nil for NaN and infinities.
@@ -468,13 +549,19 @@ func (r *Result) JSON() Output {
 		Q0:                    []*float64{},
 		InsertionLoss:         r.InsertionLoss,
 		LosslessInsertionLoss: r.LosslessLoss,
+		DelayInsertionLoss:    finite(r.DelayEstimate),
 		CohnInsertionLoss:     finite(r.Cohn),
+		GroupDelayF0:          r.Delay.AtF0,
+		GroupDelayMin:         r.Delay.Min,
+		GroupDelayMax:         r.Delay.Max,
+		GroupDelayVariation:   r.Delay.Variation(),
 		Cavities:              []CavityOut{},
 		Spurious:              []SpuriousOut{},
 		Apertures:             []ApertureOut{},
 		Ports:                 []PortOut{},
 		Checks:                []CheckOut{},
-		Pass:                  true,
+		Pass:                  r.Verdict == bandpass.Met,
+		Verdict:               verdictKey(r.Verdict),
 		SweepHz:               r.Sweep,
 		Files:                 append([]string{}, r.Written...),
 		Warnings:              append([]string{}, r.Warnings...),
@@ -532,14 +619,26 @@ func (r *Result) JSON() Output {
 		}
 	}
 	for _, c := range r.Checks {
-		co := CheckOut{Name: c.Name, Required: c.Required, Achieved: finite(c.Achieved), AtLeast: c.AtLeast, Pass: c.Pass, Stated: r.Counted(c)}
+		co := CheckOut{Name: c.Name, Required: finite(c.Required), Achieved: finite(c.Achieved), AtLeast: c.AtLeast, Pass: c.Pass,
+			Verdict: verdictKey(c.Verdict), Stated: !c.Info, Note: c.Note}
+		if c.Info {
+			co.Verdict = "info"
+		}
 		if c.F != 0 {
 			co.F = finite(c.F)
 		}
-		o.Checks = append(o.Checks, co)
-		if co.Stated {
-			o.Pass = o.Pass && c.Pass
+		if c.Band[1] > 0 {
+			b := c.Band
+			co.Band = &b
 		}
+		if c.Worst != 0 && !math.IsNaN(c.Achieved) {
+			co.WorstF = finite(c.Worst)
+		}
+		if sp := c.Spurious; sp != nil {
+			m := sp.Mode.String()
+			co.SpuriousMode, co.SpuriousF = &m, finite(sp.F)
+		}
+		o.Checks = append(o.Checks, co)
 	}
 	return o
 }

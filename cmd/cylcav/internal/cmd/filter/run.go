@@ -4,9 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io/fs"
 	"math"
-	"os"
 	"slices"
 	"strings"
 
@@ -38,12 +36,19 @@ type Result struct {
 	Lossless bool
 
 	// InsertionLoss is the midband (f0) insertion loss with the losses,
-	// LosslessLoss the same without them, Cohn the loss by Cohn's 1959
-	// estimate (LosslessLoss plus the dissipation), NaN when it does not
-	// apply (designs with transmission zeros, lossless response).
-	InsertionLoss, LosslessLoss, Cohn float64
+	// LosslessLoss the same without them. DelayEstimate is LosslessLoss
+	// plus the first-order dissipation from the lossless group delay at f0
+	// (bandpass.DelayLoss), Cohn LosslessLoss plus Cohn's 1959 dissipation
+	// estimate (all-pole designs only); NaN where they do not apply (a
+	// lossless response; Cohn: designs with transmission zeros).
+	InsertionLoss, LosslessLoss, DelayEstimate, Cohn float64
+
+	// Delay is the group delay of S21 with the losses.
+	Delay bandpass.DelayStats
 
 	Checks []bandpass.Check
+	// Verdict is the overall verdict of Checks (bandpass.Overall).
+	Verdict bandpass.Verdict
 	// Warnings are findings for people, in a fixed order: wall models,
 	// the realisation, the checks.
 	Warnings []string
@@ -75,7 +80,7 @@ func runFilter(opts *Options) error {
 // realisation, response, checks, and the contents of the Touchstone file
 // and the plot when asked for.
 func Compute(opts *Options) (*Result, error) {
-	r := &Result{Opts: opts, Cohn: math.NaN()}
+	r := &Result{Opts: opts, Cohn: math.NaN(), DelayEstimate: math.NaN()}
 	spec := opts.Spec
 	r.OrderChosen = spec.Order == 0
 	d, err := bandpass.Synthesize(spec)
@@ -116,19 +121,42 @@ func Compute(opts *Options) (*Result, error) {
 		return nil, err
 	}
 	r.LosslessLoss = ll[0].InsertionLoss()
-	if d.G != nil && !r.Lossless {
-		c, err := bandpass.CohnLoss(d.G, d.FBW, r.Q0)
+	if !r.Lossless {
+		ld, err := d.Delay(nil)
 		if err != nil {
 			return nil, err
 		}
-		r.Cohn = r.LosslessLoss + c
+		e, err := bandpass.DelayLoss(f0, ld.AtF0, r.Q0)
+		if err != nil {
+			return nil, err
+		}
+		r.DelayEstimate = r.LosslessLoss + e
+		if d.G != nil {
+			c, err := bandpass.CohnLoss(d.G, d.FBW, r.Q0)
+			if err != nil {
+				return nil, err
+			}
+			r.Cohn = r.LosslessLoss + c
+		}
 	}
-	if r.Checks, err = d.Check(r.Q0); err != nil {
+	if r.Delay, err = d.Delay(r.Q0); err != nil {
 		return nil, err
 	}
+	var spurious []bandpass.Spurious
+	if r.Realisation != nil {
+		spurious = r.Realisation.Spurious
+	}
+	if r.Checks, err = d.Check(r.Q0, spurious); err != nil {
+		return nil, err
+	}
+	r.Verdict = bandpass.Overall(r.Checks)
 	for _, c := range r.Checks {
-		if !c.Pass && r.Counted(c) {
+		switch {
+		case c.Info:
+		case c.Verdict == bandpass.NotMet:
 			r.Warnings = append(r.Warnings, "the response does not meet the specification: "+checkName(c)+" ("+failText(c)+")")
+		case c.Verdict == bandpass.OutsideModel:
+			r.Warnings = append(r.Warnings, "not checked: "+checkName(c)+": "+c.Note)
 		}
 	}
 
@@ -150,36 +178,9 @@ func Compute(opts *Options) (*Result, error) {
 	return r, nil
 }
 
-// Counted reports whether check c is a requirement the user stated (or the
-// documented default return loss) and so decides the overall result. The
-// passband value derived from the other one (ripple from return loss or the
-// reverse) and the Butterworth band-edge values are shown for information:
-// dissipation rounds the band edges, so a lossy filter never keeps the
-// lossless ripple that a return-loss specification implies.
-func (r *Result) Counted(c bandpass.Check) bool {
-	s := r.Opts.Spec
-	switch c.Name {
-	case "return loss":
-		return s.Family == bandpass.Chebyshev && s.Ripple == 0
-	case "passband ripple":
-		return s.Family == bandpass.Chebyshev && s.Ripple != 0
-	}
-	return true
-}
-
 // realise sizes the cavities.
 func (r *Result) realise() error {
 	opts := r.Opts
-	var walls qfactor.WallsAt
-	if opts.Walls != nil {
-		seen := map[string]bool{}
-		walls = opts.Walls.At(func(w string) {
-			if !seen[w] {
-				seen[w] = true
-				r.Warnings = append(r.Warnings, "walls: "+w)
-			}
-		})
-	}
 	ratio := opts.Ratio
 	if ratio == 0 {
 		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: opts.Fill}
@@ -200,7 +201,7 @@ func (r *Result) realise() error {
 		r.Shape = fmt.Sprintf("D/L = %.5g (--ratio)", ratio)
 	}
 	ro := bandpass.RealiseOptions{
-		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: walls, Hole: opts.Hole,
+		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: opts.Walls, Hole: opts.Hole,
 	}
 	rz, err := bandpass.Realise(r.Design, ro)
 	if errors.Is(err, cavity.ErrInfeasible) {
@@ -210,7 +211,17 @@ func (r *Result) realise() error {
 		return err
 	}
 	r.Realisation = rz
+	for _, w := range rz.WallWarnings {
+		r.Warnings = append(r.Warnings, "walls: "+w)
+	}
 	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
+	checks := make([][]qfactor.Warning, len(rz.Cavities))
+	for i, cd := range rz.Cavities {
+		checks[i] = cd.Validity
+	}
+	for _, c := range qfactor.Condense(checks) {
+		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s", rz.Cavities[c.First].Resonator, c.Text("cavities")))
+	}
 	return nil
 }
 
@@ -265,41 +276,18 @@ func (r *Result) buildPlot() error {
 // file behind; a failure of the second write removes the first file when
 // it did not exist before.
 func (r *Result) writeFiles() error {
-	type file struct {
-		path string
-		data []byte
-	}
-	var files []file
+	var files []cmdutil.File
 	if r.Opts.Touchstone != "" {
-		files = append(files, file{r.Opts.Touchstone, r.touchstone})
+		files = append(files, cmdutil.File{Flag: "touchstone", Path: r.Opts.Touchstone, Data: r.touchstone})
 	}
 	if r.Opts.Plot != "" {
-		files = append(files, file{r.Opts.Plot, r.plot})
+		files = append(files, cmdutil.File{Flag: "plot", Path: r.Opts.Plot, Data: r.plot})
 	}
-	existed := make([]bool, len(files))
-	for i, f := range files {
-		_, err := os.Stat(f.path)
-		switch {
-		case err == nil:
-			existed[i] = true
-			if !r.Opts.Force {
-				return cmdutil.Usagef("%s already exists; pass --force to overwrite it", f.path)
-			}
-		case !errors.Is(err, fs.ErrNotExist):
-			return err
-		}
+	if err := cmdutil.WriteFiles(r.Opts.Force, files...); err != nil {
+		return err
 	}
-	for i, f := range files {
-		if err := cmdutil.WriteFileAtomic(f.path, f.data, r.Opts.Force); err != nil {
-			for j := 0; j < i; j++ {
-				if !existed[j] {
-					os.Remove(files[j].path)
-				}
-			}
-			r.Written = nil
-			return err
-		}
-		r.Written = append(r.Written, f.path)
+	for _, f := range files {
+		r.Written = append(r.Written, f.Path)
 	}
 	return nil
 }

@@ -52,7 +52,7 @@ const (
 // instead of runQ (for tests).
 func NewCmdQ(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var modeS, betaS, qextS, speedS string
+	var betaS, qextS, speedS string
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -91,7 +91,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := opts.parse(cmd, geo, walls, flagValues{
-				mode: modeS, beta: betaS, qext: qextS, speed: speedS,
+				beta: betaS, qext: qextS, speed: speedS,
 			}); err != nil {
 				return err
 			}
@@ -102,7 +102,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		},
 	}
 	f := cmd.Flags()
-	f.StringVar(&modeS, "mode", "", "mode label, e.g. TE011, TM010, TE(12,3,1) (required)")
+	cmdutil.ModeVar(f, &opts.Mode, "mode", "mode label, e.g. TE011, TM010, TE(12,3,1) (required)")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter: "inside diameter, e.g. 54.8mm",
 		Radius:   "inside radius, e.g. 27.4mm",
@@ -121,7 +121,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 // flagValues are the raw flag strings (the cavity's are in the
 // cmdutil.GeometryFlags).
 type flagValues struct {
-	mode, beta, qext, speed string
+	beta, qext, speed string
 }
 
 // parse validates the flags into opts. Every error is a usage error naming
@@ -132,12 +132,8 @@ func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls
 	if !set("mode") {
 		return cmdutil.Usagef("--mode is required, e.g. --mode TE011")
 	}
-	m, err := cavity.ParseMode(v.mode)
-	if err != nil {
-		return cmdutil.FlagError("mode", v.mode, err)
-	}
-	opts.Mode = m
-
+	m := opts.Mode
+	var err error
 	if opts.Cavity, err = geo.Cavity(); err != nil {
 		return err
 	}
@@ -192,6 +188,7 @@ type result struct {
 	opts       *Options
 	u          qfactor.Unloaded
 	delta      [3]float64 // skin depth per wall part, NaN where undefined
+	sc         []scRs     // the superconducting parts' Rs split, in part order
 	ql, bw     float64
 	accel      *qfactor.Accel
 	warnings   []string
@@ -208,8 +205,22 @@ func runQ(opts *Options) error {
 		return err
 	}
 	r.u = u
+	for _, w := range qfactor.Validity(c, opts.Walls, u) {
+		r.warnings = append(r.warnings, w.Text)
+	}
 	f := u.Wall.Frequency
 	r.delta = opts.Walls.SkinDepths(f)
+	for _, p := range qfactor.Parts() {
+		s := opts.Walls.Surface(p)
+		if s.Superconductor == nil {
+			continue
+		}
+		b, res, err := s.SuperconductingParts(f)
+		if err != nil {
+			return err
+		}
+		r.sc = append(r.sc, scRs{Part: partKey(p), name: p.String(), TemperatureK: number(s.Temperature), BCS: number(b), Residual: number(res)})
+	}
 	switch {
 	case len(opts.Coupling) > 0:
 		r.ql, err = qfactor.LoadedByCoupling(u.Q0, opts.Coupling...)
@@ -263,6 +274,26 @@ type shareJSON struct {
 	Fill number `json:"fill"`
 }
 
+// partKey names wall part p in JSON.
+func partKey(p qfactor.Part) string {
+	switch p {
+	case qfactor.EndPlateA:
+		return "end_a"
+	case qfactor.EndPlateB:
+		return "end_b"
+	}
+	return "side"
+}
+
+// scRs is the split of one superconducting wall part's Rs.
+type scRs struct {
+	Part         string `json:"part"`
+	name         string
+	TemperatureK number `json:"temperature_k"`
+	BCS          number `json:"rs_bcs_ohm"`
+	Residual     number `json:"rs_residual_ohm"`
+}
+
 type outJSON struct {
 	Mode            string     `json:"mode"`
 	IndexConvention string     `json:"index_convention"`
@@ -280,6 +311,7 @@ type outJSON struct {
 	RsEndA          number     `json:"rs_end_a_ohm"`
 	RsEndB          number     `json:"rs_end_b_ohm"`
 	LossShare       *shareJSON `json:"loss_share"`
+	Superconducting []scRs     `json:"superconducting,omitempty"`
 	QWall           number     `json:"q_wall"`
 	QSide           number     `json:"q_side"`
 	QEndA           number     `json:"q_end_a"`
@@ -292,17 +324,27 @@ type outJSON struct {
 	QLoaded         *number    `json:"q_loaded,omitempty"`
 	BandwidthHz     *number    `json:"bandwidth_hz,omitempty"`
 
-	ParticleSpeed   *number `json:"particle_speed_c,omitempty"`
-	TransitTime     *number `json:"transit_time_factor,omitempty"`
-	ROverQLinac     *number `json:"r_over_q_linac_ohm,omitempty"`
-	ROverQCircuit   *number `json:"r_over_q_circuit_ohm,omitempty"`
-	ShuntLinac      *number `json:"shunt_impedance_linac_ohm,omitempty"`
-	ShuntCircuit    *number `json:"shunt_impedance_circuit_ohm,omitempty"`
-	EpkOverEacc     *number `json:"epk_over_eacc,omitempty"`
-	BpkOverEaccMTMV *number `json:"bpk_over_eacc_mt_per_mv_m,omitempty"`
+	ParticleSpeed   *number     `json:"particle_speed_c,omitempty"`
+	TransitTime     *number     `json:"transit_time_factor,omitempty"`
+	TransitTimePeak *number     `json:"transit_time_factor_peak,omitempty"`
+	NoGain          *bool       `json:"no_gain,omitempty"`
+	ModesBelow      []belowJSON `json:"modes_below,omitempty"`
+	ModesBelowCount *int        `json:"modes_below_count,omitempty"`
+	ROverQLinac     *number     `json:"r_over_q_linac_ohm,omitempty"`
+	ROverQCircuit   *number     `json:"r_over_q_circuit_ohm,omitempty"`
+	ShuntLinac      *number     `json:"shunt_impedance_linac_ohm,omitempty"`
+	ShuntCircuit    *number     `json:"shunt_impedance_circuit_ohm,omitempty"`
+	EpkOverEacc     *number     `json:"epk_over_eacc,omitempty"`
+	BpkOverEaccMTMV *number     `json:"bpk_over_eacc_mt_per_mv_m,omitempty"`
 
 	Warnings []string `json:"warnings"`
 	Cautions []string `json:"cautions"`
+}
+
+// belowJSON is a mode that resonates below the accelerating one.
+type belowJSON struct {
+	Mode string `json:"mode"`
+	FHz  number `json:"f_hz"`
 }
 
 func ptr(v float64) *number { n := number(v); return &n }
@@ -332,6 +374,7 @@ func (r *result) json() outJSON {
 		QFill:           number(u.QFill),
 		Q0:              number(u.Q0),
 		G:               number(u.Wall.Geometry.Total()),
+		Superconducting: r.sc,
 		Coupling:        o.Coupling,
 		QExt:            o.QExt,
 		Warnings:        append([]string{}, r.warnings...),
@@ -346,12 +389,20 @@ func (r *result) json() outJSON {
 	if a := r.accel; a != nil {
 		out.ParticleSpeed = ptr(a.Speed)
 		out.TransitTime = ptr(a.TransitTime)
-		out.ROverQLinac = ptr(a.ROverQLinac)
-		out.ROverQCircuit = ptr(a.ROverQCircuit)
-		out.ShuntLinac = ptr(a.ShuntLinac(u.Q0))
-		out.ShuntCircuit = ptr(a.ShuntCircuit(u.Q0))
-		out.EpkOverEacc = ptr(a.EpkOverEacc)
-		out.BpkOverEaccMTMV = ptr(a.BpkOverEacc * 1e9)
+		out.TransitTimePeak = ptr(a.TransitTimePeak)
+		noGain, n := a.NoGain, a.BelowCount
+		out.NoGain, out.ModesBelowCount = &noGain, &n
+		for _, b := range a.Below {
+			out.ModesBelow = append(out.ModesBelow, belowJSON{Mode: b.Mode.String(), FHz: number(b.Frequency)})
+		}
+		if !a.NoGain {
+			out.ROverQLinac = ptr(a.ROverQLinac)
+			out.ROverQCircuit = ptr(a.ROverQCircuit)
+			out.ShuntLinac = ptr(a.ShuntLinac(u.Q0))
+			out.ShuntCircuit = ptr(a.ShuntCircuit(u.Q0))
+			out.EpkOverEacc = ptr(a.EpkOverEacc)
+			out.BpkOverEaccMTMV = ptr(a.BpkOverEacc * 1e9)
+		}
 	}
 	return out
 }
@@ -423,6 +474,17 @@ func (r *result) table(w io.Writer) error {
 	if err := t.Flush(); err != nil {
 		return err
 	}
+	if len(r.sc) > 0 {
+		fmt.Fprintln(w, "\nSuperconducting surface resistance, BCS approximation plus residual:")
+		t = cmdutil.NewTable(w, "PART", "TEMPERATURE", "RS BCS", "RS RESIDUAL", "RS")
+		for _, s := range r.sc {
+			t.Row(s.name, physics.FormatTemperature(float64(s.TemperatureK), 4), physics.FormatSI(float64(s.BCS), "ohm", 4),
+				physics.FormatSI(float64(s.Residual), "ohm", 4), physics.FormatSI(float64(s.BCS+s.Residual), "ohm", 4))
+		}
+		if err := t.Flush(); err != nil {
+			return err
+		}
+	}
 	fmt.Fprintln(w)
 	t = cmdutil.NewTable(w)
 	t.Row("Q_wall", fmtQ(u.Wall.QWall))
@@ -445,15 +507,21 @@ func (r *result) table(w io.Writer) error {
 	if a := r.accel; a != nil {
 		fmt.Fprintf(w, "\nAccelerator figures (on axis, particle speed %g c, Eacc = V/length):\n", a.Speed)
 		t = cmdutil.NewTable(w)
-		t.Row("transit-time factor T", fmt.Sprintf("%.5f", a.TransitTime))
-		t.Row("R/Q, linac convention V^2/(omega W)", physics.FormatSI(a.ROverQLinac, "ohm", 5))
-		t.Row("R/Q, circuit convention V^2/(2 omega W)", physics.FormatSI(a.ROverQCircuit, "ohm", 5))
-		t.Row("shunt impedance, linac convention (R/Q) Q0", shunt(a.ShuntLinac(u.Q0)))
-		t.Row("shunt impedance, circuit convention (R/Q) Q0", shunt(a.ShuntCircuit(u.Q0)))
-		t.Row("Epk/Eacc", fmt.Sprintf("%.4f", a.EpkOverEacc))
-		t.Row("Bpk/Eacc", fmt.Sprintf("%.4f mT/(MV/m)", a.BpkOverEacc*1e9))
+		t.Row("transit-time factor T = V / integral |Ez| dz", fmt.Sprintf("%.5f", a.TransitTime))
+		t.Row("transit-time factor V / (E0 L), E0 peak on-axis |Ez|", fmt.Sprintf("%.5f", a.TransitTimePeak))
+		if !a.NoGain {
+			t.Row("R/Q, linac convention V^2/(omega W)", physics.FormatSI(a.ROverQLinac, "ohm", 5))
+			t.Row("R/Q, circuit convention V^2/(2 omega W)", physics.FormatSI(a.ROverQCircuit, "ohm", 5))
+			t.Row("shunt impedance, linac convention (R/Q) Q0", shunt(a.ShuntLinac(u.Q0)))
+			t.Row("shunt impedance, circuit convention (R/Q) Q0", shunt(a.ShuntCircuit(u.Q0)))
+			t.Row("Epk/Eacc", fmt.Sprintf("%.4f", a.EpkOverEacc))
+			t.Row("Bpk/Eacc", fmt.Sprintf("%.4f mT/(MV/m)", a.BpkOverEacc*1e9))
+		}
 		if err := t.Flush(); err != nil {
 			return err
+		}
+		for _, l := range accelNotes(a, o.Mode) {
+			fmt.Fprintf(w, "  %s\n", l)
 		}
 	}
 	if len(r.warnings) > 0 {
@@ -481,4 +549,33 @@ func joinFloats(v []float64) string {
 		s[i] = strconv.FormatFloat(x, 'g', -1, 64)
 	}
 	return strings.Join(s, ",")
+}
+
+// accelNotes says what the accelerator figures rest on: the gain that R/Q
+// uses, a speed that gains nothing, and the modes below the accelerating
+// one.
+func accelNotes(a *qfactor.Accel, m cavity.Mode) []string {
+	var out []string
+	if a.NoGain {
+		out = append(out, fmt.Sprintf("No net energy gain at %g c: T = %.3g is below %g, so Eacc is about zero and R/Q, shunt impedance, Epk/Eacc and Bpk/Eacc are not given (they would be meaningless).",
+			a.Speed, a.TransitTime, qfactor.MinTransitTime))
+	} else {
+		out = append(out, "R/Q and the shunt impedance use the gain V itself (V = T times the integral of |Ez| = (V/(E0 L)) times E0 L); Eacc = V/L.")
+	}
+	if a.BelowCount > 0 {
+		var names []string
+		for _, b := range a.Below {
+			names = append(names, b.Mode.String()+" at "+physics.FormatFrequency(b.Frequency, 6))
+		}
+		more := ""
+		if a.BelowCount > len(a.Below) {
+			more = fmt.Sprintf(", and %d more", a.BelowCount-len(a.Below))
+		}
+		verb, them := "resonates", "it"
+		if a.BelowCount > 1 {
+			verb, them = "resonate", "them"
+		}
+		out = append(out, fmt.Sprintf("%s is not the lowest mode of this cavity: %s%s %s below it; a beam or coupler can excite %s.", m, strings.Join(names, ", "), more, verb, them))
+	}
+	return out
 }

@@ -3,6 +3,7 @@ package unloadedq_test
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -173,6 +174,72 @@ func TestSuperconducting(t *testing.T) {
 	}
 }
 
+// TestSuperconductingSplit checks that the q table and JSON show a
+// superconducting Rs as its BCS and residual parts with the wall
+// temperature (issue 9, item 9): the BCS part against the approximation
+// A (f/fref)^2 exp(-Delta/T)/T evaluated here with the niobium parameters
+// of Padamsee, Knobloch & Hays 2008, ch. 5 (recalled from memory), the
+// residual part against --residual, and their sum against rs_side_ohm.
+func TestSuperconductingSplit(t *testing.T) {
+	args := []string{"--mode", "TM010", "--radius", "88mm", "--length", "110mm", "--wall", "niobium",
+		"--superconducting", "--temperature", "1.8K", "--residual", "5nohm"}
+	v := runJSON(t, args...)
+	f := num(t, v, "f_hz")
+	sc, ok := v["superconducting"].([]any)
+	if !ok || len(sc) != 3 {
+		t.Fatalf("superconducting = %v, want one entry per wall part", v["superconducting"])
+	}
+	want := 2e-4 * (f / 1.5e9) * (f / 1.5e9) * math.Exp(-17.67/1.8) / 1.8
+	for i, part := range []string{"side", "end_a", "end_b"} {
+		e := sc[i].(map[string]any)
+		if e["part"] != part || num(t, e, "temperature_k") != 1.8 || num(t, e, "rs_residual_ohm") != 5e-9 ||
+			math.Abs(num(t, e, "rs_bcs_ohm")-want) > 1e-12*want {
+			t.Errorf("superconducting[%d] = %v, want part %s at 1.8 K, BCS %.6g ohm, residual 5e-9 ohm", i, e, part, want)
+		}
+	}
+	if rs := num(t, v, "rs_side_ohm"); math.Abs(rs-(want+5e-9)) > 1e-12*rs {
+		t.Errorf("rs_side_ohm = %.10g, want BCS + residual = %.10g", rs, want+5e-9)
+	}
+	r := run(t, args...)
+	for _, w := range []string{"Superconducting surface resistance, BCS approximation plus residual:", "RS BCS", "RS RESIDUAL",
+		"side wall (r = a)    1.800 K", "5.000 nohm"} {
+		if !strings.Contains(r.Stdout, w) {
+			t.Errorf("q table lacks %q:\n%s", w, r.Stdout)
+		}
+	}
+	// Normal walls: no split.
+	if v := runJSON(t, "--mode", "TM010", "--radius", "88mm", "--length", "110mm", "--wall", "copper"); v["superconducting"] != nil {
+		t.Errorf("copper walls: superconducting = %v, want absent", v["superconducting"])
+	}
+}
+
+// TestValidityWarnings checks that q prints the library's validity
+// warnings (qfactor.Validity, tested against independent closed forms in
+// package qfactor) in the table notes and the JSON warnings: a 50 um long
+// copper pill box (skin depth about 0.9 um at 5.7 GHz, 1.7 % of the
+// length; Harrington's TM010 Q = a d/(delta (a + d)) about 57) and end
+// plates of a magnetic metal given by values.
+func TestValidityWarnings(t *testing.T) {
+	thin := []string{"--mode", "TM010", "--radius", "20mm", "--length", "0.05mm", "--wall", "copper"}
+	v := runJSON(t, thin...)
+	ws := fmt.Sprint(v["warnings"])
+	for _, w := range []string{"skin depth of the side wall", "% of the smallest cavity dimension", "is not much greater than 1"} {
+		if !strings.Contains(ws, w) {
+			t.Errorf("thin pill box: warnings %s lack %q", ws, w)
+		}
+	}
+	if q := num(t, v, "q0"); !(q > 40 && q < 70) {
+		t.Errorf("thin pill box: q0 = %g, want about 57 (Harrington's closed form)", q)
+	}
+	r := run(t, "--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "copper", "--end-wall", "sigma=1e7,mur=50")
+	if !strings.Contains(r.Stdout, "Notes:") || !strings.Contains(r.Stdout, "mu_r = 50: its microwave permeability is uncertain") {
+		t.Errorf("magnetic end plates: table lacks the permeability warning:\n%s", r.Stdout)
+	}
+	if v := runJSON(t, "--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "copper"); fmt.Sprint(v["warnings"]) != "[]" {
+		t.Errorf("plain copper TE011: warnings = %v, want none", v["warnings"])
+	}
+}
+
 // TestBadInput checks that bad input is a usage error (exit status 2) with
 // a message naming the flag or the problem.
 func TestBadInput(t *testing.T) {
@@ -224,5 +291,35 @@ func TestHelpHasExample(t *testing.T) {
 	cmd := unloadedq.NewCmdQ(cmdutil.Test(new(bytes.Buffer), new(bytes.Buffer)), nil)
 	if !strings.Contains(cmd.Example, "cylcav q --mode") {
 		t.Errorf("Example = %q, want a worked example", cmd.Example)
+	}
+}
+
+// TestAccelNotes: the transit-time factor is printed in both normalisations
+// with what R/Q uses; at a length where a speed-of-light particle gains
+// nothing (d = lambda of TM010: 2 pi a / j01 = 130.637 mm for a = 50 mm,
+// Wangler 2008, ch. 2) the figures per Eacc are not printed (they were
+// Epk/Eacc = 2e5 before), and TE111 is named below TM010 (L/a > 2.03).
+func TestAccelNotes(t *testing.T) {
+	r := clitest.Run(t, "q", "--mode", "TM010", "--diameter", "100mm", "--length", "130.6364mm", "--wall", "copper")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, %s", r.Code, r.Stderr)
+	}
+	for _, want := range []string{"V / integral |Ez| dz", "V / (E0 L)", "No net energy gain", "TE111 at", "resonates below it"} {
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("output lacks %q:\n%s", want, r.Stdout)
+		}
+	}
+	if strings.Contains(r.Stdout, "\nEpk/Eacc ") {
+		t.Errorf("Epk/Eacc printed where the gain cancels:\n%s", r.Stdout)
+	}
+	r = clitest.Run(t, "q", "--mode", "TM010", "--diameter", "230mm", "--length", "115mm", "--wall", "copper", "--format", "json")
+	for _, want := range []string{`"transit_time_factor_peak"`, `"no_gain": false`, `"modes_below_count": 0`} {
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("JSON lacks %s:\n%s", want, r.Stdout)
+		}
+	}
+	r = clitest.Run(t, "q", "--mode", "TM010", "--diameter", "230mm", "--length", "115mm", "--wall", "copper")
+	if !strings.Contains(r.Stdout, "R/Q and the shunt impedance use the gain V itself") {
+		t.Errorf("output does not say which gain R/Q uses:\n%s", r.Stdout)
 	}
 }
