@@ -70,10 +70,23 @@
 // method. It ignores phase, so background leakage, cable delay and
 // coupling loss bias it; Analyze reports when it disagrees with the fit.
 //
+// # Modes, walls and fills
+//
+// Identify names the mode of each resonance by fitting the effective
+// cavity to the measured frequencies; DiagnoseWalls turns each identified
+// mode's Q0 into an effective wall conductivity; MeasureDielectric gives a
+// full fill's permittivity and loss tangent from an empty and a filled
+// measurement. Their formulas and sources are on each function.
+//
 // References:
 //   - D. Kajfez, "Linear fractional curve fitting for measurement of high Q
 //     factors", IEEE Trans. Microwave Theory Tech. 42(7), 1149-1153, 1994.
 //   - D. Kajfez, Q Factor Measurements Using MATLAB, Artech House, 2011.
 //   - E. L. Ginzton, Microwave Measurements, McGraw-Hill, 1957, ch. 9
 //     (the Q circle).
+//   - D. M. Pozar, Microwave Engineering, 4th ed., Wiley, 2012, secs. 1.7,
+//     6.3, 6.4 and 6.7 (surface resistance, Q of a filled cavity, the
+//     circular cavity's modes and currents).
+//   - P. Soille, Morphological Image Analysis, 2nd ed., Springer, 2003,
+//     sec. 4.3 (the opening, for the background).
 package measure

@@ -3,10 +3,12 @@ package measure
 import (
 	"encoding/json"
 	"math"
+	"math/rand/v2"
 	"os"
 	"testing"
 
 	"cylcav/cavity"
+	"cylcav/physics"
 )
 
 // TestIdentify: the synthetic whole-cavity sweep of
@@ -141,5 +143,37 @@ func TestWallsFromSweep(t *testing.T) {
 	}
 	if !d.Joint {
 		t.Errorf("TE0 %.3g, TM %.3g: no end-plate warning", d.TE0, d.TM)
+	}
+}
+
+// TestIdentifyFill: with the dimensions held, Identify fits the fill's
+// permittivity. The frequencies are those of a PTFE-filled cavity
+// (eps_r 2.08), from the resonance formula (Pozar sec. 6.4) evaluated by
+// package cavity, each moved by a seeded 100 ppm; the nominal fill is 2.0.
+func TestIdentifyFill(t *testing.T) {
+	c := cavity.Cavity{Radius: 20e-3, Length: 31e-3, Fill: physics.Medium{EpsR: 2.08}}
+	rng := rand.New(rand.NewPCG(5, 6))
+	var f0, q0 []float64
+	want := []string{}
+	for _, s := range []string{"TM010", "TE111", "TM011", "TE211", "TM110", "TE112"} {
+		m, _ := cavity.ParseMode(s)
+		f0 = append(f0, c.Frequency(m)*(1+100e-6*rng.NormFloat64()))
+		q0 = append(q0, math.NaN())
+		want = append(want, s)
+	}
+	nominal := c
+	nominal.Fill.EpsR = 2.0
+	id, err := Identify(f0, q0, IdentifySettings{Nominal: nominal, FitFill: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	within(t, "eps_r", id.Cavity.Fill.Eps(), id.EpsErr, 2.08)
+	for i, a := range id.Assign {
+		if !a.Matched || a.Mode.String() != want[i] {
+			t.Errorf("resonance %d: %v (matched %v), want %s", i, a.Mode, a.Matched, want[i])
+		}
+	}
+	if id.Cavity.Radius != c.Radius || id.Cavity.Length != c.Length {
+		t.Errorf("FitFill moved the dimensions: %+v", id.Cavity)
 	}
 }
