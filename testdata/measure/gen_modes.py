@@ -72,31 +72,55 @@ te["f0_hz"], tm["f0_hz"] = mid + 24e6, mid - 16e6
 res.append(dict(label="loop", f0_hz=7.3e9, q0=400.0, beta1=0.2, beta2=0.2))
 res.sort(key=lambda r: r["f0_hz"])
 
-f = np.linspace(fa, fb, n)
-tau = 4e-9
-dl = np.exp(-2j * np.pi * f * tau)
-s21 = 10 ** (-70 / 20) * np.exp(-2j * np.pi * f * 0.5e-9)
-s11 = np.ones(n, complex)
-s22 = np.ones(n, complex)
+def write_sweep(name, res, fa, fb, n, comment):
+    f = np.linspace(fa, fb, n)
+    tau = 4e-9
+    dl = np.exp(-2j * np.pi * f * tau)
+    s21 = 10 ** (-70 / 20) * np.exp(-2j * np.pi * f * 0.5e-9)
+    s11 = np.ones(n, complex)
+    s22 = np.ones(n, complex)
+    for r in res:
+        u = f / r["f0_hz"] - r["f0_hz"] / f
+        den = 1 + r["beta1"] + r["beta2"] + 1j * r["q0"] * u
+        s21 = s21 + dl * 2 * np.sqrt(r["beta1"] * r["beta2"]) / den
+        s11 = s11 - 2 * r["beta1"] / den
+        s22 = s22 - 2 * r["beta2"] / den
+    sigma = 2e-5
+    noise = lambda: sigma * (rng.standard_normal(n) + 1j * rng.standard_normal(n))
+    s21 = s21 + noise()
+    s11 = 0.97 * dl * dl * s11 + noise()
+    s22 = 0.97 * dl * dl * s22 + noise()
+    with open(name, "w") as fh:
+        fh.write("! %s\n" % comment)
+        fh.write("! synthetic sweep from testdata/measure/gen_modes.py\n# HZ S RI R 50\n")
+        for k in range(n):
+            vals = [f[k], s11[k].real, s11[k].imag, s21[k].real, s21[k].imag, s21[k].real, s21[k].imag, s22[k].real, s22[k].imag]
+            fh.write(" ".join("%.9e" % v for v in vals) + "\n")
+
+
+write_sweep("modes.s2p", res, fa, fb, n,
+            "invented stainless test cavity, drawn D 40 mm L 31 mm, built D 40.08 mm L 30.85 mm")
+
+# The same cavity completely filled with a PTFE-like plastic: every
+# frequency divided by sqrt(eps_r) (Pozar sec. 6.4), the wall Q scaled by
+# eps_r^(-1/4) (derived: Q_wall ~ eta/Rs, eta = eta0/sqrt(eps_r),
+# Rs ~ sqrt(f); the same scaling measure.MeasureDielectric assumes, whose
+# own test checks it against package qfactor) and the fill's loss added:
+# 1/Q0 = 1/Q_wall + tan(delta). The loop resonance stays where it is.
+eps_fill, tand_fill = 2.08, 4e-4
+filled = []
 for r in res:
-    u = f / r["f0_hz"] - r["f0_hz"] / f
-    den = 1 + r["beta1"] + r["beta2"] + 1j * r["q0"] * u
-    s21 = s21 + dl * 2 * np.sqrt(r["beta1"] * r["beta2"]) / den
-    s11 = s11 - 2 * r["beta1"] / den
-    s22 = s22 - 2 * r["beta2"] / den
-sigma = 2e-5
-noise = lambda: sigma * (rng.standard_normal(n) + 1j * rng.standard_normal(n))
-s21 = s21 + noise()
-s11 = 0.97 * dl * dl * s11 + noise()
-s22 = 0.97 * dl * dl * s22 + noise()
-with open("modes.s2p", "w") as fh:
-    fh.write("! invented stainless test cavity, drawn D 40 mm L 31 mm, built D 40.08 mm L 30.85 mm\n")
-    fh.write("! synthetic sweep from testdata/measure/gen_modes.py\n# HZ S RI R 50\n")
-    for k in range(n):
-        vals = [f[k], s11[k].real, s11[k].imag, s21[k].real, s21[k].imag, s21[k].real, s21[k].imag, s22[k].real, s22[k].imag]
-        fh.write(" ".join("%.9e" % v for v in vals) + "\n")
+    if r["label"] == "loop":
+        filled.append(dict(r, f0_hz=5.1e9))
+        continue
+    qw = r["q0"] * eps_fill ** -0.25
+    filled.append(dict(r, f0_hz=r["f0_hz"] / np.sqrt(eps_fill), q0=1 / (1 / qw + tand_fill)))
+filled.sort(key=lambda r: r["f0_hz"])
+write_sweep("modes_filled.s2p", filled, 3.6e9, 7.8e9, 8401,
+            "the same cavity completely filled, eps_r 2.08, tan(delta) 4e-4")
+
 with open("modes_truth.json", "w") as fh:
     json.dump(dict(diameter_m=2 * a, length_m=d, nominal_diameter_m=40e-3, nominal_length_m=31e-3,
                    per_mode_scatter=150e-6, wall_iacs_fraction=sigma_wall / 58e6, tm_q_factor=tm_factor,
-                   resonances=res), fh, indent=1)
+                   resonances=res, fill_eps_r=eps_fill, fill_tan_delta=tand_fill, filled_resonances=filled), fh, indent=1)
 print(len(res), "resonances:", " ".join(r["label"] for r in res))

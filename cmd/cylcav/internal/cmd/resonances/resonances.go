@@ -33,6 +33,7 @@ type Options struct {
 	Format cmdutil.Format
 
 	File     string // the sweep file
+	Empty    string // the empty cavity's sweep (--empty); File is then the filled one
 	Settings measure.Settings
 
 	// Identify is set when the cavity's nominal size was given: the modes
@@ -88,6 +89,13 @@ resolved by Q (TE0mp has the higher Q) and its splitting printed, and a
 resonance that matches no mode within 0.3 % is flagged (a coupling
 structure's own resonance, or a cavity far from its drawing).
 
+With --empty EMPTY, the main sweep is the same cavity completely filled
+with a dielectric (nominal value from --fill): the empty sweep gives the
+effective D and L (and, with --wall, the wall diagnosis); the filled sweep,
+identified in that cavity, gives the fill's eps_r = (f_empty/f_filled)^2
+and loss tangent from the two Q0 values of each mode found in both, with
+their uncertainties (fits and wall model; the dimensions cancel).
+
 --plot writes the sweep with the resonances numbered; --fit-plots BASE.EXT
 writes one plot per resonance (BASE-1.EXT, BASE-2.EXT, ...): measured
 points against the fitted curve, in dB and in the complex plane. The file
@@ -110,7 +118,12 @@ replaced only with --force.`,
   Effective cavity: D = 40.0768 ± 0.0074 mm, L = 30.8473 ± 0.0096 mm (drawn 40.0000 mm, 31.0000 mm); RMS residual 266 ppm.
   Resonances 8 (TE011) and 7 (TM111): a degenerate pair split by 40.00 MHz; the higher Q is taken as TE011.
   ...
-  Mean 2.0 % IACS (1.15 MS/m), spread 0.6 % IACS across 8 modes; TE0mp modes 2.6 %, TM modes 1.4 %.`,
+  Mean 2.0 % IACS (1.15 MS/m), spread 0.6 % IACS across 8 modes; TE0mp modes 2.6 %, TM modes 1.4 %.
+
+  # Measure a fill: the same cavity empty and completely filled with PTFE
+  $ cylcav resonances testdata/measure/modes_filled.s2p --empty testdata/measure/modes.s2p --diameter 40mm --length 31mm --fill ptfe
+  ...
+  Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := opts.parse(cmd, args, minHeight, window, dpi, geo, walls); err != nil {
@@ -133,6 +146,7 @@ replaced only with --force.`,
 		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
 	})
 	walls = cmdutil.AddWallFlags(cmd)
+	f.StringVar(&opts.Empty, "empty", "", "sweep of the same cavity empty: the main sweep is then the cavity completely filled, and the fill is measured (needs --diameter, --length, --fill)")
 	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
@@ -154,6 +168,16 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window 
 		opts.Identify, opts.Ident.Nominal = true, c
 	} else if opts.Ident.FitFill {
 		return cmdutil.Usagef("--fit-fill needs the cavity's size: give --diameter (or --radius) and --length")
+	}
+	if opts.Empty != "" {
+		switch {
+		case !opts.Identify:
+			return cmdutil.Usagef("--empty needs the cavity's size: give --diameter (or --radius) and --length")
+		case !geo.Changed("fill") || !(opts.Ident.Nominal.Fill.Eps() > 1):
+			return cmdutil.Usagef("--empty needs the nominal fill of the filled sweep, with eps_r > 1: give --fill, e.g. --fill ptfe or --fill eps=2.1")
+		case opts.Ident.FitFill:
+			return cmdutil.Usagef("--empty fits the fill already; leave out --fit-fill")
+		}
 	}
 	for _, name := range []string{"wall", "end-wall", "end-wall-a", "end-wall-b", "roughness", "roughness-model", "temperature", "plating", "plating-thickness", "superconducting", "residual"} {
 		if !cmd.Flags().Changed(name) {
@@ -229,22 +253,43 @@ func runResonances(opts *Options) error {
 	}
 	var id *measure.Identification
 	var wd *measure.WallDiagnosis
-	if opts.Identify {
-		f0 := make([]float64, 0, len(rs))
-		q0 := make([]float64, 0, len(rs))
-		for _, r := range rs {
-			f0, q0 = append(f0, r.F0), append(q0, r.Q0)
-		}
-		if hasNaN(f0) {
-			return fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --diameter", opts.File)
-		}
-		got, err := measure.Identify(f0, q0, opts.Ident)
+	var fill *fillResult
+	if opts.Empty != "" {
+		// The empty sweep gives the effective D and L and the walls; the
+		// filled sweep, identified in that cavity, the fill.
+		dE, err := readSweep(opts.Empty)
 		if err != nil {
-			return fmt.Errorf("%s: %w", opts.File, err)
+			return err
 		}
-		id = &got
-		wd, err = diagnose(opts, rs, id)
+		rsE, err := measure.Analyze(dE, opts.Settings)
 		if err != nil {
+			return fmt.Errorf("%s: %w", opts.Empty, err)
+		}
+		emptySet := opts.Ident
+		emptySet.Nominal.Fill = physics.Medium{}
+		idE, err := identify(opts.Empty, rsE, emptySet)
+		if err != nil {
+			return err
+		}
+		if wd, err = diagnose(opts, rsE, idE); err != nil {
+			return fmt.Errorf("%s: %w", opts.Empty, err)
+		}
+		nominalFill := opts.Ident.Nominal.Fill
+		opts.Ident.Nominal = idE.Cavity
+		opts.Ident.Nominal.Fill = nominalFill
+		opts.Ident.FitFill = true
+		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
+			return err
+		}
+		if fill, err = measureFill(rsE, idE, rs, id); err != nil {
+			return fmt.Errorf("%s and %s: %w", opts.Empty, opts.File, err)
+		}
+		fill.empty = idE
+	} else if opts.Identify {
+		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
+			return err
+		}
+		if wd, err = diagnose(opts, rs, id); err != nil {
 			return fmt.Errorf("%s: %w", opts.File, err)
 		}
 	}
@@ -261,6 +306,7 @@ func runResonances(opts *Options) error {
 	case cmdutil.JSON:
 		o := toJSON(opts.File, d, rs, id)
 		o.Walls = wallsJSON(wd)
+		o.Fill = fill.json()
 		return cmdutil.WriteJSON(opts.IO.Out, o)
 	case cmdutil.CSV:
 		return writeCSV(opts, rs, id)
@@ -269,6 +315,9 @@ func runResonances(opts *Options) error {
 		return err
 	}
 	if err := writeWalls(opts, wd); err != nil {
+		return err
+	}
+	if err := writeFill(opts, fill); err != nil {
 		return err
 	}
 	for _, f := range files {
@@ -400,6 +449,7 @@ type outJSON struct {
 	Points     int             `json:"points"`
 	Cavity     *cavityJSON     `json:"fitted_cavity,omitempty"`
 	Walls      *wallJSON       `json:"walls,omitempty"`
+	Fill       *fillJSON       `json:"fill,omitempty"`
 	Resonances []resonanceJSON `json:"resonances"`
 }
 
@@ -683,5 +733,153 @@ func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
 		fmt.Fprintln(w, "The TM modes, whose wall currents cross the joints between side wall and end plates, lose clearly more than the TE0mp modes, whose currents do not: suspect the end-plate contact (clean, flatten or tighten the joints).")
 	}
 	fmt.Fprintln(w, "Roughness, plating and the coupling structures' own loss all lower the effective conductivity; it is a figure of merit of the walls as built, not the metal's bulk value.")
+	return nil
+}
+
+// identify names the modes of the fitted resonances rs of file.
+func identify(file string, rs []measure.Resonance, set measure.IdentifySettings) (*measure.Identification, error) {
+	f0 := make([]float64, 0, len(rs))
+	q0 := make([]float64, 0, len(rs))
+	for _, r := range rs {
+		f0, q0 = append(f0, r.F0), append(q0, r.Q0)
+	}
+	if hasNaN(f0) {
+		return nil, fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --diameter", file)
+	}
+	id, err := measure.Identify(f0, q0, set)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %w", file, err)
+	}
+	return &id, nil
+}
+
+// fillMode is the fill measured at one mode.
+type fillMode struct {
+	mode            cavity.Mode
+	fEmpty, fFilled float64
+	r               measure.DielectricResult
+}
+
+type fillResult struct {
+	empty *measure.Identification
+	modes []fillMode
+	// eps and tand are the means weighted by 1/err^2; their uncertainty is
+	// that of the best single mode, since the wall-model term is common to
+	// every mode and does not average out.
+	eps, epsErr, tand, tandErr float64
+}
+
+// measureFill pairs the modes found matched and resolved in both sweeps
+// and measures the fill at each.
+func measureFill(rsE []measure.Resonance, idE *measure.Identification, rsF []measure.Resonance, idF *measure.Identification) (*fillResult, error) {
+	find := func(id *measure.Identification, m cavity.Mode) int {
+		for i, a := range id.Assign {
+			if a.Matched && !a.Unresolved && a.Mode == m {
+				return i
+			}
+		}
+		return -1
+	}
+	fr := &fillResult{epsErr: math.Inf(1), tandErr: math.Inf(1)}
+	var we, wt, se, st float64
+	for i, a := range idE.Assign {
+		if !a.Matched || a.Unresolved {
+			continue
+		}
+		j := find(idF, a.Mode)
+		if j < 0 {
+			continue
+		}
+		e, f := rsE[i], rsF[j]
+		r, err := measure.MeasureDielectric(measure.DielectricInput{
+			FEmpty: e.F0, FEmptyErr: e.F0Err, FFilled: f.F0, FFilledErr: f.F0Err,
+			Q0Empty: e.Q0, Q0EmptyErr: e.Q0Err, Q0Filled: f.Q0, Q0FilledErr: f.Q0Err,
+		})
+		if err != nil {
+			return nil, fmt.Errorf("%v: %w", a.Mode, err)
+		}
+		fr.modes = append(fr.modes, fillMode{mode: a.Mode, fEmpty: e.F0, fFilled: f.F0, r: r})
+		we += 1 / sq(r.EpsRErr)
+		se += r.EpsR / sq(r.EpsRErr)
+		wt += 1 / sq(r.TanDeltaErr)
+		st += r.TanDelta / sq(r.TanDeltaErr)
+		fr.epsErr = math.Min(fr.epsErr, r.EpsRErr)
+		fr.tandErr = math.Min(fr.tandErr, r.TanDeltaErr)
+	}
+	if len(fr.modes) == 0 {
+		return nil, fmt.Errorf("no mode is identified in both sweeps, so the fill cannot be measured")
+	}
+	fr.eps, fr.tand = se/we, st/wt
+	return fr, nil
+}
+
+func sq(x float64) float64 { return x * x }
+
+type fillModeJSON struct {
+	Mode        string `json:"mode"`
+	FEmptyHz    number `json:"f_empty_hz"`
+	FFilledHz   number `json:"f_filled_hz"`
+	EpsR        number `json:"eps_r"`
+	EpsRErr     number `json:"eps_r_err"`
+	TanDelta    number `json:"tan_delta"`
+	TanDeltaErr number `json:"tan_delta_err"`
+}
+
+type fillJSON struct {
+	EpsR        number         `json:"eps_r"`
+	EpsRErr     number         `json:"eps_r_err"`
+	TanDelta    number         `json:"tan_delta"`
+	TanDeltaErr number         `json:"tan_delta_err"`
+	EmptyDM     number         `json:"empty_diameter_m"`
+	EmptyLM     number         `json:"empty_length_m"`
+	Modes       []fillModeJSON `json:"modes"`
+}
+
+func (fr *fillResult) json() *fillJSON {
+	if fr == nil {
+		return nil
+	}
+	o := &fillJSON{EpsR: number(fr.eps), EpsRErr: number(fr.epsErr), TanDelta: number(fr.tand), TanDeltaErr: number(fr.tandErr),
+		EmptyDM: number(fr.empty.Cavity.Diameter()), EmptyLM: number(fr.empty.Cavity.Length)}
+	for _, m := range fr.modes {
+		o.Modes = append(o.Modes, fillModeJSON{Mode: m.mode.String(), FEmptyHz: number(m.fEmpty), FFilledHz: number(m.fFilled),
+			EpsR: number(m.r.EpsR), EpsRErr: number(m.r.EpsRErr), TanDelta: number(m.r.TanDelta), TanDeltaErr: number(m.r.TanDeltaErr)})
+	}
+	return o
+}
+
+func writeFill(opts *Options, fr *fillResult) error {
+	if fr == nil {
+		return nil
+	}
+	w := opts.IO.Out
+	c := fr.empty.Cavity
+	fmt.Fprintln(w)
+	fmt.Fprintf(w, "Fill, from %s (empty: D = %s mm, L = %s mm) and %s (filled):\n", opts.Empty,
+		pm(c.Diameter(), 2*fr.empty.RadiusErr, 1e-3), pm(c.Length, fr.empty.LengthErr, 1e-3), opts.File)
+	t := cmdutil.NewTable(w, "mode", "f empty (GHz)", "f filled (GHz)", "eps_r", "tan delta")
+	best := 0
+	for i, m := range fr.modes {
+		t.Row(m.mode.String(), strconv.FormatFloat(m.fEmpty/1e9, 'f', 6, 64), strconv.FormatFloat(m.fFilled/1e9, 'f', 6, 64),
+			pm(m.r.EpsR, m.r.EpsRErr, 1), pm(1e4*m.r.TanDelta, 1e4*m.r.TanDeltaErr, 1)+" e-4")
+		if m.r.TanDeltaErr < fr.modes[best].r.TanDeltaErr {
+			best = i
+		}
+	}
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	fmt.Fprintf(w, "Mean over %d modes (weighted): eps_r = %s, tan delta = %s e-4 (uncertainty of the best mode: the wall-model term is common to all).\n",
+		len(fr.modes), pm(fr.eps, fr.epsErr, 1), pm(1e4*fr.tand, 1e4*fr.tandErr, 1))
+	b := fr.modes[best]
+	fmt.Fprintf(w, "Uncertainty budget at %v (one standard deviation each):\n", b.mode)
+	bt := cmdutil.NewTable(w, "  input", "eps_r", "tan delta")
+	for _, x := range b.r.Budget {
+		bt.Row("  "+x.Input, strconv.FormatFloat(x.EpsR, 'e', 1, 64), strconv.FormatFloat(x.TanDelta, 'e', 1, 64))
+	}
+	if err := bt.Flush(); err != nil {
+		return err
+	}
+	fmt.Fprintln(w, "The method needs a complete fill: a gap between the sample and the walls lowers the apparent eps_r.")
 	return nil
 }

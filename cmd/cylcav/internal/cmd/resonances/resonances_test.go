@@ -189,3 +189,34 @@ func TestWallsJSON(t *testing.T) {
 		t.Errorf("--wall without size: exit %d, %q", r.Code, r.Stderr)
 	}
 }
+
+// TestFillJSON: the empty/filled pair of gen_modes.py (fill eps_r 2.08,
+// tan(delta) 4e-4) is measured back within the stated uncertainties.
+func TestFillJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p"),
+		"--diameter", "40mm", "--length", "31mm", "--fill", "ptfe", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Fill struct {
+			EpsR        float64 `json:"eps_r"`
+			EpsRErr     float64 `json:"eps_r_err"`
+			TanDelta    float64 `json:"tan_delta"`
+			TanDeltaErr float64 `json:"tan_delta_err"`
+			Modes       []struct{ Mode string }
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	f := out.Fill
+	if len(f.Modes) != 8 || math.Abs(f.EpsR-2.08) > 4*f.EpsRErr || math.Abs(f.TanDelta-4e-4) > 4*f.TanDeltaErr {
+		t.Errorf("fill: eps_r %.8g +- %.2g, tan(delta) %.3g +- %.2g over %d modes; want 2.08, 4e-4, 8 modes",
+			f.EpsR, f.EpsRErr, f.TanDelta, f.TanDeltaErr, len(f.Modes))
+	}
+	clitest.CheckBadInput(t, "resonances", []clitest.BadCase{
+		{Args: []string{sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p")}, Code: 2, Want: []string{"--empty needs the cavity's size"}},
+		{Args: []string{sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm"}, Code: 2, Want: []string{"--fill"}},
+	})
+}
