@@ -227,7 +227,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	ct.add(false, "Spurious-free window", freq(cl.FreeLow)+" .. "+freq(cl.FreeHigh))
 	reach := r.Analysis.Reach
 	if span := reach.Operation.Span(); span != "" {
-		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(reach.Worst), reach.WorstMode, reach.RatioLo, reach.RatioHi))
+		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(reach.Worst), reach.WorstNames(), reach.RatioLo, reach.RatioHi))
 	}
 	if spec.MinClearance > 0 || !reach.Meets() {
 		verdict := "met"
