@@ -45,13 +45,13 @@ type Options struct {
 func NewCmdChart(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var (
-		units, axes              string
+		units, axes               string
 		freq, ratio, maxFD, minFD float64
-		width, height            float64
-		tol, tolLen              float64
-		tuningText               func() string
-		ratioRange               *cmdutil.Range
-		geo                      *cmdutil.GeometryFlags
+		width, height             float64
+		tol, tolLen               float64
+		tuningText                func() string
+		ratioRange                *cmdutil.Range
+		geo                       *cmdutil.GeometryFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "chart (--diameter D --length L | --mode MODE --freq F --ratio R) -o FILE [flags]",
