@@ -28,6 +28,8 @@ type Quantity struct {
 	parse  func(string) (float64, error)
 	lo, hi float64
 	show   func(float64) string // a range end in user units
+	// symmetric ranges (lo = -hi) are stated as "within +-hi".
+	symmetric bool
 }
 
 // String returns the value as given ("" when not given).
@@ -49,6 +51,9 @@ func (q *Quantity) Set(s string) error {
 		return ValueErrorf("%v", err)
 	}
 	if math.IsNaN(v) || v < q.lo || v > q.hi {
+		if q.symmetric {
+			return ValueErrorf("must be within +-%s", q.show(q.hi))
+		}
 		return ValueErrorf("must be between %s and %s", q.show(q.lo), q.show(q.hi))
 	}
 	*q.p, q.text = v, s

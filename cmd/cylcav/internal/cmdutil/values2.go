@@ -361,3 +361,37 @@ func NumberListVar(fs *pflag.FlagSet, p *[]float64, name, usage string, lo, hi f
 	fs.Var(l, name, usage)
 	return l
 }
+
+// CoefficientVar defines a temperature coefficient flag (23ppm, 2.3e-5)
+// stored in 1/K in p, valid within +-max.
+func CoefficientVar(fs *pflag.FlagSet, p *float64, name, usage string, max float64) *Quantity {
+	show := func(v float64) string { return fmt.Sprintf("%g ppm/K", v*1e6) }
+	return addQuantity(fs, &Quantity{p: p, kind: "coefficient", parse: physics.ParseCoefficient, lo: -max, hi: max, show: show, symmetric: true}, name, usage)
+}
+
+// Conductor is a flag value holding a wall metal: a library name or
+// key=value pairs, parsed by physics.ParseConductor.
+type Conductor struct {
+	p    *physics.Conductor
+	text string
+}
+
+func (c *Conductor) String() string { return c.text }
+func (c *Conductor) Type() string   { return "metal" }
+
+// Set parses s as a wall metal.
+func (c *Conductor) Set(s string) error {
+	v, err := physics.ParseConductor(s)
+	if err != nil {
+		return ValueErrorf("%v", err)
+	}
+	*c.p, c.text = v, s
+	return nil
+}
+
+// ConductorVar defines a wall-metal flag stored in p.
+func ConductorVar(fs *pflag.FlagSet, p *physics.Conductor, name, usage string) *Conductor {
+	c := &Conductor{p: p}
+	fs.Var(c, name, usage)
+	return c
+}
