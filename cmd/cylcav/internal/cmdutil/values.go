@@ -45,8 +45,11 @@ func (q *Quantity) Text() string { return q.text }
 func (q *Quantity) Set(s string) error {
 	v, err := q.parse(s)
 	if err != nil {
-		if q.kind == "number" { // as Number: the unit cannot be the slip
+		switch q.kind { // the unit cannot be the slip: state the range
+		case "number":
 			return ValueErrorf("%v; want a number between %s and %s", err, q.show(q.lo), q.show(q.hi))
+		case "dB":
+			return ValueErrorf("%v; want a level between %s and %s", err, q.show(q.lo), q.show(q.hi))
 		}
 		return ValueErrorf("%v", err)
 	}
