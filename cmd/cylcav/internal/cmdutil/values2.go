@@ -9,6 +9,7 @@ import (
 
 	"github.com/spf13/pflag"
 
+	"cylcav/cavity"
 	"cylcav/physics"
 )
 
@@ -394,4 +395,45 @@ func ConductorVar(fs *pflag.FlagSet, p *physics.Conductor, name, usage string) *
 	c := &Conductor{p: p}
 	fs.Var(c, name, usage)
 	return c
+}
+
+// Point is a flag value holding a point in a cavity as RHO,PHI,Z: two
+// lengths with their units and an azimuth in degrees (a bare number or
+// "deg"), stored as a cavity.Point (PHI in radians). Whether the point
+// lies in the cavity is the command's check.
+type Point struct {
+	p    *cavity.Point
+	text string
+}
+
+func (pt *Point) String() string { return pt.text }
+func (pt *Point) Type() string   { return "point" }
+
+// Set parses s as RHO,PHI,Z; an error about one length quotes it.
+func (pt *Point) Set(s string) error {
+	parts := strings.Split(s, ",")
+	if len(parts) != 3 {
+		return ValueErrorf("want RHO,PHI,Z such as 20mm,0,15mm")
+	}
+	rho, err := parseLength(parts[0])
+	if err != nil {
+		return ItemErrorf(parts[0], "%v", err)
+	}
+	deg, err := physics.ParseNumber(strings.TrimSuffix(strings.TrimSpace(parts[1]), "deg"))
+	if err != nil {
+		return ValueErrorf("PHI %q is not a number of degrees", parts[1])
+	}
+	z, err := parseLength(parts[2])
+	if err != nil {
+		return ItemErrorf(parts[2], "%v", err)
+	}
+	*pt.p, pt.text = cavity.Point{Rho: rho, Phi: deg * math.Pi / 180, Z: z}, s
+	return nil
+}
+
+// PointVar defines a point flag (20mm,0,15mm) stored in p.
+func PointVar(fs *pflag.FlagSet, p *cavity.Point, name, usage string) *Point {
+	pt := &Point{p: p}
+	fs.Var(pt, name, usage)
+	return pt
 }
