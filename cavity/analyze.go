@@ -37,6 +37,12 @@ type Analysis struct {
 	// Spread is the Monte Carlo result; nil without a tolerance.
 	Spread *Spread
 	Curve  TradeOff
+	// Reach is the reachable set over the tuning range, the temperature
+	// range and the worst-case machining tolerance (Settings.Tolerance's
+	// Diameter and Length as +- limits), with the worst-case clearance and
+	// the offending modes: Cavity.Reach, the one verdict that design, the
+	// mode chart and the datasheet print.
+	Reach Reach
 }
 
 // TradeOff holds the curves of a design problem against D/L, for plotting:
@@ -53,7 +59,8 @@ type TradeOff struct {
 }
 
 // Analyze computes the sensitivities of the design's wanted mode, the
-// lengths at the ends of its tuning range, its drift at the ends of its
+// reachable set with its worst-case clearance (Cavity.Reach, tolerance
+// included), the lengths at the ends of its tuning range, its drift at the ends of its
 // temperature range, the Monte Carlo spread of its machining tolerance and
 // the trade-off curves of its problem over the allowed D/L range.
 //
@@ -92,6 +99,11 @@ func Analyze(d Design, set AnalysisSettings) (Analysis, error) {
 	spec := p.spec
 	a := Analysis{Settings: set}
 	var err error
+	op := d.Spec.Operation()
+	op.DiameterTol, op.LengthTol = set.Tolerance.Diameter, set.Tolerance.Length
+	if a.Reach, err = d.Cavity.Reach(op); err != nil {
+		return Analysis{}, err
+	}
 	if a.Sensitivity, err = d.Cavity.Sensitivity(spec.Mode, spec.Thermal); err != nil {
 		return Analysis{}, err
 	}
@@ -106,8 +118,9 @@ func Analyze(d Design, set AnalysisSettings) (Analysis, error) {
 		for i, T := range []float64{th.TMin, th.TMax} {
 			dT := T - th.ref()
 			c := d.Cavity
-			c.Radius *= 1 + th.AlphaRadial*dT
-			c.Length *= 1 + th.AlphaAxial*dT
+			r, z := th.sizes(T)
+			c.Radius *= r
+			c.Length *= z
 			c.Fill.EpsR = spec.Fill.Eps() * (1 + th.TauEps*dT)
 			a.Drift[i] = c.Frequency(spec.Mode) - d.Cavity.Frequency(spec.Mode)
 		}

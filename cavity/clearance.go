@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
 )
 
 // Neighbour is another resonance seen from a wanted mode: its mode, its
@@ -266,4 +267,347 @@ func clearanceAtRatio(w Mode, s float64, countDegenerate bool) (float64, Mode, e
 		return 0, Mode{}, err
 	}
 	return cl.Value, cl.Limiting, nil
+}
+
+// Operation describes how a built cavity is used and made: the wanted mode,
+// the tuning by one end plate, the worst-case machining tolerance and the
+// temperature range. Cavity.Reach turns it into the reachable set and the
+// worst-case clearance. The zero value of every optional field means "none".
+type Operation struct {
+	Mode Mode
+	// Tuning is the half-width of the tuning range as a fraction (0.01
+	// for +-1 %): at every temperature and size within tolerance the end
+	// plate tunes the cavity over (1 +- Tuning) of its own frequency
+	// (the model of DesignSpec.Tuning). It needs p >= 1 (EndPlateTuning).
+	Tuning float64
+	// DiameterTol and LengthTol are the worst-case machining tolerances
+	// +-t in m, 0 <= t < a tenth of the dimension.
+	DiameterTol, LengthTol float64
+	// Thermal gives the expansion coefficients and the temperature range
+	// (TRef is the temperature at which the cavity has its nominal size).
+	Thermal Thermal
+	// MinClearance is the required clearance (fraction); modes closer than
+	// it somewhere on the set are listed in Reach.Offending.
+	MinClearance float64
+	// CountDegenerate counts the exact companion (see ClearanceOptions).
+	CountDegenerate bool
+}
+
+// ToleranceError reports a machining tolerance outside 0..a tenth of its
+// dimension, where the worst-case reach is no longer a small-error model.
+type ToleranceError struct {
+	Name       string  // "diameter tolerance" or "length tolerance"
+	Value, Max float64 // m
+}
+
+// Error names the tolerance, its value and the limit.
+func (e *ToleranceError) Error() string {
+	return fmt.Sprintf("cavity: %s must be in 0..%.4g m (below a tenth of the dimension), got %g m", e.Name, e.Max, e.Value)
+}
+
+// Span names, for people, what the reachable set of op spans: "tuning,
+// temperature and machining tolerance", any one or two of them, or ""
+// when the set is the nominal cavity alone.
+func (op Operation) Span() string {
+	var parts []string
+	if op.Tuning > 0 {
+		parts = append(parts, "tuning")
+	}
+	if op.Thermal.hasRange() {
+		parts = append(parts, "temperature")
+	}
+	if op.DiameterTol > 0 || op.LengthTol > 0 {
+		parts = append(parts, "machining tolerance")
+	}
+	switch len(parts) {
+	case 0:
+		return ""
+	case 1:
+		return parts[0]
+	}
+	return strings.Join(parts[:len(parts)-1], ", ") + " and " + parts[len(parts)-1]
+}
+
+// Offender is a spurious mode that comes within the required clearance of
+// the wanted mode somewhere on the reachable set, or crosses it there.
+type Offender struct {
+	Mode Mode
+	// Clearance is the smallest |f_i / f_w - 1| over the set (zero when
+	// the mode crosses the wanted one).
+	Clearance float64
+	// Crosses is true when f_i = f_w somewhere on the set.
+	Crosses bool
+	// Ratio is the D/L where the smallest distance is reached.
+	Ratio float64
+}
+
+// Reach is the reachable set of a cavity in operation and its worst-case
+// clearance, the single verdict that the optimiser, the mode chart, the
+// tuning table and the datasheet all report.
+//
+// On the mode chart every state of the wanted mode lies on its own line,
+// so the reachable set is the segment of the wanted mode's line over
+// D/L = RatioLo..RatioHi (not a box in D/L and f·D: the chart's corners
+// away from the line are never reached).
+type Reach struct {
+	Mode Mode
+	// Ratio is the nominal D/L; RatioLo..RatioHi the D/L span of the set.
+	Ratio, RatioLo, RatioHi float64
+	// Worst is the smallest clearance anywhere on the set, reached at
+	// D/L = WorstRatio and set by WorstMode (zero when a mode crosses).
+	// It is exact: the minimum over the whole segment, not over samples.
+	Worst      float64
+	WorstMode  Mode
+	WorstRatio float64
+	// Operation is the request the set was computed for.
+	Operation Operation
+	// Offending lists every mode that crosses the wanted one on the set
+	// or comes within MinClearance of it, by increasing Clearance (ties in
+	// mode order: TE before TM, then n, m, p). A TE0mp/TM1mp pair of
+	// spurious modes is listed once, by its TE member.
+	Offending []Offender
+}
+
+// Meets reports whether the worst-case clearance is at least the required
+// one and no mode crosses the wanted one.
+func (r Reach) Meets() bool { return len(r.Offending) == 0 }
+
+// Verdict states the worst case for people: "worst over tuning 7.231 %
+// (TE311)", then, with a required clearance or a crossing mode, whether it
+// is met and which modes offend, each with its smallest clearance and
+// where it is reached ("required 7 %: NOT met: TE112 6.95 % at D/L
+// 1.42"). Every command prints this one sentence.
+func (r Reach) Verdict() string {
+	var b strings.Builder
+	span := r.Operation.Span()
+	if span == "" {
+		span = "the nominal size"
+	}
+	fmt.Fprintf(&b, "worst over %s %.3f %% (%s)", span, 100*r.Worst, r.WorstMode)
+	if r.Operation.MinClearance == 0 && len(r.Offending) == 0 {
+		return b.String()
+	}
+	if r.Operation.MinClearance > 0 {
+		fmt.Fprintf(&b, "; required %.4g %%", 100*r.Operation.MinClearance)
+	}
+	if r.Meets() {
+		b.WriteString(": met")
+		return b.String()
+	}
+	b.WriteString(": NOT met: ")
+	for i, o := range r.Offending {
+		if i > 0 {
+			b.WriteString(", ")
+		}
+		if o.Crosses {
+			fmt.Fprintf(&b, "%s crosses at D/L %.4g", o.Mode, o.Ratio)
+		} else {
+			fmt.Fprintf(&b, "%s %.3f %% at D/L %.4g", o.Mode, 100*o.Clearance, o.Ratio)
+		}
+	}
+	return b.String()
+}
+
+// Reach returns the set of D/L ratios that cavity c visits in operation op
+// and the worst-case clearance of the wanted mode over it (derived).
+//
+// Method: machining errors within +-DiameterTol, +-LengthTol give D/L in
+// (D - dD)/(L + dL) .. (D + dD)/(L - dL) (exact, not first order). The
+// temperature then scales D/L by kappa(T) = (1 + alpha_r dT)/(1 + alpha_z
+// dT) and tuning to (1 + t) of the frequency at fixed D moves s = (D/L)^2
+// to (1 + t)^2 (s + a0) - a0 (see newPath). All three maps are increasing
+// in s, so the set is one interval of s. Each ratio f_i/f_w is monotone in
+// s (see chartMode), so the smallest distance of each mode over the
+// interval is at an end of it, or zero where the mode crosses the wanted
+// one (a linear equation in s). The modes are listed by chartModes with a
+// bound above the clearance at one end, which makes the list complete.
+//
+// Errors: invalid cavity, mode or thermal model; a tolerance outside
+// 0..a tenth of its dimension; a tuning outside 0..MaxTuning or of a mode
+// that an end plate does not tune (EndPlateTuning); a set that reaches
+// outside MinDesignRatio..MaxDesignRatio; more than MaxChartModes modes
+// near the wanted one.
+func (c Cavity) Reach(op Operation) (Reach, error) {
+	w := op.Mode
+	if err := c.Validate(); err != nil {
+		return Reach{}, err
+	}
+	if err := w.Validate(); err != nil {
+		return Reach{}, err
+	}
+	D, L := c.Diameter(), c.Length
+	for _, q := range []struct {
+		name   string
+		v, dim float64
+	}{{"diameter tolerance", op.DiameterTol, D}, {"length tolerance", op.LengthTol, L}} {
+		if !(q.v >= 0 && q.v < q.dim/10) {
+			return Reach{}, &ToleranceError{Name: q.name, Value: q.v, Max: q.dim / 10}
+		}
+	}
+	if !(op.Tuning >= 0 && op.Tuning <= MaxTuning) {
+		return Reach{}, fmt.Errorf("cavity: tuning range must be in 0..%g (a fraction; 0.02 is +-2 %%), got %g", MaxTuning, op.Tuning)
+	}
+	if op.Tuning > 0 {
+		if err := w.EndPlateTuning(); err != nil {
+			return Reach{}, err
+		}
+	}
+	if !(op.MinClearance >= 0 && op.MinClearance < 1) {
+		return Reach{}, fmt.Errorf("cavity: minimum clearance must be in 0..1 (a fraction; 0.03 is 3 %%), got %g", op.MinClearance)
+	}
+	if err := op.Thermal.Validate(); err != nil {
+		return Reach{}, err
+	}
+	kmin, kmax := op.Thermal.kappaRange()
+	wc := newChartMode(w)
+	var a0 float64
+	if wc.gp > 0 {
+		a0 = wc.gx / wc.gp
+	}
+	pa := newPath(a0, op.Tuning, kmin, kmax)
+	sLo := pa.lo.at(sq((D - op.DiameterTol) / (L + op.LengthTol)))
+	sHi := pa.hi.at(sq((D + op.DiameterTol) / (L - op.LengthTol)))
+	if !(sLo >= sq(MinDesignRatio)) {
+		if op.Tuning > 0 && sLo <= 0 {
+			return Reach{}, fmt.Errorf("cavity: %s cannot be tuned down by %.4g %% by one end plate: its frequency never falls below %.6g Hz however long the cavity; lower the tuning", w, 100*op.Tuning, frequency(c.scale(), w.Root(), c.Radius, 0, 1))
+		}
+		return Reach{}, fmt.Errorf("cavity: the reachable D/L falls to %.4g, below %g (the reach of the mode chart); lower the tuning or the tolerance", math.Sqrt(math.Max(sLo, 0)), MinDesignRatio)
+	}
+	if sHi > sq(MaxDesignRatio) {
+		return Reach{}, fmt.Errorf("cavity: the reachable D/L rises to %.4g, above %g (the reach of the mode chart); lower the tuning or the tolerance", math.Sqrt(sHi), MaxDesignRatio)
+	}
+	out := Reach{Mode: w, Ratio: D / L, RatioLo: math.Sqrt(sLo), RatioHi: math.Sqrt(sHi), Operation: op}
+	sp, err := spanClearance(wc, interval{sLo, sHi}, op.MinClearance, op.CountDegenerate)
+	if err != nil {
+		return Reach{}, err
+	}
+	out.Worst, out.WorstMode, out.WorstRatio = sp.worst, sp.worstMode, math.Sqrt(sp.worstS)
+	for _, o := range sp.modes {
+		if o.Crosses || o.Clearance < op.MinClearance {
+			out.Offending = append(out.Offending, o)
+		}
+	}
+	return out, nil
+}
+
+// span is the clearance of a wanted mode over an interval of s.
+type span struct {
+	worst     float64
+	worstMode Mode
+	worstS    float64
+	// modes holds every listed mode with its smallest distance over the
+	// interval, sorted by distance, then mode order.
+	modes []Offender
+	// crossS holds, parallel to modes, the s where a crossing mode meets
+	// the wanted one (0 for the others).
+	crossS []float64
+}
+
+// spanClearance returns the smallest distance |rho_i - 1| of every mode
+// that comes within b of the wanted mode w over iv, and the worst of them,
+// with the list made complete for the worst case (derived; see Reach).
+func spanClearance(w chartMode, iv interval, b float64, countDegenerate bool) (span, error) {
+	// Any mode that sets the worst clearance is within the clearance at
+	// iv.lo of the wanted mode somewhere on iv.
+	v0, _, err := clearanceAtRatio(w.mode, iv.lo, countDegenerate)
+	if err != nil {
+		return span{}, err
+	}
+	bound := math.Max(b, v0)*(1+1e-9) + 1e-12
+	modes, err := chartModes(w.mode, iv.lo, iv.hi, bound, countDegenerate)
+	if err != nil {
+		return span{}, err
+	}
+	out := span{worst: math.Inf(1)}
+	type item struct {
+		o Offender
+		s float64
+	}
+	var items []item
+	for _, m := range modes {
+		r1 := math.Sqrt(m.g(iv.lo)/w.g(iv.lo)) - 1
+		r2 := math.Sqrt(m.g(iv.hi)/w.g(iv.hi)) - 1
+		it := item{o: Offender{Mode: m.mode}}
+		switch {
+		case (r1 <= 0) != (r2 <= 0) || r1 == 0 || r2 == 0:
+			// The lines meet where gx_m + gp_m s = gx_w + gp_w s.
+			s := iv.lo
+			if d := m.gp - w.gp; d != 0 {
+				s = math.Min(math.Max((w.gx-m.gx)/d, iv.lo), iv.hi)
+			} else if r2 == 0 {
+				s = iv.hi
+			}
+			it.o.Crosses, it.s = true, s
+			it.o.Ratio = math.Sqrt(s)
+		case math.Abs(r1) <= math.Abs(r2):
+			it.o.Clearance, it.o.Ratio = math.Abs(r1), math.Sqrt(iv.lo)
+		default:
+			it.o.Clearance, it.o.Ratio = math.Abs(r2), math.Sqrt(iv.hi)
+		}
+		items = append(items, it)
+	}
+	slices.SortStableFunc(items, func(a, b item) int {
+		if c := cmpFloat(a.o.Clearance, b.o.Clearance); c != 0 {
+			return c
+		}
+		return compareModes(a.o.Mode, b.o.Mode)
+	})
+	for _, it := range items {
+		out.modes = append(out.modes, it.o)
+		out.crossS = append(out.crossS, it.s)
+	}
+	if len(items) > 0 {
+		o := items[0].o
+		out.worst, out.worstMode, out.worstS = o.Clearance, o.Mode, sq(o.Ratio)
+	}
+	return out, nil
+}
+
+// kappaRange returns the smallest and largest factor by which the
+// temperature range scales D/L, each including 1 (the reference).
+func (t Thermal) kappaRange() (kmin, kmax float64) {
+	kmin, kmax = 1, 1
+	if t.hasRange() {
+		k1, k2 := t.ratioScale(t.TMin), t.ratioScale(t.TMax)
+		kmin, kmax = math.Min(1, math.Min(k1, k2)), math.Max(1, math.Max(k1, k2))
+	}
+	return kmin, kmax
+}
+
+// ModesBelow returns the modes of c that resonate strictly below mode w,
+// lowest first, at most max of them, and how many there are in all. An
+// accelerating TM010 cell whose length exceeds about 2.03 times its
+// radius has TE111 below it (Pozar, Microwave Engineering, 4th ed., sec.
+// 6.4, with j'_11 = 1.8412 and j_01 = 2.4048: derived), so it is no longer
+// the fundamental mode. Errors: invalid cavity or mode, max < 1, or those
+// of Count.
+func (c Cavity) ModesBelow(w Mode, max int) ([]Resonance, int, error) {
+	if err := c.Validate(); err != nil {
+		return nil, 0, err
+	}
+	if err := w.Validate(); err != nil {
+		return nil, 0, err
+	}
+	if max < 1 {
+		return nil, 0, fmt.Errorf("cavity: number of modes must be >= 1, got %d", max)
+	}
+	f := math.Nextafter(c.Frequency(w), 0)
+	n, _, err := c.Count(f)
+	if err != nil {
+		return nil, 0, err
+	}
+	if n == 0 {
+		return nil, 0, nil
+	}
+	low, err := c.Lowest(min(n, max))
+	if err != nil {
+		return nil, 0, err
+	}
+	out := low[:0]
+	for _, r := range low {
+		if r.Frequency <= f {
+			out = append(out, r)
+		}
+	}
+	return out, n, nil
 }

@@ -33,6 +33,13 @@
 //     k lowest; Cavity.Count: how many, with and without polarisations.
 //   - Size: the dimensions that put a mode at a target frequency given one
 //     of the ratio D/L, the diameter or the length.
+//   - Cavity.Clearance: the spectrum around a wanted mode; Cavity.Reach: the
+//     reachable set of a cavity in operation (end-plate tuning, temperature
+//     range, worst-case machining tolerance) and its exact worst-case
+//     clearance and offending modes, the one verdict every command prints.
+//   - Mode.EndPlateTuning: whether an end plate tunes a mode (not for
+//     p = 0); Cavity.Tune: the tuning curve; Cavity.SphereShift: the Slater
+//     eigen-shifts of the degenerate set under a small sphere or screw tip.
 //
 // All quantities are SI (m, Hz, rad/m). Bessel zeros come from
 // physics/bessel; their accuracy (about 1e-14 relative) bounds that of
@@ -59,6 +66,9 @@
 //     and L. C. Maier, J. C. Slater, Field strength measurements in
 //     resonant cavities, J. Appl. Phys. 23, 68 (1952): the perturbation
 //     theorem behind SphereShift and EndPlateShift.
+//   - G. H. Golub, C. F. Van Loan, Matrix Computations, 4th ed., Johns
+//     Hopkins (2013), sec. 8.5: the cyclic Jacobi method that gives
+//     SphereShift the eigen-shifts of a degenerate set.
 //   - D. Kajfez, P. Guillon (eds.), Dielectric Resonators, Artech House
 //     (1986): tau_f = -alpha - tau_eps/2 (Sensitivity).
 //   - T. F. Chan, G. H. Golub, R. J. LeVeque, Updating formulae and a

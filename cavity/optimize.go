@@ -31,13 +31,15 @@ func (o Objective) String() string {
 }
 
 // Thermal describes how a cavity's dimensions and fill change with
-// temperature, in the linear model D(T) = D0 (1 + AlphaRadial (T - TRef)),
-// L(T) = L0 (1 + AlphaAxial (T - TRef)), eps(T) = eps0 (1 + TauEps (T -
-// TRef)). The zero value is a cavity that does not change and no
-// temperature range.
+// temperature. By default the model is linear: D(T) = D0 (1 + AlphaRadial
+// (T - TRef)), L(T) = L0 (1 + AlphaAxial (T - TRef)); SizeRadial and
+// SizeAxial, when set, replace it with any measured law (for example the
+// integrated cryogenic contraction of physics.Conductor.SizeRatio). The fill
+// follows eps(T) = eps0 (1 + TauEps (T - TRef)). The zero value is a cavity
+// that does not change and no temperature range.
 type Thermal struct {
 	// AlphaRadial is the linear expansion coefficient of the side wall
-	// (it sets the diameter), 1/K.
+	// (it sets the diameter) at TRef, 1/K. The sensitivities use it.
 	AlphaRadial float64
 	// AlphaAxial is that of whatever sets the length (end spacers, the
 	// tuning rod), 1/K.
@@ -51,6 +53,10 @@ type Thermal struct {
 	// TRef is the temperature at which the design frequency holds, K; zero
 	// means the middle of TMin..TMax.
 	TRef float64
+	// SizeRadial and SizeAxial, when not nil, return D(T)/D(TRef) and
+	// L(T)/L(TRef) over TMin..TMax, in place of the linear model. They
+	// must return 1 at TRef.
+	SizeRadial, SizeAxial func(T float64) float64
 }
 
 // hasRange reports whether a temperature range is set.
@@ -64,9 +70,23 @@ func (t Thermal) ref() float64 {
 	return 0.5 * (t.TMin + t.TMax)
 }
 
+// sizes returns D(T)/D(TRef) and L(T)/L(TRef).
+func (t Thermal) sizes(T float64) (radial, axial float64) {
+	dT := T - t.ref()
+	radial, axial = 1+t.AlphaRadial*dT, 1+t.AlphaAxial*dT // linear model
+	if t.SizeRadial != nil {
+		radial = t.SizeRadial(T)
+	}
+	if t.SizeAxial != nil {
+		axial = t.SizeAxial(T)
+	}
+	return radial, axial
+}
+
 // Validate reports whether the coefficients are finite and within +-1e-3
 // 1/K, and the range, if any, is ordered within 1..3000 K with a positive
-// reference temperature and every 1 + alpha dT > 0.
+// reference temperature and every size factor and 1 + tau_eps dT finite
+// and > 0 at both ends.
 func (t Thermal) Validate() error {
 	for _, q := range []struct {
 		name string
@@ -87,19 +107,19 @@ func (t Thermal) Validate() error {
 	}
 	for _, T := range []float64{t.TMin, t.TMax} {
 		dT := T - t.ref()
-		if 1+t.AlphaRadial*dT <= 0 || 1+t.AlphaAxial*dT <= 0 || 1+t.TauEps*dT <= 0 {
-			return fmt.Errorf("cavity: the linear thermal model breaks down %g K away from the reference temperature", dT)
+		r, a := t.sizes(T)
+		if !(r > 0 && a > 0 && 1+t.TauEps*dT > 0) || math.IsInf(r, 0) || math.IsInf(a, 0) {
+			return fmt.Errorf("cavity: the thermal model breaks down %g K away from the reference temperature", dT)
 		}
 	}
 	return nil
 }
 
-// ratioScale returns the factor kappa(T) = (1 + alpha_r dT)/(1 + alpha_z dT)
-// by which D/L changes from the reference temperature to T (derived from
-// the linear model).
+// ratioScale returns the factor kappa(T) = (D(T)/D(TRef))/(L(T)/L(TRef))
+// by which D/L changes from the reference temperature to T (derived).
 func (t Thermal) ratioScale(T float64) float64 {
-	dT := T - t.ref()
-	return (1 + t.AlphaRadial*dT) / (1 + t.AlphaAxial*dT)
+	r, a := t.sizes(T)
+	return r / a
 }
 
 // DesignSpec is a design problem for Optimize. Zero values of optional
@@ -145,6 +165,17 @@ type DesignSpec struct {
 	CountDegenerate bool
 }
 
+// Operation returns how a design of this spec is used, for Cavity.Reach:
+// its mode, tuning, temperature range, required clearance and companion
+// rule, with no machining tolerance (Analyze adds the tolerance of its
+// settings).
+func (spec DesignSpec) Operation() Operation {
+	return Operation{
+		Mode: spec.Mode, Tuning: spec.Tuning, Thermal: spec.Thermal,
+		MinClearance: spec.MinClearance, CountDegenerate: spec.CountDegenerate,
+	}
+}
+
 // Default and limiting ratio ranges of Optimize.
 const (
 	DefaultRatioMin = 0.5
@@ -178,9 +209,13 @@ type Design struct {
 	// Clearance is the spectrum at the nominal dimensions: clearance,
 	// nearest modes, companion.
 	Clearance Clearance
-	// WorstClearance is the clearance at the worst point of the tuning
-	// and temperature path (equal to Clearance.Value without either), and
-	// WorstMode the mode that sets it.
+	// Reach is the reachable set of the design over its tuning and
+	// temperature range with its worst-case clearance and offending modes:
+	// Cavity.Reach of spec.Operation(). Analysis.Reach adds the machining
+	// tolerance.
+	Reach Reach
+	// WorstClearance is Reach.Worst (equal to Clearance.Value without
+	// tuning or temperature range), and WorstMode the mode that sets it.
 	WorstClearance float64
 	WorstMode      Mode
 
@@ -371,14 +406,10 @@ func Optimize(spec DesignSpec) (Design, error) {
 	if err != nil {
 		return Design{}, err
 	}
-	v, k := envW.at(s, nil)
-	d.WorstClearance, d.WorstMode = v, d.Clearance.Limiting
-	if k >= 0 {
-		d.WorstMode = envW.modes[k].mode
+	if d.Reach, err = d.Cavity.Reach(spec.Operation()); err != nil {
+		return Design{}, err
 	}
-	if p.path.identity() {
-		d.WorstClearance, d.WorstMode = d.Clearance.Value, d.Clearance.Limiting
-	}
+	d.WorstClearance, d.WorstMode = d.Reach.Worst, d.Reach.WorstMode
 	d.Q0 = math.NaN()
 	if spec.Q != nil {
 		if d.Q0, err = spec.Q(d.Cavity); err != nil {
@@ -430,8 +461,10 @@ func newProblem(spec DesignSpec) (*problem, error) {
 	if !(spec.Tuning >= 0 && spec.Tuning <= MaxTuning) {
 		return nil, fmt.Errorf("cavity: tuning range must be in 0..%g (a fraction; 0.02 is +-2 %%), got %g", MaxTuning, spec.Tuning)
 	}
-	if spec.Tuning > 0 && spec.Mode.P == 0 {
-		return nil, fmt.Errorf("cavity: %s has p = 0, so its frequency does not depend on the length and an end plate cannot tune it; choose a mode with p >= 1 or drop the tuning range", spec.Mode)
+	if spec.Tuning > 0 {
+		if err := spec.Mode.EndPlateTuning(); err != nil {
+			return nil, err
+		}
 	}
 	if err := spec.Thermal.Validate(); err != nil {
 		return nil, err

@@ -95,8 +95,9 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	if sh.Demo {
 		sh.Title = r.Scenario.Title
 	}
-	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s", w, freq(spec.Frequency),
-		length(c.Diameter()), length(c.Length))
+	operate, machine := r.Scenario.Temps()
+	sh.Headline = fmt.Sprintf("%v at %s, D = %s, L = %s at %s", w, freq(spec.Frequency),
+		length(c.Diameter()), length(c.Length), temp(operate))
 	sh.Convention = "Modes are named TE_nmp and TM_nmp: n is the azimuthal index (fields vary as cos nφ or sin nφ), " +
 		"m the radial index (the m-th zero of J'_n for TE, of J_n for TM), p the axial index (half-wavelengths along the length; " +
 		"p ≥ 1 for TE, p ≥ 0 for TM). TE0mp and TM1mp resonate at exactly the same frequency in every cylinder."
@@ -115,7 +116,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 
 	// Dimensions and tolerances.
-	dim := Table{Caption: "Dimensions and tolerances (inside surfaces)", Header: []string{"Quantity", "Value", "Note"}}
+	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("on the edge of the allowed range (%s)", d.Limit)
@@ -126,6 +127,10 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	dim.add(false, "Diameter D", length(c.Diameter()), tolText(tol.Diameter))
 	dim.add(false, "Radius a", length(c.Radius), "")
 	dim.add(false, "Length L", length(c.Length), tolText(tol.Length))
+	if m := r.Machined; m != c {
+		dim.add(false, "Diameter D at "+temp(machine), length(m.Diameter()), "machine to this; it becomes D at "+temp(operate))
+		dim.add(false, "Length L at "+temp(machine), length(m.Length), "machine to this")
+	}
 	dim.add(false, "Ratio D/L", strconv.FormatFloat(d.Ratio, 'f', 6, 64), fmt.Sprintf("allowed %.4g..%.4g; %s", d.AllowedRatio[0], d.AllowedRatio[1], edge))
 	if spec.Tuning > 0 {
 		dim.add(false, "Length at f (1 − tuning)", length(r.Analysis.TunedLength[0]), fmt.Sprintf("tuning ±%s by one end plate", short(spec.Tuning)))
@@ -141,8 +146,8 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		return nil, err
 	}
 	var qOf func(m cavity.Mode) (float64, error)
-	if r.Scenario.Wall != nil {
-		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall)(c) }
+	if ok, _ := r.Scenario.WallQ(); ok {
+		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, operate)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
 		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},
@@ -197,7 +202,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Q0 breakdown.
 	if u := r.Unloaded; u != nil {
 		wall := r.Scenario.Wall
-		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at 20 °C, smooth surfaces)", w, wall.Name),
+		q := Table{Caption: fmt.Sprintf("Unloaded Q of %v (%s walls at %s, smooth surfaces)", w, wall.Name, temp(operate)),
 			Header: []string{"Part", "Surface resistance", "Partial Q", "Share of loss"},
 			Num:    []bool{false, true, true, true}}
 		q.add(false, "Side wall", ohm(u.Wall.Rs.Side), qText(u.Wall.QSide), pct(u.Share.Side))
@@ -220,11 +225,16 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		ct.add(false, "Nearest above", fmt.Sprintf("%v at %s (%s)", cl.Above.Mode, freq(cl.Above.Frequency), signedPct(cl.Above.Relative)))
 	}
 	ct.add(false, "Spurious-free window", freq(cl.FreeLow)+" .. "+freq(cl.FreeHigh))
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		ct.add(false, "Worst over tuning and temperature", pct(d.WorstClearance)+", set by "+d.WorstMode.String())
+	reach := r.Analysis.Reach
+	if span := reach.Operation.Span(); span != "" {
+		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(reach.Worst), reach.WorstMode, reach.RatioLo, reach.RatioHi))
 	}
-	if spec.MinClearance > 0 {
-		ct.add(false, "Required", pct(spec.MinClearance))
+	if spec.MinClearance > 0 || !reach.Meets() {
+		verdict := "met"
+		if !reach.Meets() {
+			verdict = "NOT met: " + offenders(reach)
+		}
+		ct.add(!reach.Meets(), "Required "+pct(spec.MinClearance), verdict)
 	}
 	for _, m := range cl.Degenerate {
 		ct.add(false, "Exact companion", m.String()+" (not counted; needs a mode trap, a plunger gap or coupling on its field nulls)")
@@ -241,7 +251,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
 		st.add(false, "Temperature range", temp(th.TMin)+" .. "+temp(th.TMax))
-		st.add(false, "Expansion: side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
+		st.add(false, "Expansion at "+temp(operate)+": side wall / length", fmt.Sprintf("%.3g / %.3g ppm/K", 1e6*th.AlphaRadial, 1e6*th.AlphaAxial))
 		st.add(false, "Drift at the range ends", signedFreq(r.Analysis.Drift[0])+" / "+signedFreq(r.Analysis.Drift[1]))
 	}
 	sh.Sensitive = st
@@ -266,28 +276,38 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		sh.Spread = t
 	}
 
-	// Tuning curve: over the tuning range widened by half, or L ± 5 %.
-	lLo, lHi := 0.95*c.Length, 1.05*c.Length
-	if spec.Tuning > 0 {
-		a, b := math.Min(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1]), math.Max(r.Analysis.TunedLength[0], r.Analysis.TunedLength[1])
-		lLo, lHi = a-0.25*(b-a), b+0.25*(b-a)
+	// Tuning curve: over the reachable set (cavity.Reach) expressed as
+	// end-plate spacings at the nominal diameter, so that its worst case
+	// is the one of the clearance table; L ± 5 % for illustration when the
+	// set is a single point. A mode an end plate does not tune has no
+	// curve, and the table says why (cavity.Mode.EndPlateTuning).
+	var tc cavity.TuningCurve
+	if err := w.EndPlateTuning(); err != nil {
+		sh.Tuning = Table{Caption: "Tuning by one end plate: none. " + upperFirst(strings.TrimPrefix(err.Error(), "cavity: ")) + "."}
+	} else {
+		D := c.Diameter()
+		lLo, lHi := D/reach.RatioHi, D/reach.RatioLo
+		caption := fmt.Sprintf("Tuning by one end plate (diameter fixed) over the reachable set (%s), as spacings at the nominal diameter", reach.Operation.Span())
+		if reach.RatioHi <= reach.RatioLo {
+			lLo, lHi = 0.95*c.Length, 1.05*c.Length
+			caption = "Tuning by one end plate (diameter fixed), L ± 5 % for illustration (no tuning range, temperature range or tolerance given; section 4 gives the clearance at the nominal size)"
+		}
+		tc, err = c.Tune(w, lLo, lHi, 120, spec.CountDegenerate)
+		if err != nil {
+			return nil, err
+		}
+		tt := Table{Caption: fmt.Sprintf("%s; worst clearance %s at L = %s (%v)", caption, pct(tc.Worst), length(tc.WorstLength), tc.WorstMode),
+			Header: []string{"Length L", "Frequency", "df/dL", "Clearance", "Set by"},
+			Num:    []bool{true, true, true, true, false}}
+		for i := 0; i < len(tc.Points); i += 15 {
+			p := tc.Points[i]
+			tt.add(false, length(p.Length), freq(p.Frequency), signedFreq(p.DfDL*1e-3)+"/mm", pct(p.Clearance), p.Limiting.String())
+		}
+		for _, x := range tc.Crossings {
+			tt.add(true, length(x.Length), freq(x.Frequency), "", "0 %", "crossed by "+x.Mode.String())
+		}
+		sh.Tuning = tt
 	}
-	tc, err := c.Tune(w, lLo, lHi, 120, spec.CountDegenerate)
-	if err != nil {
-		return nil, err
-	}
-	tt := Table{Caption: fmt.Sprintf("Tuning by one end plate (diameter fixed); worst clearance on the range %s at L = %s (%v)",
-		pct(tc.Worst), length(tc.WorstLength), tc.WorstMode),
-		Header: []string{"Length L", "Frequency", "df/dL", "Clearance", "Set by"},
-		Num:    []bool{true, true, true, true, false}}
-	for i := 0; i < len(tc.Points); i += 15 {
-		p := tc.Points[i]
-		tt.add(false, length(p.Length), freq(p.Frequency), signedFreq(p.DfDL*1e-3)+"/mm", pct(p.Clearance), p.Limiting.String())
-	}
-	for _, x := range tc.Crossings {
-		tt.add(true, length(x.Length), freq(x.Frequency), "", "0 %", "crossed by "+x.Mode.String())
-	}
-	sh.Tuning = tt
 
 	// Materials.
 	if wall := r.Scenario.Wall; wall != nil {
@@ -313,9 +333,9 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
-		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients used",
+		sh.Materials = append(sh.Materials, Material{Role: "Thermal model", Name: "expansion coefficients at " + temp(operate),
 			Values: []KV{{"Side wall (sets D)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaRadial)}, {"Length (end spacers)", fmt.Sprintf("%.3g ppm/K", 1e6*th.AlphaAxial)}},
-			Source: "from the materials above or the --alpha-side / --alpha-axial flags"})
+			Source: "the local slope of each metal's thermal strain: integrated cryogenic contraction data where the metal has them (see cylcav materials), else its linear coefficient or the --alpha-side / --alpha-axial flags; the drift uses the full strain law"})
 	}
 
 	sh.Cautions = r.Cautions
@@ -345,27 +365,23 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 	page := figure.Page{Width: 7.5 * vg.Inch, Height: 5.6 * vg.Inch}
 
 	// Mode chart around the design, with the operating box.
+	op := r.Analysis.Reach.Operation
 	cs := modechart.Spec{
-		Wanted: spec.Mode, Cavity: c, Tuning: spec.Tuning,
-		DiameterTol: r.Analysis.Settings.Tolerance.Diameter, LengthTol: r.Analysis.Settings.Tolerance.Length,
-		Clearance: spec.MinClearance,
+		Wanted: spec.Mode, Cavity: c, Tuning: op.Tuning,
+		DiameterTol: op.DiameterTol, LengthTol: op.LengthTol, Thermal: op.Thermal,
+		Clearance: op.MinClearance, CountDegenerate: op.CountDegenerate,
 	}
 	if cs.Clearance == 0 {
 		// Without a requirement, mark the modes within the clearance the
 		// design achieves along its path.
-		cs.Clearance = d.WorstClearance * (1 + 1e-6)
+		cs.Clearance = r.Analysis.Reach.Worst * (1 + 1e-6)
 	}
 	if !(cs.Clearance > 0 && cs.Clearance < 1) {
 		cs.Clearance = 0
 	}
-	// The chart spans the allowed range and the whole operating box (the
-	// tuned lengths, widened by the tolerances) with a margin.
-	rLo, rHi := d.Ratio, d.Ratio
-	for _, L := range r.Analysis.TunedLength {
-		if L > 0 {
-			rLo, rHi = math.Min(rLo, c.Diameter()/L), math.Max(rHi, c.Diameter()/L)
-		}
-	}
+	// The chart spans the allowed range and the whole reachable set with
+	// a margin.
+	rLo, rHi := r.Analysis.Reach.RatioLo, r.Analysis.Reach.RatioHi
 	cs.RatioMin = math.Max(modechart.MinRatio, math.Min(spec.RatioMin, 0.8*rLo))
 	cs.RatioMax = math.Min(modechart.MaxRatio, math.Max(spec.RatioMax, 1.25*rHi))
 	ch, err := modechart.New(cs)
@@ -377,7 +393,7 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 		return err
 	}
 	sh.Charts = append(sh.Charts, Chart{ID: "mode-chart", Title: "Mode chart",
-		Caption: "Every TE and TM mode as a line of (f·D)² against (D/L)². The design point sits on the wanted mode's line; the operating box spans the tuning range and the D/L tolerance.",
+		Caption: "Every TE and TM mode as a line of (f·D)² against (D/L)². The design point sits on the wanted mode's line; the wide band along it is the reachable set (tuning, temperature and worst-case machining tolerance), the set section 4's worst case is taken over.",
 		Figure:  fig, Page: page})
 
 	// Trade-off curves.
@@ -395,49 +411,52 @@ func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCur
 			Figure:  tf, Page: page})
 	}
 
-	// Tuning curve with the neighbouring modes.
-	tcv := modechart.TuningCurves{Wanted: spec.Mode.String(), Design: c.Length}
-	if spec.Tuning > 0 {
-		tcv.Range = r.Analysis.TunedLength
-	}
-	others := map[cavity.Mode]bool{}
-	for _, L := range []float64{tc.Points[0].Length, tc.Points[len(tc.Points)-1].Length} {
-		cc := c
-		cc.Length = L
-		cl, err := cc.Clearance(spec.Mode, cavity.ClearanceOptions{Window: 0.12})
+	// Tuning curve with the neighbouring modes (none for a mode an end
+	// plate does not tune; the tuning table says why).
+	if len(tc.Points) > 0 {
+		tcv := modechart.TuningCurves{Wanted: spec.Mode.String(), Design: c.Length}
+		if spec.Tuning > 0 {
+			tcv.Range = r.Analysis.TunedLength
+		}
+		others := map[cavity.Mode]bool{}
+		for _, L := range []float64{tc.Points[0].Length, tc.Points[len(tc.Points)-1].Length} {
+			cc := c
+			cc.Length = L
+			cl, err := cc.Clearance(spec.Mode, cavity.ClearanceOptions{Window: 0.12})
+			if err != nil {
+				return err
+			}
+			for _, nb := range cl.InWindow {
+				others[nb.Mode] = true
+			}
+		}
+		var names []cavity.Mode
+		for m := range others {
+			names = append(names, m)
+		}
+		sortModes(names)
+		ys := make([][]float64, len(names))
+		for _, p := range tc.Points {
+			tcv.Length = append(tcv.Length, p.Length)
+			tcv.Freq = append(tcv.Freq, p.Frequency)
+			tcv.Clearance = append(tcv.Clearance, p.Clearance)
+			cc := c
+			cc.Length = p.Length
+			for i, m := range names {
+				ys[i] = append(ys[i], cc.Frequency(m))
+			}
+		}
+		for i, m := range names {
+			tcv.Others = append(tcv.Others, modechart.Series{Name: m.String(), Y: ys[i]})
+		}
+		tf, err := modechart.TuningFigure(th, "Tuning by one end plate", tcv)
 		if err != nil {
 			return err
 		}
-		for _, nb := range cl.InWindow {
-			others[nb.Mode] = true
-		}
+		sh.Charts = append(sh.Charts, Chart{ID: "tuning", Title: "Tuning curve",
+			Caption: "Resonant frequency against the end-plate spacing, with the modes within ±12 % of the wanted one, and the clearance along the path.",
+			Figure:  tf, Page: page})
 	}
-	var names []cavity.Mode
-	for m := range others {
-		names = append(names, m)
-	}
-	sortModes(names)
-	ys := make([][]float64, len(names))
-	for _, p := range tc.Points {
-		tcv.Length = append(tcv.Length, p.Length)
-		tcv.Freq = append(tcv.Freq, p.Frequency)
-		tcv.Clearance = append(tcv.Clearance, p.Clearance)
-		cc := c
-		cc.Length = p.Length
-		for i, m := range names {
-			ys[i] = append(ys[i], cc.Frequency(m))
-		}
-	}
-	for i, m := range names {
-		tcv.Others = append(tcv.Others, modechart.Series{Name: m.String(), Y: ys[i]})
-	}
-	tf, err := modechart.TuningFigure(th, "Tuning by one end plate", tcv)
-	if err != nil {
-		return err
-	}
-	sh.Charts = append(sh.Charts, Chart{ID: "tuning", Title: "Tuning curve",
-		Caption: "Resonant frequency against the end-plate spacing, with the modes within ±12 % of the wanted one, and the clearance along the path.",
-		Figure:  tf, Page: page})
 
 	// Q0 against frequency; a single mode (one dot) is left to the table.
 	if len(qpts) > 1 {
@@ -535,4 +554,25 @@ func tolText(t float64) string {
 		return "no tolerance given"
 	}
 	return "±" + micro(physics.FormatLength(t, 3))
+}
+
+// offenders lists a reach's offending modes for people.
+func offenders(r cavity.Reach) string {
+	var parts []string
+	for _, o := range r.Offending {
+		if o.Crosses {
+			parts = append(parts, fmt.Sprintf("%v crosses at D/L %.4g", o.Mode, o.Ratio))
+		} else {
+			parts = append(parts, fmt.Sprintf("%v %s at D/L %.4g", o.Mode, pct(o.Clearance), o.Ratio))
+		}
+	}
+	return strings.Join(parts, ", ")
+}
+
+// upperFirst capitalises the first letter of a sentence.
+func upperFirst(s string) string {
+	if s == "" {
+		return s
+	}
+	return strings.ToUpper(s[:1]) + s[1:]
 }

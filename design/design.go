@@ -10,6 +10,7 @@ package design
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"cylcav/cavity"
 	"cylcav/physics"
@@ -34,6 +35,139 @@ type Scenario struct {
 	// Settings are the settings of the analysis of the optimum (the
 	// machining tolerance, the curve points).
 	Settings cavity.AnalysisSettings
+	// TOperate is the operating set-point in kelvin: the design frequency
+	// holds there, the printed operating dimensions hold there, and the
+	// walls are at it for Q0. Zero means the middle of the temperature
+	// range, or 20 C without one.
+	TOperate float64
+	// TMachine is the machining temperature in kelvin (zero means 20 C):
+	// the machining dimensions are the operating ones carried to it.
+	TMachine float64
+	// Side and Axial are the metals whose thermal strain sets the diameter
+	// and the length (physics.Conductor.Strain); a metal with no expansion
+	// data at all is taken not to expand, and the output says so.
+	Side, Axial physics.Conductor
+}
+
+// TemperatureError is a temperature that the thermal data of a metal or
+// a fill do not cover: Flag names the flag behind it (temp,
+// operating-temp or machining-temp), With the flag of the data.
+type TemperatureError struct {
+	Flag string
+	T    float64 // kelvin
+	With string
+	Err  error
+}
+
+func (e *TemperatureError) Error() string {
+	return fmt.Sprintf("--%s %s with %s: %v", e.Flag, physics.FormatTemperature(e.T, 4), e.With, e.Err)
+}
+
+func (e *TemperatureError) Unwrap() error { return e.Err }
+
+// roomTemperature is 20 C in kelvin, the default machining temperature.
+const roomTemperature = physics.ZeroCelsius + 20
+
+// expands reports whether a metal has any expansion data.
+func expands(c physics.Conductor) bool {
+	_, _, ok := c.StrainRange()
+	return ok
+}
+
+// Temps returns the operating and machining temperatures with their
+// defaults applied.
+func (s Scenario) Temps() (operate, machine float64) {
+	operate, machine = s.TOperate, s.TMachine
+	if operate == 0 {
+		operate = roomTemperature
+		if th := s.Spec.Thermal; th.TMin != 0 || th.TMax != 0 {
+			operate = 0.5 * (th.TMin + th.TMax)
+		}
+	}
+	if machine == 0 {
+		machine = roomTemperature
+	}
+	return operate, machine
+}
+
+// thermalFlag names the flags behind one temperature, for errors.
+type thermalFlag struct {
+	flag string  // "temp", "operating-temp" or "machining-temp"
+	T    float64 // kelvin
+}
+
+// SetThermal fills s.Spec.Thermal from the metals, the range in
+// s.Spec.Thermal.TMin..TMax and the set-point: the size laws are the
+// metals' integrated strain (physics.Conductor.SizeRatio), the
+// coefficients the local ones at the set-point. sideFlag and axialFlag
+// name the flags behind s.Side and s.Axial for errors. It returns a
+// *TemperatureError when a temperature lies outside the data of a metal
+// (or the fill's coefficient) that must describe it.
+func (s *Scenario) SetThermal(sideFlag, axialFlag string) error {
+	th := &s.Spec.Thermal
+	operate, machine := s.Temps()
+	var used []thermalFlag
+	if th.TMin != 0 || th.TMax != 0 {
+		used = append(used, thermalFlag{"temp", th.TMin}, thermalFlag{"temp", th.TMax})
+		th.TRef = operate
+	}
+	used = append(used, thermalFlag{"operating-temp", operate}, thermalFlag{"machining-temp", machine})
+	for _, b := range []struct {
+		metal physics.Conductor
+		flag  string
+	}{{s.Side, sideFlag}, {s.Axial, axialFlag}} {
+		if !expands(b.metal) {
+			continue
+		}
+		for _, u := range used {
+			if _, err := b.metal.Strain(u.T); err != nil {
+				return &TemperatureError{Flag: u.flag, T: u.T, With: "--" + b.flag, Err: err}
+			}
+		}
+	}
+	if s.Fill.TCEpsKnown && s.Fill.TCEps != 0 {
+		for _, u := range used {
+			if !physics.TemperatureIn(u.T, physics.DefaultLinearTMin, physics.DefaultLinearTMax) {
+				return &TemperatureError{Flag: u.flag, T: u.T, With: "--fill " + s.Fill.Name, Err: fmt.Errorf("the fill's temperature coefficient is a room-temperature value, valid from %s to %s",
+					physics.FormatTemperature(physics.DefaultLinearTMin, 4), physics.FormatTemperature(physics.DefaultLinearTMax, 4))}
+			}
+		}
+		th.TauEps = s.Fill.TCEps
+	}
+	var err error
+	if th.AlphaRadial, err = s.Side.ExpansionAt(operate); err != nil {
+		return err
+	}
+	if th.AlphaAxial, err = s.Axial.ExpansionAt(operate); err != nil {
+		return err
+	}
+	th.SizeRadial, th.SizeAxial = sizeLaw(s.Side, operate), sizeLaw(s.Axial, operate)
+	return nil
+}
+
+// sizeLaw returns T -> L(T)/L(ref) of a metal, or nil (no expansion) for a
+// metal without data. The temperatures were checked by setThermal; NaN
+// marks any other, which cavity.Thermal.Validate refuses.
+func sizeLaw(c physics.Conductor, ref float64) func(float64) float64 {
+	if !expands(c) {
+		return func(float64) float64 { return 1 }
+	}
+	return func(T float64) float64 {
+		r, err := c.SizeRatio(T, ref)
+		if err != nil {
+			return math.NaN()
+		}
+		return r
+	}
+}
+
+// Machined returns cavity c (at the operating temperature) carried to the
+// machining temperature.
+func (s Scenario) Machined(c cavity.Cavity) cavity.Cavity {
+	operate, machine := s.Temps()
+	c.Radius *= sizeLaw(s.Side, operate)(machine)
+	c.Length *= sizeLaw(s.Axial, operate)(machine)
+	return c
 }
 
 // Result is the optimum with its analysis, Q breakdown and cautions.
@@ -41,6 +175,9 @@ type Result struct {
 	Scenario Scenario
 	Design   cavity.Design
 	Analysis cavity.Analysis
+	// Machined is the design's cavity at the machining temperature
+	// (Design.Cavity holds at the operating temperature).
+	Machined cavity.Cavity
 	// Unloaded is the Q breakdown at the design; nil without a wall.
 	Unloaded *qfactor.Unloaded
 	// Cautions are plain sentences for people about this design; the
@@ -71,18 +208,15 @@ func Demo() (Scenario, error) {
 	}
 	tmin, _ := physics.ParseTemperature("-20C")
 	tmax, _ := physics.ParseTemperature("60C")
-	return Scenario{
+	s := Scenario{
 		Title: "TE011 reference cavity for the fictional Kestrel Point to Marrow Hill 10.5 GHz link (aluminium body, invar end spacers)",
 		Spec: cavity.DesignSpec{
 			Mode:      m,
 			Frequency: 10.5e9,
 			Fill:      air.Medium,
 			RatioMin:  0.8, RatioMax: 2.5,
-			Tuning: 0.005,
-			Thermal: cavity.Thermal{
-				AlphaRadial: wall.Expansion, AlphaAxial: invar.Expansion, TauEps: air.TCEps,
-				TMin: tmin, TMax: tmax,
-			},
+			Tuning:  0.005,
+			Thermal: cavity.Thermal{TMin: tmin, TMax: tmax},
 		},
 		Settings: cavity.AnalysisSettings{
 			Tolerance: cavity.Tolerance{Diameter: 10e-6, Length: 10e-6, Samples: 200000, Seed: 1},
@@ -90,24 +224,43 @@ func Demo() (Scenario, error) {
 		Wall:      &wall,
 		Fill:      air,
 		TempGiven: true,
-	}, nil
+		Side:      wall,
+		Axial:     invar,
+	}
+	if err := s.SetThermal("wall", "wall"); err != nil {
+		return Scenario{}, err
+	}
+	return s, nil
 }
 
-// QFunc returns the unloaded-Q function of mode m for walls of metal wall
-// (at 20 C, smooth) and the loss tangents of the cavity's fill, built on
-// package qfactor.
-func QFunc(m cavity.Mode, wall physics.Conductor) func(cavity.Cavity) (float64, error) {
-	return qfactor.Q0Constraint(m, walls(wall))
+// QFunc returns the unloaded-Q function of mode m for smooth walls of
+// metal wall at temperature t (kelvin; 0 means 20 C) and the loss tangents
+// of the cavity's fill, built on package qfactor.
+func QFunc(m cavity.Mode, wall physics.Conductor, t float64) func(cavity.Cavity) (float64, error) {
+	return qfactor.Q0Constraint(m, walls(wall, t))
 }
 
-// walls returns the wall set of metal wall on every part, at 20 C and
-// smooth.
-func walls(wall physics.Conductor) qfactor.WallSet {
-	return qfactor.SameWalls(qfactor.Surface{Conductor: wall})
+// walls returns the wall set of metal wall on every part, at temperature t
+// (kelvin; 0 means 20 C) and smooth.
+func walls(wall physics.Conductor, t float64) qfactor.WallSet {
+	return qfactor.SameWalls(qfactor.Surface{Conductor: wall, Temperature: t})
 }
 
-func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor) (qfactor.Unloaded, error) {
-	return qfactor.UnloadedQ(c, m, walls(wall).At(nil))
+func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, t float64) (qfactor.Unloaded, error) {
+	return qfactor.UnloadedQ(c, m, walls(wall, t).At(nil))
+}
+
+// WallQ reports whether Q0 can be computed with the walls at the operating
+// temperature, and if not, why (the resistivity model does not hold there).
+func (s Scenario) WallQ() (ok bool, why error) {
+	if s.Wall == nil {
+		return false, nil
+	}
+	operate, _ := s.Temps()
+	if _, err := qfactor.Conductivity(*s.Wall, operate); err != nil {
+		return false, err
+	}
+	return true, nil
 }
 
 // Run solves the scenario: the optimum (cavity.Optimize), its analysis
@@ -117,8 +270,10 @@ func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor) (qfactor.U
 // are (an impossible request is a *cavity.InfeasibleError).
 func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	spec := s.Spec
-	if s.Wall != nil {
-		spec.Q = QFunc(spec.Mode, *s.Wall)
+	operate, _ := s.Temps()
+	wallQ, _ := s.WallQ()
+	if wallQ {
+		spec.Q = QFunc(spec.Mode, *s.Wall, operate)
 	}
 	d, err := cavity.Optimize(spec)
 	if err != nil {
@@ -130,9 +285,9 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	if err != nil {
 		return Result{}, err
 	}
-	r := Result{Scenario: s, Design: d, Analysis: a}
-	if s.Wall != nil {
-		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall)
+	r := Result{Scenario: s, Design: d, Analysis: a, Machined: s.Machined(d.Cavity)}
+	if wallQ {
+		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, operate)
 		if err != nil {
 			return Result{}, err
 		}
@@ -141,6 +296,27 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	r.Cautions = Cautions(r)
 	return r, nil
 }
+
+// wallQCaution says why Q0 was not computed with the walls at operate.
+func wallQCaution(wall physics.Conductor, operate float64, why error) string {
+	lo, hi := wall.TMin, wall.TMax
+	if lo == 0 && hi == 0 {
+		lo, hi = physics.DefaultLinearTMin, physics.DefaultLinearTMax
+	}
+	if physics.TemperatureIn(operate, lo, hi) {
+		return "Q0 not computed: " + strings.TrimPrefix(why.Error(), "qfactor: ") + "."
+	}
+	return fmt.Sprintf("Q0 not computed: the walls operate at %s, outside %s..%s where the resistivity model of %s holds (cold and superconducting walls are not modelled by design yet).",
+		physics.FormatTemperature(operate, 4), physics.FormatTemperature(lo, 4), physics.FormatTemperature(hi, 4), wall.Name)
+}
+
+// cryogenicBelow is the temperature below which operation counts as
+// cryogenic for the caution: -150 C (123 K), the usual boundary of
+// cryogenics (common practice; NIST's definition).
+const cryogenicBelow = physics.ZeroCelsius - 150
+
+// CautionCryogenic is the caution printed wherever cold operation is.
+const CautionCryogenic = "Cryogenic operation: liquid nitrogen and helium and cold surfaces cause severe cold burns, evaporating cryogens displace oxygen (asphyxiation) and over-pressurise closed volumes, and cooled air condenses oxygen-rich liquid; follow local codes and licensed practice, with relief devices and oxygen monitoring."
 
 // Cautions returns the warnings a designer should read about a result.
 func Cautions(r Result) []string {
@@ -162,16 +338,30 @@ func Cautions(r Result) []string {
 		out = append(out, fmt.Sprintf("The best clearance holds over a whole band, D/L = %.4g..%.4g; the design takes %s on it.",
 			d.Plateau[0], d.Plateau[1], plateauChoice(spec)))
 	}
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		if d.WorstClearance < d.Clearance.Value*(1-1e-9) {
-			out = append(out, fmt.Sprintf("Over the tuning and temperature range the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", 100*d.WorstClearance, d.WorstMode, 100*d.Clearance.Value))
+	reach := r.Analysis.Reach
+	if span := reach.Operation.Span(); span != "" && reach.Worst < d.Clearance.Value*(1-1e-9) {
+		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*reach.Worst, reach.WorstMode, 100*d.Clearance.Value))
+	}
+	if !reach.Meets() {
+		out = append(out, fmt.Sprintf("The clearance requirement is not met everywhere the cavity operates: %s.", reach.Verdict()))
+	}
+	sc := r.Scenario
+	if !expands(sc.Side) && !expands(sc.Axial) {
+		out = append(out, "No wall metal or expansion coefficient given (--wall, --alpha-side, --alpha-axial): df/dT and any drift assume walls that do not expand, so they show the fill's part only (zero for vacuum).")
+	} else if !expands(sc.Side) || !expands(sc.Axial) {
+		out = append(out, "One of the side wall and the length has no expansion data and is taken not to expand.")
+	}
+	operate, machine := sc.Temps()
+	th := spec.Thermal
+	if cold := math.Min(operate, machine); cold < cryogenicBelow || (sc.TempGiven && th.TMin < cryogenicBelow) {
+		out = append(out, CautionCryogenic)
+	}
+	if sc.Wall != nil {
+		if ok, why := sc.WallQ(); !ok {
+			out = append(out, wallQCaution(*sc.Wall, operate, why))
 		}
 	}
 	if r.Scenario.TempGiven {
-		th := spec.Thermal
-		if th.AlphaRadial == 0 && th.AlphaAxial == 0 {
-			out = append(out, "A temperature range was given but no expansion coefficients (give --wall or --alpha-side/--alpha-axial): the drift shown is zero.")
-		}
 		drift := math.Max(math.Abs(r.Analysis.Drift[0]), math.Abs(r.Analysis.Drift[1]))
 		if spec.Tuning > 0 && drift > spec.Tuning*spec.Frequency {
 			out = append(out, fmt.Sprintf("The thermal drift (up to %s) exceeds the tuning range (+-%s).", physics.FormatFrequency(drift, 4), physics.FormatFrequency(spec.Tuning*spec.Frequency, 4)))
@@ -187,6 +377,19 @@ func Cautions(r Result) []string {
 		if half := 0.5 * (sp.P99 - sp.P01); spec.Tuning > 0 && half > spec.Tuning*spec.Frequency {
 			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
 		}
+	}
+	if m := spec.Mode; m.Family == cavity.TM && m.N == 0 {
+		// An accelerating (TM0mp) design: say when it is not the lowest mode.
+		if below, n, err := d.Cavity.ModesBelow(m, 3); err == nil && n > 0 {
+			names := make([]string, len(below))
+			for i, b := range below {
+				names[i] = fmt.Sprintf("%v at %s", b.Mode, physics.FormatFrequency(b.Frequency, 6))
+			}
+			out = append(out, fmt.Sprintf("%s is not the lowest mode of this cavity: %d mode(s) resonate below it (%s); a beam or coupler can excite them.", m, n, strings.Join(names, ", ")))
+		}
+	}
+	if err := spec.Mode.EndPlateTuning(); err != nil {
+		out = append(out, "Tuning: "+err.Error()+".")
 	}
 	if u := r.Unloaded; u != nil && u.Share.Fill > 0.5 {
 		out = append(out, fmt.Sprintf("The fill's loss dominates Q0 (%.0f %% of the loss); a better wall metal will not help much.", 100*u.Share.Fill))

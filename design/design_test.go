@@ -62,7 +62,7 @@ func TestRunIsOptimizeThenAnalyze(t *testing.T) {
 		t.Fatal(err)
 	}
 	spec := s.Spec
-	spec.Q = design.QFunc(spec.Mode, cu)
+	spec.Q = design.QFunc(spec.Mode, cu, 0)
 	d, err := cavity.Optimize(spec)
 	if err != nil {
 		t.Fatal(err)

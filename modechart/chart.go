@@ -144,15 +144,22 @@ type Spec struct {
 	// 0 <= Tuning < 0.5. Needs a design and a wanted mode with p >= 1.
 	Tuning float64
 
-	// DiameterTol and LengthTol are the ± machining tolerances in m,
-	// which widen the operating box in D/L. They must be >= 0 and less
-	// than a tenth of the dimension.
+	// DiameterTol and LengthTol are the ± worst-case machining
+	// tolerances in m, which widen the reachable set. They must be >= 0
+	// and less than a tenth of the dimension.
 	DiameterTol, LengthTol float64
+
+	// Thermal is the temperature range and expansion of the design (zero:
+	// none), which widens the reachable set as in cavity.Operation.
+	Thermal cavity.Thermal
 
 	// Clearance is the required spurious-mode clearance as a fraction of
 	// the wanted frequency (0.03 for 3 %), 0 <= Clearance < 1: modes
-	// within it of the operating box are marked Near.
+	// within it of the wanted mode somewhere on the reachable set are
+	// marked Near.
 	Clearance float64
+	// CountDegenerate counts the exact companion as a spurious mode.
+	CountDegenerate bool
 }
 
 // Ratio limits and defaults.
@@ -235,12 +242,12 @@ type Point struct {
 	Ratio, FD float64
 }
 
-// Box is the operating box of a design in physical coordinates: the D/L
-// span of the tuning path and the machining tolerance, times the f·D span
-// of the tuning range.
-type Box struct {
-	RatioLo, RatioHi float64
-	FDLo, FDHi       float64 // Hz·m
+// Reach is the reachable set of a design on the chart: the segment of
+// the wanted mode's line over the D/L span of cavity.Reach (every state of
+// the wanted mode lies on its own line), with the f·D at its ends.
+type Reach struct {
+	cavity.Reach
+	FDLo, FDHi float64 // Hz·m, the wanted line's f·D at RatioLo and RatioHi
 }
 
 // Chart is a mode chart as data: every TE and TM mode of a filled cylinder
@@ -265,10 +272,12 @@ type Chart struct {
 	// as a vertical line; zero means none.
 	MarkRatio float64
 
-	// HasDesign reports whether Design, Box and Cavity are set.
+	// HasDesign reports whether Design, Reach and Cavity are set.
 	HasDesign bool
 	Design    Point
-	Box       Box
+	// Reach is the reachable set and its worst-case clearance, computed
+	// by cavity.Cavity.Reach: the verdict the chart draws and lists.
+	Reach Reach
 	// Cavity is the design cavity and DesignFreq the wanted mode's
 	// frequency in it, in Hz.
 	Cavity     cavity.Cavity
@@ -376,11 +385,15 @@ func New(s Spec) (*Chart, error) {
 		ch.Design = Point{Ratio: d / s.Cavity.Length, FD: f0 * d}
 		ch.Cavity, ch.DesignFreq = s.Cavity, f0
 		ch.DiameterTol, ch.LengthTol = s.DiameterTol, s.LengthTol
-		box, err := operatingBox(w, s, d, f0)
+		r, err := s.Cavity.Reach(cavity.Operation{
+			Mode: s.Wanted, Tuning: s.Tuning,
+			DiameterTol: s.DiameterTol, LengthTol: s.LengthTol,
+			Thermal: s.Thermal, MinClearance: s.Clearance, CountDegenerate: s.CountDegenerate,
+		})
 		if err != nil {
 			return nil, err
 		}
-		ch.Box = box
+		ch.Reach = Reach{Reach: r, FDLo: w.FD(r.RatioLo), FDHi: w.FD(r.RatioHi)}
 	}
 
 	if hasCavity && !hasWanted {
@@ -410,17 +423,17 @@ func New(s Spec) (*Chart, error) {
 	if !(ch.FDMin >= 0 && ch.FDMin < ch.FDMax) {
 		return nil, fmt.Errorf("modechart: bottom of chart must be in [0, %.4g) Hz·m (below the top), got %g Hz·m", ch.FDMax, s.MinFD)
 	}
-	if hasDesign && ch.Box.FDLo*(1-ch.Clearance) < ch.FDMin {
-		return nil, fmt.Errorf("modechart: the operating box and clearance band reach down to f·D = %.4g Hz·m, below the bottom of the chart %.4g Hz·m; lower the bottom",
-			ch.Box.FDLo*(1-ch.Clearance), ch.FDMin)
+	if hasDesign && ch.Reach.FDLo*(1-ch.Clearance) < ch.FDMin {
+		return nil, fmt.Errorf("modechart: the reachable set and clearance band reach down to f·D = %.4g Hz·m, below the bottom of the chart %.4g Hz·m; lower the bottom",
+			ch.Reach.FDLo*(1-ch.Clearance), ch.FDMin)
 	}
-	if hasDesign && ch.Box.FDHi > ch.FDMax {
-		return nil, fmt.Errorf("modechart: the operating box reaches f·D = %.4g Hz·m, above the top of the chart %.4g Hz·m; raise the chart top",
-			ch.Box.FDHi, ch.FDMax)
+	if hasDesign && ch.Reach.FDHi > ch.FDMax {
+		return nil, fmt.Errorf("modechart: the reachable set reaches f·D = %.4g Hz·m, above the top of the chart %.4g Hz·m; raise the chart top",
+			ch.Reach.FDHi, ch.FDMax)
 	}
-	if hasDesign && (ch.Box.RatioLo < s.RatioMin || ch.Box.RatioHi > s.RatioMax) {
-		return nil, fmt.Errorf("modechart: the design's D/L span %.4g..%.4g lies outside the chart's D/L range %g..%g; widen the range",
-			ch.Box.RatioLo, ch.Box.RatioHi, s.RatioMin, s.RatioMax)
+	if hasDesign && (ch.Reach.RatioLo < s.RatioMin || ch.Reach.RatioHi > s.RatioMax) {
+		return nil, fmt.Errorf("modechart: the design's reachable D/L span %.4g..%.4g lies outside the chart's D/L range %g..%g; widen the range",
+			ch.Reach.RatioLo, ch.Reach.RatioHi, s.RatioMin, s.RatioMax)
 	}
 
 	// Every mode whose line enters the chart: its lowest point is at
@@ -497,52 +510,29 @@ func sortPair(ms []cavity.Mode) {
 	slices.SortFunc(ms, func(a, b cavity.Mode) int { return cmp.Compare(a.Family, b.Family) })
 }
 
-// operatingBox returns the box spanned by tuning the wanted mode w over
-// f0 (1 ± Tuning) with D fixed (moving one end plate), widened in D/L by
-// the worst-case ratio tolerance d(D/L)/(D/L) = dD/D + dL/L (derived: first
-// order, both errors adding).
-func operatingBox(w Line, s Spec, d, f0 float64) (Box, error) {
-	r0 := d / s.Cavity.Length
-	lo, hi := r0, r0
-	if s.Tuning > 0 {
-		if w.Slope == 0 {
-			return Box{}, fmt.Errorf("modechart: %v cannot be tuned by moving an end plate: with p = 0 its frequency does not depend on the length; set tuning to 0",
-				s.Wanted)
-		}
-		var ok bool
-		if lo, ok = w.Ratio(f0 * (1 - s.Tuning) * d); !ok || lo == 0 {
-			return Box{}, fmt.Errorf("modechart: %v cannot be tuned down by %.3g %%: its frequency never falls below %.6g Hz however long the cavity; lower the tuning",
-				s.Wanted, 100*s.Tuning, math.Sqrt(w.Intercept)/d)
-		}
-		hi, _ = w.Ratio(f0 * (1 + s.Tuning) * d)
-	}
-	tol := s.DiameterTol/d + s.LengthTol/s.Cavity.Length
-	return Box{
-		RatioLo: lo * (1 - tol), RatioHi: hi * (1 + tol),
-		FDLo: f0 * (1 - s.Tuning) * d, FDHi: f0 * (1 + s.Tuning) * d,
-	}, nil
-}
-
-// classify sets the role of every spurious line: Crossing when its f·D over
-// the box's D/L span overlaps the box's f·D span, Near when it overlaps that
-// span widened by the clearance, f·D (1 ± Clearance). Lines rise with D/L,
-// so the span of a line over [RatioLo, RatioHi] is [FD(RatioLo),
-// FD(RatioHi)].
+// classify sets the role of every spurious line from the reachable set's
+// verdict (cavity.Reach.Offending): Crossing when the mode meets the wanted
+// one somewhere on the set, Near when it comes within the required
+// clearance there, Ordinary otherwise. A TE0mp/TM1mp pair is one line and
+// one offender.
 func (ch *Chart) classify() {
-	b := ch.Box
+	role := map[cavity.Mode]Role{}
+	for _, o := range ch.Reach.Offending {
+		role[o.Mode] = Near
+		if o.Crosses {
+			role[o.Mode] = Crossing
+		}
+	}
 	for i := range ch.Lines {
 		l := &ch.Lines[i]
 		if i == ch.Wanted {
 			continue
 		}
-		lo, hi := l.FD(b.RatioLo), l.FD(b.RatioHi)
-		switch {
-		case hi >= b.FDLo && lo <= b.FDHi:
-			l.Role = Crossing
-		case hi >= b.FDLo*(1-ch.Clearance) && lo <= b.FDHi*(1+ch.Clearance):
-			l.Role = Near
-		default:
-			l.Role = Ordinary
+		l.Role = Ordinary
+		for _, m := range l.Modes {
+			if r, ok := role[m]; ok {
+				l.Role = r
+			}
 		}
 	}
 }

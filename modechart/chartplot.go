@@ -3,6 +3,7 @@ package modechart
 import (
 	"fmt"
 	"image/color"
+	"slices"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -29,24 +30,15 @@ func (ch *Chart) Plot(th figure.Theme) (*plot.Plot, *ModeLines, error) {
 	p.Y.Min, p.Y.Max = ml.YMin, ml.YMax
 
 	if ch.HasDesign {
-		b := ch.Box
-		band, err := figure.NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi),
-			ch.Y(b.FDLo*(1-ch.Clearance)), ch.Y(b.FDHi*(1+ch.Clearance)))
+		band, seg, err := ch.reachPlotters()
 		if err != nil {
 			return nil, nil, err
 		}
-		band.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}
-		band.LineStyle = draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.6), Dashes: figure.Dotted()}
-		box, err := figure.NewRegion(ch.X(b.RatioLo), ch.X(b.RatioHi), ch.Y(b.FDLo), ch.Y(b.FDHi))
-		if err != nil {
-			return nil, nil, err
-		}
-		box.Fill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}
-		box.LineStyle = draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.9)}
+		xmin, xmax, ymin, ymax := band.DataRange()
 		ml.Avoid = append(ml.Avoid,
-			Rect{band.XMin, band.XMax, band.YMin, band.YMax},
+			Rect{xmin, xmax, ymin, ymax},
 			Rect{ch.X(ch.Design.Ratio), ch.X(ch.Design.Ratio), ch.Y(ch.Design.FD), ch.Y(ch.Design.FD)})
-		p.Add(band, box, ml)
+		p.Add(band, seg, ml)
 		for _, g := range designGlyphs() {
 			s, err := plotter.NewScatter(plotter.XYs{{X: ch.X(ch.Design.Ratio), Y: ch.Y(ch.Design.FD)}})
 			if err != nil {
@@ -71,6 +63,59 @@ func (ch *Chart) Plot(th figure.Theme) (*plot.Plot, *ModeLines, error) {
 	p.X.Min, p.X.Max = ml.XMin, ml.XMax
 	p.Y.Min, p.Y.Max = ml.YMin, ml.YMax
 	return p, ml, nil
+}
+
+// reachSamples is the number of points along the wanted line that draw
+// the reachable set (the line is straight on squared axes, a gentle curve
+// on linear ones).
+const reachSamples = 33
+
+// Colours of the reachable set and its clearance band.
+var (
+	reachFill = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}
+	bandFill  = color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}
+)
+
+func reachStyle() draw.LineStyle {
+	return draw.LineStyle{Color: reachFill, Width: vg.Points(7)}
+}
+
+func bandStyle() draw.LineStyle {
+	return draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.6), Dashes: figure.Dotted()}
+}
+
+// reachPlotters returns the reachable set as a wide band along the wanted
+// line over the reachable D/L span, and the clearance band f·D (1 ±
+// Clearance) around it (the region a spurious line must not enter).
+func (ch *Chart) reachPlotters() (*plotter.Polygon, *plotter.Line, error) {
+	r := ch.Reach
+	w := ch.Lines[ch.Wanted]
+	c := ch.Clearance
+	var seg, upper, lower plotter.XYs
+	for i := range reachSamples {
+		t := float64(i) / (reachSamples - 1)
+		x := ch.X(r.RatioLo) + t*(ch.X(r.RatioHi)-ch.X(r.RatioLo))
+		fd := w.FD(ch.RatioAt(x))
+		seg = append(seg, plotter.XY{X: x, Y: ch.Y(fd)})
+		upper = append(upper, plotter.XY{X: x, Y: ch.Y(fd * (1 + c))})
+		lower = append(lower, plotter.XY{X: x, Y: ch.Y(fd * (1 - c))})
+	}
+	slices.Reverse(lower)
+	band, err := plotter.NewPolygon(append(upper, lower...))
+	if err != nil {
+		return nil, nil, err
+	}
+	band.Color = bandFill
+	band.LineStyle = bandStyle()
+	if c == 0 {
+		band.LineStyle.Width = 0
+	}
+	line, err := plotter.NewLine(seg)
+	if err != nil {
+		return nil, nil, err
+	}
+	line.LineStyle = reachStyle()
+	return band, line, nil
 }
 
 // markStyle is the vertical line at a cavity's D/L.
@@ -120,16 +165,16 @@ func (ch *Chart) Figure(th figure.Theme) (*figure.Figure, error) {
 		f.Legend.Add("wanted: "+l.Label(), figure.LineThumb{LineStyle: ml.ModeLine(l.Kind(), Wanted)})
 	}
 	if roles[Crossing] {
-		f.Legend.Add("spurious, crosses operating box", figure.LineThumb{LineStyle: ml.ModeLine(KindTE, Crossing)})
+		f.Legend.Add("spurious, crosses the wanted mode", figure.LineThumb{LineStyle: ml.ModeLine(KindTE, Crossing)})
 	}
 	if roles[Near] || (ch.HasDesign && ch.Clearance > 0) {
 		f.Legend.Add(fmt.Sprintf("spurious, within %s clearance", pct(ch.Clearance)), figure.LineThumb{LineStyle: ml.ModeLine(KindTE, Near)})
 	}
 	if ch.HasDesign {
-		f.Legend.Add(ch.boxCaption(), figure.BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0xa0}, LineStyle: draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.9)}})
+		f.Legend.Add(ch.reachCaption(), figure.LineThumb{LineStyle: reachStyle()})
 		if ch.Clearance > 0 {
 			f.Legend.Add(fmt.Sprintf("clearance band ±%s", pct(ch.Clearance)),
-				figure.BoxThumb{Fill: color.NRGBA{R: 0xcc, G: 0xbb, B: 0x44, A: 0x38}, LineStyle: draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.6), Dashes: figure.Dotted()}})
+				figure.BoxThumb{Fill: bandFill, LineStyle: bandStyle()})
 		}
 		thumbs := []plot.Thumbnailer{}
 		for _, g := range designGlyphs() {
@@ -176,18 +221,12 @@ func (ch *Chart) Title() string {
 	return t
 }
 
-func (ch *Chart) boxCaption() string {
-	var parts []string
-	if ch.Tuning > 0 {
-		parts = append(parts, "tuning ±"+pct(ch.Tuning))
-	}
-	if ch.DiameterTol > 0 || ch.LengthTol > 0 {
-		parts = append(parts, "D/L tolerance")
-	}
-	if len(parts) == 0 {
+func (ch *Chart) reachCaption() string {
+	span := ch.Reach.Operation.Span()
+	if span == "" {
 		return "operating point"
 	}
-	return "operating box: " + strings.Join(parts, " × ")
+	return "reachable set: " + span
 }
 
 func fillNote(fill physics.Medium) string {

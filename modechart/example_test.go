@@ -37,7 +37,6 @@ func ExampleNew() {
 	// Output:
 	// wanted line: TE011/TM111
 	// design point: D/L = 1.000, f·D = 39.52 GHz·cm
-	// TE112    near
 	// TM012    crossing
 	// TE212    crossing
 }

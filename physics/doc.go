@@ -35,6 +35,18 @@
 //     (1953) (dry air).
 //   - H. Padamsee, J. Knobloch and T. Hays, RF Superconductivity for
 //     Accelerators, 2nd ed., Wiley-VCH, 2008 (niobium).
+//   - E. D. Marquardt, J. P. Le and R. Radebaugh, Cryogenic Material
+//     Properties Database, 11th International Cryocooler Conference, 2000,
+//     and the NIST cryogenic material properties pages built on it
+//     (integrated thermal contraction fits of 304/316 stainless, 6061-T6
+//     aluminium and invar; the expansion-coefficient fit of OFHC copper).
+//   - P. E. Bradley and R. Radebaugh, Properties of Selected Materials at
+//     Cryogenic Temperatures, NIST, 2013 (tabulated values used in tests).
+//   - J. W. Ekin, Experimental Techniques for Low-Temperature Measurements,
+//     Oxford University Press, 2006, Appendix A6.4 (thermal contraction of
+//     technical materials; niobium).
+//   - F. N. Fritsch and R. E. Carlson, Monotone piecewise cubic
+//     interpolation, SIAM J. Numer. Anal. 17, 238 (1980).
 //
 // The material values were recalled from memory from these sources, not
 // read from them on the machine where they were entered; each row's Source

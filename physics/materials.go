@@ -45,6 +45,9 @@ type Conductor struct {
 	// Expansion is the linear thermal expansion coefficient near 20 C, in
 	// 1/K; zero means unknown.
 	Expansion float64
+	// Contraction is the published integrated thermal contraction at low
+	// temperatures (see Strain); the zero value means none.
+	Contraction Contraction
 	// ElectronDensity is the conduction-electron density n in m^-3 of the
 	// free-electron model, used to estimate the electron mean free path for
 	// the anomalous-skin-effect check; zero means unknown.
@@ -120,14 +123,14 @@ func Conductors() []Conductor {
 			Name: "copper", Aliases: []string{"cu", "annealed-copper"},
 			Description:  "annealed copper, 100 % IACS",
 			Conductivity: IACSConductivity, Alpha: 0.00393, AlphaKnown: true,
-			MuR: 1, Expansion: 16.5e-6, ElectronDensity: nCu,
+			MuR: 1, Expansion: 16.5e-6, Contraction: contractionNISTCopper(), ElectronDensity: nCu,
 			Source: srcIACS + "; " + srcAMe,
 		},
 		{
 			Name: "ofhc-copper", Aliases: []string{"ofhc", "ofe", "c10100", "c10200", "oxygen-free-copper"},
 			Description:  "oxygen-free high-conductivity copper (C10100/C10200), 101 % IACS",
 			Conductivity: 1.01 * IACSConductivity, Alpha: 0.00397, AlphaKnown: true,
-			MuR: 1, Expansion: 17.0e-6, ElectronDensity: nCu,
+			MuR: 1, Expansion: 17.0e-6, Contraction: contractionNISTCopper(), ElectronDensity: nCu,
 			Source: srcASMcu + " (101 % IACS minimum); alpha = 0.00393 scaled by Matthiessen's rule (derived); " + srcAMe,
 		},
 		{
@@ -156,7 +159,7 @@ func Conductors() []Conductor {
 			Name: "al6061-t6", Aliases: []string{"al6061", "6061", "6061-t6", "aluminium-6061", "aluminum-6061"},
 			Description:  "aluminium alloy 6061-T6, 43 % IACS",
 			Conductivity: 0.43 * IACSConductivity, Alpha: 0.0044 * 2.65e-8 * 0.43 * IACSConductivity, AlphaKnown: true,
-			MuR: 1, Expansion: 23.6e-6, ElectronDensity: nAl,
+			MuR: 1, Expansion: 23.6e-6, Contraction: contractionNIST6061(), ElectronDensity: nAl,
 			Source: srcASMal + "; " + srcMatt + " (pure aluminium)",
 		},
 		{
@@ -184,7 +187,7 @@ func Conductors() []Conductor {
 			Name: "invar", Aliases: []string{"invar36", "fe-36ni", "feni36"},
 			Description:  "Fe-36Ni low-expansion alloy",
 			Conductivity: 1 / 8.2e-7, Alpha: 0.0012, AlphaKnown: true,
-			MuR: 1, Expansion: 1.3e-6, Ferromagnetic: true,
+			MuR: 1, Expansion: 1.3e-6, Contraction: contractionNISTInvar(), Ferromagnetic: true,
 			Note:   "ferromagnetic: the microwave wall permeability is above 1 and not modelled, so Rs is underestimated; plate invar cavities with copper or silver",
 			Source: srcASMle + "; alpha recalled from memory, approximate",
 		},
@@ -192,7 +195,7 @@ func Conductors() []Conductor {
 			Name: "ss304", Aliases: []string{"304", "stainless-304", "aisi304"},
 			Description:  "austenitic stainless steel 304, annealed",
 			Conductivity: 1 / 72e-8, Alpha: (116.0/72 - 1) / 630, AlphaKnown: true,
-			MuR: 1, Expansion: 17.3e-6,
+			MuR: 1, Expansion: 17.3e-6, Contraction: contractionNIST304(),
 			Note:   "cold work and welds can make 304 weakly ferromagnetic, which raises Rs",
 			Source: srcASMss + " (72 uohm cm at 20 C); alpha derived from the 20 C and 650 C (116 uohm cm) entries",
 		},
@@ -200,7 +203,7 @@ func Conductors() []Conductor {
 			Name: "ss316", Aliases: []string{"316", "stainless-316", "aisi316"},
 			Description:  "austenitic stainless steel 316, annealed",
 			Conductivity: 1 / 74e-8, Alpha: (116.0/74 - 1) / 630, AlphaKnown: true,
-			MuR: 1, Expansion: 15.9e-6,
+			MuR: 1, Expansion: 15.9e-6, Contraction: contractionNIST304(),
 			Note:   "cold work can make 316 weakly ferromagnetic, which raises Rs",
 			Source: srcASMss + " (74 uohm cm at 20 C); alpha derived from the 20 C and 650 C (116 uohm cm) entries",
 		},
@@ -208,7 +211,7 @@ func Conductors() []Conductor {
 			Name: "niobium", Aliases: []string{"nb"},
 			Description:  "niobium, normal state at room temperature",
 			Conductivity: 1 / 14.5e-8, Alpha: 1 / 293.15, AlphaKnown: true,
-			MuR: 1, Expansion: 7.3e-6,
+			MuR: 1, Expansion: 7.3e-6, Contraction: contractionEkinNiobium(),
 			Note:   "normal-state values; for the superconducting state below 9.25 K use the BCS surface model",
 			Source: "recalled from memory, Padamsee, Knobloch & Hays, RF Superconductivity for Accelerators, 2nd ed. (2008) (rho(300 K) about 14.5 uohm cm; literature spans 14-15.2); alpha derived as 1/T, the high-temperature Bloch-Grueneisen limit rho proportional to T (approximate, about 20 %); CTE " + srcCRCte,
 		},
@@ -238,8 +241,8 @@ func Dielectrics() []Dielectric {
 				// n-1 = 77.6e-6 P/T, so at constant pressure dn/dT = -(n-1)/T
 				// and d eps/dT = 2 n dn/dT (derived).
 				TCEps: -2 * nAir * (nAir - 1) / (ZeroCelsius + 20) / epsAir, TCEpsKnown: true},
-			Aliases:     []string{"dry-air"},
-			Description: "dry air, 20 C, 101.325 kPa",
+			Aliases:     []string{"dry-air", "air-vented"},
+			Description: "dry air, 20 C, 101.325 kPa, vented (constant pressure)",
 			Note:        "humidity raises eps: about +1e-4 at 20 C and 60 % relative humidity",
 			Source:      "eps derived from the Smith-Weintraub radio refractivity N = 77.6 P/T (Proc. IRE 41, 1035, 1953; recalled from memory); TC derived for an ideal gas at constant pressure; loss negligible",
 		},
@@ -288,6 +291,18 @@ func Dielectrics() []Dielectric {
 			Description: "polycrystalline alumina, 99.5 %",
 			Note:        "grades differ by about 0.2 in eps and a factor of 3 in tan delta",
 			Source:      srcKrupk + "; Pozar, Microwave Engineering, 4th ed., Appendix G lists 9.5-10 (recalled from memory)",
+		},
+		{
+			// N = 77.6 P/T is proportional to the number density P/(k T)
+			// of an ideal gas, which a sealed rigid cavity keeps constant:
+			// eps does not change with T (derived). The walls' expansion
+			// lowers the density by 3 alpha dT, a coefficient of about
+			// 3e-8 1/K for copper, neglected.
+			Medium:      Medium{Name: "air-sealed", EpsR: epsAir, MuR: 1, TCEps: 0, TCEpsKnown: true},
+			Aliases:     []string{"sealed-air", "dry-air-sealed"},
+			Description: "dry air sealed at 20 C, 101.325 kPa (constant density)",
+			Note:        "the pressure inside follows the temperature (ideal gas): mind the seal and window ratings",
+			Source:      "eps derived from the Smith-Weintraub radio refractivity N = 77.6 P/T (Proc. IRE 41, 1035, 1953; recalled from memory); TC zero at constant density (ideal gas, derived)",
 		},
 	}
 }
@@ -411,7 +426,9 @@ func rangeErr(kind, key string, lo, hi float64, unit string, got float64) error 
 //	rho=1.72e-8     resistivity at 20 C (ohm m; "1.72uohm cm" also works), 1e-12..1e-3 ohm m
 //	mur=1           relative wall permeability, 0.001..1e5 (default 1)
 //	alpha=0.0039    resistivity temperature coefficient (1/K or ppm/K), |alpha| <= 0.01
-//	cte=17e-6       linear expansion coefficient (1/K or ppm/K), -1e-4..1e-3
+//	cte=17e-6       linear expansion coefficient (1/K or ppm/K), -1e-4..1e-3;
+//	                it replaces a library row's cryogenic contraction data,
+//	                so Strain then holds from -50 C to 200 C only
 //
 // At most one of sigma, iacs and rho may be given, and one is required
 // without a library name. Rows built from values have Name "user" and Source
@@ -492,6 +509,7 @@ func ParseConductor(spec string) (Conductor, error) {
 				return Conductor{}, rangeErr(kind, "cte", minCTE, maxCTE, " 1/K", v)
 			}
 			c.Expansion = v
+			c.Contraction = Contraction{} // the library's data describe the library metal, not this one
 		default:
 			return Conductor{}, fmt.Errorf("%s %q: unknown key %q; use sigma, iacs, rho, mur, alpha or cte", kind, spec, f.key)
 		}

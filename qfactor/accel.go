@@ -31,6 +31,24 @@ type Accel struct {
 	// phase (derived extension; T = pi/4 for a synchronous particle,
 	// omega d/(beta c) = p pi).
 	TransitTime float64
+	// TransitTimePeak is V / (E0 d), E0 the peak on-axis field |E_z|:
+	// Wangler's normalisation for every p (Wangler 2008, ch. 2). It equals
+	// TransitTime for p = 0 and is 2/pi times it for p >= 1. The R/Q and
+	// shunt impedance use neither: they use the gain V itself, which is
+	// TransitTime times the field integral and TransitTimePeak times E0 d.
+	TransitTimePeak float64
+	// NoGain is true when the particle gains (almost) nothing crossing the
+	// cavity: TransitTime below MinTransitTime. Then Eacc = V/d is almost
+	// zero and the ratios to it (EpkOverEacc, BpkOverEacc) and R/Q mean
+	// nothing; print that instead of the numbers.
+	NoGain bool
+	// Below lists the lowest modes of the cavity that resonate below the
+	// accelerating mode (at most MaxBelow of them) and BelowCount how many
+	// there are in all (cavity.Cavity.ModesBelow). For TM010 an empty list
+	// means it is the fundamental mode; otherwise a beam or a coupler can
+	// excite a lower mode, which no choice of drive frequency avoids.
+	Below      []cavity.Resonance
+	BelowCount int
 	// ROverQLinac is R/Q in the linac convention, V^2/(omega W), ohm
 	// (Wangler 2008, ch. 5; Padamsee et al. 2008, ch. 1).
 	ROverQLinac float64
@@ -50,6 +68,17 @@ type Accel struct {
 	// the wall sees whatever the fill.
 	BpkOverEacc float64
 }
+
+// MinTransitTime is the transit-time factor (V over the field integral)
+// below which Acceleration reports NoGain: a gain under 0.1 % of the
+// in-phase gain, where the ratios to Eacc exceed 1000 times their in-phase
+// values and the closed-pillbox model (no beam holes, whose fringe fields
+// change V by more than that) no longer fixes them (common practice: such
+// a speed is simply not accelerated).
+const MinTransitTime = 1e-3
+
+// MaxBelow is the most modes Accel.Below lists.
+const MaxBelow = 5
 
 // ShuntLinac returns the shunt impedance in the linac convention,
 // R = V^2/P = (R/Q)_linac Q0, in ohm (Wangler 2008, ch. 5).
@@ -131,17 +160,24 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 	hpk := omega * eps / kc * math.J1(jp11)
 
 	f := Accel{
-		Mode:        m,
-		Frequency:   c.Frequency(m),
-		Speed:       speed,
-		Gap:         gap,
-		TransitTime: gap / v0,
-		G:           geometry(c, m, x).Total(),
-		EpkOverEacc: epk * d / gap,
-		BpkOverEacc: physics.VacuumPermeability * hpk * d / gap,
+		Mode:            m,
+		Frequency:       c.Frequency(m),
+		Speed:           speed,
+		Gap:             gap,
+		TransitTime:     gap / v0,
+		TransitTimePeak: gap / d,
+		G:               geometry(c, m, x).Total(),
+		EpkOverEacc:     epk * d / gap,
+		BpkOverEacc:     physics.VacuumPermeability * hpk * d / gap,
 	}
 	f.ROverQLinac = gap * gap / (omega * w)
 	f.ROverQCircuit = f.ROverQLinac / 2
+	f.NoGain = f.TransitTime < MinTransitTime
+	below, n, err := c.ModesBelow(m, MaxBelow)
+	if err != nil {
+		return Accel{}, fmt.Errorf("qfactor: listing the modes below %s: %w", m, err)
+	}
+	f.Below, f.BelowCount = below, n
 	return f, nil
 }
 

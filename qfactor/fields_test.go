@@ -421,6 +421,8 @@ func TestAccelerationQuadrature(t *testing.T) {
 		hpk := peak(func(r float64) float64 { _, h := f.at(r, 0, 0); return norm(h) }, 0, c.Radius)
 		hpk = math.Max(hpk, peak(func(z float64) float64 { _, h := f.at(c.Radius, 0, z); return norm(h) }, 0, c.Length))
 		eacc := v / c.Length
+		// Peak on-axis field, found by search (Wangler's E0).
+		e0pk := peak(func(z float64) float64 { e, _ := f.at(0, 0, z); return math.Abs(e[2]) }, 0, c.Length)
 
 		got, err := qfactor.Acceleration(c, tc.m, tc.speed)
 		if err != nil {
@@ -433,6 +435,7 @@ func TestAccelerationQuadrature(t *testing.T) {
 		}{
 			{"Gap", got.Gap, v / e0, closedFormTol},
 			{"TransitTime", got.TransitTime, v / v0, closedFormTol},
+			{"TransitTimePeak", got.TransitTimePeak, v / (e0pk * c.Length), peakTol},
 			{"ROverQLinac", got.ROverQLinac, v * v / (f.omega * w), closedFormTol},
 			{"ROverQCircuit", got.ROverQCircuit, v * v / (2 * f.omega * w), closedFormTol},
 			{"EpkOverEacc", got.EpkOverEacc, epk / eacc, peakTol},
@@ -475,4 +478,52 @@ func peak(g func(float64) float64, lo, hi float64) float64 {
 		}
 	}
 	return math.Max(best, g((a+b)/2))
+}
+
+// TestAccelerationNoGainAndBelow: at a speed where the on-axis gain of a
+// pillbox TM010 cancels (d = beta lambda: sin(pi d/(beta lambda)) = 0,
+// Wangler 2008, ch. 2) Acceleration says NoGain instead of letting
+// Epk/Eacc run to millions; and a TM010 cell longer than about 2.03 radii
+// lists TE111 below it, exactly when the resonance formula puts TE111
+// lower (Cavity.Frequency of both modes).
+func TestAccelerationNoGainAndBelow(t *testing.T) {
+	tm010 := cavity.Mode{Family: cavity.TM, N: 0, M: 1, P: 0}
+	te111 := cavity.Mode{Family: cavity.TE, N: 1, M: 1, P: 1}
+	a := 0.05
+	lambda := 2 * math.Pi * a / tm010.Root() // TM010: k = j01/a, independent of d
+	for _, tc := range []struct {
+		d, speed float64
+		noGain   bool
+	}{
+		{lambda, 1, true},
+		{0.5 * lambda, 0.5, true},
+		{0.5 * lambda, 1, false},
+		{0.999 * lambda, 1, false}, // T = 1.0005e-3, just above the limit
+	} {
+		c := cavity.Cavity{Radius: a, Length: tc.d}
+		got, err := qfactor.Acceleration(c, tm010, tc.speed)
+		if err != nil {
+			t.Fatal(err)
+		}
+		x := math.Pi * tc.d / (tc.speed * lambda)
+		T := math.Abs(math.Sin(x) / x) // Wangler 2008, ch. 2, pillbox transit-time factor
+		want := T < qfactor.MinTransitTime
+		if got.NoGain != want {
+			t.Errorf("d = %g lambda, beta = %g: NoGain = %v, want %v (T = %g)", tc.d/lambda, tc.speed, got.NoGain, want, T)
+		}
+		if want != tc.noGain {
+			t.Errorf("d = %g lambda, beta = %g: test case expects NoGain = %v, but T = %g", tc.d/lambda, tc.speed, tc.noGain, T)
+		}
+		below := c.Frequency(te111) < c.Frequency(tm010)
+		hasTE111 := false
+		for _, b := range got.Below {
+			hasTE111 = hasTE111 || b.Mode == te111
+			if b.Frequency >= got.Frequency {
+				t.Errorf("d = %g m: %v at %g Hz listed below TM010 at %g Hz", tc.d, b.Mode, b.Frequency, got.Frequency)
+			}
+		}
+		if hasTE111 != below || (got.BelowCount > 0) != below {
+			t.Errorf("d = %g m: Below = %v (count %d), want TE111 listed = %v", tc.d, got.Below, got.BelowCount, below)
+		}
+	}
 }

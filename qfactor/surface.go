@@ -77,7 +77,7 @@ func Conductivity(c physics.Conductor, t float64) (float64, error) {
 	if lo == 0 && hi == 0 {
 		lo, hi = physics.DefaultLinearTMin, physics.DefaultLinearTMax
 	}
-	if !(t >= lo && t <= hi) {
+	if !physics.TemperatureIn(t, lo, hi) { // a limit typed in C or F converts with rounding
 		return 0, fmt.Errorf("qfactor: conductor %q: the linear resistivity model holds from %s to %s, got %s; for a cold wall give the conductivity measured at its temperature (sigma=...) and no wall temperature",
 			name, physics.FormatTemperature(lo, 4), physics.FormatTemperature(hi, 4), physics.FormatTemperature(t, 4))
 	}

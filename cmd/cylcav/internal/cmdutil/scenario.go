@@ -1,6 +1,7 @@
 package cmdutil
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -22,7 +23,7 @@ type ScenarioFlags struct {
 
 	mode, freq, wall, ratioRange, objective, minClear, minQ      string
 	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
-	tolDist                                                      string
+	tolDist, operating, machining                                string
 	samples                                                      int
 	seed                                                         uint64
 	countDeg                                                     bool
@@ -47,8 +48,10 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	f.StringVar(&sf.maxD, "max-diameter", "", "largest allowed inside diameter")
 	f.StringVar(&sf.maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
 	f.StringVar(&sf.tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
-	f.StringVar(&sf.temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C (design frequency at the middle)")
-	f.StringVar(&sf.alphaSide, "alpha-side", "", "expansion coefficient of the side wall (default: the wall metal's), e.g. 23ppm")
+	f.StringVar(&sf.temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C or 2K:300K")
+	f.StringVar(&sf.operating, "operating-temp", "", "set-point where the design frequency holds and the walls' Q0 is taken (default: middle of --temp, else 20C)")
+	f.StringVar(&sf.machining, "machining-temp", "", "temperature at which the machining dimensions are given (default 20C)")
+	f.StringVar(&sf.alphaSide, "alpha-side", "", "linear expansion coefficient of the side wall, -50 C..200 C only (default: the wall metal's data), e.g. 23ppm")
 	f.StringVar(&sf.alphaAxial, "alpha-axial", "", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm")
 	f.StringVar(&sf.tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
 	f.StringVar(&sf.tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
@@ -157,27 +160,30 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		if sp.Tuning, err = fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
 			return s, err
 		}
-		if sp.Tuning > 0 && sp.Mode.P == 0 {
-			return s, FlagError("tuning", sf.tuning, fmt.Errorf("%s has p = 0: its frequency does not depend on the length, so an end plate cannot tune it", sp.Mode))
+		if sp.Tuning > 0 && sp.Mode.EndPlateTuning() != nil {
+			return s, FlagError("tuning", sf.tuning, sp.Mode.EndPlateTuning())
 		}
 	}
 	th := &sp.Thermal
+	sideFlag, axialFlag := "wall", "wall"
 	if s.Wall != nil {
-		th.AlphaRadial, th.AlphaAxial = s.Wall.Expansion, s.Wall.Expansion
+		s.Side, s.Axial = *s.Wall, *s.Wall
 	}
 	if set("alpha-side") {
-		if th.AlphaRadial, err = coefficient("alpha-side", sf.alphaSide); err != nil {
+		a, err := coefficient("alpha-side", sf.alphaSide)
+		if err != nil {
 			return s, err
 		}
-		th.AlphaAxial = th.AlphaRadial
+		s.Side = physics.Conductor{Name: "user (--alpha-side)", Expansion: a, Source: "user input"}
+		s.Axial, sideFlag, axialFlag = s.Side, "alpha-side", "alpha-side"
 	}
 	if set("alpha-axial") {
-		if th.AlphaAxial, err = coefficient("alpha-axial", sf.alphaAxial); err != nil {
+		a, err := coefficient("alpha-axial", sf.alphaAxial)
+		if err != nil {
 			return s, err
 		}
-	}
-	if s.Fill.TCEpsKnown {
-		th.TauEps = s.Fill.TCEps
+		s.Axial = physics.Conductor{Name: "user (--alpha-axial)", Expansion: a, Source: "user input"}
+		axialFlag = "alpha-axial"
 	}
 	if set("temp") {
 		tlo, thi, err := physics.ParseRange(sf.temp, physics.ParseTemperature)
@@ -190,8 +196,34 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		th.TMin, th.TMax = tlo, thi
 		s.TempGiven = true
 	}
+	for _, t := range []struct {
+		flag, value string
+		dst         *float64
+	}{{"operating-temp", sf.operating, &s.TOperate}, {"machining-temp", sf.machining, &s.TMachine}} {
+		if !set(t.flag) {
+			continue
+		}
+		v, err := physics.ParseTemperature(t.value)
+		if err != nil {
+			return s, FlagError(t.flag, t.value, err)
+		}
+		if !(v >= 1 && v <= 3000) {
+			return s, FlagError(t.flag, t.value, fmt.Errorf("must be between 1 K and 3000 K"))
+		}
+		*t.dst = v
+	}
+	if s.TempGiven && s.TOperate != 0 && !physics.TemperatureIn(s.TOperate, th.TMin, th.TMax) {
+		return s, FlagError("operating-temp", sf.operating, fmt.Errorf("must lie within --temp %s", sf.temp))
+	}
+	if err := s.SetThermal(sideFlag, axialFlag); err != nil {
+		return s, Usagef("%v", err)
+	}
 	if err := th.Validate(); err != nil {
 		return s, Usagef("%v", err)
+	}
+	if ok, why := s.WallQ(); !ok && why != nil && (sp.Objective == cavity.MaxQ || sp.MinQ > 0) {
+		op, _ := s.Temps()
+		return s, Usagef("--objective q and --min-q need Q0 with the walls at the operating temperature %s, which the wall model does not give: %v", physics.FormatTemperature(op, 4), why)
 	}
 	if set("tolerance") || set("tolerance-length") {
 		t := &s.Settings.Tolerance
@@ -253,10 +285,23 @@ const progressSamples = 100000
 // io's error stream while a long tolerance analysis (progressSamples or
 // more samples) runs; the bar shows on a terminal only.
 func RunScenario(io *IOStreams, s design.Scenario) (design.Result, error) {
+	var r design.Result
+	var err error
 	if s.Settings.Tolerance.Samples < progressSamples {
-		return s.Run(nil)
+		r, err = s.Run(nil)
+	} else {
+		bar := NewProgress(io, "tolerance analysis")
+		r, err = s.Run(bar.Update)
+		bar.Done()
 	}
-	bar := NewProgress(io, "tolerance analysis")
-	defer bar.Done()
-	return s.Run(bar.Update)
+	// A tolerance too large for the design found is bad input (exit 2).
+	var te *cavity.ToleranceError
+	if errors.As(err, &te) {
+		flag := "tolerance"
+		if te.Name == "length tolerance" {
+			flag = "tolerance-length"
+		}
+		return r, Usagef("--%s %s: must be below a tenth of the designed dimension, %s", flag, physics.FormatLength(te.Value, 4), physics.FormatLength(te.Max, 4))
+	}
+	return r, err
 }

@@ -65,11 +65,14 @@ overlapping.
 
 With --mode and a cavity (--diameter and --length, or --freq with --ratio,
 --diameter or --length to size it first) the chart marks the design point,
-draws the wanted mode thick, and draws the operating box: the tuning range
-(--tuning, one end plate moved) times the D/L tolerance (--tolerance).
-Spurious modes whose lines cross the box are drawn wide red; those within
---min-clearance of it, medium orange. Without --mode the cavity's D/L is a
-dashed vertical line.
+draws the wanted mode thick, and draws the reachable set: the stretch of
+the wanted mode's line that the cavity visits when tuned (--tuning, one end
+plate moved, +-t of its own frequency) within the worst-case machining
+tolerance (--tolerance), with the clearance band around it. Spurious modes
+whose lines cross the wanted one on that stretch are drawn wide red; those
+within --min-clearance of it there, medium orange. The worst-case clearance
+and the offending modes are the same as those of design and report for the
+same inputs. Without --mode the cavity's D/L is a dashed vertical line.
 
 The file type follows the extension of -o: .png (at --dpi), .svg or .pdf.
 An existing file is replaced only with --force.
@@ -139,6 +142,11 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				if s.Tuning, err = fraction("tuning", tuning, 0, 0.5); err != nil {
 					return err
 				}
+				if s.Tuning > 0 {
+					if err := s.Wanted.EndPlateTuning(); err != nil {
+						return cmdutil.FlagError("tuning", tuning, err)
+					}
+				}
 			}
 			if fl.Changed("min-clearance") {
 				if s.Clearance, err = fraction("min-clearance", minClr, 0, 0.99); err != nil {
@@ -200,7 +208,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
 	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
 	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
-	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the box are emphasised")
+	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the wanted one on the reachable set are emphasised")
 	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
 	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
 	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
@@ -364,22 +372,9 @@ func summary(w io.Writer, opts *Options, ch *modechart.Chart) error {
 		if comp, ok := ch.WantedMode.Companion(); ok {
 			fmt.Fprintf(&b, "exact companion on the same line: %v (no D/L separates them; suppress it by other means)\n", comp)
 		}
-		var cross, near []string
-		for _, l := range ch.Lines {
-			switch l.Role {
-			case modechart.Crossing:
-				cross = append(cross, l.Label())
-			case modechart.Near:
-				near = append(near, l.Label())
-			}
-		}
-		if ch.Tuning == 0 && ch.DiameterTol == 0 && ch.LengthTol == 0 {
-			b.WriteString("operating point only (give --tuning and --tolerance to draw the operating box)\n")
-		} else {
-			fmt.Fprintf(&b, "spurious modes crossing the operating box: %s\n", list(cross))
-		}
-		if ch.Clearance > 0 {
-			fmt.Fprintf(&b, "spurious modes within %.3g %% clearance of it: %s\n", 100*ch.Clearance, list(near))
+		fmt.Fprintf(&b, "reachable D/L %.4g..%.4g; clearance %s\n", ch.Reach.RatioLo, ch.Reach.RatioHi, ch.Reach.Verdict())
+		if err := ch.WantedMode.EndPlateTuning(); err != nil {
+			fmt.Fprintf(&b, "tuning: %v\n", err)
 		}
 	}
 	b.WriteString("mode index convention: n azimuthal, m radial, p axial\n")

@@ -2,9 +2,11 @@ package chart_test
 
 import (
 	"bytes"
+	"encoding/json"
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -54,8 +56,8 @@ func TestWritesEveryFormat(t *testing.T) {
 		case "pdf":
 			rendertest.PDF(t, b)
 		}
-		for _, want := range []string{"wrote " + path, "spurious modes crossing the operating box: TM012, TE212",
-			"within 3 % clearance of it: TE112", "companion on the same line: TM111", "n azimuthal, m radial, p axial"} {
+		for _, want := range []string{"wrote " + path, "required 3 %: NOT met: TE212 crosses at D/L 0.8504, TM012 crosses at D/L 1.096",
+			"companion on the same line: TM111", "n azimuthal, m radial, p axial"} {
 			if !strings.Contains(out, want) {
 				t.Errorf("%s: output lacks %q:\n%s", ext, want, out)
 			}
@@ -158,5 +160,50 @@ func TestHelpHasExample(t *testing.T) {
 	r := clitest.Run(t, "chart", "--help")
 	if r.Code != 0 || !strings.Contains(r.Stdout, "$ cylcav chart --diameter 39.6mm") || !strings.Contains(r.Stdout, "n azimuthal, m radial, p axial") {
 		t.Errorf("help lacks the worked example or the index convention:\n%s", r.Stdout)
+	}
+}
+
+// TestAgreesWithDesign: given the same mode, frequency, tuning, tolerance
+// and required clearance, chart and design print the same worst-case
+// clearance sentence (the one library verdict, cavity.Reach). The first
+// case is the example of the trust pass: a box-shaped operating region
+// flagged TE112 within 7 % although the tuning path never comes closer
+// than 7.231 % (design's exact worst case before and after the change);
+// the second adds a machining tolerance that breaks the requirement.
+func TestAgreesWithDesign(t *testing.T) {
+	for _, tc := range []struct {
+		extra []string
+		want  string
+	}{
+		{[]string{"--min-clearance", "7%"}, "worst over tuning 7.231 % (TE112); required 7 %: met"},
+		{[]string{"--min-clearance", "7.1%", "--tolerance", "0.05mm"}, "worst over tuning and machining tolerance 7.040 % (TE112); required 7.1 %: NOT met: TE112 7.040 %"},
+	} {
+		design := append([]string{"design", "--mode", "TE011", "--freq", "10GHz", "--tuning", "0.5%", "--samples", "1000"}, tc.extra...)
+		if len(tc.extra) == 2 { // --samples needs --tolerance
+			design = append([]string{"design", "--mode", "TE011", "--freq", "10GHz", "--tuning", "0.5%"}, tc.extra...)
+		}
+		r := clitest.Run(t, append(design, "--format", "json")...)
+		if r.Code != 0 {
+			t.Fatalf("design %v: exit %d, %s", tc.extra, r.Code, r.Stderr)
+		}
+		var d struct {
+			D float64 `json:"diameter_m"`
+			L float64 `json:"length_m"`
+		}
+		if err := json.Unmarshal([]byte(r.Stdout), &d); err != nil {
+			t.Fatal(err)
+		}
+		table := clitest.Run(t, design...)
+		path := filepath.Join(t.TempDir(), "c.svg")
+		c := clitest.Run(t, append([]string{"chart", "--mode", "TE011", "--diameter", strconv.FormatFloat(d.D*1e3, 'g', 17, 64) + "mm",
+			"--length", strconv.FormatFloat(d.L*1e3, 'g', 17, 64) + "mm", "--tuning", "0.5%", "-o", path}, tc.extra...)...)
+		if c.Code != 0 {
+			t.Fatalf("chart %v: exit %d, %s", tc.extra, c.Code, c.Stderr)
+		}
+		for name, out := range map[string]string{"design": table.Stdout, "chart": c.Stdout} {
+			if !strings.Contains(out, tc.want) {
+				t.Errorf("%s %v: output lacks %q:\n%s", name, tc.extra, tc.want, out)
+			}
+		}
 	}
 }

@@ -54,6 +54,17 @@ chart's lines, not by a grid search; the output says when it sits on the
 edge of the allowed range. Impossible requests exit with status 1 and say
 what was achievable instead.
 
+Temperatures: the design frequency holds at --operating-temp (default the
+middle of --temp, else 20 C), where the walls' Q0 is taken; the dimensions
+are also given at --machining-temp (default 20 C), so that a cavity
+machined to them lands on frequency at the set-point. The metal's thermal
+strain comes from published cryogenic contraction data (NIST fits for
+copper, 6061-T6, 304/316 and invar; Ekin's table for niobium; see 'cylcav
+materials') down to 0 K, and from a linear coefficient only between -50 C
+and 200 C: a temperature outside the data exits with status 2. An air fill
+is vented (--fill air, constant pressure) or sealed (--fill air-sealed,
+constant density).
+
 With no flags at all, design runs a built-in demo scenario and says so on
 its first line. --format csv prints the trade-off curves (clearance and Q0
 against D/L).
@@ -66,6 +77,9 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 
   # An air-filled copper TE011 cavity at 10 GHz, D/L between 0.5 and 3
   $ cylcav design --mode TE011 --freq 10GHz --fill air --wall copper --ratio-range 0.5:3
+
+  # A niobium accelerator cell designed for 2 K, dimensions to machine at 20 C
+  $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --temp 2K:300K --operating-temp 2K
 
   # Highest Q0 with at least 5 % clearance, +-1 % tuning, -20 C..60 C,
   # machined to +-0.02 mm, as JSON
@@ -133,6 +147,7 @@ type Tolerance struct {
 // QBreakdown is the JSON form of the Q0 breakdown.
 type QBreakdown struct {
 	Wall      string   `json:"wall"`
+	WallTempK float64  `json:"wall_temp_k"`
 	QWall     float64  `json:"q_wall"`
 	QFill     *float64 `json:"q_fill"`
 	ShareSide float64  `json:"loss_share_side"`
@@ -142,15 +157,28 @@ type QBreakdown struct {
 
 // Output is the JSON document of `cylcav design`.
 type Output struct {
-	Scenario          string  `json:"scenario,omitempty"`
-	Mode              string  `json:"mode"`
-	FHz               float64 `json:"f_hz"`
+	Scenario string  `json:"scenario,omitempty"`
+	Mode     string  `json:"mode"`
+	FHz      float64 `json:"f_hz"`
+	// DiameterM and LengthM hold at OperatingTempK; the machining
+	// dimensions hold at MachiningTempK.
+	OperatingTempK    float64 `json:"operating_temp_k"`
 	DiameterM         float64 `json:"diameter_m"`
 	LengthM           float64 `json:"length_m"`
+	MachiningTempK    float64 `json:"machining_temp_k"`
+	MachinedDiameterM float64 `json:"machined_diameter_m"`
+	MachinedLengthM   float64 `json:"machined_length_m"`
 	Ratio             float64 `json:"ratio_d_over_l"`
 	ClearancePct      float64 `json:"clearance_pct"`
 	WorstClearancePct float64 `json:"worst_clearance_pct"`
-	AtRangeEdge       bool    `json:"at_range_edge"`
+	WorstMode         string  `json:"worst_mode"`
+	// Reach is the reachable D/L span (tuning, temperature and machining
+	// tolerance) over which WorstClearancePct holds.
+	ReachRatio [2]float64 `json:"reach_ratio_d_over_l"`
+	// Offending lists the modes that cross the wanted one on the reachable
+	// set or come within the required clearance of it.
+	Offending   []Offender `json:"offending"`
+	AtRangeEdge bool       `json:"at_range_edge"`
 	// Limit names the bound that holds the optimum (a cavity.Limit); null
 	// when none does.
 	Limit        *string            `json:"limit"`
@@ -166,20 +194,42 @@ type Output struct {
 	Cautions     []string           `json:"cautions"`
 }
 
+// Offender is the JSON form of a cavity.Offender.
+type Offender struct {
+	Mode         string  `json:"mode"`
+	ClearancePct float64 `json:"clearance_pct"`
+	Crosses      bool    `json:"crosses"`
+	Ratio        float64 `json:"ratio_d_over_l"`
+}
+
+// OffendersJSON returns the JSON form of a reach's offending modes (an
+// empty list, never null).
+func OffendersJSON(r cavity.Reach) []Offender {
+	out := []Offender{}
+	for _, o := range r.Offending {
+		out = append(out, Offender{Mode: o.Mode.String(), ClearancePct: 100 * o.Clearance, Crosses: o.Crosses, Ratio: o.Ratio})
+	}
+	return out
+}
+
 // JSON returns the JSON document of a result.
 func JSON(r design.Result) Output {
-	d := r.Design
+	d, reach := r.Design, r.Analysis.Reach
 	o := Output{
 		Scenario: r.Scenario.Title,
 		Mode:     d.Spec.Mode.String(), FHz: d.Spec.Frequency,
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
-		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * d.WorstClearance,
+		MachinedDiameterM: r.Machined.Diameter(), MachinedLengthM: r.Machined.Length,
+		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * reach.Worst,
+		WorstMode: reach.WorstMode.String(), ReachRatio: [2]float64{reach.RatioLo, reach.RatioHi},
+		Offending:   OffendersJSON(reach),
 		AtRangeEdge: d.AtRangeEdge,
 		Below:       cmdutil.NeighbourJSON(d.Clearance.Below), Above: cmdutil.NeighbourJSON(d.Clearance.Above),
 		Degenerate:  cmdutil.DegenerateJSON(d.Clearance.Degenerate),
 		Sensitivity: Sensitivity{DfDDHzPerM: r.Analysis.Sensitivity.DfDD, DfDLHzPerM: r.Analysis.Sensitivity.DfDL, DfDTHzPerK: r.Analysis.Sensitivity.DfDT},
 		Cautions:    printedCautions(r),
 	}
+	o.OperatingTempK, o.MachiningTempK = r.Scenario.Temps()
 	if d.Limit != cavity.NoLimit {
 		l := string(d.Limit)
 		o.Limit = &l
@@ -189,7 +239,7 @@ func JSON(r design.Result) Output {
 		o.Q0 = &q
 	}
 	if u := r.Unloaded; u != nil {
-		b := &QBreakdown{Wall: r.Scenario.Wall.Name, QWall: u.Wall.QWall, ShareSide: u.Share.Side, ShareEnds: u.Share.EndA + u.Share.EndB, ShareFill: u.Share.Fill}
+		b := &QBreakdown{Wall: r.Scenario.Wall.Name, WallTempK: o.OperatingTempK, QWall: u.Wall.QWall, ShareSide: u.Share.Side, ShareEnds: u.Share.EndA + u.Share.EndB, ShareFill: u.Share.Fill}
 		if !math.IsInf(u.QFill, 0) {
 			q := u.QFill
 			b.QFill = &q
@@ -246,25 +296,33 @@ func WriteTable(w io.Writer, r design.Result) error {
 	if r.Scenario.Title != "" {
 		fmt.Fprintf(w, "Demo scenario (no flags given): %s\n\n", r.Scenario.Title)
 	}
-	fmt.Fprintf(w, "Design: %s at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
-		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), spec.Fill.Label())
+	operate, machine := r.Scenario.Temps()
+	fmt.Fprintf(w, "Design: %s at %s with the cavity at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
+		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4), spec.Fill.Label())
 	edge := "interior optimum"
 	if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by %s", d.Limit)
 	}
-	fmt.Fprintf(w, "  diameter D = %s\n", physics.FormatLength(d.Cavity.Diameter(), 6))
-	fmt.Fprintf(w, "  length   L = %s\n", physics.FormatLength(d.Cavity.Length, 6))
+	if m := r.Machined; m != d.Cavity {
+		fmt.Fprintf(w, "  diameter D = %s at %s (machining); %s at %s (operating)\n", physics.FormatLength(m.Diameter(), 6),
+			physics.FormatTemperature(machine, 4), physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatTemperature(operate, 4))
+		fmt.Fprintf(w, "  length   L = %s at %s (machining); %s at %s (operating)\n", physics.FormatLength(m.Length, 6),
+			physics.FormatTemperature(machine, 4), physics.FormatLength(d.Cavity.Length, 6), physics.FormatTemperature(operate, 4))
+	} else {
+		fmt.Fprintf(w, "  diameter D = %s at %s\n", physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatTemperature(machine, 4))
+		fmt.Fprintf(w, "  length   L = %s at %s\n", physics.FormatLength(d.Cavity.Length, 6), physics.FormatTemperature(machine, 4))
+	}
 	fmt.Fprintf(w, "  ratio  D/L = %.6f (allowed %.4g..%.4g; %s)\n", d.Ratio, d.AllowedRatio[0], d.AllowedRatio[1], edge)
 	fmt.Fprintf(w, "\nClearance: %.3f %% (set by %s)", 100*d.Clearance.Value, d.Clearance.Limiting)
-	if spec.Tuning > 0 || r.Scenario.TempGiven {
-		fmt.Fprintf(w, "; worst over tuning and temperature %.3f %% (%s)", 100*d.WorstClearance, d.WorstMode)
+	if reach := r.Analysis.Reach; reach.Operation.Span() != "" || reach.Operation.MinClearance > 0 {
+		fmt.Fprintf(w, "; %s", reach.Verdict())
 	}
 	fmt.Fprintln(w)
 	fmt.Fprint(w, cmdutil.FormatNeighbours(d.Clearance))
 	if u := r.Unloaded; u != nil {
-		fmt.Fprintf(w, "\nUnloaded Q (%s walls, 20 C, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, u.Q0)
+		fmt.Fprintf(w, "\nUnloaded Q (%s walls at %s, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, physics.FormatTemperature(operate, 4), u.Q0)
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
@@ -272,16 +330,17 @@ func WriteTable(w io.Writer, r design.Result) error {
 	fmt.Fprintf(w, "\nSensitivities:\n")
 	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))
 	fmt.Fprintf(w, "  df/dL = %s per mm\n", signedF(s.DfDL*1e-3))
-	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K)\n", signedF(s.DfDT), 1e6*s.TempCoeff)
+	fmt.Fprintf(w, "  df/dT = %s per K (%.4g ppm/K) at %s%s\n", signedF(s.DfDT), 1e6*s.TempCoeff+0, physics.FormatTemperature(operate, 4), expansionText(r.Scenario))
 	if spec.Tuning > 0 {
 		fmt.Fprintf(w, "\nTuning +-%.4g %% by one end plate: L from %s (low end) to %s (high end)\n",
 			100*spec.Tuning, physics.FormatLength(r.Analysis.TunedLength[0], 6), physics.FormatLength(r.Analysis.TunedLength[1], 6))
 	}
 	if r.Scenario.TempGiven {
 		th := spec.Thermal
-		fmt.Fprintf(w, "\nTemperature %s..%s (alpha side %.3g ppm/K, alpha axial %.3g ppm/K): drift %s at the low end, %s at the high end\n",
-			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4), 1e6*th.AlphaRadial, 1e6*th.AlphaAxial,
-			signedF(r.Analysis.Drift[0]), signedF(r.Analysis.Drift[1]))
+		fmt.Fprintf(w, "\nTemperature %s..%s: drift %s at the low end, %s at the high end, from %s at %s\n",
+			physics.FormatTemperature(th.TMin, 4), physics.FormatTemperature(th.TMax, 4),
+			signedF(r.Analysis.Drift[0]), signedF(r.Analysis.Drift[1]), physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4))
+		fmt.Fprintf(w, "  side wall: %s\n  length:    %s\n  fill:      %s\n", strainText(r.Scenario.Side), strainText(r.Scenario.Axial), fillTCText(r.Scenario.Fill))
 	}
 	if sp := r.Analysis.Spread; sp != nil {
 		t := r.Analysis.Settings.Tolerance
@@ -309,6 +368,43 @@ func WriteTable(w io.Writer, r design.Result) error {
 func printedCautions(r design.Result) []string {
 	rf := strings.ToUpper(cmdutil.CautionRF[:1]) + cmdutil.CautionRF[1:] + "."
 	return append(slices.Clone(r.Cautions), rf)
+}
+
+// expansionText says what df/dT assumes when no metal expands.
+func expansionText(s design.Scenario) string {
+	if !expands(s.Side) && !expands(s.Axial) {
+		return "; ASSUMES WALLS THAT DO NOT EXPAND (no --wall, --alpha-side or --alpha-axial): the fill's part only"
+	}
+	return ""
+}
+
+// expands reports whether a metal has any thermal expansion data.
+func expands(c physics.Conductor) bool {
+	_, _, ok := c.StrainRange()
+	return ok
+}
+
+// strainText names the thermal strain law of a metal.
+func strainText(c physics.Conductor) string {
+	switch {
+	case !expands(c):
+		return "no expansion data: taken not to expand"
+	case c.Contraction.Known():
+		return fmt.Sprintf("%s, integrated contraction data (%s; %.3g ppm/K above)", c.Name, c.Contraction.Label, 1e6*c.Expansion)
+	}
+	return fmt.Sprintf("%s, linear %.3g ppm/K (valid -50 C..200 C)", c.Name, 1e6*c.Expansion)
+}
+
+// fillTCText states the fill's temperature coefficient and what it
+// assumes.
+func fillTCText(f physics.Dielectric) string {
+	switch {
+	case f.Name == "" || f.Name == "vacuum":
+		return "vacuum, no temperature coefficient"
+	case !f.TCEpsKnown:
+		return fmt.Sprintf("%s, temperature coefficient unknown: left out", f.Name)
+	}
+	return fmt.Sprintf("%s: %s; (1/eps) d eps/dT = %.3g ppm/K", f.Name, f.Description, 1e6*f.TCEps)
 }
 
 func signedF(v float64) string {

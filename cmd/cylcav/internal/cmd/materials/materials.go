@@ -88,16 +88,22 @@ your own stock are better.`,
 // conductorJSON is one wall-metal row of the JSON output. Unknown values are
 // null.
 type conductorJSON struct {
-	Name                 string   `json:"name"`
-	Aliases              []string `json:"aliases"`
-	Description          string   `json:"description"`
-	ConductivitySPerM    float64  `json:"conductivity_s_per_m"`
-	IACSFraction         float64  `json:"iacs_fraction"`
-	AlphaPerK            *float64 `json:"alpha_per_k"`
-	LinearTMinK          float64  `json:"linear_t_min_k"`
-	LinearTMaxK          float64  `json:"linear_t_max_k"`
-	MuR                  float64  `json:"mu_r"`
-	ExpansionPerK        *float64 `json:"expansion_per_k"`
+	Name              string   `json:"name"`
+	Aliases           []string `json:"aliases"`
+	Description       string   `json:"description"`
+	ConductivitySPerM float64  `json:"conductivity_s_per_m"`
+	IACSFraction      float64  `json:"iacs_fraction"`
+	AlphaPerK         *float64 `json:"alpha_per_k"`
+	LinearTMinK       float64  `json:"linear_t_min_k"`
+	LinearTMaxK       float64  `json:"linear_t_max_k"`
+	MuR               float64  `json:"mu_r"`
+	ExpansionPerK     *float64 `json:"expansion_per_k"`
+	// ContractionSource names the published cryogenic contraction data
+	// (physics.Conductor.Strain), null without; StrainMinK..StrainMaxK is
+	// the range of the thermal strain model, null without any data.
+	ContractionSource    *string  `json:"contraction_source"`
+	StrainMinK           *float64 `json:"strain_min_k"`
+	StrainMaxK           *float64 `json:"strain_max_k"`
 	ElectronDensityPerM3 *float64 `json:"electron_density_per_m3"`
 	Ferromagnetic        bool     `json:"ferromagnetic"`
 	Note                 string   `json:"note"`
@@ -147,6 +153,14 @@ func conductorRows() []conductorJSON {
 			ElectronDensityPerM3: ptr(c.ElectronDensity, c.ElectronDensity != 0),
 			Ferromagnetic:        c.Ferromagnetic, Note: c.Note, Source: c.Source,
 		})
+		r := &rows[len(rows)-1]
+		if c.Contraction.Known() {
+			src := c.Contraction.Source
+			r.ContractionSource = &src
+		}
+		if slo, shi, ok := c.StrainRange(); ok {
+			r.StrainMinK, r.StrainMaxK = ptr(slo, true), ptr(shi, true)
+		}
 	}
 	return rows
 }
@@ -241,12 +255,22 @@ func orDash(p *float64, f func(float64) string) string {
 	return f(*p)
 }
 
+// cold returns the table cell naming a metal's cryogenic contraction data
+// with their source reference, or "-" (then the linear coefficient holds
+// from -50 C only).
+func cold(c conductorJSON, src *sources) string {
+	if c.ContractionSource == nil {
+		return "-"
+	}
+	return "to 0 K " + src.ref(*c.ContractionSource)
+}
+
 func writeTables(opts *Options, lib libraryJSON) error {
 	out := opts.IO.Out
 	var src sources
 	if len(lib.Conductors) > 0 {
-		fmt.Fprintln(out, "Wall metals (values at 20 C; linear resistivity model -50 C to +200 C)")
-		t := cmdutil.NewTable(out, "NAME", "DESCRIPTION", "SIGMA", "IACS", "ALPHA (1/K)", "CTE (ppm/K)", "SOURCE")
+		fmt.Fprintln(out, "Wall metals (values at 20 C; linear resistivity model -50 C to +200 C; thermal strain from the CTE -50 C to +200 C, below -50 C from cold contraction data only)")
+		t := cmdutil.NewTable(out, "NAME", "DESCRIPTION", "SIGMA", "IACS", "ALPHA (1/K)", "CTE (ppm/K)", "SOURCE", "COLD CONTRACTION")
 		for _, c := range lib.Conductors {
 			desc := c.Description
 			if c.Ferromagnetic {
@@ -256,7 +280,7 @@ func writeTables(opts *Options, lib libraryJSON) error {
 				fmt.Sprintf("%.1f %%", 100*c.IACSFraction),
 				orDash(c.AlphaPerK, func(v float64) string { return fmt.Sprintf("%.3g", v) }),
 				orDash(c.ExpansionPerK, func(v float64) string { return fmt.Sprintf("%.3g", v*1e6) }),
-				src.ref(c.Source))
+				src.ref(c.Source), cold(c, &src))
 		}
 		if err := t.Flush(); err != nil {
 			return err

@@ -137,8 +137,8 @@ func TestNoWall(t *testing.T) {
 	}
 	b, _ := os.ReadFile(path)
 	s := string(b)
-	if n := strings.Count(s, "<svg"); n != 3 {
-		t.Errorf("datasheet without a wall has %d charts, want 3 (no Q0 chart)", n)
+	if n := strings.Count(s, "<svg"); n != 2 {
+		t.Errorf("datasheet without a wall has %d charts, want 2 (no Q0 chart, and no tuning chart: an end plate does not tune TM010)", n)
 	}
 	if strings.Contains(s, "Unloaded Q</h2>") || !strings.Contains(s, "No wall metal given") {
 		t.Error("datasheet without a wall: want no Q section and the caution about the missing wall")
@@ -313,4 +313,35 @@ func TestDatasheetInChromium(t *testing.T) {
 		t.Errorf("screenshot is nearly blank (%d dark samples)", dark)
 	}
 	t.Logf("screenshot: %s", shot)
+}
+
+// TestOneWorstCase: the datasheet's clearance section, its tuning table and
+// `design` with the same flags print the same worst-case clearance and
+// mode (the one verdict, cavity.Reach). Before, the tuning table spanned
+// the tuning range widened by half and disagreed with section 4.
+func TestOneWorstCase(t *testing.T) {
+	args := []string{"--mode", "TE011", "--freq", "10GHz", "--tuning", "1%", "--temp", "-20C:60C", "--alpha-side", "23ppm",
+		"--tolerance", "0.02mm", "--samples", "1000"}
+	path := filepath.Join(t.TempDir(), "s.html")
+	if r := clitest.Run(t, append([]string{"report", "-o", path}, args...)...); r.Code != 0 {
+		t.Fatalf("report: exit %d, %s", r.Code, r.Stderr)
+	}
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(b)
+	sec4 := regexp.MustCompile(`Worst over tuning, temperature and machining tolerance</td>\s*<td[^>]*>([0-9.]+ %), set by (\w+)`).FindStringSubmatch(s)
+	tab := regexp.MustCompile(`over the reachable set \(tuning, temperature and machining tolerance\), as spacings at the nominal diameter; worst clearance ([0-9.]+ %) at L = [^(]*\((\w+)\)`).FindStringSubmatch(s)
+	if sec4 == nil || tab == nil {
+		t.Fatalf("datasheet lacks the worst case in section 4 (%v) or the tuning table (%v)", sec4, tab)
+	}
+	if sec4[1] != tab[1] || sec4[2] != tab[2] {
+		t.Errorf("section 4 worst %s (%s), tuning table %s (%s); want the same", sec4[1], sec4[2], tab[1], tab[2])
+	}
+	d := clitest.Run(t, append([]string{"design"}, args...)...)
+	want := "worst over tuning, temperature and machining tolerance " + strings.TrimSuffix(sec4[1], " %")
+	if !strings.Contains(d.Stdout, want) || !strings.Contains(d.Stdout, "("+sec4[2]+")") {
+		t.Errorf("design prints a different worst case from the datasheet's %s (%s):\n%s", sec4[1], sec4[2], d.Stdout)
+	}
 }

@@ -53,8 +53,12 @@ companion unless --count-degenerate is given.
 With --sphere R --at RHO,PHI,Z the frequency shift of a small metal sphere
 of radius R centred at that point (PHI in degrees, Z from end plate A) is
 added, from Slater's perturbation theorem; a point on a wall (RHO = radius,
-Z = 0 or Z = length) models a screw tip as a hemisphere on that wall. The
-formula holds for R much smaller than the wavelength and than the distance
+or Z = 0 or Z = length) models a screw tip as a hemisphere on that wall, and
+a point on the corner between the side wall and an end plate as a quarter
+sphere. For a mode with n >= 1 (cos and sin polarisations), and for TE0mp
+with its companion TM1mp, the object splits the degenerate set: the output
+lists its eigen-shifts (degenerate perturbation theory), which do not depend
+on the azimuth PHI in a round cavity. The formula holds for R much smaller than the wavelength and than the distance
 to the other walls; the output says when it does not.
 
 Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
@@ -68,6 +72,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			var err error
 			if opts.Mode, err = cavity.ParseMode(mode); err != nil {
+				return cmdutil.FlagError("mode", mode, err)
+			}
+			if err := opts.Mode.EndPlateTuning(); err != nil {
 				return cmdutil.FlagError("mode", mode, err)
 			}
 			if opts.Cavity.Radius, err = geo.Radius(); err != nil {
@@ -159,17 +166,23 @@ func parsePoint(s string) (cavity.Point, error) {
 
 // SphereOutput is the JSON form of a sphere or screw perturbation.
 type SphereOutput struct {
-	RadiusM              float64 `json:"radius_m"`
-	RhoM                 float64 `json:"rho_m"`
-	PhiDeg               float64 `json:"phi_deg"`
-	ZM                   float64 `json:"z_m"`
-	OnWall               bool    `json:"on_wall"`
-	LengthM              float64 `json:"length_m"`
-	ShiftHz              float64 `json:"shift_hz"`
-	ShiftPct             float64 `json:"shift_pct"`
-	RadiusOverWavelength float64 `json:"radius_over_wavelength"`
-	RadiusOverWallGap    float64 `json:"radius_over_wall_gap"`
-	Valid                bool    `json:"valid"`
+	RadiusM float64 `json:"radius_m"`
+	RhoM    float64 `json:"rho_m"`
+	PhiDeg  float64 `json:"phi_deg"`
+	ZM      float64 `json:"z_m"`
+	OnWall  bool    `json:"on_wall"`
+	Contact string  `json:"contact"`
+	LengthM float64 `json:"length_m"`
+	// Patterns is the degenerate set the object splits, and ShiftsHz and
+	// ShiftsPct its eigen-shifts, ascending.
+	Patterns  []string  `json:"patterns"`
+	ShiftsHz  []float64 `json:"shifts_hz"`
+	ShiftsPct []float64 `json:"shifts_pct"`
+	// Dominant names, per shift, the pattern with the largest weight.
+	Dominant             []string `json:"dominant_patterns"`
+	RadiusOverWavelength float64  `json:"radius_over_wavelength"`
+	RadiusOverWallGap    float64  `json:"radius_over_wall_gap"`
+	Valid                bool     `json:"valid"`
 }
 
 // Point is the JSON form of one tuning point.
@@ -217,8 +230,13 @@ func runTune(opts *Options) error {
 		}
 		sph = &SphereOutput{
 			RadiusM: opts.SphereRadius, RhoM: opts.SphereAt.Rho, PhiDeg: opts.SphereAt.Phi * 180 / math.Pi, ZM: opts.SphereAt.Z,
-			OnWall: p.OnWall, LengthM: c.Length, ShiftHz: p.Shift, ShiftPct: 100 * p.Relative,
+			OnWall: p.Contact != cavity.Free, Contact: p.Contact.String(), LengthM: c.Length, ShiftsHz: p.Shift,
 			RadiusOverWavelength: p.RadiusOverWavelength, RadiusOverWallGap: p.RadiusOverWallGap, Valid: p.Valid,
+		}
+		for i, pt := range p.Patterns {
+			sph.Patterns = append(sph.Patterns, pt.String())
+			sph.ShiftsPct = append(sph.ShiftsPct, 100*p.Relative[i])
+			sph.Dominant = append(sph.Dominant, p.Dominant(i).String())
 		}
 	}
 	o := Output{Mode: tc.Mode.String(), DiameterM: tc.Diameter, WorstClearancePct: 100 * tc.Worst,
@@ -271,16 +289,34 @@ func writeTable(opts *Options, tc cavity.TuningCurve, o Output) error {
 	}
 	if s := o.Sphere; s != nil {
 		kind := "metal sphere"
-		if s.OnWall {
+		switch s.Contact {
+		case cavity.OnWall.String():
 			kind = "screw tip (hemisphere on the wall)"
+		case cavity.InCorner.String():
+			kind = "screw tip in the corner (quarter sphere)"
 		}
-		fmt.Fprintf(w, "\nSlater perturbation at L = %s: %s of radius %s at rho %s, phi %.4g deg, z %s: shift %s (%+.4g %%)\n",
+		fmt.Fprintf(w, "\nSlater perturbation at L = %s: %s of radius %s at rho %s, phi %.4g deg, z %s\n",
 			physics.FormatLength(s.LengthM, 6), kind, physics.FormatLength(s.RadiusM, 4), physics.FormatLength(s.RhoM, 4), s.PhiDeg,
-			physics.FormatLength(s.ZM, 4), physics.FormatFrequency(s.ShiftHz, 4), s.ShiftPct)
+			physics.FormatLength(s.ZM, 4))
+		if len(s.Patterns) == 1 {
+			fmt.Fprintf(w, "  shift %s (%+.4g %%)\n", signedHz(s.ShiftsHz[0]), s.ShiftsPct[0])
+		} else {
+			fmt.Fprintf(w, "  the degenerate set %s splits into (independent of the azimuth of the object):\n", strings.Join(s.Patterns, ", "))
+			for i := range s.ShiftsHz {
+				fmt.Fprintf(w, "    %s (%+.4g %%), mostly %s\n", signedHz(s.ShiftsHz[i]), s.ShiftsPct[i], s.Dominant[i])
+			}
+		}
 		if !s.Valid {
 			fmt.Fprintf(w, "  Caution: outside the small-object limits (r0/lambda = %.3g, want <= 0.05; r0/gap = %.3g, want <= 0.2): treat the shift as a rough estimate.\n",
 				s.RadiusOverWavelength, s.RadiusOverWallGap)
 		}
 	}
 	return nil
+}
+
+func signedHz(v float64) string {
+	if v < 0 {
+		return "-" + physics.FormatFrequency(-v, 4)
+	}
+	return "+" + physics.FormatFrequency(v, 4)
 }

@@ -292,17 +292,27 @@ type outJSON struct {
 	QLoaded         *number    `json:"q_loaded,omitempty"`
 	BandwidthHz     *number    `json:"bandwidth_hz,omitempty"`
 
-	ParticleSpeed   *number `json:"particle_speed_c,omitempty"`
-	TransitTime     *number `json:"transit_time_factor,omitempty"`
-	ROverQLinac     *number `json:"r_over_q_linac_ohm,omitempty"`
-	ROverQCircuit   *number `json:"r_over_q_circuit_ohm,omitempty"`
-	ShuntLinac      *number `json:"shunt_impedance_linac_ohm,omitempty"`
-	ShuntCircuit    *number `json:"shunt_impedance_circuit_ohm,omitempty"`
-	EpkOverEacc     *number `json:"epk_over_eacc,omitempty"`
-	BpkOverEaccMTMV *number `json:"bpk_over_eacc_mt_per_mv_m,omitempty"`
+	ParticleSpeed   *number     `json:"particle_speed_c,omitempty"`
+	TransitTime     *number     `json:"transit_time_factor,omitempty"`
+	TransitTimePeak *number     `json:"transit_time_factor_peak,omitempty"`
+	NoGain          *bool       `json:"no_gain,omitempty"`
+	ModesBelow      []belowJSON `json:"modes_below,omitempty"`
+	ModesBelowCount *int        `json:"modes_below_count,omitempty"`
+	ROverQLinac     *number     `json:"r_over_q_linac_ohm,omitempty"`
+	ROverQCircuit   *number     `json:"r_over_q_circuit_ohm,omitempty"`
+	ShuntLinac      *number     `json:"shunt_impedance_linac_ohm,omitempty"`
+	ShuntCircuit    *number     `json:"shunt_impedance_circuit_ohm,omitempty"`
+	EpkOverEacc     *number     `json:"epk_over_eacc,omitempty"`
+	BpkOverEaccMTMV *number     `json:"bpk_over_eacc_mt_per_mv_m,omitempty"`
 
 	Warnings []string `json:"warnings"`
 	Cautions []string `json:"cautions"`
+}
+
+// belowJSON is a mode that resonates below the accelerating one.
+type belowJSON struct {
+	Mode string `json:"mode"`
+	FHz  number `json:"f_hz"`
 }
 
 func ptr(v float64) *number { n := number(v); return &n }
@@ -346,12 +356,20 @@ func (r *result) json() outJSON {
 	if a := r.accel; a != nil {
 		out.ParticleSpeed = ptr(a.Speed)
 		out.TransitTime = ptr(a.TransitTime)
-		out.ROverQLinac = ptr(a.ROverQLinac)
-		out.ROverQCircuit = ptr(a.ROverQCircuit)
-		out.ShuntLinac = ptr(a.ShuntLinac(u.Q0))
-		out.ShuntCircuit = ptr(a.ShuntCircuit(u.Q0))
-		out.EpkOverEacc = ptr(a.EpkOverEacc)
-		out.BpkOverEaccMTMV = ptr(a.BpkOverEacc * 1e9)
+		out.TransitTimePeak = ptr(a.TransitTimePeak)
+		noGain, n := a.NoGain, a.BelowCount
+		out.NoGain, out.ModesBelowCount = &noGain, &n
+		for _, b := range a.Below {
+			out.ModesBelow = append(out.ModesBelow, belowJSON{Mode: b.Mode.String(), FHz: number(b.Frequency)})
+		}
+		if !a.NoGain {
+			out.ROverQLinac = ptr(a.ROverQLinac)
+			out.ROverQCircuit = ptr(a.ROverQCircuit)
+			out.ShuntLinac = ptr(a.ShuntLinac(u.Q0))
+			out.ShuntCircuit = ptr(a.ShuntCircuit(u.Q0))
+			out.EpkOverEacc = ptr(a.EpkOverEacc)
+			out.BpkOverEaccMTMV = ptr(a.BpkOverEacc * 1e9)
+		}
 	}
 	return out
 }
@@ -445,15 +463,21 @@ func (r *result) table(w io.Writer) error {
 	if a := r.accel; a != nil {
 		fmt.Fprintf(w, "\nAccelerator figures (on axis, particle speed %g c, Eacc = V/length):\n", a.Speed)
 		t = cmdutil.NewTable(w)
-		t.Row("transit-time factor T", fmt.Sprintf("%.5f", a.TransitTime))
-		t.Row("R/Q, linac convention V^2/(omega W)", physics.FormatSI(a.ROverQLinac, "ohm", 5))
-		t.Row("R/Q, circuit convention V^2/(2 omega W)", physics.FormatSI(a.ROverQCircuit, "ohm", 5))
-		t.Row("shunt impedance, linac convention (R/Q) Q0", shunt(a.ShuntLinac(u.Q0)))
-		t.Row("shunt impedance, circuit convention (R/Q) Q0", shunt(a.ShuntCircuit(u.Q0)))
-		t.Row("Epk/Eacc", fmt.Sprintf("%.4f", a.EpkOverEacc))
-		t.Row("Bpk/Eacc", fmt.Sprintf("%.4f mT/(MV/m)", a.BpkOverEacc*1e9))
+		t.Row("transit-time factor T = V / integral |Ez| dz", fmt.Sprintf("%.5f", a.TransitTime))
+		t.Row("transit-time factor V / (E0 L), E0 peak on-axis |Ez|", fmt.Sprintf("%.5f", a.TransitTimePeak))
+		if !a.NoGain {
+			t.Row("R/Q, linac convention V^2/(omega W)", physics.FormatSI(a.ROverQLinac, "ohm", 5))
+			t.Row("R/Q, circuit convention V^2/(2 omega W)", physics.FormatSI(a.ROverQCircuit, "ohm", 5))
+			t.Row("shunt impedance, linac convention (R/Q) Q0", shunt(a.ShuntLinac(u.Q0)))
+			t.Row("shunt impedance, circuit convention (R/Q) Q0", shunt(a.ShuntCircuit(u.Q0)))
+			t.Row("Epk/Eacc", fmt.Sprintf("%.4f", a.EpkOverEacc))
+			t.Row("Bpk/Eacc", fmt.Sprintf("%.4f mT/(MV/m)", a.BpkOverEacc*1e9))
+		}
 		if err := t.Flush(); err != nil {
 			return err
+		}
+		for _, l := range accelNotes(a, o.Mode) {
+			fmt.Fprintf(w, "  %s\n", l)
 		}
 	}
 	if len(r.warnings) > 0 {
@@ -481,4 +505,33 @@ func joinFloats(v []float64) string {
 		s[i] = strconv.FormatFloat(x, 'g', -1, 64)
 	}
 	return strings.Join(s, ",")
+}
+
+// accelNotes says what the accelerator figures rest on: the gain that R/Q
+// uses, a speed that gains nothing, and the modes below the accelerating
+// one.
+func accelNotes(a *qfactor.Accel, m cavity.Mode) []string {
+	var out []string
+	if a.NoGain {
+		out = append(out, fmt.Sprintf("No net energy gain at %g c: T = %.3g is below %g, so Eacc is about zero and R/Q, shunt impedance, Epk/Eacc and Bpk/Eacc are not given (they would be meaningless).",
+			a.Speed, a.TransitTime, qfactor.MinTransitTime))
+	} else {
+		out = append(out, "R/Q and the shunt impedance use the gain V itself (V = T times the integral of |Ez| = (V/(E0 L)) times E0 L); Eacc = V/L.")
+	}
+	if a.BelowCount > 0 {
+		var names []string
+		for _, b := range a.Below {
+			names = append(names, b.Mode.String()+" at "+physics.FormatFrequency(b.Frequency, 6))
+		}
+		more := ""
+		if a.BelowCount > len(a.Below) {
+			more = fmt.Sprintf(", and %d more", a.BelowCount-len(a.Below))
+		}
+		verb, them := "resonates", "it"
+		if a.BelowCount > 1 {
+			verb, them = "resonate", "them"
+		}
+		out = append(out, fmt.Sprintf("%s is not the lowest mode of this cavity: %s%s %s below it; a beam or coupler can excite %s.", m, strings.Join(names, ", "), more, verb, them))
+	}
+	return out
 }

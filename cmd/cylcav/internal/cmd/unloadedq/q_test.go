@@ -226,3 +226,33 @@ func TestHelpHasExample(t *testing.T) {
 		t.Errorf("Example = %q, want a worked example", cmd.Example)
 	}
 }
+
+// TestAccelNotes: the transit-time factor is printed in both normalisations
+// with what R/Q uses; at a length where a speed-of-light particle gains
+// nothing (d = lambda of TM010: 2 pi a / j01 = 130.637 mm for a = 50 mm,
+// Wangler 2008, ch. 2) the figures per Eacc are not printed (they were
+// Epk/Eacc = 2e5 before), and TE111 is named below TM010 (L/a > 2.03).
+func TestAccelNotes(t *testing.T) {
+	r := clitest.Run(t, "q", "--mode", "TM010", "--diameter", "100mm", "--length", "130.6364mm", "--wall", "copper")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, %s", r.Code, r.Stderr)
+	}
+	for _, want := range []string{"V / integral |Ez| dz", "V / (E0 L)", "No net energy gain", "TE111 at", "resonates below it"} {
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("output lacks %q:\n%s", want, r.Stdout)
+		}
+	}
+	if strings.Contains(r.Stdout, "\nEpk/Eacc ") {
+		t.Errorf("Epk/Eacc printed where the gain cancels:\n%s", r.Stdout)
+	}
+	r = clitest.Run(t, "q", "--mode", "TM010", "--diameter", "230mm", "--length", "115mm", "--wall", "copper", "--format", "json")
+	for _, want := range []string{`"transit_time_factor_peak"`, `"no_gain": false`, `"modes_below_count": 0`} {
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("JSON lacks %s:\n%s", want, r.Stdout)
+		}
+	}
+	r = clitest.Run(t, "q", "--mode", "TM010", "--diameter", "230mm", "--length", "115mm", "--wall", "copper")
+	if !strings.Contains(r.Stdout, "R/Q and the shunt impedance use the gain V itself") {
+		t.Errorf("output does not say which gain R/Q uses:\n%s", r.Stdout)
+	}
+}
