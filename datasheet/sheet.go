@@ -147,7 +147,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	var qOf func(m cavity.Mode) (float64, error)
 	if ok, _ := r.Scenario.WallQ(); ok {
-		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, operate)(c) }
+		qOf = func(m cavity.Mode) (float64, error) { return r.Scenario.ModeQ(m)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
 		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},

@@ -19,6 +19,7 @@ import (
 type ScenarioFlags struct {
 	flags *pflag.FlagSet
 	geo   *GeometryFlags
+	acc   *accelFlags
 	names map[string]bool
 
 	mode, freq, wall, ratioRange, objective, minClear, minQ      string
@@ -59,6 +60,7 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	f.IntVar(&sf.samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
 	f.Uint64Var(&sf.seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
 	f.BoolVar(&sf.countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	sf.acc = addAccelFlags(f)
 	f.VisitAll(func(fl *pflag.Flag) {
 		if !before[fl.Name] {
 			sf.names[fl.Name] = true
@@ -212,6 +214,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 		*t.dst = v
 	}
+	if err := sf.acc.operating(&s, set); err != nil {
+		return s, err
+	}
 	if s.TempGiven && s.TOperate != 0 && !physics.TemperatureIn(s.TOperate, th.TMin, th.TMax) {
 		return s, FlagError("operating-temp", sf.operating, fmt.Errorf("must lie within --temp %s", sf.temp))
 	}
@@ -220,6 +225,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	}
 	if err := th.Validate(); err != nil {
 		return s, Usagef("%v", err)
+	}
+	if err := sf.acc.apply(&s, set); err != nil {
+		return s, err
 	}
 	if ok, why := s.WallQ(); !ok && why != nil && (sp.Objective == cavity.MaxQ || sp.MinQ > 0) {
 		op, _ := s.Temps()

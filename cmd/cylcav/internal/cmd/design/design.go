@@ -27,6 +27,8 @@ type Options struct {
 	IO       *cmdutil.IOStreams
 	Scenario design.Scenario
 	Format   cmdutil.Format
+	// HOMCSV selects the higher-order-mode table as the CSV output.
+	HOMCSV bool
 }
 
 // NewCmdDesign returns `cylcav design`. runF, when not nil, replaces the
@@ -36,6 +38,7 @@ func NewCmdDesign(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var (
 		checkFormat func() error
 		scenario    *cmdutil.ScenarioFlags
+		csvTable    string
 	)
 	cmd := &cobra.Command{
 		Use:   "design [--mode MODE --freq F] [flags]",
@@ -95,6 +98,19 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 				return err
 			}
 			opts.Scenario = s
+			switch csvTable {
+			case "tradeoff":
+			case "hom":
+				if opts.Format != cmdutil.CSV {
+					return cmdutil.Usagef("--csv-table hom needs --format csv")
+				}
+				if s.Accel == nil || s.Accel.HOMMax == 0 {
+					return cmdutil.Usagef("--csv-table hom needs --hom-max, e.g. --hom-max 4GHz")
+				}
+				opts.HOMCSV = true
+			default:
+				return cmdutil.FlagError("csv-table", csvTable, fmt.Errorf("unknown table; use tradeoff|hom"))
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -103,6 +119,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	}
 	scenario = cmdutil.AddScenarioFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
+	cmd.Flags().StringVar(&csvTable, "csv-table", "tradeoff", "table written by --format csv: tradeoff (clearance and Q0 against D/L) | hom (the higher-order-mode table)")
 	return cmd
 }
 
@@ -115,6 +132,9 @@ func runDesign(opts *Options) error {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, JSON(r))
 	case cmdutil.CSV:
+		if opts.HOMCSV {
+			return writeHOMCSV(opts.IO.Out, r.Accel.HOMs, opts.Scenario.Accel.Bunch)
+		}
 		return writeCSV(opts.IO.Out, r.Analysis.Curve)
 	}
 	return WriteTable(opts.IO.Out, r)
@@ -191,7 +211,12 @@ type Output struct {
 	TunedLengthM *[2]float64        `json:"tuned_length_m,omitempty"`
 	DriftHz      *[2]float64        `json:"thermal_drift_hz,omitempty"`
 	Tolerance    *Tolerance         `json:"tolerance"`
-	Cautions     []string           `json:"cautions"`
+	// QSuperconducting, Bench and Accelerator are set for superconducting
+	// walls, a cold vacuum cavity and an accelerator request.
+	QSuperconducting *SplitOut `json:"q_superconducting,omitempty"`
+	Bench            *BenchOut `json:"bench,omitempty"`
+	Accelerator      *AccelOut `json:"accelerator,omitempty"`
+	Cautions         []string  `json:"cautions"`
 }
 
 // Offender is the JSON form of a cavity.Offender.
@@ -230,6 +255,7 @@ func JSON(r design.Result) Output {
 		Cautions:    printedCautions(r),
 	}
 	o.OperatingTempK, o.MachiningTempK = r.Scenario.Temps()
+	o.QSuperconducting, o.Bench, o.Accelerator = splitJSON(r.Split), benchJSON(r.Bench), accelJSON(r)
 	if d.Limit != cavity.NoLimit {
 		l := string(d.Limit)
 		o.Limit = &l
@@ -326,6 +352,7 @@ func WriteTable(w io.Writer, r design.Result) error {
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
+	writeAccelTable(w, r)
 	s := r.Analysis.Sensitivity
 	fmt.Fprintf(w, "\nSensitivities:\n")
 	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))
