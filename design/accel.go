@@ -205,3 +205,46 @@ func bench(r Result) (*Bench, error) {
 		Machined:   mc,
 	}, nil
 }
+
+// DemoCell returns the built-in invented accelerator scenario: a 1.3 GHz
+// TM010 pillbox test cell of bulk niobium for the fictional "Harrow Fen"
+// electron test stand, operated superconducting at 2 K at 15 MV/m with a
+// 2 mA beam 10 degrees off crest, bunches every second RF period, its
+// length half a wavelength (D/L = 2 j01/pi), machined at 20 C to
+// +-0.02 mm, with higher-order modes listed up to 4 GHz.
+func DemoCell() (Scenario, error) {
+	nb, err := physics.LookupConductor("niobium")
+	if err != nil {
+		return Scenario{}, err
+	}
+	m, err := cavity.ParseMode("TM010")
+	if err != nil {
+		return Scenario{}, err
+	}
+	ratio := 2 * 2.404825557695773 / math.Pi // d = lambda/2 at beta = 1 (j01, DLMF table 10.21.1)
+	bcs := qfactor.NiobiumBCS()
+	s := Scenario{
+		Title: "TM010 superconducting test cell for the fictional Harrow Fen 1.3 GHz electron test stand (bulk niobium, 2 K)",
+		Spec: cavity.DesignSpec{
+			Mode: m, Frequency: 1.3e9,
+			RatioMin: ratio, RatioMax: ratio,
+		},
+		Settings: cavity.AnalysisSettings{
+			Tolerance: cavity.Tolerance{Diameter: 20e-6, Length: 20e-6, Samples: 20000, Seed: 1},
+		},
+		Wall:           &nb,
+		TOperate:       2,
+		Side:           nb,
+		Axial:          nb,
+		Superconductor: &bcs,
+		Accel: &Accelerator{
+			Speed: 1, Gradient: 15e6,
+			Beam:   &qfactor.Beam{Current: 2e-3, Phase: -10 * math.Pi / 180},
+			HOMMax: 4e9, Bunch: 650e6,
+		},
+	}
+	if err := s.SetThermal("wall", "wall"); err != nil {
+		return Scenario{}, err
+	}
+	return s, nil
+}

@@ -24,7 +24,7 @@ type ScenarioFlags struct {
 
 	mode, freq, wall, ratioRange, objective, minClear, minQ      string
 	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
-	tolDist, operating, machining                                string
+	tolDist, operating, machining, demo                          string
 	samples                                                      int
 	seed                                                         uint64
 	countDeg                                                     bool
@@ -66,6 +66,7 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 			sf.names[fl.Name] = true
 		}
 	})
+	f.StringVar(&sf.demo, "demo", "link", "built-in invented scenario used when no design flag is given: link (TE011 reference cavity of a microwave link) | cell (superconducting TM010 accelerator cell at 2 K)")
 	return sf
 }
 
@@ -80,7 +81,16 @@ func (sf *ScenarioFlags) Scenario() (design.Scenario, error) {
 		}
 	})
 	if demo {
-		return design.Demo()
+		switch sf.demo {
+		case "link":
+			return design.Demo()
+		case "cell":
+			return design.DemoCell()
+		}
+		return design.Scenario{}, FlagError("demo", sf.demo, fmt.Errorf("unknown demo scenario; use link|cell"))
+	}
+	if sf.flags.Changed("demo") {
+		return design.Scenario{}, Usagef("--demo takes no other design flags: it runs a built-in scenario")
 	}
 	return sf.parse()
 }
