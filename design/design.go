@@ -419,6 +419,12 @@ func Cautions(r Result) []string {
 			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
 		}
 	}
+	if u := r.Unloaded; u != nil {
+		operate, _ := r.Scenario.Temps()
+		for _, w := range qfactor.Validity(d.Cavity, walls(*r.Scenario.Wall, operate), *u) {
+			out = append(out, strings.ToUpper(w.Text[:1])+w.Text[1:]+".") // a sentence, as the other cautions
+		}
+	}
 	if m := spec.Mode; m.Family == cavity.TM && m.N == 0 {
 		// An accelerating (TM0mp) design: say when it is not the lowest mode.
 		if below, n, err := d.Cavity.ModesBelow(m, 3); err == nil && n > 0 {

@@ -45,7 +45,8 @@ func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs WallsAt) (Unloaded, error) {
 	if err := m.Validate(); err != nil {
 		return Unloaded{}, err
 	}
-	return unloaded(c, m, m.Root(), c.Frequency(m), rs, c.Fill.Q())
+	x := m.Root()
+	return unloaded(c, m, x, c.FrequencyOfRoot(x, m.P), rs, c.Fill.Q())
 }
 
 // UnloadedQAll returns UnloadedQ for each resonance in res (as listed by

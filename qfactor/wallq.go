@@ -131,8 +131,9 @@ func WallQ(c cavity.Cavity, m cavity.Mode, rs Walls) (WallLoss, error) {
 	if err := rs.Validate(); err != nil {
 		return WallLoss{}, err
 	}
-	w := wallQ(c, m, m.Root(), rs)
-	w.Frequency = c.Frequency(m)
+	x := m.Root()
+	w := wallQ(c, m, x, rs)
+	w.Frequency = c.FrequencyOfRoot(x, m.P)
 	return w, nil
 }
 

@@ -224,6 +224,17 @@ func (r *Result) realise() error {
 	}
 	r.Realisation = rz
 	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
+	var ws qfactor.WallSet // perfectly conducting without --wall
+	if opts.Walls != nil {
+		ws = *opts.Walls
+	}
+	checks := make([][]qfactor.Warning, len(rz.Cavities))
+	for i, cd := range rz.Cavities {
+		checks[i] = qfactor.Validity(cd.Cavity, ws, cd.Loss)
+	}
+	for _, c := range qfactor.Condense(checks) {
+		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s", rz.Cavities[c.First].Resonator, c.Text("cavities")))
+	}
 	return nil
 }
 
