@@ -420,8 +420,8 @@ func Cautions(r Result) []string {
 		}
 	}
 	if u := r.Unloaded; u != nil {
-		operate, _ := r.Scenario.Temps()
-		for _, w := range qfactor.Validity(d.Cavity, walls(*r.Scenario.Wall, operate), *u) {
+		ws, _ := r.Scenario.Walls()
+		for _, w := range qfactor.Validity(d.Cavity, ws, *u) {
 			out = append(out, strings.ToUpper(w.Text[:1])+w.Text[1:]+".") // a sentence, as the other cautions
 		}
 	}

@@ -34,23 +34,21 @@ type SuperconductingQ struct {
 //
 // the same sum UnloadedQ makes (Padamsee, Knobloch & Hays, RF
 // Superconductivity for Accelerators, 2nd ed. 2008, ch. 1: Q0 = G/Rs; the
-// split of Rs into R_BCS + R_res is their ch. 5). The BCS part of a
-// superconducting part is BCS.Resistance with the residual set to zero, the
-// residual part its Residual. An error of the surface models is returned.
+// split of Rs into R_BCS + R_res is their ch. 5), with the parts of each
+// superconducting surface from Surface.SuperconductingParts. An error of the
+// surface models is returned.
 func SplitSuperconducting(u Unloaded, w WallSet) (SuperconductingQ, error) {
 	f := u.Wall.Frequency
 	g := [3]float64{u.Wall.Geometry.Side, u.Wall.Geometry.EndA, u.Wall.Geometry.EndB}
 	var bcs, res, nrm [3]float64
 	for i, p := range Parts() {
 		s := w.Surface(p)
-		if b := s.Superconductor; b != nil {
-			pure := *b
-			pure.Residual = 0
-			r, err := pure.Resistance(s.temperature(), f)
+		if s.Superconductor != nil {
+			b, r, err := s.SuperconductingParts(f)
 			if err != nil {
 				return SuperconductingQ{}, fmt.Errorf("%s: %w", p, err)
 			}
-			bcs[i], res[i] = r, b.Residual
+			bcs[i], res[i] = b, r
 			continue
 		}
 		r, _, err := s.Resistance(f)
