@@ -134,7 +134,11 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 {{with index .Chart "tuning"}}{{template "figure" .}}{{end}}
 {{template "table" .Tuning}}
 
-<h2><span class="num">8</span>Materials and their sources</h2>
+{{if .HasAccel}}<h2 id="accel"><span class="num">{{.Num "accel"}}</span>Accelerator and cryogenic operation</h2>
+{{range .Accel}}{{template "table" .}}
+{{end}}{{range .AccelNotes}}<p class="note">{{.}}</p>
+{{end}}{{end}}
+<h2><span class="num">{{.Num "materials"}}</span>Materials and their sources</h2>
 <div class="materials">
 {{range .Materials}}<section class="material">
 <span class="role">{{.Role}}</span>
@@ -146,10 +150,10 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 </section>
 {{end}}</div>
 
-<h2><span class="num">9</span>Index convention</h2>
+<h2><span class="num">{{.Num "convention"}}</span>Index convention</h2>
 <p>{{.Convention}}</p>
 
-<h2><span class="num">10</span>Cautions</h2>
+<h2><span class="num">{{.Num "cautions"}}</span>Cautions</h2>
 {{if .Cautions}}<p>For this design:</p>
 <ul class="cautions">{{range .Cautions}}<li>{{.}}</li>{{end}}</ul>{{end}}
 <p>Safety:</p>

@@ -147,7 +147,16 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 		return err
 	}
 	w.table(sh.Tuning)
-	w.heading("8  Materials and their sources", w.tableStart()+pdfCellH*2)
+	if sh.HasAccel() {
+		w.heading(fmt.Sprintf("%d  Accelerator and cryogenic operation", sh.Num("accel")), w.tableStart())
+		for _, t := range sh.Accel {
+			w.table(t)
+		}
+		for _, n := range sh.AccelNotes {
+			w.note(n)
+		}
+	}
+	w.heading(fmt.Sprintf("%d  Materials and their sources", sh.Num("materials")), w.tableStart()+pdfCellH*2)
 	for _, m := range sh.Materials {
 		t := Table{Caption: m.Role + ": " + m.Name, Header: []string{"Property", "Value"}}
 		if m.Description != "" {
@@ -166,9 +175,9 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	// list), are kept on one page when they fit on one, so that the
 	// document does not end on a page with a stray bullet.
 	cautions := w.bulletsHeight(sh.Cautions) + 1 + w.bulletsHeight(sh.Safety)
-	w.heading("9  Index convention", w.paraHeight(sh.Convention)+headingH+cautions)
+	w.heading(fmt.Sprintf("%d  Index convention", sh.Num("convention")), w.paraHeight(sh.Convention)+headingH+cautions)
 	w.para(sh.Convention)
-	w.heading("10  Cautions", cautions)
+	w.heading(fmt.Sprintf("%d  Cautions", sh.Num("cautions")), cautions)
 	for _, c := range sh.Cautions {
 		w.bullet(c)
 	}

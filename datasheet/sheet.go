@@ -34,6 +34,10 @@ type Sheet struct {
 	Sensitive  Table
 	Spread     Table
 	Tuning     Table
+	// Accel and AccelNotes are the section "Accelerator and cryogenic
+	// operation" (accel.go); empty for other designs.
+	Accel      []Table
+	AccelNotes []string
 	Materials  []Material
 	Cautions   []string // from the design
 	Safety     []string // always printed
@@ -338,6 +342,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 			Source: "the local slope of each metal's thermal strain: integrated cryogenic contraction data where the metal has them (see cylcav materials), else its linear coefficient or the --alpha-side / --alpha-axial flags; the drift uses the full strain law"})
 	}
 
+	sh.Accel, sh.AccelNotes = accelSection(r)
 	sh.Cautions = r.Cautions
 	sh.Safety = safety
 
