@@ -2,8 +2,8 @@ package report_test
 
 import (
 	"encoding/json"
-	"html"
 	"fmt"
+	"html"
 	"os"
 	"os/exec"
 	"path/filepath"
