@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strconv"
 
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/design"
@@ -159,8 +160,10 @@ func accelJSON(r design.Result) *AccelOut {
 	return o
 }
 
-// writeHOMCSV writes the higher-order-mode table as CSV.
+// writeHOMCSV writes the higher-order-mode table as CSV, each number in
+// the shortest form that reads back exactly.
 func writeHOMCSV(w io.Writer, hs []qfactor.HOM, bunch float64) error {
+	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 	opt := func(v *float64) string {
 		if v == nil {
 			return ""

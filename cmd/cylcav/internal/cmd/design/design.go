@@ -68,9 +68,25 @@ and 200 C: a temperature outside the data exits with status 2. An air fill
 is vented (--fill air, constant pressure) or sealed (--fill air-sealed,
 constant density).
 
+Superconducting walls: --superconducting with --wall niobium and the wall
+temperature (--temperature 2K, the operating set-point) gives Q0 from the
+BCS approximation with its BCS and residual parts. For a TM0mp mode the
+accelerator flags add the transit-time factor, R/Q (linac convention,
+V^2/(omega U)), G and the peak-field ratios; --gradient the dissipated
+power, the heat load at the bath with the refrigerator power (common
+practice: 20 % of Carnot) and the margins of the peak fields against the
+niobium guides; --beam-current and --sync-phase the matched input coupling
+(beta, Qext, loaded bandwidth, forward and reflected power with and without
+detuning); --hom-max the monopole and dipole modes with R/Q, transverse R/Q,
+T and Q0, flagged near the harmonics of --bunch-freq. A cold vacuum cavity
+also gets its bench figures: the frequency of the machined cavity warm in
+vacuum and in air. The figures hold for the closed pillbox: the
+axisymmetric solver for beam pipes and noses is not available yet.
+
 With no flags at all, design runs a built-in demo scenario and says so on
-its first line. --format csv prints the trade-off curves (clearance and Q0
-against D/L).
+its first line (--demo cell: the superconducting accelerator cell). --format
+csv prints the trade-off curves (clearance and Q0 against D/L), or with
+--csv-table hom the higher-order-mode table.
 
 Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.
 Tolerances are read as 3-sigma limits of a normal distribution unless
@@ -83,6 +99,12 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 
   # A niobium accelerator cell designed for 2 K, dimensions to machine at 20 C
   $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --temp 2K:300K --operating-temp 2K
+
+  # A superconducting niobium TM010 cell at 2 K and 15 MV/m with a 2 mA beam
+  $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --superconducting --temperature 2K --gradient 15MV/m --beam-current 2mA --ratio-range 1.5:1.6
+
+  # Its monopole and dipole modes up to 4 GHz as CSV
+  $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --superconducting --temperature 2K --hom-max 4GHz --ratio-range 1.5:1.6 --format csv --csv-table hom
 
   # Highest Q0 with at least 5 % clearance, +-1 % tuning, -20 C..60 C,
   # machined to +-0.02 mm, as JSON
