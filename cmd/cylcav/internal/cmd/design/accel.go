@@ -194,8 +194,8 @@ func writeAccelTable(w io.Writer, r design.Result) {
 		fmt.Fprintln(w)
 	}
 	if b := r.Bench; b != nil {
-		fmt.Fprintf(w, "\nOn the bench (machined cavity at %s): %s in vacuum, %s in dry air (eps_r = %.6f, %s)\n",
-			physics.FormatTemperature(b.Machine, 4), physics.FormatFrequency(b.WarmVacuum, 9), physics.FormatFrequency(b.WarmAir, 9), b.Air.Medium.Eps(), b.Air.Source)
+		fmt.Fprintf(w, "\nOn the bench (machined cavity at %s): %s in vacuum, %s in %s (eps_r = %.6f, Smith-Weintraub refractivity)\n",
+			physics.FormatTemperature(b.Machine, 4), physics.FormatFrequency(b.WarmVacuum, 9), physics.FormatFrequency(b.WarmAir, 9), b.Air.Description, b.Air.Medium.Eps())
 		fmt.Fprintf(w, "  cold in vacuum at %s: %s (shift warm air to cold vacuum %s)\n",
 			physics.FormatTemperature(b.Operate, 4), physics.FormatFrequency(b.Cold, 9), signedF(b.Cold-b.WarmAir))
 		fmt.Fprintf(w, "  humid air raises eps_r further (see the air row in 'cylcav materials'); measure dry or correct for humidity\n")
