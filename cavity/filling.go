@@ -91,9 +91,9 @@ func (c Cavity) FillingFactors(m Mode, b Bulb) (Filling, error) {
 
 	z1, z2 := (c.Length-b.Length)/2, (c.Length+b.Length)/2
 	sin2 := b.Length/2 - (math.Sin(2*beta*z2)-math.Sin(2*beta*z1))/(4*beta) // integral sin^2
-	cos2 := b.Length - sin2                                                    // integral cos^2
-	sin1 := (math.Cos(beta*z1) - math.Cos(beta*z2)) / beta                     // integral sin
-	half := c.Length / 2                                                       // integral of sin^2 or cos^2 over the cavity
+	cos2 := b.Length - sin2                                                 // integral cos^2
+	sin1 := (math.Cos(beta*z1) - math.Cos(beta*z2)) / beta                  // integral sin
+	half := c.Length / 2                                                    // integral of sin^2 or cos^2 over the cavity
 
 	g := beta / kc
 	hTotal := totR*half + g*g*totR*half // |H|^2 over the cavity, per 2 pi H0^2
