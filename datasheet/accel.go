@@ -10,7 +10,7 @@ import (
 
 // This file arranges the superconducting, bench and accelerator figures of
 // a design (design.Result.Split, Bench and Accel) into the datasheet's
-// section "Accelerator and cryogenic operation".
+// section "Operating figures".
 
 // Section numbers: the accelerator section, when present, comes after
 // Tuning (7) and moves the later sections down by one.
@@ -74,6 +74,16 @@ func accelSection(r design.Result) ([]Table, []string) {
 		t.add(true, "Frequency cold, in vacuum (design)", freq(b.Cold), "at "+temp(b.Operate))
 		t.add(false, "Shift from the bench to operation", signedFreq(b.Cold-b.WarmAir), "")
 		tables = append(tables, t)
+	}
+	if fl := r.Filling; fl != nil {
+		t := Table{Caption: fmt.Sprintf("Storage bulb D = %s, L = %s on the axis, centred: fractions of the %v mode's energy inside it", length(2*fl.Bulb.Radius), length(fl.Bulb.Length), fl.Mode),
+			Header: []string{"Quantity", "Value", "Note"}, Num: []bool{false, true, false}}
+		t.add(true, "Magnetic energy along z", fmt.Sprintf("%.4f", fl.MagneticZ), "∫bulb |Hz|² / ∫cavity |H|²")
+		t.add(false, "Magnetic energy, all components", fmt.Sprintf("%.4f", fl.Magnetic), "")
+		t.add(false, "Electric energy", fmt.Sprintf("%.4f", fl.Electric), "scales the loss of the bulb wall")
+		t.add(true, "Maser filling factor η′", fmt.Sprintf("%.4f", fl.Maser), "(∫bulb Hz dV)² / (V_bulb ∫cavity |H|² dV), Kleppner et al. 1965")
+		tables = append(tables, t)
+		notes = append(notes, "Filling factors hold for a bulb of the fill's own permittivity; a dielectric bulb in an empty cavity changes the fields and needs the mode-matching solver, which is not available yet.")
 	}
 	a := r.Accel
 	if a == nil {

@@ -134,7 +134,7 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 {{with index .Chart "tuning"}}{{template "figure" .}}{{end}}
 {{template "table" .Tuning}}
 
-{{if .HasAccel}}<h2 id="accel"><span class="num">{{.Num "accel"}}</span>Accelerator and cryogenic operation</h2>
+{{if .HasAccel}}<h2 id="accel"><span class="num">{{.Num "accel"}}</span>Operating figures</h2>
 {{range .Accel}}{{template "table" .}}
 {{end}}{{range .AccelNotes}}<p class="note">{{.}}</p>
 {{end}}{{end}}

@@ -148,7 +148,7 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	}
 	w.table(sh.Tuning)
 	if sh.HasAccel() {
-		w.heading(fmt.Sprintf("%d  Accelerator and cryogenic operation", sh.Num("accel")), w.tableStart())
+		w.heading(fmt.Sprintf("%d  Operating figures", sh.Num("accel")), w.tableStart())
 		for _, t := range sh.Accel {
 			w.table(t)
 		}

@@ -53,6 +53,9 @@ type Scenario struct {
 	Superconductor *qfactor.BCS
 	// Accel, when not nil, asks for the accelerator figures (accel.go).
 	Accel *Accelerator
+	// Bulb, when not nil, asks for the filling factors of a central
+	// storage bulb (a TE0mp mode; cavity.Cavity.FillingFactors).
+	Bulb *cavity.Bulb
 }
 
 // TemperatureError is a temperature that the thermal data of a metal or
@@ -191,6 +194,8 @@ type Result struct {
 	Split *qfactor.SuperconductingQ
 	// Accel holds the accelerator figures; nil unless Scenario.Accel.
 	Accel *AccelResult
+	// Filling holds the filling factors of Scenario.Bulb; nil without.
+	Filling *cavity.Filling
 	// Bench holds the warm bench figures of a cold vacuum cavity; nil
 	// unless the cavity operates cryogenically or Scenario.Accel is set.
 	Bench *Bench
@@ -328,6 +333,18 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 		if r.Accel, err = s.accel(r); err != nil {
 			return Result{}, err
 		}
+	}
+	if s.Bulb != nil {
+		b := *s.Bulb
+		if b.Radius > d.Cavity.Radius || b.Length > d.Cavity.Length {
+			return Result{}, fmt.Errorf("the storage bulb (D = %s, L = %s) does not fit in the designed cavity (D = %s, L = %s)",
+				physics.FormatLength(2*b.Radius, 4), physics.FormatLength(b.Length, 4), physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatLength(d.Cavity.Length, 6))
+		}
+		f, err := d.Cavity.FillingFactors(spec.Mode, b)
+		if err != nil {
+			return Result{}, err
+		}
+		r.Filling = &f
 	}
 	if s.Accel != nil || operate < cryogenicBelow {
 		if r.Bench, err = bench(r); err != nil {

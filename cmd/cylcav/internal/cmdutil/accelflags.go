@@ -18,7 +18,7 @@ import (
 // --bunch-freq and --harmonic-window.
 type accelFlags struct {
 	temperature, residual, speed, gradient, current, phase string
-	homMax, bunch, window                                  string
+	homMax, bunch, window, bulbD, bulbL                    string
 	superconducting                                        bool
 }
 
@@ -37,6 +37,8 @@ func addAccelFlags(f *pflag.FlagSet) *accelFlags {
 	f.StringVar(&a.homMax, "hom-max", "", "list monopole and dipole modes up to this frequency, e.g. 4GHz")
 	f.StringVar(&a.bunch, "bunch-freq", "", "bunch repetition frequency: flag modes near its harmonics, e.g. 650MHz (needs --hom-max)")
 	f.StringVar(&a.window, "harmonic-window", "", "half-width of the band flagged around each beam harmonic, e.g. 0.5% (default 0.5 %)")
+	f.StringVar(&a.bulbD, "bulb-diameter", "", "diameter of a central storage bulb for its filling factors (TE0mp modes), e.g. 120mm")
+	f.StringVar(&a.bulbL, "bulb-length", "", "length of the storage bulb, centred between the end plates (needs --bulb-diameter), e.g. 150mm")
 	return a
 }
 
@@ -98,6 +100,23 @@ func (a *accelFlags) apply(s *design.Scenario, set func(string) bool) error {
 		}
 	case set("residual"):
 		return Usagef("--residual needs --superconducting")
+	}
+	if set("bulb-diameter") || set("bulb-length") {
+		if !set("bulb-diameter") || !set("bulb-length") {
+			return Usagef("--bulb-diameter and --bulb-length go together")
+		}
+		if m := s.Spec.Mode; m.Family != cavity.TE || m.N != 0 {
+			return Usagef("--bulb-diameter and --bulb-length need a TE0mp mode (H_z on the axis, e.g. TE011); --mode is %s", m)
+		}
+		d, err := Length("bulb-diameter", a.bulbD, cavity.MinSize, cavity.MaxSize)
+		if err != nil {
+			return err
+		}
+		l, err := Length("bulb-length", a.bulbL, cavity.MinSize, cavity.MaxSize)
+		if err != nil {
+			return err
+		}
+		s.Bulb = &cavity.Bulb{Radius: d / 2, Length: l}
 	}
 	given := false
 	for _, n := range accelFlagNames {

@@ -6,6 +6,7 @@ import (
 	"math"
 	"strconv"
 
+	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/design"
 	"cylcav/physics"
@@ -29,6 +30,23 @@ type BenchOut struct {
 	WarmVacuumHz   float64 `json:"f_warm_vacuum_hz"`
 	WarmAirHz      float64 `json:"f_warm_air_hz"`
 	AirEps         float64 `json:"air_eps_r"`
+}
+
+// FillingOut is the JSON form of the filling factors of a storage bulb.
+type FillingOut struct {
+	BulbDiameterM float64 `json:"bulb_diameter_m"`
+	BulbLengthM   float64 `json:"bulb_length_m"`
+	MagneticZ     float64 `json:"magnetic_z_fraction"`
+	Magnetic      float64 `json:"magnetic_fraction"`
+	Electric      float64 `json:"electric_fraction"`
+	Maser         float64 `json:"maser_filling_factor"`
+}
+
+func fillingJSON(f *cavity.Filling) *FillingOut {
+	if f == nil {
+		return nil
+	}
+	return &FillingOut{BulbDiameterM: 2 * f.Bulb.Radius, BulbLengthM: f.Bulb.Length, MagneticZ: f.MagneticZ, Magnetic: f.Magnetic, Electric: f.Electric, Maser: f.Maser}
 }
 
 // HOMOut is one row of the higher-order-mode table in JSON and CSV.
@@ -199,6 +217,11 @@ func writeAccelTable(w io.Writer, r design.Result) {
 		fmt.Fprintf(w, "  cold in vacuum at %s: %s (shift warm air to cold vacuum %s)\n",
 			physics.FormatTemperature(b.Operate, 4), physics.FormatFrequency(b.Cold, 9), signedF(b.Cold-b.WarmAir))
 		fmt.Fprintf(w, "  humid air raises eps_r further (see the air row in 'cylcav materials'); measure dry or correct for humidity\n")
+	}
+	if fl := r.Filling; fl != nil {
+		fmt.Fprintf(w, "\nStorage bulb D = %s, L = %s, centred (fractions of the mode's energy inside it):\n", physics.FormatLength(2*fl.Bulb.Radius, 4), physics.FormatLength(fl.Bulb.Length, 4))
+		fmt.Fprintf(w, "  magnetic energy along z %.4f, all magnetic %.4f, electric %.4f; maser filling factor eta' = %.4f (Kleppner et al. 1965)\n", fl.MagneticZ, fl.Magnetic, fl.Electric, fl.Maser)
+		fmt.Fprintf(w, "  for a bulb of the fill's own permittivity; a quartz bulb in an empty cavity needs the mode-matching solver, not available yet\n")
 	}
 	a := r.Accel
 	if a == nil {

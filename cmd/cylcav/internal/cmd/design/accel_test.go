@@ -3,10 +3,12 @@ package design_test
 import (
 	"encoding/csv"
 	"encoding/json"
+	"math"
 	"strconv"
 	"strings"
 	"testing"
 
+	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/clitest"
 )
 
@@ -54,5 +56,45 @@ func TestHOMTableFormats(t *testing.T) {
 		{Args: append(cell[1:], "--csv-table", "hom"), Code: 2, Want: []string{"--csv-table hom needs --format csv"}},
 		{Args: []string{"--mode", "TM010", "--freq", "1.3GHz", "--format", "csv", "--csv-table", "hom"}, Code: 2, Want: []string{"--hom-max"}},
 		{Args: append(cell[1:], "--format", "csv", "--csv-table", "modes"), Code: 2, Want: []string{"--csv-table", "tradeoff|hom"}},
+	})
+}
+
+// TestBulbFillingFactors: the filling factors printed for a hydrogen-maser
+// style TE011 cavity are cavity.FillingFactors of the designed cavity, and
+// the bulb flags refuse what they cannot describe.
+func TestBulbFillingFactors(t *testing.T) {
+	args := []string{"design", "--mode", "TE011", "--freq", "1.420405751GHz", "--wall", "copper", "--ratio-range", "0.8:1.2",
+		"--bulb-diameter", "150mm", "--bulb-length", "200mm", "--format", "json"}
+	r := clitest.Run(t, args...)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		DiameterM float64 `json:"diameter_m"`
+		LengthM   float64 `json:"length_m"`
+		Filling   *struct {
+			Maser     float64 `json:"maser_filling_factor"`
+			MagneticZ float64 `json:"magnetic_z_fraction"`
+		} `json:"filling"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if out.Filling == nil {
+		t.Fatal("no filling factors in the JSON output")
+	}
+	c := cavity.Cavity{Radius: out.DiameterM / 2, Length: out.LengthM}
+	f, err := c.FillingFactors(cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}, cavity.Bulb{Radius: 0.075, Length: 0.2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(f.Maser-out.Filling.Maser) > 1e-12 || math.Abs(f.MagneticZ-out.Filling.MagneticZ) > 1e-12 {
+		t.Errorf("filling %+v, library %+v", *out.Filling, f)
+	}
+	clitest.CheckBadInput(t, "design", []clitest.BadCase{
+		{Args: []string{"--mode", "TM010", "--freq", "1.3GHz", "--bulb-diameter", "10mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"TE0mp"}},
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "10mm"}, Code: 2, Want: []string{"go together"}},
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "1m", "--bulb-length", "10mm"}, Code: 1, Want: []string{"does not fit", "D = 1.000 m"}},
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "-5mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"--bulb-diameter"}},
 	})
 }

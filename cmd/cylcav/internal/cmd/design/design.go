@@ -235,10 +235,11 @@ type Output struct {
 	Tolerance    *Tolerance         `json:"tolerance"`
 	// QSuperconducting, Bench and Accelerator are set for superconducting
 	// walls, a cold vacuum cavity and an accelerator request.
-	QSuperconducting *SplitOut `json:"q_superconducting,omitempty"`
-	Bench            *BenchOut `json:"bench,omitempty"`
-	Accelerator      *AccelOut `json:"accelerator,omitempty"`
-	Cautions         []string  `json:"cautions"`
+	QSuperconducting *SplitOut   `json:"q_superconducting,omitempty"`
+	Bench            *BenchOut   `json:"bench,omitempty"`
+	Accelerator      *AccelOut   `json:"accelerator,omitempty"`
+	Filling          *FillingOut `json:"filling,omitempty"`
+	Cautions         []string    `json:"cautions"`
 }
 
 // Offender is the JSON form of a cavity.Offender.
@@ -278,6 +279,7 @@ func JSON(r design.Result) Output {
 	}
 	o.OperatingTempK, o.MachiningTempK = r.Scenario.Temps()
 	o.QSuperconducting, o.Bench, o.Accelerator = splitJSON(r.Split), benchJSON(r.Bench), accelJSON(r)
+	o.Filling = fillingJSON(r.Filling)
 	if d.Limit != cavity.NoLimit {
 		l := string(d.Limit)
 		o.Limit = &l

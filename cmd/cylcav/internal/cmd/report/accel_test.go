@@ -66,7 +66,7 @@ func TestSuperconductingDatasheet(t *testing.T) {
 	}
 	a := out.Accelerator
 	for _, want := range []string{
-		"Accelerator and cryogenic operation",
+		"Operating figures",
 		"RF power dissipated", physics.FormatSI(a.DissipatedW, "W", 4),
 		"Heat load at the 2.000 K bath", physics.FormatSI(a.WallPlugW, "W", 4),
 		"External Q", fmt.Sprintf("%.4g", a.Coupling.QExt), physics.FormatSI(a.Coupling.ForwardDetunedW, "W", 4),
@@ -105,7 +105,7 @@ func TestSuperconductingDatasheet(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, want := range []string{"Accelerator and cryogenic operation", "Heat load at the 2.000 K bath", "External Q", "Monopole and dipole modes"} {
+	for _, want := range []string{"Operating figures", "Heat load at the 2.000 K bath", "External Q", "Monopole and dipole modes"} {
 		if !strings.Contains(string(txt), want) {
 			t.Errorf("PDF text lacks %q", want)
 		}

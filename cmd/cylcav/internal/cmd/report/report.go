@@ -54,7 +54,7 @@ The design flags are those of 'cylcav design' and mean the same; the design
 is solved by the same library call. With superconducting walls or the
 accelerator flags (--superconducting, --temperature, --gradient,
 --beam-current, --hom-max, ...) the datasheet gains the section
-"Accelerator and cryogenic operation": the Q0 split, the bench frequencies
+"Operating figures": the Q0 split, the bench frequencies
 and dimensions to machine, the figures at the gradient with the heat load
 and field margins, the beam coupling and the mode table, with the cautions
 on cryogenics, high power and radiation. With no design flag the built-in demo
