@@ -137,8 +137,8 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 {{if .HasAccel}}<h2 id="accel"><span class="num">{{.Num "accel"}}</span>Operating figures</h2>
 {{range .Accel}}{{template "table" .}}
 {{end}}{{range .AccelNotes}}<p class="note">{{.}}</p>
-{{end}}{{end}}
-<h2><span class="num">{{.Num "materials"}}</span>Materials and their sources</h2>
+{{end}}
+{{end}}<h2><span class="num">{{.Num "materials"}}</span>Materials and their sources</h2>
 <div class="materials">
 {{range .Materials}}<section class="material">
 <span class="role">{{.Role}}</span>
