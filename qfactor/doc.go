@@ -10,9 +10,9 @@
 // # Wall Q with different walls
 //
 // The side wall (r = a), end plate A (z = 0) and end plate B (z = d) each
-// have their own surface resistance (Walls). For every mode the package
-// computes the partial geometry factors G_side, G_A, G_B, each the ratio
-// omega W / (1/2 integral |H_tan|^2 dS) over one wall part, so that
+// have their own surface resistance (SurfaceResistances). For every mode
+// the package computes the partial geometry factors G_side, G_A, G_B, each
+// the ratio omega W / (1/2 integral |H_tan|^2 dS) over one wall part, so that
 //
 //	1/Q_wall = Rs_side/G_side + Rs_A/G_A + Rs_B/G_B
 //
@@ -26,7 +26,7 @@
 // roughness, plating, temperature, superconducting state). Its Validate is
 // the one place the rules on wall surfaces live (a *WallError names the
 // part and the setting), Resistances gives the three Rs at a frequency, At
-// turns it into a WallsAt, and Q0Constraint gives the D/L optimiser of
+// turns it into a ResistancesAt, and Q0Constraint gives the D/L optimiser of
 // package cavity its Q0 function.
 //
 // # Fill, unloaded, loaded
@@ -39,8 +39,9 @@
 // external Q. A Q with no loss behind it is math.Inf(1).
 //
 // Surface resistances may depend on frequency: UnloadedQ and UnloadedQAll
-// take a WallsAt function and evaluate it at each mode's own frequency, so a
-// whole mode list gets its Q in one call (about half a microsecond a mode).
+// take a ResistancesAt function and evaluate it at each mode's own
+// frequency, so a whole mode list gets its Q in one call (about half a
+// microsecond a mode).
 //
 // # Where the models stop holding
 //

@@ -16,10 +16,10 @@ import (
 type SuperconductingQ struct {
 	// RsBCS and RsResidual are the BCS and residual parts of each wall
 	// part's Rs, ohm; zero on a normal-metal part.
-	RsBCS, RsResidual Walls
+	RsBCS, RsResidual SurfaceResistances
 	// RsNormal is the Rs of each normal-metal part, ohm; zero on a
 	// superconducting part.
-	RsNormal Walls
+	RsNormal SurfaceResistances
 	// QBCS, QResidual and QNormal are the partial Qs of the three kinds of
 	// wall loss (+Inf where there is none); QFill that of the fill and Q0
 	// the total, as in Unloaded.
@@ -58,7 +58,9 @@ func SplitSuperconducting(u Unloaded, w WallSet) (SuperconductingQ, error) {
 		nrm[i] = r
 	}
 	sum := func(rs [3]float64) float64 { return rs[0]/g[0] + rs[1]/g[1] + rs[2]/g[2] }
-	walls := func(rs [3]float64) Walls { return Walls{Side: rs[0], EndA: rs[1], EndB: rs[2]} }
+	walls := func(rs [3]float64) SurfaceResistances {
+		return SurfaceResistances{Side: rs[0], EndA: rs[1], EndB: rs[2]}
+	}
 	return SuperconductingQ{
 		RsBCS: walls(bcs), RsResidual: walls(res), RsNormal: walls(nrm),
 		QBCS: inv(sum(bcs)), QResidual: inv(sum(res)), QNormal: inv(sum(nrm)),

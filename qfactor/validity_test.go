@@ -26,7 +26,7 @@ func validity(t *testing.T, c cavity.Cavity, m cavity.Mode, w qfactor.WallSet) (
 	t.Helper()
 	rs := w.At(nil)
 	if w.Side.Conductor.Conductivity == 0 {
-		rs = qfactor.Fixed(qfactor.Walls{})
+		rs = fixed(qfactor.SurfaceResistances{})
 	}
 	u, err := qfactor.UnloadedQ(c, m, rs)
 	if err != nil {

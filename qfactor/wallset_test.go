@@ -113,7 +113,7 @@ func TestWallSetResistances(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := qfactor.Walls{Side: classicalRs(f, 5.8e7), EndA: classicalRs(f, brass.Conductivity), EndB: classicalRs(f, 5.8e7)}
+	want := qfactor.SurfaceResistances{Side: classicalRs(f, 5.8e7), EndA: classicalRs(f, brass.Conductivity), EndB: classicalRs(f, 5.8e7)}
 	for _, c := range []struct {
 		name      string
 		got, want float64

@@ -4,9 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io/fs"
 	"math"
-	"os"
 	"slices"
 	"strings"
 
@@ -183,16 +181,6 @@ func Compute(opts *Options) (*Result, error) {
 // realise sizes the cavities.
 func (r *Result) realise() error {
 	opts := r.Opts
-	var walls qfactor.WallsAt
-	if opts.Walls != nil {
-		seen := map[string]bool{}
-		walls = opts.Walls.At(func(w string) {
-			if !seen[w] {
-				seen[w] = true
-				r.Warnings = append(r.Warnings, "walls: "+w)
-			}
-		})
-	}
 	ratio := opts.Ratio
 	if ratio == 0 {
 		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: opts.Fill}
@@ -213,7 +201,7 @@ func (r *Result) realise() error {
 		r.Shape = fmt.Sprintf("D/L = %.5g (--ratio)", ratio)
 	}
 	ro := bandpass.RealiseOptions{
-		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: walls, Hole: opts.Hole,
+		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: opts.Walls, Hole: opts.Hole,
 	}
 	rz, err := bandpass.Realise(r.Design, ro)
 	if errors.Is(err, cavity.ErrInfeasible) {
@@ -223,14 +211,13 @@ func (r *Result) realise() error {
 		return err
 	}
 	r.Realisation = rz
-	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
-	var ws qfactor.WallSet // perfectly conducting without --wall
-	if opts.Walls != nil {
-		ws = *opts.Walls
+	for _, w := range rz.WallWarnings {
+		r.Warnings = append(r.Warnings, "walls: "+w)
 	}
+	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
 	checks := make([][]qfactor.Warning, len(rz.Cavities))
 	for i, cd := range rz.Cavities {
-		checks[i] = qfactor.Validity(cd.Cavity, ws, cd.Loss)
+		checks[i] = cd.Validity
 	}
 	for _, c := range qfactor.Condense(checks) {
 		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s", rz.Cavities[c.First].Resonator, c.Text("cavities")))
@@ -289,41 +276,18 @@ func (r *Result) buildPlot() error {
 // file behind; a failure of the second write removes the first file when
 // it did not exist before.
 func (r *Result) writeFiles() error {
-	type file struct {
-		path string
-		data []byte
-	}
-	var files []file
+	var files []cmdutil.File
 	if r.Opts.Touchstone != "" {
-		files = append(files, file{r.Opts.Touchstone, r.touchstone})
+		files = append(files, cmdutil.File{Flag: "touchstone", Path: r.Opts.Touchstone, Data: r.touchstone})
 	}
 	if r.Opts.Plot != "" {
-		files = append(files, file{r.Opts.Plot, r.plot})
+		files = append(files, cmdutil.File{Flag: "plot", Path: r.Opts.Plot, Data: r.plot})
 	}
-	existed := make([]bool, len(files))
-	for i, f := range files {
-		_, err := os.Stat(f.path)
-		switch {
-		case err == nil:
-			existed[i] = true
-			if !r.Opts.Force {
-				return cmdutil.Usagef("%s already exists; pass --force to overwrite it", f.path)
-			}
-		case !errors.Is(err, fs.ErrNotExist):
-			return err
-		}
+	if err := cmdutil.WriteFiles(r.Opts.Force, files...); err != nil {
+		return err
 	}
-	for i, f := range files {
-		if err := cmdutil.WriteFileAtomic(f.path, f.data, r.Opts.Force); err != nil {
-			for j := 0; j < i; j++ {
-				if !existed[j] {
-					os.Remove(files[j].path)
-				}
-			}
-			r.Written = nil
-			return err
-		}
-		r.Written = append(r.Written, f.path)
+	for _, f := range files {
+		r.Written = append(r.Written, f.Path)
 	}
 	return nil
 }
