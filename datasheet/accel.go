@@ -166,6 +166,25 @@ func accelSection(r design.Result) ([]Table, []string) {
 	return tables, notes
 }
 
+// accelFacts returns the key figures of the operating figures for the top
+// of the sheet: the bench frequency, the power and heat load at the
+// gradient and the external Q.
+func accelFacts(r design.Result) []KV {
+	var out []KV
+	if b := r.Bench; b != nil {
+		out = append(out, KV{"On the bench (air, " + temp(b.Machine) + ")", freq(b.WarmAir)})
+	}
+	if a := r.Accel; a != nil {
+		if d := a.Dissipation; d != nil {
+			out = append(out, KV{"Dissipated at " + physics.FormatSI(d.Gradient, "V/m", 4), watts(d.Power)})
+		}
+		if k := a.Coupling; k != nil {
+			out = append(out, KV{"External Q (matched)", qSci(k.QExt)})
+		}
+	}
+	return out
+}
+
 // qSci formats a large Q in scientific notation.
 func qSci(q float64) string {
 	if math.IsInf(q, 1) {

@@ -118,6 +118,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
 		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", fmt.Sprintf("%.0f", d.Q0)})
 	}
+	sh.Facts = append(sh.Facts, accelFacts(r)...)
 
 	// Dimensions and tolerances.
 	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
