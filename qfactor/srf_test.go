@@ -253,8 +253,9 @@ func TestForwardPowerCircuit(t *testing.T) {
 
 // TestMatchBeamWorkedExample checks the matched coupling of a 1.3 GHz
 // nine-cell cavity against the published design values of the TESLA
-// Technical Design Report (2001, part II, ch. 2, recalled from memory, as
-// quoted by Padamsee, Knobloch & Hays 2008): R/Q = 1036 ohm (linac),
+// Technical Design Report (DESY 2001, part II, the main linac; all values
+// recalled from memory, the same worked case that SRF texts such as
+// Padamsee, Knobloch & Hays 2008 discuss): R/Q = 1036 ohm (linac),
 // Eacc = 23.4 MV/m over 1.038 m, beam 9.5 mA on crest, Q0 = 1e10 give
 // Qext about 2.5e6 (the report rounds it) and about 231 kW forward power
 // per cavity. The tolerance, 2 %, covers the rounding of the published
