@@ -12,39 +12,6 @@ import (
 // a design (design.Result.Split, Bench and Accel) into the datasheet's
 // section "Operating figures".
 
-// Section numbers: the accelerator section, when present, comes after
-// Tuning (7) and moves the later sections down by one.
-const (
-	numAccel      = 8
-	numMaterials  = 8
-	numConvention = 9
-	numCautions   = 10
-)
-
-// Num returns the number of the section named name ("accel",
-// "materials", "convention" or "cautions"), for the HTML and PDF
-// renderers alike.
-func (sh *Sheet) Num(name string) int {
-	shift := 0
-	if sh.HasAccel() {
-		shift = 1
-	}
-	switch name {
-	case "accel":
-		return numAccel
-	case "materials":
-		return numMaterials + shift
-	case "convention":
-		return numConvention + shift
-	case "cautions":
-		return numCautions + shift
-	}
-	return 0
-}
-
-// HasAccel reports whether the sheet has the accelerator section.
-func (sh *Sheet) HasAccel() bool { return len(sh.Accel) > 0 }
-
 func watts(v float64) string { return physics.FormatSI(v, "W", 4) }
 
 // accelSection returns the tables and notes of the accelerator section of
