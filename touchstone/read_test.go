@@ -32,9 +32,9 @@ func readFile(t *testing.T, name string) *Data {
 }
 
 // TestReadAgainstScikitRF compares Read with scikit-rf 0.15.4 reading the
-// same files (testdata/touchstone/gen_skrf.py).
+// same files (touchstone/testdata/gen_skrf.py).
 func TestReadAgainstScikitRF(t *testing.T) {
-	b, err := os.ReadFile("../testdata/touchstone/skrf_read.json")
+	b, err := os.ReadFile("testdata/skrf_read.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -119,7 +119,7 @@ func TestRoundTripExact(t *testing.T) {
 	}
 	// The file cylcav filter wrote is RI with 12 digits: reading it and
 	// writing it again gives the same data lines byte for byte.
-	orig, _ := os.ReadFile("../testdata/touchstone/filter.s2p")
+	orig, _ := os.ReadFile("testdata/filter.s2p")
 	data := func(b []byte) string {
 		var keep []string
 		for _, l := range strings.Split(string(b), "\n") {
