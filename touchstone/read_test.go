@@ -20,7 +20,7 @@ const skrfTol = 1e-12
 
 func readFile(t *testing.T, name string) *Data {
 	t.Helper()
-	b, err := os.ReadFile(filepath.Join("..", "testdata", "touchstone", name))
+	b, err := os.ReadFile(filepath.Join("testdata", name))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -247,7 +247,7 @@ func TestWriteErrors(t *testing.T) {
 // that Write can write and Read reads back to the same point count.
 func FuzzRead(f *testing.F) {
 	for _, name := range []string{"variant_ri_khz.s1p", "variant_v2.s2p"} {
-		b, _ := os.ReadFile(filepath.Join("..", "testdata", "touchstone", name))
+		b, _ := os.ReadFile(filepath.Join("testdata", name))
 		f.Add(string(b[:min(len(b), 2000)]), 0)
 	}
 	f.Add("# HZ S RI\n1 1 0 2 0 3 0 4 0\n1 2 0.5 10 0.3\n", 2)
