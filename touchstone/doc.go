@@ -21,7 +21,7 @@
 // a reader of our own lets every malformed line be reported with its line
 // number and every limit of the format be checked the way the rest of
 // cylcav checks its input. It is checked against an independent reader
-// (scikit-rf) by a script under testdata/touchstone.
+// (scikit-rf) by a script under touchstone/testdata.
 //
 // References:
 //   - EIA/IBIS Open Forum, Touchstone File Format Specification, version

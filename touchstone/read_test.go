@@ -20,7 +20,7 @@ const skrfTol = 1e-12
 
 func readFile(t *testing.T, name string) *Data {
 	t.Helper()
-	b, err := os.ReadFile(filepath.Join("..", "testdata", "touchstone", name))
+	b, err := os.ReadFile(filepath.Join("testdata", name))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -32,9 +32,9 @@ func readFile(t *testing.T, name string) *Data {
 }
 
 // TestReadAgainstScikitRF compares Read with scikit-rf 0.15.4 reading the
-// same files (testdata/touchstone/gen_skrf.py).
+// same files (touchstone/testdata/gen_skrf.py).
 func TestReadAgainstScikitRF(t *testing.T) {
-	b, err := os.ReadFile("../testdata/touchstone/skrf_read.json")
+	b, err := os.ReadFile("testdata/skrf_read.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -119,7 +119,7 @@ func TestRoundTripExact(t *testing.T) {
 	}
 	// The file cylcav filter wrote is RI with 12 digits: reading it and
 	// writing it again gives the same data lines byte for byte.
-	orig, _ := os.ReadFile("../testdata/touchstone/filter.s2p")
+	orig, _ := os.ReadFile("testdata/filter.s2p")
 	data := func(b []byte) string {
 		var keep []string
 		for _, l := range strings.Split(string(b), "\n") {
@@ -247,7 +247,7 @@ func TestWriteErrors(t *testing.T) {
 // that Write can write and Read reads back to the same point count.
 func FuzzRead(f *testing.F) {
 	for _, name := range []string{"variant_ri_khz.s1p", "variant_v2.s2p"} {
-		b, _ := os.ReadFile(filepath.Join("..", "testdata", "touchstone", name))
+		b, _ := os.ReadFile(filepath.Join("testdata", name))
 		f.Add(string(b[:min(len(b), 2000)]), 0)
 	}
 	f.Add("# HZ S RI\n1 1 0 2 0 3 0 4 0\n1 2 0.5 10 0.3\n", 2)

@@ -17,11 +17,13 @@ import (
 type ScenarioFlags struct {
 	flags *pflag.FlagSet
 	geo   *GeometryFlags
+	acc   *accelFlags
 	names map[string]bool
 
 	wall                                     physics.Conductor
 	objective                                cavity.Objective
 	tolDist                                  cavity.Distribution
+	demo                                     string
 	mode                                     cavity.Mode
 	freq, maxD, maxL, tuning, minClear, minQ float64
 	ratioLo, ratioHi, tempLo, tempHi         float64
@@ -79,6 +81,7 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	IntVar(f, &sf.samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis", 1, cavity.MaxSamples)
 	f.Uint64Var(&sf.seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
 	f.BoolVar(&sf.countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	sf.acc = addAccelFlags(cmd)
 	f.VisitAll(func(fl *pflag.Flag) {
 		if !before[fl.Name] {
 			sf.names[fl.Name] = true
@@ -87,6 +90,7 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	for _, mc := range []string{"samples", "seed", "tolerance-dist"} {
 		Needs(cmd, mc, "tolerance", "tolerance-length")
 	}
+	f.StringVar(&sf.demo, "demo", "link", "built-in invented scenario used when no design flag is given: link (TE011 reference cavity of a microwave link) | cell (superconducting TM010 accelerator cell at 2 K)")
 	return sf
 }
 
@@ -101,7 +105,16 @@ func (sf *ScenarioFlags) Scenario() (design.Scenario, error) {
 		}
 	})
 	if demo {
-		return design.Demo()
+		switch sf.demo {
+		case "link":
+			return design.Demo()
+		case "cell":
+			return design.DemoCell()
+		}
+		return design.Scenario{}, FlagError("demo", sf.demo, fmt.Errorf("unknown demo scenario; use link|cell"))
+	}
+	if sf.flags.Changed("demo") {
+		return design.Scenario{}, Usagef("--demo takes no other design flags: it runs a built-in scenario")
 	}
 	return sf.parse()
 }
@@ -172,6 +185,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	if set("machining-temp") {
 		s.TMachine = sf.machining
 	}
+	if err := sf.acc.operating(&s, set); err != nil {
+		return s, err
+	}
 	if s.TempGiven && s.TOperate != 0 && !physics.TemperatureIn(s.TOperate, th.TMin, th.TMax) {
 		return s, FlagError("operating-temp", Text(sf.flags, "operating-temp"), fmt.Errorf("must lie within --temp %s", Text(sf.flags, "temp")))
 	}
@@ -180,6 +196,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	}
 	if err := th.Validate(); err != nil {
 		return s, Usagef("%v", err)
+	}
+	if err := sf.acc.apply(&s, set); err != nil {
+		return s, err
 	}
 	if ok, why := s.WallQ(); !ok && why != nil && (sp.Objective == cavity.MaxQ || sp.MinQ > 0) {
 		op, _ := s.Temps()
