@@ -1,0 +1,350 @@
+package axisym
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+
+	"cylcav/cavity"
+	"cylcav/physics"
+	"cylcav/physics/bessel"
+)
+
+// Request says which resonances Solve looks for. The zero value of every
+// field but MaxFrequency is a documented default.
+type Request struct {
+	// Order is the azimuthal order n of the fields (cos n phi). Only n = 0
+	// is implemented; any other order is an error that says so.
+	Order int
+	// MaxFrequency is the upper end of the search, in Hz: every resonance
+	// below it is returned.
+	MaxFrequency float64
+	// Modes is the number of waveguide modes of each family kept in the
+	// widest section; narrower sections keep proportionally fewer (the
+	// relative-convergence rule), and every section keeps at least the modes
+	// that propagate in it at MaxFrequency plus two. Zero means DefaultModes.
+	Modes int
+	// Families lists the families to solve (cavity.TE for TE0, cavity.TM for
+	// TM0); nil means both.
+	Families []cavity.Family
+}
+
+// Resonance is one resonance of a body.
+type Resonance struct {
+	// Family is TE (TE0: E_phi, H_r, H_z) or TM (TM0: E_r, E_z, H_phi).
+	Family cavity.Family
+	// Index counts the resonances of the family from 1 in frequency order.
+	Index int
+	// Frequency is the resonant frequency in Hz, computed with 1.5 times
+	// the requested number of modes.
+	Frequency float64
+	// Change is the convergence estimate in Hz: how far the frequency moved
+	// when the number of modes per section grew by half. +Inf when the
+	// resonance had no partner in the smaller model.
+	Change float64
+	// Origin is the mode of the enclosing cylinder (Body.Enclosing) that
+	// this resonance continues from: the Index-th mode of the same family
+	// and order there.
+	Origin cavity.Mode
+	// OriginTied is true when the enclosing cylinder has another mode of the
+	// family at the same frequency as Origin, so the label could be either.
+	OriginTied bool
+}
+
+// DefaultModes is the default number of modes in the widest section: the
+// five lowest n = 0 resonances of a stepped body then change by about 1e-5
+// relative when the count grows by half (see the package doc).
+const DefaultModes = 40
+
+// Limits of Solve. MaxModes is the most modes one section may keep (the
+// Bessel-root core's range); MaxResonances bounds the list, which rejects a
+// maximum frequency far above the lowest modes.
+const (
+	MaxModes      = cavity.MaxIndex
+	MaxResonances = cavity.MaxIndex
+)
+
+// relTol is the relative width to which each resonance of the truncated
+// model is bracketed: a few units in the last place, far below the
+// truncation error.
+const relTol = 1e-14
+
+// ErrNotImplemented is wrapped by the errors Solve returns for bodies or
+// requests the solver does not handle yet.
+var ErrNotImplemented = errors.New("not implemented")
+
+// Solve returns every resonance of body b of azimuthal order r.Order below
+// r.MaxFrequency, sorted by frequency (TE0 before TM0 at equal frequency),
+// each with its convergence estimate and the enclosing-cylinder mode it
+// continues from.
+//
+// Method: axial mode matching with modal admittances (see system); the
+// resonances of the truncated model are counted exactly below any frequency
+// by the Wittrick-Williams algorithm (Wittrick and Williams 1971), so none
+// is missed, isolated by bisection on the count, and refined by a secant
+// iteration on the last pivot kept inside the count's bracket. Accuracy is
+// that of the truncation, given by Change; the root of the truncated model
+// is found to relTol. A body of one section, or of sections of one radius,
+// has no truncation error: its frequencies are the closed-form ones.
+//
+// Errors: an invalid body (Body.Validate), a maximum frequency that is not
+// positive and finite, more than MaxResonances resonances below it, a
+// section that would need more than MaxModes modes, and, wrapping
+// ErrNotImplemented, an order other than 0 or a coaxial section.
+func Solve(b Body, r Request) ([]Resonance, error) {
+	if err := b.Validate(); err != nil {
+		return nil, err
+	}
+	if r.Order != 0 {
+		return nil, fmt.Errorf("axisym: azimuthal order n = %d: %w (only n = 0 is solved so far)", r.Order, ErrNotImplemented)
+	}
+	for i, s := range b.Sections {
+		if s.InnerRadius != 0 {
+			return nil, fmt.Errorf("axisym: section %d: coaxial sections (inner radius %g m): %w yet", i+1, s.InnerRadius, ErrNotImplemented)
+		}
+	}
+	if !(r.MaxFrequency > 0) || math.IsInf(r.MaxFrequency, 0) {
+		return nil, fmt.Errorf("axisym: maximum frequency must be positive and finite, got %g Hz", r.MaxFrequency)
+	}
+	modes := r.Modes
+	if modes == 0 {
+		modes = DefaultModes
+	}
+	if modes < 1 || modes > MaxModes {
+		return nil, fmt.Errorf("axisym: modes must be in 1..%d, got %d", MaxModes, modes)
+	}
+	fams := r.Families
+	if fams == nil {
+		fams = []cavity.Family{cavity.TE, cavity.TM}
+	}
+	var out []Resonance
+	for _, fam := range fams {
+		if fam != cavity.TE && fam != cavity.TM {
+			return nil, fmt.Errorf("axisym: unknown family %v", fam)
+		}
+		// The smaller model searches a little beyond the limit so that a
+		// resonance just below it still has a partner.
+		coarse, err := resonances(b, fam, r.MaxFrequency*(1+estimateMargin), modes)
+		if err != nil {
+			return nil, err
+		}
+		fine, err := resonances(b, fam, r.MaxFrequency, (3*modes+1)/2)
+		if err != nil {
+			return nil, err
+		}
+		origins, ties := labels(b.Enclosing(), fam, len(fine))
+		for i, f := range fine {
+			change := math.Inf(1)
+			if i < len(coarse) {
+				change = math.Abs(f - coarse[i])
+			}
+			out = append(out, Resonance{
+				Family: fam, Index: i + 1, Frequency: f, Change: change,
+				Origin: origins[i], OriginTied: ties[i],
+			})
+		}
+	}
+	sort.SliceStable(out, func(i, j int) bool { return out[i].Frequency < out[j].Frequency })
+	return out, nil
+}
+
+// estimateMargin widens the search of the smaller model used for the
+// convergence estimate (common practice: well above any truncation error).
+const estimateMargin = 0.05
+
+// ModeCounts returns the number of modes of family fam that Solve keeps in
+// each section of b for a search up to fmax with modes in the widest
+// section (the relative-convergence rule: counts proportional to the
+// radius, so that every section resolves the same finest radial detail at
+// a step; Lee, Jones and Campbell 1971; Mittra, Itoh and Li 1972), raised
+// where needed to the propagating modes plus two. It returns an error when
+// a section would need more than MaxModes.
+func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, error) {
+	rmax := b.MaxRadius()
+	counts := make([]int, len(b.Sections))
+	for i, s := range b.Sections {
+		n := int(math.Ceil(float64(modes) * s.Radius / rmax))
+		// Modes with kc < k are the zeros below k a; McMahon's expansion
+		// (DLMF 10.21.19) puts j_{0,m} near (m - 1/4) pi and j_{1,m} near
+		// (m + 1/4) pi, so fewer than k a/pi + 2 of them lie below k a.
+		ka := 2 * math.Pi * fmax / physics.SpeedOfLight * s.Fill.Index() * s.Radius
+		guess := int(ka/math.Pi) + 2
+		if guess > MaxModes {
+			return nil, fmt.Errorf("axisym: section %d propagates about %d modes at %g Hz, more than the %d the solver keeps; lower the maximum frequency",
+				i+1, guess, fmax, MaxModes)
+		}
+		order := 0
+		if fam == cavity.TE {
+			order = 1
+		}
+		prop := 0
+		for _, x := range bessel.JZeros(order, guess) {
+			if x < ka {
+				prop++
+			}
+		}
+		n = max(n, prop+2, 1)
+		if n > MaxModes {
+			return nil, fmt.Errorf("axisym: section %d would need %d modes, more than %d; lower the mode count or the maximum frequency", i+1, n, MaxModes)
+		}
+		counts[i] = n
+	}
+	return counts, nil
+}
+
+// resonances returns the resonant frequencies of family fam below fmax of
+// the model with modes in the widest section, in increasing order.
+func resonances(b Body, fam cavity.Family, fmax float64, modes int) ([]float64, error) {
+	counts, err := ModeCounts(b, fam, fmax, modes)
+	if err != nil {
+		return nil, err
+	}
+	s := newSystem(b, fam, counts)
+	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
+	jmax, gmax := sv.count(fmax)
+	if jmax > MaxResonances {
+		return nil, fmt.Errorf("axisym: %d %v0 resonances below %g Hz, more than %d; lower the maximum frequency", jmax, fam, fmax, MaxResonances)
+	}
+	sv.isolate(point{0, 0, 0}, point{fmax, jmax, gmax})
+	return sv.out, nil
+}
+
+// point is one evaluation: frequency, count below it and last pivot.
+type point struct {
+	f float64
+	j int
+	g float64
+}
+
+type solver struct {
+	s   *system
+	a   []float64
+	out []float64
+}
+
+func (sv *solver) count(f float64) (int, float64) {
+	if sv.s.ndof == 0 {
+		j := sv.s.eval(f, nil)
+		return j, math.NaN()
+	}
+	return sv.s.count(f, sv.a)
+}
+
+func (sv *solver) at(f float64) point {
+	j, g := sv.count(f)
+	return point{f, j, g}
+}
+
+// isolate finds every resonance in (lo.f, hi.f] by bisection on the count.
+func (sv *solver) isolate(lo, hi point) {
+	switch d := hi.j - lo.j; {
+	case d <= 0:
+		return
+	case d == 1:
+		sv.out = append(sv.out, sv.refine(lo, hi))
+		return
+	case hi.f-lo.f <= relTol*hi.f:
+		// Several resonances closer than the tolerance: a degenerate set.
+		for range d {
+			sv.out = append(sv.out, 0.5*(lo.f+hi.f))
+		}
+		return
+	}
+	mid := sv.at(0.5 * (lo.f + hi.f))
+	sv.isolate(lo, mid)
+	sv.isolate(mid, hi)
+}
+
+// refine narrows a bracket holding exactly one resonance (hi.j = lo.j + 1)
+// to relTol. Each step is a secant step on the last pivot (Illinois
+// weighting; Dowell and Jarratt 1971) when the pivot changes sign across
+// the bracket and the step lands well inside it, and a bisection otherwise;
+// the count alone decides which side keeps the resonance, so a pole of the
+// pivot can slow the search but never mislead it.
+func (sv *solver) refine(lo, hi point) float64 {
+	side := 0
+	for range 200 {
+		w := hi.f - lo.f
+		if w <= relTol*hi.f {
+			break
+		}
+		x := 0.5 * (lo.f + hi.f)
+		if !math.IsNaN(lo.g) && lo.g*hi.g < 0 {
+			s := lo.f - lo.g*w/(hi.g-lo.g)
+			if s > lo.f+0.001*w && s < hi.f-0.001*w {
+				x = s
+			}
+		}
+		p := sv.at(x)
+		if p.j <= lo.j {
+			if side == -1 {
+				hi.g /= 2
+			}
+			lo, side = p, -1
+		} else {
+			if side == 1 {
+				lo.g /= 2
+			}
+			hi, side = p, 1
+		}
+		if hi.f-lo.f > 0.5*w && x != 0.5*(lo.f+hi.f) {
+			// A secant step that barely moved: bisect next time.
+			lo.g = math.NaN()
+		}
+	}
+	return 0.5 * (lo.f + hi.f)
+}
+
+// labels returns, for k = 1..count, the k-th TE0 or TM0 mode of the closed
+// cylinder c in frequency order, and whether another mode of that family
+// shares its frequency (to 1e-12 relative).
+//
+// A resonance of a body keeps its place in the frequency order of its
+// family while the body is deformed continuously from the enclosing
+// cylinder, because modes of one symmetry class do not cross under a
+// generic deformation (von Neumann and Wigner 1929). A body with its own
+// mirror symmetry in z has even and odd classes that may cross; the label
+// is then the one of the order, as documented in the package.
+func labels(c cavity.Cavity, fam cavity.Family, count int) ([]cavity.Mode, []bool) {
+	type entry struct {
+		m cavity.Mode
+		f float64
+	}
+	if count == 0 {
+		return nil, nil
+	}
+	p0 := 1
+	if fam == cavity.TM {
+		p0 = 0
+	}
+	// The modes m = 1, p = p0..p0+count-1 are count modes, so the count
+	// lowest lie at or below the last of them; candidates beyond are not
+	// listed. The frequencies are cavity.Cavity.Frequency's.
+	bound := c.Frequency(cavity.Mode{Family: fam, M: 1, P: p0 + count - 1}) * (1 + 1e-12)
+	var list []entry
+	for m := 1; m <= min(count, cavity.MaxIndex); m++ {
+		if c.Frequency(cavity.Mode{Family: fam, M: m, P: p0}) > bound {
+			break
+		}
+		for p := p0; p < p0+count && p <= cavity.MaxIndex; p++ {
+			md := cavity.Mode{Family: fam, N: 0, M: m, P: p}
+			f := c.Frequency(md)
+			if f > bound {
+				break
+			}
+			list = append(list, entry{md, f})
+		}
+	}
+	sort.SliceStable(list, func(i, j int) bool { return list[i].f < list[j].f })
+	modes := make([]cavity.Mode, count)
+	ties := make([]bool, count)
+	for i := range count {
+		modes[i] = list[i].m
+		tie := func(j int) bool {
+			return j >= 0 && j < len(list) && math.Abs(list[j].f-list[i].f) <= 1e-12*list[i].f
+		}
+		ties[i] = tie(i-1) || tie(i+1)
+	}
+	return modes, ties
+}

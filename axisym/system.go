@@ -1,0 +1,266 @@
+package axisym
+
+import (
+	"math"
+
+	"cylcav/cavity"
+	"cylcav/physics"
+)
+
+// system is the mode-matched model of a body for one family (TE0 or TM0)
+// with a fixed number of modes per section.
+//
+// Each section is a bundle of uncoupled transmission lines, one per
+// waveguide mode, shorted where it meets an end plate. Each junction between
+// sections carries as unknowns the modal voltages of the narrower section's
+// modes (the aperture field; the step face is metal). The junction
+// equations B(omega) V = 0, with B the sum over sections of T^T Y T (T maps
+// junction voltages to the section's modal voltages: the identity on the
+// narrow side, the overlap matrix M on the wide side), is the
+// generalised-admittance form of axial mode matching (Wexler 1967; Patzelt
+// and Arndt 1982; Itoh (ed.) 1989, ch. 9).
+type system struct {
+	fam   cavity.Family
+	lines []lines
+	joins []join
+	ndof  int
+}
+
+// lines is one section's set of modal transmission lines.
+type lines struct {
+	kc       []float64 // transverse wavenumbers, rad/m
+	eps, mu  float64   // relative permittivity and permeability
+	length   float64   // m
+	b11, b12 []float64 // scratch: driving-point and transfer susceptance per mode
+}
+
+// join is one junction between sections i (left) and i+1 (right).
+type join struct {
+	off, n int       // offset and number of unknowns (modes of the narrower side)
+	left   []float64 // T of the left section (len(kc) x n, row-major), nil = identity
+	right  []float64 // T of the right section, nil = identity
+}
+
+// newSystem builds the model of b for family fam with counts[i] modes in
+// section i.
+func newSystem(b Body, fam cavity.Family, counts []int) *system {
+	s := &system{fam: fam}
+	for i, sec := range b.Sections {
+		n := counts[i]
+		s.lines = append(s.lines, lines{
+			kc:     cutoffs(fam, sec.Radius, n),
+			eps:    sec.Fill.Eps(),
+			mu:     sec.Fill.Mu(),
+			length: sec.Length,
+			b11:    make([]float64, n),
+			b12:    make([]float64, n),
+		})
+	}
+	for i := 0; i+1 < len(b.Sections); i++ {
+		l, r := b.Sections[i], b.Sections[i+1]
+		kl, kr := s.lines[i].kc, s.lines[i+1].kc
+		j := join{off: s.ndof}
+		// The unknowns are the modes of the narrower side; with equal
+		// radii the modes coincide and the side with fewer modes is used.
+		if l.Radius < r.Radius || (l.Radius == r.Radius && len(kl) <= len(kr)) {
+			j.n = len(kl)
+			j.right = coupling(fam, kr, kl, r.Radius, l.Radius)
+		} else {
+			j.n = len(kr)
+			j.left = coupling(fam, kl, kr, l.Radius, r.Radius)
+		}
+		s.ndof += j.n
+		s.joins = append(s.joins, j)
+	}
+	return s
+}
+
+// lineSusceptance returns the normalised driving-point and transfer
+// susceptances of one modal line of length l with propagation constant
+// squared beta2 = k^2 - kc^2, and the number of resonances below the current
+// frequency of that line shorted at both ends (the poles of b11).
+//
+// For a line of characteristic admittance Y0 the admittance matrix with
+// currents into both ports is Y11 = -j Y0 cot(beta l), Y12 = j Y0 csc(beta l)
+// (Pozar, Microwave Engineering, 4th ed., sec. 4.3, as recalled; Collin,
+// Field Theory of Guided Waves, 2nd ed., ch. 5). With Y0 = beta/(omega mu)
+// for TE and omega eps/beta for TM, and B = Im Y scaled by the positive
+// factor omega mu0 (TE) or 1/(omega eps0) (TM), which leaves the signs of
+// the eigenvalues alone:
+//
+//	TE: b11 = -beta cot(beta l)/mu_r,  b12 = beta csc(beta l)/mu_r
+//	TM: b11 = -eps_r cot(beta l)/beta, b12 = eps_r csc(beta l)/beta
+//
+// continued analytically to beta = -j alpha below cutoff (coth and csch).
+// Shorted at both ends the line resonates at beta l = p pi, p >= 1 for TE
+// and p >= 0 for TM: the TE0mp and TM0mp modes of the closed section.
+func lineSusceptance(fam cavity.Family, beta2, l, eps, mu float64) (b11, b12 float64, poles int) {
+	if beta2 <= 0 {
+		alpha := math.Sqrt(-beta2)
+		x := alpha * l
+		coth, csch := 1/math.Tanh(x), 1/math.Sinh(x)
+		if fam == cavity.TE {
+			if x == 0 {
+				return -1 / (l * mu), 1 / (l * mu), 0 // beta cot(beta l) -> 1/l
+			}
+			return -alpha * coth / mu, alpha * csch / mu, 0
+		}
+		if x == 0 {
+			return math.Inf(-1), math.Inf(1), 1
+		}
+		return eps * coth / alpha, -eps * csch / alpha, 0
+	}
+	beta := math.Sqrt(beta2)
+	t := beta * l / math.Pi
+	p := math.Floor(t)
+	// Reduce the argument once so that the pole count and the sign of the
+	// cotangent come from the same number.
+	x := math.Pi * (t - p) // in [0, pi)
+	cot := math.Cos(x) / math.Sin(x)
+	csc := 1 / math.Sin(x)
+	if int64(p)%2 == 1 {
+		csc = -csc // sin(x + p pi) = (-1)^p sin x
+	}
+	poles = int(p)
+	if fam == cavity.TE {
+		return -beta * cot / mu, beta * csc / mu, poles
+	}
+	return -eps * cot / beta, eps * csc / beta, poles + 1
+}
+
+// eval assembles the junction matrix at frequency f into a (ndof x ndof,
+// row-major, upper triangle used) and returns the number of closed-section
+// resonances below f (the Wittrick-Williams J0).
+func (s *system) eval(f float64, a []float64) (j0 int) {
+	clear(a)
+	k0 := 2 * math.Pi * f / physics.SpeedOfLight
+	for i := range s.lines {
+		ln := &s.lines[i]
+		k2 := k0 * k0 * ln.eps * ln.mu
+		for m, kc := range ln.kc {
+			b11, b12, poles := lineSusceptance(s.fam, k2-kc*kc, ln.length, ln.eps, ln.mu)
+			ln.b11[m], ln.b12[m] = b11, b12
+			j0 += poles
+		}
+		var jl, jr *join
+		var tl, tr []float64
+		if i > 0 {
+			jl = &s.joins[i-1]
+			tl = jl.right
+		}
+		if i < len(s.joins) {
+			jr = &s.joins[i]
+			tr = jr.left
+		}
+		if jl != nil {
+			s.add(a, jl, jl, tl, tl, ln.b11)
+		}
+		if jr != nil {
+			s.add(a, jr, jr, tr, tr, ln.b11)
+		}
+		if jl != nil && jr != nil {
+			s.add(a, jl, jr, tl, tr, ln.b12)
+		}
+	}
+	return j0
+}
+
+// add adds Ta^T diag(d) Tb to the block (ja, jb) of a (upper triangle only
+// on diagonal blocks); a nil T is the identity.
+func (s *system) add(a []float64, ja, jb *join, ta, tb, d []float64) {
+	n := s.ndof
+	for r := range ja.n {
+		c0 := 0
+		if ja == jb {
+			c0 = r
+		}
+		for c := c0; c < jb.n; c++ {
+			var v float64
+			switch {
+			case ta == nil && tb == nil:
+				if r == c {
+					v = d[r]
+				}
+			case ta == nil:
+				v = d[r] * tb[r*jb.n+c]
+			case tb == nil:
+				v = ta[c*ja.n+r] * d[c]
+			default:
+				for m, dm := range d {
+					v += ta[m*ja.n+r] * dm * tb[m*jb.n+c]
+				}
+			}
+			a[(ja.off+r)*n+jb.off+c] += v
+		}
+	}
+}
+
+// inertia factors the symmetric matrix a (upper triangle, overwritten) as
+// L D L^T by Gaussian elimination without interchanges, the form Wittrick
+// and Williams (1971) use for their sign count, and returns the number of
+// positive and negative pivots and the last pivot. The matrix is block
+// tridiagonal (junction i couples only to i-1 and i+1), so each pivot's
+// elimination touches only its own and the next junction: cost O(n w^2)
+// for bandwidth w.
+func (s *system) inertia(a []float64) (pos, neg int, last float64) {
+	n := s.ndof
+	for ji, jn := range s.joins {
+		end := jn.off + jn.n
+		if ji+1 < len(s.joins) {
+			end += s.joins[ji+1].n
+		}
+		for p := jn.off; p < jn.off+jn.n; p++ {
+			d := a[p*n+p]
+			switch {
+			case d > 0:
+				pos++
+			case d < 0:
+				neg++
+			default:
+				d = math.SmallestNonzeroFloat64 // exactly singular: count as positive
+				pos++
+			}
+			last = d
+			rowp := a[p*n : p*n+n]
+			for i := p + 1; i < end; i++ {
+				g := rowp[i] / d
+				if g == 0 {
+					continue
+				}
+				rowi := a[i*n : i*n+n]
+				for j := i; j < end; j++ {
+					rowi[j] -= g * rowp[j]
+				}
+			}
+		}
+	}
+	return pos, neg, last
+}
+
+// count returns the number of resonances of the modelled body with
+// frequency below f (the Wittrick-Williams count J = J0 + s), and the last
+// pivot of the factorisation, a smooth function of f between its poles
+// that changes sign at a resonance.
+//
+// Wittrick and Williams (1971) count the eigenvalues below f of a system
+// described by a dynamic stiffness matrix K(f) whose eigenvalues decrease
+// with f as J = J0 + s{K}, J0 the eigenvalues of the system with all
+// junction unknowns clamped and s the number of negative eigenvalues of K
+// (Sylvester's law of inertia lets the pivots of an elimination stand in
+// for the eigenvalues). Here the junction susceptance B increases with f
+// (Foster's reactance theorem), so K = -B; clamped junction voltages leave
+// each section a closed cylinder, whose resonances are the poles counted by
+// lineSusceptance. For TE0 (voltages = E_phi, the natural unknowns) that is
+// J = J0 + pos(B). For TM0 the voltages E_r are not the natural unknowns:
+// B -> 0+ as f -> 0 (B/f tends to a positive definite matrix), so every
+// eigenvalue starts positive and J = J0 + pos(B) - ndof = J0 - neg(B).
+// Derived; the tests check it against the closed-form mode lists of a
+// cylinder cut by junctions that change nothing.
+func (s *system) count(f float64, a []float64) (j int, last float64) {
+	j0 := s.eval(f, a)
+	pos, neg, last := s.inertia(a)
+	if s.fam == cavity.TE {
+		return j0 + pos, last
+	}
+	return j0 - neg, last
+}
