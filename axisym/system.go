@@ -169,28 +169,46 @@ func (s *system) eval(f float64, a []float64) (j0 int) {
 // on diagonal blocks); a nil T is the identity.
 func (s *system) add(a []float64, ja, jb *join, ta, tb, d []float64) {
 	n := s.ndof
-	for r := range ja.n {
-		c0 := 0
-		if ja == jb {
-			c0 = r
+	diag := ja == jb
+	switch {
+	case ta == nil && tb == nil:
+		for r := range ja.n {
+			a[(ja.off+r)*n+jb.off+r] += d[r]
 		}
-		for c := c0; c < jb.n; c++ {
-			var v float64
-			switch {
-			case ta == nil && tb == nil:
-				if r == c {
-					v = d[r]
+	case ta == nil:
+		for r := range ja.n {
+			row := a[(ja.off+r)*n+jb.off : (ja.off+r)*n+jb.off+jb.n]
+			tr := tb[r*jb.n : (r+1)*jb.n]
+			for c := range row {
+				row[c] += d[r] * tr[c]
+			}
+		}
+	case tb == nil:
+		for r := range ja.n {
+			row := a[(ja.off+r)*n+jb.off : (ja.off+r)*n+jb.off+jb.n]
+			for c := range row {
+				row[c] += ta[c*ja.n+r] * d[c]
+			}
+		}
+	default:
+		// Row m of Ta and Tb at a time, so the inner loop runs along a row.
+		for m, dm := range d {
+			tam := ta[m*ja.n : (m+1)*ja.n]
+			tbm := tb[m*jb.n : (m+1)*jb.n]
+			for r, x := range tam {
+				g := x * dm
+				if g == 0 {
+					continue
 				}
-			case ta == nil:
-				v = d[r] * tb[r*jb.n+c]
-			case tb == nil:
-				v = ta[c*ja.n+r] * d[c]
-			default:
-				for m, dm := range d {
-					v += ta[m*ja.n+r] * dm * tb[m*jb.n+c]
+				c0 := 0
+				if diag {
+					c0 = r
+				}
+				row := a[(ja.off+r)*n+jb.off : (ja.off+r)*n+jb.off+jb.n]
+				for c := c0; c < jb.n; c++ {
+					row[c] += g * tbm[c]
 				}
 			}
-			a[(ja.off+r)*n+jb.off+c] += v
 		}
 	}
 }
