@@ -15,6 +15,7 @@ import (
 	"cylcav/cmd/cylcav/internal/cmd/modes"
 	"cylcav/cmd/cylcav/internal/cmd/report"
 	"cylcav/cmd/cylcav/internal/cmd/size"
+	"cylcav/cmd/cylcav/internal/cmd/stack"
 	"cylcav/cmd/cylcav/internal/cmd/tune"
 	"cylcav/cmd/cylcav/internal/cmd/unloadedq"
 	"cylcav/cmd/cylcav/internal/cmd/version"
@@ -56,6 +57,7 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.AddCommand(chart.NewCmdChart(io, nil))
 	cmd.AddCommand(filter.NewCmdFilter(io, nil))
 	cmd.AddCommand(report.NewCmdReport(io, nil))
+	cmd.AddCommand(stack.NewCmdStack(io, nil))
 	requireShell(cmd)
 	return cmd
 }

@@ -1,0 +1,243 @@
+// Package stack implements `cylcav stack`: the resonances of an
+// axisymmetric cavity made of coaxial cylindrical sections, read from a
+// geometry file, by axial mode matching (package axisym).
+//
+// The geometry file is YAML. YAML was chosen over TOML because a cavity is
+// a list of sections, which YAML writes as a plain list with comments, and
+// because the decoder used, go.yaml.in/yaml/v3 (maintained by the YAML
+// organisation, the continuation of gopkg.in/yaml.v3), gives the line of
+// every key and value, so each error can name file, line and key.
+package stack
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"cylcav/axisym"
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+)
+
+// Options are the parsed and validated arguments of `cylcav stack`.
+type Options struct {
+	IO *cmdutil.IOStreams
+
+	// File is the geometry file's name as given, Geometry its content.
+	File     string
+	Geometry Geometry
+	// FMax is the upper end of the search in Hz.
+	FMax float64
+	// Modes is the number of modes in the widest section (0: the default).
+	Modes int
+	// Families are the families to solve.
+	Families []cavity.Family
+	Format   cmdutil.Format
+}
+
+// NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
+// command's work (tests use it to inspect the parsed options).
+func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: ios}
+	var fmax, family string
+	var checkFormat func() error
+	cmd := &cobra.Command{
+		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
+		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
+		Long: fmt.Sprintf(`List the azimuthally symmetric (n = 0) resonances below --fmax of a cavity
+made of circular cylindrical sections stacked along z between two metal end
+plates, every change of radius a flat metal step. TE0 (E_phi) and TM0
+(E_r, E_z) resonances are solved separately by axial mode matching; the
+count of resonances below any frequency is exact for the model, so none is
+missed. Each resonance is labelled with the mode of the enclosing cylinder
+(largest radius, total length) it continues from, and carries a
+convergence estimate: how far it moved when the number of waveguide modes
+grew by half.
+
+The geometry file is YAML:
+
+  title: two cells and an iris    # optional
+  sections:                       # from the end plate at z = 0
+    - length: 20mm                # lengths: m, cm, mm, um, in, mil
+      radius: 15mm
+      fill: vacuum                # optional: material name or eps=E[,tand=T]
+    - length: 2mm
+      radius: 4mm
+      start: 20mm                 # optional check: z of the left face
+
+Keys per section: %s. Not solved yet (an error says so): inner
+conductors (inner_radius > 0), n >= 1, unloaded Q and field maps.
+
+--modes sets the waveguide modes kept in the widest section (default %d);
+narrower sections keep proportionally fewer. JSON and CSV give SI values.`,
+			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
+		Example: `  # Two cells joined by an iris: resonances up to 12 GHz
+  $ cylcav stack examples/iris-pair.yaml --fmax 12GHz
+  ...
+
+  # A dielectric disc on the end plate of a can, TE0 only, as CSV
+  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --format csv`,
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) != 1 {
+				return cmdutil.Usagef("give one geometry file (e.g. cylcav stack examples/iris-pair.yaml --fmax 12GHz), got %d arguments", len(args))
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			var err error
+			if !cmd.Flags().Changed("fmax") {
+				return cmdutil.Usagef("missing --fmax, the upper end of the search (e.g. --fmax 12GHz)")
+			}
+			if opts.FMax, err = cmdutil.Frequency("fmax", fmax, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
+				return err
+			}
+			switch strings.ToLower(family) {
+			case "both":
+				opts.Families = []cavity.Family{cavity.TE, cavity.TM}
+			case "te":
+				opts.Families = []cavity.Family{cavity.TE}
+			case "tm":
+				opts.Families = []cavity.Family{cavity.TM}
+			default:
+				return cmdutil.FlagError("family", family, fmt.Errorf("must be te, tm or both"))
+			}
+			if opts.Modes != 0 && (opts.Modes < 2 || opts.Modes > axisym.MaxModes) {
+				return cmdutil.FlagError("modes", strconv.Itoa(opts.Modes), fmt.Errorf("must be between 2 and %d", axisym.MaxModes))
+			}
+			if err := checkFormat(); err != nil {
+				return err
+			}
+			data, err := os.ReadFile(opts.File)
+			if err != nil {
+				return cmdutil.Usagef("geometry file: %v", err)
+			}
+			if opts.Geometry, err = ParseGeometry(opts.File, data); err != nil {
+				return &cmdutil.UsageError{Err: err}
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return runStack(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&fmax, "fmax", "", "list every resonance below this frequency (e.g. 12GHz)")
+	fl.StringVar(&family, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both")
+	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
+	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
+	return cmd
+}
+
+// Row is one resonance as printed; JSON keys and CSV headers are the
+// snake_case names.
+type Row struct {
+	Index         int      `json:"index"`
+	Family        string   `json:"family"`
+	FamilyIndex   int      `json:"family_index"`
+	FHz           float64  `json:"f_hz"`
+	ChangeHz      *float64 `json:"change_hz"` // null: no partner in the smaller model
+	ContinuesFrom string   `json:"continues_from"`
+	LabelTied     bool     `json:"label_tied"`
+}
+
+func runStack(opts *Options) error {
+	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
+		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
+	})
+	if err != nil {
+		if errors.Is(err, axisym.ErrNotImplemented) {
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", opts.File, err)}
+		}
+		return err
+	}
+	rows := make([]Row, len(res))
+	for i, r := range res {
+		row := Row{
+			Index: i + 1, Family: r.Family.String() + "0", FamilyIndex: r.Index, FHz: r.Frequency,
+			ContinuesFrom: r.Origin.String(), LabelTied: r.OriginTied,
+		}
+		if !math.IsInf(r.Change, 0) {
+			c := r.Change
+			row.ChangeHz = &c
+		}
+		rows[i] = row
+	}
+	switch opts.Format {
+	case cmdutil.JSON:
+		return cmdutil.WriteJSON(opts.IO.Out, struct {
+			File       string  `json:"file"`
+			Title      string  `json:"title"`
+			Order      int     `json:"n"`
+			Sections   int     `json:"sections"`
+			LengthM    float64 `json:"length_m"`
+			MaxRadiusM float64 `json:"max_radius_m"`
+			FMaxHz     float64 `json:"fmax_hz"`
+			Resonances []Row   `json:"resonances"`
+		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
+			opts.Geometry.Body.MaxRadius(), opts.FMax, rows})
+	case cmdutil.CSV:
+		var out [][]string
+		for _, r := range rows {
+			change := ""
+			if r.ChangeHz != nil {
+				change = strconv.FormatFloat(*r.ChangeHz, 'g', -1, 64)
+			}
+			out = append(out, []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex),
+				strconv.FormatFloat(r.FHz, 'g', -1, 64), change, r.ContinuesFrom, strconv.FormatBool(r.LabelTied)})
+		}
+		return cmdutil.WriteCSV(opts.IO.Out, []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}, out)
+	}
+	return writeTable(opts.IO.Out, opts, rows)
+}
+
+func writeTable(w io.Writer, opts *Options, rows []Row) error {
+	b := opts.Geometry.Body
+	title := opts.Geometry.Title
+	if title == "" {
+		title = opts.File
+	}
+	length := cmdutil.TrimZeros(physics.FormatLength(b.Length(), 6))
+	radius := cmdutil.TrimZeros(physics.FormatLength(b.MaxRadius(), 6))
+	fmt.Fprintf(w, "body: %s, %d sections, length %s, largest radius %s\n", title, len(b.Sections), length, radius)
+	fmt.Fprintf(w, "n = 0 resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
+		cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
+	fmt.Fprintf(w, "continues from: mode of the enclosing cylinder (radius %s, length %s) at the same place in order\n",
+		radius, length)
+	if len(rows) == 0 {
+		fmt.Fprintln(w, "no resonance below that frequency")
+		return nil
+	}
+	t := cmdutil.NewTable(w, "#", "family", "k", "f", "change", "continues from")
+	for _, r := range rows {
+		change := "unknown"
+		if r.ChangeHz != nil {
+			change = physics.FormatFrequency(*r.ChangeHz, 2)
+		}
+		label := r.ContinuesFrom
+		if r.LabelTied {
+			label += " (tied)"
+		}
+		t.Row(strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex), physics.FormatFrequency(r.FHz, digits(r)), change, label)
+	}
+	return t.Flush()
+}
+
+// digits returns the significant digits worth printing for a resonance:
+// one beyond those its convergence estimate supports, 4 to 10.
+func digits(r Row) int {
+	if r.ChangeHz == nil {
+		return 4
+	}
+	if *r.ChangeHz <= 0 {
+		return 10
+	}
+	return min(max(int(math.Ceil(math.Log10(r.FHz / *r.ChangeHz)))+1, 4), 10)
+}

@@ -1,0 +1,113 @@
+package stack_test
+
+import (
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/stack"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+)
+
+// inRepo runs the test from the repository root so the examples/ paths
+// of the help text resolve.
+func inRepo(t *testing.T) {
+	t.Helper()
+	t.Chdir(filepath.Join("..", "..", "..", "..", ".."))
+}
+
+func TestExamples(t *testing.T) {
+	inRepo(t)
+	cmd := stack.NewCmdStack(&cmdutil.IOStreams{}, nil)
+	clitest.CheckExamples(t, cmd.Example)
+	for _, f := range []string{"iris-pair", "disc-in-can", "nosed-cell"} {
+		if r := clitest.Run(t, "stack", "examples/"+f+".yaml", "--fmax", "12GHz"); r.Code != 0 {
+			t.Errorf("examples/%s.yaml: exit %d, %s", f, r.Code, r.Stderr)
+		}
+	}
+}
+
+// TestOneSectionJSON checks the command end to end on a closed cylinder:
+// the frequencies must be package cavity's closed forms (Pozar, Microwave
+// Engineering, 4th ed., sec. 6.4) and the labels the modes themselves.
+func TestOneSectionJSON(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	r := clitest.Run(t, "stack", file, "--fmax", "14GHz", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	c := cavity.Cavity{Radius: 0.02, Length: 0.03}
+	if len(out.Resonances) == 0 {
+		t.Fatal("no resonances")
+	}
+	for _, row := range out.Resonances {
+		m, err := cavity.ParseMode(row.ContinuesFrom)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := c.Frequency(m)
+		if d := (row.FHz - want) / want; d > 1e-10 || d < -1e-10 {
+			t.Errorf("%s: f = %.12g Hz, want %.12g Hz (closed form)", row.ContinuesFrom, row.FHz, want)
+		}
+	}
+}
+
+func TestBadInput(t *testing.T) {
+	dir := t.TempDir()
+	write := func(name, text string) string {
+		p := filepath.Join(dir, name)
+		if err := os.WriteFile(p, []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return p
+	}
+	good := write("good.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n")
+	cases := []struct {
+		name, text string
+		want       []string
+	}{
+		{"unknown.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    colour: red\n", []string{"unknown.yaml:4", "sections[1].colour", "unknown key"}},
+		{"top.yaml", "sectons:\n  - length: 30mm\n", []string{"top.yaml:1", "sectons", "unknown key"}},
+		{"zero.yaml", "sections:\n  - length: 0mm\n    radius: 20mm\n", []string{"zero.yaml:2", "sections[1].length", "> 0"}},
+		{"neg.yaml", "sections:\n  - length: 3mm\n    radius: -20mm\n", []string{"neg.yaml:3", "sections[1].radius"}},
+		{"inner.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n    inner_radius: 2mm\n", []string{"inner.yaml:2", "inner_radius", "below the radius"}},
+		{"overlap.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n  - length: 3mm\n    radius: 4mm\n    start: 2mm\n", []string{"overlap.yaml:6", "sections[2].start", "overlaps"}},
+		{"gap.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n  - length: 3mm\n    radius: 4mm\n    start: 4mm\n", []string{"gap.yaml:6", "gap"}},
+		{"material.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n    fill: unobtainium\n", []string{"material.yaml:4", "sections[1].fill", "unknown dielectric"}},
+		{"unit.yaml", "sections:\n  - length: 3 furlong\n    radius: 2mm\n", []string{"unit.yaml:2", "sections[1].length"}},
+		{"dup.yaml", "sections:\n  - length: 3mm\n    length: 4mm\n    radius: 2mm\n", []string{"dup.yaml:3", "given twice"}},
+		{"missing.yaml", "sections:\n  - length: 3mm\n", []string{"missing.yaml:2", "sections[1].radius", "missing"}},
+		{"yaml.yaml", "sections: [\n", []string{"yaml.yaml:", "not valid YAML"}},
+		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n", []string{"coax.yaml", "coaxial", "not implemented"}},
+	}
+	var bad []clitest.BadCase
+	for _, c := range cases {
+		bad = append(bad, clitest.BadCase{Args: []string{write(c.name, c.text), "--fmax", "10GHz"}, Code: 2, Want: c.want})
+	}
+	bad = append(bad,
+		clitest.BadCase{Args: []string{good}, Code: 2, Want: []string{"--fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "-1GHz"}, Code: 2, Want: []string{"--fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--family", "hybrid"}, Code: 2, Want: []string{"--family", "te, tm or both"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--modes", "1"}, Code: 2, Want: []string{"--modes"}},
+		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
+		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
+	)
+	clitest.CheckBadInput(t, "stack", bad)
+	if r := clitest.Run(t, "stack", good, "--fmax", "10GHz", "--format", "csv"); r.Code != 0 || !strings.HasPrefix(r.Stdout, "index,family,family_index,f_hz") {
+		t.Errorf("csv: exit %d, %q", r.Code, r.Stdout)
+	}
+}
