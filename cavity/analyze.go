@@ -121,7 +121,7 @@ func Analyze(d Design, set AnalysisSettings) (Analysis, error) {
 			r, z := th.sizes(T)
 			c.Radius *= r
 			c.Length *= z
-			c.Fill.EpsR = spec.Fill.Eps() * (1 + th.TauEps*dT)
+			c.Fill.EpsR = spec.Fill.EpsAt(dT)
 			a.Drift[i] = c.Frequency(spec.Mode) - d.Cavity.Frequency(spec.Mode)
 		}
 	}

@@ -126,6 +126,15 @@ func (c Cavity) Frequency(m Mode) float64 {
 	return frequency(c.scale(), m.Root(), c.Radius, m.P, c.Length)
 }
 
+// FrequencyOfRoot returns the resonant frequency in Hz of the mode whose
+// Bessel zero is x (Mode.Root) and whose axial index is p, by the same
+// formula as Frequency: Frequency(m) == FrequencyOfRoot(m.Root(), m.P) bit
+// for bit. It lets a caller that has the zero already (a loss or field
+// computation) skip looking it up again. x and p are not checked.
+func (c Cavity) FrequencyOfRoot(x float64, p int) float64 {
+	return frequency(c.scale(), x, c.Radius, p, c.Length)
+}
+
 // Wavenumbers returns, for mode m in cavity c, the transverse wavenumber
 // kc = x/a, the axial wavenumber beta = p pi/d and the total wavenumber
 // k = sqrt(kc^2 + beta^2) in the fill, all in rad/m (Pozar, Microwave

@@ -34,9 +34,10 @@ func (o Objective) String() string {
 // temperature. By default the model is linear: D(T) = D0 (1 + AlphaRadial
 // (T - TRef)), L(T) = L0 (1 + AlphaAxial (T - TRef)); SizeRadial and
 // SizeAxial, when set, replace it with any measured law (for example the
-// integrated cryogenic contraction of physics.Conductor.SizeRatio). The fill
-// follows eps(T) = eps0 (1 + TauEps (T - TRef)). The zero value is a cavity
-// that does not change and no temperature range.
+// integrated cryogenic contraction of physics.Conductor.SizeRatio). The
+// fill's permittivity follows its own temperature coefficient
+// (physics.Medium.EpsAt); Thermal describes only the metal. The zero value
+// is a cavity that does not change and no temperature range.
 type Thermal struct {
 	// AlphaRadial is the linear expansion coefficient of the side wall
 	// (it sets the diameter) at TRef, 1/K. The sensitivities use it.
@@ -44,9 +45,6 @@ type Thermal struct {
 	// AlphaAxial is that of whatever sets the length (end spacers, the
 	// tuning rod), 1/K.
 	AlphaAxial float64
-	// TauEps is the fill's temperature coefficient of permittivity
-	// (1/eps) d eps/dT, 1/K.
-	TauEps float64
 	// TMin and TMax bound the operating temperature range in K; both zero
 	// means no range (only the sensitivities use the coefficients).
 	TMin, TMax float64
@@ -85,13 +83,12 @@ func (t Thermal) sizes(T float64) (radial, axial float64) {
 
 // Validate reports whether the coefficients are finite and within +-1e-3
 // 1/K, and the range, if any, is ordered within 1..3000 K with a positive
-// reference temperature and every size factor and 1 + tau_eps dT finite
-// and > 0 at both ends.
+// reference temperature and every size factor finite and > 0 at both ends.
 func (t Thermal) Validate() error {
 	for _, q := range []struct {
 		name string
 		v    float64
-	}{{"radial expansion coefficient", t.AlphaRadial}, {"axial expansion coefficient", t.AlphaAxial}, {"temperature coefficient of eps", t.TauEps}} {
+	}{{"radial expansion coefficient", t.AlphaRadial}, {"axial expansion coefficient", t.AlphaAxial}} {
 		if !(math.Abs(q.v) <= 1e-3) {
 			return fmt.Errorf("cavity: %s must be within +-1e-3 1/K, got %g 1/K", q.name, q.v)
 		}
@@ -108,8 +105,26 @@ func (t Thermal) Validate() error {
 	for _, T := range []float64{t.TMin, t.TMax} {
 		dT := T - t.ref()
 		r, a := t.sizes(T)
-		if !(r > 0 && a > 0 && 1+t.TauEps*dT > 0) || math.IsInf(r, 0) || math.IsInf(a, 0) {
+		if !(r > 0 && a > 0) || math.IsInf(r, 0) || math.IsInf(a, 0) {
 			return fmt.Errorf("cavity: the thermal model breaks down %g K away from the reference temperature", dT)
+		}
+	}
+	return nil
+}
+
+// checkFillDrift reports whether the fill's permittivity stays positive and
+// its linear temperature model within +-1e-3 1/K over th's range.
+func checkFillDrift(fill physics.Medium, th Thermal) error {
+	tc := fill.EpsTempCoeff()
+	if !(math.Abs(tc) <= 1e-3) {
+		return fmt.Errorf("cavity: temperature coefficient of eps must be within +-1e-3 1/K, got %g 1/K", tc)
+	}
+	if !th.hasRange() {
+		return nil
+	}
+	for _, T := range []float64{th.TMin, th.TMax} {
+		if dT := T - th.ref(); !(fill.EpsAt(dT) > 0) {
+			return fmt.Errorf("cavity: the fill's permittivity model breaks down %g K away from the reference temperature", dT)
 		}
 	}
 	return nil
@@ -467,6 +482,9 @@ func newProblem(spec DesignSpec) (*problem, error) {
 		}
 	}
 	if err := spec.Thermal.Validate(); err != nil {
+		return nil, err
+	}
+	if err := checkFillDrift(spec.Fill, spec.Thermal); err != nil {
 		return nil, err
 	}
 	p := &problem{spec: spec, w: newChartMode(spec.Mode)}

@@ -39,7 +39,10 @@ func (c Cavity) Sensitivity(m Mode, th Thermal) (Sensitivity, error) {
 	if err := m.Validate(); err != nil {
 		return Sensitivity{}, err
 	}
-	if err := (Thermal{AlphaRadial: th.AlphaRadial, AlphaAxial: th.AlphaAxial, TauEps: th.TauEps}).Validate(); err != nil {
+	if err := (Thermal{AlphaRadial: th.AlphaRadial, AlphaAxial: th.AlphaAxial}).Validate(); err != nil {
+		return Sensitivity{}, err
+	}
+	if err := checkFillDrift(c.Fill, Thermal{}); err != nil {
 		return Sensitivity{}, err
 	}
 	f := c.Frequency(m)
@@ -49,7 +52,7 @@ func (c Cavity) Sensitivity(m Mode, th Thermal) (Sensitivity, error) {
 		DfDD:       -f * (1 - s) / c.Diameter(),
 		DfDL:       -f * s / c.Length,
 		AxialShare: s,
-		TempCoeff:  -((1-s)*th.AlphaRadial + s*th.AlphaAxial) - th.TauEps/2,
+		TempCoeff:  -((1-s)*th.AlphaRadial + s*th.AlphaAxial) - c.Fill.EpsTempCoeff()/2,
 	}
 	out.DfDT = f * out.TempCoeff
 	return out, nil

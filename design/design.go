@@ -23,12 +23,15 @@ type Scenario struct {
 	// Title names the scenario; it is set for the built-in demo only.
 	Title string
 	// Spec is the library problem. Run fills in Spec.Q from Wall and Fill
-	// when Wall is set.
+	// when Wall is set, and Spec.Fill from Fill: a Spec.Fill given here is
+	// ignored.
 	Spec cavity.DesignSpec
 	// Wall is the wall metal; nil means no Q0.
 	Wall *physics.Conductor
-	// Fill is the library row of the fill, with its description and source
-	// for a datasheet; its Medium is Spec.Fill.
+	// Fill is the fill of the cavity (zero value: vacuum), the one place a
+	// scenario holds it: its Medium is the cavity's fill in Run, in the
+	// Result's Design and in the Result's Scenario.Spec.Fill; its
+	// description and source are for a datasheet.
 	Fill physics.Dielectric
 	// TempGiven records whether a temperature range was asked for.
 	TempGiven bool
@@ -132,7 +135,6 @@ func (s *Scenario) SetThermal(sideFlag, axialFlag string) error {
 					physics.FormatTemperature(physics.DefaultLinearTMin, 4), physics.FormatTemperature(physics.DefaultLinearTMax, 4))}
 			}
 		}
-		th.TauEps = s.Fill.TCEps
 	}
 	var err error
 	if th.AlphaRadial, err = s.Side.ExpansionAt(operate); err != nil {
@@ -213,7 +215,6 @@ func Demo() (Scenario, error) {
 		Spec: cavity.DesignSpec{
 			Mode:      m,
 			Frequency: 10.5e9,
-			Fill:      air.Medium,
 			RatioMin:  0.8, RatioMax: 2.5,
 			Tuning:  0.005,
 			Thermal: cavity.Thermal{TMin: tmin, TMax: tmax},
@@ -265,10 +266,13 @@ func (s Scenario) WallQ() (ok bool, why error) {
 
 // Run solves the scenario: the optimum (cavity.Optimize), its analysis
 // with s.Settings (cavity.Analyze), the Q breakdown at the design when a
-// wall is given, and the cautions. progress, when not nil, receives the
-// Monte Carlo progress. Errors of the optimisation are returned as they
-// are (an impossible request is a *cavity.InfeasibleError).
+// wall is given, and the cautions. The cavity's fill is s.Fill; the
+// Result's Scenario has it in Spec.Fill too. progress, when not nil,
+// receives the Monte Carlo progress. Errors of the optimisation are
+// returned as they are (an impossible request is a
+// *cavity.InfeasibleError).
 func (s Scenario) Run(progress func(done, total int)) (Result, error) {
+	s.Spec.Fill = s.Fill.Medium
 	spec := s.Spec
 	operate, _ := s.Temps()
 	wallQ, _ := s.WallQ()
@@ -376,6 +380,12 @@ func Cautions(r Result) []string {
 		}
 		if half := 0.5 * (sp.P99 - sp.P01); spec.Tuning > 0 && half > spec.Tuning*spec.Frequency {
 			out = append(out, "The machining spread of the frequency is wider than the tuning range.")
+		}
+	}
+	if u := r.Unloaded; u != nil {
+		operate, _ := r.Scenario.Temps()
+		for _, w := range qfactor.Validity(d.Cavity, walls(*r.Scenario.Wall, operate), *u) {
+			out = append(out, strings.ToUpper(w.Text[:1])+w.Text[1:]+".") // a sentence, as the other cautions
 		}
 	}
 	if m := spec.Mode; m.Family == cavity.TM && m.N == 0 {

@@ -79,6 +79,46 @@ func TestRunIsOptimizeThenAnalyze(t *testing.T) {
 	}
 }
 
+// TestRunOneFill checks that a scenario holds its fill once: Run sizes
+// the cavity with Scenario.Fill whatever Spec.Fill says, and the Result
+// carries that fill everywhere. The designed cavity must resonate at the
+// asked frequency with that fill, by cavity.Frequency (Pozar, Microwave
+// Engineering, 4th ed., sec. 6.4: f scales as 1/sqrt(eps_r mu_r)).
+func TestRunOneFill(t *testing.T) {
+	ptfe, err := physics.LookupDielectric("ptfe")
+	if err != nil {
+		t.Fatal(err)
+	}
+	te011 := mustMode(t, "TE011")
+	run := func(spec physics.Medium) design.Result {
+		t.Helper()
+		s := design.Scenario{Spec: cavity.DesignSpec{Mode: te011, Frequency: 10e9, Fill: spec}, Fill: ptfe}
+		r, err := s.Run(nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return r
+	}
+	want := run(physics.Medium{})
+	if f := want.Design.Cavity.Frequency(te011); math.Abs(f-10e9) > oneFillFreqTol*10e9 {
+		t.Errorf("TE011 of the PTFE-filled design = %.12g Hz, want 10 GHz", f)
+	}
+	for _, spec := range []physics.Medium{{}, ptfe.Medium, {Name: "other", EpsR: 9.8, TanDelta: 1e-4}} {
+		r := run(spec)
+		if r.Design.Cavity != want.Design.Cavity || r.Design.Cavity.Fill != ptfe.Medium {
+			t.Errorf("Spec.Fill %+v: cavity %+v, want %+v filled with Scenario.Fill", spec, r.Design.Cavity, want.Design.Cavity)
+		}
+		if r.Design.Spec.Fill != ptfe.Medium || r.Scenario.Spec.Fill != ptfe.Medium {
+			t.Errorf("Spec.Fill %+v: result's fills %+v (design) and %+v (scenario), want Scenario.Fill %+v",
+				spec, r.Design.Spec.Fill, r.Scenario.Spec.Fill, ptfe.Medium)
+		}
+	}
+}
+
+// oneFillFreqTol is the relative error of the optimiser's cavity at its
+// design frequency: cavity.Size is exact to a few ulp.
+const oneFillFreqTol = 1e-12
+
 // TestCautions checks each caution against a fact found another way:
 // TE0mp and TM1mp are degenerate in every cylinder (j'_0m = j_1m, Pozar,
 // Microwave Engineering, 4th ed., sec. 6.7); an optimum forced onto a
@@ -98,7 +138,7 @@ func TestCautions(t *testing.T) {
 	}{
 		{"degenerate companion", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9}}, "TM111 resonates at exactly the frequency of TE011"},
 		{"range edge", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, MaxDiameter: 0.0419}}, "edge of the allowed D/L range (max-diameter"},
-		{"lossy fill", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: lossy.Medium}, Wall: &cu, Fill: lossy}, "The fill's loss dominates Q0"},
+		{"lossy fill", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9}, Wall: &cu, Fill: lossy}, "The fill's loss dominates Q0"},
 		{"no wall", design.Scenario{Spec: cavity.DesignSpec{Mode: mustMode(t, "TM010"), Frequency: 3e9}}, "Q0 not computed"},
 	} {
 		r, err := tc.s.Run(nil)

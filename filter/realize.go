@@ -67,10 +67,10 @@ type RealiseOptions struct {
 	// Fill is the homogeneous medium in the cavities, with its loss
 	// tangents (zero value: lossless vacuum).
 	Fill physics.Medium
-	// Walls gives the surface resistances at a frequency (for example
-	// from qfactor.Surface.Resistance); nil means perfectly conducting
+	// Walls are the side wall and end plates of every cavity, each
+	// evaluated at its cavity's frequency; nil means perfectly conducting
 	// walls, so that Q0 comes from the fill alone (+Inf with no loss).
-	Walls qfactor.WallsAt
+	Walls *qfactor.WallSet
 	// Window is the half-width of the spurious search window as a fraction
 	// of f0, in (0, MaxSpuriousWindow]; zero means DefaultSpuriousWindow.
 	// The window is widened to hold every stopband and rejection frequency.
@@ -104,6 +104,9 @@ type CavityDesign struct {
 	// its breakdown.
 	Q0   float64
 	Loss qfactor.Unloaded
+	// Validity holds the warnings of qfactor.Validity on Loss: where the
+	// loss models stop holding for this cavity (nil when they hold).
+	Validity []qfactor.Warning
 }
 
 // Spurious is another resonance of a cavity design near the band.
@@ -195,6 +198,10 @@ type Realisation struct {
 	// resonances in the passband, then in a stopband, then the holes
 	// (outside Bethe's range or unreachable).
 	Warnings []string
+	// WallWarnings are the warnings of the wall surface models
+	// (qfactor.WallSet.Resistances: a ferromagnetic metal, the anomalous
+	// skin effect, ...), each once, in the order met.
+	WallWarnings []string
 }
 
 // Q0 returns the unloaded Q of each resonator, in order, as
@@ -221,7 +228,7 @@ func (r *Realisation) Q0() []float64 {
 // f_i, not f0. Synchronously tuned designs (all-pole and symmetric ones)
 // have every f_i = f0. The cavity comes from cavity.Size with opts.Shape
 // and its Q0 from qfactor.UnloadedQ (wall loss from opts.Walls, fill loss
-// from the loss tangents of opts.Fill).
+// from the loss tangents of opts.Fill), checked by qfactor.Validity.
 //
 // Spurious resonances: every other mode of each distinct cavity design
 // inside the search window, from cavity.Cavity.Modes (complete to the
@@ -242,8 +249,9 @@ func (r *Realisation) Q0() []float64 {
 // applied to them here.
 //
 // Errors: a nil or unsynthesised design, an invalid mode, fill, loss,
-// window or stopband, a missing Shape, a cavity that cannot be sized, or
-// an error from opts.Walls.
+// wall set (qfactor.WallSet.Validate), window or stopband, a missing
+// Shape, a cavity that cannot be sized, or a surface resistance that
+// cannot be computed at a cavity's frequency.
 func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	if d == nil || d.Folded == nil || d.Spec.Order < 1 {
 		return nil, errors.New("filter: Realise needs a synthesised design (from Synthesize)")
@@ -262,9 +270,12 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	if opts.Shape.Name() == "none" {
 		return nil, errors.New("filter: Realise needs a cavity shape: cavity.ByRatio(D/L), cavity.ByDiameter(m) or cavity.ByLength(m)")
 	}
-	walls := opts.Walls
-	if walls == nil {
-		walls = qfactor.Fixed(qfactor.Walls{})
+	var ws qfactor.WallSet // the zero WallSet: perfectly conducting (qfactor.Validity)
+	if opts.Walls != nil {
+		ws = *opts.Walls
+		if err := ws.Validate(); err != nil {
+			return nil, fmt.Errorf("filter: walls: %w", err)
+		}
 	}
 	w := opts.Window
 	if w == 0 {
@@ -284,6 +295,10 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	}
 
 	r := &Realisation{Mode: mode, Shape: opts.Shape}
+	walls := func(float64) (qfactor.SurfaceResistances, error) { return qfactor.SurfaceResistances{}, nil }
+	if opts.Walls != nil {
+		walls = ws.At(func(w string) { r.WallWarnings = append(r.WallWarnings, w) })
+	}
 
 	// Cavities.
 	r.Cavities = make([]CavityDesign, n)
@@ -301,7 +316,8 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 		if err != nil {
 			return nil, fmt.Errorf("filter: unloaded Q of resonator %d: %w", i, err)
 		}
-		r.Cavities[i-1] = CavityDesign{Resonator: i, SelfCoupling: mii, F: fi, Cavity: c, Q0: u.Q0, Loss: u}
+		r.Cavities[i-1] = CavityDesign{Resonator: i, SelfCoupling: mii, F: fi, Cavity: c, Q0: u.Q0, Loss: u,
+			Validity: qfactor.Validity(c, ws, u)}
 	}
 
 	// Window and stopbands: the mask's rejection regions (Spec.Mask) are the

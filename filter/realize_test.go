@@ -3,6 +3,7 @@ package filter
 import (
 	"fmt"
 	"math"
+	"reflect"
 	"slices"
 	"strings"
 	"testing"
@@ -46,10 +47,12 @@ const (
 	realRouteTol = 1e-12
 )
 
-// copperWalls is the classical smooth-copper surface resistance at f,
-// Rs = sqrt(pi f mu0 / sigma) (Pozar sec. 1.7).
-func copperWalls(f float64) (qfactor.Walls, error) {
-	return qfactor.Uniform(math.Sqrt(math.Pi * f * physics.VacuumPermeability / copperSigma)), nil
+// copperWalls are smooth walls of conductivity copperSigma at 20 C; the
+// tests compare with the classical Rs = sqrt(pi f mu0 / sigma) (Pozar sec.
+// 1.7) computed here.
+func copperWalls() *qfactor.WallSet {
+	w := qfactor.SameWalls(qfactor.Surface{Conductor: physics.Conductor{Name: "user", Conductivity: copperSigma}})
+	return &w
 }
 
 // invented4 is an invented 4-cavity TE011 channel filter: 10.7 GHz, 40 MHz
@@ -123,7 +126,7 @@ func bruteModes(t *testing.T, c cavity.Cavity, lo, hi float64) []cavity.Resonanc
 func TestRealiseFourCavityTE011(t *testing.T) {
 	d := invented4(t)
 	te011 := cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
-	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Walls: copperWalls})
+	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Walls: copperWalls()})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -149,7 +152,7 @@ func TestRealiseFourCavityTE011(t *testing.T) {
 		if want := pozarTE0mpQ(c, te011, rs); apRel(cd.Q0, want) > realRouteTol {
 			t.Errorf("cavity %d: Q0 = %.12g, want %.12g (Pozar sec. 6.4 closed form)", i+1, cd.Q0, want)
 		}
-		u, err := qfactor.UnloadedQ(c, te011, copperWalls)
+		u, err := qfactor.UnloadedQ(c, te011, copperWalls().At(nil))
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -453,6 +456,7 @@ func TestRealiseTE111Polarisation(t *testing.T) {
 func TestRealiseErrors(t *testing.T) {
 	d := invented4(t)
 	shape := cavity.ByRatio(1.2)
+	hot := qfactor.SameWalls(qfactor.Surface{Conductor: physics.Conductor{Name: "user", Conductivity: copperSigma}, Temperature: 3000})
 	for _, c := range []struct {
 		name string
 		d    *Design
@@ -469,7 +473,7 @@ func TestRealiseErrors(t *testing.T) {
 		{"bad loss", d, RealiseOptions{Shape: shape, Fill: physics.Medium{TanDelta: -1}}, "loss tangent"},
 		{"bad fill", d, RealiseOptions{Shape: shape, Fill: physics.Medium{EpsR: 0.5}}, "resonator 1"},
 		{"infeasible", d, RealiseOptions{Shape: cavity.ByDiameter(0.01)}, "cut off"},
-		{"walls error", d, RealiseOptions{Shape: shape, Walls: func(float64) (qfactor.Walls, error) { return qfactor.Walls{}, fmt.Errorf("no data") }}, "no data"},
+		{"walls error", d, RealiseOptions{Shape: shape, Walls: &hot}, "filter: walls: side wall (r = a): wall temperature must be above 0 K and at most 2000 K"},
 	} {
 		_, err := Realise(c.d, c.opts)
 		if err == nil || !strings.Contains(err.Error(), c.want) {
@@ -480,7 +484,7 @@ func TestRealiseErrors(t *testing.T) {
 
 func BenchmarkRealise(b *testing.B) {
 	d := invented4(b)
-	opts := RealiseOptions{Shape: cavity.ByRatio(1.2), Walls: copperWalls, Hole: &Hole{Thickness: 1e-3}}
+	opts := RealiseOptions{Shape: cavity.ByRatio(1.2), Walls: copperWalls(), Hole: &Hole{Thickness: 1e-3}}
 	for b.Loop() {
 		if _, err := Realise(d, opts); err != nil {
 			b.Fatal(err)
@@ -497,10 +501,8 @@ func ExampleRealise() {
 		fmt.Println(err)
 		return
 	}
-	copper := func(f float64) (qfactor.Walls, error) {
-		return qfactor.Uniform(qfactor.SurfaceResistance(f, 5.8e7, 1)), nil
-	}
-	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Walls: copper, Hole: &Hole{Thickness: 1e-3}})
+	copper := qfactor.SameWalls(qfactor.Surface{Conductor: physics.Conductor{Name: "copper", Conductivity: 5.8e7}})
+	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Walls: &copper, Hole: &Hole{Thickness: 1e-3}})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -558,5 +560,51 @@ func TestRealiseFromOptimiser(t *testing.T) {
 		if !s.Companion && math.Abs(s.Relative) < opt.Clearance.Value*(1-1e-9) {
 			t.Errorf("spurious %s at %+.4f %% from f0, inside the optimiser's clearance %.4f %%", s.Mode, 100*s.Relative, 100*opt.Clearance.Value)
 		}
+	}
+}
+
+// TestRealiseValidity checks that Realise gives each cavity the verdict of
+// qfactor.Validity (tested against independent routes in package qfactor)
+// and the wall models' warnings once. The fill's tan delta = 0.02 bounds
+// Q0 by Q_fill = 1/tan delta = 50 (Pozar sec. 6.3), below
+// qfactor.MinValidQ, so every cavity must carry the LowQ warning; the
+// walls' mu_r = 50 must give MagneticWall.
+func TestRealiseValidity(t *testing.T) {
+	d := invented4(t)
+	const note = "invented ferromagnetic test metal"
+	walls := qfactor.SameWalls(qfactor.Surface{Conductor: physics.Conductor{
+		Name: "user", Conductivity: 1e7, MuR: 50, Ferromagnetic: true, Note: note}})
+	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Fill: physics.Medium{EpsR: 2, TanDelta: 0.02}, Walls: &walls})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, cd := range r.Cavities {
+		if want := qfactor.Validity(cd.Cavity, walls, cd.Loss); !reflect.DeepEqual(cd.Validity, want) {
+			t.Errorf("cavity %d: Validity = %v, want qfactor.Validity = %v", cd.Resonator, cd.Validity, want)
+		}
+		var checks []qfactor.Check
+		for _, w := range cd.Validity {
+			checks = append(checks, w.Check)
+		}
+		if !slices.Contains(checks, qfactor.LowQ) || !slices.Contains(checks, qfactor.MagneticWall) {
+			t.Errorf("cavity %d (Q0 = %g): checks %v, want LowQ and MagneticWall", cd.Resonator, cd.Q0, checks)
+		}
+	}
+	if len(r.WallWarnings) != 1 || !strings.Contains(r.WallWarnings[0], note) {
+		t.Errorf("wall warnings = %q, want the ferromagnetic note once for the 4 cavities", r.WallWarnings)
+	}
+
+	// Perfectly conducting walls and a lossless fill: nothing to warn of.
+	r, err = Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, cd := range r.Cavities {
+		if cd.Validity != nil || !math.IsInf(cd.Q0, 1) {
+			t.Errorf("cavity %d, lossless: Q0 = %g, validity %v; want +Inf, none", cd.Resonator, cd.Q0, cd.Validity)
+		}
+	}
+	if r.WallWarnings != nil {
+		t.Errorf("lossless: wall warnings %q, want none", r.WallWarnings)
 	}
 }

@@ -71,6 +71,22 @@ func (m Medium) Label() string {
 // Index returns the refractive index sqrt(mu_r eps_r) of the medium.
 func (m Medium) Index() float64 { return math.Sqrt(m.Eps() * m.Mu()) }
 
+// EpsTempCoeff returns the temperature coefficient of permittivity
+// (1/eps) d eps/dT in 1/K when it is known, and 0 otherwise (a fill whose
+// permittivity is taken not to change).
+func (m Medium) EpsTempCoeff() float64 {
+	if !m.TCEpsKnown {
+		return 0
+	}
+	return m.TCEps
+}
+
+// EpsAt returns the relative permittivity dT kelvin away from the
+// temperature at which EpsR holds, by the linear model
+// eps(T) = eps (1 + TCEps dT) (the definition of TCEps; zero coefficient
+// when it is not known).
+func (m Medium) EpsAt(dT float64) float64 { return m.Eps() * (1 + m.EpsTempCoeff()*dT) }
+
 // Validate reports whether the medium is physical: MinEpsR <= eps_r <=
 // MaxEpsR and MinMuR <= mu_r <= MaxMuR (zero meaning 1), both loss tangents
 // in 0..MaxTanDelta, and TanDeltaFreq and TCEps finite with TanDeltaFreq

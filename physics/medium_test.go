@@ -100,3 +100,20 @@ func TestConductorMu(t *testing.T) {
 		t.Errorf("Conductor{MuR: 2.5}.Mu() = %g, want 2.5", got)
 	}
 }
+
+// TestEpsAt checks the fill's linear temperature model against its
+// definition, eps(T) = eps (1 + tc dT), and that an unknown coefficient
+// leaves the permittivity unchanged.
+func TestEpsAt(t *testing.T) {
+	m := Medium{EpsR: 9.8, TCEps: -50e-6, TCEpsKnown: true}
+	if got, want := m.EpsAt(40), 9.8*(1-50e-6*40); got != want {
+		t.Errorf("EpsAt(40) = %v, want %v", got, want)
+	}
+	m.TCEpsKnown = false
+	if got := m.EpsAt(40); got != 9.8 {
+		t.Errorf("EpsAt(40) with unknown coefficient = %v, want 9.8", got)
+	}
+	if got := (Medium{}).EpsAt(-300); got != 1 {
+		t.Errorf("vacuum EpsAt(-300) = %v, want 1", got)
+	}
+}

@@ -162,7 +162,7 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 
 	f := Accel{
 		Mode:            m,
-		Frequency:       c.Frequency(m),
+		Frequency:       c.FrequencyOfRoot(x, m.P),
 		Speed:           speed,
 		Gap:             gap,
 		TransitTime:     gap / v0,

@@ -26,7 +26,7 @@ func benchModes(b *testing.B) []cavity.Resonance {
 // benchFmax with copper Rs evaluated at each mode's frequency.
 func BenchmarkUnloadedQAll(b *testing.B) {
 	res := benchModes(b)
-	rs := func(f float64) (qfactor.Walls, error) {
+	rs := func(f float64) (qfactor.SurfaceResistances, error) {
 		return qfactor.Uniform(qfactor.SurfaceResistance(f, 5.8e7, 1)), nil
 	}
 	c := benchCavity
@@ -42,7 +42,7 @@ func BenchmarkUnloadedQAll(b *testing.B) {
 // BenchmarkModesAndQ includes the enumeration itself, the full cost of a
 // mode table with Q columns.
 func BenchmarkModesAndQ(b *testing.B) {
-	rs := qfactor.Fixed(qfactor.Uniform(0.05))
+	rs := fixed(qfactor.Uniform(0.05))
 	for b.Loop() {
 		res, err := benchCavity.Modes(benchFmax)
 		if err != nil {
@@ -57,7 +57,7 @@ func BenchmarkModesAndQ(b *testing.B) {
 func BenchmarkWallQ(b *testing.B) {
 	c := cavity.Cavity{Radius: 0.02, Length: 0.04}
 	m := cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
-	rs := qfactor.Walls{Side: 0.02, EndA: 0.02, EndB: 0.03}
+	rs := qfactor.SurfaceResistances{Side: 0.02, EndA: 0.02, EndB: 0.03}
 	for b.Loop() {
 		if _, err := qfactor.WallQ(c, m, rs); err != nil {
 			b.Fatal(err)

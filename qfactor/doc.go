@@ -10,9 +10,9 @@
 // # Wall Q with different walls
 //
 // The side wall (r = a), end plate A (z = 0) and end plate B (z = d) each
-// have their own surface resistance (Walls). For every mode the package
-// computes the partial geometry factors G_side, G_A, G_B, each the ratio
-// omega W / (1/2 integral |H_tan|^2 dS) over one wall part, so that
+// have their own surface resistance (SurfaceResistances). For every mode
+// the package computes the partial geometry factors G_side, G_A, G_B, each
+// the ratio omega W / (1/2 integral |H_tan|^2 dS) over one wall part, so that
 //
 //	1/Q_wall = Rs_side/G_side + Rs_A/G_A + Rs_B/G_B
 //
@@ -20,16 +20,34 @@
 // wall parts is derived here from the same fields (see WallQ) and checked in
 // the tests by numerical quadrature of the mode fields.
 //
+// # Wall set
+//
+// WallSet holds the three wall parts of a cavity, each a Surface (metal,
+// roughness, plating, temperature, superconducting state). Its Validate is
+// the one place the rules on wall surfaces live (a *WallError names the
+// part and the setting), Resistances gives the three Rs at a frequency, At
+// turns it into a ResistancesAt, and Q0Constraint gives the D/L optimiser of
+// package cavity its Q0 function.
+//
 // # Fill, unloaded, loaded
 //
-// A full homogeneous fill with electric and magnetic loss tangents has
-// 1/Q_fill = tan delta_e + tan delta_m, and 1/Q0 = 1/Q_wall + 1/Q_fill.
+// A full homogeneous fill (the cavity's physics.Medium) with electric and
+// magnetic loss tangents has 1/Q_fill = tan delta_e + tan delta_m, and
+// 1/Q0 = 1/Q_wall + 1/Q_fill; UnloadedQ reads the loss tangents from the
+// cavity's fill.
 // Loaded Q and the 3 dB bandwidth follow from a coupling coefficient or an
 // external Q. A Q with no loss behind it is math.Inf(1).
 //
 // Surface resistances may depend on frequency: UnloadedQ and UnloadedQAll
-// take a WallsAt function and evaluate it at each mode's own frequency, so a
-// whole mode list gets its Q in one call (about half a microsecond a mode).
+// take a ResistancesAt function and evaluate it at each mode's own
+// frequency, so a whole mode list gets its Q in one call (about half a
+// microsecond a mode).
+//
+// # Where the models stop holding
+//
+// Validity is the one verdict on a Q0 result: a skin depth above
+// MaxSkinRatio of the cavity, a Q0 below MinValidQ, and wall metals with
+// mu_r != 1 each give a Warning; every command that prints Q0 prints them.
 //
 // # Accelerator figures
 //

@@ -15,7 +15,7 @@ import (
 func ExampleWallQ() {
 	c := cavity.Cavity{Radius: 0.020, Length: 0.040}
 	m, _ := cavity.ParseMode("TE011")
-	w, err := qfactor.WallQ(c, m, qfactor.Walls{Side: 0.030, EndA: 0.030, EndB: 0.060})
+	w, err := qfactor.WallQ(c, m, qfactor.SurfaceResistances{Side: 0.030, EndA: 0.030, EndB: 0.060})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -35,7 +35,7 @@ func ExampleWallQ() {
 func ExampleUnloadedQ() {
 	c := cavity.Cavity{Radius: 0.030, Length: 0.070, Fill: physics.Medium{EpsR: 2.54, TanDelta: 3e-4}}
 	m, _ := cavity.ParseMode("TE012")
-	rs := func(f float64) (qfactor.Walls, error) {
+	rs := func(f float64) (qfactor.SurfaceResistances, error) {
 		return qfactor.Uniform(qfactor.SurfaceResistance(f, 3.5e7, 1)), nil
 	}
 	u, err := qfactor.UnloadedQ(c, m, rs)

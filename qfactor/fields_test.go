@@ -331,7 +331,7 @@ func TestWallQQuadrature(t *testing.T) {
 	for i, m := range spreadModes() {
 		aspect := aspects[i%len(aspects)]
 		c := cavity.Cavity{Radius: 0.013, Length: 0.013 * aspect, Fill: physics.Medium{EpsR: 1 + 3*rng.Float64(), MuR: 1 + rng.Float64()}}
-		rs := qfactor.Walls{Side: 0.01 + 0.05*rng.Float64(), EndA: 0.01 + 0.05*rng.Float64(), EndB: 0.01 + 0.05*rng.Float64()}
+		rs := qfactor.SurfaceResistances{Side: 0.01 + 0.05*rng.Float64(), EndA: 0.01 + 0.05*rng.Float64(), EndB: 0.01 + 0.05*rng.Float64()}
 		nu := quadrature(c, m)
 
 		// Resonance: mean electric and magnetic energies agree.

@@ -234,26 +234,35 @@ func (b BCS) GapFrequency() float64 {
 // parameters are not finite and positive (Residual may be zero), when t is
 // not in (0, Tc/2], or when f is not in (0, GapFrequency/10].
 func (b BCS) Resistance(t, f float64) (float64, error) {
+	bcs, res, err := b.ResistanceParts(t, f)
+	return bcs + res, err
+}
+
+// ResistanceParts returns the two parts of Resistance separately: the BCS
+// part A (f/fref)^2 exp(-Delta/(k_B T))/T, which falls steeply as the wall
+// is cooled, and the residual resistance, which does not. Errors are those
+// of Resistance.
+func (b BCS) ResistanceParts(t, f float64) (bcs, residual float64, err error) {
 	for _, p := range []struct {
 		name string
 		v    float64
 	}{{"Tc", b.Tc}, {"gap", b.Gap}, {"A", b.A}, {"reference frequency", b.RefFrequency}} {
 		if !(p.v > 0) || math.IsInf(p.v, 0) {
-			return 0, fmt.Errorf("qfactor: BCS %s must be finite and > 0, got %g", p.name, p.v)
+			return 0, 0, fmt.Errorf("qfactor: BCS %s must be finite and > 0, got %g", p.name, p.v)
 		}
 	}
 	if !(b.Residual >= 0) || math.IsInf(b.Residual, 0) {
-		return 0, fmt.Errorf("qfactor: residual resistance must be finite and >= 0 ohm, got %g ohm", b.Residual)
+		return 0, 0, fmt.Errorf("qfactor: residual resistance must be finite and >= 0 ohm, got %g ohm", b.Residual)
 	}
 	if !(t > 0 && t <= b.Tc/2) {
-		return 0, fmt.Errorf("qfactor: the BCS approximation needs 0 < T <= Tc/2 = %g K, got %g K", b.Tc/2, t)
+		return 0, 0, fmt.Errorf("qfactor: the BCS approximation needs 0 < T <= Tc/2 = %g K, got %g K", b.Tc/2, t)
 	}
 	if fmax := b.GapFrequency() / 10; !(f > 0 && f <= fmax) {
-		return 0, fmt.Errorf("qfactor: the BCS approximation needs 0 < f <= %s (a tenth of the gap frequency), got %s",
+		return 0, 0, fmt.Errorf("qfactor: the BCS approximation needs 0 < f <= %s (a tenth of the gap frequency), got %s",
 			physics.FormatFrequency(fmax, 4), physics.FormatFrequency(f, 4))
 	}
 	r := f / b.RefFrequency
-	return b.A*r*r*math.Exp(-b.Gap/t)/t + b.Residual, nil // Padamsee et al. 2008, ch. 5
+	return b.A * r * r * math.Exp(-b.Gap/t) / t, b.Residual, nil // Padamsee et al. 2008, ch. 5
 }
 
 // MeanFreePath returns the free-electron (Drude-Sommerfeld) estimate of the
@@ -375,6 +384,21 @@ func (s Surface) SkinDepth(f float64) (float64, error) {
 		return 0, err
 	}
 	return SkinDepth(f, sigma, c.Mu()), nil
+}
+
+// SuperconductingParts returns, for a superconducting surface, the BCS
+// part and the residual part of its Rs at frequency f (Hz) and the wall
+// temperature (see BCS.ResistanceParts); they add up to Resistance. It
+// returns an error for a normal-metal surface and for inputs Resistance
+// refuses.
+func (s Surface) SuperconductingParts(f float64) (bcs, residual float64, err error) {
+	if s.Superconductor == nil {
+		return 0, 0, fmt.Errorf("qfactor: surface %q is not superconducting", s.Conductor.Name)
+	}
+	if err := checkFrequency(f); err != nil {
+		return 0, 0, err
+	}
+	return s.Superconductor.ResistanceParts(s.temperature(), f)
 }
 
 // Resistance returns the surface resistance Rs in ohm at frequency f (Hz),

@@ -8,15 +8,11 @@ import (
 	"cylcav/physics/bessel"
 )
 
-// WallsAt gives the surface resistance of each wall part, in ohm,
+// ResistancesAt gives the surface resistance of each wall part, in ohm,
 // at frequency f in Hz. It lets one call evaluate frequency-dependent
-// surface models at every mode's own frequency.
-type WallsAt func(f float64) (Walls, error)
-
-// Fixed returns a WallsAt that gives w at every frequency.
-func Fixed(w Walls) WallsAt {
-	return func(float64) (Walls, error) { return w, nil }
-}
+// surface models at every mode's own frequency; WallSet.At gives the one
+// of a wall set.
+type ResistancesAt func(f float64) (SurfaceResistances, error)
 
 // Unloaded is the unloaded-Q breakdown of one mode: wall and fill losses.
 type Unloaded struct {
@@ -38,14 +34,15 @@ type Unloaded struct {
 // from WallQ for the surface resistances rs(f) at the mode's frequency f and
 // Q_fill = c.Fill.Q() from the loss tangents of the cavity's fill. Invalid
 // input, or an error from rs, is an error.
-func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs WallsAt) (Unloaded, error) {
+func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs ResistancesAt) (Unloaded, error) {
 	if err := c.Validate(); err != nil {
 		return Unloaded{}, err
 	}
 	if err := m.Validate(); err != nil {
 		return Unloaded{}, err
 	}
-	return unloaded(c, m, m.Root(), c.Frequency(m), rs, c.Fill.Q())
+	x := m.Root()
+	return unloaded(c, m, x, c.FrequencyOfRoot(x, m.P), rs, c.Fill.Q())
 }
 
 // UnloadedQAll returns UnloadedQ for each resonance in res (as listed by
@@ -55,7 +52,7 @@ func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs WallsAt) (Unloaded, error) {
 // Bessel zeros are computed once per family and azimuthal index, so this is
 // much faster than calling UnloadedQ in a loop for a long list. An invalid
 // mode or frequency, or an error from rs, stops the run and is returned.
-func UnloadedQAll(c cavity.Cavity, res []cavity.Resonance, rs WallsAt) ([]Unloaded, error) {
+func UnloadedQAll(c cavity.Cavity, res []cavity.Resonance, rs ResistancesAt) ([]Unloaded, error) {
 	if err := c.Validate(); err != nil {
 		return nil, err
 	}
@@ -107,7 +104,7 @@ func slot(m cavity.Mode) int {
 
 // unloaded is UnloadedQ for validated input, Bessel zero x, resonant
 // frequency f and fill Q qf.
-func unloaded(c cavity.Cavity, m cavity.Mode, x, f float64, rs WallsAt, qf float64) (Unloaded, error) {
+func unloaded(c cavity.Cavity, m cavity.Mode, x, f float64, rs ResistancesAt, qf float64) (Unloaded, error) {
 	w, err := rs(f)
 	if err != nil {
 		return Unloaded{}, fmt.Errorf("qfactor: surface resistance of %s at %.6g Hz: %w", m, f, err)

@@ -8,21 +8,23 @@ import (
 	"cylcav/physics"
 )
 
-// Walls holds the surface resistance Rs, in ohm, of each part of the cavity
-// wall. The permeability of the wall metal enters only through Rs.
+// SurfaceResistances holds the surface resistance Rs, in ohm, of each part
+// of the cavity wall at one frequency: the numbers WallQ takes, as
+// WallSet.Resistances gives them for a wall set. The permeability of the
+// wall metal enters only through Rs.
 //
 // The zero value is a lossless (perfectly conducting) cavity.
-type Walls struct {
+type SurfaceResistances struct {
 	Side float64 // cylindrical side wall, r = a
 	EndA float64 // end plate A, z = 0
 	EndB float64 // end plate B, z = d
 }
 
-// Uniform returns Walls with the same surface resistance rs on every part.
-func Uniform(rs float64) Walls { return Walls{Side: rs, EndA: rs, EndB: rs} }
+// Uniform returns SurfaceResistances with the same surface resistance rs on every part.
+func Uniform(rs float64) SurfaceResistances { return SurfaceResistances{Side: rs, EndA: rs, EndB: rs} }
 
 // Validate reports whether every surface resistance is finite and >= 0.
-func (w Walls) Validate() error {
+func (w SurfaceResistances) Validate() error {
 	for _, q := range []struct {
 		name string
 		v    float64
@@ -70,9 +72,9 @@ type Share struct {
 // WallLoss is the wall-loss breakdown of one mode.
 type WallLoss struct {
 	Mode      cavity.Mode
-	Frequency float64  // resonant frequency, Hz
-	Rs        Walls    // surface resistances used, ohm
-	Geometry  Geometry // partial geometry factors, ohm
+	Frequency float64            // resonant frequency, Hz
+	Rs        SurfaceResistances // surface resistances used, ohm
+	Geometry  Geometry           // partial geometry factors, ohm
 
 	// QWall is the Q from wall loss alone; +Inf when every Rs is zero.
 	QWall float64
@@ -121,7 +123,7 @@ type WallLoss struct {
 // skin depth is much smaller than the radius and the length, Q >> 1, and
 // the walls are smooth on the scale of the skin depth (see the surface
 // models for roughness).
-func WallQ(c cavity.Cavity, m cavity.Mode, rs Walls) (WallLoss, error) {
+func WallQ(c cavity.Cavity, m cavity.Mode, rs SurfaceResistances) (WallLoss, error) {
 	if err := c.Validate(); err != nil {
 		return WallLoss{}, err
 	}
@@ -131,8 +133,9 @@ func WallQ(c cavity.Cavity, m cavity.Mode, rs Walls) (WallLoss, error) {
 	if err := rs.Validate(); err != nil {
 		return WallLoss{}, err
 	}
-	w := wallQ(c, m, m.Root(), rs)
-	w.Frequency = c.Frequency(m)
+	x := m.Root()
+	w := wallQ(c, m, x, rs)
+	w.Frequency = c.FrequencyOfRoot(x, m.P)
 	return w, nil
 }
 
@@ -153,7 +156,7 @@ func GeometryFactors(c cavity.Cavity, m cavity.Mode) (Geometry, error) {
 // wallQ is WallQ for validated input and the mode's Bessel zero x, without
 // the frequency (the caller sets it from cavity.Cavity.Frequency or from a
 // mode list, the one implementation of the resonance formula).
-func wallQ(c cavity.Cavity, m cavity.Mode, x float64, rs Walls) WallLoss {
+func wallQ(c cavity.Cavity, m cavity.Mode, x float64, rs SurfaceResistances) WallLoss {
 	g := geometry(c, m, x)
 	w := WallLoss{Mode: m, Rs: rs, Geometry: g}
 	side, a, b := rs.Side/g.Side, rs.EndA/g.EndA, rs.EndB/g.EndB

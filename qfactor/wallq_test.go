@@ -21,6 +21,11 @@ func classicalRs(f, sigma float64) float64 {
 	return math.Sqrt(2 * math.Pi * f * physics.VacuumPermeability / (2 * sigma))
 }
 
+// fixed returns surface resistances that do not depend on frequency.
+func fixed(rs qfactor.SurfaceResistances) qfactor.ResistancesAt {
+	return func(float64) (qfactor.SurfaceResistances, error) { return rs, nil }
+}
+
 func skinDepth(f, sigma float64) float64 {
 	return math.Sqrt(2 / (2 * math.Pi * f * physics.VacuumPermeability * sigma))
 }
@@ -60,7 +65,9 @@ func TestPozarTE011Example(t *testing.T) {
 	// book's rounding of Rs to 0.0184 ohm, against 0.018427 here).
 	const issueTol = 1e-4
 	c := cavity.Cavity{Radius: 0.0274008, Length: 0.0548016, Fill: physics.Medium{EpsR: 2.08, TanDelta: 4e-4}}
-	rs := func(f float64) (qfactor.Walls, error) { return qfactor.Uniform(classicalRs(f, 5.813e7)), nil }
+	rs := func(f float64) (qfactor.SurfaceResistances, error) {
+		return qfactor.Uniform(classicalRs(f, 5.813e7)), nil
+	}
 	u, err := qfactor.UnloadedQ(c, te011, rs)
 	if err != nil {
 		t.Fatal(err)
@@ -252,7 +259,7 @@ func TestWallIdentities(t *testing.T) {
 			m.P = 0
 		}
 		c := cavity.Cavity{Radius: 0.01 + 0.1*rng.Float64(), Length: 0.01 + 0.2*rng.Float64(), Fill: physics.Medium{EpsR: 1 + rng.Float64()}}
-		rs := qfactor.Walls{Side: 0.01 * rng.Float64(), EndA: 0.01 * rng.Float64(), EndB: 0.01 * rng.Float64()}
+		rs := qfactor.SurfaceResistances{Side: 0.01 * rng.Float64(), EndA: 0.01 * rng.Float64(), EndB: 0.01 * rng.Float64()}
 		w, err := qfactor.WallQ(c, m, rs)
 		if err != nil {
 			t.Fatal(err)
@@ -266,12 +273,12 @@ func TestWallIdentities(t *testing.T) {
 		if relErr(wb.Frequency*s, w.Frequency) > veryclose {
 			t.Errorf("f(%s scaled by %g) = %.15g, want %.15g", m, s, wb.Frequency, w.Frequency/s)
 		}
-		ws, _ := qfactor.WallQ(c, m, qfactor.Walls{Side: rs.Side, EndA: rs.EndB, EndB: rs.EndA})
+		ws, _ := qfactor.WallQ(c, m, qfactor.SurfaceResistances{Side: rs.Side, EndA: rs.EndB, EndB: rs.EndA})
 		if relErr(ws.QWall, w.QWall) > veryclose {
 			t.Errorf("QWall(%s, ends swapped) = %.15g, want %.15g", m, ws.QWall, w.QWall)
 		}
 		sum := 0.0
-		for _, part := range []qfactor.Walls{{Side: rs.Side}, {EndA: rs.EndA}, {EndB: rs.EndB}} {
+		for _, part := range []qfactor.SurfaceResistances{{Side: rs.Side}, {EndA: rs.EndA}, {EndB: rs.EndB}} {
 			wp, _ := qfactor.WallQ(c, m, part)
 			sum += 1 / wp.QWall
 		}
@@ -281,7 +288,7 @@ func TestWallIdentities(t *testing.T) {
 		if got := w.Share.Side + w.Share.EndA + w.Share.EndB; math.Abs(got-1) > veryclose {
 			t.Errorf("sum of shares (%s) = %.17g, want 1", m, got)
 		}
-		w0, _ := qfactor.WallQ(c, m, qfactor.Walls{})
+		w0, _ := qfactor.WallQ(c, m, qfactor.SurfaceResistances{})
 		if !math.IsInf(w0.QWall, 1) || w0.Share != (qfactor.Share{}) {
 			t.Errorf("WallQ(%s, lossless) = %g, shares %+v; want +Inf, zero shares", m, w0.QWall, w0.Share)
 		}
@@ -310,14 +317,14 @@ func TestWallQErrors(t *testing.T) {
 	for _, tc := range []struct {
 		c  cavity.Cavity
 		m  cavity.Mode
-		rs qfactor.Walls
+		rs qfactor.SurfaceResistances
 	}{
 		{cavity.Cavity{Radius: -0.02, Length: 0.03}, mode("TE011"), qfactor.Uniform(0.01)},
 		{good, cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 0}, qfactor.Uniform(0.01)},
 		{good, cavity.Mode{Family: cavity.TM, N: 0, M: 0, P: 1}, qfactor.Uniform(0.01)},
-		{good, mode("TE011"), qfactor.Walls{Side: -1}},
-		{good, mode("TE011"), qfactor.Walls{EndB: math.NaN()}},
-		{good, mode("TE011"), qfactor.Walls{EndA: math.Inf(1)}},
+		{good, mode("TE011"), qfactor.SurfaceResistances{Side: -1}},
+		{good, mode("TE011"), qfactor.SurfaceResistances{EndB: math.NaN()}},
+		{good, mode("TE011"), qfactor.SurfaceResistances{EndA: math.Inf(1)}},
 	} {
 		if _, err := qfactor.WallQ(tc.c, tc.m, tc.rs); err == nil {
 			t.Errorf("WallQ(%+v, %+v, %+v) error = nil, want an error", tc.c, tc.m, tc.rs)
@@ -364,7 +371,7 @@ func TestFrequencyIsCavitys(t *testing.T) {
 		if w.Frequency != want {
 			t.Errorf("WallQ(%+v, %v).Frequency = %.17g, want cavity's %.17g", c, m, w.Frequency, want)
 		}
-		u, err := qfactor.UnloadedQ(c, m, qfactor.Fixed(qfactor.Uniform(0.01)))
+		u, err := qfactor.UnloadedQ(c, m, fixed(qfactor.Uniform(0.01)))
 		if err != nil {
 			t.Fatal(err)
 		}

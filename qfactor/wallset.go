@@ -165,29 +165,29 @@ func (s Surface) validate() (Setting, error) {
 // (Hz), by Surface.Resistance, with the warnings of the surface models in
 // part order (a warning names its metal, not the part). An error names the
 // part.
-func (w WallSet) Resistances(f float64) (Walls, []string, error) {
+func (w WallSet) Resistances(f float64) (SurfaceResistances, []string, error) {
 	var v [3]float64
 	var warns []string
 	for i, p := range Parts() {
 		rs, ws, err := w.Surface(p).Resistance(f)
 		if err != nil {
-			return Walls{}, nil, fmt.Errorf("%s: %w", p, err)
+			return SurfaceResistances{}, nil, fmt.Errorf("%s: %w", p, err)
 		}
 		v[i] = rs
 		warns = append(warns, ws...)
 	}
-	return Walls{Side: v[0], EndA: v[1], EndB: v[2]}, warns, nil
+	return SurfaceResistances{Side: v[0], EndA: v[1], EndB: v[2]}, warns, nil
 }
 
-// At returns the surface resistances of w as a WallsAt, for UnloadedQ and
+// At returns the surface resistances of w as a ResistancesAt, for UnloadedQ and
 // UnloadedQAll. Each distinct warning of the surface models goes to warn
 // once, in the order met; warn may be nil to drop them.
-func (w WallSet) At(warn func(string)) WallsAt {
+func (w WallSet) At(warn func(string)) ResistancesAt {
 	seen := map[string]bool{}
-	return func(f float64) (Walls, error) {
+	return func(f float64) (SurfaceResistances, error) {
 		rs, warns, err := w.Resistances(f)
 		if err != nil {
-			return Walls{}, err
+			return SurfaceResistances{}, err
 		}
 		for _, x := range warns {
 			if !seen[x] && warn != nil {

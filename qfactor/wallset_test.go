@@ -113,7 +113,7 @@ func TestWallSetResistances(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := qfactor.Walls{Side: classicalRs(f, 5.8e7), EndA: classicalRs(f, brass.Conductivity), EndB: classicalRs(f, 5.8e7)}
+	want := qfactor.SurfaceResistances{Side: classicalRs(f, 5.8e7), EndA: classicalRs(f, brass.Conductivity), EndB: classicalRs(f, 5.8e7)}
 	for _, c := range []struct {
 		name      string
 		got, want float64
@@ -169,5 +169,53 @@ func TestQ0Constraint(t *testing.T) {
 	// An invalid cavity is an error, not a number.
 	if _, err := qfactor.Q0Constraint(te011, w)(cavity.Cavity{Radius: -1, Length: 1}); err == nil {
 		t.Error("Q0Constraint(...)(radius -1) error = nil, want an error")
+	}
+}
+
+// TestSuperconductingParts checks the split of a superconducting Rs into
+// its BCS and residual parts: the BCS part against the test's own
+// evaluation of the approximation A (f/fref)^2 exp(-Delta/T)/T with the
+// niobium parameters of Padamsee, Knobloch & Hays 2008, ch. 5 (recalled
+// from memory: A = 2e-4 ohm K at 1.5 GHz, Delta/k_B = 17.67 K; about
+// 11 nohm at 2 K and 1.3 GHz), the residual part against the set value,
+// the sum against Resistance, and the temperature law of the BCS part
+// (ratio at 1.8 K and 2 K = (2/1.8) exp(17.67 (1/2 - 1/1.8))).
+func TestSuperconductingParts(t *testing.T) {
+	nb := lookupMetal(t, "niobium")
+	bcs := qfactor.NiobiumBCS()
+	bcs.Residual = 5e-9
+	const f = 1.3e9
+	at := func(temp float64) (float64, float64, float64) {
+		s := qfactor.Surface{Conductor: nb, Temperature: temp, Superconductor: &bcs}
+		b, r, err := s.SuperconductingParts(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rs, _, err := s.Resistance(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return b, r, rs
+	}
+	b2, r2, rs2 := at(2)
+	want := 2e-4 * (1.3 / 1.5) * (1.3 / 1.5) * math.Exp(-17.67/2) / 2
+	if relErr(b2, want) > veryclose {
+		t.Errorf("BCS part at 2 K, 1.3 GHz = %.6g ohm, want %.6g ohm (Padamsee et al. ch. 5)", b2, want)
+	}
+	if math.Abs(b2-11e-9) > 0.5e-9 {
+		t.Errorf("BCS part at 2 K, 1.3 GHz = %.3g ohm, want about 11 nohm (Padamsee et al. ch. 5, recalled)", b2)
+	}
+	if r2 != 5e-9 {
+		t.Errorf("residual part = %g ohm, want the set 5e-9 ohm", r2)
+	}
+	if rs2 != b2+r2 {
+		t.Errorf("Resistance = %.17g ohm, want BCS + residual = %.17g ohm", rs2, b2+r2)
+	}
+	b18, _, _ := at(1.8)
+	if law := (2 / 1.8) * math.Exp(17.67*(1/2.0-1/1.8)); relErr(b18/b2, law) > veryclose {
+		t.Errorf("BCS part ratio 1.8 K / 2 K = %.10g, want %.10g", b18/b2, law)
+	}
+	if _, _, err := (qfactor.Surface{Conductor: nb}).SuperconductingParts(f); err == nil {
+		t.Error("SuperconductingParts(normal niobium) error = nil, want an error")
 	}
 }

@@ -40,3 +40,30 @@ func ExampleZeros() {
 	// TE11 cutoff 7.321 GHz (j'_11 = 1.8412)
 	// TM11 cutoff 15.235 GHz (j_11 = 3.8317)
 }
+
+func ExampleCrossZeros() {
+	// Cutoff frequencies f = c x / (2 pi a) of the lowest modes of an
+	// invented air-filled coaxial line, inner radius a = 3 mm, outer
+	// radius b = 7 mm. The TEM mode (cutoff 0) is not a root.
+	const (
+		c = 299792458.0 // speed of light in vacuum, m/s (exact, SI)
+		a = 0.003       // inner radius, m
+		b = 0.007       // outer radius, m
+	)
+	te := bessel.CrossPrimeZeros(1, b/a, 1)
+	tm := bessel.CrossZeros(0, b/a, 1)
+	fmt.Printf("TE11 cutoff %.3f GHz (x = %.5f)\n", c*te[0]/(2*math.Pi*a)/1e9, te[0])
+	fmt.Printf("TM01 cutoff %.3f GHz (x = %.5f)\n", c*tm[0]/(2*math.Pi*a)/1e9, tm[0])
+	// Output:
+	// TE11 cutoff 9.745 GHz (x = 0.61272)
+	// TM01 cutoff 37.148 GHz (x = 2.33569)
+}
+
+func ExampleCrossPrimeZeros() {
+	// TE roots of order 0 are the TM roots of order 1 (J'_0 = -J_1).
+	fmt.Printf("%.6f\n", bessel.CrossPrimeZeros(0, 2, 3))
+	fmt.Printf("%.6f\n", bessel.CrossZeros(1, 2, 3))
+	// Output:
+	// [3.196578 6.312350 9.444465]
+	// [3.196578 6.312350 9.444465]
+}

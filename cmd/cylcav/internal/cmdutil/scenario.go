@@ -101,7 +101,6 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	if s.Fill, err = sf.geo.Dielectric(); err != nil {
 		return s, err
 	}
-	sp.Fill = s.Fill.Medium
 	if set("wall") {
 		c, err := physics.ParseConductor(sf.wall)
 		if err != nil {

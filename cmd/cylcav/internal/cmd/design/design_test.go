@@ -111,3 +111,19 @@ func TestDesignErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestDesignValidity checks that design prints the library's validity
+// warnings (qfactor.Validity, tested against independent routes there)
+// among its cautions: walls of a magnetic metal given by values.
+func TestDesignValidity(t *testing.T) {
+	r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "sigma=1e7,mur=50")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+	if !strings.Contains(r.Stdout, "  - The wall metal given by its values has mu_r = 50: its microwave permeability is uncertain") {
+		t.Errorf("design output lacks the permeability caution:\n%s", r.Stdout)
+	}
+	if r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper"); strings.Contains(r.Stdout, "mu_r") {
+		t.Errorf("copper design mentions mu_r:\n%s", r.Stdout)
+	}
+}

@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"io"
 	"math"
 	"os"
@@ -543,5 +544,23 @@ func BenchmarkFilterCLI(b *testing.B) {
 		if r := run(b, a...); r.Code != 0 {
 			b.Fatalf("exit %d: %s", r.Code, r.Stderr)
 		}
+	}
+}
+
+// TestValidityWarnings checks that the filter realisation prints the
+// library's validity warnings (qfactor.Validity, tested against independent
+// routes there) once per kind, naming the first cavity: a lossy fill with
+// Q_fill = 1/tan delta = 50 (Pozar sec. 6.3) and magnetic walls.
+func TestValidityWarnings(t *testing.T) {
+	v := decode(t, mustRun(t, "--f0", "10GHz", "--bw", "200MHz", "--order", "3", "--mode", "TE011",
+		"--fill", "eps=2,tand=0.02", "--wall", "sigma=1e7,mur=50", "--format", "json"))
+	ws := fmt.Sprint(v["warnings"])
+	for _, w := range []string{"cavity 1: Q0 = ", "is not much greater than 1", "cavity 1: the wall metal given by its values has mu_r = 50", "(and 2 more of the cavities)"} {
+		if !strings.Contains(ws, w) {
+			t.Errorf("warnings %s lack %q", ws, w)
+		}
+	}
+	if n := strings.Count(ws, "mu_r = 50"); n != 1 {
+		t.Errorf("warnings %s mention mu_r = 50 %d times, want once", ws, n)
 	}
 }

@@ -183,16 +183,6 @@ func Compute(opts *Options) (*Result, error) {
 // realise sizes the cavities.
 func (r *Result) realise() error {
 	opts := r.Opts
-	var walls qfactor.WallsAt
-	if opts.Walls != nil {
-		seen := map[string]bool{}
-		walls = opts.Walls.At(func(w string) {
-			if !seen[w] {
-				seen[w] = true
-				r.Warnings = append(r.Warnings, "walls: "+w)
-			}
-		})
-	}
 	ratio := opts.Ratio
 	if ratio == 0 {
 		ds := cavity.DesignSpec{Mode: opts.Mode, Frequency: opts.Spec.F0, Fill: opts.Fill}
@@ -213,7 +203,7 @@ func (r *Result) realise() error {
 		r.Shape = fmt.Sprintf("D/L = %.5g (--ratio)", ratio)
 	}
 	ro := bandpass.RealiseOptions{
-		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: walls, Hole: opts.Hole,
+		Mode: opts.Mode, Shape: cavity.ByRatio(ratio), Fill: opts.Fill, Walls: opts.Walls, Hole: opts.Hole,
 	}
 	rz, err := bandpass.Realise(r.Design, ro)
 	if errors.Is(err, cavity.ErrInfeasible) {
@@ -223,7 +213,17 @@ func (r *Result) realise() error {
 		return err
 	}
 	r.Realisation = rz
+	for _, w := range rz.WallWarnings {
+		r.Warnings = append(r.Warnings, "walls: "+w)
+	}
 	r.Warnings = append(r.Warnings, condenseWarnings(rz)...)
+	checks := make([][]qfactor.Warning, len(rz.Cavities))
+	for i, cd := range rz.Cavities {
+		checks[i] = cd.Validity
+	}
+	for _, c := range qfactor.Condense(checks) {
+		r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: %s", rz.Cavities[c.First].Resonator, c.Text("cavities")))
+	}
 	return nil
 }
 

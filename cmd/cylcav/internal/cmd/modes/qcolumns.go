@@ -55,9 +55,14 @@ func addQ(opts *Options, list []cavity.Resonance, rows []Row) error {
 	if err != nil {
 		return err
 	}
+	checks := make([][]qfactor.Warning, len(us))
 	for i, u := range us {
 		w, f, q0 := QValue(u.Wall.QWall), QValue(u.QFill), QValue(u.Q0)
 		rows[i].QWall, rows[i].QFill, rows[i].Q0 = &w, &f, &q0
+		checks[i] = qfactor.Validity(opts.Cavity, *opts.Walls, u)
+	}
+	for _, c := range qfactor.Condense(checks) {
+		warn(fmt.Sprintf("%s: %s", list[c.First].Mode, c.Text("listed modes")))
 	}
 	return nil
 }

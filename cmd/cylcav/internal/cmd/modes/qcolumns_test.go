@@ -89,3 +89,28 @@ func TestQColumnsOptional(t *testing.T) {
 		t.Errorf("modes --wall kryptonite: exit %d, stderr %q; want a usage error (exit 2)", r.Code, r.Stderr)
 	}
 }
+
+// TestQColumnsValidity checks that modes --wall prints the library's
+// validity warnings (qfactor.Validity, tested against independent closed
+// forms there) once per kind on the error stream, naming the mode: a
+// 0.2 mm long pill box in a poor conductor (sigma = 1e6 S/m, skin depth
+// about 6.6 um at 5.7 GHz, 3.3 % of the length; Harrington's TM010
+// Q = a d/(delta (a + d)) about 30).
+func TestQColumnsValidity(t *testing.T) {
+	r := clitest.Run(t, "modes", "--radius", "20mm", "--length", "0.2mm", "--wall", "sigma=1e6", "--count", "5")
+	if r.Code != 0 {
+		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+	for _, w := range []string{"note: TM010: the skin depth of the side wall", "note: TM010: Q0 = "} {
+		if strings.Count(r.Stderr, w) != 1 {
+			t.Errorf("stderr %q: want %q once", r.Stderr, w)
+		}
+	}
+	// Five modes listed, each raising both: the first and "4 more".
+	if n := strings.Count(r.Stderr, "(and 4 more of the listed modes)"); n != 2 {
+		t.Errorf("stderr %q: want the count of the other modes on both lines", r.Stderr)
+	}
+	if r := clitest.Run(t, "modes", "--radius", "20mm", "--length", "40mm", "--wall", "copper", "--count", "5"); r.Stderr != "" {
+		t.Errorf("copper cavity: stderr %q, want no warning", r.Stderr)
+	}
+}

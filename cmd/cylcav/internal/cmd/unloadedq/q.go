@@ -192,6 +192,7 @@ type result struct {
 	opts       *Options
 	u          qfactor.Unloaded
 	delta      [3]float64 // skin depth per wall part, NaN where undefined
+	sc         []scRs     // the superconducting parts' Rs split, in part order
 	ql, bw     float64
 	accel      *qfactor.Accel
 	warnings   []string
@@ -208,8 +209,22 @@ func runQ(opts *Options) error {
 		return err
 	}
 	r.u = u
+	for _, w := range qfactor.Validity(c, opts.Walls, u) {
+		r.warnings = append(r.warnings, w.Text)
+	}
 	f := u.Wall.Frequency
 	r.delta = opts.Walls.SkinDepths(f)
+	for _, p := range qfactor.Parts() {
+		s := opts.Walls.Surface(p)
+		if s.Superconductor == nil {
+			continue
+		}
+		b, res, err := s.SuperconductingParts(f)
+		if err != nil {
+			return err
+		}
+		r.sc = append(r.sc, scRs{Part: partKey(p), name: p.String(), TemperatureK: number(s.Temperature), BCS: number(b), Residual: number(res)})
+	}
 	switch {
 	case len(opts.Coupling) > 0:
 		r.ql, err = qfactor.LoadedByCoupling(u.Q0, opts.Coupling...)
@@ -263,6 +278,26 @@ type shareJSON struct {
 	Fill number `json:"fill"`
 }
 
+// partKey names wall part p in JSON.
+func partKey(p qfactor.Part) string {
+	switch p {
+	case qfactor.EndPlateA:
+		return "end_a"
+	case qfactor.EndPlateB:
+		return "end_b"
+	}
+	return "side"
+}
+
+// scRs is the split of one superconducting wall part's Rs.
+type scRs struct {
+	Part         string `json:"part"`
+	name         string
+	TemperatureK number `json:"temperature_k"`
+	BCS          number `json:"rs_bcs_ohm"`
+	Residual     number `json:"rs_residual_ohm"`
+}
+
 type outJSON struct {
 	Mode            string     `json:"mode"`
 	IndexConvention string     `json:"index_convention"`
@@ -280,6 +315,7 @@ type outJSON struct {
 	RsEndA          number     `json:"rs_end_a_ohm"`
 	RsEndB          number     `json:"rs_end_b_ohm"`
 	LossShare       *shareJSON `json:"loss_share"`
+	Superconducting []scRs     `json:"superconducting,omitempty"`
 	QWall           number     `json:"q_wall"`
 	QSide           number     `json:"q_side"`
 	QEndA           number     `json:"q_end_a"`
@@ -342,6 +378,7 @@ func (r *result) json() outJSON {
 		QFill:           number(u.QFill),
 		Q0:              number(u.Q0),
 		G:               number(u.Wall.Geometry.Total()),
+		Superconducting: r.sc,
 		Coupling:        o.Coupling,
 		QExt:            o.QExt,
 		Warnings:        append([]string{}, r.warnings...),
@@ -440,6 +477,17 @@ func (r *result) table(w io.Writer) error {
 	t.Row("fill", fill, "-", "-", fmtQ(u.QFill), fmtShare(u.Share.Fill, lossless))
 	if err := t.Flush(); err != nil {
 		return err
+	}
+	if len(r.sc) > 0 {
+		fmt.Fprintln(w, "\nSuperconducting surface resistance, BCS approximation plus residual:")
+		t = cmdutil.NewTable(w, "PART", "TEMPERATURE", "RS BCS", "RS RESIDUAL", "RS")
+		for _, s := range r.sc {
+			t.Row(s.name, physics.FormatTemperature(float64(s.TemperatureK), 4), physics.FormatSI(float64(s.BCS), "ohm", 4),
+				physics.FormatSI(float64(s.Residual), "ohm", 4), physics.FormatSI(float64(s.BCS+s.Residual), "ohm", 4))
+		}
+		if err := t.Flush(); err != nil {
+			return err
+		}
 	}
 	fmt.Fprintln(w)
 	t = cmdutil.NewTable(w)

@@ -3,6 +3,7 @@ package unloadedq_test
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -170,6 +171,72 @@ func TestSuperconducting(t *testing.T) {
 	}
 	if c := v["cautions"].([]any); len(c) != 2 {
 		t.Errorf("cautions = %v, want RF and cryogenic cautions", c)
+	}
+}
+
+// TestSuperconductingSplit checks that the q table and JSON show a
+// superconducting Rs as its BCS and residual parts with the wall
+// temperature (issue 9, item 9): the BCS part against the approximation
+// A (f/fref)^2 exp(-Delta/T)/T evaluated here with the niobium parameters
+// of Padamsee, Knobloch & Hays 2008, ch. 5 (recalled from memory), the
+// residual part against --residual, and their sum against rs_side_ohm.
+func TestSuperconductingSplit(t *testing.T) {
+	args := []string{"--mode", "TM010", "--radius", "88mm", "--length", "110mm", "--wall", "niobium",
+		"--superconducting", "--temperature", "1.8K", "--residual", "5nohm"}
+	v := runJSON(t, args...)
+	f := num(t, v, "f_hz")
+	sc, ok := v["superconducting"].([]any)
+	if !ok || len(sc) != 3 {
+		t.Fatalf("superconducting = %v, want one entry per wall part", v["superconducting"])
+	}
+	want := 2e-4 * (f / 1.5e9) * (f / 1.5e9) * math.Exp(-17.67/1.8) / 1.8
+	for i, part := range []string{"side", "end_a", "end_b"} {
+		e := sc[i].(map[string]any)
+		if e["part"] != part || num(t, e, "temperature_k") != 1.8 || num(t, e, "rs_residual_ohm") != 5e-9 ||
+			math.Abs(num(t, e, "rs_bcs_ohm")-want) > 1e-12*want {
+			t.Errorf("superconducting[%d] = %v, want part %s at 1.8 K, BCS %.6g ohm, residual 5e-9 ohm", i, e, part, want)
+		}
+	}
+	if rs := num(t, v, "rs_side_ohm"); math.Abs(rs-(want+5e-9)) > 1e-12*rs {
+		t.Errorf("rs_side_ohm = %.10g, want BCS + residual = %.10g", rs, want+5e-9)
+	}
+	r := run(t, args...)
+	for _, w := range []string{"Superconducting surface resistance, BCS approximation plus residual:", "RS BCS", "RS RESIDUAL",
+		"side wall (r = a)    1.800 K", "5.000 nohm"} {
+		if !strings.Contains(r.Stdout, w) {
+			t.Errorf("q table lacks %q:\n%s", w, r.Stdout)
+		}
+	}
+	// Normal walls: no split.
+	if v := runJSON(t, "--mode", "TM010", "--radius", "88mm", "--length", "110mm", "--wall", "copper"); v["superconducting"] != nil {
+		t.Errorf("copper walls: superconducting = %v, want absent", v["superconducting"])
+	}
+}
+
+// TestValidityWarnings checks that q prints the library's validity
+// warnings (qfactor.Validity, tested against independent closed forms in
+// package qfactor) in the table notes and the JSON warnings: a 50 um long
+// copper pill box (skin depth about 0.9 um at 5.7 GHz, 1.7 % of the
+// length; Harrington's TM010 Q = a d/(delta (a + d)) about 57) and end
+// plates of a magnetic metal given by values.
+func TestValidityWarnings(t *testing.T) {
+	thin := []string{"--mode", "TM010", "--radius", "20mm", "--length", "0.05mm", "--wall", "copper"}
+	v := runJSON(t, thin...)
+	ws := fmt.Sprint(v["warnings"])
+	for _, w := range []string{"skin depth of the side wall", "% of the smallest cavity dimension", "is not much greater than 1"} {
+		if !strings.Contains(ws, w) {
+			t.Errorf("thin pill box: warnings %s lack %q", ws, w)
+		}
+	}
+	if q := num(t, v, "q0"); !(q > 40 && q < 70) {
+		t.Errorf("thin pill box: q0 = %g, want about 57 (Harrington's closed form)", q)
+	}
+	r := run(t, "--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "copper", "--end-wall", "sigma=1e7,mur=50")
+	if !strings.Contains(r.Stdout, "Notes:") || !strings.Contains(r.Stdout, "mu_r = 50: its microwave permeability is uncertain") {
+		t.Errorf("magnetic end plates: table lacks the permeability warning:\n%s", r.Stdout)
+	}
+	if v := runJSON(t, "--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "copper"); fmt.Sprint(v["warnings"]) != "[]" {
+		t.Errorf("plain copper TE011: warnings = %v, want none", v["warnings"])
 	}
 }
 
