@@ -4,19 +4,22 @@
 //
 // # Scope
 //
-// Implemented: azimuthal order n = 0, TE0 and TM0 separately, circular
-// sections of any radius, each homogeneously filled with a physics.Medium,
-// metal end plates and metal step faces. Not yet implemented, each an error
-// wrapping ErrNotImplemented rather than a number: n >= 1 (hybrid
-// coupling of TE and TM at steps), coaxial sections (inner conductor),
-// radially layered fills, open ends (beam pipes to infinity), Q0 and field
-// maps.
+// Implemented: azimuthal order n = 0, TE0 and TM0 separately, circular and
+// coaxial sections (an inner conductor, as in a re-entrant post or a
+// coaxial line), each homogeneously filled with a physics.Medium, metal
+// end plates and metal step faces, wherever at each junction one
+// cross-section lies inside the other. Not yet implemented, each an error
+// wrapping ErrNotImplemented rather than a number: n >= 1 (hybrid coupling
+// of TE and TM at steps), junctions whose aperture is neither side's
+// cross-section, radially layered fills, open ends (beam pipes to
+// infinity), Q0 and field maps.
 //
 // # Method
 //
 // Each section is a bundle of modal transmission lines, one per waveguide
-// mode (cutoffs j_{0,m}/a for TM0 and j_{1,m}/a for TE0 from
-// physics/bessel). At a junction the transverse field on the aperture is
+// mode (cutoffs j_{0,m}/a for TM0 and j_{1,m}/a for TE0 of a circular
+// guide; the TEM mode and the roots of the Bessel cross products,
+// bessel.CrossZeros, for a coaxial one). At a junction the transverse field on the aperture is
 // expanded in the narrower section's modes and is zero on the step face;
 // the overlap integrals with the wider section's modes are Lommel
 // integrals in closed form (DLMF 10.22.5). Adding the sections' modal
@@ -39,9 +42,10 @@
 //
 // # Accuracy
 //
-// A body without steps (one section, or several of one radius) has no
-// truncation error: Solve returns the closed-form frequencies (tests to
-// 1e-10 against package cavity and to 1e-9 against the transverse-resonance
+// A body without steps (one section, or several of one cross-section) has
+// no truncation error: Solve returns the closed-form frequencies (tests to
+// 1e-10 against package cavity, to 1e-10 against the TEM, TM0 and TE0
+// lists of a coaxial cavity, and to 1e-9 against the transverse-resonance
 // equation of a two-layer fill). Where a resonance of the body coincides
 // exactly with one of a closed section (an equal-radius piece a whole
 // number of half guide wavelengths long) the junction matrix is near a pole
@@ -67,6 +71,8 @@
 // generic deformation (von Neumann and Wigner 1929), so this is the mode it
 // continues from. A body that is itself mirror-symmetric in z has even and
 // odd classes that may cross; the label is then only the place in order.
+// A body with a coaxial section has no label: an inner conductor joining
+// both end plates changes the topology (and adds TEM resonances).
 //
 // # References
 //

@@ -8,7 +8,6 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
-	"cylcav/physics/bessel"
 )
 
 // Request says which resonances Solve looks for. The zero value of every
@@ -45,8 +44,12 @@ type Resonance struct {
 	Change float64
 	// Origin is the mode of the enclosing cylinder (Body.Enclosing) that
 	// this resonance continues from: the Index-th mode of the same family
-	// and order there.
-	Origin cavity.Mode
+	// and order there. HasOrigin is false, and Origin the zero Mode, for a
+	// body with a coaxial section: an inner conductor that may join both
+	// end plates changes the topology, and with it the static modes, so
+	// the continuation from the empty cylinder is not defined.
+	Origin    cavity.Mode
+	HasOrigin bool
 	// OriginTied is true when the enclosing cylinder has another mode of the
 	// family at the same frequency as Origin, so the label could be either.
 	OriginTied bool
@@ -92,18 +95,15 @@ var ErrNotImplemented = errors.New("not implemented")
 // Errors: an invalid body (Body.Validate), a maximum frequency that is not
 // positive and finite, more than MaxResonances resonances below it, a
 // section that would need more than MaxModes modes, and, wrapping
-// ErrNotImplemented, an order other than 0 or a coaxial section.
+// ErrNotImplemented, an order other than 0 or a junction where neither
+// cross-section lies inside the other (for example two coaxial sections
+// whose inner and outer radii both grow).
 func Solve(b Body, r Request) ([]Resonance, error) {
 	if err := b.Validate(); err != nil {
 		return nil, err
 	}
 	if r.Order != 0 {
 		return nil, fmt.Errorf("axisym: azimuthal order n = %d: %w (only n = 0 is solved so far)", r.Order, ErrNotImplemented)
-	}
-	for i, s := range b.Sections {
-		if s.InnerRadius != 0 {
-			return nil, fmt.Errorf("axisym: section %d: coaxial sections (inner radius %g m): %w yet", i+1, s.InnerRadius, ErrNotImplemented)
-		}
 	}
 	if !(r.MaxFrequency > 0) || math.IsInf(r.MaxFrequency, 0) {
 		return nil, fmt.Errorf("axisym: maximum frequency must be positive and finite, got %g Hz", r.MaxFrequency)
@@ -134,16 +134,25 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 		if err != nil {
 			return nil, err
 		}
-		origins, ties := labels(b.Enclosing(), fam, len(fine))
+		coax := false
+		for _, s := range b.Sections {
+			coax = coax || s.InnerRadius != 0
+		}
+		var origins []cavity.Mode
+		var ties []bool
+		if !coax {
+			origins, ties = labels(b.Enclosing(), fam, len(fine))
+		}
 		for i, f := range fine {
 			change := math.Inf(1)
 			if i < len(coarse) {
 				change = math.Abs(f - coarse[i])
 			}
-			out = append(out, Resonance{
-				Family: fam, Index: i + 1, Frequency: f, Change: change,
-				Origin: origins[i], OriginTied: ties[i],
-			})
+			r := Resonance{Family: fam, Index: i + 1, Frequency: f, Change: change}
+			if !coax {
+				r.Origin, r.OriginTied, r.HasOrigin = origins[i], ties[i], true
+			}
+			out = append(out, r)
 		}
 	}
 	sort.SliceStable(out, func(i, j int) bool { return out[i].Frequency < out[j].Frequency })
@@ -157,31 +166,33 @@ const estimateMargin = 0.05
 // ModeCounts returns the number of modes of family fam that Solve keeps in
 // each section of b for a search up to fmax with modes in the widest
 // section (the relative-convergence rule: counts proportional to the
-// radius, so that every section resolves the same finest radial detail at
-// a step; Lee, Jones and Campbell 1971; Mittra, Itoh and Li 1972), raised
+// radial width outer - inner, so that every section resolves the same
+// finest radial detail at a step; Lee, Jones and Campbell 1971; Mittra, Itoh and Li 1972), raised
 // where needed to the propagating modes plus two. It returns an error when
 // a section would need more than MaxModes.
 func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, error) {
-	rmax := b.MaxRadius()
+	var wmax float64
+	for _, s := range b.Sections {
+		wmax = max(wmax, s.Radius-s.InnerRadius)
+	}
 	counts := make([]int, len(b.Sections))
 	for i, s := range b.Sections {
-		n := int(math.Ceil(float64(modes) * s.Radius / rmax))
-		// Modes with kc < k are the zeros below k a; McMahon's expansion
-		// (DLMF 10.21.19) puts j_{0,m} near (m - 1/4) pi and j_{1,m} near
-		// (m + 1/4) pi, so fewer than k a/pi + 2 of them lie below k a.
-		ka := 2 * math.Pi * fmax / physics.SpeedOfLight * s.Fill.Index() * s.Radius
-		guess := int(ka/math.Pi) + 2
+		w := s.Radius - s.InnerRadius
+		n := int(math.Ceil(float64(modes) * w / wmax))
+		// Modes with kc < k: McMahon's expansion (DLMF 10.21.19) puts
+		// j_{0,m} near (m - 1/4) pi and j_{1,m} near (m + 1/4) pi, and the
+		// cross-product roots of a coaxial guide of width w near m pi/w
+		// (DLMF 10.21.49, as recalled), so fewer than k w/pi + 2 of them
+		// lie below k (plus the TEM mode).
+		k := 2 * math.Pi * fmax / physics.SpeedOfLight * s.Fill.Index()
+		guess := int(k*w/math.Pi) + 3
 		if guess > MaxModes {
 			return nil, fmt.Errorf("axisym: section %d propagates about %d modes at %g Hz, more than the %d the solver keeps; lower the maximum frequency",
 				i+1, guess, fmax, MaxModes)
 		}
-		order := 0
-		if fam == cavity.TE {
-			order = 1
-		}
 		prop := 0
-		for _, x := range bessel.JZeros(order, guess) {
-			if x < ka {
+		for _, kc := range newGuide(fam, s.InnerRadius, s.Radius, guess).kc {
+			if kc < k {
 				prop++
 			}
 		}
@@ -201,8 +212,12 @@ func resonances(b Body, fam cavity.Family, fmax float64, modes int) ([]float64, 
 	if err != nil {
 		return nil, err
 	}
-	s := newSystem(b, fam, counts)
+	s, err := newSystem(b, fam, counts)
+	if err != nil {
+		return nil, err
+	}
 	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
+	s.calibrate(b, sv.a)
 	jmax, gmax := sv.count(fmax)
 	if jmax > MaxResonances {
 		return nil, fmt.Errorf("axisym: %d %v0 resonances below %g Hz, more than %d; lower the maximum frequency", jmax, fam, fmax, MaxResonances)
@@ -227,7 +242,7 @@ type solver struct {
 func (sv *solver) count(f float64) (int, float64) {
 	if sv.s.ndof == 0 {
 		j := sv.s.eval(f, nil)
-		return j, math.NaN()
+		return j - sv.s.offset, math.NaN()
 	}
 	return sv.s.count(f, sv.a)
 }

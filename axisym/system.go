@@ -1,6 +1,7 @@
 package axisym
 
 import (
+	"fmt"
 	"math"
 
 	"cylcav/cavity"
@@ -20,10 +21,11 @@ import (
 // generalised-admittance form of axial mode matching (Wexler 1967; Patzelt
 // and Arndt 1982; Itoh (ed.) 1989, ch. 9).
 type system struct {
-	fam   cavity.Family
-	lines []lines
-	joins []join
-	ndof  int
+	fam    cavity.Family
+	lines  []lines
+	joins  []join
+	ndof   int
+	offset int // see count
 }
 
 // lines is one section's set of modal transmission lines.
@@ -42,13 +44,17 @@ type join struct {
 }
 
 // newSystem builds the model of b for family fam with counts[i] modes in
-// section i.
-func newSystem(b Body, fam cavity.Family, counts []int) *system {
+// section i. It returns an error wrapping ErrNotImplemented when at some
+// junction neither cross-section lies inside the other (the aperture would
+// need a third region).
+func newSystem(b Body, fam cavity.Family, counts []int) (*system, error) {
 	s := &system{fam: fam}
+	guides := make([]guide, len(b.Sections))
 	for i, sec := range b.Sections {
 		n := counts[i]
+		guides[i] = newGuide(fam, sec.InnerRadius, sec.Radius, n)
 		s.lines = append(s.lines, lines{
-			kc:     cutoffs(fam, sec.Radius, n),
+			kc:     guides[i].kc,
 			eps:    sec.Fill.Eps(),
 			mu:     sec.Fill.Mu(),
 			length: sec.Length,
@@ -57,22 +63,25 @@ func newSystem(b Body, fam cavity.Family, counts []int) *system {
 		})
 	}
 	for i := 0; i+1 < len(b.Sections); i++ {
-		l, r := b.Sections[i], b.Sections[i+1]
-		kl, kr := s.lines[i].kc, s.lines[i+1].kc
+		gl, gr := guides[i], guides[i+1]
 		j := join{off: s.ndof}
-		// The unknowns are the modes of the narrower side; with equal
-		// radii the modes coincide and the side with fewer modes is used.
-		if l.Radius < r.Radius || (l.Radius == r.Radius && len(kl) <= len(kr)) {
-			j.n = len(kl)
-			j.right = coupling(fam, kr, kl, r.Radius, l.Radius)
-		} else {
-			j.n = len(kr)
-			j.left = coupling(fam, kl, kr, l.Radius, r.Radius)
+		// The unknowns are the modes of the side whose cross-section is the
+		// aperture; for one cross-section, the side with fewer modes.
+		switch {
+		case contains(gr, gl) && (!contains(gl, gr) || len(gl.kc) <= len(gr.kc)):
+			j.n = len(gl.kc)
+			j.right = coupling(gr, gl)
+		case contains(gl, gr):
+			j.n = len(gr.kc)
+			j.left = coupling(gl, gr)
+		default:
+			return nil, fmt.Errorf("axisym: sections %d and %d: neither cross-section lies inside the other (%g..%g m against %g..%g m): %w",
+				i+1, i+2, gl.inner, gl.outer, gr.inner, gr.outer, ErrNotImplemented)
 		}
 		s.ndof += j.n
 		s.joins = append(s.joins, j)
 	}
-	return s
+	return s, nil
 }
 
 // lineSusceptance returns the normalised driving-point and transfer
@@ -256,9 +265,9 @@ func (s *system) inertia(a []float64) (pos, neg int, last float64) {
 }
 
 // count returns the number of resonances of the modelled body with
-// frequency below f (the Wittrick-Williams count J = J0 + s), and the last
-// pivot of the factorisation, a smooth function of f between its poles
-// that changes sign at a resonance.
+// frequency below f (the Wittrick-Williams count), and the last pivot of
+// the factorisation, a smooth function of f between its poles that changes
+// sign at a resonance.
 //
 // Wittrick and Williams (1971) count the eigenvalues below f of a system
 // described by a dynamic stiffness matrix K(f) whose eigenvalues decrease
@@ -268,17 +277,33 @@ func (s *system) inertia(a []float64) (pos, neg int, last float64) {
 // for the eigenvalues). Here the junction susceptance B increases with f
 // (Foster's reactance theorem), so K = -B; clamped junction voltages leave
 // each section a closed cylinder, whose resonances are the poles counted by
-// lineSusceptance. For TE0 (voltages = E_phi, the natural unknowns) that is
-// J = J0 + pos(B). For TM0 the voltages E_r are not the natural unknowns:
-// B -> 0+ as f -> 0 (B/f tends to a positive definite matrix), so every
-// eigenvalue starts positive and J = J0 + pos(B) - ndof = J0 - neg(B).
-// Derived; the tests check it against the closed-form mode lists of a
-// cylinder cut by junctions that change nothing.
+// lineSusceptance. Hence J = J0 + pos(B) - offset, where the constant
+// offset makes J vanish near f = 0 (see calibrate): 0 for TE0, whose
+// voltages are the natural unknowns; the number of unknowns for TM0
+// without a coaxial section (B -> 0+ as f -> 0, every eigenvalue starts
+// positive); and with TEM lines, whose susceptance tends to -infinity and
+// whose p = 0 pole sits at f = 0, whatever the calibration finds. Derived;
+// the tests check it against the closed-form mode lists of a cylinder cut
+// by junctions that change nothing and of a coaxial cavity.
 func (s *system) count(f float64, a []float64) (j int, last float64) {
 	j0 := s.eval(f, a)
-	pos, neg, last := s.inertia(a)
-	if s.fam == cavity.TE {
-		return j0 + pos, last
+	pos, _, last := s.inertia(a)
+	return j0 + pos - s.offset, last
+}
+
+// calibrate sets the offset of count from an evaluation at a frequency far
+// below any resonance of the body: a thousandth of the lowest resonance of
+// a closed cylinder that encloses it, scaled down by the largest
+// refractive index (a lower bound for the body's TE0 and TM0 resonances
+// other than lumped, re-entrant ones, which the factor of a thousand
+// covers for gaps down to about 1e-6 of the body's size).
+func (s *system) calibrate(b Body, a []float64) {
+	n := 1.0
+	for _, sec := range b.Sections {
+		n = max(n, sec.Fill.Index())
 	}
-	return j0 - neg, last
+	f := 1e-3 * physics.SpeedOfLight / (2 * n * (b.Length() + 2*b.MaxRadius()))
+	s.offset = 0
+	j, _ := s.count(f, a)
+	s.offset = j
 }

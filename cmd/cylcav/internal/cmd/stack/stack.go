@@ -72,8 +72,11 @@ The geometry file is YAML:
       radius: 4mm
       start: 20mm                 # optional check: z of the left face
 
-Keys per section: %s. Not solved yet (an error says so): inner
-conductors (inner_radius > 0), n >= 1, unloaded Q and field maps.
+Keys per section: %s. inner_radius > 0 makes a
+coaxial section (a post or inner conductor); at each junction one
+cross-section must lie inside the other. Not solved yet (an error says
+so): other junctions, n >= 1, unloaded Q and field maps. A body with a
+coaxial section has no "continues from" label.
 
 --modes sets the waveguide modes kept in the widest section (default %d);
 narrower sections keep proportionally fewer. JSON and CSV give SI values.`,
@@ -143,8 +146,8 @@ type Row struct {
 	Family        string   `json:"family"`
 	FamilyIndex   int      `json:"family_index"`
 	FHz           float64  `json:"f_hz"`
-	ChangeHz      *float64 `json:"change_hz"` // null: no partner in the smaller model
-	ContinuesFrom string   `json:"continues_from"`
+	ChangeHz      *float64 `json:"change_hz"`      // null: no partner in the smaller model
+	ContinuesFrom string   `json:"continues_from"` // "" for a body with a coaxial section
 	LabelTied     bool     `json:"label_tied"`
 }
 
@@ -162,7 +165,10 @@ func runStack(opts *Options) error {
 	for i, r := range res {
 		row := Row{
 			Index: i + 1, Family: r.Family.String() + "0", FamilyIndex: r.Index, FHz: r.Frequency,
-			ContinuesFrom: r.Origin.String(), LabelTied: r.OriginTied,
+			LabelTied: r.OriginTied,
+		}
+		if r.HasOrigin {
+			row.ContinuesFrom = r.Origin.String()
 		}
 		if !math.IsInf(r.Change, 0) {
 			c := r.Change
@@ -209,8 +215,16 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 	fmt.Fprintf(w, "body: %s, %d sections, length %s, largest radius %s\n", title, len(b.Sections), length, radius)
 	fmt.Fprintf(w, "n = 0 resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
 		cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
-	fmt.Fprintf(w, "continues from: mode of the enclosing cylinder (radius %s, length %s) at the same place in order\n",
-		radius, length)
+	coax := false
+	for _, s := range b.Sections {
+		coax = coax || s.InnerRadius != 0
+	}
+	if coax {
+		fmt.Fprintln(w, "continues from: not given for a body with a coaxial section")
+	} else {
+		fmt.Fprintf(w, "continues from: mode of the enclosing cylinder (radius %s, length %s) at the same place in order\n",
+			radius, length)
+	}
 	if len(rows) == 0 {
 		fmt.Fprintln(w, "no resonance below that frequency")
 		return nil
@@ -222,6 +236,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 			change = physics.FormatFrequency(*r.ChangeHz, 2)
 		}
 		label := r.ContinuesFrom
+		if label == "" {
+			label = "-"
+		}
 		if r.LabelTied {
 			label += " (tied)"
 		}

@@ -92,7 +92,7 @@ func TestBadInput(t *testing.T) {
 		{"dup.yaml", "sections:\n  - length: 3mm\n    length: 4mm\n    radius: 2mm\n", []string{"dup.yaml:3", "given twice"}},
 		{"missing.yaml", "sections:\n  - length: 3mm\n", []string{"missing.yaml:2", "sections[1].radius", "missing"}},
 		{"yaml.yaml", "sections: [\n", []string{"yaml.yaml:", "not valid YAML"}},
-		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n", []string{"coax.yaml", "coaxial", "not implemented"}},
+		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n  - length: 30mm\n    radius: 25mm\n    inner_radius: 8mm\n", []string{"coax.yaml", "sections 1 and 2", "not implemented"}},
 	}
 	var bad []clitest.BadCase
 	for _, c := range cases {
