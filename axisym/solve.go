@@ -27,6 +27,9 @@ type Request struct {
 	// Families lists the families to solve (cavity.TE for TE0, cavity.TM for
 	// TM0); nil means both.
 	Families []cavity.Family
+	// Losses asks for each resonance's Loss (geometry factors of every
+	// metal surface and filling factors), from the matched fields.
+	Losses bool
 }
 
 // Resonance is one resonance of a body.
@@ -53,6 +56,12 @@ type Resonance struct {
 	// OriginTied is true when the enclosing cylinder has another mode of the
 	// family at the same frequency as Origin, so the label could be either.
 	OriginTied bool
+	// Loss holds the geometry and filling factors when Request.Losses was
+	// set; nil otherwise. LossErr says why Loss is nil when it was asked
+	// for (a field the solver does not yet give, wrapping
+	// ErrNotImplemented).
+	Loss    *Loss
+	LossErr error
 }
 
 // DefaultModes is the default number of modes in the widest section: the
@@ -126,11 +135,11 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 		}
 		// The smaller model searches a little beyond the limit so that a
 		// resonance just below it still has a partner.
-		coarse, err := resonances(b, fam, r.MaxFrequency*(1+estimateMargin), modes)
+		coarse, _, err := resonances(b, fam, r.MaxFrequency*(1+estimateMargin), modes, false)
 		if err != nil {
 			return nil, err
 		}
-		fine, err := resonances(b, fam, r.MaxFrequency, (3*modes+1)/2)
+		fine, losses, err := resonances(b, fam, r.MaxFrequency, (3*modes+1)/2, r.Losses)
 		if err != nil {
 			return nil, err
 		}
@@ -149,6 +158,9 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 				change = math.Abs(f - coarse[i])
 			}
 			r := Resonance{Family: fam, Index: i + 1, Frequency: f, Change: change}
+			if losses != nil {
+				r.Loss, r.LossErr = losses[i].loss, losses[i].err
+			}
 			if !coax {
 				r.Origin, r.OriginTied, r.HasOrigin = origins[i], ties[i], true
 			}
@@ -205,25 +217,44 @@ func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, erro
 	return counts, nil
 }
 
+// lossResult is the Loss of one resonance or why there is none.
+type lossResult struct {
+	loss *Loss
+	err  error
+}
+
 // resonances returns the resonant frequencies of family fam below fmax of
-// the model with modes in the widest section, in increasing order.
-func resonances(b Body, fam cavity.Family, fmax float64, modes int) ([]float64, error) {
+// the model with modes in the widest section, in increasing order, and,
+// if withLoss, their losses.
+func resonances(b Body, fam cavity.Family, fmax float64, modes int, withLoss bool) ([]float64, []lossResult, error) {
 	counts, err := ModeCounts(b, fam, fmax, modes)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	s, err := newSystem(b, fam, counts)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
 	s.calibrate(b, sv.a)
 	jmax, gmax := sv.count(fmax)
 	if jmax > MaxResonances {
-		return nil, fmt.Errorf("axisym: %d %v0 resonances below %g Hz, more than %d; lower the maximum frequency", jmax, fam, fmax, MaxResonances)
+		return nil, nil, fmt.Errorf("axisym: %d %v0 resonances below %g Hz, more than %d; lower the maximum frequency", jmax, fam, fmax, MaxResonances)
 	}
 	sv.isolate(point{0, 0, 0}, point{fmax, jmax, gmax})
-	return sv.out, nil
+	if !withLoss {
+		return sv.out, nil, nil
+	}
+	ls := make([]lossResult, len(sv.out))
+	for i, f := range sv.out {
+		l, err := s.losses(b, f)
+		if err != nil {
+			ls[i].err = err
+			continue
+		}
+		ls[i].loss = &l
+	}
+	return sv.out, ls, nil
 }
 
 // point is one evaluation: frequency, count below it and last pivot.
