@@ -62,6 +62,11 @@ type Resonance struct {
 	// ErrNotImplemented).
 	Loss    *Loss
 	LossErr error
+	// CoarseLoss is the Loss of the smaller model (two thirds of the
+	// modes), when both have one: the change of a Q0 between the two is
+	// its convergence estimate, which matters here, since wall losses next
+	// to a step edge converge only as about N^(-1/3) (see the package doc).
+	CoarseLoss *Loss
 }
 
 // DefaultModes is the default number of modes in the widest section: the
@@ -135,7 +140,7 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 		}
 		// The smaller model searches a little beyond the limit so that a
 		// resonance just below it still has a partner.
-		coarse, _, err := resonances(b, fam, r.MaxFrequency*(1+estimateMargin), modes, false)
+		coarse, coarseLoss, err := resonances(b, fam, r.MaxFrequency*(1+estimateMargin), modes, r.Losses)
 		if err != nil {
 			return nil, err
 		}
@@ -160,6 +165,9 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 			r := Resonance{Family: fam, Index: i + 1, Frequency: f, Change: change}
 			if losses != nil {
 				r.Loss, r.LossErr = losses[i].loss, losses[i].err
+				if i < len(coarseLoss) && r.Loss != nil {
+					r.CoarseLoss = coarseLoss[i].loss
+				}
 			}
 			if !coax {
 				r.Origin, r.OriginTied, r.HasOrigin = origins[i], ties[i], true
@@ -231,6 +239,11 @@ func resonances(b Body, fam cavity.Family, fmax float64, modes int, withLoss boo
 	if err != nil {
 		return nil, nil, err
 	}
+	return resonancesWith(b, fam, fmax, counts, withLoss)
+}
+
+// resonancesWith is resonances with the mode count of every section given.
+func resonancesWith(b Body, fam cavity.Family, fmax float64, counts []int, withLoss bool) ([]float64, []lossResult, error) {
 	s, err := newSystem(b, fam, counts)
 	if err != nil {
 		return nil, nil, err
