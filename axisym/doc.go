@@ -76,7 +76,7 @@
 // 1e-10; TE0 of a two-layer body: Wheeler's incremental-inductance rule to
 // 1e-8). Next to a step edge |H_tan|^2 ~ rho^(-2/3), and the surface
 // integral of the truncated series converges only as about N^(-1/3): on
-// the stepped test body the wall Q is 7.7 % high at N = 40 (60 in the
+// the stepped test body the wall Q is 7.8 % high at N = 40 (60 in the
 // fine model) and 6.1 % at N = 80; extrapolated at that rate it meets
 // Wheeler's value to 5e-4 (TestWheelerStepped). CoarseLoss lets a caller
 // show that change. Where a resonance coincides with a resonance of a

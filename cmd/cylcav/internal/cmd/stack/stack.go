@@ -24,6 +24,7 @@ import (
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
+	"cylcav/qfactor"
 )
 
 // Options are the parsed and validated arguments of `cylcav stack`.
@@ -40,6 +41,10 @@ type Options struct {
 	// Families are the families to solve.
 	Families []cavity.Family
 	Format   cmdutil.Format
+	// Walls, when not nil (--wall given), adds Q0 and its parts: the side
+	// surface of the wall set covers side walls, inner conductors and step
+	// faces, EndA and EndB the end plates.
+	Walls *qfactor.WallSet
 }
 
 // NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
@@ -48,6 +53,7 @@ func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	opts := &Options{IO: ios}
 	var fmax, family string
 	var checkFormat func() error
+	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
 		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
 		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
@@ -79,14 +85,22 @@ so): other junctions, n >= 1, unloaded Q and field maps. A body with a
 coaxial section has no "continues from" label.
 
 --modes sets the waveguide modes kept in the widest section (default %d);
-narrower sections keep proportionally fewer. JSON and CSV give SI values.`,
+narrower sections keep proportionally fewer. JSON and CSV give SI values.
+
+With --wall (a metal, as in 'cylcav q'; --end-wall and the other wall
+flags apply too) each resonance gains Q0 from the matched fields, with the
+wall loss on every surface (side walls, inner conductors and step faces
+take the --wall metal) and each section's loss tangents, plus the change
+of Q0 when the modes grew by half. Bodies without steps give exact Q0;
+next to a step edge the wall loss converges slowly, so there Q0 is an
+estimate (high by about its change or more).`,
 			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # Two cells joined by an iris: resonances up to 12 GHz
   $ cylcav stack examples/iris-pair.yaml --fmax 12GHz
   ...
 
-  # A dielectric disc on the end plate of a can, TE0 only, as CSV
-  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --format csv`,
+  # A dielectric disc on the end plate of a copper can, TE0 only, with Q0, as CSV
+  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --wall copper --format csv`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) != 1 {
 				return cmdutil.Usagef("give one geometry file (e.g. cylcav stack examples/iris-pair.yaml --fmax 12GHz), got %d arguments", len(args))
@@ -118,6 +132,13 @@ narrower sections keep proportionally fewer. JSON and CSV give SI values.`,
 			if err := checkFormat(); err != nil {
 				return err
 			}
+			if walls.Given() {
+				ws, err := walls.Walls()
+				if err != nil {
+					return err
+				}
+				opts.Walls = &ws
+			}
 			data, err := os.ReadFile(opts.File)
 			if err != nil {
 				return cmdutil.Usagef("geometry file: %v", err)
@@ -135,6 +156,7 @@ narrower sections keep proportionally fewer. JSON and CSV give SI values.`,
 	fl.StringVar(&fmax, "fmax", "", "list every resonance below this frequency (e.g. 12GHz)")
 	fl.StringVar(&family, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both")
 	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
+	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
 }
@@ -149,11 +171,19 @@ type Row struct {
 	ChangeHz      *float64 `json:"change_hz"`      // null: no partner in the smaller model
 	ContinuesFrom string   `json:"continues_from"` // "" for a body with a coaxial section
 	LabelTied     bool     `json:"label_tied"`
+	// With --wall: Q0, the change of Q0 when the modes grew by half (its
+	// convergence estimate), and the wall and fill Q; null when the fields
+	// are not available (QNote says why).
+	Q0       *float64 `json:"q0,omitempty"`
+	Q0Change *float64 `json:"q0_change,omitempty"`
+	QWall    *float64 `json:"q_wall,omitempty"`
+	QFill    *float64 `json:"q_fill,omitempty"` // absent with Q0 given: no fill loss
+	QNote    string   `json:"q_note,omitempty"`
 }
 
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
-		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
+		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families, Losses: opts.Walls != nil,
 	})
 	if err != nil {
 		if errors.Is(err, axisym.ErrNotImplemented) {
@@ -173,6 +203,11 @@ func runStack(opts *Options) error {
 		if !math.IsInf(r.Change, 0) {
 			c := r.Change
 			row.ChangeHz = &c
+		}
+		if opts.Walls != nil {
+			if err := addQ(&row, r, *opts.Walls, opts.Geometry.Body); err != nil {
+				return err
+			}
 		}
 		rows[i] = row
 	}
@@ -196,10 +231,18 @@ func runStack(opts *Options) error {
 			if r.ChangeHz != nil {
 				change = strconv.FormatFloat(*r.ChangeHz, 'g', -1, 64)
 			}
-			out = append(out, []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex),
-				strconv.FormatFloat(r.FHz, 'g', -1, 64), change, r.ContinuesFrom, strconv.FormatBool(r.LabelTied)})
+			cells := []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex),
+				strconv.FormatFloat(r.FHz, 'g', -1, 64), change, r.ContinuesFrom, strconv.FormatBool(r.LabelTied)}
+			if opts.Walls != nil {
+				cells = append(cells, csvQ(r.Q0), csvQ(r.Q0Change), csvQ(r.QWall), csvQ(r.QFill))
+			}
+			out = append(out, cells)
 		}
-		return cmdutil.WriteCSV(opts.IO.Out, []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}, out)
+		header := []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}
+		if opts.Walls != nil {
+			header = append(header, "q0", "q0_change", "q_wall", "q_fill")
+		}
+		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
 	return writeTable(opts.IO.Out, opts, rows)
 }
@@ -229,7 +272,12 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 		fmt.Fprintln(w, "no resonance below that frequency")
 		return nil
 	}
-	t := cmdutil.NewTable(w, "#", "family", "k", "f", "change", "continues from")
+	header := []string{"#", "family", "k", "f", "change", "continues from"}
+	if opts.Walls != nil {
+		header = append(header, "Q0", "Q0 change", "Q wall", "Q fill")
+	}
+	t := cmdutil.NewTable(w, header...)
+	var notes []string
 	for _, r := range rows {
 		change := "unknown"
 		if r.ChangeHz != nil {
@@ -242,9 +290,67 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 		if r.LabelTied {
 			label += " (tied)"
 		}
-		t.Row(strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex), physics.FormatFrequency(r.FHz, digits(r)), change, label)
+		cells := []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex), physics.FormatFrequency(r.FHz, digits(r)), change, label}
+		if opts.Walls != nil {
+			fill := qText(r.QFill)
+			if r.Q0 != nil && r.QFill == nil {
+				fill = "inf" // no fill loss
+			}
+			cells = append(cells, qText(r.Q0), qText(r.Q0Change), qText(r.QWall), fill)
+			if r.QNote != "" {
+				notes = append(notes, fmt.Sprintf("#%d: %s", r.Index, r.QNote))
+			}
+		}
+		t.Row(cells...)
 	}
-	return t.Flush()
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	if opts.Walls != nil {
+		fmt.Fprintln(w, "Q: side walls, inner conductors and step faces of the --wall metal; next to a step edge the wall loss")
+		fmt.Fprintln(w, "converges slowly with the modes (Q0 change), so with steps Q0 is an estimate, high by about that change or more")
+		for _, n := range notes {
+			fmt.Fprintln(w, "note "+n)
+		}
+	}
+	return nil
+}
+
+// addQ fills the Q columns of row from the resonance's losses.
+func addQ(row *Row, r axisym.Resonance, walls qfactor.WallSet, b axisym.Body) error {
+	if r.Loss == nil {
+		row.QNote = "fields not available: " + r.LossErr.Error()
+		return nil
+	}
+	rs, _, err := walls.Resistances(r.Frequency)
+	if err != nil {
+		return err
+	}
+	per := func(p axisym.Part) float64 {
+		switch p.Kind {
+		case axisym.EndA:
+			return rs.EndA
+		case axisym.EndB:
+			return rs.EndB
+		}
+		return rs.Side
+	}
+	fills := make([]physics.Medium, len(b.Sections))
+	for i, s := range b.Sections {
+		fills[i] = s.Fill
+	}
+	q0, iw, ifl := r.Loss.Q0(per, fills)
+	qw, qf := 1/iw, 1/ifl
+	row.Q0, row.QWall = &q0, &qw
+	if !math.IsInf(qf, 1) {
+		row.QFill = &qf
+	}
+	if r.CoarseLoss != nil {
+		c, _, _ := r.CoarseLoss.Q0(per, fills)
+		d := math.Abs(q0 - c)
+		row.Q0Change = &d
+	}
+	return nil
 }
 
 // digits returns the significant digits worth printing for a resonance:
@@ -257,4 +363,24 @@ func digits(r Row) int {
 		return 10
 	}
 	return min(max(int(math.Ceil(math.Log10(r.FHz / *r.ChangeHz)))+1, 4), 10)
+}
+
+// qText prints an optional Q for the table: "-" when missing, "inf" for no
+// loss.
+func qText(q *float64) string {
+	switch {
+	case q == nil:
+		return "-"
+	case math.IsInf(*q, 1):
+		return "inf"
+	}
+	return strconv.FormatFloat(*q, 'f', 0, 64)
+}
+
+// csvQ prints an optional Q for CSV: empty when missing or infinite.
+func csvQ(q *float64) string {
+	if q == nil || math.IsInf(*q, 0) {
+		return ""
+	}
+	return strconv.FormatFloat(*q, 'g', -1, 64)
 }

@@ -2,6 +2,7 @@ package stack_test
 
 import (
 	"encoding/json"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -11,6 +12,7 @@ import (
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/stack"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/qfactor"
 )
 
 // inRepo runs the test from the repository root so the examples/ paths
@@ -109,5 +111,42 @@ func TestBadInput(t *testing.T) {
 	clitest.CheckBadInput(t, "stack", bad)
 	if r := clitest.Run(t, "stack", good, "--fmax", "10GHz", "--format", "csv"); r.Code != 0 || !strings.HasPrefix(r.Stdout, "index,family,family_index,f_hz") {
 		t.Errorf("csv: exit %d, %q", r.Code, r.Stdout)
+	}
+}
+
+// TestOneSectionQ0 checks --wall on a closed cylinder against package
+// qfactor's closed-form wall Q (Harrington 1961 ch. 5; Pozar 2012 sec.
+// 6.4) with the same surface resistance.
+func TestOneSectionQ0(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	r := clitest.Run(t, "stack", file, "--fmax", "12GHz", "--wall", "sigma=5.8e7", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	c := cavity.Cavity{Radius: 0.02, Length: 0.03}
+	for _, row := range out.Resonances {
+		m, err := cavity.ParseMode(row.ContinuesFrom)
+		if err != nil {
+			t.Fatal(err)
+		}
+		f := c.Frequency(m)
+		rs := qfactor.SurfaceResistance(f, 5.8e7, 1)
+		want, err := qfactor.WallQ(c, m, qfactor.Uniform(rs))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if row.Q0 == nil || math.Abs(*row.Q0-want.QWall)/want.QWall > 1e-9 {
+			t.Errorf("%s: q0 = %v, want %.10g (closed form)", row.ContinuesFrom, row.Q0, want.QWall)
+		}
 	}
 }
