@@ -264,7 +264,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 			break
 		}
 		if n > MaxIndex {
-			return nil, fmt.Errorf("cavity: modes up to %s may need an azimuthal index n above %d; lower the frequency limit", shortFrequency(fmax), MaxIndex)
+			return nil, fmt.Errorf("cavity: modes up to %s may need an azimuthal index n above %d", shortFrequency(fmax), MaxIndex)
 		}
 		count := zeroCount(n, math.Max(xTM, xTE)) + 2
 		var j, jp []float64
@@ -277,7 +277,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 				break
 			}
 			if count > MaxIndex {
-				return nil, fmt.Errorf("cavity: modes up to %s need a radial index m above %d (order n = %d); lower the frequency limit", shortFrequency(fmax), MaxIndex, n)
+				return nil, fmt.Errorf("cavity: modes up to %s need a radial index m above %d (order n = %d)", shortFrequency(fmax), MaxIndex, n)
 			}
 			count *= 2
 		}
@@ -310,7 +310,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 				pmax++
 			}
 			if pmax > MaxIndex {
-				return fmt.Errorf("cavity: modes up to %s need an axial index p above %d (%s); lower the frequency limit", shortFrequency(fmax), MaxIndex, Mode{f, n, i + 1, MaxIndex + 1})
+				return fmt.Errorf("cavity: modes up to %s need an axial index p above %d (%s)", shortFrequency(fmax), MaxIndex, Mode{f, n, i + 1, MaxIndex + 1})
 			}
 			if pmax < pmin {
 				continue
@@ -319,7 +319,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 			e.total += cnt
 			e.fields += cnt * Mode{N: n}.Degeneracy()
 			if e.total > limit {
-				return fmt.Errorf("cavity: more than %d modes up to %s (the listing limit); lower the frequency limit", limit, shortFrequency(fmax))
+				return fmt.Errorf("cavity: more than %d modes up to %s (the listing limit)", limit, shortFrequency(fmax))
 			}
 			e.roots = append(e.roots, rootRange{x: x, family: f, n: n, m: i + 1, pmin: pmin, pmax: pmax})
 		}

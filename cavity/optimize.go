@@ -562,8 +562,8 @@ func (p *problem) allowed() (interval, error) {
 		switch {
 		case K <= w.gx:
 			return interval{}, &InfeasibleError{
-				Need:       fmt.Sprintf("diameter <= %.6g m", spec.MaxDiameter),
-				Achievable: fmt.Sprintf("%s at %.6g Hz needs a diameter above %.6g m (its cutoff diameter) at any D/L", spec.Mode, spec.Frequency, math.Sqrt(w.gx)/p.kf),
+				Need:       "diameter <= " + shortLength(spec.MaxDiameter),
+				Achievable: fmt.Sprintf("%s at %s needs a diameter above %s (its cutoff diameter) at any D/L", spec.Mode, shortFrequency(spec.Frequency), shortLength(math.Sqrt(w.gx)/p.kf)),
 				Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
 			}
 		case w.gp > 0:
@@ -585,8 +585,8 @@ func (p *problem) allowed() (interval, error) {
 		}
 		if iv.hi < iv.lo || a >= 0 && b < 0 {
 			return interval{}, &InfeasibleError{
-				Need:       fmt.Sprintf("length <= %.6g m", spec.MaxLength),
-				Achievable: fmt.Sprintf("%s at %.6g Hz needs more length than that over %s%s", spec.Mode, spec.Frequency, rangeText, tuningText(spec.Tuning)),
+				Need:       "length <= " + shortLength(spec.MaxLength),
+				Achievable: fmt.Sprintf("%s at %s needs more length than that over %s%s", spec.Mode, shortFrequency(spec.Frequency), rangeText, tuningText(spec.Tuning)),
 				Ratio:      math.NaN(), Clearance: math.NaN(), Q0: math.NaN(),
 			}
 		}

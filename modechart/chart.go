@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"cylcav/cavity"
@@ -78,6 +79,31 @@ func (u Units) String() string {
 	}
 	return "GHz·cm"
 }
+
+// format prints a product f·D given in Hz·m in the unit u, to four
+// significant digits: "61.37 GHz·cm".
+func (u Units) format(fd float64) string {
+	return strconv.FormatFloat(fd/u.Scale(), 'g', 4, 64) + " " + u.String()
+}
+
+// Edge names the end of the chart's f·D axis that a RangeError is about.
+type Edge int
+
+// The ends of the f·D axis.
+const (
+	Bottom Edge = iota
+	Top
+)
+
+// RangeError says that the chart's f·D range (Spec.MinFD, Spec.MaxFD, or
+// the default top) cannot draw the chart, and which end to move. Its text
+// gives f·D in the spec's Units.
+type RangeError struct {
+	Edge Edge
+	Msg  string
+}
+
+func (e *RangeError) Error() string { return "modechart: " + e.Msg }
 
 // Flag returns the unit's command-line spelling: ghz-cm, ghz-mm, mhz-in.
 func (u Units) Flag() string {
@@ -417,19 +443,19 @@ func New(s Spec) (*Chart, error) {
 		ch.FDMax = 1.5 * fd
 	}
 	if !(ch.FDMax > 0 && ch.FDMax < 1e12) {
-		return nil, fmt.Errorf("modechart: top of chart must be in (0, 1e12) Hz·m, got %g Hz·m", s.MaxFD)
+		return nil, &RangeError{Edge: Top, Msg: fmt.Sprintf("the top of the chart must be above 0 and below %s, got %s", s.Units.format(1e12), s.Units.format(s.MaxFD))}
 	}
 	ch.FDMin = s.MinFD
 	if !(ch.FDMin >= 0 && ch.FDMin < ch.FDMax) {
-		return nil, fmt.Errorf("modechart: bottom of chart must be in [0, %.4g) Hz·m (below the top), got %g Hz·m", ch.FDMax, s.MinFD)
+		return nil, &RangeError{Edge: Bottom, Msg: fmt.Sprintf("the bottom of the chart must be at least 0 and below the top %s, got %s", s.Units.format(ch.FDMax), s.Units.format(s.MinFD))}
 	}
 	if hasDesign && ch.Reach.FDLo*(1-ch.Clearance) < ch.FDMin {
-		return nil, fmt.Errorf("modechart: the reachable set and clearance band reach down to f·D = %.4g Hz·m, below the bottom of the chart %.4g Hz·m; lower the bottom",
-			ch.Reach.FDLo*(1-ch.Clearance), ch.FDMin)
+		return nil, &RangeError{Edge: Bottom, Msg: fmt.Sprintf("the reachable set and clearance band reach down to f·D = %s, below the bottom of the chart %s; lower the bottom",
+			s.Units.format(ch.Reach.FDLo*(1-ch.Clearance)), s.Units.format(ch.FDMin))}
 	}
 	if hasDesign && ch.Reach.FDHi > ch.FDMax {
-		return nil, fmt.Errorf("modechart: the reachable set reaches f·D = %.4g Hz·m, above the top of the chart %.4g Hz·m; raise the chart top",
-			ch.Reach.FDHi, ch.FDMax)
+		return nil, &RangeError{Edge: Top, Msg: fmt.Sprintf("the reachable set reaches f·D = %s, above the top of the chart %s; raise the top",
+			s.Units.format(ch.Reach.FDHi), s.Units.format(ch.FDMax))}
 	}
 	if hasDesign && (ch.Reach.RatioLo < s.RatioMin || ch.Reach.RatioHi > s.RatioMax) {
 		return nil, fmt.Errorf("modechart: the design's reachable D/L span %.4g..%.4g lies outside the chart's D/L range %g..%g; widen the range",
@@ -442,11 +468,11 @@ func New(s Spec) (*Chart, error) {
 	ref := cavity.Cavity{Radius: 0.5, Length: 1 / s.RatioMin, Fill: fill}
 	count, _, err := ref.Count(ch.FDMax)
 	if err != nil {
-		return nil, fmt.Errorf("modechart: listing modes up to f·D = %.4g Hz·m: %w; lower the top of the chart", ch.FDMax, err)
+		return nil, &RangeError{Edge: Top, Msg: fmt.Sprintf("listing modes up to f·D = %s: %v; lower the top of the chart", s.Units.format(ch.FDMax), err)}
 	}
 	if count > 2*MaxLines {
-		return nil, fmt.Errorf("modechart: %d modes below the chart top %.4g Hz·m exceed the %d-line limit; lower the top of the chart",
-			count, ch.FDMax, MaxLines)
+		return nil, &RangeError{Edge: Top, Msg: fmt.Sprintf("%d modes below the chart top %s exceed the %d-line limit; lower the top of the chart",
+			count, s.Units.format(ch.FDMax), MaxLines)}
 	}
 	res, err := ref.Modes(ch.FDMax)
 	if err != nil {

@@ -406,7 +406,7 @@ func TestSpecErrors(t *testing.T) {
 		{"tolerance", func(s *Spec) { s.DiameterTol = 0.01 }, "diameter tolerance"},
 		{"fill clash", func(s *Spec) { s.Fill.EpsR = 2 }, "differs from the design cavity"},
 		{"tm010 tuning", func(s *Spec) { s.Wanted = tm010 }, "an end plate does not tune it"},
-		{"top below box", func(s *Spec) { s.MaxFD = 1e8 }, "raise the chart top"},
+		{"top below box", func(s *Spec) { s.MaxFD = 1e8 }, "raise the top"},
 		{"box outside range", func(s *Spec) { s.RatioMin, s.RatioMax = 1.5, 3 }, "widen the range"},
 		{"too many lines", func(s *Spec) { s.MaxFD = 1e11 }, "lower the top of the chart"},
 	}

@@ -1,7 +1,6 @@
 package modechart
 
 import (
-	"errors"
 	"fmt"
 	"image/color"
 	"math"
@@ -51,7 +50,7 @@ type Rect struct{ XMin, XMax, YMin, YMax float64 }
 // rejects a chart with no lines.
 func NewModeLines(ch *Chart) (*ModeLines, error) {
 	if ch == nil || len(ch.Lines) == 0 {
-		return nil, errors.New("modechart: chart has no mode lines; raise the top of the chart")
+		return nil, &RangeError{Edge: Top, Msg: "the chart has no mode lines; raise the top of the chart"}
 	}
 	u := ch.Units.Scale()
 	ml := &ModeLines{

@@ -342,6 +342,7 @@ func ParseRange(s string, parse func(string) (float64, error)) (lo, hi float64, 
 		return 0, 0, fmt.Errorf("invalid range %q: want LO:HI, for example 38mm:42mm", s)
 	}
 	a, b, _ := strings.Cut(s, ":")
+	a, b = strings.TrimSpace(a), strings.TrimSpace(b)
 	lo, err = parse(a)
 	if err != nil {
 		return 0, 0, fmt.Errorf("invalid range %q: low end: %w", s, err)
@@ -351,7 +352,7 @@ func ParseRange(s string, parse func(string) (float64, error)) (lo, hi float64, 
 		return 0, 0, fmt.Errorf("invalid range %q: high end: %w", s, err)
 	}
 	if lo > hi {
-		return 0, 0, fmt.Errorf("invalid range %q: low end %g is above high end %g (SI units)", s, lo, hi)
+		return 0, 0, fmt.Errorf("invalid range %q: low end %s is above high end %s", s, a, b)
 	}
 	return lo, hi, nil
 }
@@ -459,4 +460,52 @@ func formatPlain(v float64, digits int) string {
 	exp, _ := strconv.Atoi(e[strings.IndexByte(e, 'e')+1:])
 	r, _ := strconv.ParseFloat(e, 64)
 	return strconv.FormatFloat(r, 'f', max(0, digits-1-exp), 64)
+}
+
+// BareNumber reports whether s is a plain number with no unit after it
+// ("176.5", " 2e9 "), and returns the number. It lets the command line
+// apply its rule for bare numbers (a length or frequency other than zero
+// must carry its unit) with the same number syntax as every Parse function.
+func BareNumber(s string) (v float64, ok bool) {
+	v, u, err := parseNumber("number", s)
+	return v, err == nil && u == ""
+}
+
+// UnitHint writes a bare number v with the unit a person most likely meant
+// for a quantity of the given kind, for the hint of an error message:
+// lengths in millimetres ("176.5mm"); frequencies in megahertz from 100 up
+// ("200MHz") and in gigahertz below ("2.45GHz"). Other kinds return "".
+// These are common practice in microwave work, not a physical rule.
+func UnitHint(kind string, v float64) string {
+	num := strconv.FormatFloat(v, 'g', -1, 64)
+	switch kind {
+	case "length":
+		return num + "mm"
+	case "frequency":
+		if math.Abs(v) >= 100 {
+			return num + "MHz"
+		}
+		return num + "GHz"
+	}
+	return ""
+}
+
+var resistanceUnits = []unit{
+	{[]string{"ohm", "ω"}, 1},
+	{[]string{"mohm", "mω"}, 1e-3}, // milliohm: there is no megohm surface resistance
+	{[]string{"uohm", "uω"}, 1e-6},
+	{[]string{"nohm", "nω"}, 1e-9},
+}
+
+// ParseResistance parses a (surface) resistance and returns it in ohms.
+// Accepted units: ohm, mohm (milliohm), uohm, nohm in any case, "ohm" also
+// written Ω (U+03A9 or U+2126). A plain number is ohms. See the common
+// rules at the top of this file.
+//
+// Special cases are:
+//
+//	ParseResistance("10nohm") = 1e-8, nil
+//	ParseResistance("0x10") = error (no hexadecimal)
+func ParseResistance(s string) (float64, error) {
+	return parseWithUnits("resistance", strings.ReplaceAll(s, "\u2126", "\u03a9"), resistanceUnits, 1, "ohm, mohm, uohm or nohm")
 }

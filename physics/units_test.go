@@ -463,3 +463,24 @@ func BenchmarkFormatFrequency(b *testing.B) {
 		_ = FormatFrequency(4.58967e9, 5)
 	}
 }
+
+// TestParseResistance checks the resistance units against their SI
+// prefixes (exact powers of ten) and the common rules.
+func TestParseResistance(t *testing.T) {
+	for _, tc := range []struct {
+		in   string
+		want float64
+	}{
+		{"10nohm", 10e-9}, {"10 nΩ", 10e-9}, {"10 nΩ", 10e-9}, {"0.02mohm", 0.02e-3},
+		{"3 uohm", 3e-6}, {"3uOhm", 3e-6}, {"1e-8", 1e-8}, {"2 Ohm", 2}, {"0.02 mohm", 2e-5},
+	} {
+		if got, err := ParseResistance(tc.in); err != nil || !closeRel(got, tc.want, 1e-15) {
+			t.Errorf("ParseResistance(%q) = %v, %v; want %v", tc.in, got, err, tc.want)
+		}
+	}
+	for _, bad := range []string{"", "0x10", "1_0", "NaN", "5 furlong", "ohm", "nohm", "ten ohm", "1e999"} {
+		if _, err := ParseResistance(bad); err == nil {
+			t.Errorf("ParseResistance(%q) succeeded, want an error", bad)
+		}
+	}
+}

@@ -9,6 +9,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"regexp"
 	"strconv"
 	"strings"
 
@@ -63,8 +64,10 @@ func Usagef(format string, a ...any) error {
 // FlagError returns a UsageError that names the flag and its value:
 //
 //	--diameter "-3mm": must be > 0 m
+//
+// A value longer than 80 characters is quoted cut short, ending in "...".
 func FlagError(flag, value string, err error) error {
-	return &UsageError{Err: fmt.Errorf("--%s %q: %w", flag, value, err)}
+	return &UsageError{Err: fmt.Errorf("--%s %s: %w", flag, quoteValue(value), err)}
 }
 
 // FlagValueError rewrites the parser's error for a typed flag given a value
@@ -77,6 +80,9 @@ func FlagValueError(err error) error {
 	var ive *pflag.InvalidValueError
 	if !errors.As(err, &ive) {
 		return err
+	}
+	if ve, ok := asValueError(err); ok {
+		return fmt.Errorf("--%s %s: %s", ive.GetFlag().Name, quoteValue(ive.GetValue()), ve.msg)
 	}
 	var what string
 	switch t := ive.GetFlag().Value.Type(); {
@@ -91,7 +97,7 @@ func FlagValueError(err error) error {
 	default:
 		return err
 	}
-	return fmt.Errorf("--%s %q: %s", ive.GetFlag().Name, ive.GetValue(), what)
+	return fmt.Errorf("--%s %s: %s", ive.GetFlag().Name, quoteValue(ive.GetValue()), what)
 }
 
 // CautionRF is the general caution for cavities driven at high RF power,
@@ -129,4 +135,87 @@ func RejectEmptyFlags(cmd *cobra.Command) error {
 		}
 	})
 	return err
+}
+
+// CheckedWriter passes writes through to another writer and remembers the
+// first error, so that a command whose output could not be written (a full
+// disk, `cylcav design >/dev/full`) exits with status 1 even where its code
+// does not look at the error of each print. root.Main wraps standard output
+// in one.
+type CheckedWriter struct {
+	w   io.Writer
+	err error
+}
+
+// NewCheckedWriter returns a CheckedWriter on w.
+func NewCheckedWriter(w io.Writer) *CheckedWriter { return &CheckedWriter{w: w} }
+
+// Write writes p to the underlying writer. After the first error it writes
+// nothing more and returns that error.
+func (c *CheckedWriter) Write(p []byte) (int, error) {
+	if c.err != nil {
+		return 0, c.err
+	}
+	n, err := c.w.Write(p)
+	if err != nil {
+		c.err = err
+	}
+	return n, err
+}
+
+// Err returns the first write error, or nil.
+func (c *CheckedWriter) Err() error { return c.err }
+
+// libraryPrefix matches the package prefix that a library error carries by
+// Go convention ("cavity: ...", "qfactor: ..."), at the start of the text
+// or after another message's colon.
+var libraryPrefix = regexp.MustCompile(`(^|: )(cavity|qfactor|modechart|filter|filterplot|figure|physics|bessel|design|datasheet): `)
+
+// Message returns the text of err as a user reads it: without the package
+// prefixes of library errors, which name Go packages, not anything the
+// user typed, and with every quoted value longer than 80 characters cut
+// short ("xxxx..."...), wherever in the chain it was quoted. root.Main
+// prints every error through it.
+func Message(err error) string {
+	s := err.Error()
+	for {
+		t := libraryPrefix.ReplaceAllString(s, "$1")
+		if t == s {
+			break
+		}
+		s = t
+	}
+	return shortenQuotes(s)
+}
+
+// shortenQuotes cuts every quoted value in s ("...", Go escapes) longer
+// than maxQuoted characters with quoteValue. Quotes pair from the left; a
+// quote left open ends the scan.
+func shortenQuotes(s string) string {
+	var b strings.Builder
+	for {
+		i := strings.IndexByte(s, '"')
+		if i < 0 {
+			b.WriteString(s)
+			return b.String()
+		}
+		j := i + 1
+		for j < len(s) && s[j] != '"' {
+			if s[j] == '\\' {
+				j++
+			}
+			j++
+		}
+		if j >= len(s) {
+			b.WriteString(s)
+			return b.String()
+		}
+		b.WriteString(s[:i])
+		q := s[i : j+1]
+		if v, err := strconv.Unquote(q); err == nil {
+			q = quoteValue(v)
+		}
+		b.WriteString(q)
+		s = s[j+1:]
+	}
 }

@@ -61,32 +61,33 @@ func sizeError(msg, def string) error {
 	return &UsageError{Err: errors.New(msg)}
 }
 
-// GeometryFlags are the cavity flags registered by AddGeometryFlags. Its
-// methods read them after parsing; every error is a usage error naming the
-// flag, the value and the valid range.
+// GeometryFlags are the cavity flags registered by AddGeometryFlags. The
+// sizes are typed flags (LengthVar): a bad value is refused while the
+// command line is parsed. Its methods read them after parsing; every error
+// is a usage error naming the flag, the value and the valid range.
 type GeometryFlags struct {
-	flags                          *pflag.FlagSet
-	geo                            Geometry
-	diameter, radius, length, fill string
+	flags                    *pflag.FlagSet
+	geo                      Geometry
+	fill                     string
+	d, r, l                  float64
+	diameter, radius, length *Quantity
 }
 
 // AddGeometryFlags registers the cavity flags that g names on cmd.
 func AddGeometryFlags(cmd *cobra.Command, g Geometry) *GeometryFlags {
 	gf := &GeometryFlags{flags: cmd.Flags(), geo: g}
 	f := cmd.Flags()
-	for _, fl := range []struct {
-		p          *string
-		name, help string
-		def        string
-	}{
-		{&gf.diameter, "diameter", g.Diameter, ""},
-		{&gf.radius, "radius", g.Radius, ""},
-		{&gf.length, "length", g.Length, ""},
-		{&gf.fill, "fill", g.Fill, g.FillDefault},
-	} {
-		if fl.help != "" {
-			f.StringVar(fl.p, fl.name, fl.def, fl.help)
-		}
+	if g.Diameter != "" {
+		gf.diameter = LengthVar(f, &gf.d, "diameter", g.Diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
+	}
+	if g.Radius != "" {
+		gf.radius = LengthVar(f, &gf.r, "radius", g.Radius, cavity.MinSize, cavity.MaxSize)
+	}
+	if g.Length != "" {
+		gf.length = LengthVar(f, &gf.l, "length", g.Length, cavity.MinSize, cavity.MaxSize)
+	}
+	if g.Fill != "" {
+		f.StringVar(&gf.fill, "fill", g.FillDefault, g.Fill)
 	}
 	if g.CobraChecks {
 		cmd.MarkFlagsMutuallyExclusive("diameter", "radius")
@@ -105,30 +106,23 @@ func (gf *GeometryFlags) Changed(name string) bool { return gf.flags.Changed(nam
 // Text returns the value of the geometry flag name as given ("" for a flag
 // that is not one of them), for error messages that quote it.
 func (gf *GeometryFlags) Text(name string) string {
-	switch name {
-	case "diameter":
-		return gf.diameter
-	case "radius":
-		return gf.radius
-	case "length":
-		return gf.length
-	case "fill":
+	q := map[string]*Quantity{"diameter": gf.diameter, "radius": gf.radius, "length": gf.length}[name]
+	switch {
+	case name == "fill":
 		return gf.fill
+	case q != nil:
+		return q.Text()
 	}
 	return ""
 }
 
 // Diameter returns --diameter in metres, between 2 cavity.MinSize and
 // 2 cavity.MaxSize.
-func (gf *GeometryFlags) Diameter() (float64, error) {
-	return Length("diameter", gf.diameter, 2*cavity.MinSize, 2*cavity.MaxSize)
-}
+func (gf *GeometryFlags) Diameter() (float64, error) { return gf.d, nil }
 
 // Length returns --length in metres, between cavity.MinSize and
 // cavity.MaxSize.
-func (gf *GeometryFlags) Length() (float64, error) {
-	return Length("length", gf.length, cavity.MinSize, cavity.MaxSize)
-}
+func (gf *GeometryFlags) Length() (float64, error) { return gf.l, nil }
 
 // Radius returns the cavity radius in metres: half of --diameter (see
 // Diameter) or --radius, between cavity.MinSize and cavity.MaxSize. Exactly
@@ -142,7 +136,7 @@ func (gf *GeometryFlags) Radius() (float64, error) {
 		d, err := gf.Diameter()
 		return d / 2, err
 	case set("radius"):
-		return Length("radius", gf.radius, cavity.MinSize, cavity.MaxSize)
+		return gf.r, nil
 	}
 	return 0, gf.geo.SizeErrors.noSize()
 }

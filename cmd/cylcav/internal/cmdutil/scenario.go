@@ -21,12 +21,16 @@ type ScenarioFlags struct {
 	geo   *GeometryFlags
 	names map[string]bool
 
-	mode, freq, wall, ratioRange, objective, minClear, minQ      string
-	maxD, maxL, tuning, temp, alphaSide, alphaAxial, tol, tolLen string
-	tolDist, operating, machining                                string
-	samples                                                      int
-	seed                                                         uint64
-	countDeg                                                     bool
+	wall, objective                          string
+	temp, alphaSide, alphaAxial, tol, tolLen string
+	tolDist, operating, machining            string
+	mode                                     cavity.Mode
+	freq, maxD, maxL, tuning, minClear, minQ float64
+	ratioLo, ratioHi                         float64
+	maxDText, tuningText                     func() string
+	samples                                  int
+	seed                                     uint64
+	countDeg                                 bool
 }
 
 // AddScenarioFlags defines the design-request flags on cmd.
@@ -35,19 +39,20 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	sf := &ScenarioFlags{flags: f, names: map[string]bool{}}
 	before := map[string]bool{}
 	f.VisitAll(func(fl *pflag.Flag) { before[fl.Name] = true })
-	f.StringVar(&sf.mode, "mode", "", "wanted mode, e.g. TE011")
-	f.StringVar(&sf.freq, "freq", "", "wanted frequency, e.g. 10GHz")
+	ModeVar(f, &sf.mode, "mode", "wanted mode, e.g. TE011")
+	FrequencyVar(f, &sf.freq, "freq", "wanted frequency, e.g. 10GHz", 1e3, 1e15)
 	sf.geo = AddGeometryFlags(cmd, Geometry{
 		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
 	})
 	f.StringVar(&sf.wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
-	f.StringVar(&sf.ratioRange, "ratio-range", "0.5:3", "allowed D/L range LO:HI")
+	NumberRangeVar(f, &sf.ratioLo, &sf.ratioHi, "ratio-range", "allowed D/L range LO:HI", cavity.MinDesignRatio, cavity.MaxDesignRatio)
+	SetDefault(f, "ratio-range", "0.5:3")
 	f.StringVar(&sf.objective, "objective", "clearance", "what to maximise: clearance|q")
-	f.StringVar(&sf.minClear, "min-clearance", "", "least clearance, e.g. 3% (required with --objective q)")
-	f.StringVar(&sf.minQ, "min-q", "", "least unloaded Q0 (needs --wall)")
-	f.StringVar(&sf.maxD, "max-diameter", "", "largest allowed inside diameter")
-	f.StringVar(&sf.maxL, "max-length", "", "largest allowed inside length (at the longest tuning position)")
-	f.StringVar(&sf.tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
+	FractionVar(f, &sf.minClear, "min-clearance", "least clearance, e.g. 3% (required with --objective q)", 0, 1)
+	NumberVar(f, &sf.minQ, "min-q", "least unloaded Q0 (needs --wall)", 1, 1e12)
+	sf.maxDText = LengthVar(f, &sf.maxD, "max-diameter", "largest allowed inside diameter", cavity.MinSize, cavity.MaxSize).Text
+	LengthVar(f, &sf.maxL, "max-length", "largest allowed inside length (at the longest tuning position)", cavity.MinSize, cavity.MaxSize)
+	sf.tuningText = FractionVar(f, &sf.tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
 	f.StringVar(&sf.temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C or 2K:300K")
 	f.StringVar(&sf.operating, "operating-temp", "", "set-point where the design frequency holds and the walls' Q0 is taken (default: middle of --temp, else 20C)")
 	f.StringVar(&sf.machining, "machining-temp", "", "temperature at which the machining dimensions are given (default 20C)")
@@ -64,6 +69,9 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 			sf.names[fl.Name] = true
 		}
 	})
+	for _, mc := range []string{"samples", "seed", "tolerance-dist"} {
+		Needs(cmd, mc, "tolerance", "tolerance-length")
+	}
 	return sf
 }
 
@@ -92,12 +100,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		return s, Usagef("design needs --mode and --freq (or no flags at all for the demo scenario)")
 	}
 	var err error
-	if sp.Mode, err = cavity.ParseMode(sf.mode); err != nil {
-		return s, FlagError("mode", sf.mode, err)
-	}
-	if sp.Frequency, err = Frequency("freq", sf.freq, 1e3, 1e15); err != nil {
-		return s, err
-	}
+	sp.Mode, sp.Frequency = sf.mode, sf.freq
 	if s.Fill, err = sf.geo.Dielectric(); err != nil {
 		return s, err
 	}
@@ -108,14 +111,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 		s.Wall = &c
 	}
-	lo, hi, err := physics.ParseRange(sf.ratioRange, physics.ParseNumber)
-	if err != nil {
-		return s, FlagError("ratio-range", sf.ratioRange, err)
-	}
-	if !(lo >= cavity.MinDesignRatio && hi <= cavity.MaxDesignRatio) {
-		return s, FlagError("ratio-range", sf.ratioRange, fmt.Errorf("both ends must be between %g and %g", cavity.MinDesignRatio, cavity.MaxDesignRatio))
-	}
-	sp.RatioMin, sp.RatioMax = lo, hi
+	sp.RatioMin, sp.RatioMax = sf.ratioLo, sf.ratioHi
 	switch sf.objective {
 	case "clearance":
 		sp.Objective = cavity.MaxClearance
@@ -124,11 +120,7 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	default:
 		return s, FlagError("objective", sf.objective, fmt.Errorf("unknown objective; use clearance|q"))
 	}
-	if set("min-clearance") {
-		if sp.MinClearance, err = fraction("min-clearance", sf.minClear, 0, 1); err != nil {
-			return s, err
-		}
-	}
+	sp.MinClearance = sf.minClear
 	if sp.Objective == cavity.MaxQ {
 		if s.Wall == nil {
 			return s, Usagef("--objective q needs --wall (the wall metal sets Q0)")
@@ -138,30 +130,19 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 	}
 	if set("min-q") {
-		if sp.MinQ, err = Number("min-q", sf.minQ, 1, 1e12); err != nil {
-			return s, err
-		}
+		sp.MinQ = sf.minQ
 		if s.Wall == nil {
 			return s, Usagef("--min-q needs --wall (the wall metal sets Q0)")
 		}
 	}
+	sp.MaxDiameter, sp.MaxLength, sp.Tuning = sf.maxD, sf.maxL, sf.tuning
 	if set("max-diameter") {
-		if sp.MaxDiameter, err = Length("max-diameter", sf.maxD, cavity.MinSize, cavity.MaxSize); err != nil {
-			return s, err
+		if err := checkCutoff(*sp); err != nil {
+			return s, FlagError("max-diameter", sf.maxDText(), err)
 		}
 	}
-	if set("max-length") {
-		if sp.MaxLength, err = Length("max-length", sf.maxL, cavity.MinSize, cavity.MaxSize); err != nil {
-			return s, err
-		}
-	}
-	if set("tuning") {
-		if sp.Tuning, err = fraction("tuning", sf.tuning, 0, cavity.MaxTuning); err != nil {
-			return s, err
-		}
-		if sp.Tuning > 0 && sp.Mode.EndPlateTuning() != nil {
-			return s, FlagError("tuning", sf.tuning, sp.Mode.EndPlateTuning())
-		}
+	if err := CheckTunable("tuning", sf.tuningText(), sp.Mode, sp.Tuning); err != nil {
+		return s, err
 	}
 	th := &sp.Thermal
 	sideFlag, axialFlag := "wall", "wall"
@@ -254,17 +235,6 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	return s, nil
 }
 
-func fraction(flag, value string, lo, hi float64) (float64, error) {
-	v, err := physics.ParseFraction(value)
-	if err != nil {
-		return 0, FlagError(flag, value, err)
-	}
-	if !(v >= lo && v <= hi) {
-		return 0, FlagError(flag, value, fmt.Errorf("must be between %g%% and %g%%", 100*lo, 100*hi))
-	}
-	return v, nil
-}
-
 func coefficient(flag, value string) (float64, error) {
 	v, err := physics.ParseCoefficient(value)
 	if err != nil {
@@ -303,4 +273,38 @@ func RunScenario(io *IOStreams, s design.Scenario) (design.Result, error) {
 		return r, Usagef("--%s %s: must be below a tenth of the designed dimension, %s", flag, physics.FormatLength(te.Value, 4), physics.FormatLength(te.Max, 4))
 	}
 	return r, err
+}
+
+// checkCutoff tells whether the mode can exist at the design frequency in a
+// diameter of at most sp.MaxDiameter, by the check `cylcav size --diameter`
+// makes (cavity.Size), so that a diameter limit below the mode's cut-off
+// is refused as a value out of range (exit status 2) in every command. A
+// mode with p = 0 has one diameter for the frequency, whatever the length.
+func checkCutoff(sp cavity.DesignSpec) error {
+	if sp.Mode.P > 0 {
+		_, err := cavity.Size(sp.Mode, sp.Frequency, sp.Fill, cavity.ByDiameter(sp.MaxDiameter))
+		if errors.Is(err, cavity.ErrInfeasible) {
+			return err
+		}
+		return nil
+	}
+	c, err := cavity.Size(sp.Mode, sp.Frequency, sp.Fill, cavity.ByRatio(1))
+	if err == nil && c.Diameter() > sp.MaxDiameter {
+		return fmt.Errorf("%s at %s needs a diameter of %s (p = 0: the diameter alone sets the frequency)",
+			sp.Mode, TrimZeros(physics.FormatFrequency(sp.Frequency, 6)), TrimZeros(physics.FormatLength(c.Diameter(), 6)))
+	}
+	return nil
+}
+
+// CheckTunable refuses a tuning range (the flag and its text, the range as
+// a fraction) for a mode that an end plate cannot tune
+// (cavity.Mode.EndPlateTuning, the one verdict), in every command that has
+// a tuning flag.
+func CheckTunable(flag, value string, m cavity.Mode, tuning float64) error {
+	if tuning > 0 {
+		if err := m.EndPlateTuning(); err != nil {
+			return FlagError(flag, value, err)
+		}
+	}
+	return nil
 }

@@ -3,9 +3,6 @@ package cmdutil
 import (
 	"errors"
 	"fmt"
-	"math"
-	"strconv"
-	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -41,6 +38,18 @@ func AddWallFlags(cmd *cobra.Command) *WallFlags {
 	f.StringVar(&w.platingThickness, "plating-thickness", "", "plating thickness, e.g. 5um (required with --plating)")
 	f.BoolVar(&w.superconducting, "superconducting", false, "niobium walls in the superconducting state (BCS model; needs --temperature, e.g. 2K)")
 	f.StringVar(&w.residual, "residual", "", "residual surface resistance with --superconducting, e.g. 10nohm (default 10 nohm)")
+	Needs(cmd, "roughness-model", "roughness")
+	Needs(cmd, "plating-thickness", "plating")
+	Needs(cmd, "residual", "superconducting")
+	for _, name := range []string{"end-wall", "end-wall-a", "end-wall-b", "roughness", "temperature", "plating", "superconducting"} {
+		Needs(cmd, name, "wall")
+		NeedsExample(cmd, name, "--wall copper")
+	}
+	// Niobium is the only superconducting wall modelled.
+	NeedsExample(cmd, "superconducting", "--wall niobium --superconducting --temperature 2K")
+	NeedsExample(cmd, "residual", "--wall niobium --superconducting --temperature 2K")
+	NeedsExample(cmd, "roughness-model", "--roughness 0.4um")
+	NeedsExample(cmd, "plating-thickness", "--plating silver")
 	return w
 }
 
@@ -143,7 +152,7 @@ func (w *WallFlags) common() (qfactor.Surface, error) {
 		}
 		bcs := qfactor.NiobiumBCS()
 		if w.set("residual") {
-			r, err := parseOhm(w.residual)
+			r, err := physics.ParseResistance(w.residual)
 			if err != nil {
 				return s, FlagError("residual", w.residual, err)
 			}
@@ -184,25 +193,4 @@ func (w *WallFlags) blame(err error, specs [3]wallSpec) error {
 		flag, value = specs[we.Part].flag, specs[we.Part].value
 	}
 	return FlagError(flag, value, we)
-}
-
-// parseOhm parses a resistance with an optional unit ohm, mohm, uohm or
-// nohm ("10nohm", "1e-8", "0.02 mohm").
-func parseOhm(s string) (float64, error) {
-	t := strings.ToLower(strings.TrimSpace(s))
-	scale := 1.0
-	for _, u := range []struct {
-		suffix string
-		f      float64
-	}{{"nohm", 1e-9}, {"uohm", 1e-6}, {"mohm", 1e-3}, {"ohm", 1}} {
-		if strings.HasSuffix(t, u.suffix) {
-			t, scale = strings.TrimSpace(strings.TrimSuffix(t, u.suffix)), u.f
-			break
-		}
-	}
-	v, err := strconv.ParseFloat(t, 64)
-	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0, fmt.Errorf("not a resistance; write e.g. 10nohm, 0.02mohm or 1e-8 (ohm)")
-	}
-	return v * scale, nil
 }

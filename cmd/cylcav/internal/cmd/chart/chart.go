@@ -8,7 +8,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"strconv"
 	"strings"
 
@@ -36,6 +35,10 @@ type Options struct {
 	Format  figure.Format
 	Page    figure.Page
 	Force   bool
+
+	// MinFDText and MaxFDText are --min-fd and --max-fd as given ("" when
+	// absent), for error messages.
+	MinFDText, MaxFDText string
 }
 
 // NewCmdChart returns `cylcav chart`. runF, if not nil, replaces the
@@ -43,11 +46,13 @@ type Options struct {
 func NewCmdChart(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var (
-		mode, freq, ratio, ratioRange                          string
-		maxFD, minFD, units, axes, tuning, tol, tolLen, minClr string
-		width, height                                          string
-		dpi                                                    int
-		geo                                                    *cmdutil.GeometryFlags
+		mode, freq, ratio, ratioRange string
+		maxFD, minFD, units, axes     string
+		tol, tolLen                   float64
+		tuningText                    func() string
+		width, height                 string
+		dpi                           int
+		geo                           *cmdutil.GeometryFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "chart (--diameter D --length L | --mode MODE --freq F --ratio R) -o FILE [flags]",
@@ -130,6 +135,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					return err
 				}
 				s.MaxFD = v * u
+				opts.MaxFDText = maxFD
 			}
 			if fl.Changed("min-fd") {
 				v, err := cmdutil.Number("min-fd", minFD, 0, 1e12)
@@ -137,38 +143,25 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					return err
 				}
 				s.MinFD = v * u
+				opts.MinFDText = minFD
 			}
-			if fl.Changed("tuning") {
-				if s.Tuning, err = fraction("tuning", tuning, 0, 0.5); err != nil {
-					return err
-				}
-				if s.Tuning > 0 {
-					if err := s.Wanted.EndPlateTuning(); err != nil {
-						return cmdutil.FlagError("tuning", tuning, err)
-					}
-				}
-			}
-			if fl.Changed("min-clearance") {
-				if s.Clearance, err = fraction("min-clearance", minClr, 0, 0.99); err != nil {
-					return err
-				}
+			if err := cmdutil.CheckTunable("tuning", tuningText(), s.Wanted, s.Tuning); err != nil {
+				return err
 			}
 			if fl.Changed("tolerance") {
-				if s.DiameterTol, err = cmdutil.Length("tolerance", tol, 0, 1); err != nil {
-					return err
-				}
-				s.LengthTol = s.DiameterTol
+				s.DiameterTol, s.LengthTol = tol, tol
 			}
 			if fl.Changed("tolerance-length") {
-				if s.LengthTol, err = cmdutil.Length("tolerance-length", tolLen, 0, 1); err != nil {
-					return err
-				}
+				s.LengthTol = tolLen
 			}
 			if opts.Output == "" {
 				return cmdutil.Usagef("missing -o/--output, the image file to write (.png, .svg or .pdf)")
 			}
 			if opts.Format, err = figure.FormatOf(opts.Output); err != nil {
 				return cmdutil.FlagError("output", opts.Output, errors.New("the file name must end in .png, .svg or .pdf"))
+			}
+			if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "output", Path: opts.Output}); err != nil {
+				return err
 			}
 			if dpi < figure.MinDPI || dpi > figure.MaxDPI {
 				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
@@ -205,10 +198,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.StringVar(&minFD, "min-fd", "", "bottom of the chart as f·D in --units (default 0)")
 	f.StringVar(&units, "units", "ghz-cm", "unit of f·D: ghz-cm|ghz-mm|mhz-in")
 	f.StringVar(&axes, "axes", "squared", "axes: squared ((f·D)² vs (D/L)², straight lines) | linear (f·D vs D/L)")
-	f.StringVar(&tuning, "tuning", "", "tuning range by one end plate, e.g. 2% for +-2 %")
-	f.StringVar(&tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
-	f.StringVar(&tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
-	f.StringVar(&minClr, "min-clearance", "", "required clearance, e.g. 3%: modes this close to the wanted one on the reachable set are emphasised")
+	tuningText = cmdutil.FractionVar(f, &opts.Spec.Tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
+	cmdutil.LengthVar(f, &tol, "tolerance", "machining tolerance +-t of diameter and length, e.g. 0.02mm", 0, 1)
+	cmdutil.LengthVar(f, &tolLen, "tolerance-length", "machining tolerance of the length if different from --tolerance", 0, 1)
+	cmdutil.FractionVar(f, &opts.Spec.Clearance, "min-clearance", "required clearance, e.g. 3%: modes this close to the wanted one on the reachable set are emphasised", 0, 0.99)
 	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
 	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
 	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
@@ -304,20 +297,9 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium,
 func inches(l vg.Length) float64 { return float64(l/vg.Inch) * 0.0254 }
 
 func plain(s string) (float64, error) {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q is not a number", s)
-	}
-	return v, nil
-}
-
-func fraction(flag, value string, lo, hi float64) (float64, error) {
-	v, err := physics.ParseFraction(value)
+	v, err := physics.ParseNumber(s)
 	if err != nil {
-		return 0, cmdutil.FlagError(flag, value, err)
-	}
-	if !(v >= lo && v < hi) {
-		return 0, cmdutil.FlagError(flag, value, fmt.Errorf("must be at least %g %% and below %g %%", 100*lo, 100*hi))
+		return 0, fmt.Errorf("%q is not a number", s)
 	}
 	return v, nil
 }
@@ -326,19 +308,42 @@ func runChart(opts *Options) error {
 	ch, err := modechart.New(opts.Spec)
 	if err != nil {
 		// Every chart error is a consequence of the flags.
-		return cmdutil.Usagef("%v", err)
+		return rangeError(opts, err, true)
 	}
 	fig, err := ch.Figure(figure.DefaultTheme())
 	if err != nil {
+		return rangeError(opts, err, false)
+	}
+	var b bytes.Buffer
+	if err := figure.Render(&b, fig, opts.Format, opts.Page); err != nil {
 		return err
 	}
-	err = cmdutil.RenderFile(opts.Output, opts.Force, func(b *bytes.Buffer) error {
-		return figure.Render(b, fig, opts.Format, opts.Page)
-	})
-	if err != nil {
+	if err := cmdutil.WriteFiles(opts.Force, cmdutil.File{Flag: "output", Path: opts.Output, Data: b.Bytes()}); err != nil {
 		return err
 	}
 	return summary(opts.IO.Out, opts, ch)
+}
+
+// rangeError turns a modechart.RangeError into a usage error naming the
+// flag that moves that end of the chart (--min-fd or --max-fd); any other
+// error of New (fromNew) is a usage error as it is, and of Figure a
+// failure.
+func rangeError(opts *Options, err error, fromNew bool) error {
+	var re *modechart.RangeError
+	if !errors.As(err, &re) {
+		if fromNew {
+			return cmdutil.Usagef("%v", err)
+		}
+		return err
+	}
+	flag, text := "max-fd", opts.MaxFDText
+	if re.Edge == modechart.Bottom {
+		flag, text = "min-fd", opts.MinFDText
+	}
+	if text == "" {
+		return cmdutil.Usagef("%s (give --%s in %s)", re.Msg, flag, opts.Spec.Units)
+	}
+	return cmdutil.FlagError(flag, text, errors.New(re.Msg))
 }
 
 // summary prints what was drawn: the file, the design and the spurious

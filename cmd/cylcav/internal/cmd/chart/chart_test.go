@@ -10,6 +10,8 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/spf13/cobra"
+
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/chart"
 	"cylcav/cmd/cylcav/internal/cmdutil"
@@ -30,6 +32,10 @@ func parse(t *testing.T, args ...string) (*chart.Options, error) {
 	cmd.SetArgs(args)
 	cmd.SetOut(&out)
 	cmd.SetErr(&errOut)
+	// As root.Main does: a typed flag's own error is a usage error.
+	cmd.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
+		return &cmdutil.UsageError{Err: cmdutil.FlagValueError(err)}
+	})
 	err := cmd.Execute()
 	return got, err
 }

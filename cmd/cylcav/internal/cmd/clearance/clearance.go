@@ -29,7 +29,7 @@ type Options struct {
 // the run step (for tests of flag parsing).
 func NewCmdClearance(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var mode, window string
+	var window string
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -56,9 +56,6 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			var err error
-			if opts.Mode, err = parseMode(mode); err != nil {
-				return err
-			}
 			if opts.Cavity, err = geo.Cavity(); err != nil {
 				return err
 			}
@@ -76,7 +73,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		},
 	}
 	f := cmd.Flags()
-	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (required)")
+	cmdutil.ModeVar(f, &opts.Mode, "mode", "wanted mode, e.g. TE011 (required)")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter:    "inside diameter, e.g. 40mm",
 		Radius:      "inside radius (instead of --diameter)",
@@ -91,19 +88,11 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	return cmd
 }
 
-func parseMode(s string) (cavity.Mode, error) {
-	m, err := cavity.ParseMode(s)
-	if err != nil {
-		return cavity.Mode{}, cmdutil.FlagError("mode", s, err)
-	}
-	return m, nil
-}
-
 // parseWindow reads a window given as a percentage (or fraction) or as a
 // frequency (anything ending in Hz).
 func parseWindow(s string, o *cavity.ClearanceOptions) error {
 	if strings.HasSuffix(strings.ToLower(strings.TrimSpace(s)), "hz") {
-		v, err := physics.ParseFrequency(s)
+		v, err := cmdutil.FrequencyOf(s)
 		if err != nil {
 			return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz: %w", err))
 		}

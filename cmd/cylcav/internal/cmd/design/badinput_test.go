@@ -53,7 +53,7 @@ func TestBadInputMain(t *testing.T) {
 		// Impossible requests: status 1 and what was achievable
 		// (7.364 % at D/L = 1.388: testdata/cavity/gen_optimum.py).
 		{Args: with("--min-clearance", "50%"), Code: 1, Want: []string{"best clearance", "7.364 %"}},
-		{Args: with("--max-diameter", "10mm"), Code: 1, Want: []string{"cutoff diameter"}},
+		{Args: with("--max-diameter", "10mm"), Code: 2, Want: []string{`--max-diameter "10mm"`, "cut off", "must exceed 36.5648 mm"}},
 		{Args: with("--tuning", "45%"), Code: 1, Want: []string{"tuning", "D/L >="}},
 		// Beyond the reach of the mode chart (cavity.MaxChartModes).
 		{Args: []string{"--mode", "TE(50,50,50)", "--freq", "10GHz"}, Code: 1, Want: []string{"lower-order mode"}},

@@ -68,7 +68,7 @@ func TestDesignJSON(t *testing.T) {
 // JSON "limit" (here --min-clearance, which --objective q keeps at 5 %).
 func TestDesignLimit(t *testing.T) {
 	r := clitest.Run(t, "design", "--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--objective", "q",
-		"--min-clearance", "5%", "--samples", "100", "--format", "json")
+		"--min-clearance", "5%", "--format", "json")
 	if r.Code != 0 {
 		t.Fatalf("exit %d, stderr %q", r.Code, r.Stderr)
 	}

@@ -204,6 +204,10 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.IntVar(&opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints))
 	f.IntVar(&opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch")
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
+	cmdutil.Needs(cmd, "points", "touchstone")
+	cmdutil.Needs(cmd, "dpi", "plot")
+	cmdutil.Needs(cmd, "force", "touchstone", "plot")
+	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
 		if err := cmdutil.RejectEmptyFlags(c); err != nil {
@@ -320,8 +324,16 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 	return nil
 }
 
+// minFBW is the least fractional bandwidth bw/f0 that --bw accepts. Below
+// about 1e-6 the band edges f0 -+ bw/2 differ from f0 in the last few of
+// the 16 significant digits of a float64, and the lossless response
+// computed at them loses its ripple (a 3-pole design at 10 GHz with
+// bw = 10 Hz reports its own ripple as not met); 1e-5 keeps four digits in
+// hand. No cavity filter comes near it: Q0 would have to exceed 1e5 / N.
+const minFBW = 1e-5
+
 // parseBandwidth parses --bw as a frequency or as a percentage of f0 and
-// checks 0 < bw < f0.
+// checks minFBW f0 <= bw < f0.
 func parseBandwidth(v string, f0 float64) (float64, error) {
 	t := strings.TrimSpace(v)
 	var bw float64
@@ -333,12 +345,13 @@ func parseBandwidth(v string, f0 float64) (float64, error) {
 		bw = frac * f0
 	} else {
 		var err error
-		if bw, err = physics.ParseFrequency(t); err != nil {
-			return 0, cmdutil.FlagError("bw", v, err)
+		if bw, err = cmdutil.ParseFrequency("bw", t); err != nil {
+			return 0, err
 		}
 	}
-	if !(bw > 0 && bw < f0) {
-		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("the bandwidth must be > 0 and below the centre frequency --f0 %s", physics.FormatFrequency(f0, 6)))
+	if !(bw/f0 >= minFBW && bw < f0) { // bw/f0 is correctly rounded: 100 kHz at 10 GHz is exactly minFBW
+		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("must be between %s (%g %% of --f0) and the centre frequency --f0 %s",
+			cmdutil.TrimZeros(physics.FormatFrequency(minFBW*f0, 4)), minFBW*100, cmdutil.TrimZeros(physics.FormatFrequency(f0, 6))))
 	}
 	return bw, nil
 }
@@ -357,7 +370,7 @@ func parseRejection(item string, f0, bw float64, band string) (bandpass.Rejectio
 	if !(att > 0 && att <= maxAttenuation) {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("attenuation must be > 0 dB and <= %g dB", maxAttenuation))
 	}
-	f, err := physics.ParseFrequency(fr)
+	f, err := cmdutil.FrequencyOf(fr)
 	if err != nil {
 		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, err)
 	}
@@ -480,7 +493,7 @@ func wallHint(changed func(string) bool) string {
 func (opts *Options) parseOutput(spanS string) error {
 	t := strings.TrimSpace(spanS)
 	t = strings.TrimSuffix(strings.TrimSuffix(t, "x"), "X")
-	v, err := strconv.ParseFloat(strings.TrimSpace(t), 64)
+	v, err := physics.ParseNumber(t)
 	if err != nil || !(v > 1 && v <= bandpass.MaxSpan) {
 		return cmdutil.FlagError("span", spanS, fmt.Errorf("want a number of bandwidths above 1 and at most %g, e.g. 3x", bandpass.MaxSpan))
 	}
@@ -504,5 +517,12 @@ func (opts *Options) parseOutput(spanS string) error {
 	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
 		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)
 	}
-	return nil
+	var files []cmdutil.File
+	if opts.Touchstone != "" {
+		files = append(files, cmdutil.File{Flag: "touchstone", Path: opts.Touchstone})
+	}
+	if opts.Plot != "" {
+		files = append(files, cmdutil.File{Flag: "plot", Path: opts.Plot})
+	}
+	return cmdutil.CheckFiles(opts.Force, files...)
 }

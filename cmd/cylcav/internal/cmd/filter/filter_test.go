@@ -494,10 +494,11 @@ func TestForce(t *testing.T) {
 	if _, err := os.Stat(ts); err != nil {
 		t.Errorf("--force run did not write the Touchstone file: %v", err)
 	}
-	// A write that fails after the first file leaves nothing behind.
+	// A second path that cannot be written leaves nothing behind; a
+	// missing directory is bad input, refused before anything is written.
 	ts2 := filepath.Join(dir, "second.s2p")
-	if r := run(t, args("--touchstone", ts2, "--plot", filepath.Join(dir, "missing", "p.svg"))...); r.Code != 1 {
-		t.Errorf("plot into a missing directory: exit %d, want 1", r.Code)
+	if r := run(t, args("--touchstone", ts2, "--plot", filepath.Join(dir, "missing", "p.svg"))...); r.Code != 2 {
+		t.Errorf("plot into a missing directory: exit %d, want 2", r.Code)
 	}
 	if _, err := os.Stat(ts2); err == nil {
 		t.Error("the Touchstone file was left behind after the plot failed")

@@ -4,9 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io/fs"
 	"math"
-	"os"
 	"slices"
 	"strings"
 
@@ -278,41 +276,18 @@ func (r *Result) buildPlot() error {
 // file behind; a failure of the second write removes the first file when
 // it did not exist before.
 func (r *Result) writeFiles() error {
-	type file struct {
-		path string
-		data []byte
-	}
-	var files []file
+	var files []cmdutil.File
 	if r.Opts.Touchstone != "" {
-		files = append(files, file{r.Opts.Touchstone, r.touchstone})
+		files = append(files, cmdutil.File{Flag: "touchstone", Path: r.Opts.Touchstone, Data: r.touchstone})
 	}
 	if r.Opts.Plot != "" {
-		files = append(files, file{r.Opts.Plot, r.plot})
+		files = append(files, cmdutil.File{Flag: "plot", Path: r.Opts.Plot, Data: r.plot})
 	}
-	existed := make([]bool, len(files))
-	for i, f := range files {
-		_, err := os.Stat(f.path)
-		switch {
-		case err == nil:
-			existed[i] = true
-			if !r.Opts.Force {
-				return cmdutil.Usagef("%s already exists; pass --force to overwrite it", f.path)
-			}
-		case !errors.Is(err, fs.ErrNotExist):
-			return err
-		}
+	if err := cmdutil.WriteFiles(r.Opts.Force, files...); err != nil {
+		return err
 	}
-	for i, f := range files {
-		if err := cmdutil.WriteFileAtomic(f.path, f.data, r.Opts.Force); err != nil {
-			for j := 0; j < i; j++ {
-				if !existed[j] {
-					os.Remove(files[j].path)
-				}
-			}
-			r.Written = nil
-			return err
-		}
-		r.Written = append(r.Written, f.path)
+	for _, f := range files {
+		r.Written = append(r.Written, f.Path)
 	}
 	return nil
 }

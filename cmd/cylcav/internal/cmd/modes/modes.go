@@ -3,9 +3,7 @@
 package modes
 
 import (
-	"bytes"
 	"fmt"
-	"io"
 	"strconv"
 	"strings"
 
@@ -53,7 +51,7 @@ type Options struct {
 // command's work (tests use it to inspect the parsed options).
 func NewCmdModes(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var fmax string
+	var fmax *cmdutil.Quantity
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
@@ -73,7 +71,7 @@ modes tied exactly with the last one are listed too.
 
 --fill takes a material name (ptfe, alumina, ...) or values
 eps=2.08[,mu=1]; the default is vacuum. Lengths take m, cm, mm, um, in or
-mil; frequencies Hz, kHz, MHz or GHz; plain numbers are SI. Table output
+mil; frequencies Hz, kHz, MHz or GHz; a bare number needs a unit. Table output
 uses friendly units, frequencies to --digits significant digits (default
 5); JSON and CSV use hertz and metres at full precision.
 
@@ -108,10 +106,7 @@ detail.`, DefaultCount),
 			case fl.Changed("fmax") && fl.Changed("count"):
 				return cmdutil.Usagef("--fmax and --count both given; give one of them")
 			case fl.Changed("fmax"):
-				if opts.FMax, err = cmdutil.Frequency("fmax", fmax, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
-					return err
-				}
-				opts.FMaxText = fmax
+				opts.FMaxText = fmax.Text()
 			case fl.Changed("count"):
 				if opts.Count < 1 || opts.Count > cavity.MaxModes {
 					return cmdutil.FlagError("count", strconv.Itoa(opts.Count), fmt.Errorf("must be between 1 and %d", cavity.MaxModes))
@@ -146,7 +141,7 @@ detail.`, DefaultCount),
 		},
 	})
 	fl := cmd.Flags()
-	fl.StringVar(&fmax, "fmax", "", "list every mode at or below this frequency (e.g. 12GHz)")
+	fmax = cmdutil.FrequencyVar(fl, &opts.FMax, "fmax", "list every mode at or below this frequency (e.g. 12GHz)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
 	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
 	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
 	walls = cmdutil.AddWallFlags(cmd)
@@ -164,7 +159,7 @@ func runModes(opts *Options) error {
 		list, err = opts.Cavity.Modes(opts.FMax)
 		what = "every mode up to " + cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6))
 		if err != nil {
-			return cmdutil.FlagError("fmax", opts.FMaxText, err)
+			return cmdutil.FlagError("fmax", opts.FMaxText, fmt.Errorf("%w; give a lower --fmax", err))
 		}
 	} else {
 		list, err = opts.Cavity.Lowest(opts.Count)
@@ -173,20 +168,10 @@ func runModes(opts *Options) error {
 			what += fmt.Sprintf(" and %d tied with the last", len(list)-opts.Count)
 		}
 		if err != nil {
-			return cmdutil.FlagError("count", strconv.Itoa(opts.Count), err)
+			return cmdutil.FlagError("count", strconv.Itoa(opts.Count), fmt.Errorf("%w; give a smaller --count", err))
 		}
 	}
-	rows := Rows(list)
-	if err := addQ(opts, list, rows); err != nil {
-		return err
-	}
-	switch opts.Format {
-	case cmdutil.JSON:
-		return writeJSON(opts.IO.Out, opts.Cavity, rows)
-	case cmdutil.CSV:
-		return writeCSV(opts.IO.Out, rows)
-	}
-	return writeTable(opts.IO.Out, opts, rows, what)
+	return write(opts, list, what)
 }
 
 // Row is one mode as printed. JSON keys and CSV headers are the snake_case
@@ -209,23 +194,29 @@ type Row struct {
 	Q0    *QValue `json:"q0,omitempty"`
 }
 
-// Rows converts resonances to output rows in the same order.
-// DegenerateWith lists the modes that share the frequency exactly in every
-// cylinder (TE0mp with TM1mp); it is empty, never nil, otherwise.
+// Rows converts resonances to output rows in the same order (see RowOf).
 func Rows(list []cavity.Resonance) []Row {
 	rows := make([]Row, len(list))
 	for i, r := range list {
-		rows[i] = Row{
-			Mode: r.Mode.String(), Family: r.Mode.Family.String(),
-			N: r.Mode.N, M: r.Mode.M, P: r.Mode.P,
-			FHz: r.Frequency, Degeneracy: r.Degeneracy(),
-			DegenerateWith: []string{},
-		}
-		if c, ok := r.Companion(); ok {
-			rows[i].DegenerateWith = append(rows[i].DegenerateWith, c.String())
-		}
+		rows[i] = RowOf(r)
 	}
 	return rows
+}
+
+// RowOf converts one resonance to its output row. DegenerateWith lists the
+// modes that share the frequency exactly in every cylinder (TE0mp with
+// TM1mp); it is empty, never nil, otherwise.
+func RowOf(r cavity.Resonance) Row {
+	row := Row{
+		Mode: r.Mode.String(), Family: r.Mode.Family.String(),
+		N: r.Mode.N, M: r.Mode.M, P: r.Mode.P,
+		FHz: r.Frequency, Degeneracy: r.Degeneracy(),
+		DegenerateWith: []string{},
+	}
+	if c, ok := r.Companion(); ok {
+		row.DegenerateWith = append(row.DegenerateWith, c.String())
+	}
+	return row
 }
 
 // column is one output column: its CSV header (equal to the JSON key), its
@@ -260,37 +251,12 @@ func Header() []string {
 	return h
 }
 
-func writeCSV(w io.Writer, rows []Row) error {
-	recs := make([][]string, len(rows))
-	cols := columnsFor(rows)
-	for i, r := range rows {
-		rec := make([]string, len(cols))
-		for j, c := range cols {
-			rec[j] = c.csv(r)
-		}
-		recs[i] = rec
-	}
-	return cmdutil.WriteCSV(w, headerFor(rows), recs)
-}
-
 // cavityJSON is the "cavity" object of the JSON output.
 type cavityJSON struct {
 	RadiusM float64 `json:"radius_m"`
 	LengthM float64 `json:"length_m"`
 	EpsR    float64 `json:"eps_r"`
 	MuR     float64 `json:"mu_r"`
-}
-
-func writeJSON(w io.Writer, c cavity.Cavity, rows []Row) error {
-	return cmdutil.WriteJSON(w, struct {
-		Cavity          cavityJSON `json:"cavity"`
-		IndexConvention string     `json:"index_convention"`
-		Modes           []Row      `json:"modes"`
-	}{
-		Cavity:          cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: c.Fill.Eps(), MuR: c.Fill.Mu()},
-		IndexConvention: "n azimuthal, m radial, p axial",
-		Modes:           rows,
-	})
 }
 
 // DescribeCavity returns the one-line description of a cavity used in
@@ -308,51 +274,3 @@ func DescribeCavity(c cavity.Cavity) string {
 }
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
-
-func writeTable(w io.Writer, opts *Options, rows []Row, what string) error {
-	if _, err := fmt.Fprintf(w, "cavity: %s\nmodes TE_nmp / TM_nmp: n azimuthal, m radial, p axial; %s\n",
-		DescribeCavity(opts.Cavity), what); err != nil {
-		return err
-	}
-	if len(rows) == 0 {
-		_, err := fmt.Fprintln(w, "no mode at or below the limit")
-		return err
-	}
-	titles := []string{"#"}
-	cols := columnsFor(rows)
-	for _, c := range cols {
-		titles = append(titles, c.title)
-	}
-	var buf bytes.Buffer
-	t := cmdutil.NewTable(&buf, titles...)
-	for i, r := range rows {
-		cells := []string{strconv.Itoa(i + 1)}
-		for _, c := range cols {
-			switch {
-			case c.key == "f_hz":
-				cells = append(cells, physics.FormatFrequency(r.FHz, opts.Digits))
-			case c.table != nil:
-				cells = append(cells, c.table(r))
-			default:
-				cells = append(cells, c.csv(r))
-			}
-		}
-		t.Row(cells...)
-	}
-	if err := t.Flush(); err != nil {
-		return err
-	}
-	return writeTrimmed(w, buf.Bytes())
-}
-
-// writeTrimmed writes text with the trailing blanks of each line removed
-// (the aligner pads cells before an empty last column).
-func writeTrimmed(w io.Writer, text []byte) error {
-	var out bytes.Buffer
-	for line := range bytes.Lines(text) {
-		out.Write(bytes.TrimRight(line, " \n"))
-		out.WriteByte('\n')
-	}
-	_, err := w.Write(out.Bytes())
-	return err
-}

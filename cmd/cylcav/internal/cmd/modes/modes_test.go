@@ -216,7 +216,7 @@ func TestModesBadInput(t *testing.T) {
 		{Args: []string{"--radius", "Inf", "--length", "50mm"}, Code: 2, Want: []string{`--radius "Inf"`}},
 		{Args: []string{"--diameter", "50km", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "50km"`}},
 		{Args: []string{"--diameter", "50furlong", "--length", "50mm"}, Code: 2, Want: []string{`--diameter "50furlong"`, "unit"}},
-		{Args: []string{"--diameter", "50mm", "--length", "1e9"}, Code: 2, Want: []string{`--length "1e9"`, "must be between"}},
+		{Args: []string{"--diameter", "50mm", "--length", "1e9m"}, Code: 2, Want: []string{`--length "1e9m"`, "must be between"}},
 		{Args: []string{"--diameter", "50mm", "--radius", "25mm", "--length", "50mm"}, Code: 2, Want: []string{"--diameter and --radius"}},
 		{Args: []string{"--length", "50mm"}, Code: 2, Want: []string{"--diameter or --radius"}},
 		{Args: []string{"--diameter", "50mm"}, Code: 2, Want: []string{"missing --length"}},

@@ -76,6 +76,13 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.PDF != "" && !strings.HasSuffix(strings.ToLower(opts.PDF), ".pdf") {
 				return cmdutil.FlagError("pdf", opts.PDF, fmt.Errorf("end the file name in .pdf"))
 			}
+			files := []cmdutil.File{{Flag: "output", Path: opts.Output}}
+			if opts.PDF != "" {
+				files = append(files, cmdutil.File{Flag: "pdf", Path: opts.PDF})
+			}
+			if err := cmdutil.CheckFiles(opts.Force, files...); err != nil {
+				return err
+			}
 			sc, err := scenario.Scenario()
 			if err != nil {
 				return err
@@ -115,15 +122,14 @@ func runReport(opts *Options) error {
 			return err
 		}
 	}
-	// Both files are rendered before either is written, so a failure
-	// leaves neither behind.
-	if err := cmdutil.WriteFileAtomic(opts.Output, html.Bytes(), opts.Force); err != nil {
-		return err
-	}
+	// Both files are rendered before either is written, and WriteFiles
+	// writes both or neither.
+	files := []cmdutil.File{{Flag: "output", Path: opts.Output, Data: html.Bytes()}}
 	if opts.PDF != "" {
-		if err := cmdutil.WriteFileAtomic(opts.PDF, pdf.Bytes(), opts.Force); err != nil {
-			return err
-		}
+		files = append(files, cmdutil.File{Flag: "pdf", Path: opts.PDF, Data: pdf.Bytes()})
+	}
+	if err := cmdutil.WriteFiles(opts.Force, files...); err != nil {
+		return err
 	}
 	what := "design"
 	if opts.Scenario.Title != "" {

@@ -1,10 +1,16 @@
 package root_test
 
 import (
+	"bytes"
+	"os"
+	"path/filepath"
 	"strings"
+	"syscall"
 	"testing"
 
 	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/root"
+	"cylcav/cmd/cylcav/internal/cmdutil"
 )
 
 // cheapCommands are the commands FuzzMain runs: each finishes in
@@ -101,6 +107,149 @@ func TestCompletionNeedsShell(t *testing.T) {
 		}
 		if r.Code != 0 && (r.Stdout != "" || strings.Count(r.Stderr, "\n") != 1) {
 			t.Errorf("cylcav %q: stdout %.80q, stderr %q; want no output and one line", tc.args, r.Stdout, r.Stderr)
+		}
+	}
+}
+
+// TestUnwritableStdout runs commands whose standard output is /dev/full
+// (every write fails with ENOSPC, Linux) and checks that each fails with
+// status 1 and says so: `cylcav design >/dev/full` exited 0 before.
+func TestUnwritableStdout(t *testing.T) {
+	full, err := os.OpenFile("/dev/full", os.O_WRONLY, 0)
+	if err != nil {
+		t.Skip("no /dev/full:", err)
+	}
+	defer full.Close()
+	for _, args := range [][]string{
+		{"design"},
+		{"design", "--format", "json"},
+		{"version"},
+		{"materials"},
+		{"modes", "--diameter", "50mm", "--length", "50mm"},
+		{"size", "--mode", "TE011", "--freq", "5GHz", "--ratio", "1"},
+		{"design", "--help"},
+	} {
+		var errOut bytes.Buffer
+		code := root.Main(cmdutil.Test(full, &errOut), args)
+		if code != 1 || !strings.Contains(errOut.String(), "no space left on device") {
+			t.Errorf("cylcav %s >/dev/full: exit %d, stderr %q; want exit 1 and the write error", strings.Join(args, " "), code, errOut.String())
+		}
+	}
+}
+
+// TestOutputsAllOrNone checks that the commands writing two files write
+// both or neither: a second path that cannot be written (an existing file
+// without --force, a missing directory, a device) is refused with status 2
+// before anything is written, and the first file is not left behind.
+func TestOutputsAllOrNone(t *testing.T) {
+	dir := t.TempDir()
+	existing := filepath.Join(dir, "old.pdf")
+	if err := os.WriteFile(existing, []byte("old"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	fifo := filepath.Join(dir, "pipe.pdf")
+	if err := syscall.Mkfifo(fifo, 0o644); err != nil {
+		t.Skip("mkfifo:", err)
+	}
+	html := filepath.Join(dir, "x.html")
+	s2p := filepath.Join(dir, "f.s2p")
+	filter := []string{"filter", "--f0", "10GHz", "--bw", "100MHz", "--order", "3", "--touchstone", s2p}
+	for _, tc := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"report", "-o", html, "--pdf", existing}, "--pdf"},
+		{[]string{"report", "-o", html, "--pdf", filepath.Join(dir, "nodir", "x.pdf")}, "does not exist"},
+		{[]string{"report", "-o", html, "--pdf", fifo, "--force"}, "not a regular file (a named pipe)"},
+		{append(filter, "--plot", filepath.Join(dir, "nodir", "p.svg")), "--plot"},
+		{append(filter, "--plot", fifo, "--force"), "not a regular file"},
+		{[]string{"chart", "--diameter", "40mm", "--length", "30mm", "-o", filepath.Join(dir, "nodir", "c.svg")}, "--output"},
+	} {
+		r := clitest.Run(t, tc.args...)
+		if r.Code != 2 || !strings.Contains(r.Stderr, tc.want) {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want exit 2 naming %q", strings.Join(tc.args, " "), r.Code, r.Stderr, tc.want)
+		}
+		if es, _ := os.ReadDir(dir); len(es) != 2 {
+			t.Errorf("cylcav %s: left %d files in the directory, want only old.pdf and pipe.pdf", strings.Join(tc.args, " "), len(es))
+		}
+	}
+}
+
+// TestFlagRules checks the rules every command's flags follow
+// (cmdutil.HardenFlags, cmdutil.Needs): integers in decimal digits only
+// (pflag reads "010" as octal 8), a single-valued flag given once, and a
+// flag that needs a companion refused alone, each with status 2 and a
+// message naming the flag(s).
+func TestFlagRules(t *testing.T) {
+	cav := []string{"--diameter", "50mm", "--length", "50mm"}
+	modes := func(a ...string) []string { return append(append([]string{"modes"}, cav...), a...) }
+	flt := []string{"filter", "--f0", "10GHz", "--bw", "100MHz", "--order", "3"}
+	with := func(base []string, a ...string) []string { return append(append([]string{}, base...), a...) }
+	for _, tc := range []struct {
+		args []string
+		want []string
+	}{
+		{modes("--count", "010"), []string{`--count "010"`, "decimal"}},
+		{modes("--count", "0x10"), []string{`--count "0x10"`}},
+		{modes("--count", "0b11"), []string{`--count "0b11"`}},
+		{modes("--count", "1_0"), []string{`--count "1_0"`}},
+		{[]string{"design", "--mode", "TE011", "--freq", "10GHz", "--tolerance", "0.02mm", "--seed", "007"}, []string{`--seed "007"`}},
+		{[]string{"modes", "--diameter", "50mm", "--diameter", "40mm", "--length", "50mm"}, []string{`--diameter "40mm"`, "given twice", `"50mm"`}},
+		{[]string{"size", "--mode", "TE011", "--freq", "5GHz", "--freq", "6GHz", "--ratio", "1"}, []string{"--freq", "given twice"}},
+		{modes("--roughness", "1um"), []string{"--roughness needs --wall"}},
+		{modes("--wall", "copper", "--roughness-model", "groiss"), []string{"--roughness-model needs --roughness"}},
+		{modes("--wall", "copper", "--plating-thickness", "5um"), []string{"--plating-thickness needs --plating"}},
+		{[]string{"q", "--mode", "TE011", "--diameter", "50mm", "--length", "50mm", "--wall", "copper", "--residual", "5nohm"}, []string{"--residual needs --superconducting"}},
+		{[]string{"design", "--mode", "TE011", "--freq", "10GHz", "--samples", "5"}, []string{"--samples needs --tolerance or --tolerance-length"}},
+		{[]string{"report", "-o", "x.html", "--mode", "TE011", "--freq", "10GHz", "--seed", "5"}, []string{"--seed needs --tolerance"}},
+		{with(flt, "--points", "11"), []string{"--points needs --touchstone"}},
+		{with(flt, "--dpi", "100"), []string{"--dpi needs --plot"}},
+		{with(flt, "--force"), []string{"--force needs --touchstone or --plot"}},
+		{with(flt, "--temperature", "2K"), []string{"--temperature needs --wall"}},
+		{[]string{"tune", "--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--at", "1mm,0,1mm"}, []string{"--at needs --sphere"}},
+	} {
+		r := clitest.Run(t, tc.args...)
+		ok := r.Code == 2 && r.Stdout == "" && strings.Count(r.Stderr, "\n") == 1
+		for _, w := range tc.want {
+			ok = ok && strings.Contains(r.Stderr, w)
+		}
+		if !ok {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want exit 2 and one line containing %q", strings.Join(tc.args, " "), r.Code, r.Stderr, tc.want)
+		}
+	}
+}
+
+// TestBareNumbers checks the one rule for bare numbers (cmdutil.ParseLength,
+// cmdutil.ParseFrequency): a length or frequency other than zero needs its
+// unit, refused with status 2 and both readings; zero needs none. It also
+// checks the lower bound of --bw (a fractional bandwidth below 1e-5).
+func TestBareNumbers(t *testing.T) {
+	for _, tc := range []struct {
+		args []string
+		want []string
+	}{
+		{[]string{"modes", "--diameter", "176.5", "--length", "50mm"}, []string{`--diameter "176.5"`, "176.5 m", "did you mean 176.5mm?"}},
+		{[]string{"filter", "--f0", "10GHz", "--bw", "200", "--order", "3"}, []string{`--bw "200"`, "200 Hz", "did you mean 200MHz?"}},
+		{[]string{"size", "--mode", "TE011", "--freq", "10", "--ratio", "1"}, []string{`--freq "10"`, "did you mean 10GHz?"}},
+		{[]string{"size", "--mode", "TE011", "--freq", "10GHz", "--length", "0.03"}, []string{`--length "0.03"`, "30 mm", "write 0.03m"}},
+		{[]string{"filter", "--f0", "10GHz", "--bw", "99kHz", "--order", "3"}, []string{`--bw "99kHz"`, "100 kHz"}},
+		{[]string{"filter", "--f0", "10GHz", "--bw", "0.0009%", "--order", "3"}, []string{`--bw "0.0009%"`, "0.001 %"}},
+	} {
+		r := clitest.Run(t, tc.args...)
+		ok := r.Code == 2 && r.Stdout == "" && strings.Count(r.Stderr, "\n") == 1
+		for _, w := range tc.want {
+			ok = ok && strings.Contains(r.Stderr, w)
+		}
+		if !ok {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want exit 2 and one line containing %q", strings.Join(tc.args, " "), r.Code, r.Stderr, tc.want)
+		}
+	}
+	for _, args := range [][]string{
+		{"design", "--mode", "TE011", "--freq", "10GHz", "--tolerance", "0"},
+		{"filter", "--f0", "10GHz", "--bw", "100kHz", "--order", "3"},
+	} {
+		if r := clitest.Run(t, args...); r.Code != 0 {
+			t.Errorf("cylcav %s: exit %d, stderr %q; want success", strings.Join(args, " "), r.Code, r.Stderr)
 		}
 	}
 }

@@ -3,7 +3,9 @@
 package root
 
 import (
+	"errors"
 	"fmt"
+	"io/fs"
 
 	"github.com/spf13/cobra"
 
@@ -36,13 +38,22 @@ Mode index convention: TE_nmp and TM_nmp with n azimuthal (cos n phi),
 m radial (m-th Bessel zero), p axial (half-wavelengths along the length).
 
 Units: lengths m, cm, mm, um, in, mil; frequencies Hz, kHz, MHz, GHz.
-Plain numbers are SI. JSON and CSV output use SI base units.`,
+A length or frequency other than 0 needs its unit (a bare 176.5 is
+refused with a hint). JSON and CSV output use SI base units.`,
 		SilenceUsage:  true,
 		SilenceErrors: true,
+		// A flag given without the flag it needs is refused before any
+		// command's own checks (cmdutil.Needs).
+		PersistentPreRunE: func(c *cobra.Command, _ []string) error {
+			return cmdutil.CheckNeeds(c)
+		},
 	}
 	cmd.SetOut(io.Out)
 	cmd.SetErr(io.ErrOut)
 	cmd.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
+		if cmdutil.IsValueError(err) {
+			return &cmdutil.UsageError{Err: cmdutil.FlagValueError(err)}
+		}
 		return &cmdutil.UsageError{Err: fmt.Errorf("%w (see '%s --help')", cmdutil.FlagValueError(err), c.CommandPath())}
 	})
 
@@ -59,13 +70,21 @@ Plain numbers are SI. JSON and CSV output use SI base units.`,
 	cmd.AddCommand(report.NewCmdReport(io, nil))
 	cmd.AddCommand(stack.NewCmdStack(io, nil))
 	requireShell(cmd)
+	cmdutil.HardenFlags(cmd)
 	return cmd
 }
 
 // Main runs cylcav with the given arguments and returns the exit status:
 // 0 on success, 2 for bad input, 1 for any other failure.
-func Main(io *cmdutil.IOStreams, args []string) int {
-	cmd := NewCmdRoot(io)
+//
+// Standard output goes through a cmdutil.CheckedWriter: a run whose output
+// could not be written (a full disk, a closed pipe) fails with status 1,
+// whichever command it was.
+func Main(streams *cmdutil.IOStreams, args []string) int {
+	out := cmdutil.NewCheckedWriter(streams.Out)
+	io := *streams
+	io.Out = out
+	cmd := NewCmdRoot(&io)
 	cmd.SetArgs(args)
 	// Cobra reports unknown commands, bad arguments, unknown flags and
 	// missing required flags as plain errors before any command runs; those
@@ -73,11 +92,19 @@ func Main(io *cmdutil.IOStreams, args []string) int {
 	// status, so every RunE is wrapped to record that it started.
 	started := false
 	markStarted(cmd, &started)
-	if err := cmd.Execute(); err != nil {
-		if !started && !cmdutil.IsUsage(err) {
+	err := cmd.Execute()
+	if werr := out.Err(); err == nil && werr != nil {
+		var pe *fs.PathError
+		if errors.As(werr, &pe) {
+			werr = pe.Err
+		}
+		err = fmt.Errorf("writing standard output: %w", werr)
+	}
+	if err != nil {
+		if !started && !cmdutil.IsUsage(err) && out.Err() == nil {
 			err = &cmdutil.UsageError{Err: err}
 		}
-		fmt.Fprintf(io.ErrOut, "cylcav: %v\n", err)
+		fmt.Fprintf(io.ErrOut, "cylcav: %s\n", cmdutil.Message(err))
 		return cmdutil.ExitStatus(err)
 	}
 	return 0

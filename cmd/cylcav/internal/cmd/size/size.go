@@ -35,7 +35,8 @@ type Options struct {
 // command's work (tests use it to inspect the parsed options).
 func NewCmdSize(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var mode, freq, ratio string
+	var freq, ratio *cmdutil.Quantity
+	var r float64 // --ratio
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -73,16 +74,10 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 			if !fl.Changed("mode") {
 				return cmdutil.Usagef("missing --mode, the mode to size (e.g. --mode TE011)")
 			}
-			if opts.Mode, err = cavity.ParseMode(mode); err != nil {
-				return cmdutil.FlagError("mode", mode, err)
-			}
 			if !fl.Changed("freq") {
 				return cmdutil.Usagef("missing --freq, the target resonant frequency (e.g. --freq 5GHz)")
 			}
-			if opts.Frequency, err = cmdutil.Frequency("freq", freq, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
-				return err
-			}
-			opts.FreqText = freq
+			opts.FreqText = freq.Text()
 			var given []string
 			for _, name := range []string{"ratio", "diameter", "length"} {
 				if fl.Changed(name) {
@@ -98,11 +93,7 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 			}
 			switch given[0] {
 			case "--ratio":
-				var r float64
-				if r, err = cmdutil.Number("ratio", ratio, cavity.MinRatio, cavity.MaxRatio); err != nil {
-					return err
-				}
-				opts.By, opts.ByFlag, opts.ByValue = cavity.ByRatio(r), "ratio", ratio
+				opts.By, opts.ByFlag, opts.ByValue = cavity.ByRatio(r), "ratio", ratio.Text()
 			case "--diameter":
 				var d float64
 				if d, err = geo.Diameter(); err != nil {
@@ -129,9 +120,9 @@ eps=2.08[,mu=1]; the default is vacuum.`,
 		},
 	}
 	fl := cmd.Flags()
-	fl.StringVar(&mode, "mode", "", "mode to size: TE011, TM010, TE(12,3,1), ...")
-	fl.StringVar(&freq, "freq", "", "target resonant frequency (e.g. 5GHz)")
-	fl.StringVar(&ratio, "ratio", "", "fix the ratio D/L of diameter to length")
+	cmdutil.ModeVar(fl, &opts.Mode, "mode", "mode to size: TE011, TM010, TE(12,3,1), ...")
+	freq = cmdutil.FrequencyVar(fl, &opts.Frequency, "freq", "target resonant frequency (e.g. 5GHz)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
+	ratio = cmdutil.NumberVar(fl, &r, "ratio", "fix the ratio D/L of diameter to length", cavity.MinRatio, cavity.MaxRatio)
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter: "fix the inner diameter D (e.g. 40mm)",
 		Length:   "fix the inner length L (e.g. 30mm)",

@@ -65,7 +65,7 @@ func TestSizeTableAndCSV(t *testing.T) {
 			t.Errorf("output lacks %q:\n%s", w, out)
 		}
 	}
-	r = clitest.Run(t, "size", "--mode", "TE(1,1,3)", "--freq", "12GHz", "--diameter", "0.04", "--format", "csv")
+	r = clitest.Run(t, "size", "--mode", "TE(1,1,3)", "--freq", "12GHz", "--diameter", "0.04m", "--format", "csv")
 	if r.Code != 0 {
 		t.Fatalf("exit %d", r.Code)
 	}

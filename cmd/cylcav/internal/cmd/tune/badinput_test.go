@@ -12,9 +12,9 @@ func TestBadInputMain(t *testing.T) {
 	with := func(extra ...string) []string { return append(append([]string{}, base...), extra...) }
 	ok := slices.Clip(with("--length-range", "28mm:32mm")) // each append copies
 	clitest.CheckBadInput(t, "tune", []clitest.BadCase{
-		{Args: with("--length-range", "3:0.5"), Code: 2, Want: []string{`--length-range "3:0.5"`, "above high end"}},
+		{Args: with("--length-range", "3mm:0.5mm"), Code: 2, Want: []string{`--length-range "3mm:0.5mm"`, "above high end"}},
 		{Args: with("--length-range", "a:b"), Code: 2, Want: []string{`--length-range "a:b"`, "no number"}},
-		{Args: with("--length-range", "1:"), Code: 2, Want: []string{`--length-range "1:"`, "empty"}},
+		{Args: with("--length-range", "1mm:"), Code: 2, Want: []string{`--length-range "1mm:"`, "empty"}},
 		{Args: with("--length-range", ":2"), Code: 2, Want: []string{`--length-range ":2"`, "empty"}},
 		{Args: with("--length-range", "28mm"), Code: 2, Want: []string{`--length-range "28mm"`, "LO:HI"}},
 		{Args: with("--length-range", "0:30mm"), Code: 2, Want: []string{`--length-range "0:30mm"`, "must be between"}},
@@ -27,7 +27,7 @@ func TestBadInputMain(t *testing.T) {
 		{Args: append(ok, "--steps", "0"), Code: 2, Want: []string{`--steps "0"`, "between 1 and 100000"}},
 		{Args: append(ok, "--steps", "-1"), Code: 2, Want: []string{`--steps "-1"`, "between 1 and 100000"}},
 		{Args: append(ok, "--steps", "1e3"), Code: 2, Want: []string{`--steps "1e3"`, "not a whole number"}},
-		{Args: append(ok, "--sphere", "1mm"), Code: 2, Want: []string{"--sphere and --at"}},
+		{Args: append(ok, "--sphere", "1mm"), Code: 2, Want: []string{"--sphere needs --at"}},
 		{Args: append(ok, "--sphere", "", "--at", "20mm,0,15mm"), Code: 2, Want: []string{`--sphere ""`, "empty"}},
 		{Args: append(ok, "--sphere", "1mm", "--at", ""), Code: 2, Want: []string{`--at ""`, "RHO,PHI,Z"}},
 		{Args: append(ok, "--sphere", "1mm", "--at", "20mm,x,15mm"), Code: 2, Want: []string{`--at "20mm,x,15mm"`, "degrees"}},

@@ -38,7 +38,9 @@ type Options struct {
 // step (for tests of flag parsing).
 func NewCmdTune(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var mode, lrange, sphere, at string
+	var at string
+	var sphere *cmdutil.Quantity
+	var lrangeText, modeText func() string
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -71,25 +73,15 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			var err error
-			if opts.Mode, err = cavity.ParseMode(mode); err != nil {
-				return cmdutil.FlagError("mode", mode, err)
-			}
 			if err := opts.Mode.EndPlateTuning(); err != nil {
-				return cmdutil.FlagError("mode", mode, err)
+				return cmdutil.FlagError("mode", modeText(), err)
 			}
 			if opts.Cavity.Radius, err = geo.Radius(); err != nil {
 				return err
 			}
-			if opts.LMin, opts.LMax, err = physics.ParseRange(lrange, physics.ParseLength); err != nil {
-				return cmdutil.FlagError("length-range", lrange, err)
-			}
-			if !(opts.LMin >= cavity.MinSize && opts.LMax <= cavity.MaxSize) {
-				return cmdutil.FlagError("length-range", lrange, fmt.Errorf("both ends must be between %s and %s",
-					physics.FormatLength(cavity.MinSize, 3), physics.FormatLength(cavity.MaxSize, 3)))
-			}
 			// The mode chart reaches D/L in MinDesignRatio..MaxDesignRatio.
 			if D := opts.Cavity.Diameter(); !(D/opts.LMax >= cavity.MinDesignRatio && D/opts.LMin <= cavity.MaxDesignRatio) {
-				return cmdutil.FlagError("length-range", lrange, fmt.Errorf("with diameter %s both ends must be between %s and %s (D/L %g..%g)",
+				return cmdutil.FlagError("length-range", lrangeText(), fmt.Errorf("with diameter %s both ends must be between %s and %s (D/L %g..%g)",
 					physics.FormatLength(D, 4), physics.FormatLength(D/cavity.MaxDesignRatio, 4), physics.FormatLength(D/cavity.MinDesignRatio, 4),
 					cavity.MinDesignRatio, cavity.MaxDesignRatio))
 			}
@@ -103,18 +95,11 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := opts.Cavity.Validate(); err != nil {
 				return cmdutil.Usagef("%v", err)
 			}
-			fl := cmd.Flags()
-			if fl.Changed("sphere") != fl.Changed("at") {
-				return cmdutil.Usagef("--sphere and --at go together, e.g. --sphere 1mm --at 20mm,0,15mm")
-			}
-			if fl.Changed("sphere") {
-				if opts.SphereRadius, err = cmdutil.Length("sphere", sphere, cavity.MinSize, cavity.MaxSize); err != nil {
-					return err
-				}
+			if cmd.Flags().Changed("sphere") {
 				if opts.SphereAt, err = parsePoint(at); err != nil {
 					return err
 				}
-				opts.SphereText, opts.AtText = sphere, at
+				opts.SphereText, opts.AtText = sphere.Text(), at
 			}
 			if err := checkFormat(); err != nil {
 				return err
@@ -126,18 +111,21 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		},
 	}
 	f := cmd.Flags()
-	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (required)")
+	modeText = cmdutil.ModeVar(f, &opts.Mode, "mode", "wanted mode, e.g. TE011 (required)").Text
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter:    "inside diameter, e.g. 40mm",
 		Radius:      "inside radius (instead of --diameter)",
 		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1 (default vacuum)",
 		CobraChecks: true,
 	})
-	f.StringVar(&lrange, "length-range", "", "end-plate spacing range LO:HI, e.g. 28mm:32mm (required)")
+	lr := cmdutil.LengthRangeVar(f, &opts.LMin, &opts.LMax, "length-range", "end-plate spacing range LO:HI, e.g. 28mm:32mm (required)", cavity.MinSize, cavity.MaxSize)
+	lrangeText = lr.Text
 	f.IntVar(&opts.Steps, "steps", 10, "number of steps between the ends of the range")
 	f.BoolVar(&opts.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
-	f.StringVar(&sphere, "sphere", "", "radius of a small metal sphere or screw tip, e.g. 1mm")
+	sphere = cmdutil.LengthVar(f, &opts.SphereRadius, "sphere", "radius of a small metal sphere or screw tip, e.g. 1mm", cavity.MinSize, cavity.MaxSize)
 	f.StringVar(&at, "at", "", "its centre RHO,PHI,Z (PHI in degrees, Z from end plate A), e.g. 20mm,0,15mm")
+	cmdutil.Needs(cmd, "sphere", "at")
+	cmdutil.Needs(cmd, "at", "sphere")
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.MarkFlagRequired("mode")
 	_ = cmd.MarkFlagRequired("length-range")
@@ -149,17 +137,17 @@ func parsePoint(s string) (cavity.Point, error) {
 	if len(parts) != 3 {
 		return cavity.Point{}, cmdutil.FlagError("at", s, fmt.Errorf("want RHO,PHI,Z such as 20mm,0,15mm"))
 	}
-	rho, err := physics.ParseLength(parts[0])
+	rho, err := cmdutil.ParseLength("at", parts[0])
 	if err != nil {
-		return cavity.Point{}, cmdutil.FlagError("at", s, err)
+		return cavity.Point{}, err
 	}
-	deg, err := strconv.ParseFloat(strings.TrimSuffix(strings.TrimSpace(parts[1]), "deg"), 64)
-	if err != nil || math.IsNaN(deg) || math.IsInf(deg, 0) {
+	deg, err := physics.ParseNumber(strings.TrimSuffix(strings.TrimSpace(parts[1]), "deg"))
+	if err != nil {
 		return cavity.Point{}, cmdutil.FlagError("at", s, fmt.Errorf("PHI %q is not a number of degrees", parts[1]))
 	}
-	z, err := physics.ParseLength(parts[2])
+	z, err := cmdutil.ParseLength("at", parts[2])
 	if err != nil {
-		return cavity.Point{}, cmdutil.FlagError("at", s, err)
+		return cavity.Point{}, err
 	}
 	return cavity.Point{Rho: rho, Phi: deg * math.Pi / 180, Z: z}, nil
 }

@@ -18,7 +18,7 @@ func TestBadInputMain(t *testing.T) {
 		{Args: with("--mode", "TE010"), Code: 2, Want: []string{`--mode "TE010"`, "p >= 1"}},
 		{Args: with("--mode", "TM(1,2)"), Code: 2, Want: []string{`--mode "TM(1,2)"`, "three indices"}},
 		{Args: []string{"--mode", "TE011", "--diameter", "", "--length", "40mm", "--wall", "copper"}, Code: 2, Want: []string{`--diameter ""`, "empty"}},
-		{Args: []string{"--mode", "TE011", "--diameter", "1e9", "--length", "40mm", "--wall", "copper"}, Code: 2, Want: []string{`--diameter "1e9"`, "must be between"}},
+		{Args: []string{"--mode", "TE011", "--diameter", "1e9m", "--length", "40mm", "--wall", "copper"}, Code: 2, Want: []string{`--diameter "1e9m"`, "must be between"}},
 		{Args: []string{"--mode", "TE011", "--radius", "20mm", "--length", "", "--wall", "copper"}, Code: 2, Want: []string{`--length ""`, "empty"}},
 		{Args: []string{"--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", ""}, Code: 2, Want: []string{`--wall ""`, "empty"}},
 		{Args: []string{"--mode", "TE011", "--radius", "20mm", "--length", "40mm", "--wall", "sigma=abc"}, Code: 2, Want: []string{`--wall "sigma=abc"`, "no number"}},

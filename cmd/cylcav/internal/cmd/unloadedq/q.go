@@ -52,7 +52,7 @@ const (
 // instead of runQ (for tests).
 func NewCmdQ(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var modeS, betaS, qextS, speedS string
+	var betaS, qextS, speedS string
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -91,7 +91,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := opts.parse(cmd, geo, walls, flagValues{
-				mode: modeS, beta: betaS, qext: qextS, speed: speedS,
+				beta: betaS, qext: qextS, speed: speedS,
 			}); err != nil {
 				return err
 			}
@@ -102,7 +102,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		},
 	}
 	f := cmd.Flags()
-	f.StringVar(&modeS, "mode", "", "mode label, e.g. TE011, TM010, TE(12,3,1) (required)")
+	cmdutil.ModeVar(f, &opts.Mode, "mode", "mode label, e.g. TE011, TM010, TE(12,3,1) (required)")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter: "inside diameter, e.g. 54.8mm",
 		Radius:   "inside radius, e.g. 27.4mm",
@@ -121,7 +121,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 // flagValues are the raw flag strings (the cavity's are in the
 // cmdutil.GeometryFlags).
 type flagValues struct {
-	mode, beta, qext, speed string
+	beta, qext, speed string
 }
 
 // parse validates the flags into opts. Every error is a usage error naming
@@ -132,12 +132,8 @@ func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls
 	if !set("mode") {
 		return cmdutil.Usagef("--mode is required, e.g. --mode TE011")
 	}
-	m, err := cavity.ParseMode(v.mode)
-	if err != nil {
-		return cmdutil.FlagError("mode", v.mode, err)
-	}
-	opts.Mode = m
-
+	m := opts.Mode
+	var err error
 	if opts.Cavity, err = geo.Cavity(); err != nil {
 		return err
 	}
