@@ -63,6 +63,10 @@
 // model with four times the modes). With DefaultModes the five lowest TM0
 // resonances of an invented five-section body change by 3e-6 to 1e-4
 // relative: 1e-8 accuracy with steps is out of reach of plain truncation.
+// Speed: BenchmarkFiveLowest (those five TM0 resonances with their
+// estimates, two models of 40 and 60 modes in the widest section, roots to
+// 1e-14) takes about 22 ms of CPU on one core of a shared 2-core virtual
+// machine (45 ms wall time under load).
 //
 // # Losses
 //

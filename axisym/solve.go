@@ -323,18 +323,19 @@ func (sv *solver) isolate(lo, hi point) {
 // the count alone decides which side keeps the resonance, so a pole of the
 // pivot can slow the search but never mislead it.
 func (sv *solver) refine(lo, hi point) float64 {
-	side := 0
-	for range 200 {
+	side, stall := 0, 0
+	for range 300 {
 		w := hi.f - lo.f
 		if w <= relTol*hi.f {
 			break
 		}
 		x := 0.5 * (lo.f + hi.f)
-		if !math.IsNaN(lo.g) && lo.g*hi.g < 0 {
-			s := lo.f - lo.g*w/(hi.g-lo.g)
-			if s > lo.f+0.001*w && s < hi.f-0.001*w {
+		if stall < 3 && lo.g*hi.g < 0 {
+			if s := lo.f - lo.g*w/(hi.g-lo.g); s > lo.f && s < hi.f {
 				x = s
 			}
+		} else {
+			stall = 0 // this step bisects
 		}
 		p := sv.at(x)
 		if p.j <= lo.j {
@@ -348,9 +349,10 @@ func (sv *solver) refine(lo, hi point) float64 {
 			}
 			hi, side = p, 1
 		}
-		if hi.f-lo.f > 0.5*w && x != 0.5*(lo.f+hi.f) {
-			// A secant step that barely moved: bisect next time.
-			lo.g = math.NaN()
+		if hi.f-lo.f > 0.5*w {
+			stall++
+		} else {
+			stall = 0
 		}
 	}
 	return 0.5 * (lo.f + hi.f)
