@@ -198,7 +198,9 @@ func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, erro
 	counts := make([]int, len(b.Sections))
 	for i, s := range b.Sections {
 		w := s.Radius - s.InnerRadius
-		n := int(math.Ceil(float64(modes) * w / wmax))
+		// The tolerance keeps a ratio that is whole in exact arithmetic
+		// (12.000000000000002) from rounding up.
+		n := int(math.Ceil(float64(modes)*w/wmax - 1e-9))
 		// Modes with kc < k: McMahon's expansion (DLMF 10.21.19) puts
 		// j_{0,m} near (m - 1/4) pi and j_{1,m} near (m + 1/4) pi, and the
 		// cross-product roots of a coaxial guide of width w near m pi/w
