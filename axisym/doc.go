@@ -52,6 +52,12 @@
 // number of half guide wavelengths long) the junction matrix is near a pole
 // and the bracket holds to about 1e-8.
 //
+// With steps, independent finite-difference (TE0, E_phi) and finite-volume
+// (TM0, H_phi) solutions written in the tests and extrapolated to zero
+// step agree with Solve to 1.5e-5 (TE0) and 1.4e-5 (TM0) on a stepped body
+// and to 1.5e-5 and 9e-6 on a re-entrant post, within their stated
+// accuracy.
+//
 // With steps the field is singular at each 270-degree edge (Meixner's edge
 // condition), and the frequency converges algebraically in the number N of
 // modes. On a stepped test body the observed order is 2.0 for TE0 and TM0
