@@ -12,8 +12,8 @@
 // wrapping ErrNotImplemented rather than a number: n >= 1 (hybrid coupling
 // of TE and TM at steps), junctions whose aperture is neither side's
 // cross-section, radially layered fills, open ends (beam pipes to
-// infinity), accurate wall losses next to step edges (see Losses), the
-// accelerator figures and field maps.
+// infinity), accurate wall losses next to step edges (see Losses), peak
+// surface fields and field maps.
 //
 // # Method
 //
@@ -92,6 +92,14 @@
 // show that change. Where a resonance coincides with a resonance of a
 // closed section the fields are not given (LossErr wraps
 // ErrNotImplemented).
+//
+// For TM0 resonances of bodies with a free axis, Loss.Accelerating gives
+// the accelerating voltage V and transit-time factor T for a particle
+// speed beta c and R/Q in both conventions (V^2/(omega W), "linac", and
+// V^2/(2 omega W), "circuit"), and Loss.G the geometry factor (tested
+// against the pillbox closed forms to 1e-10). Peak surface fields are not
+// given: at a sharp step edge the model's E is infinite (Meixner), so a
+// peak would be a number of the truncation, not of the cavity.
 //
 // # Labels
 //

@@ -73,6 +73,66 @@ type Loss struct {
 	FillE, FillM   []float64 // per section, each summing to 1
 	StoredEnergyJ  float64   // W for the normalisation used (for checks)
 	ElectricShareJ float64   // W_e, equal to W/2 at resonance (for checks)
+	// Axis samples E_z on the axis r = 0 (TM0 only, for the same
+	// normalisation as StoredEnergyJ) at quadrature nodes along the body,
+	// for Accelerating; empty for TE0 and for a body with a coaxial
+	// section (no free axis).
+	Axis      []AxisSample
+	Frequency float64 // Hz
+}
+
+// AxisSample is one quadrature node of the axial field: position z (m
+// from end plate A), weight w (m) and E_z (V/m).
+type AxisSample struct{ Z, W, Ez float64 }
+
+// Accel holds the accelerator figures of a TM0 resonance for a particle
+// moving along the axis at speed beta c.
+type Accel struct {
+	// V is the accelerating voltage |int E_z(0, z) exp(j omega z/(beta c)) dz|
+	// in volts for the stored energy W of the Loss, and T = V / int |E_z| dz
+	// the transit-time factor (Wangler, RF Linear Accelerators, 2nd ed.,
+	// ch. 2, as recalled).
+	V, T float64
+	// RoverQLinac is V^2/(omega W) (the "linac" convention) and
+	// RoverQCircuit V^2/(2 omega W) (the "circuit" convention), in ohm.
+	RoverQLinac, RoverQCircuit float64
+}
+
+// Accelerating returns the accelerator figures for particle speed beta c,
+// 0 < beta <= 1. It fails for a Loss without axis samples (TE0, or a body
+// with an inner conductor) and for beta out of range.
+func (l Loss) Accelerating(beta float64) (Accel, error) {
+	if len(l.Axis) == 0 {
+		return Accel{}, fmt.Errorf("axisym: no axial field (TE0 resonance or a body with an inner conductor)")
+	}
+	if !(beta > 0 && beta <= 1) {
+		return Accel{}, fmt.Errorf("axisym: particle speed beta must be in (0, 1], got %g", beta)
+	}
+	omega := 2 * math.Pi * l.Frequency
+	kz := omega / (beta * physics.SpeedOfLight)
+	var c, s, abs float64
+	for _, a := range l.Axis {
+		sn, cs := math.Sincos(kz * a.Z)
+		c += a.W * a.Ez * cs
+		s += a.W * a.Ez * sn
+		abs += a.W * math.Abs(a.Ez)
+	}
+	v := math.Hypot(c, s)
+	return Accel{
+		V: v, T: v / abs,
+		RoverQLinac:   v * v / (omega * l.StoredEnergyJ),
+		RoverQCircuit: v * v / (2 * omega * l.StoredEnergyJ),
+	}, nil
+}
+
+// G returns the geometry factor of the whole wall, Q0 Rs for walls with one
+// surface resistance and no fill loss: the harmonic sum of the parts.
+func (l Loss) G() float64 {
+	var inv float64
+	for _, f := range l.Factors {
+		inv += 1 / f.G
+	}
+	return 1 / inv
 }
 
 // Q0 returns the unloaded Q of the resonance,
@@ -180,6 +240,11 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		parts = append(parts, p)
 		surf = append(surf, x/2)
 	}
+	coax := false
+	for _, sec := range b.Sections {
+		coax = coax || sec.InnerRadius > 0
+	}
+	z0 := 0.0
 	for i := range s.lines {
 		ln := &s.lines[i]
 		sec := b.Sections[i]
@@ -215,6 +280,7 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		}
 		for _, pt := range q {
 			hs := make([]float64, len(radii))
+			var ez float64
 			for m, kc := range ln.kc {
 				V, I := lf[m].at(pt.z)
 				if s.fam == cavity.TE {
@@ -228,6 +294,13 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 				} else {
 					wmSec[i] += mu / 4 * I * I * pt.w
 					weSec[i] += eps / 4 * (V*V + kc*kc*I*I/(omega*omega*eps*eps)) * pt.w
+					// E_z = (1/(j omega eps)) (1/r) d(r H_phi)/dr and
+					// (1/x) d(x Z1)/dx = Z0 (DLMF 10.6.2) give, on the
+					// axis of a circular section (Z0(0) = 1),
+					// E_z = sum norm kc I/(omega eps).
+					if !coax {
+						ez += g.norm[m] * kc * I / (omega * eps)
+					}
 					for ri, r := range radii {
 						hs[ri] += modeAt(g, m, r) * I
 					}
@@ -235,6 +308,9 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 			}
 			for ri, r := range radii {
 				wall[r] += hs[ri] * hs[ri] * pt.w
+			}
+			if s.fam == cavity.TM && !coax {
+				l.Axis = append(l.Axis, AxisSample{Z: z0 + pt.z, W: pt.w, Ez: ez})
 			}
 		}
 		add(Part{Side, i + 1}, 2*math.Pi*sec.Radius*wall[sec.Radius])
@@ -294,9 +370,10 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		}
 		we += weSec[i]
 		wm += wmSec[i]
+		z0 += ln.length
 	}
 	w := we + wm
-	l.StoredEnergyJ, l.ElectricShareJ = w, we
+	l.StoredEnergyJ, l.ElectricShareJ, l.Frequency = w, we, f
 	for k, p := range parts {
 		l.Factors = append(l.Factors, Factor{Part: p, G: omega * w / surf[k]})
 	}
