@@ -47,7 +47,7 @@ func TestPillboxAccel(t *testing.T) {
 		if d := math.Abs(a.V-v) / v; d > accelTol {
 			t.Errorf("beta %g: V = %.15g V, want %.15g V", beta, a.V, v)
 		}
-		if d := math.Abs(a.T-math.Abs(tt)); d > accelTol {
+		if d := math.Abs(a.T - math.Abs(tt)); d > accelTol {
 			t.Errorf("beta %g: T = %.15g, want %.15g", beta, a.T, math.Abs(tt))
 		}
 		rq := v * v / (omega * w)
