@@ -45,13 +45,16 @@ type Options struct {
 	// surface of the wall set covers side walls, inner conductors and step
 	// faces, EndA and EndB the end plates.
 	Walls *qfactor.WallSet
+	// Beta, when > 0 (--beta given), adds the accelerator figures of TM0
+	// resonances for a particle at speed Beta c on the axis.
+	Beta float64
 }
 
 // NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
 // command's work (tests use it to inspect the parsed options).
 func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var fmax, family string
+	var fmax, family, beta string
 	var checkFormat func() error
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -93,9 +96,19 @@ wall loss on every surface (side walls, inner conductors and step faces
 take the --wall metal) and each section's loss tangents, plus the change
 of Q0 when the modes grew by half. Bodies without steps give exact Q0;
 next to a step edge the wall loss converges slowly, so there Q0 is an
-estimate (high by about its change or more).`,
+estimate (high by about its change or more).
+
+With --beta B (a particle speed over c) TM0 resonances of a body whose
+axis is free (no inner conductor) gain the transit-time factor T and R/Q
+in both conventions, labelled: V^2/(omega W) ("linac") and V^2/(2 omega W)
+("circuit"). Peak surface fields are not given: at a sharp step edge the
+model's field is infinite.`,
 			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
-		Example: `  # Two cells joined by an iris: resonances up to 12 GHz
+		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
+  $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
+  ...
+
+  # Two cells joined by an iris: resonances up to 12 GHz
   $ cylcav stack examples/iris-pair.yaml --fmax 12GHz
   ...
 
@@ -132,6 +145,13 @@ estimate (high by about its change or more).`,
 			if err := checkFormat(); err != nil {
 				return err
 			}
+			if cmd.Flags().Changed("beta") {
+				v, err := strconv.ParseFloat(beta, 64)
+				if err != nil || !(v > 0 && v <= 1) {
+					return cmdutil.FlagError("beta", beta, fmt.Errorf("must be a particle speed over c in (0, 1], e.g. 1 or 0.6"))
+				}
+				opts.Beta = v
+			}
 			if walls.Given() {
 				ws, err := walls.Walls()
 				if err != nil {
@@ -155,6 +175,7 @@ estimate (high by about its change or more).`,
 	fl := cmd.Flags()
 	fl.StringVar(&fmax, "fmax", "", "list every resonance below this frequency (e.g. 12GHz)")
 	fl.StringVar(&family, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both")
+	fl.StringVar(&beta, "beta", "", "particle speed over c for the accelerator figures of TM0 resonances (e.g. 1)")
 	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
@@ -179,11 +200,17 @@ type Row struct {
 	QWall    *float64 `json:"q_wall,omitempty"`
 	QFill    *float64 `json:"q_fill,omitempty"` // absent with Q0 given: no fill loss
 	QNote    string   `json:"q_note,omitempty"`
+	// With --beta, TM0 resonances of a body with a free axis: the
+	// transit-time factor and R/Q in both conventions, V^2/(omega W)
+	// ("linac") and V^2/(2 omega W) ("circuit"), in ohm.
+	T             *float64 `json:"transit_time_factor,omitempty"`
+	RoverQLinac   *float64 `json:"r_over_q_linac_ohm,omitempty"`
+	RoverQCircuit *float64 `json:"r_over_q_circuit_ohm,omitempty"`
 }
 
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
-		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families, Losses: opts.Walls != nil,
+		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families, Losses: opts.Walls != nil || opts.Beta > 0,
 	})
 	if err != nil {
 		if errors.Is(err, axisym.ErrNotImplemented) {
@@ -207,6 +234,11 @@ func runStack(opts *Options) error {
 		if opts.Walls != nil {
 			if err := addQ(&row, r, *opts.Walls, opts.Geometry.Body); err != nil {
 				return err
+			}
+		}
+		if opts.Beta > 0 && r.Loss != nil && len(r.Loss.Axis) > 0 {
+			if a, err := r.Loss.Accelerating(opts.Beta); err == nil {
+				row.T, row.RoverQLinac, row.RoverQCircuit = &a.T, &a.RoverQLinac, &a.RoverQCircuit
 			}
 		}
 		rows[i] = row
@@ -236,11 +268,17 @@ func runStack(opts *Options) error {
 			if opts.Walls != nil {
 				cells = append(cells, csvQ(r.Q0), csvQ(r.Q0Change), csvQ(r.QWall), csvQ(r.QFill))
 			}
+			if opts.Beta > 0 {
+				cells = append(cells, csvQ(r.T), csvQ(r.RoverQLinac), csvQ(r.RoverQCircuit))
+			}
 			out = append(out, cells)
 		}
 		header := []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}
 		if opts.Walls != nil {
 			header = append(header, "q0", "q0_change", "q_wall", "q_fill")
+		}
+		if opts.Beta > 0 {
+			header = append(header, "transit_time_factor", "r_over_q_linac_ohm", "r_over_q_circuit_ohm")
 		}
 		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
@@ -276,6 +314,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 	if opts.Walls != nil {
 		header = append(header, "Q0", "Q0 change", "Q wall", "Q fill")
 	}
+	if opts.Beta > 0 {
+		header = append(header, "T", "R/Q linac", "R/Q circuit")
+	}
 	t := cmdutil.NewTable(w, header...)
 	var notes []string
 	for _, r := range rows {
@@ -301,10 +342,18 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 				notes = append(notes, fmt.Sprintf("#%d: %s", r.Index, r.QNote))
 			}
 		}
+		if opts.Beta > 0 {
+			cells = append(cells, numText(r.T, 4, ""), numText(r.RoverQLinac, 4, " ohm"), numText(r.RoverQCircuit, 4, " ohm"))
+		}
 		t.Row(cells...)
 	}
 	if err := t.Flush(); err != nil {
 		return err
+	}
+	if opts.Beta > 0 {
+		fmt.Fprintf(w, "T, R/Q: TM0 only, particle speed %g c on the axis; R/Q linac = V^2/(omega W), circuit = V^2/(2 omega W)\n", opts.Beta)
+		fmt.Fprintln(w, "caution: cells driven at high RF power carry high voltages and heat their walls; these are design")
+		fmt.Fprintln(w, "estimates: follow local codes and licensed practice")
 	}
 	if opts.Walls != nil {
 		fmt.Fprintln(w, "Q: side walls, inner conductors and step faces of the --wall metal; next to a step edge the wall loss")
@@ -383,4 +432,13 @@ func csvQ(q *float64) string {
 		return ""
 	}
 	return strconv.FormatFloat(*q, 'g', -1, 64)
+}
+
+// numText prints an optional number with digits significant digits and a
+// unit, or "-".
+func numText(v *float64, digits int, unit string) string {
+	if v == nil {
+		return "-"
+	}
+	return strconv.FormatFloat(*v, 'g', digits, 64) + unit
 }

@@ -105,6 +105,8 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{good, "--fmax", "-1GHz"}, Code: 2, Want: []string{"--fmax"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--family", "hybrid"}, Code: 2, Want: []string{"--family", "te, tm or both"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--modes", "1"}, Code: 2, Want: []string{"--modes"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--beta", "0"}, Code: 2, Want: []string{"--beta", "(0, 1]"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--wall", "unobtainium"}, Code: 2, Want: []string{"--wall"}},
 		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
 		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
 	)
@@ -147,6 +149,32 @@ func TestOneSectionQ0(t *testing.T) {
 		}
 		if row.Q0 == nil || math.Abs(*row.Q0-want.QWall)/want.QWall > 1e-9 {
 			t.Errorf("%s: q0 = %v, want %.10g (closed form)", row.ContinuesFrom, row.Q0, want.QWall)
+		}
+	}
+}
+
+// TestBetaColumns checks that --beta adds the labelled R/Q columns for
+// TM0 rows only (the values are tested in package axisym against the
+// pillbox closed forms).
+func TestBetaColumns(t *testing.T) {
+	inRepo(t)
+	r := clitest.Run(t, "stack", "examples/nosed-cell.yaml", "--fmax", "7GHz", "--beta", "1", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	for _, row := range out.Resonances {
+		has := row.RoverQLinac != nil && row.RoverQCircuit != nil && row.T != nil
+		if has != (row.Family == "TM0") {
+			t.Errorf("%s #%d: R/Q given %v, want it for TM0 only", row.Family, row.Index, has)
+		}
+		if has && math.Abs(*row.RoverQCircuit-*row.RoverQLinac/2) > 1e-12**row.RoverQLinac {
+			t.Errorf("circuit R/Q %g, want half the linac value %g", *row.RoverQCircuit, *row.RoverQLinac)
 		}
 	}
 }
