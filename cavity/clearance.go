@@ -359,6 +359,13 @@ type Reach struct {
 	Worst      float64
 	WorstMode  Mode
 	WorstRatio float64
+	// WorstModes lists every mode whose smallest clearance on the set ties
+	// with Worst to within TieClearance, in mode order; WorstMode is the
+	// first of them.
+	// An optimum often balances two modes at the two ends of the set; both
+	// are named so that a verdict does not depend on the last bit of a
+	// dimension.
+	WorstModes []Mode
 	// Operation is the request the set was computed for.
 	Operation Operation
 	// Offending lists every mode that crosses the wanted one on the set
@@ -366,6 +373,25 @@ type Reach struct {
 	// mode order: TE before TM, then n, m, p). A TE0mp/TM1mp pair of
 	// spurious modes is listed once, by its TE member.
 	Offending []Offender
+}
+
+// TieClearance is the difference of clearance (a fraction) below which two
+// modes count as setting the worst case together: half a unit of the last
+// digit printed (clearances are printed in percent with three decimals),
+// far above the rounding of dimensions printed to six digits.
+const TieClearance = 5e-6
+
+// WorstNames returns the modes of WorstModes joined by ", " ("TE112,
+// TE311"), or WorstMode alone when the list is empty.
+func (r Reach) WorstNames() string {
+	if len(r.WorstModes) == 0 {
+		return r.WorstMode.String()
+	}
+	names := make([]string, len(r.WorstModes))
+	for i, m := range r.WorstModes {
+		names[i] = m.String()
+	}
+	return strings.Join(names, ", ")
 }
 
 // Meets reports whether the worst-case clearance is at least the required
@@ -383,7 +409,7 @@ func (r Reach) Verdict() string {
 	if span == "" {
 		span = "the nominal size"
 	}
-	fmt.Fprintf(&b, "worst over %s %.3f %% (%s)", span, 100*r.Worst, r.WorstMode)
+	fmt.Fprintf(&b, "worst over %s %.3f %% (%s)", span, 100*r.Worst, r.WorstNames())
 	if r.Operation.MinClearance == 0 && len(r.Offending) == 0 {
 		return b.String()
 	}
@@ -482,6 +508,22 @@ func (c Cavity) Reach(op Operation) (Reach, error) {
 		return Reach{}, err
 	}
 	out.Worst, out.WorstMode, out.WorstRatio = sp.worst, sp.worstMode, math.Sqrt(sp.worstS)
+	// Modes that tie for the worst case are named in mode order, and the
+	// first of them is WorstMode, so that the verdict does not depend on
+	// which of them won by the last bit.
+	var ties []Offender
+	for _, o := range sp.modes {
+		if o.Clearance <= out.Worst+TieClearance && (o.Crosses || out.Worst > 0) {
+			ties = append(ties, o)
+		}
+	}
+	slices.SortStableFunc(ties, func(a, b Offender) int { return compareModes(a.Mode, b.Mode) })
+	for _, o := range ties {
+		out.WorstModes = append(out.WorstModes, o.Mode)
+	}
+	if len(ties) > 0 {
+		out.WorstMode, out.WorstRatio = ties[0].Mode, ties[0].Ratio
+	}
 	for _, o := range sp.modes {
 		if o.Crosses || o.Clearance < op.MinClearance {
 			out.Offending = append(out.Offending, o)

@@ -85,4 +85,11 @@
 // for a homogeneous fill every frequency ratio depends on s = (D/L)^2 alone,
 // so the clearance is a lower envelope of monotone curves whose maximum is
 // found exactly from their crossings (see optimize_exact.go).
+//
+// Optimize returns the optimum and the bound that holds it, nothing more;
+// Analyze is the second step that builds on it (sensitivities, tuned
+// lengths, thermal drift, Monte Carlo spread, trade-off curves), with its
+// own AnalysisSettings, so a caller who wants D and L pays for nothing
+// else. The shape follows gonum's optimize package: problem (DesignSpec),
+// result (Design), and the settings of the analysis apart from the problem.
 package cavity

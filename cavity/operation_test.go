@@ -146,6 +146,21 @@ func TestReachBruteForce(t *testing.T) {
 		if r.Meets() != (len(want) == 0) {
 			t.Errorf("%s: Meets() = %v with offenders %v", tc.name, r.Meets(), want)
 		}
+		// The modes that tie for the worst case: every mode whose sampled
+		// smallest distance is within TieClearance of the sampled worst,
+		// in mode order, the first of them being WorstMode.
+		if !crossing {
+			var ties []Mode
+			for m, v := range near {
+				if v <= worst+TieClearance {
+					ties = append(ties, m)
+				}
+			}
+			slices.SortFunc(ties, compareModes)
+			if !slices.Equal(r.WorstModes, ties) || r.WorstMode != ties[0] {
+				t.Errorf("%s: WorstModes = %v (WorstMode %v), want %v from dense sampling", tc.name, r.WorstModes, r.WorstMode, ties)
+			}
+		}
 	}
 }
 

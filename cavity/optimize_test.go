@@ -4,6 +4,10 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
 	"testing"
 
 	"cylcav/physics"
@@ -106,14 +110,42 @@ func TestOptimizeMatchesBruteForce(t *testing.T) {
 	}
 }
 
+// readOptimum reads cavity/testdata/optimum.txt, written by
+// cavity/testdata/gen_optimum.py (mpmath 1.3.0, 30 digits): one "name
+// value" a line, # for comments. It fails the test when a value the tests
+// use is missing.
+func readOptimum(t *testing.T) map[string]float64 {
+	t.Helper()
+	b, err := os.ReadFile(filepath.Join("testdata", "optimum.txt"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	out := map[string]float64{}
+	for i, line := range strings.Split(string(b), "\n") {
+		f := strings.Fields(line)
+		if len(f) == 0 || strings.HasPrefix(f[0], "#") {
+			continue
+		}
+		v, err := strconv.ParseFloat(f[1], 64)
+		if len(f) != 2 || err != nil {
+			t.Fatalf("optimum.txt line %d: %q", i+1, line)
+		}
+		out[f[0]] = v
+	}
+	for _, k := range []string{"te011_opt_ratio", "te011_opt_clearance", "te112_cross_ratio", "tm210_cross_ratio", "tm012_cross_ratio"} {
+		if _, ok := out[k]; !ok {
+			t.Fatalf("optimum.txt has no %s", k)
+		}
+	}
+	return out
+}
+
 // TestOptimizeTE011Reference checks the air-filled TE011 optimum against
 // the closed-form crossing of TE112 and TE311 evaluated with mpmath 1.3.0
-// at 30 digits (testdata/cavity/gen_optimum.py).
+// at 30 digits (cavity/testdata/gen_optimum.py).
 func TestOptimizeTE011Reference(t *testing.T) {
-	const (
-		wantRatio = 1.38796887560878412985 // testdata/cavity/gen_optimum.py
-		wantClear = 0.07364455297108049055 // testdata/cavity/gen_optimum.py
-	)
+	ref := readOptimum(t)
+	wantRatio, wantClear := ref["te011_opt_ratio"], ref["te011_opt_clearance"]
 	for _, fill := range []physics.Medium{{}, {EpsR: 2.08}} {
 		d, err := Optimize(DesignSpec{Mode: mustMode(t, "TE011"), Frequency: 10e9, Fill: fill})
 		if err != nil {
@@ -139,13 +171,10 @@ func TestOptimizeTE011Reference(t *testing.T) {
 // design of Pozar's sec. 6.4 uses D/L = 1): TE011 cavities are built with
 // D/L of about 1 to 1.5, between the crossings of the TE011 line with the
 // steeper p = 2 lines (TM012 at D/L = 1.096, TE112 at 1.235) and the flat
-// TM210 line (2.177); crossing ratios from testdata/cavity/gen_optimum.py.
+// TM210 line (2.177); crossing ratios from cavity/testdata/gen_optimum.py.
 func TestTE011ModeChart(t *testing.T) {
-	const (
-		tm012Cross = 1.09643993401221065585 // testdata/cavity/gen_optimum.py
-		te112Cross = 1.23510869444022311731 // testdata/cavity/gen_optimum.py
-		tm210Cross = 2.17689017715712395152 // testdata/cavity/gen_optimum.py
-	)
+	ref := readOptimum(t)
+	tm012Cross, te112Cross, tm210Cross := ref["tm012_cross_ratio"], ref["te112_cross_ratio"], ref["tm210_cross_ratio"]
 	w := mustMode(t, "TE011")
 	d, err := Optimize(DesignSpec{Mode: w, Frequency: 10e9, RatioMin: 0.2, RatioMax: 5})
 	if err != nil {
@@ -276,7 +305,7 @@ func TestOptimizeInfeasible(t *testing.T) {
 	if !errors.As(err, &ie) || !errors.Is(err, ErrInfeasible) {
 		t.Fatalf("Optimize(min clearance 20 %%) error = %v, want *InfeasibleError", err)
 	}
-	const want = 0.07364455297108049055 // testdata/cavity/gen_optimum.py
+	want := readOptimum(t)["te011_opt_clearance"] // cavity/testdata/optimum.txt
 	if math.Abs(ie.Clearance-want) > optClearTol {
 		t.Errorf("InfeasibleError.Clearance = %.12g, want %.12g", ie.Clearance, want)
 	}

@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"math"
 	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
@@ -11,9 +12,9 @@ import (
 	"cylcav/physics"
 )
 
-// The reference table testdata/cavity/modes.txt lists every mode up to a
+// The reference table cavity/testdata/modes.txt lists every mode up to a
 // limit for five invented cavities, with frequencies computed by
-// testdata/cavity/gen_modes.py with mpmath 1.3.0 at 40 significant digits
+// cavity/testdata/gen_modes.py with mpmath 1.3.0 at 40 significant digits
 // (mpmath.besseljzero; c = 299792458 m/s exact), independently of cylcav
 // and of physics/bessel. It is printed to 17 significant digits.
 
@@ -31,7 +32,7 @@ type refCavity struct {
 
 func readReference(t testing.TB) []refCavity {
 	t.Helper()
-	f, err := os.Open("../testdata/cavity/modes.txt")
+	f, err := os.Open(filepath.Join("testdata", "modes.txt"))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -116,7 +117,7 @@ func TestModesReference(t *testing.T) {
 
 // TestDoneValues checks the values the project's first issue names for a
 // 25 mm radius, 50 mm long air cavity (TM010 4.5897 GHz, TE111 4.6190 GHz,
-// TM011 5.4821 GHz; mpmath-based, see testdata/cavity/modes.txt) to the
+// TM011 5.4821 GHz; mpmath-based, see cavity/testdata/modes.txt) to the
 // printed digits.
 func TestDoneValues(t *testing.T) {
 	c := Cavity{Radius: 0.025, Length: 0.05}

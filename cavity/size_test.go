@@ -133,7 +133,7 @@ func TestSizeP0(t *testing.T) {
 	// Given a diameter, the frequency is fixed: an error naming both.
 	// 93.6674 mm = 2 j_{0,1} c/(2 pi f), computed with mpmath 1.3.0.
 	_, err := Size(m, f, physics.Medium{}, ByDiameter(0.05))
-	// 4.5897 GHz: TM010 of the 25 mm radius cavity (testdata/cavity/modes.txt).
+	// 4.5897 GHz: TM010 of the 25 mm radius cavity (cavity/testdata/modes.txt).
 	for _, s := range []string{"p = 0", "diameter 50 mm gives 4.5897 GHz", "use diameter 93.6674 mm with any length"} {
 		if !errors.Is(err, ErrInfeasible) || !strings.Contains(err.Error(), s) {
 			t.Errorf("Size(TM010, 2.45 GHz, diameter 50 mm) error = %v, want ErrInfeasible containing %q", err, s)

@@ -1,34 +1,45 @@
 package datasheet
 
 import (
-	"cylcav/figure"
 	"html/template"
 	"io"
+
+	"cylcav/figure"
 )
 
 // WriteHTML writes the datasheet to w as one self-contained HTML document:
 // styles inline, charts as inline SVG, no scripts, no external resources.
 // The output is deterministic (no dates).
 func (sh *Sheet) WriteHTML(w io.Writer) error {
-	type svgChart struct {
-		Chart
-		SVG template.HTML
+	type htmlBlock struct {
+		Block
+		SVG template.HTML // the chart, when the block is one
 	}
-	// Pointers, so a chart that is absent (no wall metal, no Q chart)
-	// is nil and skipped by the template's "with".
-	var charts = map[string]*svgChart{}
-	for _, c := range sh.Charts {
-		b, err := figure.Encode(c.Figure, figure.SVG, c.Page)
-		if err != nil {
-			return err
+	type htmlSection struct {
+		Num     int
+		Heading string
+		Blocks  []htmlBlock
+	}
+	secs := make([]htmlSection, len(sh.Sections))
+	for i, s := range sh.Sections {
+		secs[i] = htmlSection{Num: i + 1, Heading: s.Heading}
+		for _, b := range s.Blocks {
+			hb := htmlBlock{Block: b}
+			if c := b.Chart; c != nil {
+				svg, err := figure.Encode(c.Figure, figure.SVG, c.Page)
+				if err != nil {
+					return err
+				}
+				// The SVG comes from our own renderer, which escapes all text.
+				hb.SVG = template.HTML(figure.InlineSVG(svg, c.Title))
+			}
+			secs[i].Blocks = append(secs[i].Blocks, hb)
 		}
-		// The SVG comes from our own renderer, which escapes all text.
-		charts[c.ID] = &svgChart{Chart: c, SVG: template.HTML(figure.InlineSVG(b, c.Title))}
 	}
 	return page.Execute(w, struct {
 		*Sheet
-		Chart map[string]*svgChart
-	}{sh, charts})
+		Sections []htmlSection
+	}{sh, secs})
 }
 
 var page = template.Must(template.New("sheet").Parse(`<!DOCTYPE html>
@@ -97,65 +108,20 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 <body>
 <main>
 <header>
-<p class="kind">Cavity resonator datasheet</p>
+<p class="kind">{{.Kind}}</p>
 <h1>{{.Title}}</h1>
 <p class="headline">{{.Headline}}</p>
-{{if .Demo}}<p class="demo"><strong>Demo scenario.</strong> This datasheet was made by <code>cylcav report</code> with no design flags, from the built-in invented scenario. Give the flags of <code>cylcav design</code> to report your own design.</p>{{end}}
+{{with .Notice}}<p class="demo"><strong>{{.Lead}}.</strong> {{range .Parts}}{{if .Code}}<code>{{.Text}}</code>{{else}}{{.Text}}{{end}}{{end}}</p>{{end}}
 </header>
 
 <ul class="facts">
 {{range .Facts}}<li><span class="k">{{.Key}}</span><span class="v">{{.Value}}</span></li>
 {{end}}</ul>
 
-<h2><span class="num">1</span>Dimensions and tolerances</h2>
-{{template "table" .Dimensions}}
-
-<h2><span class="num">2</span>Mode chart</h2>
-{{with index .Chart "mode-chart"}}{{template "figure" .}}{{end}}
-
-<h2><span class="num">3</span>Modes near the band</h2>
-{{template "table" .Modes}}
-<p class="note">{{.ModesNote}}</p>
-{{with index .Chart "q-frequency"}}{{template "figure" .}}{{end}}
-
-<h2><span class="num">4</span>Spurious-mode clearance</h2>
-{{template "table" .Clearance}}
-{{with index .Chart "trade-off"}}{{template "figure" .}}{{end}}
-
-{{if .Q.Rows}}<h2><span class="num">5</span>Unloaded Q</h2>
-{{template "table" .Q}}
-<p class="note">{{.QNote}}</p>{{end}}
-
-<h2><span class="num">6</span>Sensitivities and tolerance spread</h2>
-{{template "table" .Sensitive}}
-{{if .Spread.Rows}}{{template "table" .Spread}}{{end}}
-
-<h2><span class="num">7</span>Tuning</h2>
-{{with index .Chart "tuning"}}{{template "figure" .}}{{end}}
-{{template "table" .Tuning}}
-
-<h2><span class="num">8</span>Materials and their sources</h2>
-<div class="materials">
-{{range .Materials}}<section class="material">
-<span class="role">{{.Role}}</span>
-<h3>{{.Name}}</h3>
-{{if .Description}}<div>{{.Description}}</div>{{end}}
-<dl>{{range .Values}}<dt>{{.Key}}</dt><dd>{{.Value}}</dd>{{end}}</dl>
-{{if .Note}}<p class="src"><strong>Note:</strong> {{.Note}}</p>{{end}}
-<p class="src"><strong>Source:</strong> {{.Source}}</p>
-</section>
-{{end}}</div>
-
-<h2><span class="num">9</span>Index convention</h2>
-<p>{{.Convention}}</p>
-
-<h2><span class="num">10</span>Cautions</h2>
-{{if .Cautions}}<p>For this design:</p>
-<ul class="cautions">{{range .Cautions}}<li>{{.}}</li>{{end}}</ul>{{end}}
-<p>Safety:</p>
-<ul class="safety">{{range .Safety}}<li>{{.}}</li>{{end}}</ul>
-
-<footer>Made by cylcav {{.Version}}. Resonant frequencies from the closed-cylinder resonance condition (Pozar, Microwave Engineering, 4th ed., sec. 6.4; Harrington, Time-Harmonic Electromagnetic Fields, sec. 5.3); unloaded Q by the surface-resistance perturbation method; clearance, optimum and tolerance analysis as described in the cylcav documentation.</footer>
+{{range .Sections}}<h2><span class="num">{{.Num}}</span>{{.Heading}}</h2>
+{{range .Blocks}}{{template "block" .}}
+{{end}}
+{{end}}<footer>Made by cylcav {{.Version}}. {{.Method}}</footer>
 </main>
 </body>
 </html>
@@ -163,11 +129,21 @@ footer { margin-top: 2rem; padding-top: .5rem; border-top: 1px solid var(--rule)
 <caption>{{.Caption}}</caption>
 <thead><tr>{{range $j, $h := .Header}}<th scope="col"{{if $.IsNum $j}} class="num"{{end}}>{{$h}}</th>{{end}}</tr></thead>
 <tbody>
-{{range $i, $r := .Rows}}<tr{{if index $.Emph $i}} class="emph"{{end}}>{{range $j, $c := $r}}<td{{if $.IsNum $j}} class="num"{{end}}>{{$c}}</td>{{end}}</tr>
+{{range $i, $r := .Rows}}<tr{{if $.IsEmph $i}} class="emph"{{end}}>{{range $j, $c := $r}}<td{{if $.IsNum $j}} class="num"{{end}}>{{$c}}</td>{{end}}</tr>
 {{end}}</tbody>
 </table>{{end}}
-{{define "figure"}}<figure id="{{.ID}}">
-{{.SVG}}
+{{define "block"}}{{with .Table}}{{template "table" .}}{{end}}{{with .Chart}}<figure id="{{.ID}}">
+{{$.SVG}}
 <figcaption><strong>{{.Title}}.</strong> {{.Caption}}</figcaption>
-</figure>{{end}}
+</figure>{{end}}{{with .Note}}<p class="note">{{.}}</p>{{end}}{{with .Para}}<p>{{.}}</p>{{end}}{{with .List}}{{if .Lead}}<p>{{.Lead}}</p>
+{{end}}<ul class="{{.Class}}">{{range .Items}}<li>{{.}}</li>{{end}}</ul>{{end}}{{with .Materials}}<div class="materials">
+{{range .}}<section class="material">
+<span class="role">{{.Role}}</span>
+<h3>{{.Name}}</h3>
+{{if .Description}}<div>{{.Description}}</div>{{end}}
+<dl>{{range .Values}}<dt>{{.Key}}</dt><dd>{{.Value}}</dd>{{end}}</dl>
+{{if .Note}}<p class="src"><strong>Note:</strong> {{.Note}}</p>{{end}}
+<p class="src"><strong>Source:</strong> {{.Source}}</p>
+</section>
+{{end}}</div>{{end}}{{end}}
 `))

@@ -85,17 +85,17 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	// Title block.
 	pdf.SetFont(pdfFont, "", 8)
 	pdf.SetTextColor(90, 90, 90)
-	pdf.CellFormat(0, 4, "CAVITY RESONATOR DATASHEET", "", 1, "L", false, 0, "")
+	pdf.CellFormat(0, 4, w.t(strings.ToUpper(sh.Kind)), "", 1, "L", false, 0, "")
 	pdf.SetTextColor(0, 0, 0)
 	pdf.SetFont(pdfFont, "B", 15)
 	pdf.MultiCell(0, 6.5, w.t(sh.Title), "", "L", false)
 	pdf.SetFont(pdfFont, "", 10.5)
 	pdf.MultiCell(0, 5.5, w.t(sh.Headline), "", "L", false)
-	if sh.Demo {
+	if n := sh.Notice; n != nil {
 		pdf.Ln(1)
 		pdf.SetFillColor(243, 241, 230)
 		pdf.SetFont(pdfFont, "", 8.5)
-		pdf.MultiCell(0, 4.2, w.t("Demo scenario: made by 'cylcav report' with no design flags, from the built-in invented scenario. Give the flags of 'cylcav design' to report your own design."), "", "L", true)
+		pdf.MultiCell(0, 4.2, w.t(n.Text()), "", "L", true)
 	}
 	y := pdf.GetY() + 1.5
 	pdf.SetLineWidth(0.6)
@@ -114,67 +114,57 @@ func (sh *Sheet) WritePDF(out io.Writer) error {
 	w.table(facts)
 
 	// The numbered sections of the HTML datasheet, in the same order. A
-	// heading is kept with the start of what follows it.
-	w.heading("1  Dimensions and tolerances", w.tableStart())
-	w.table(sh.Dimensions)
-	w.heading("2  Mode chart", w.chartMin(sh, "mode-chart"))
-	if err := w.chart(sh, "mode-chart"); err != nil {
-		return err
+	// heading is kept with the start of what follows it; the sections at
+	// the end made of text alone (the convention and the cautions of a
+	// cavity datasheet) are kept on one page when they fit on one, so
+	// that the document does not end on a page with a stray bullet.
+	charts := map[*Chart]int{}
+	for i, c := range sh.Charts() {
+		charts[c] = i
 	}
-	w.heading("3  Modes near the band", w.tableStart())
-	w.table(sh.Modes)
-	w.note(sh.ModesNote)
-	if err := w.chart(sh, "q-frequency"); err != nil {
-		return err
+	tail := len(sh.Sections) // the first section of the trailing text-only run
+	for tail > 0 && w.textOnly(sh.Sections[tail-1]) {
+		tail--
 	}
-	w.heading("4  Spurious-mode clearance", w.tableStart())
-	w.table(sh.Clearance)
-	if err := w.chart(sh, "trade-off"); err != nil {
-		return err
-	}
-	if len(sh.Q.Rows) > 0 {
-		w.heading("5  Unloaded Q", w.tableStart())
-		w.table(sh.Q)
-		w.note(sh.QNote)
-	}
-	w.heading("6  Sensitivities and tolerance spread", w.tableStart())
-	w.table(sh.Sensitive)
-	if len(sh.Spread.Rows) > 0 {
-		w.table(sh.Spread)
-	}
-	w.heading("7  Tuning", w.chartMin(sh, "tuning"))
-	if err := w.chart(sh, "tuning"); err != nil {
-		return err
-	}
-	w.table(sh.Tuning)
-	w.heading("8  Materials and their sources", w.tableStart()+pdfCellH*2)
-	for _, m := range sh.Materials {
-		t := Table{Caption: m.Role + ": " + m.Name, Header: []string{"Property", "Value"}}
-		if m.Description != "" {
-			t.add(false, "Description", m.Description)
+	for i, sec := range sh.Sections {
+		next := 0.0
+		if i >= tail {
+			for k := i; k < len(sh.Sections); k++ {
+				if k > i {
+					next += headingH
+				}
+				next += w.textHeight(sh.Sections[k])
+			}
+		} else if len(sec.Blocks) > 0 {
+			next = w.blockStart(sec.Blocks[0])
 		}
-		for _, kv := range m.Values {
-			t.add(false, kv.Key, kv.Value)
+		w.heading(fmt.Sprintf("%d  %s", i+1, sec.Heading), next)
+		for j, b := range sec.Blocks {
+			switch {
+			case b.Table != nil:
+				w.table(*b.Table)
+			case b.Chart != nil:
+				if err := w.chart(b.Chart, charts[b.Chart]); err != nil {
+					return err
+				}
+			case b.Note != "":
+				w.note(b.Note)
+			case b.Para != "":
+				w.para(b.Para)
+			case b.List != nil:
+				if j > 0 {
+					pdf.Ln(1)
+				}
+				if b.List.Lead != "" {
+					w.para(b.List.Lead)
+				}
+				for _, item := range b.List.Items {
+					w.bullet(item)
+				}
+			case b.Materials != nil:
+				w.materials(b.Materials)
+			}
 		}
-		if m.Note != "" {
-			t.add(false, "Note", m.Note)
-		}
-		t.add(false, "Source", m.Source)
-		w.table(t)
-	}
-	// The last two sections, the convention and the cautions (read as one
-	// list), are kept on one page when they fit on one, so that the
-	// document does not end on a page with a stray bullet.
-	cautions := w.bulletsHeight(sh.Cautions) + 1 + w.bulletsHeight(sh.Safety)
-	w.heading("9  Index convention", w.paraHeight(sh.Convention)+headingH+cautions)
-	w.para(sh.Convention)
-	w.heading("10  Cautions", cautions)
-	for _, c := range sh.Cautions {
-		w.bullet(c)
-	}
-	pdf.Ln(1)
-	for _, c := range sh.Safety {
-		w.bullet(c)
 	}
 	if err := pdf.Error(); err != nil {
 		return fmt.Errorf("datasheet: PDF: %w", err)
@@ -260,6 +250,12 @@ func (w *pdfWriter) para(s string) {
 	w.pdf.Ln(1)
 }
 
+// noteHeight returns the height in mm of note s.
+func (w *pdfWriter) noteHeight(s string) float64 {
+	w.pdf.SetFont(pdfFont, "", 7.8)
+	return float64(len(w.pdf.SplitText(w.t(s), w.width)))*3.6 + 1
+}
+
 func (w *pdfWriter) note(s string) {
 	if s == "" {
 		return
@@ -305,24 +301,10 @@ func (w *pdfWriter) bullet(s string) {
 	p.Ln(bulletGap)
 }
 
-// chartSize returns the full width and height in mm of chart id across
-// the text width, and false when the sheet has no such chart.
-func (w *pdfWriter) chartSize(sh *Sheet, id string) (wd, ht float64, ok bool) {
-	for _, c := range sh.Charts {
-		if c.ID == id {
-			return w.width, w.width * float64(c.Page.Height) / float64(c.Page.Width), true
-		}
-	}
-	return 0, 0, false
-}
-
-// chartMin returns the least height in mm chart id takes with its caption
-// (shrunk to pdfMinChartScale); zero when the sheet has no such chart.
-func (w *pdfWriter) chartMin(sh *Sheet, id string) float64 {
-	_, h, ok := w.chartSize(sh, id)
-	if !ok {
-		return 0
-	}
+// chartMin returns the least height in mm chart c takes with its caption
+// (shrunk to pdfMinChartScale).
+func (w *pdfWriter) chartMin(c *Chart) float64 {
+	h := w.width * float64(c.Page.Height) / float64(c.Page.Width)
 	return pdfMinChartScale*h + pdfCaptionH
 }
 
@@ -330,48 +312,117 @@ func (w *pdfWriter) chartMin(sh *Sheet, id string) float64 {
 // of a table kept with its heading.
 func (w *pdfWriter) tableStart() float64 { return 2*(pdfCellH+2) + pdfCellH }
 
-// chart places the chart with the given ID as a PNG image with its caption:
-// across the text width where it fits, otherwise shrunk (centred) to the
+// blockStart returns the least height in mm of the start of block b kept
+// with a heading above it.
+func (w *pdfWriter) blockStart(b Block) float64 {
+	switch {
+	case b.Table != nil:
+		return w.tableStart()
+	case b.Chart != nil:
+		return w.chartMin(b.Chart)
+	case b.Materials != nil:
+		return w.tableStart() + pdfCellH*2 // a material's table has a caption
+	}
+	return w.textBlockHeight(b, 0)
+}
+
+// textOnly reports whether section s holds only text blocks (paragraphs,
+// notes, lists), whose heights textHeight knows before they are set.
+func (w *pdfWriter) textOnly(s Section) bool {
+	for _, b := range s.Blocks {
+		if b.Table != nil || b.Chart != nil || b.Materials != nil {
+			return false
+		}
+	}
+	return true
+}
+
+// textHeight returns the height in mm of the blocks of a text-only
+// section.
+func (w *pdfWriter) textHeight(s Section) float64 {
+	h := 0.0
+	for j, b := range s.Blocks {
+		h += w.textBlockHeight(b, j)
+	}
+	return h
+}
+
+// textBlockHeight returns the height in mm of text block b, the j-th of its
+// section (zero for a table, chart or materials block).
+func (w *pdfWriter) textBlockHeight(b Block, j int) float64 {
+	switch {
+	case b.Para != "":
+		return w.paraHeight(b.Para)
+	case b.Note != "":
+		return w.noteHeight(b.Note)
+	case b.List != nil:
+		h := w.bulletsHeight(b.List.Items)
+		if j > 0 {
+			h++
+		}
+		if b.List.Lead != "" {
+			h += w.paraHeight(b.List.Lead)
+		}
+		return h
+	}
+	return 0
+}
+
+// chart places chart c, the i-th of the sheet, as a PNG image with its
+// caption: across the text width where it fits, otherwise shrunk (centred) to the
 // room left on the page when that is at least pdfMinChartScale of its
 // size, otherwise at full width on a new page.
-func (w *pdfWriter) chart(sh *Sheet, id string) error {
-	for i, c := range sh.Charts {
-		if c.ID != id {
-			continue
-		}
-		pg := c.Page
-		pg.DPI = pdfChartDPI
-		// The PDF writer orders images by pixel width and breaks ties in
-		// map order; one extra pixel per chart keeps the output
-		// reproducible.
-		pg.Width += vg.Length(i) * vg.Inch / pdfChartDPI
-		img, err := figure.Encode(c.Figure, figure.PNG, pg)
-		if err != nil {
-			return err
-		}
-		ratio := float64(pg.Height) / float64(pg.Width)
-		wd, h := w.width, w.width*ratio
-		if room := w.room() - pdfCaptionH - 1; h > room {
-			if room >= pdfMinChartScale*h {
-				wd, h = room/ratio, room
-			} else {
-				w.pdf.AddPage()
-			}
-		}
-		p := w.pdf
-		opt := fpdf.ImageOptions{ImageType: "PNG"}
-		p.RegisterImageOptionsReader(id, opt, bytes.NewReader(img))
-		y := p.GetY() + 1
-		p.ImageOptions(id, pdfMargin+(w.width-wd)/2, y, wd, h, false, opt, 0, "")
-		p.SetY(y + h + 1)
-		p.SetFont(pdfFont, "B", 8)
-		p.CellFormat(p.GetStringWidth(w.t(c.Title+". "))+0.5, 3.8, w.t(c.Title+". "), "", 0, "L", false, 0, "")
-		p.SetFont(pdfFont, "", 8)
-		p.MultiCell(0, 3.8, w.t(c.Caption), "", "L", false)
-		p.Ln(2)
-		return nil
+func (w *pdfWriter) chart(c *Chart, i int) error {
+	id := fmt.Sprintf("chart%d", i)
+	pg := c.Page
+	pg.DPI = pdfChartDPI
+	// The PDF writer orders images by pixel width and breaks ties in
+	// map order; one extra pixel per chart keeps the output
+	// reproducible.
+	pg.Width += vg.Length(i) * vg.Inch / pdfChartDPI
+	img, err := figure.Encode(c.Figure, figure.PNG, pg)
+	if err != nil {
+		return err
 	}
+	ratio := float64(pg.Height) / float64(pg.Width)
+	wd, h := w.width, w.width*ratio
+	if room := w.room() - pdfCaptionH - 1; h > room {
+		if room >= pdfMinChartScale*h {
+			wd, h = room/ratio, room
+		} else {
+			w.pdf.AddPage()
+		}
+	}
+	p := w.pdf
+	opt := fpdf.ImageOptions{ImageType: "PNG"}
+	p.RegisterImageOptionsReader(id, opt, bytes.NewReader(img))
+	y := p.GetY() + 1
+	p.ImageOptions(id, pdfMargin+(w.width-wd)/2, y, wd, h, false, opt, 0, "")
+	p.SetY(y + h + 1)
+	p.SetFont(pdfFont, "B", 8)
+	p.CellFormat(p.GetStringWidth(w.t(c.Title+". "))+0.5, 3.8, w.t(c.Title+". "), "", 0, "L", false, 0, "")
+	p.SetFont(pdfFont, "", 8)
+	p.MultiCell(0, 3.8, w.t(c.Caption), "", "L", false)
+	p.Ln(2)
 	return nil
+}
+
+// materials sets each material as a small table of its values and source.
+func (w *pdfWriter) materials(ms []Material) {
+	for _, m := range ms {
+		t := Table{Caption: m.Role + ": " + m.Name, Header: []string{"Property", "Value"}}
+		if m.Description != "" {
+			t.add(false, "Description", m.Description)
+		}
+		for _, kv := range m.Values {
+			t.add(false, kv.Key, kv.Value)
+		}
+		if m.Note != "" {
+			t.add(false, "Note", m.Note)
+		}
+		t.add(false, "Source", m.Source)
+		w.table(t)
+	}
 }
 
 // table draws t with column widths from its content, wrapping long cells,
@@ -420,7 +471,7 @@ func (w *pdfWriter) table(t Table) {
 	header()
 	for i, r := range t.Rows {
 		style := ""
-		if i < len(t.Emph) && t.Emph[i] {
+		if t.IsEmph(i) {
 			style = "B"
 		}
 		p.SetFont(pdfFont, style, size)

@@ -15,13 +15,11 @@ import (
 	"cylcav/physics"
 )
 
-// Sheet is the content of a datasheet, formatted for people: every number
-// is already a string with its unit. HTML and PDF render the same Sheet.
-type Sheet struct {
-	// Version is the cylcav version written into the files.
-	Version  string
+// cavitySheet is the content of a cavity design's datasheet, part by
+// part, before FromDesign arranges it into the sections of a Sheet.
+type cavitySheet struct {
 	Title    string
-	Demo     bool   // the built-in demo scenario
+	Demo     bool   // the built-in demo scenario (its title is the sheet's)
 	Headline string // one line: mode, frequency, D and L
 	Facts    []KV   // the key figures at the top
 
@@ -50,11 +48,15 @@ type Table struct {
 	Caption string
 	Header  []string
 	Rows    [][]string
-	// Emph marks rows to emphasise (the wanted mode).
+	// Emph marks rows to emphasise (the wanted mode); missing entries
+	// are false.
 	Emph []bool
 	// Num marks columns of numbers, set right-aligned.
 	Num []bool
 }
+
+// IsEmph reports whether row i is emphasised.
+func (t Table) IsEmph(i int) bool { return i < len(t.Emph) && t.Emph[i] }
 
 // IsNum reports whether column j holds numbers.
 func (t Table) IsNum(j int) bool { return j < len(t.Num) && t.Num[j] }
@@ -84,14 +86,16 @@ type Chart struct {
 const modeWindow = 0.25
 
 // FromDesign assembles the datasheet of a single-cavity design result,
-// drawing its charts in theme th.
+// drawing its charts in theme th: ten sections from the dimensions to the
+// cautions, with the mode chart, Q0 against frequency, the trade-off and
+// the tuning curve (no Q section and no Q chart without a wall metal).
 func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity
 	w := spec.Mode
 	f0 := c.Frequency(w)
-	sh := &Sheet{Title: "Cavity datasheet: " + w.String() + " at " + freq(spec.Frequency), Demo: r.Scenario.Title != ""}
+	sh := &cavitySheet{Title: "Cavity datasheet: " + w.String() + " at " + freq(spec.Frequency), Demo: r.Scenario.Title != ""}
 	if sh.Demo {
 		sh.Title = r.Scenario.Title
 	}
@@ -227,7 +231,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	ct.add(false, "Spurious-free window", freq(cl.FreeLow)+" .. "+freq(cl.FreeHigh))
 	reach := r.Analysis.Reach
 	if span := reach.Operation.Span(); span != "" {
-		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(reach.Worst), reach.WorstMode, reach.RatioLo, reach.RatioHi))
+		ct.add(true, "Worst over "+span, fmt.Sprintf("%s, set by %v (reachable D/L %.4g .. %.4g)", pct(reach.Worst), reach.WorstNames(), reach.RatioLo, reach.RatioHi))
 	}
 	if spec.MinClearance > 0 || !reach.Meets() {
 		verdict := "met"
@@ -339,26 +343,87 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 
 	sh.Cautions = r.Cautions
-	sh.Safety = safety
+	sh.Safety = SafetyNotes()
 
 	// Charts.
 	if err := sh.addCharts(r, th, tc, qpts); err != nil {
 		return nil, err
 	}
-	return sh, nil
+	return sh.sheet(), nil
 }
 
-// safety are the cautions every datasheet carries.
-var safety = []string{
-	"High RF power: a resonant cavity multiplies the incident power into strong fields. Keep covers, couplings and tuners fitted while power is applied; RF burns are deep and are not felt at once. Keep exposure within the limits of the applicable RF-exposure rules and check leakage at joints and tuning screws.",
-	"High voltage: the transmitters, amplifiers and power supplies that feed a cavity carry lethal voltages; only qualified people may open or adjust them.",
-	"Breakdown and multipaction: the peak fields of a high-Q cavity can arc in air or multipact in vacuum, damaging surfaces and detuning the cavity. Derate the input power, keep surfaces clean and dry, and condition vacuum cavities gradually.",
-	"Cryogenics: cooled cavities bring cold burns, embrittlement and asphyxiation from boil-off gas; follow cryogen-handling practice and ventilate.",
-	"This datasheet is a design aid, not a safety assessment: defer to local codes, the equipment maker's instructions and licensed practice.",
+// cavityMethod is the closing note of a cavity datasheet: where its
+// numbers come from.
+const cavityMethod = "Resonant frequencies from the closed-cylinder resonance condition (Pozar, Microwave Engineering, 4th ed., sec. 6.4; Harrington, Time-Harmonic Electromagnetic Fields, sec. 5.3); unloaded Q by the surface-resistance perturbation method; clearance, optimum and tolerance analysis as described in the cylcav documentation."
+
+// sheet arranges the parts into the sections of the datasheet.
+func (sh *cavitySheet) sheet() *Sheet {
+	chart := func(id string) []Block {
+		for i := range sh.Charts {
+			if sh.Charts[i].ID == id {
+				return []Block{{Chart: &sh.Charts[i]}}
+			}
+		}
+		return nil
+	}
+	join := func(bs ...[]Block) []Block {
+		var out []Block
+		for _, b := range bs {
+			out = append(out, b...)
+		}
+		return out
+	}
+	table := func(t Table) []Block { return []Block{{Table: &t}} }
+	out := &Sheet{
+		Kind:     "Cavity resonator datasheet",
+		Title:    sh.Title,
+		Headline: sh.Headline,
+		Facts:    sh.Facts,
+		Method:   cavityMethod,
+	}
+	secs := []Section{
+		{"Dimensions and tolerances", table(sh.Dimensions)},
+		{"Mode chart", chart("mode-chart")},
+		{"Modes near the band", join(table(sh.Modes), []Block{{Note: sh.ModesNote}}, chart("q-frequency"))},
+		{"Spurious-mode clearance", join(table(sh.Clearance), chart("trade-off"))},
+	}
+	if len(sh.Q.Rows) > 0 {
+		secs = append(secs, Section{"Unloaded Q", join(table(sh.Q), []Block{{Note: sh.QNote}})})
+	}
+	sens := table(sh.Sensitive)
+	if len(sh.Spread.Rows) > 0 {
+		sens = join(sens, table(sh.Spread))
+	}
+	var cautions []Block
+	if len(sh.Cautions) > 0 {
+		cautions = []Block{{List: &List{Lead: "For this design:", Class: "cautions", Items: sh.Cautions}}}
+	}
+	cautions = append(cautions, Block{List: &List{Lead: "Safety:", Class: "safety", Items: sh.Safety}})
+	secs = append(secs,
+		Section{"Sensitivities and tolerance spread", sens},
+		Section{"Tuning", join(chart("tuning"), table(sh.Tuning))},
+		Section{"Materials and their sources", []Block{{Materials: sh.Materials}}},
+		Section{"Index convention", []Block{{Para: sh.Convention}}},
+		Section{"Cautions", cautions},
+	)
+	out.Sections = secs
+	return out
+}
+
+// SafetyNotes returns the safety notes every cavity or filter datasheet
+// carries (a new slice on each call).
+func SafetyNotes() []string {
+	return []string{
+		"High RF power: a resonant cavity multiplies the incident power into strong fields. Keep covers, couplings and tuners fitted while power is applied; RF burns are deep and are not felt at once. Keep exposure within the limits of the applicable RF-exposure rules and check leakage at joints and tuning screws.",
+		"High voltage: the transmitters, amplifiers and power supplies that feed a cavity carry lethal voltages; only qualified people may open or adjust them.",
+		"Breakdown and multipaction: the peak fields of a high-Q cavity can arc in air or multipact in vacuum, damaging surfaces and detuning the cavity. Derate the input power, keep surfaces clean and dry, and condition vacuum cavities gradually.",
+		"Cryogenics: cooled cavities bring cold burns, embrittlement and asphyxiation from boil-off gas; follow cryogen-handling practice and ventilate.",
+		"This datasheet is a design aid, not a safety assessment: defer to local codes, the equipment maker's instructions and licensed practice.",
+	}
 }
 
 // addCharts renders the four figures of the datasheet.
-func (sh *Sheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
+func (sh *cavitySheet) addCharts(r design.Result, th figure.Theme, tc cavity.TuningCurve, qpts []modechart.ModeQ) error {
 	d := r.Design
 	spec := d.Spec
 	c := d.Cavity

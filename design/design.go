@@ -344,7 +344,7 @@ func Cautions(r Result) []string {
 	}
 	reach := r.Analysis.Reach
 	if span := reach.Operation.Span(); span != "" && reach.Worst < d.Clearance.Value*(1-1e-9) {
-		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*reach.Worst, reach.WorstMode, 100*d.Clearance.Value))
+		out = append(out, fmt.Sprintf("Over the %s the clearance falls to %.3f %% (%s), from %.3f %% at the nominal size.", span, 100*reach.Worst, reach.WorstNames(), 100*d.Clearance.Value))
 	}
 	if !reach.Meets() {
 		out = append(out, fmt.Sprintf("The clearance requirement is not met everywhere the cavity operates: %s.", reach.Verdict()))

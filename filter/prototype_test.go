@@ -182,7 +182,7 @@ func TestRippleReturnLoss(t *testing.T) {
 }
 
 // TestOrderScipy compares the order formulas with scipy.signal.buttord and
-// cheb1ord (SciPy 1.10.1, testdata/filter/order.tsv).
+// cheb1ord (SciPy 1.10.1, filter/testdata/order.tsv).
 func TestOrderScipy(t *testing.T) {
 	for _, r := range readTSV(t, "order.tsv") {
 		ws, gpass, gstop, want := atof(t, r[1]), atof(t, r[2]), atof(t, r[3]), atoi(t, r[4])

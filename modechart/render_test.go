@@ -20,7 +20,7 @@ import (
 	"cylcav/physics"
 )
 
-var regen = flag.Bool("regen", false, "rewrite the golden files in testdata/modechart")
+var regen = flag.Bool("regen", false, "rewrite the golden files in modechart/testdata")
 
 // onLineTol is how far (in points) a label's centre may lie from its line:
 // the centre is interpolated on the drawn polyline, so only rounding.
@@ -231,7 +231,7 @@ func TestFormats(t *testing.T) {
 }
 
 // TestGoldenSVG compares a small chart's SVG with
-// testdata/modechart/chart_golden.svg exactly; run with -regen to rewrite it
+// modechart/testdata/chart_golden.svg exactly; run with -regen to rewrite it
 // after an intended change (and look at it).
 func TestGoldenSVG(t *testing.T) {
 	ch, err := New(Spec{
@@ -252,7 +252,7 @@ func TestGoldenSVG(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	path := filepath.Join("..", "testdata", "modechart", "chart_golden.svg")
+	path := filepath.Join("testdata", "chart_golden.svg")
 	if *regen {
 		if err := os.WriteFile(path, got, 0o644); err != nil {
 			t.Fatal(err)

@@ -14,11 +14,11 @@ import (
 
 // How the expected values were computed.
 //
-// The reference table testdata/bessel/crosszeros.tsv holds the first roots
+// The reference table physics/bessel/testdata/crosszeros.tsv holds the first roots
 // (m = 1..8, 12, 20, 35, 60, 100) of both cross products for c = 1.1,
 // 1.5, 2, 3.5, 10, 100 and n = 0, 1, 2, 3, 5, 10, 25, 50, 99, and the
 // first three roots of a thin line (c = 1.001) for a few orders, written by
-// testdata/bessel/gen_cross.py: brackets from sign changes of the cross
+// physics/bessel/testdata/gen_cross.py: brackets from sign changes of the cross
 // product on a fine grid in double precision (SciPy 1.10.1), refined with
 // mpmath 1.2.1 findroot at mp.dps = 30 and printed to 20 significant
 // digits. The method shares nothing with the Go code.
@@ -57,10 +57,10 @@ type crossRef struct {
 	x     float64
 }
 
-// readCrossRef reads testdata/bessel/crosszeros.tsv.
+// readCrossRef reads physics/bessel/testdata/crosszeros.tsv.
 func readCrossRef(t testing.TB) []crossRef {
 	t.Helper()
-	path := filepath.Join("..", "..", "testdata", "bessel", "crosszeros.tsv")
+	path := filepath.Join("testdata", "crosszeros.tsv")
 	f, err := os.Open(path)
 	if err != nil {
 		t.Fatalf("reference table: %v", err)

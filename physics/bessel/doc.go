@@ -57,7 +57,7 @@
 //
 // # Accuracy
 //
-// Against a 30-digit mpmath table (testdata/bessel) every zero of the
+// Against a 30-digit mpmath table (physics/bessel/testdata) every zero of the
 // table n = 0..200, m = 1..200 is within 1 ulp (relative error at most
 // 2.3e-16), and about 93% of them are correctly rounded. The tests hold
 // the error to 1e-15. The position is carried without drift: j_{0,200000}
@@ -106,7 +106,7 @@
 // instead from the solution of Bessel's equation with value 1 and slope 0
 // at x, expanded to c x (derived in cross.go), without cancellation.
 //
-// Accuracy: against the 30-digit mpmath table (testdata/bessel: c = 1.1,
+// Accuracy: against the 30-digit mpmath table (physics/bessel/testdata: c = 1.1,
 // 1.5, 2, 3.5, 10, 100 with n up to 99 and m up to 100, and the first
 // roots at c = 1.001; 1,425 roots) the largest relative error is 2.8e-16,
 // and 89% of the roots are correctly rounded; the tests hold 1e-14. The

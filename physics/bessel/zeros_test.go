@@ -14,11 +14,11 @@ import (
 
 // How the expected values were computed.
 //
-// The reference tables testdata/bessel/jzeros.tsv and jpzeros.tsv hold
+// The reference tables physics/bessel/testdata/jzeros.tsv and jpzeros.tsv hold
 // j_{n,m} and j'_{n,m} for n = 0..200, m = 1..200, computed with mpmath
 // 1.2.1 (Debian python3-mpmath), mpmath.besseljzero(n, m, derivative) at
 // mp.dps = 30 and printed to 20 significant digits, by
-// testdata/bessel/gen_zeros.py (mpmath counts x = 0 as the first zero of
+// physics/bessel/testdata/gen_zeros.py (mpmath counts x = 0 as the first zero of
 // J'_0; the script shifts it away). Parsing a 20-digit decimal rounds it
 // correctly to float64, so the table is exact to half an ulp.
 //
@@ -76,10 +76,10 @@ const (
 	refZerosPerOrder = 200 // m = 1..200
 )
 
-// readRef reads a table written by testdata/bessel/gen_zeros.py.
+// readRef reads a table written by physics/bessel/testdata/gen_zeros.py.
 func readRef(t testing.TB, name string) refTable {
 	t.Helper()
-	path := filepath.Join("..", "..", "testdata", "bessel", name)
+	path := filepath.Join("testdata", name)
 	f, err := os.Open(path)
 	if err != nil {
 		t.Fatalf("reference table: %v", err)

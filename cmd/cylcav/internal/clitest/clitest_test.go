@@ -26,7 +26,7 @@ func TestCheckBadInput(t *testing.T) {
 
 func TestCheckExamples(t *testing.T) {
 	// TM010 of a 50 mm x 50 mm vacuum cavity: 4.5897 GHz (the modes
-	// command's reference, testdata/cavity/modes.txt).
+	// command's reference, cavity/testdata/modes.txt).
 	clitest.CheckExamples(t, `  # an example
   $ cylcav modes --diameter 50mm --length 50mm --count 1
   cavity: radius 25 mm, diameter 50 mm, length 50 mm, fill vacuum (eps_r 1, mu_r 1)

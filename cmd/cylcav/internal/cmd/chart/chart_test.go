@@ -181,7 +181,7 @@ func TestAgreesWithDesign(t *testing.T) {
 		extra []string
 		want  string
 	}{
-		{[]string{"--min-clearance", "7%"}, "worst over tuning 7.231 % (TE112); required 7 %: met"},
+		{[]string{"--min-clearance", "7%"}, "worst over tuning 7.231 % (TE112, TE311); required 7 %: met"},
 		{[]string{"--min-clearance", "7.1%", "--tolerance", "0.05mm"}, "worst over tuning and machining tolerance 7.040 % (TE112); required 7.1 %: NOT met: TE112 7.040 %"},
 	} {
 		design := append([]string{"design", "--mode", "TE011", "--freq", "10GHz", "--tuning", "0.5%", "--samples", "1000"}, tc.extra...)

@@ -51,7 +51,7 @@ func TestBadInputMain(t *testing.T) {
 		{Args: with("--format", "xml"), Code: 2, Want: []string{`--format "xml"`}},
 		{Args: with("extra"), Code: 2, Want: []string{"extra"}},
 		// Impossible requests: status 1 and what was achievable
-		// (7.364 % at D/L = 1.388: testdata/cavity/gen_optimum.py).
+		// (7.364 % at D/L = 1.388: cavity/testdata/gen_optimum.py).
 		{Args: with("--min-clearance", "50%"), Code: 1, Want: []string{"best clearance", "7.364 %"}},
 		{Args: with("--max-diameter", "10mm"), Code: 2, Want: []string{`--max-diameter "10mm"`, "cut off", "must exceed 36.5648 mm"}},
 		{Args: with("--tuning", "45%"), Code: 1, Want: []string{"tuning", "D/L >="}},

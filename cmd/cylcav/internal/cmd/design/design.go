@@ -172,6 +172,9 @@ type Output struct {
 	ClearancePct      float64 `json:"clearance_pct"`
 	WorstClearancePct float64 `json:"worst_clearance_pct"`
 	WorstMode         string  `json:"worst_mode"`
+	// WorstModes names every mode that ties for the worst case
+	// (cavity.TieClearance), in mode order; WorstMode is the first.
+	WorstModes []string `json:"worst_modes"`
 	// Reach is the reachable D/L span (tuning, temperature and machining
 	// tolerance) over which WorstClearancePct holds.
 	ReachRatio [2]float64 `json:"reach_ratio_d_over_l"`
@@ -221,7 +224,7 @@ func JSON(r design.Result) Output {
 		DiameterM: d.Cavity.Diameter(), LengthM: d.Cavity.Length, Ratio: d.Ratio,
 		MachinedDiameterM: r.Machined.Diameter(), MachinedLengthM: r.Machined.Length,
 		ClearancePct: 100 * d.Clearance.Value, WorstClearancePct: 100 * reach.Worst,
-		WorstMode: reach.WorstMode.String(), ReachRatio: [2]float64{reach.RatioLo, reach.RatioHi},
+		WorstMode: reach.WorstMode.String(), WorstModes: modeNames(reach.WorstModes), ReachRatio: [2]float64{reach.RatioLo, reach.RatioHi},
 		Offending:   OffendersJSON(reach),
 		AtRangeEdge: d.AtRangeEdge,
 		Below:       cmdutil.NeighbourJSON(d.Clearance.Below), Above: cmdutil.NeighbourJSON(d.Clearance.Above),
@@ -412,4 +415,13 @@ func signedF(v float64) string {
 		return "-" + physics.FormatFrequency(-v, 4)
 	}
 	return "+" + physics.FormatFrequency(v, 4)
+}
+
+// modeNames returns the labels of ms, never nil (an empty JSON list).
+func modeNames(ms []cavity.Mode) []string {
+	out := make([]string, 0, len(ms))
+	for _, m := range ms {
+		out = append(out, m.String())
+	}
+	return out
 }

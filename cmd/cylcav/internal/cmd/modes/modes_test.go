@@ -14,7 +14,7 @@ import (
 )
 
 // Reference frequencies of the 25 mm radius, 50 mm long air cavity, from
-// testdata/cavity/modes.txt (mpmath 1.3.0, 40 digits); the first three are
+// cavity/testdata/modes.txt (mpmath 1.3.0, 40 digits); the first three are
 // the project's first issue's acceptance values, 4.5897, 4.6190 and 5.4821
 // GHz.
 var air25x50 = []struct {

@@ -113,6 +113,13 @@ func runReport(opts *Options) error {
 		return err
 	}
 	sh.Version = cmdutil.Version
+	if opts.Scenario.Title != "" {
+		sh.Notice = &datasheet.Notice{Lead: "Demo scenario", Parts: []datasheet.Span{
+			{Text: "This datasheet was made by "}, {Text: "cylcav report", Code: true},
+			{Text: " with no design flags, from the built-in invented scenario. Give the flags of "},
+			{Text: "cylcav design", Code: true}, {Text: " to report your own design."},
+		}}
+	}
 	var html, pdf bytes.Buffer
 	if err := sh.WriteHTML(&html); err != nil {
 		return err
@@ -140,6 +147,6 @@ func runReport(opts *Options) error {
 		extra = " and " + opts.PDF + " (PDF datasheet)"
 	}
 	_, err = fmt.Fprintf(opts.IO.Out, "wrote %s (HTML datasheet, %d charts)%s: %s, %s\nmode index convention: n azimuthal, m radial, p axial\n",
-		opts.Output, len(sh.Charts), extra, what, sh.Headline)
+		opts.Output, len(sh.Charts()), extra, what, sh.Headline)
 	return err
 }

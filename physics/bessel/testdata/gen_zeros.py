@@ -15,7 +15,7 @@ table uses besseljzero(0, m+1, 1).
 
 Usage (from the repository root; takes roughly 10 minutes on 2 cores):
 
-  /usr/bin/python3 testdata/bessel/gen_zeros.py [--nmax 200] [--mmax 200] [--jobs 2]
+  /usr/bin/python3 physics/bessel/testdata/gen_zeros.py [--nmax 200] [--mmax 200] [--jobs 2]
 """
 
 import argparse
@@ -54,7 +54,7 @@ def write_table(path, title, rows, mmax, nmax, which):
         f.write("# computed with mpmath %s (Debian python3-mpmath), "
                 "mpmath.besseljzero, mp.dps = %d, printed to %d significant digits\n"
                 % (mpmath.__version__, DPS, DIGITS))
-        f.write("# command: /usr/bin/python3 testdata/bessel/gen_zeros.py "
+        f.write("# command: /usr/bin/python3 physics/bessel/testdata/gen_zeros.py "
                 "--nmax %d --mmax %d\n" % (nmax, mmax))
         f.write("# columns: n<TAB>m<TAB>zero\n")
         for n, j, jp in rows:

@@ -26,7 +26,7 @@ product changes sign across it at 30 digits, and that the roots increase.
 
 Usage (from the repository root; about 30 CPU-minutes; --cache DIR keeps finished parts):
 
-  /usr/bin/python3 testdata/bessel/gen_cross.py [--jobs 2] [--cache DIR]
+  /usr/bin/python3 physics/bessel/testdata/gen_cross.py [--jobs 2] [--cache DIR]
 """
 
 import argparse
@@ -182,7 +182,7 @@ def main():
                 "mp.dps = %d, brackets from a SciPy %s sign scan; printed to %d significant digits\n"
                 % (mpmath.__version__, DPS, scipy.__version__, DIGITS))
         f.write("# the ratio c is the float64 nearest to the decimal in column 2, taken exactly\n")
-        f.write("# command: /usr/bin/python3 testdata/bessel/gen_cross.py\n")
+        f.write("# command: /usr/bin/python3 physics/bessel/testdata/gen_cross.py\n")
         f.write("# columns: kind<TAB>c<TAB>n<TAB>m<TAB>root\n")
         for rows in parts:
             for r in rows:

@@ -26,7 +26,7 @@ Tables written next to this script:
 
 Usage (from the repository root, takes about a second):
 
-  /usr/bin/python3 testdata/filter/gen_scipy.py
+  /usr/bin/python3 filter/testdata/gen_scipy.py
 """
 
 import math
@@ -38,7 +38,7 @@ import scipy.signal as sig
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 HEADER = ("# computed with scipy %s (Debian python3-scipy), numpy %s\n"
-          "# command: /usr/bin/python3 testdata/filter/gen_scipy.py\n"
+          "# command: /usr/bin/python3 filter/testdata/gen_scipy.py\n"
           % (scipy.__version__, numpy.__version__))
 
 

@@ -1,0 +1,131 @@
+package datasheet_test
+
+import (
+	"bytes"
+	"regexp"
+	"strings"
+	"testing"
+
+	"cylcav/cavity"
+	"cylcav/datasheet"
+	"cylcav/design"
+	"cylcav/figure"
+	"cylcav/figure/rendertest"
+)
+
+// sample is a sheet of another kind than a cavity design, built from
+// sections alone, as a filter datasheet would be.
+func sample() *datasheet.Sheet {
+	t := datasheet.Table{Caption: "Couplings", Header: []string{"Pair", "k"}, Rows: [][]string{{"1–2", "0.0123"}, {"2–3", "<0.01 & rising"}}, Emph: []bool{false, true}, Num: []bool{false, true}}
+	return &datasheet.Sheet{
+		Version: "test", Kind: "Filter datasheet", Title: "A sample", Headline: "four resonators at 10 GHz",
+		Notice: &datasheet.Notice{Lead: "Sample", Parts: []datasheet.Span{{Text: "made by "}, {Text: "a test", Code: true}}},
+		Facts:  []datasheet.KV{{Key: "Order", Value: "4"}},
+		Sections: []datasheet.Section{
+			{Heading: "Couplings", Blocks: []datasheet.Block{{Table: &t}, {Note: "k = FBW M"}}},
+			{Heading: "Notes", Blocks: []datasheet.Block{{Para: "A paragraph."}, {List: &datasheet.List{Lead: "Mind:", Class: "cautions", Items: []string{"one", "two"}}}}},
+			{Heading: "Materials", Blocks: []datasheet.Block{{Materials: []datasheet.Material{{Role: "Wall", Name: "copper", Source: "a handbook"}}}}},
+		},
+		Method: "Sample method.",
+	}
+}
+
+// TestSectionsHTML: the HTML numbers the sections 1, 2, 3 in order, sets
+// every block, escapes text and balances its elements.
+func TestSectionsHTML(t *testing.T) {
+	var b bytes.Buffer
+	if err := sample().WriteHTML(&b); err != nil {
+		t.Fatal(err)
+	}
+	s := b.String()
+	heads := regexp.MustCompile(`<h2><span class="num">(\d+)</span>([^<]*)</h2>`).FindAllStringSubmatch(s, -1)
+	want := [][2]string{{"1", "Couplings"}, {"2", "Notes"}, {"3", "Materials"}}
+	if len(heads) != len(want) {
+		t.Fatalf("HTML has %d section headings, want %d:\n%s", len(heads), len(want), s)
+	}
+	for i, h := range heads {
+		if h[1] != want[i][0] || h[2] != want[i][1] {
+			t.Errorf("heading %d = %s %q, want %s %q", i, h[1], h[2], want[i][0], want[i][1])
+		}
+	}
+	for _, w := range []string{
+		`<p class="kind">Filter datasheet</p>`, `<strong>Sample.</strong> made by <code>a test</code>`,
+		`<td class="num">&lt;0.01 &amp; rising</td>`, `<tr class="emph">`, `<p class="note">k = FBW M</p>`,
+		`<p>A paragraph.</p>`, "<p>Mind:</p>\n<ul class=\"cautions\"><li>one</li><li>two</li></ul>",
+		`<p class="src"><strong>Source:</strong> a handbook</p>`, `<footer>Made by cylcav test. Sample method.</footer>`,
+	} {
+		if !strings.Contains(s, w) {
+			t.Errorf("HTML lacks %q", w)
+		}
+	}
+	for _, el := range []string{"table", "section", "ul", "h2", "p"} {
+		if o, c := strings.Count(s, "<"+el+">")+strings.Count(s, "<"+el+" "), strings.Count(s, "</"+el+">"); o != c {
+			t.Errorf("<%s> opened %d times, closed %d times", el, o, c)
+		}
+	}
+}
+
+// TestSectionsPDF: the PDF of the same sheet is a valid PDF, the same
+// bytes twice.
+func TestSectionsPDF(t *testing.T) {
+	var a, b bytes.Buffer
+	if err := sample().WritePDF(&a); err != nil {
+		t.Fatal(err)
+	}
+	rendertest.PDF(t, a.Bytes())
+	if err := sample().WritePDF(&b); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(a.Bytes(), b.Bytes()) {
+		t.Error("two PDFs of the same sheet differ")
+	}
+}
+
+func TestNoticeText(t *testing.T) {
+	n := &datasheet.Notice{Lead: "Demo scenario", Parts: []datasheet.Span{{Text: "made by "}, {Text: "cylcav report", Code: true}, {Text: "."}}}
+	if got, want := n.Text(), "Demo scenario. made by 'cylcav report'."; got != want {
+		t.Errorf("Notice.Text() = %q, want %q", got, want)
+	}
+}
+
+// TestFromDesignSections: a cavity design without a wall metal has no Q
+// section and no Q chart; with one it has both, and the sections keep
+// their order.
+func TestFromDesignSections(t *testing.T) {
+	te011, err := cavity.ParseMode("TE011")
+	if err != nil {
+		t.Fatal(err)
+	}
+	headings := func(s design.Scenario) ([]string, int) {
+		t.Helper()
+		r, err := s.Run(nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
+		if err != nil {
+			t.Fatal(err)
+		}
+		var hs []string
+		for _, sec := range sh.Sections {
+			hs = append(hs, sec.Heading)
+		}
+		return hs, len(sh.Charts())
+	}
+	s := design.Scenario{Spec: cavity.DesignSpec{Mode: te011, Frequency: 10e9}, Settings: cavity.AnalysisSettings{CurvePoints: 11}}
+	hs, n := headings(s)
+	want := "Dimensions and tolerances|Mode chart|Modes near the band|Spurious-mode clearance|Sensitivities and tolerance spread|Tuning|Materials and their sources|Index convention|Cautions"
+	if got := strings.Join(hs, "|"); got != want || n != 3 {
+		t.Errorf("no wall: sections %q and %d charts, want %q and 3", got, n, want)
+	}
+	d, err := design.Demo()
+	if err != nil {
+		t.Fatal(err)
+	}
+	d.Settings.Tolerance.Samples = 500
+	hs, n = headings(d)
+	want = "Dimensions and tolerances|Mode chart|Modes near the band|Spurious-mode clearance|Unloaded Q|Sensitivities and tolerance spread|Tuning|Materials and their sources|Index convention|Cautions"
+	if got := strings.Join(hs, "|"); got != want || n != 4 {
+		t.Errorf("demo: sections %q and %d charts, want %q and 4", got, n, want)
+	}
+}
