@@ -93,6 +93,11 @@
 // closed section the fields are not given (LossErr wraps
 // ErrNotImplemented).
 //
+// Loss.Field samples the matched field anywhere in the r-z half plane
+// (Field.At; tested by integrating its energy density over the body against
+// the modal energies), the input a field map needs; drawing one is not
+// implemented yet.
+//
 // For TM0 resonances of bodies with a free axis, Loss.Accelerating gives
 // the accelerating voltage V and transit-time factor T for a particle
 // speed beta c and R/Q in both conventions (V^2/(omega W), "linac", and

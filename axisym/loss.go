@@ -79,6 +79,74 @@ type Loss struct {
 	// section (no free axis).
 	Axis      []AxisSample
 	Frequency float64 // Hz
+	// Field is the matched field itself, for sampling (Field.At).
+	Field *Field
+}
+
+// Field is the matched field of one resonance in the r-z half plane, for
+// the normalisation of its Loss (stored energy Loss.StoredEnergyJ).
+type Field struct {
+	fam      cavity.Family
+	omega    float64
+	sections []fieldSection
+}
+
+type fieldSection struct {
+	z0, length   float64
+	inner, outer float64
+	eps, mu      float64 // absolute
+	g            guide
+	lines        []lineField
+}
+
+// At returns the field amplitudes at radius r and axial position z (m,
+// from end plate A): for TM0 E_r, E_z and H_phi, for TE0 E_phi, H_r and
+// H_z, as (e1, e2, h1, h2) = (E_r, E_z, H_phi, 0) or (E_phi, 0, H_r, H_z),
+// in V/m and A/m. E and H are in time quadrature (the j of the phasors is
+// dropped). ok is false outside the body (in metal). The components are
+// the modal sums
+//
+//	E_t = sum e_m(r) V_m(z),  H_t = sum (z x e_m) I_m(z),
+//	E_z = sum norm kc Z0(kc r) I_m/(omega eps) (TM),
+//	H_z = -sum norm kc Z0(kc r) V_m/(omega mu) (TE)
+//
+// (Collin, Field Theory of Guided Waves, 2nd ed., ch. 5, as recalled; the
+// axial parts from (1/x)(x Z1)' = Z0, DLMF 10.6.2). A point on a junction
+// plane takes the section to its right.
+func (fd *Field) At(r, z float64) (e1, e2, h1, h2 float64, ok bool) {
+	for k, sc := range fd.sections {
+		last := k == len(fd.sections)-1
+		if z < sc.z0 || (z >= sc.z0+sc.length && !last) || z > sc.z0+sc.length {
+			continue
+		}
+		if r < sc.inner || r > sc.outer {
+			return 0, 0, 0, 0, false
+		}
+		zz := z - sc.z0
+		for m, lf := range sc.lines {
+			v, i := lf.at(zz)
+			if v == 0 && i == 0 {
+				continue
+			}
+			kc := sc.g.kc[m]
+			em := modeAt(sc.g, m, r)
+			var axial float64
+			if kc > 0 {
+				axial = sc.g.norm[m] * kc * sc.g.z(m, 0, kc*r)
+			}
+			if fd.fam == cavity.TM {
+				e1 += em * v
+				e2 += axial * i / (fd.omega * sc.eps)
+				h1 += em * i
+			} else {
+				e1 += em * v
+				h1 -= em * i
+				h2 -= axial * v / (fd.omega * sc.mu)
+			}
+		}
+		return e1, e2, h1, h2, true
+	}
+	return 0, 0, 0, 0, false
 }
 
 // AxisSample is one quadrature node of the axial field: position z (m
@@ -244,6 +312,7 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 	for _, sec := range b.Sections {
 		coax = coax || sec.InnerRadius > 0
 	}
+	fd := &Field{fam: s.fam, omega: omega}
 	z0 := 0.0
 	for i := range s.lines {
 		ln := &s.lines[i]
@@ -270,6 +339,10 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 			lf = append(lf, fl)
 		}
 		g := newGuide(s.fam, sec.InnerRadius, sec.Radius, len(ln.kc))
+		fd.sections = append(fd.sections, fieldSection{
+			z0: z0, length: ln.length, inner: sec.InnerRadius, outer: sec.Radius,
+			eps: eps, mu: mu, g: g, lines: lf,
+		})
 		// Energies per mode (orthonormal modes: no cross terms), by
 		// quadrature along z.
 		q := zRule(ln.length, ln.kc, k2)
@@ -373,7 +446,7 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		z0 += ln.length
 	}
 	w := we + wm
-	l.StoredEnergyJ, l.ElectricShareJ, l.Frequency = w, we, f
+	l.StoredEnergyJ, l.ElectricShareJ, l.Frequency, l.Field = w, we, f, fd
 	for k, p := range parts {
 		l.Factors = append(l.Factors, Factor{Part: p, G: omega * w / surf[k]})
 	}
