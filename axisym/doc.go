@@ -12,8 +12,8 @@
 // wrapping ErrNotImplemented rather than a number: n >= 1 (hybrid coupling
 // of TE and TM at steps), junctions whose aperture is neither side's
 // cross-section, radially layered fills, open ends (beam pipes to
-// infinity), accurate wall losses next to step edges (see Losses), peak
-// surface fields and field maps.
+// infinity), accurate wall losses next to step edges (see Losses) and peak
+// surface fields.
 //
 // # Method
 //
@@ -95,8 +95,8 @@
 //
 // Loss.Field samples the matched field anywhere in the r-z half plane
 // (Field.At; tested by integrating its energy density over the body against
-// the modal energies), the input a field map needs; drawing one is not
-// implemented yet.
+// the modal energies), the input of the field maps that package
+// axisymplot draws.
 //
 // For TM0 resonances of bodies with a free axis, Loss.Accelerating gives
 // the accelerating voltage V and transit-time factor T for a particle

@@ -21,8 +21,10 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/axisym"
+	"cylcav/axisymplot"
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -48,6 +50,13 @@ type Options struct {
 	// Beta, when > 0 (--beta given), adds the accelerator figures of TM0
 	// resonances for a particle at speed Beta c on the axis.
 	Beta float64
+	// FieldMap, when not empty (--field-map), is the file (PNG, SVG or PDF
+	// by its extension) for the field map of resonance number MapIndex (the
+	// # column), written atomically; Force replaces an existing file.
+	FieldMap  string
+	MapFormat figure.Format
+	MapIndex  int
+	Force     bool
 }
 
 // NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
@@ -102,10 +111,18 @@ With --beta B (a particle speed over c) TM0 resonances of a body whose
 axis is free (no inner conductor) gain the transit-time factor T and R/Q
 in both conventions, labelled: V^2/(omega W) ("linac") and V^2/(2 omega W)
 ("circuit"). Peak surface fields are not given: at a sharp step edge the
-model's field is infinite.`,
+model's field is infinite.
+
+--field-map FILE writes |E| and |H| of resonance --map (the # column,
+default 1) in the r-z half plane, the body outlined, as PNG, SVG or PDF by
+the file's extension; --force replaces an existing file.`,
 			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
+  ...
+
+  # The field map of the re-entrant cavity's lowest resonance
+  $ cylcav stack examples/reentrant.yaml --fmax 4GHz --field-map reentrant.svg --force
   ...
 
   # Two cells joined by an iris: resonances up to 12 GHz
@@ -152,6 +169,19 @@ model's field is infinite.`,
 				}
 				opts.Beta = v
 			}
+			if opts.FieldMap != "" {
+				if opts.MapFormat, err = figure.FormatOf(opts.FieldMap); err != nil {
+					return cmdutil.FlagError("field-map", opts.FieldMap, err)
+				}
+				if opts.MapIndex < 1 {
+					return cmdutil.FlagError("map", strconv.Itoa(opts.MapIndex), fmt.Errorf("must be a resonance number (the # column) >= 1"))
+				}
+				if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap}); err != nil {
+					return err
+				}
+			} else if cmd.Flags().Changed("map") {
+				return cmdutil.Usagef("--map needs --field-map FILE")
+			}
 			if walls.Given() {
 				ws, err := walls.Walls()
 				if err != nil {
@@ -176,6 +206,9 @@ model's field is infinite.`,
 	fl.StringVar(&fmax, "fmax", "", "list every resonance below this frequency (e.g. 12GHz)")
 	fl.StringVar(&family, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both")
 	fl.StringVar(&beta, "beta", "", "particle speed over c for the accelerator figures of TM0 resonances (e.g. 1)")
+	fl.StringVar(&opts.FieldMap, "field-map", "", "write the field map of resonance --map to this file (.png, .svg or .pdf)")
+	fl.IntVar(&opts.MapIndex, "map", 1, "resonance number (the # column) of the field map")
+	fl.BoolVar(&opts.Force, "force", false, "replace the field-map file if it exists")
 	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
@@ -210,7 +243,8 @@ type Row struct {
 
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
-		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families, Losses: opts.Walls != nil || opts.Beta > 0,
+		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
+		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "",
 	})
 	if err != nil {
 		if errors.Is(err, axisym.ErrNotImplemented) {
@@ -242,6 +276,11 @@ func runStack(opts *Options) error {
 			}
 		}
 		rows[i] = row
+	}
+	if opts.FieldMap != "" {
+		if err := writeMap(opts, res); err != nil {
+			return err
+		}
 	}
 	switch opts.Format {
 	case cmdutil.JSON:
@@ -441,4 +480,32 @@ func numText(v *float64, digits int, unit string) string {
 		return "-"
 	}
 	return strconv.FormatFloat(*v, 'g', digits, 64) + unit
+}
+
+// writeMap draws the field map of resonance opts.MapIndex and writes it.
+func writeMap(opts *Options, res []axisym.Resonance) error {
+	if opts.MapIndex > len(res) {
+		return cmdutil.FlagError("map", strconv.Itoa(opts.MapIndex), fmt.Errorf("there are %d resonances below --fmax", len(res)))
+	}
+	r := res[opts.MapIndex-1]
+	if r.Loss == nil {
+		return fmt.Errorf("field map of resonance %d: %w", opts.MapIndex, r.LossErr)
+	}
+	title := fmt.Sprintf("%s0 resonance %d at %s", r.Family, r.Index, physics.FormatFrequency(r.Frequency, 7))
+	if opts.Geometry.Title != "" {
+		title = opts.Geometry.Title + ": " + title
+	}
+	fm, err := axisymplot.NewFieldMap(opts.Geometry.Body, r.Loss, axisymplot.FieldMapOptions{Title: title})
+	if err != nil {
+		return err
+	}
+	fig, err := fm.Figure(figure.DefaultTheme())
+	if err != nil {
+		return err
+	}
+	data, err := figure.Encode(fig, opts.MapFormat, figure.Page{})
+	if err != nil {
+		return err
+	}
+	return cmdutil.WriteFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap, Data: data})
 }

@@ -12,6 +12,7 @@ import (
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/stack"
 	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure/rendertest"
 	"cylcav/qfactor"
 )
 
@@ -24,6 +25,8 @@ func inRepo(t *testing.T) {
 
 func TestExamples(t *testing.T) {
 	inRepo(t)
+	// The field-map example writes reentrant.svg in the working directory.
+	t.Cleanup(func() { os.Remove("reentrant.svg") })
 	cmd := stack.NewCmdStack(&cmdutil.IOStreams{}, nil)
 	clitest.CheckExamples(t, cmd.Example)
 	for _, f := range []string{"iris-pair", "disc-in-can", "nosed-cell"} {
@@ -106,6 +109,10 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--family", "hybrid"}, Code: 2, Want: []string{"--family", "te, tm or both"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--modes", "1"}, Code: 2, Want: []string{"--modes"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--beta", "0"}, Code: 2, Want: []string{"--beta", "(0, 1]"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.bmp")}, Code: 2, Want: []string{"--field-map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "0"}, Code: 2, Want: []string{"--map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "99"}, Code: 2, Want: []string{"--map", "resonances below --fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--map", "2"}, Code: 2, Want: []string{"--map needs --field-map"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--wall", "unobtainium"}, Code: 2, Want: []string{"--wall"}},
 		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
 		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
@@ -176,5 +183,25 @@ func TestBetaColumns(t *testing.T) {
 		if has && math.Abs(*row.RoverQCircuit-*row.RoverQLinac/2) > 1e-12**row.RoverQLinac {
 			t.Errorf("circuit R/Q %g, want half the linac value %g", *row.RoverQCircuit, *row.RoverQLinac)
 		}
+	}
+}
+
+// TestFieldMapFile checks that --field-map writes a valid image (the map's
+// numbers are tested in package axisymplot) and refuses to replace a file
+// without --force.
+func TestFieldMapFile(t *testing.T) {
+	inRepo(t)
+	out := filepath.Join(t.TempDir(), "map.svg")
+	r := clitest.Run(t, "stack", "examples/reentrant.yaml", "--fmax", "4GHz", "--field-map", out)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	b, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rendertest.SVG(t, b)
+	if r := clitest.Run(t, "stack", "examples/reentrant.yaml", "--fmax", "4GHz", "--field-map", out); r.Code != 2 {
+		t.Errorf("second write without --force: exit %d, want 2", r.Code)
 	}
 }
