@@ -32,6 +32,11 @@ type cavitySheet struct {
 	Sensitive  Table
 	Spread     Table
 	Tuning     Table
+	// Accel and AccelNotes are the section "Operating figures"
+	// (accel.go: superconducting, bench, accelerator and bulb figures);
+	// empty for other designs.
+	Accel      []Table
+	AccelNotes []string
 	Materials  []Material
 	Cautions   []string // from the design
 	Safety     []string // always printed
@@ -118,6 +123,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
 		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", fmt.Sprintf("%.0f", d.Q0)})
 	}
+	sh.Facts = append(sh.Facts, accelFacts(r)...)
 
 	// Dimensions and tolerances.
 	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
@@ -151,7 +157,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	}
 	var qOf func(m cavity.Mode) (float64, error)
 	if ok, _ := r.Scenario.WallQ(); ok {
-		qOf = func(m cavity.Mode) (float64, error) { return design.QFunc(m, *r.Scenario.Wall, operate)(c) }
+		qOf = func(m cavity.Mode) (float64, error) { return r.Scenario.ModeQ(m)(c) }
 	}
 	mt := Table{Caption: fmt.Sprintf("Modes within ±%s of the wanted frequency", short(modeWindow)),
 		Header: []string{"Mode", "Frequency", "Offset", "Offset", "Q0", "Note"},
@@ -342,6 +348,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 			Source: "the local slope of each metal's thermal strain: integrated cryogenic contraction data where the metal has them (see cylcav materials), else its linear coefficient or the --alpha-side / --alpha-axial flags; the drift uses the full strain law"})
 	}
 
+	sh.Accel, sh.AccelNotes = accelSection(r)
 	sh.Cautions = r.Cautions
 	sh.Safety = SafetyNotes()
 
@@ -402,6 +409,18 @@ func (sh *cavitySheet) sheet() *Sheet {
 	secs = append(secs,
 		Section{"Sensitivities and tolerance spread", sens},
 		Section{"Tuning", join(chart("tuning"), table(sh.Tuning))},
+	)
+	if len(sh.Accel) > 0 {
+		var bs []Block
+		for _, t := range sh.Accel {
+			bs = append(bs, table(t)...)
+		}
+		for _, n := range sh.AccelNotes {
+			bs = append(bs, Block{Note: n})
+		}
+		secs = append(secs, Section{"Operating figures", bs})
+	}
+	secs = append(secs,
 		Section{"Materials and their sources", []Block{{Materials: sh.Materials}}},
 		Section{"Index convention", []Block{{Para: sh.Convention}}},
 		Section{"Cautions", cautions},

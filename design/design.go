@@ -50,6 +50,15 @@ type Scenario struct {
 	// and the length (physics.Conductor.Strain); a metal with no expansion
 	// data at all is taken not to expand, and the output says so.
 	Side, Axial physics.Conductor
+	// Superconductor, when not nil, makes the walls superconducting
+	// niobium at the operating temperature (qfactor.Surface); Wall must
+	// then be niobium.
+	Superconductor *qfactor.BCS
+	// Accel, when not nil, asks for the accelerator figures (accel.go).
+	Accel *Accelerator
+	// Bulb, when not nil, asks for the filling factors of a central
+	// storage bulb (a TE0mp mode; cavity.Cavity.FillingFactors).
+	Bulb *cavity.Bulb
 }
 
 // TemperatureError is a temperature that the thermal data of a metal or
@@ -182,6 +191,16 @@ type Result struct {
 	Machined cavity.Cavity
 	// Unloaded is the Q breakdown at the design; nil without a wall.
 	Unloaded *qfactor.Unloaded
+	// Split is Q0 split into its BCS, residual and normal-metal parts; nil
+	// unless the walls are superconducting.
+	Split *qfactor.SuperconductingQ
+	// Accel holds the accelerator figures; nil unless Scenario.Accel.
+	Accel *AccelResult
+	// Filling holds the filling factors of Scenario.Bulb; nil without.
+	Filling *cavity.Filling
+	// Bench holds the warm bench figures of a cold vacuum cavity; nil
+	// unless the cavity operates cryogenically or Scenario.Accel is set.
+	Bench *Bench
 	// Cautions are plain sentences for people about this design; the
 	// outputs of `cylcav design` add the general RF caution after them.
 	Cautions []string
@@ -247,15 +266,19 @@ func walls(wall physics.Conductor, t float64) qfactor.WallSet {
 	return qfactor.SameWalls(qfactor.Surface{Conductor: wall, Temperature: t})
 }
 
-func unloaded(c cavity.Cavity, m cavity.Mode, wall physics.Conductor, t float64) (qfactor.Unloaded, error) {
-	return qfactor.UnloadedQ(c, m, walls(wall, t).At(nil))
-}
-
 // WallQ reports whether Q0 can be computed with the walls at the operating
-// temperature, and if not, why (the resistivity model does not hold there).
+// temperature, and if not, why (the resistivity model does not hold there;
+// for superconducting walls, qfactor.WallSet.Validate's reason).
 func (s Scenario) WallQ() (ok bool, why error) {
-	if s.Wall == nil {
+	w, ok := s.Walls()
+	if !ok {
 		return false, nil
+	}
+	if s.Superconductor != nil {
+		if err := w.Validate(); err != nil {
+			return false, err
+		}
+		return true, nil
 	}
 	operate, _ := s.Temps()
 	if _, err := qfactor.Conductivity(*s.Wall, operate); err != nil {
@@ -277,7 +300,12 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	operate, _ := s.Temps()
 	wallQ, _ := s.WallQ()
 	if wallQ {
-		spec.Q = QFunc(spec.Mode, *s.Wall, operate)
+		spec.Q = s.ModeQ(spec.Mode)
+	}
+	if s.Accel != nil {
+		if err := s.validateAccel(); err != nil {
+			return Result{}, err
+		}
 	}
 	d, err := cavity.Optimize(spec)
 	if err != nil {
@@ -291,11 +319,41 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	}
 	r := Result{Scenario: s, Design: d, Analysis: a, Machined: s.Machined(d.Cavity)}
 	if wallQ {
-		u, err := unloaded(d.Cavity, spec.Mode, *s.Wall, operate)
+		w, _ := s.Walls()
+		u, err := qfactor.UnloadedQ(d.Cavity, spec.Mode, w.At(nil))
 		if err != nil {
 			return Result{}, err
 		}
 		r.Unloaded = &u
+		if s.Superconductor != nil {
+			sp, err := qfactor.SplitSuperconducting(u, w)
+			if err != nil {
+				return Result{}, err
+			}
+			r.Split = &sp
+		}
+	}
+	if s.Accel != nil {
+		if r.Accel, err = s.accel(r); err != nil {
+			return Result{}, err
+		}
+	}
+	if s.Bulb != nil {
+		b := *s.Bulb
+		if b.Radius > d.Cavity.Radius || b.Length > d.Cavity.Length {
+			return Result{}, fmt.Errorf("the storage bulb (D = %s, L = %s) does not fit in the designed cavity (D = %s, L = %s)",
+				physics.FormatLength(2*b.Radius, 4), physics.FormatLength(b.Length, 4), physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatLength(d.Cavity.Length, 6))
+		}
+		f, err := d.Cavity.FillingFactors(spec.Mode, b)
+		if err != nil {
+			return Result{}, err
+		}
+		r.Filling = &f
+	}
+	if s.Accel != nil || operate < cryogenicBelow {
+		if r.Bench, err = bench(r); err != nil {
+			return Result{}, err
+		}
 	}
 	r.Cautions = Cautions(r)
 	return r, nil
@@ -310,7 +368,7 @@ func wallQCaution(wall physics.Conductor, operate float64, why error) string {
 	if physics.TemperatureIn(operate, lo, hi) {
 		return "Q0 not computed: " + strings.TrimPrefix(why.Error(), "qfactor: ") + "."
 	}
-	return fmt.Sprintf("Q0 not computed: the walls operate at %s, outside %s..%s where the resistivity model of %s holds (cold and superconducting walls are not modelled by design yet).",
+	return fmt.Sprintf("Q0 not computed: the walls operate at %s, outside %s..%s where the resistivity model of %s holds (for superconducting niobium give --superconducting; other cold normal metals are not modelled yet).",
 		physics.FormatTemperature(operate, 4), physics.FormatTemperature(lo, 4), physics.FormatTemperature(hi, 4), wall.Name)
 }
 
@@ -383,8 +441,8 @@ func Cautions(r Result) []string {
 		}
 	}
 	if u := r.Unloaded; u != nil {
-		operate, _ := r.Scenario.Temps()
-		for _, w := range qfactor.Validity(d.Cavity, walls(*r.Scenario.Wall, operate), *u) {
+		ws, _ := r.Scenario.Walls()
+		for _, w := range qfactor.Validity(d.Cavity, ws, *u) {
 			out = append(out, strings.ToUpper(w.Text[:1])+w.Text[1:]+".") // a sentence, as the other cautions
 		}
 	}
@@ -400,6 +458,27 @@ func Cautions(r Result) []string {
 	}
 	if err := spec.Mode.EndPlateTuning(); err != nil {
 		out = append(out, "Tuning: "+err.Error()+".")
+	}
+	if a := r.Accel; a != nil {
+		if mg := a.Margins; mg != nil && (mg.AboveQuench || mg.Emitted) {
+			if mg.AboveQuench {
+				out = append(out, fmt.Sprintf("The peak surface magnetic field %.4g mT reaches the quench guide %.4g mT: the cavity is unlikely to hold this gradient.", mg.Bpk*1e3, mg.Limits.Quench*1e3))
+			}
+			if mg.Emitted {
+				out = append(out, fmt.Sprintf("The peak surface electric field %.4g MV/m is above the usual field-emission onset %.4g MV/m: expect dark current and X-rays.", mg.Epk*1e-6, mg.Limits.FieldEmission*1e-6))
+			}
+		}
+		if r.Scenario.Accel.Gradient > 0 {
+			out = append(out, CautionRadiation)
+		}
+		if a.Coupling != nil {
+			out = append(out, CautionHighPower)
+		}
+		for _, h := range a.HOMs {
+			if h.Near && !(h.Mode == spec.Mode) && (h.ROverQ > 0 || h.ROverQTransverse > 0) {
+				out = append(out, fmt.Sprintf("%v at %s lies within %.3g %% of beam harmonic %d (%s): a beam can drive it; damp or move it.", h.Mode, physics.FormatFrequency(h.Frequency, 7), 100*a.HOMWindow, h.Harmonic, physics.FormatFrequency(float64(h.Harmonic)*r.Scenario.Accel.Bunch, 7)))
+			}
+		}
 	}
 	if u := r.Unloaded; u != nil && u.Share.Fill > 0.5 {
 		out = append(out, fmt.Sprintf("The fill's loss dominates Q0 (%.0f %% of the loss); a better wall metal will not help much.", 100*u.Share.Fill))

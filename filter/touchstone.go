@@ -1,13 +1,12 @@
 package filter
 
 import (
-	"bufio"
 	"fmt"
 	"io"
-	"math"
-	"math/cmplx"
 	"strconv"
 	"strings"
+
+	"cylcav/touchstone"
 )
 
 // ReferenceImpedance is the port reference impedance, in ohm, written on the
@@ -24,12 +23,12 @@ var conventionLines = []string{
 }
 
 // WriteTouchstone writes pts as a Touchstone version 1.1 two-port file
-// (.s2p) to w: the comment lines (each prefixed "! "), the statement of the
-// S-parameter convention, the option line "# HZ S RI R 50", then one line
-// per point with the frequency in hertz and the pairs S11 S21 S12 S22 as
-// real and imaginary parts (the two-port order N11 N21 N12 N22 of
-// Touchstone 1.1). RI is used rather than dB/angle so that a zero of S21
-// (a transmission zero hit exactly) is written exactly.
+// (.s2p) to w through touchstone.Write: the comment lines (each prefixed
+// "! "), the statement of the S-parameter convention, the option line
+// "# HZ S RI R 50", then one line per point with the frequency in hertz and
+// the pairs S11 S21 S12 S22 as real and imaginary parts (the two-port order
+// N11 N21 N12 N22 of Touchstone 1.1). RI is used rather than dB/angle so
+// that a zero of S21 (a transmission zero hit exactly) is written exactly.
 //
 // The frequencies must be strictly ascending and every value finite;
 // comment lines must not contain line breaks. Each frequency is written in
@@ -39,47 +38,24 @@ var conventionLines = []string{
 // by many parts in 1e12 between two frequencies 1e-12 apart. The
 // S-parameters are written with 12 significant digits.
 func WriteTouchstone(w io.Writer, pts []Point, comments []string) error {
-	if len(pts) == 0 {
-		return fmt.Errorf("filter: Touchstone file needs at least one frequency point")
+	d := &touchstone.Data{
+		Ports:    2,
+		Z0:       []float64{ReferenceImpedance, ReferenceImpedance},
+		Freq:     make([]float64, len(pts)),
+		S:        make([][]complex128, 4),
+		Comments: append(append([]string(nil), comments...), conventionLines...),
 	}
-	for i, p := range pts {
-		if !(p.F > 0) || math.IsInf(p.F, 0) {
-			return fmt.Errorf("filter: Touchstone point %d: frequency must be > 0 Hz and finite, got %g Hz", i+1, p.F)
-		}
-		if i > 0 && !(p.F > pts[i-1].F) {
-			return fmt.Errorf("filter: Touchstone frequencies must be strictly ascending, point %d (%g Hz) follows %g Hz", i+1, p.F, pts[i-1].F)
-		}
-		for _, s := range [...]complex128{p.S11, p.S21, p.S22} {
-			if cmplx.IsNaN(s) || cmplx.IsInf(s) {
-				return fmt.Errorf("filter: Touchstone point %d at %g Hz has a non-finite S-parameter %v", i+1, p.F, s)
-			}
-		}
+	for i := range d.S {
+		d.S[i] = make([]complex128, len(pts))
 	}
-	for i, c := range comments {
-		if strings.ContainsAny(c, "\r\n") {
-			return fmt.Errorf("filter: Touchstone comment %d contains a line break", i+1)
-		}
+	for k, p := range pts {
+		d.Freq[k] = p.F
+		d.S[0][k], d.S[1][k], d.S[2][k], d.S[3][k] = p.S11, p.S21, p.S21, p.S22 // reciprocal: S12 = S21
 	}
-	bw := bufio.NewWriter(w)
-	for _, c := range comments {
-		fmt.Fprintf(bw, "! %s\n", c)
+	if err := touchstone.Write(w, d); err != nil {
+		return fmt.Errorf("filter: %w", err)
 	}
-	for _, c := range conventionLines {
-		fmt.Fprintf(bw, "! %s\n", c)
-	}
-	fmt.Fprintf(bw, "# HZ S RI R %s\n", strconv.FormatFloat(ReferenceImpedance, 'g', -1, 64))
-	num := func(x float64) string { return strconv.FormatFloat(x, 'e', 11, 64) }
-	for _, p := range pts {
-		bw.WriteString(strconv.FormatFloat(p.F, 'e', -1, 64)) // exact round trip
-		for _, s := range [...]complex128{p.S11, p.S21, p.S21, p.S22} {
-			bw.WriteByte(' ')
-			bw.WriteString(num(real(s)))
-			bw.WriteByte(' ')
-			bw.WriteString(num(imag(s)))
-		}
-		bw.WriteByte('\n')
-	}
-	return bw.Flush()
+	return nil
 }
 
 // Summary returns a few lines describing the design, for file headers and

@@ -12,8 +12,8 @@ import (
 	"testing"
 )
 
-// touchstone is a two-port file as read back by readTouchstone.
-type touchstone struct {
+// tsFile is a two-port file as read back by readTouchstone.
+type tsFile struct {
 	comments []string
 	option   []string
 	freq     []float64
@@ -23,8 +23,8 @@ type touchstone struct {
 // readTouchstone is a small independent reader of Touchstone 1.1 two-port
 // files (RI, MA or DB data; frequency units HZ/KHZ/MHZ/GHZ), following the
 // published specification rather than the writer's code.
-func readTouchstone(r io.Reader) (*touchstone, error) {
-	ts := &touchstone{}
+func readTouchstone(r io.Reader) (*tsFile, error) {
+	ts := &tsFile{}
 	unit := 1.0
 	format := "MA"
 	sc := bufio.NewScanner(r)

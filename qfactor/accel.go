@@ -144,8 +144,7 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 	kappa := omega / (speed * physics.SpeedOfLight)
 
 	// On-axis voltage per unit E0 (derived; see the doc comment).
-	up, um := (kappa+bz)*d/2, (kappa-bz)*d/2
-	gap := d / 2 * cmplx.Abs(cmplx.Rect(sinc(up), up)+cmplx.Rect(sinc(um), um))
+	gap := axialGain(kappa, bz, d)
 	v0 := d // integral of |cos(beta_z z)| over 0..d
 	zeta := 2.0
 	if m.P >= 1 {
@@ -180,6 +179,16 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 	}
 	f.Below, f.BelowCount = below, n
 	return f, nil
+}
+
+// axialGain returns |integral_0^d cos(bz z) exp(j kappa z) dz|, the on-axis
+// voltage per unit peak field of a field varying as cos(bz z) for a
+// particle of wavenumber kappa = omega/(beta c) (derived: written with sinc
+// so that the synchronous case kappa = bz needs no special branch; see
+// Acceleration).
+func axialGain(kappa, bz, d float64) float64 {
+	up, um := (kappa+bz)*d/2, (kappa-bz)*d/2
+	return d / 2 * cmplx.Abs(cmplx.Rect(sinc(up), up)+cmplx.Rect(sinc(um), um))
 }
 
 // sinc returns sin(x)/x, 1 at x = 0.

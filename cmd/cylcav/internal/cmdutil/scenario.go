@@ -19,11 +19,12 @@ import (
 type ScenarioFlags struct {
 	flags *pflag.FlagSet
 	geo   *GeometryFlags
+	acc   *accelFlags
 	names map[string]bool
 
 	wall, objective                          string
 	temp, alphaSide, alphaAxial, tol, tolLen string
-	tolDist, operating, machining            string
+	tolDist, operating, machining, demo      string
 	mode                                     cavity.Mode
 	freq, maxD, maxL, tuning, minClear, minQ float64
 	ratioLo, ratioHi                         float64
@@ -64,6 +65,7 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	f.IntVar(&sf.samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
 	f.Uint64Var(&sf.seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
 	f.BoolVar(&sf.countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
+	sf.acc = addAccelFlags(cmd)
 	f.VisitAll(func(fl *pflag.Flag) {
 		if !before[fl.Name] {
 			sf.names[fl.Name] = true
@@ -72,6 +74,7 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	for _, mc := range []string{"samples", "seed", "tolerance-dist"} {
 		Needs(cmd, mc, "tolerance", "tolerance-length")
 	}
+	f.StringVar(&sf.demo, "demo", "link", "built-in invented scenario used when no design flag is given: link (TE011 reference cavity of a microwave link) | cell (superconducting TM010 accelerator cell at 2 K)")
 	return sf
 }
 
@@ -86,7 +89,16 @@ func (sf *ScenarioFlags) Scenario() (design.Scenario, error) {
 		}
 	})
 	if demo {
-		return design.Demo()
+		switch sf.demo {
+		case "link":
+			return design.Demo()
+		case "cell":
+			return design.DemoCell()
+		}
+		return design.Scenario{}, FlagError("demo", sf.demo, fmt.Errorf("unknown demo scenario; use link|cell"))
+	}
+	if sf.flags.Changed("demo") {
+		return design.Scenario{}, Usagef("--demo takes no other design flags: it runs a built-in scenario")
 	}
 	return sf.parse()
 }
@@ -192,6 +204,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		}
 		*t.dst = v
 	}
+	if err := sf.acc.operating(&s, set); err != nil {
+		return s, err
+	}
 	if s.TempGiven && s.TOperate != 0 && !physics.TemperatureIn(s.TOperate, th.TMin, th.TMax) {
 		return s, FlagError("operating-temp", sf.operating, fmt.Errorf("must lie within --temp %s", sf.temp))
 	}
@@ -200,6 +215,9 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	}
 	if err := th.Validate(); err != nil {
 		return s, Usagef("%v", err)
+	}
+	if err := sf.acc.apply(&s, set); err != nil {
+		return s, err
 	}
 	if ok, why := s.WallQ(); !ok && why != nil && (sp.Objective == cavity.MaxQ || sp.MinQ > 0) {
 		op, _ := s.Temps()

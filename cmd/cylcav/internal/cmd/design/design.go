@@ -27,6 +27,8 @@ type Options struct {
 	IO       *cmdutil.IOStreams
 	Scenario design.Scenario
 	Format   cmdutil.Format
+	// HOMCSV selects the higher-order-mode table as the CSV output.
+	HOMCSV bool
 }
 
 // NewCmdDesign returns `cylcav design`. runF, when not nil, replaces the
@@ -36,6 +38,7 @@ func NewCmdDesign(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var (
 		checkFormat func() error
 		scenario    *cmdutil.ScenarioFlags
+		csvTable    string
 	)
 	cmd := &cobra.Command{
 		Use:   "design [--mode MODE --freq F] [flags]",
@@ -65,9 +68,25 @@ and 200 C: a temperature outside the data exits with status 2. An air fill
 is vented (--fill air, constant pressure) or sealed (--fill air-sealed,
 constant density).
 
+Superconducting walls: --superconducting with --wall niobium and the wall
+temperature (--temperature 2K, the operating set-point) gives Q0 from the
+BCS approximation with its BCS and residual parts. For a TM0mp mode the
+accelerator flags add the transit-time factor, R/Q (linac convention,
+V^2/(omega U)), G and the peak-field ratios; --gradient the dissipated
+power, the heat load at the bath with the refrigerator power (common
+practice: 20 % of Carnot) and the margins of the peak fields against the
+niobium guides; --beam-current and --sync-phase the matched input coupling
+(beta, Qext, loaded bandwidth, forward and reflected power with and without
+detuning); --hom-max the monopole and dipole modes with R/Q, transverse R/Q,
+T and Q0, flagged near the harmonics of --bunch-freq. A cold vacuum cavity
+also gets its bench figures: the frequency of the machined cavity warm in
+vacuum and in air. The figures hold for the closed pillbox: the
+axisymmetric solver for beam pipes and noses is not available yet.
+
 With no flags at all, design runs a built-in demo scenario and says so on
-its first line. --format csv prints the trade-off curves (clearance and Q0
-against D/L).
+its first line (--demo cell: the superconducting accelerator cell). --format
+csv prints the trade-off curves (clearance and Q0 against D/L), or with
+--csv-table hom the higher-order-mode table.
 
 Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.
 Tolerances are read as 3-sigma limits of a normal distribution unless
@@ -80,6 +99,12 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 
   # A niobium accelerator cell designed for 2 K, dimensions to machine at 20 C
   $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --temp 2K:300K --operating-temp 2K
+
+  # A superconducting niobium TM010 cell at 2 K and 15 MV/m with a 2 mA beam
+  $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --superconducting --temperature 2K --gradient 15MV/m --beam-current 2mA --ratio-range 1.5:1.6
+
+  # Its monopole and dipole modes up to 4 GHz as CSV
+  $ cylcav design --mode TM010 --freq 1.3GHz --wall niobium --superconducting --temperature 2K --hom-max 4GHz --ratio-range 1.5:1.6 --format csv --csv-table hom
 
   # Highest Q0 with at least 5 % clearance, +-1 % tuning, -20 C..60 C,
   # machined to +-0.02 mm, as JSON
@@ -95,6 +120,19 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 				return err
 			}
 			opts.Scenario = s
+			switch csvTable {
+			case "tradeoff":
+			case "hom":
+				if opts.Format != cmdutil.CSV {
+					return cmdutil.Usagef("--csv-table hom needs --format csv")
+				}
+				if s.Accel == nil || s.Accel.HOMMax == 0 {
+					return cmdutil.Usagef("--csv-table hom needs --hom-max, e.g. --hom-max 4GHz")
+				}
+				opts.HOMCSV = true
+			default:
+				return cmdutil.FlagError("csv-table", csvTable, fmt.Errorf("unknown table; use tradeoff|hom"))
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -103,6 +141,7 @@ Tolerances are read as 3-sigma limits of a normal distribution unless
 	}
 	scenario = cmdutil.AddScenarioFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
+	cmd.Flags().StringVar(&csvTable, "csv-table", "tradeoff", "table written by --format csv: tradeoff (clearance and Q0 against D/L) | hom (the higher-order-mode table)")
 	return cmd
 }
 
@@ -115,6 +154,9 @@ func runDesign(opts *Options) error {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, JSON(r))
 	case cmdutil.CSV:
+		if opts.HOMCSV {
+			return writeHOMCSV(opts.IO.Out, r.Accel.HOMs, opts.Scenario.Accel.Bunch)
+		}
 		return writeCSV(opts.IO.Out, r.Analysis.Curve)
 	}
 	return WriteTable(opts.IO.Out, r)
@@ -194,7 +236,13 @@ type Output struct {
 	TunedLengthM *[2]float64        `json:"tuned_length_m,omitempty"`
 	DriftHz      *[2]float64        `json:"thermal_drift_hz,omitempty"`
 	Tolerance    *Tolerance         `json:"tolerance"`
-	Cautions     []string           `json:"cautions"`
+	// QSuperconducting, Bench and Accelerator are set for superconducting
+	// walls, a cold vacuum cavity and an accelerator request.
+	QSuperconducting *SplitOut   `json:"q_superconducting,omitempty"`
+	Bench            *BenchOut   `json:"bench,omitempty"`
+	Accelerator      *AccelOut   `json:"accelerator,omitempty"`
+	Filling          *FillingOut `json:"filling,omitempty"`
+	Cautions         []string    `json:"cautions"`
 }
 
 // Offender is the JSON form of a cavity.Offender.
@@ -233,6 +281,8 @@ func JSON(r design.Result) Output {
 		Cautions:    printedCautions(r),
 	}
 	o.OperatingTempK, o.MachiningTempK = r.Scenario.Temps()
+	o.QSuperconducting, o.Bench, o.Accelerator = splitJSON(r.Split), benchJSON(r.Bench), accelJSON(r)
+	o.Filling = fillingJSON(r.Filling)
 	if d.Limit != cavity.NoLimit {
 		l := string(d.Limit)
 		o.Limit = &l
@@ -329,6 +379,7 @@ func WriteTable(w io.Writer, r design.Result) error {
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
+	writeAccelTable(w, r)
 	s := r.Analysis.Sensitivity
 	fmt.Fprintf(w, "\nSensitivities:\n")
 	fmt.Fprintf(w, "  df/dD = %s per mm\n", signedF(s.DfDD*1e-3))

@@ -51,7 +51,13 @@ charts. The file needs nothing else to display and prints cleanly to PDF
 from a browser (A4 or Letter). --pdf also writes a PDF datasheet directly.
 
 The design flags are those of 'cylcav design' and mean the same; the design
-is solved by the same library call. With no design flag the built-in demo
+is solved by the same library call. With superconducting walls or the
+accelerator flags (--superconducting, --temperature, --gradient,
+--beam-current, --hom-max, ...) the datasheet gains the section
+"Operating figures": the Q0 split, the bench frequencies
+and dimensions to machine, the figures at the gradient with the heat load
+and field margins, the beam coupling and the mode table, with the cautions
+on cryogenics, high power and radiation. With no design flag the built-in demo
 scenario is reported, and the datasheet says so.
 
 Files are written whole or not at all; an existing file is replaced only
@@ -61,6 +67,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Example: `  # The datasheet of the built-in demo scenario
   $ cylcav report -o datasheet.html
   wrote datasheet.html (HTML datasheet, 4 charts): demo scenario, TE011 at 10.5 GHz, D = 40.2443 mm, L = 28.4503 mm
+
+  # The built-in superconducting TM010 cell at 2 K (invented scenario)
+  $ cylcav report --demo cell -o cell.html
 
   # A copper TE011 cavity at 10 GHz, +-1 % tuning, as HTML and PDF
   $ cylcav report --mode TE011 --freq 10GHz --wall copper --tuning 1% \

@@ -1,0 +1,100 @@
+package design_test
+
+import (
+	"encoding/csv"
+	"encoding/json"
+	"math"
+	"strconv"
+	"strings"
+	"testing"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/clitest"
+)
+
+var cell = []string{"design", "--mode", "TM010", "--freq", "1.3GHz", "--wall", "niobium", "--superconducting", "--temperature", "2K",
+	"--ratio-range", "1.5:1.6", "--hom-max", "4GHz", "--bunch-freq", "650MHz"}
+
+// TestHOMTableFormats: the JSON and CSV forms of the mode table list the
+// same modes with the same numbers (one library table, two printers).
+func TestHOMTableFormats(t *testing.T) {
+	j := clitest.Run(t, append(cell, "--format", "json")...)
+	c := clitest.Run(t, append(cell, "--format", "csv", "--csv-table", "hom")...)
+	if j.Code != 0 || c.Code != 0 {
+		t.Fatalf("exit %d / %d: %s %s", j.Code, c.Code, j.Stderr, c.Stderr)
+	}
+	var out struct {
+		Accelerator struct {
+			HOMs []struct {
+				Mode string  `json:"mode"`
+				FHz  float64 `json:"f_hz"`
+				Q0   float64 `json:"q0"`
+			} `json:"hom"`
+		} `json:"accelerator"`
+		QSuperconducting *struct {
+			QBCS float64 `json:"q_bcs"`
+		} `json:"q_superconducting"`
+	}
+	if err := json.Unmarshal([]byte(j.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	rows, err := csv.NewReader(strings.NewReader(c.Stdout)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	hs := out.Accelerator.HOMs
+	if len(rows) != len(hs)+1 || len(hs) < 10 || out.QSuperconducting == nil {
+		t.Fatalf("%d CSV rows for %d JSON modes (split %v)", len(rows), len(hs), out.QSuperconducting)
+	}
+	for i, h := range hs {
+		f, _ := strconv.ParseFloat(rows[i+1][2], 64)
+		if rows[i+1][0] != h.Mode || f != h.FHz {
+			t.Errorf("row %d: CSV %v, JSON %+v", i, rows[i+1], h)
+		}
+	}
+	clitest.CheckBadInput(t, "design", []clitest.BadCase{
+		{Args: append(cell[1:], "--csv-table", "hom"), Code: 2, Want: []string{"--csv-table hom needs --format csv"}},
+		{Args: []string{"--mode", "TM010", "--freq", "1.3GHz", "--format", "csv", "--csv-table", "hom"}, Code: 2, Want: []string{"--hom-max"}},
+		{Args: append(cell[1:], "--format", "csv", "--csv-table", "modes"), Code: 2, Want: []string{"--csv-table", "tradeoff|hom"}},
+	})
+}
+
+// TestBulbFillingFactors: the filling factors printed for a hydrogen-maser
+// style TE011 cavity are cavity.FillingFactors of the designed cavity, and
+// the bulb flags refuse what they cannot describe.
+func TestBulbFillingFactors(t *testing.T) {
+	args := []string{"design", "--mode", "TE011", "--freq", "1.420405751GHz", "--wall", "copper", "--ratio-range", "0.8:1.2",
+		"--bulb-diameter", "150mm", "--bulb-length", "200mm", "--format", "json"}
+	r := clitest.Run(t, args...)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		DiameterM float64 `json:"diameter_m"`
+		LengthM   float64 `json:"length_m"`
+		Filling   *struct {
+			Maser     float64 `json:"maser_filling_factor"`
+			MagneticZ float64 `json:"magnetic_z_fraction"`
+		} `json:"filling"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if out.Filling == nil {
+		t.Fatal("no filling factors in the JSON output")
+	}
+	c := cavity.Cavity{Radius: out.DiameterM / 2, Length: out.LengthM}
+	f, err := c.FillingFactors(cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}, cavity.Bulb{Radius: 0.075, Length: 0.2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(f.Maser-out.Filling.Maser) > 1e-12 || math.Abs(f.MagneticZ-out.Filling.MagneticZ) > 1e-12 {
+		t.Errorf("filling %+v, library %+v", *out.Filling, f)
+	}
+	clitest.CheckBadInput(t, "design", []clitest.BadCase{
+		{Args: []string{"--mode", "TM010", "--freq", "1.3GHz", "--bulb-diameter", "10mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"TE0mp"}},
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "10mm"}, Code: 2, Want: []string{"--bulb-diameter needs --bulb-length"}},
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "1m", "--bulb-length", "10mm"}, Code: 1, Want: []string{"does not fit", "D = 1.000 m"}},
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "-5mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"--bulb-diameter"}},
+	})
+}

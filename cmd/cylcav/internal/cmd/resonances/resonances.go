@@ -1,0 +1,885 @@
+// Package resonances implements `cylcav resonances`: read a measured sweep
+// (Touchstone), find every resonance in it, fit each by the linear
+// fractional (Q-circle) method and print f0, loaded Q, couplings and
+// unloaded Q with their uncertainties; optionally plot the sweep and each
+// fit.
+package resonances
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"cylcav/benchplot"
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
+	"cylcav/measure"
+	"cylcav/physics"
+	"cylcav/qfactor"
+	"cylcav/touchstone"
+)
+
+// Options are the validated inputs of `cylcav resonances`.
+type Options struct {
+	IO     *cmdutil.IOStreams
+	Format cmdutil.Format
+
+	File     string // the sweep file
+	Empty    string // the empty cavity's sweep (--empty); File is then the filled one
+	Settings measure.Settings
+
+	// Identify is set when the cavity's nominal size was given: the modes
+	// are then named (measure.Identify).
+	Identify bool
+	Ident    measure.IdentifySettings
+
+	// Walls, when set (--wall), gives each identified mode's model Q0 for
+	// the wall diagnosis.
+	Walls *qfactor.WallSet
+
+	Plot     string // whole-sweep plot file, "" for none
+	FitPlots string // BASE.EXT: one plot per resonance, BASE-1.EXT, ...
+	Page     figure.Page
+	Force    bool
+}
+
+// NewCmdResonances returns `cylcav resonances`. runF, when not nil,
+// receives the options instead of the default run (for tests).
+func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: io}
+	var minHeight, window string
+	var dpi int
+	var geo *cmdutil.GeometryFlags
+	var walls *cmdutil.WallFlags
+	cmd := &cobra.Command{
+		Use:   "resonances SWEEP.s1p|SWEEP.s2p [flags]",
+		Short: "Find and fit the resonances of a measured sweep: f0, loaded Q, coupling, Q0",
+		Long: `Read a sweep measured on a network analyser, as a Touchstone 1.1 or 2.0
+file (one port: reflection, S11; two ports: transmission, S21 with S11 and
+S22), find every resonance in it, and fit each with the linear fractional
+(Q-circle) method of Kajfez (1994), which removes the cable delay and a
+coupling loss.
+
+For each resonance it prints the resonant frequency f0, the loaded Q, the
+coupling coefficient of each port (reflection: from the circle's diameter;
+transmission: from the S11 and S22 circles), the unloaded Q0 = QL(1 + sum
+beta), each with its standard uncertainty from the fit residuals, and the
+loaded Q from the 3 dB bandwidth of the magnitude with a check of whether
+the two agree (they differ when leakage, cable delay or coupling loss
+distort the magnitude; trust the fit then).
+
+Resonances are peaks of |S21| standing --min-height dB above the
+background (default 10 dB) or dips of |S11| (default 1 dB). Each fit uses
+the points within --window half-power bandwidths of the peak (default 3).
+
+With the cavity's nominal size (--diameter or --radius, --length, and
+--fill when filled) each resonance is also given its mode: the effective
+D and L are fitted to the measured frequencies (or, with --fit-fill, the
+fill's permittivity with D and L held), every resonance goes to the
+nearest mode of the fitted cavity, a TE0mp/TM1mp pair split in two is
+resolved by Q (TE0mp has the higher Q) and its splitting printed, and a
+resonance that matches no mode within 0.3 % is flagged (a coupling
+structure's own resonance, or a cavity far from its drawing).
+
+With --empty EMPTY, the main sweep is the same cavity completely filled
+with a dielectric (nominal value from --fill): the empty sweep gives the
+effective D and L (and, with --wall, the wall diagnosis); the filled sweep,
+identified in that cavity, gives the fill's eps_r = (f_empty/f_filled)^2
+and loss tangent from the two Q0 values of each mode found in both, with
+their uncertainties (fits and wall model; the dimensions cancel).
+
+--plot writes the sweep with the resonances numbered; --fit-plots BASE.EXT
+writes one plot per resonance (BASE-1.EXT, BASE-2.EXT, ...): measured
+points against the fitted curve, in dB and in the complex plane. The file
+type follows the extension: .png, .svg or .pdf. Existing files are
+replaced only with --force.`,
+		Example: `  # The invented bench sweep shipped with cylcav (five resonances, 4-6 GHz;
+  # run from the source tree)
+  $ cylcav resonances testdata/measure/wide.s2p
+  testdata/measure/wide.s2p: 4001 points, transmission (2-port), 5 resonances
+  ...
+  5  5.83000033 ± 0.00000027  2871.78 ± 0.77  0.120018 ± 0.000011    0.1000190 ± 0.0000099  3503.67 ± 0.94  2857    agrees
+
+  # The same as CSV; add --plot sweep.svg --fit-plots fit.svg for pictures
+  $ cylcav resonances testdata/measure/wide.s2p --format csv
+
+  # Name the modes of a stainless test cavity drawn as D = 40 mm, L = 31 mm,
+  # and compare its walls with stainless steel 304
+  $ cylcav resonances testdata/measure/modes.s2p --diameter 40mm --length 31mm --wall ss304
+  ...
+  Effective cavity: D = 40.0768 ± 0.0074 mm, L = 30.8473 ± 0.0096 mm (drawn 40.0000 mm, 31.0000 mm); RMS residual 266 ppm.
+  Resonances 8 (TE011) and 7 (TM111): a degenerate pair split by 40.00 MHz; the higher Q is taken as TE011.
+  ...
+  Mean 2.0 % IACS (1.15 MS/m), spread 0.6 % IACS across 8 modes; TE0mp modes 2.6 %, TM modes 1.4 %.
+
+  # Measure a fill: the same cavity empty and completely filled with PTFE
+  $ cylcav resonances testdata/measure/modes_filled.s2p --empty testdata/measure/modes.s2p --diameter 40mm --length 31mm --fill ptfe
+  ...
+  Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if err := opts.parse(cmd, args, minHeight, window, dpi, geo, walls); err != nil {
+				return err
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return runResonances(opts)
+		},
+	}
+	f := cmd.Flags()
+	checkFormat := cmdutil.FormatFlag(cmd, &opts.Format)
+	f.StringVar(&minHeight, "min-height", "", "smallest peak height (dip depth) above the background, e.g. 20dB (default 10 dB peaks, 1 dB dips)")
+	f.StringVar(&window, "window", "3", "half width of each fitted window, in half-power bandwidths")
+	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
+		Diameter: "nominal inside diameter, to name the modes, e.g. 40mm",
+		Radius:   "nominal inside radius, to name the modes, e.g. 20mm",
+		Length:   "nominal inside length, to name the modes, e.g. 31mm",
+		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
+	})
+	walls = cmdutil.AddWallFlags(cmd)
+	f.StringVar(&opts.Empty, "empty", "", "sweep of the same cavity empty: the main sweep is then the cavity completely filled, and the fill is measured (needs --diameter, --length, --fill)")
+	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
+	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
+	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
+	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
+	f.BoolVar(&opts.Force, "force", false, "replace output files that exist")
+	cmd.PreRunE = func(*cobra.Command, []string) error { return checkFormat() }
+	return cmd
+}
+
+func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
+	if err := cmdutil.RejectEmptyFlags(cmd); err != nil {
+		return err
+	}
+	if geo.Changed("diameter") || geo.Changed("radius") || geo.Changed("length") || geo.Changed("fill") {
+		c, err := geo.Cavity()
+		if err != nil {
+			return err
+		}
+		opts.Identify, opts.Ident.Nominal = true, c
+	} else if opts.Ident.FitFill {
+		return cmdutil.Usagef("--fit-fill needs the cavity's size: give --diameter (or --radius) and --length")
+	}
+	if opts.Empty != "" {
+		switch {
+		case !opts.Identify:
+			return cmdutil.Usagef("--empty needs the cavity's size: give --diameter (or --radius) and --length")
+		case !geo.Changed("fill") || !(opts.Ident.Nominal.Fill.Eps() > 1):
+			return cmdutil.Usagef("--empty needs the nominal fill of the filled sweep, with eps_r > 1: give --fill, e.g. --fill ptfe or --fill eps=2.1")
+		case opts.Ident.FitFill:
+			return cmdutil.Usagef("--empty fits the fill already; leave out --fit-fill")
+		}
+	}
+	for _, name := range []string{"wall", "end-wall", "end-wall-a", "end-wall-b", "roughness", "roughness-model", "temperature", "plating", "plating-thickness", "superconducting", "residual"} {
+		if !cmd.Flags().Changed(name) {
+			continue
+		}
+		if !opts.Identify {
+			return cmdutil.Usagef("--%s needs the cavity's size: give --diameter (or --radius) and --length", name)
+		}
+		ws, err := walls.Walls()
+		if err != nil {
+			return err
+		}
+		opts.Walls = &ws
+		break
+	}
+	opts.File = args[0]
+	if cmd.Flags().Changed("min-height") {
+		s := strings.TrimSpace(minHeight)
+		s = strings.TrimSuffix(strings.TrimSuffix(s, "dB"), "db")
+		v, err := cmdutil.Number("min-height", s, 0.1, 200)
+		if err != nil {
+			return cmdutil.FlagError("min-height", minHeight, errors.New("must be a level between 0.1 dB and 200 dB, e.g. 20dB"))
+		}
+		opts.Settings.Find.MinHeight = v
+	}
+	v, err := cmdutil.Number("window", window, 1, 20)
+	if err != nil {
+		return err
+	}
+	opts.Settings.Window = v
+	for _, p := range []struct{ flag, path string }{{"plot", opts.Plot}, {"fit-plots", opts.FitPlots}} {
+		if p.path == "" {
+			continue
+		}
+		if _, err := figure.FormatOf(p.path); err != nil {
+			return cmdutil.FlagError(p.flag, p.path, err)
+		}
+	}
+	if dpi < figure.MinDPI || dpi > figure.MaxDPI {
+		return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
+	}
+	opts.Page.DPI = dpi
+	return nil
+}
+
+// readSweep reads the sweep file; a missing or malformed file is bad
+// input, reported as FILE:LINE: message.
+func readSweep(name string) (*touchstone.Data, error) {
+	fh, err := os.Open(name)
+	if err != nil {
+		return nil, cmdutil.Usagef("cannot read the sweep: %v", err)
+	}
+	defer fh.Close()
+	d, err := touchstone.Read(fh, touchstone.PortsFromName(name))
+	if err != nil {
+		var pe *touchstone.ParseError
+		if errors.As(err, &pe) && pe.Line > 0 {
+			return nil, cmdutil.Usagef("%s:%d: %s", name, pe.Line, pe.Msg)
+		}
+		return nil, cmdutil.Usagef("%s: %v", name, err)
+	}
+	return d, nil
+}
+
+func runResonances(opts *Options) error {
+	d, err := readSweep(opts.File)
+	if err != nil {
+		return err
+	}
+	rs, err := measure.Analyze(d, opts.Settings)
+	if err != nil {
+		return fmt.Errorf("%s: %w", opts.File, err)
+	}
+	var id *measure.Identification
+	var wd *measure.WallDiagnosis
+	var fill *fillResult
+	if opts.Empty != "" {
+		// The empty sweep gives the effective D and L and the walls; the
+		// filled sweep, identified in that cavity, the fill.
+		dE, err := readSweep(opts.Empty)
+		if err != nil {
+			return err
+		}
+		rsE, err := measure.Analyze(dE, opts.Settings)
+		if err != nil {
+			return fmt.Errorf("%s: %w", opts.Empty, err)
+		}
+		emptySet := opts.Ident
+		emptySet.Nominal.Fill = physics.Medium{}
+		idE, err := identify(opts.Empty, rsE, emptySet)
+		if err != nil {
+			return err
+		}
+		if wd, err = diagnose(opts, rsE, idE); err != nil {
+			return fmt.Errorf("%s: %w", opts.Empty, err)
+		}
+		nominalFill := opts.Ident.Nominal.Fill
+		opts.Ident.Nominal = idE.Cavity
+		opts.Ident.Nominal.Fill = nominalFill
+		opts.Ident.FitFill = true
+		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
+			return err
+		}
+		if fill, err = measureFill(rsE, idE, rs, id); err != nil {
+			return fmt.Errorf("%s and %s: %w", opts.Empty, opts.File, err)
+		}
+		fill.empty = idE
+	} else if opts.Identify {
+		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
+			return err
+		}
+		if wd, err = diagnose(opts, rs, id); err != nil {
+			return fmt.Errorf("%s: %w", opts.File, err)
+		}
+	}
+	files, err := renderPlots(opts, d, rs)
+	if err != nil {
+		return err
+	}
+	for _, f := range files {
+		if err := cmdutil.WriteFileAtomic(f.path, f.data, opts.Force); err != nil {
+			return err
+		}
+	}
+	switch opts.Format {
+	case cmdutil.JSON:
+		o := toJSON(opts.File, d, rs, id)
+		o.Walls = wallsJSON(wd)
+		o.Fill = fill.json()
+		return cmdutil.WriteJSON(opts.IO.Out, o)
+	case cmdutil.CSV:
+		return writeCSV(opts, rs, id)
+	}
+	if err := writeTable(opts, d, rs, id); err != nil {
+		return err
+	}
+	if err := writeWalls(opts, wd); err != nil {
+		return err
+	}
+	if err := writeFill(opts, fill); err != nil {
+		return err
+	}
+	for _, f := range files {
+		fmt.Fprintf(opts.IO.Out, "wrote %s\n", f.path)
+	}
+	return nil
+}
+
+type outFile struct {
+	path string
+	data []byte
+}
+
+// renderPlots renders every requested plot in memory, so that a failure
+// leaves no file behind.
+func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance) ([]outFile, error) {
+	th := figure.DefaultTheme()
+	name, main := "S21", func() []complex128 { return nil }
+	if d.Ports == 1 {
+		name = "S11"
+		main = func() []complex128 { return d.Param(1, 1) }
+	} else {
+		main = func() []complex128 { return d.Param(2, 1) }
+	}
+	var out []outFile
+	if opts.Plot != "" {
+		sp, err := benchplot.NewSweepPlot(d.Freq, main(), name, rs)
+		if err != nil {
+			return nil, err
+		}
+		fig, err := sp.Figure(th)
+		if err != nil {
+			return nil, err
+		}
+		b, err := figure.EncodeAs(fig, opts.Plot, opts.Page)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, outFile{opts.Plot, b})
+	}
+	if opts.FitPlots != "" {
+		ext := filepath.Ext(opts.FitPlots)
+		base := strings.TrimSuffix(opts.FitPlots, ext)
+		for i, r := range rs {
+			if r.Main == nil || r.Problem != "" {
+				continue
+			}
+			fp, err := benchplot.NewFitPlot(d.Freq, main(), name, *r.Main, i+1)
+			if err != nil {
+				return nil, err
+			}
+			fig, err := fp.Figure(th)
+			if err != nil {
+				return nil, err
+			}
+			path := fmt.Sprintf("%s-%d%s", base, i+1, ext)
+			b, err := figure.EncodeAs(fig, path, opts.Page)
+			if err != nil {
+				return nil, err
+			}
+			out = append(out, outFile{path, b})
+		}
+	}
+	return out, nil
+}
+
+// number is a float64 that encodes NaN and infinities as JSON null.
+type number float64
+
+func (v number) MarshalJSON() ([]byte, error) {
+	f := float64(v)
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		return []byte("null"), nil
+	}
+	return json.Marshal(f)
+}
+
+type resonanceJSON struct {
+	Index      int    `json:"index"`
+	F0Hz       number `json:"f0_hz"`
+	F0ErrHz    number `json:"f0_err_hz"`
+	QL         number `json:"ql"`
+	QLErr      number `json:"ql_err"`
+	Beta1      number `json:"beta1"`
+	Beta1Err   number `json:"beta1_err"`
+	Beta2      number `json:"beta2"`
+	Beta2Err   number `json:"beta2_err"`
+	Q0         number `json:"q0"`
+	Q0Err      number `json:"q0_err"`
+	Q3dB       number `json:"ql_3db"`
+	Agree      bool   `json:"ql_3db_agrees"`
+	DelayS     number `json:"cable_delay_s"`
+	Residual   number `json:"fit_residual"`
+	Points     int    `json:"fit_points"`
+	PeakHeight number `json:"peak_height_db"`
+	Problem    string `json:"problem"`
+
+	*modeJSON
+}
+
+type modeJSON struct {
+	Mode        string `json:"mode"`
+	Unresolved  bool   `json:"pair_unresolved"`
+	Matched     bool   `json:"matched"`
+	PredictedHz number `json:"model_f_hz"`
+	Residual    number `json:"model_residual"`
+}
+
+type cavityJSON struct {
+	DiameterM    number     `json:"diameter_m"`
+	DiameterErrM number     `json:"diameter_err_m"`
+	LengthM      number     `json:"length_m"`
+	LengthErrM   number     `json:"length_err_m"`
+	EpsR         number     `json:"eps_r"`
+	EpsRErr      number     `json:"eps_r_err"`
+	RMSResidual  number     `json:"rms_residual"`
+	Pairs        []pairJSON `json:"split_pairs"`
+}
+
+type pairJSON struct {
+	TE      int    `json:"te_index"`
+	TM      int    `json:"tm_index"`
+	SplitHz number `json:"split_hz"`
+}
+
+type outJSON struct {
+	File       string          `json:"file"`
+	Kind       string          `json:"kind"`
+	Points     int             `json:"points"`
+	Cavity     *cavityJSON     `json:"fitted_cavity,omitempty"`
+	Walls      *wallJSON       `json:"walls,omitempty"`
+	Fill       *fillJSON       `json:"fill,omitempty"`
+	Resonances []resonanceJSON `json:"resonances"`
+}
+
+func rowJSON(i int, r measure.Resonance) resonanceJSON {
+	j := resonanceJSON{Index: i + 1, F0Hz: number(r.F0), F0ErrHz: number(r.F0Err), QL: number(r.QL), QLErr: number(r.QLErr),
+		Beta1: number(r.Beta1), Beta1Err: number(r.Beta1Err), Beta2: number(r.Beta2), Beta2Err: number(r.Beta2Err),
+		Q0: number(r.Q0), Q0Err: number(r.Q0Err), Q3dB: number(r.Q3dB), Agree: r.Agree,
+		DelayS: number(math.NaN()), Residual: number(math.NaN()), PeakHeight: number(r.Peak.Height), Problem: r.Problem}
+	if r.Main != nil {
+		j.DelayS, j.Residual, j.Points = number(r.Main.Delay), number(r.Main.Residual), r.Main.Points
+	}
+	return j
+}
+
+func toJSON(file string, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) outJSON {
+	o := outJSON{File: file, Kind: rs[0].Kind.String(), Points: len(d.Freq)}
+	for i, r := range rs {
+		j := rowJSON(i, r)
+		if id != nil {
+			a := id.Assign[i]
+			j.modeJSON = &modeJSON{Mode: a.Mode.String(), Unresolved: a.Unresolved, Matched: a.Matched,
+				PredictedHz: number(a.Predicted), Residual: number(a.Residual)}
+		}
+		o.Resonances = append(o.Resonances, j)
+	}
+	if id != nil {
+		c := id.Cavity
+		o.Cavity = &cavityJSON{DiameterM: number(c.Diameter()), DiameterErrM: number(2 * id.RadiusErr),
+			LengthM: number(c.Length), LengthErrM: number(id.LengthErr), EpsR: number(c.Fill.Eps()), EpsRErr: number(id.EpsErr),
+			RMSResidual: number(id.RMS), Pairs: []pairJSON{}}
+		for _, p := range id.Pairs {
+			o.Cavity.Pairs = append(o.Cavity.Pairs, pairJSON{TE: p.TE + 1, TM: p.TM + 1, SplitHz: number(p.Split)})
+		}
+	}
+	return o
+}
+
+func hasNaN(v []float64) bool {
+	for _, x := range v {
+		if math.IsNaN(x) {
+			return true
+		}
+	}
+	return false
+}
+
+var csvHeader = []string{"index", "f0_hz", "f0_err_hz", "ql", "ql_err", "beta1", "beta1_err", "beta2", "beta2_err",
+	"q0", "q0_err", "ql_3db", "ql_3db_agrees", "cable_delay_s", "fit_residual", "fit_points", "peak_height_db", "problem"}
+
+func writeCSV(opts *Options, rs []measure.Resonance, id *measure.Identification) error {
+	g := func(v number) string {
+		if math.IsNaN(float64(v)) {
+			return ""
+		}
+		return strconv.FormatFloat(float64(v), 'g', 10, 64)
+	}
+	var rows [][]string
+	for i, r := range rs {
+		j := rowJSON(i, r)
+		rows = append(rows, []string{strconv.Itoa(j.Index), g(j.F0Hz), g(j.F0ErrHz), g(j.QL), g(j.QLErr), g(j.Beta1), g(j.Beta1Err),
+			g(j.Beta2), g(j.Beta2Err), g(j.Q0), g(j.Q0Err), g(j.Q3dB), strconv.FormatBool(j.Agree), g(j.DelayS), g(j.Residual),
+			strconv.Itoa(j.Points), g(j.PeakHeight), j.Problem})
+		if id != nil {
+			a := id.Assign[i]
+			rows[i] = append(rows[i], a.Mode.String(), strconv.FormatBool(a.Unresolved), strconv.FormatBool(a.Matched),
+				g(number(a.Predicted)), g(number(a.Residual)))
+		}
+	}
+	header := csvHeader
+	if id != nil {
+		header = append(append([]string(nil), csvHeader...), "mode", "pair_unresolved", "matched", "model_f_hz", "model_residual")
+	}
+	return cmdutil.WriteCSV(opts.IO.Out, header, rows)
+}
+
+// pm formats v +- e with e to two significant digits and v to the same
+// last decimal place (scaled by 1/scale).
+func pm(v, e, scale float64) string {
+	if math.IsNaN(v) {
+		return "-"
+	}
+	v, e = v/scale, e/scale
+	if !(e > 0) || math.IsInf(e, 0) {
+		return strconv.FormatFloat(v, 'g', 6, 64)
+	}
+	dec := max(0, 1-int(math.Floor(math.Log10(e))))
+	dec = min(dec, 12)
+	return fmt.Sprintf("%.*f ± %.*f", dec, v, dec, e)
+}
+
+func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) error {
+	w := opts.IO.Out
+	kind := rs[0].Kind
+	fmt.Fprintf(w, "%s: %d points, %s (%d-port), %d resonances\n", opts.File, len(d.Freq), kind, d.Ports, len(rs))
+	header := []string{"#", "f0 (GHz)", "QL", "beta1"}
+	if kind == measure.Transmission {
+		header = append(header, "beta2")
+	}
+	header = append(header, "Q0", "QL 3dB", "3 dB check")
+	if id != nil {
+		header = append(header, "mode", "vs model (ppm)")
+	}
+	t := cmdutil.NewTable(w, header...)
+	var problems []string
+	for i, r := range rs {
+		row := []string{strconv.Itoa(i + 1)}
+		if r.Problem != "" {
+			row = append(row, strconv.FormatFloat(r.Peak.F/1e9, 'f', 6, 64)+" (peak)", "-", "-")
+			if kind == measure.Transmission {
+				row = append(row, "-")
+			}
+			row = append(row, "-", "-", "not fitted, see below")
+			if id != nil {
+				row = append(row, "-", "-")
+			}
+			t.Row(row...)
+			problems = append(problems, fmt.Sprintf("resonance %d: %s", i+1, r.Problem))
+			continue
+		}
+		row = append(row, pm(r.F0, r.F0Err, 1e9), pm(r.QL, r.QLErr, 1), pm(r.Beta1, r.Beta1Err, 1))
+		if kind == measure.Transmission {
+			row = append(row, pm(r.Beta2, r.Beta2Err, 1))
+		}
+		check := "agrees"
+		switch {
+		case math.IsNaN(r.Q3dB):
+			check = "no half-power points in the window"
+		case !r.Agree:
+			check = fmt.Sprintf("differs by %+.1f %%: trust the fit", 100*(r.Q3dB-r.QL)/r.QL)
+		}
+		row = append(row, pm(r.Q0, r.Q0Err, 1), strconv.FormatFloat(r.Q3dB, 'f', 0, 64), check)
+		if id != nil {
+			a := id.Assign[i]
+			switch {
+			case !a.Matched:
+				row = append(row, "none (nearest "+a.Mode.String()+")", fmt.Sprintf("%+.0f", 1e6*a.Residual))
+			case a.Unresolved:
+				row = append(row, a.Mode.String()+"/"+companion(a.Mode), fmt.Sprintf("%+.0f", 1e6*a.Residual))
+			default:
+				row = append(row, a.Mode.String(), fmt.Sprintf("%+.0f", 1e6*a.Residual))
+			}
+		}
+		t.Row(row...)
+	}
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	for _, p := range problems {
+		fmt.Fprintln(w, p)
+	}
+	if id != nil {
+		c := id.Cavity
+		if opts.Ident.FitFill {
+			fmt.Fprintf(w, "Fitted fill: eps_r = %s with D = %s, L = %s held; RMS residual %.0f ppm.\n",
+				pm(c.Fill.Eps(), id.EpsErr, 1), physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), 1e6*id.RMS)
+		} else {
+			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (drawn %s, %s); RMS residual %.0f ppm.\n",
+				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3),
+				physics.FormatLength(opts.Ident.Nominal.Diameter(), 6), physics.FormatLength(opts.Ident.Nominal.Length, 6), 1e6*id.RMS)
+		}
+		for _, p := range id.Pairs {
+			fmt.Fprintf(w, "Resonances %d (%s) and %d (%s): a degenerate pair split by %s; the higher Q is taken as %s.\n",
+				p.TE+1, id.Assign[p.TE].Mode, p.TM+1, id.Assign[p.TM].Mode, physics.FormatFrequency(p.Split, 4), id.Assign[p.TE].Mode)
+		}
+		unmatched := 0
+		for _, a := range id.Assign {
+			if !a.Matched {
+				unmatched++
+			}
+		}
+		if unmatched > 0 {
+			fmt.Fprintf(w, "%d resonance(s) match no cavity mode within %.1f %%: coupling structures, port modes, or a cavity far from its drawing.\n", unmatched, 100*matchTol(opts.Ident))
+		}
+		fmt.Fprintln(w, "Mode index convention: n azimuthal (cos n phi), m radial (m-th Bessel zero), p axial (half-wavelengths along the length).")
+	}
+	fmt.Fprintln(w, "Uncertainties are one standard deviation from the fit residuals (noise only; not the analyser's calibration).")
+	return nil
+}
+
+// companion names the mode that shares m's frequency (TE0mp with TM1mp).
+func companion(m cavity.Mode) string {
+	if c, ok := m.Companion(); ok {
+		return c.String()
+	}
+	return "?"
+}
+
+func matchTol(s measure.IdentifySettings) float64 {
+	if s.MatchTol == 0 {
+		return 0.003
+	}
+	return s.MatchTol
+}
+
+// diagnose runs measure.DiagnoseWalls on the matched, resolved resonances;
+// nil when there is none.
+func diagnose(opts *Options, rs []measure.Resonance, id *measure.Identification) (*measure.WallDiagnosis, error) {
+	var idx []int
+	var modes []cavity.Mode
+	var q0, q0e []float64
+	for i, a := range id.Assign {
+		if !a.Matched || a.Unresolved || rs[i].Problem != "" {
+			continue
+		}
+		idx = append(idx, i)
+		modes = append(modes, a.Mode)
+		q0, q0e = append(q0, rs[i].Q0), append(q0e, rs[i].Q0Err)
+	}
+	if len(idx) == 0 {
+		return nil, nil
+	}
+	d, err := measure.DiagnoseWalls(id.Cavity, idx, modes, q0, q0e, opts.Walls)
+	if err != nil {
+		return nil, err
+	}
+	return &d, nil
+}
+
+type modeWallJSON struct {
+	Index        int    `json:"index"`
+	Mode         string `json:"mode"`
+	Q0           number `json:"q0"`
+	QWall        number `json:"q_wall"`
+	IACS         number `json:"iacs_fraction"`
+	IACSErr      number `json:"iacs_fraction_err"`
+	ModelQ0      number `json:"model_q0"`
+	ModelIACS    number `json:"model_iacs_fraction"`
+	Conductivity number `json:"conductivity_s_per_m"`
+}
+
+type wallJSON struct {
+	Mean         number         `json:"mean_iacs_fraction"`
+	Spread       number         `json:"spread_iacs_fraction"`
+	TE0          number         `json:"te0_iacs_fraction"`
+	TM           number         `json:"tm_iacs_fraction"`
+	JointSuspect bool           `json:"end_plate_contact_suspect"`
+	Modes        []modeWallJSON `json:"modes"`
+}
+
+func wallsJSON(wd *measure.WallDiagnosis) *wallJSON {
+	if wd == nil {
+		return nil
+	}
+	o := &wallJSON{Mean: number(wd.Mean), Spread: number(wd.Spread), TE0: number(wd.TE0), TM: number(wd.TM), JointSuspect: wd.Joint}
+	for _, m := range wd.Modes {
+		o.Modes = append(o.Modes, modeWallJSON{Index: m.Index + 1, Mode: m.Mode.String(), Q0: number(m.Q0), QWall: number(m.QWall),
+			IACS: number(m.IACS), IACSErr: number(m.IACSErr), ModelQ0: number(m.ModelQ0), ModelIACS: number(m.ModelIACS),
+			Conductivity: number(m.IACS * physics.IACSConductivity)})
+	}
+	return o
+}
+
+func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
+	if wd == nil {
+		return nil
+	}
+	w := opts.IO.Out
+	fmt.Fprintln(w)
+	fmt.Fprintln(w, "Walls: the conductivity of a smooth uniform wall that gives each measured Q0 (fill loss removed):")
+	header := []string{"#", "mode", "Q0", "conductivity (% IACS)"}
+	if opts.Walls != nil {
+		header = append(header, "model Q0 (--wall)", "model (% IACS)")
+	}
+	t := cmdutil.NewTable(w, header...)
+	for _, m := range wd.Modes {
+		row := []string{strconv.Itoa(m.Index + 1), m.Mode.String(), pm(m.Q0, m.Q0Err, 1), pm(100*m.IACS, 100*m.IACSErr, 1)}
+		if opts.Walls != nil {
+			row = append(row, strconv.FormatFloat(m.ModelQ0, 'f', 0, 64), strconv.FormatFloat(100*m.ModelIACS, 'f', 1, 64))
+		}
+		t.Row(row...)
+	}
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	fmt.Fprintf(w, "Mean %.1f %% IACS (%.3g MS/m), spread %.1f %% IACS across %d modes", 100*wd.Mean, wd.Mean*physics.IACSConductivity/1e6, 100*wd.Spread, len(wd.Modes))
+	if !math.IsNaN(wd.TE0) && !math.IsNaN(wd.TM) {
+		fmt.Fprintf(w, "; TE0mp modes %.1f %%, TM modes %.1f %%", 100*wd.TE0, 100*wd.TM)
+	}
+	fmt.Fprintln(w, ".")
+	if wd.Joint {
+		fmt.Fprintln(w, "The TM modes, whose wall currents cross the joints between side wall and end plates, lose clearly more than the TE0mp modes, whose currents do not: suspect the end-plate contact (clean, flatten or tighten the joints).")
+	}
+	fmt.Fprintln(w, "Roughness, plating and the coupling structures' own loss all lower the effective conductivity; it is a figure of merit of the walls as built, not the metal's bulk value.")
+	return nil
+}
+
+// identify names the modes of the fitted resonances rs of file.
+func identify(file string, rs []measure.Resonance, set measure.IdentifySettings) (*measure.Identification, error) {
+	f0 := make([]float64, 0, len(rs))
+	q0 := make([]float64, 0, len(rs))
+	for _, r := range rs {
+		f0, q0 = append(f0, r.F0), append(q0, r.Q0)
+	}
+	if hasNaN(f0) {
+		return nil, fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --diameter", file)
+	}
+	id, err := measure.Identify(f0, q0, set)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %w", file, err)
+	}
+	return &id, nil
+}
+
+// fillMode is the fill measured at one mode.
+type fillMode struct {
+	mode            cavity.Mode
+	fEmpty, fFilled float64
+	r               measure.DielectricResult
+}
+
+type fillResult struct {
+	empty *measure.Identification
+	modes []fillMode
+	// eps and tand are the means weighted by 1/err^2; their uncertainty is
+	// that of the best single mode, since the wall-model term is common to
+	// every mode and does not average out.
+	eps, epsErr, tand, tandErr float64
+}
+
+// measureFill pairs the modes found matched and resolved in both sweeps
+// and measures the fill at each.
+func measureFill(rsE []measure.Resonance, idE *measure.Identification, rsF []measure.Resonance, idF *measure.Identification) (*fillResult, error) {
+	find := func(id *measure.Identification, m cavity.Mode) int {
+		for i, a := range id.Assign {
+			if a.Matched && !a.Unresolved && a.Mode == m {
+				return i
+			}
+		}
+		return -1
+	}
+	fr := &fillResult{epsErr: math.Inf(1), tandErr: math.Inf(1)}
+	var we, wt, se, st float64
+	for i, a := range idE.Assign {
+		if !a.Matched || a.Unresolved {
+			continue
+		}
+		j := find(idF, a.Mode)
+		if j < 0 {
+			continue
+		}
+		e, f := rsE[i], rsF[j]
+		r, err := measure.MeasureDielectric(measure.DielectricInput{
+			FEmpty: e.F0, FEmptyErr: e.F0Err, FFilled: f.F0, FFilledErr: f.F0Err,
+			Q0Empty: e.Q0, Q0EmptyErr: e.Q0Err, Q0Filled: f.Q0, Q0FilledErr: f.Q0Err,
+		})
+		if err != nil {
+			return nil, fmt.Errorf("%v: %w", a.Mode, err)
+		}
+		fr.modes = append(fr.modes, fillMode{mode: a.Mode, fEmpty: e.F0, fFilled: f.F0, r: r})
+		we += 1 / sq(r.EpsRErr)
+		se += r.EpsR / sq(r.EpsRErr)
+		wt += 1 / sq(r.TanDeltaErr)
+		st += r.TanDelta / sq(r.TanDeltaErr)
+		fr.epsErr = math.Min(fr.epsErr, r.EpsRErr)
+		fr.tandErr = math.Min(fr.tandErr, r.TanDeltaErr)
+	}
+	if len(fr.modes) == 0 {
+		return nil, fmt.Errorf("no mode is identified in both sweeps, so the fill cannot be measured")
+	}
+	fr.eps, fr.tand = se/we, st/wt
+	return fr, nil
+}
+
+func sq(x float64) float64 { return x * x }
+
+type fillModeJSON struct {
+	Mode        string `json:"mode"`
+	FEmptyHz    number `json:"f_empty_hz"`
+	FFilledHz   number `json:"f_filled_hz"`
+	EpsR        number `json:"eps_r"`
+	EpsRErr     number `json:"eps_r_err"`
+	TanDelta    number `json:"tan_delta"`
+	TanDeltaErr number `json:"tan_delta_err"`
+}
+
+type fillJSON struct {
+	EpsR        number         `json:"eps_r"`
+	EpsRErr     number         `json:"eps_r_err"`
+	TanDelta    number         `json:"tan_delta"`
+	TanDeltaErr number         `json:"tan_delta_err"`
+	EmptyDM     number         `json:"empty_diameter_m"`
+	EmptyLM     number         `json:"empty_length_m"`
+	Modes       []fillModeJSON `json:"modes"`
+}
+
+func (fr *fillResult) json() *fillJSON {
+	if fr == nil {
+		return nil
+	}
+	o := &fillJSON{EpsR: number(fr.eps), EpsRErr: number(fr.epsErr), TanDelta: number(fr.tand), TanDeltaErr: number(fr.tandErr),
+		EmptyDM: number(fr.empty.Cavity.Diameter()), EmptyLM: number(fr.empty.Cavity.Length)}
+	for _, m := range fr.modes {
+		o.Modes = append(o.Modes, fillModeJSON{Mode: m.mode.String(), FEmptyHz: number(m.fEmpty), FFilledHz: number(m.fFilled),
+			EpsR: number(m.r.EpsR), EpsRErr: number(m.r.EpsRErr), TanDelta: number(m.r.TanDelta), TanDeltaErr: number(m.r.TanDeltaErr)})
+	}
+	return o
+}
+
+func writeFill(opts *Options, fr *fillResult) error {
+	if fr == nil {
+		return nil
+	}
+	w := opts.IO.Out
+	c := fr.empty.Cavity
+	fmt.Fprintln(w)
+	fmt.Fprintf(w, "Fill, from %s (empty: D = %s mm, L = %s mm) and %s (filled):\n", opts.Empty,
+		pm(c.Diameter(), 2*fr.empty.RadiusErr, 1e-3), pm(c.Length, fr.empty.LengthErr, 1e-3), opts.File)
+	t := cmdutil.NewTable(w, "mode", "f empty (GHz)", "f filled (GHz)", "eps_r", "tan delta")
+	best := 0
+	for i, m := range fr.modes {
+		t.Row(m.mode.String(), strconv.FormatFloat(m.fEmpty/1e9, 'f', 6, 64), strconv.FormatFloat(m.fFilled/1e9, 'f', 6, 64),
+			pm(m.r.EpsR, m.r.EpsRErr, 1), pm(1e4*m.r.TanDelta, 1e4*m.r.TanDeltaErr, 1)+" e-4")
+		if m.r.TanDeltaErr < fr.modes[best].r.TanDeltaErr {
+			best = i
+		}
+	}
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	fmt.Fprintf(w, "Mean over %d modes (weighted): eps_r = %s, tan delta = %s e-4 (uncertainty of the best mode: the wall-model term is common to all).\n",
+		len(fr.modes), pm(fr.eps, fr.epsErr, 1), pm(1e4*fr.tand, 1e4*fr.tandErr, 1))
+	b := fr.modes[best]
+	fmt.Fprintf(w, "Uncertainty budget at %v (one standard deviation each):\n", b.mode)
+	bt := cmdutil.NewTable(w, "  input", "eps_r", "tan delta")
+	for _, x := range b.r.Budget {
+		bt.Row("  "+x.Input, strconv.FormatFloat(x.EpsR, 'e', 1, 64), strconv.FormatFloat(x.TanDelta, 'e', 1, 64))
+	}
+	if err := bt.Flush(); err != nil {
+		return err
+	}
+	fmt.Fprintln(w, "The method needs a complete fill: a gap between the sample and the walls lowers the apparent eps_r.")
+	return nil
+}

@@ -1,0 +1,222 @@
+package resonances_test
+
+import (
+	"encoding/json"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/resonances"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure/rendertest"
+)
+
+const root = "../../../../.."
+
+func sweep(name string) string { return filepath.Join(root, "testdata", "measure", name) }
+
+func TestExamples(t *testing.T) {
+	t.Chdir(root)
+	clitest.CheckExamples(t, resonances.NewCmdResonances(cmdutil.Test(nil, nil), nil).Example)
+}
+
+// TestJSON: the JSON output carries the fit of the reflection sweep made by
+// testdata/measure/gen_sweeps.py (truth: f0 = 5 GHz, Q0 = 12000,
+// beta = 0.45) in SI fields.
+func TestJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("refl_under.s1p"), "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Kind       string
+		Resonances []map[string]any
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if out.Kind != "reflection" || len(out.Resonances) != 1 {
+		t.Fatalf("kind %q, %d resonances", out.Kind, len(out.Resonances))
+	}
+	res := out.Resonances[0]
+	for key, want := range map[string]float64{"f0_hz": 5e9, "q0": 12000, "beta1": 0.45} {
+		got, _ := res[key].(float64)
+		errv, _ := res[strings.TrimSuffix(key, "_hz")+"_err"+map[bool]string{true: "_hz", false: ""}[strings.HasSuffix(key, "_hz")]].(float64)
+		if !(math.Abs(got-want) <= 4*errv) {
+			t.Errorf("%s = %v +- %v, want %v", key, got, errv, want)
+		}
+	}
+	if res["beta2"].(float64) != 0 {
+		t.Errorf("beta2 of a one-port = %v, want 0", res["beta2"])
+	}
+}
+
+func TestPlots(t *testing.T) {
+	dir := t.TempDir()
+	plot, fits := filepath.Join(dir, "sweep.svg"), filepath.Join(dir, "fit.svg")
+	r := clitest.Run(t, "resonances", sweep("wide.s2p"), "--plot", plot, "--fit-plots", fits)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	for _, p := range []string{plot, filepath.Join(dir, "fit-1.svg"), filepath.Join(dir, "fit-5.svg")} {
+		b, err := os.ReadFile(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rendertest.SVG(t, b)
+		if !strings.Contains(r.Stdout, "wrote "+p) {
+			t.Errorf("output does not report %s", p)
+		}
+	}
+	// An existing file is not replaced without --force, and nothing is written.
+	r = clitest.Run(t, "resonances", sweep("wide.s2p"), "--plot", plot)
+	if r.Code != 2 || !strings.Contains(r.Stderr, "--force") {
+		t.Errorf("second run: exit %d, stderr %q", r.Code, r.Stderr)
+	}
+}
+
+func TestBadInput(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad.s2p")
+	os.WriteFile(bad, []byte("! a sweep\n# GHZ S RI R 50\n1 1 0 0 0 0 0 1 0\n0.5 1 0 0 0 0 0 1 0\n"), 0o644)
+	short := filepath.Join(dir, "short.s1p")
+	os.WriteFile(short, []byte("# GHZ S RI R 50\n1 1 0 0\n"), 0o644)
+	clitest.CheckBadInput(t, "resonances", []clitest.BadCase{
+		{Args: []string{filepath.Join(dir, "missing.s2p")}, Code: 2, Want: []string{"missing.s2p", "cannot read"}},
+		{Args: []string{bad}, Code: 2, Want: []string{"bad.s2p:4:", "strictly ascending"}},
+		{Args: []string{short}, Code: 2, Want: []string{"short.s1p:2:", "a 1-port line has 3"}},
+		{Args: []string{sweep("wide.s2p"), "--window", "0"}, Code: 2, Want: []string{`--window "0"`, "between 1 and 20"}},
+		{Args: []string{sweep("wide.s2p"), "--min-height", "loud"}, Code: 2, Want: []string{`--min-height "loud"`, "0.1 dB and 200 dB"}},
+		{Args: []string{sweep("wide.s2p"), "--plot", "x.gif"}, Code: 2, Want: []string{`--plot "x.gif"`}},
+		{Args: []string{sweep("wide.s2p"), "--format", "xml"}, Code: 2, Want: []string{`--format "xml"`}},
+		{Args: []string{}, Code: 2, Want: []string{"1 arg"}},
+		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm"}, Code: 2, Want: []string{"--length"}},
+		{Args: []string{sweep("modes.s2p"), "--diameter", "-4mm", "--length", "31mm"}, Code: 2, Want: []string{`--diameter "-4mm"`}},
+		{Args: []string{sweep("modes.s2p"), "--fit-fill"}, Code: 2, Want: []string{"--fit-fill", "--diameter"}},
+	})
+}
+
+// TestNoResonance: a sweep with no resonance is an error that says so.
+func TestNoResonance(t *testing.T) {
+	dir := t.TempDir()
+	flat := filepath.Join(dir, "flat.s1p")
+	var b strings.Builder
+	b.WriteString("# HZ S RI R 50\n")
+	for i := 0; i < 300; i++ {
+		fmt.Fprintf(&b, "%d 0.9 0.1\n", 1000000000+i*100000)
+	}
+	os.WriteFile(flat, []byte(b.String()), 0o644)
+	r := clitest.Run(t, "resonances", flat)
+	if r.Code != 1 || !strings.Contains(r.Stderr, "no resonance") || !strings.Contains(r.Stderr, "flat.s1p") {
+		t.Errorf("exit %d, stderr %q", r.Code, r.Stderr)
+	}
+}
+
+// TestIdentifyJSON: the modes of testdata/measure/gen_modes.py's sweep
+// (built D 40.08 mm, L 30.85 mm) come out in the JSON with the fitted cavity.
+func TestIdentifyJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Cavity struct {
+			D    float64 `json:"diameter_m"`
+			DErr float64 `json:"diameter_err_m"`
+			L    float64 `json:"length_m"`
+			LErr float64 `json:"length_err_m"`
+		} `json:"fitted_cavity"`
+		Resonances []struct {
+			Mode    string
+			Matched bool
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(out.Cavity.D-40.08e-3) > 4*out.Cavity.DErr || math.Abs(out.Cavity.L-30.85e-3) > 4*out.Cavity.LErr {
+		t.Errorf("fitted D %g +- %g, L %g +- %g; built 40.08 mm, 30.85 mm", out.Cavity.D, out.Cavity.DErr, out.Cavity.L, out.Cavity.LErr)
+	}
+	var modes []string
+	for _, res := range out.Resonances {
+		m := res.Mode
+		if !res.Matched {
+			m = "none"
+		}
+		modes = append(modes, m)
+	}
+	if got, want := strings.Join(modes, " "), "TM010 TE111 none TM011 TE211 TM110 TM111 TE011 TE112"; got != want {
+		t.Errorf("modes %s, want %s", got, want)
+	}
+}
+
+// TestWallsJSON: with --wall the walls section gives each resolved mode's
+// effective conductivity, and the model's for the given metal (copper,
+// 100 % IACS in the materials table).
+func TestWallsJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--wall", "copper", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Walls struct {
+			Mean  float64 `json:"mean_iacs_fraction"`
+			Modes []struct {
+				Mode      string
+				IACS      float64 `json:"iacs_fraction"`
+				ModelIACS float64 `json:"model_iacs_fraction"`
+			}
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	// Eight resonances are matched and resolved; the loop is not a mode.
+	if len(out.Walls.Modes) != 8 || !(out.Walls.Mean > 0) {
+		t.Fatalf("walls: %+v", out.Walls)
+	}
+	for _, m := range out.Walls.Modes {
+		if math.Abs(m.ModelIACS-1) > 0.01 || !(m.IACS > 0) {
+			t.Errorf("%s: IACS %g, model %g (copper, smooth: 1)", m.Mode, m.IACS, m.ModelIACS)
+		}
+	}
+	r = clitest.Run(t, "resonances", sweep("modes.s2p"), "--wall", "copper")
+	if r.Code != 2 || !strings.Contains(r.Stderr, "--wall needs the cavity's size") {
+		t.Errorf("--wall without size: exit %d, %q", r.Code, r.Stderr)
+	}
+}
+
+// TestFillJSON: the empty/filled pair of gen_modes.py (fill eps_r 2.08,
+// tan(delta) 4e-4) is measured back within the stated uncertainties.
+func TestFillJSON(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p"),
+		"--diameter", "40mm", "--length", "31mm", "--fill", "ptfe", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Fill struct {
+			EpsR        float64 `json:"eps_r"`
+			EpsRErr     float64 `json:"eps_r_err"`
+			TanDelta    float64 `json:"tan_delta"`
+			TanDeltaErr float64 `json:"tan_delta_err"`
+			Modes       []struct{ Mode string }
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	f := out.Fill
+	if len(f.Modes) != 8 || math.Abs(f.EpsR-2.08) > 4*f.EpsRErr || math.Abs(f.TanDelta-4e-4) > 4*f.TanDeltaErr {
+		t.Errorf("fill: eps_r %.8g +- %.2g, tan(delta) %.3g +- %.2g over %d modes; want 2.08, 4e-4, 8 modes",
+			f.EpsR, f.EpsRErr, f.TanDelta, f.TanDeltaErr, len(f.Modes))
+	}
+	clitest.CheckBadInput(t, "resonances", []clitest.BadCase{
+		{Args: []string{sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p")}, Code: 2, Want: []string{"--empty needs the cavity's size"}},
+		{Args: []string{sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm"}, Code: 2, Want: []string{"--fill"}},
+	})
+}
