@@ -129,3 +129,39 @@ func TestFromDesignSections(t *testing.T) {
 		t.Errorf("demo: sections %q and %d charts, want %q and 4", got, n, want)
 	}
 }
+
+// TestNoEmptySection: every section of the cavity datasheets shows
+// something a reader can see (a table with rows, a chart, a note, a
+// paragraph, a list or materials), for the link demo and for the TM010
+// cell demo, whose mode an end plate does not tune: its tuning section
+// says so instead of standing empty.
+func TestNoEmptySection(t *testing.T) {
+	demos := map[string]func() (design.Scenario, error){"link": design.Demo, "cell": design.DemoCell}
+	for name, demo := range demos {
+		s, err := demo()
+		if err != nil {
+			t.Fatal(err)
+		}
+		s.Settings.Tolerance.Samples = 500
+		r, err := s.Run(nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, sec := range sh.Sections {
+			visible := false
+			for _, b := range sec.Blocks {
+				if (b.Table != nil && len(b.Table.Rows) > 0) || b.Chart != nil || b.Note != "" || b.Para != "" ||
+					(b.List != nil && len(b.List.Items) > 0) || len(b.Materials) > 0 {
+					visible = true
+				}
+			}
+			if !visible {
+				t.Errorf("%s demo: section %q shows nothing", name, sec.Heading)
+			}
+		}
+	}
+}

@@ -381,6 +381,15 @@ func (sh *cavitySheet) sheet() *Sheet {
 		return out
 	}
 	table := func(t Table) []Block { return []Block{{Table: &t}} }
+	// tuning is the chart and table of the tuning curve, or, for a mode
+	// an end plate does not tune (no rows), the table's caption as the
+	// section's text, so the section says why it is empty.
+	tuning := func(t Table, charts []Block) []Block {
+		if len(t.Rows) == 0 {
+			return join(charts, []Block{{Para: t.Caption}})
+		}
+		return join(charts, table(t))
+	}
 	out := &Sheet{
 		Kind:     "Cavity resonator datasheet",
 		Title:    sh.Title,
@@ -408,7 +417,7 @@ func (sh *cavitySheet) sheet() *Sheet {
 	cautions = append(cautions, Block{List: &List{Lead: "Safety:", Class: "safety", Items: sh.Safety}})
 	secs = append(secs,
 		Section{"Sensitivities and tolerance spread", sens},
-		Section{"Tuning", join(chart("tuning"), table(sh.Tuning))},
+		Section{"Tuning", tuning(sh.Tuning, chart("tuning"))},
 	)
 	if len(sh.Accel) > 0 {
 		var bs []Block

@@ -125,7 +125,7 @@ func runReport(opts *Options) error {
 	if opts.Scenario.Title != "" {
 		sh.Notice = &datasheet.Notice{Lead: "Demo scenario", Parts: []datasheet.Span{
 			{Text: "This datasheet was made by "}, {Text: "cylcav report", Code: true},
-			{Text: " with no design flags, from the built-in invented scenario. Give the flags of "},
+			{Text: " from a built-in invented scenario (no design flags, or --demo). Give the flags of "},
 			{Text: "cylcav design", Code: true}, {Text: " to report your own design."},
 		}}
 	}
