@@ -95,8 +95,10 @@
 //
 // Loss.Field samples the matched field anywhere in the r-z half plane
 // (Field.At; tested by integrating its energy density over the body against
-// the modal energies), the input of the field maps that package
-// axisymplot draws.
+// the modal energies) and on grids (Field.Magnitudes, separated in r and z:
+// a 200 x 200 map of a three-section body in about 10 ms,
+// axisymplot.BenchmarkFieldMap200), the input of the field maps that
+// package axisymplot draws.
 //
 // For TM0 resonances of bodies with a free axis, Loss.Accelerating gives
 // the accelerating voltage V and transit-time factor T for a particle

@@ -60,3 +60,33 @@ func TestFieldEnergy(t *testing.T) {
 		}
 	}
 }
+
+// TestMagnitudes checks the separated grid evaluation against At.
+func TestMagnitudes(t *testing.T) {
+	b := identityBodies()[2]
+	got, err := Solve(b, Request{MaxFrequency: 7e9, Modes: 10, Losses: true})
+	if err != nil || len(got) == 0 {
+		t.Fatal(got, err)
+	}
+	for _, r := range got {
+		fd := r.Loss.Field
+		rs := []float64{0.001, 0.0035, 0.01, 0.019}
+		zs := []float64{0.001, 0.015, 0.025, 0.0299}
+		e, h := fd.Magnitudes(rs, zs)
+		for iz, z := range zs {
+			for ir, rr := range rs {
+				e1, e2, h1, h2, ok := fd.At(rr, z)
+				if !ok {
+					if !math.IsNaN(e[iz][ir]) {
+						t.Errorf("(%g, %g): in metal, Magnitudes %g, want NaN", rr, z, e[iz][ir])
+					}
+					continue
+				}
+				we, wh := math.Hypot(e1, e2), math.Hypot(h1, h2)
+				if math.Abs(e[iz][ir]-we) > 1e-12*we || math.Abs(h[iz][ir]-wh) > 1e-12*wh {
+					t.Errorf("(%g, %g): Magnitudes %g, %g, At %g, %g", rr, z, e[iz][ir], h[iz][ir], we, wh)
+				}
+			}
+		}
+	}
+}

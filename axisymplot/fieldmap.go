@@ -72,19 +72,13 @@ func NewFieldMap(b axisym.Body, l *axisym.Loss, opt FieldMapOptions) (*FieldMap,
 		fm.R = append(fm.R, rmax*(float64(i)+0.5)/float64(n))
 		fm.Z = append(fm.Z, fm.Length*(float64(i)+0.5)/float64(n))
 	}
+	fm.E, fm.H = l.Field.Magnitudes(fm.R, fm.Z)
 	var emax, hmax float64
-	fm.E, fm.H = make([][]float64, n), make([][]float64, n)
-	for iz, z := range fm.Z {
-		fm.E[iz], fm.H[iz] = make([]float64, n), make([]float64, n)
-		for ir, r := range fm.R {
-			e1, e2, h1, h2, ok := l.Field.At(r, z)
-			if !ok {
-				fm.E[iz][ir], fm.H[iz][ir] = math.NaN(), math.NaN()
-				continue
+	for iz := range fm.Z {
+		for ir := range fm.R {
+			if e := fm.E[iz][ir]; !math.IsNaN(e) {
+				emax, hmax = math.Max(emax, e), math.Max(hmax, fm.H[iz][ir])
 			}
-			e, h := math.Hypot(e1, e2), math.Hypot(h1, h2)
-			fm.E[iz][ir], fm.H[iz][ir] = e, h
-			emax, hmax = math.Max(emax, e), math.Max(hmax, h)
 		}
 	}
 	for iz := range fm.Z {
