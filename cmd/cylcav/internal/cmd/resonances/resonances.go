@@ -41,6 +41,12 @@ type Options struct {
 	Identify bool
 	Ident    measure.IdentifySettings
 
+	// Hint, when set (--mode-hint), replaces the drawn size: the starting
+	// cavity comes from measure.CavityFromHint.
+	Hint     *measure.ModeHint
+	hintText string // --mode-hint as given
+	hinted   *measure.HintSearch
+
 	// Walls, when set (--wall), gives each identified mode's model Q0 for
 	// the wall diagnosis.
 	Walls *qfactor.WallSet
@@ -59,6 +65,7 @@ func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.C
 	var dpi int
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
+	var hint string
 	cmd := &cobra.Command{
 		Use:   "resonances SWEEP.s1p|SWEEP.s2p [flags]",
 		Short: "Find and fit the resonances of a measured sweep: f0, loaded Q, coupling, Q0",
@@ -88,6 +95,14 @@ nearest mode of the fitted cavity, a TE0mp/TM1mp pair split in two is
 resolved by Q (TE0mp has the higher Q) and its splitting printed, and a
 resonance that matches no mode within 0.3 % is flagged (a coupling
 structure's own resonance, or a cavity far from its drawing).
+
+Without the drawn size, --mode-hint MODE@FREQ names the mode of one
+resonance (the one nearest FREQ, within 2 %), e.g. TE011@10.36GHz: the
+ratio D/L between 0.2 and 5 that puts modes nearest the most other
+resonances (discounting the matches a dense spectrum gives by chance)
+starts the same fit. It says when another ratio fits about as well; then
+give a second resonance's mode by measuring with a different coupling, or
+the drawn size.
 
 With --empty EMPTY, the main sweep is the same cavity completely filled
 with a dielectric (nominal value from --fill): the empty sweep gives the
@@ -120,13 +135,16 @@ replaced only with --force.`,
   ...
   Mean 2.0 % IACS (1.15 MS/m), spread 0.6 % IACS across 8 modes; TE0mp modes 2.6 %, TM modes 1.4 %.
 
+  # The same cavity without its drawing: only the TE011 resonance is known
+  $ cylcav resonances testdata/measure/modes.s2p --mode-hint TE011@10.36GHz
+
   # Measure a fill: the same cavity empty and completely filled with PTFE
   $ cylcav resonances testdata/measure/modes_filled.s2p --empty testdata/measure/modes.s2p --diameter 40mm --length 31mm --fill ptfe
   ...
   Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, args, minHeight, window, dpi, geo, walls); err != nil {
+			if err := opts.parse(cmd, args, minHeight, window, dpi, geo, walls, hint); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -147,6 +165,7 @@ replaced only with --force.`,
 	})
 	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&opts.Empty, "empty", "", "sweep of the same cavity empty: the main sweep is then the cavity completely filled, and the fill is measured (needs --diameter, --length, --fill)")
+	f.StringVar(&hint, "mode-hint", "", "without the drawn size: the mode of one resonance, MODE@FREQ, e.g. TE011@10.36GHz")
 	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
@@ -156,11 +175,26 @@ replaced only with --force.`,
 	return cmd
 }
 
-func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
+func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags, hint string) error {
 	if err := cmdutil.RejectEmptyFlags(cmd); err != nil {
 		return err
 	}
-	if geo.Changed("diameter") || geo.Changed("radius") || geo.Changed("length") || geo.Changed("fill") {
+	if cmd.Flags().Changed("mode-hint") {
+		for _, name := range []string{"diameter", "radius", "length", "empty", "fit-fill"} {
+			if cmd.Flags().Changed(name) {
+				return cmdutil.Usagef("--mode-hint replaces the drawn size; leave out --%s", name)
+			}
+		}
+		h, err := parseHint(hint)
+		if err != nil {
+			return err
+		}
+		fill, err := geo.Fill()
+		if err != nil {
+			return err
+		}
+		opts.Hint, opts.hintText, opts.Identify, opts.Ident.Nominal.Fill = &h, hint, true, fill
+	} else if geo.Changed("diameter") || geo.Changed("radius") || geo.Changed("length") || geo.Changed("fill") {
 		c, err := geo.Cavity()
 		if err != nil {
 			return err
@@ -221,6 +255,23 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window 
 	}
 	opts.Page.DPI = dpi
 	return nil
+}
+
+// parseHint parses --mode-hint MODE@FREQ.
+func parseHint(v string) (measure.ModeHint, error) {
+	mode, freq, ok := strings.Cut(v, "@")
+	if !ok {
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, errors.New("want MODE@FREQ, e.g. TE011@10.36GHz"))
+	}
+	m, err := cavity.ParseMode(mode)
+	if err != nil {
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, err)
+	}
+	f, err := cmdutil.Frequency("mode-hint", strings.TrimSpace(freq), 1e6, 1e13)
+	if err != nil {
+		return measure.ModeHint{}, err
+	}
+	return measure.ModeHint{Mode: m, F: f}, nil
 }
 
 // readSweep reads the sweep file; a missing or malformed file is bad
@@ -286,6 +337,11 @@ func runResonances(opts *Options) error {
 		}
 		fill.empty = idE
 	} else if opts.Identify {
+		if opts.Hint != nil {
+			if err := startFromHint(opts, rs); err != nil {
+				return err
+			}
+		}
 		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
 			return err
 		}
@@ -307,6 +363,9 @@ func runResonances(opts *Options) error {
 		o := toJSON(opts.File, d, rs, id)
 		o.Walls = wallsJSON(wd)
 		o.Fill = fill.json()
+		if h := opts.hinted; h != nil && o.Cavity != nil {
+			o.Cavity.HintIndex, o.Cavity.HintAmbiguous = h.Hinted+1, &h.Ambiguous
+		}
 		return cmdutil.WriteJSON(opts.IO.Out, o)
 	case cmdutil.CSV:
 		return writeCSV(opts, rs, id)
@@ -435,6 +494,11 @@ type cavityJSON struct {
 	EpsRErr      number     `json:"eps_r_err"`
 	RMSResidual  number     `json:"rms_residual"`
 	Pairs        []pairJSON `json:"split_pairs"`
+
+	// With --mode-hint: the hinted resonance (1-based) and whether
+	// another ratio D/L fits about as well.
+	HintIndex     int   `json:"hint_index,omitempty"`
+	HintAmbiguous *bool `json:"hint_ambiguous,omitempty"`
 }
 
 type pairJSON struct {
@@ -606,9 +670,20 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *m
 			fmt.Fprintf(w, "Fitted fill: eps_r = %s with D = %s, L = %s held; RMS residual %.0f ppm.\n",
 				pm(c.Fill.Eps(), id.EpsErr, 1), physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), 1e6*id.RMS)
 		} else {
-			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (drawn %s, %s); RMS residual %.0f ppm.\n",
-				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3),
+			from := "drawn"
+			if opts.hinted != nil {
+				from = fmt.Sprintf("started from %s at resonance %d:", opts.Hint.Mode, opts.hinted.Hinted+1)
+			}
+			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (%s %s, %s); RMS residual %.0f ppm.\n",
+				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3), from,
 				physics.FormatLength(opts.Ident.Nominal.Diameter(), 6), physics.FormatLength(opts.Ident.Nominal.Length, 6), 1e6*id.RMS)
+		}
+		if h := opts.hinted; h != nil {
+			fmt.Fprintf(w, "Mode hint: %d of %d resonances near a mode of the start (%.1f expected by chance).\n", h.Near, len(id.Assign), h.Chance)
+			if h.Ambiguous {
+				fmt.Fprintf(w, "Caution: D/L = %.3f (D = %s, L = %s) fits the resonances about as well; the naming is not certain. Give the drawn size or a second resonance's mode.\n",
+					h.Alternative.Diameter()/h.Alternative.Length, physics.FormatLength(h.Alternative.Diameter(), 5), physics.FormatLength(h.Alternative.Length, 5))
+			}
 		}
 		for _, p := range id.Pairs {
 			fmt.Fprintf(w, "Resonances %d (%s) and %d (%s): a degenerate pair split by %s; the higher Q is taken as %s.\n",
@@ -733,6 +808,24 @@ func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
 		fmt.Fprintln(w, "The TM modes, whose wall currents cross the joints between side wall and end plates, lose clearly more than the TE0mp modes, whose currents do not: suspect the end-plate contact (clean, flatten or tighten the joints).")
 	}
 	fmt.Fprintln(w, "Roughness, plating and the coupling structures' own loss all lower the effective conductivity; it is a figure of merit of the walls as built, not the metal's bulk value.")
+	return nil
+}
+
+// startFromHint sets the starting cavity from --mode-hint.
+func startFromHint(opts *Options, rs []measure.Resonance) error {
+	f0 := make([]float64, 0, len(rs))
+	for _, r := range rs {
+		f0 = append(f0, r.F0)
+	}
+	if hasNaN(f0) {
+		return fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --mode-hint", opts.File)
+	}
+	h, err := measure.CavityFromHint(f0, *opts.Hint, opts.Ident.Nominal.Fill)
+	if err != nil {
+		// the hint does not fit this sweep: bad input
+		return cmdutil.FlagError("mode-hint", opts.hintText, err)
+	}
+	opts.hinted, opts.Ident.Nominal = &h, h.Cavity
 	return nil
 }
 

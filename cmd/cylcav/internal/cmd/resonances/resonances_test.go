@@ -97,6 +97,10 @@ func TestBadInput(t *testing.T) {
 		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm"}, Code: 2, Want: []string{"--length"}},
 		{Args: []string{sweep("modes.s2p"), "--diameter", "-4mm", "--length", "31mm"}, Code: 2, Want: []string{`--diameter "-4mm"`}},
 		{Args: []string{sweep("modes.s2p"), "--fit-fill"}, Code: 2, Want: []string{"--fit-fill", "--diameter"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011"}, Code: 2, Want: []string{`--mode-hint "TE011"`, "MODE@FREQ"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE010@10GHz"}, Code: 2, Want: []string{`--mode-hint "TE010@10GHz"`, "TE modes need p >= 1"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011@12GHz"}, Code: 2, Want: []string{`--mode-hint "TE011@12GHz"`, "no resonance within 2 %"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011@10.36GHz", "--length", "31mm"}, Code: 2, Want: []string{"--mode-hint", "--length"}},
 	})
 }
 
@@ -117,9 +121,19 @@ func TestNoResonance(t *testing.T) {
 }
 
 // TestIdentifyJSON: the modes of testdata/measure/gen_modes.py's sweep
-// (built D 40.08 mm, L 30.85 mm) come out in the JSON with the fitted cavity.
+// (built D 40.08 mm, L 30.85 mm) come out in the JSON with the fitted
+// cavity, from the drawn size and from a mode hint alone.
 func TestIdentifyJSON(t *testing.T) {
-	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--format", "json")
+	for _, args := range [][]string{
+		{"--diameter", "40mm", "--length", "31mm"},
+		{"--mode-hint", "TE011@10.36GHz"},
+	} {
+		t.Run(args[0], func(t *testing.T) { identifyJSON(t, args) })
+	}
+}
+
+func identifyJSON(t *testing.T, args []string) {
+	r := clitest.Run(t, append([]string{"resonances", sweep("modes.s2p"), "--format", "json"}, args...)...)
 	if r.Code != 0 {
 		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
 	}
@@ -129,6 +143,8 @@ func TestIdentifyJSON(t *testing.T) {
 			DErr float64 `json:"diameter_err_m"`
 			L    float64 `json:"length_m"`
 			LErr float64 `json:"length_err_m"`
+			Hint int     `json:"hint_index"`
+			Amb  *bool   `json:"hint_ambiguous"`
 		} `json:"fitted_cavity"`
 		Resonances []struct {
 			Mode    string
@@ -140,6 +156,9 @@ func TestIdentifyJSON(t *testing.T) {
 	}
 	if math.Abs(out.Cavity.D-40.08e-3) > 4*out.Cavity.DErr || math.Abs(out.Cavity.L-30.85e-3) > 4*out.Cavity.LErr {
 		t.Errorf("fitted D %g +- %g, L %g +- %g; built 40.08 mm, 30.85 mm", out.Cavity.D, out.Cavity.DErr, out.Cavity.L, out.Cavity.LErr)
+	}
+	if hinted := args[0] == "--mode-hint"; hinted != (out.Cavity.Amb != nil) || (hinted && (*out.Cavity.Amb || out.Cavity.Hint != 8)) {
+		t.Errorf("hint index %d, ambiguous %v; want 8 (the generator's TE011), false, only with --mode-hint", out.Cavity.Hint, out.Cavity.Amb)
 	}
 	var modes []string
 	for _, res := range out.Resonances {
