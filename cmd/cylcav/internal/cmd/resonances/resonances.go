@@ -111,7 +111,8 @@ identified in that cavity, gives the fill's eps_r = (f_empty/f_filled)^2
 and loss tangent from the two Q0 values of each mode found in both, with
 their uncertainties (fits and wall model; the dimensions cancel).
 
---plot writes the sweep with the resonances numbered; --fit-plots BASE.EXT
+--plot writes the sweep with the resonances numbered (and their modes,
+when named); --fit-plots BASE.EXT
 writes one plot per resonance (BASE-1.EXT, BASE-2.EXT, ...): measured
 points against the fitted curve, in dB and in the complex plane. The file
 type follows the extension: .png, .svg or .pdf. Existing files are
@@ -349,7 +350,7 @@ func runResonances(opts *Options) error {
 			return fmt.Errorf("%s: %w", opts.File, err)
 		}
 	}
-	files, err := renderPlots(opts, d, rs)
+	files, err := renderPlots(opts, d, rs, id)
 	if err != nil {
 		return err
 	}
@@ -392,7 +393,7 @@ type outFile struct {
 
 // renderPlots renders every requested plot in memory, so that a failure
 // leaves no file behind.
-func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance) ([]outFile, error) {
+func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) ([]outFile, error) {
 	th := figure.DefaultTheme()
 	name, main := "S21", func() []complex128 { return nil }
 	if d.Ports == 1 {
@@ -406,6 +407,11 @@ func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance) ([]o
 		sp, err := benchplot.NewSweepPlot(d.Freq, main(), name, rs)
 		if err != nil {
 			return nil, err
+		}
+		if id != nil {
+			if err := sp.SetModes(id); err != nil {
+				return nil, err
+			}
 		}
 		fig, err := sp.Figure(th)
 		if err != nil {
