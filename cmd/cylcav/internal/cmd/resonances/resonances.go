@@ -96,6 +96,13 @@ resolved by Q (TE0mp has the higher Q) and its splitting printed, and a
 resonance that matches no mode within 0.3 % is flagged (a coupling
 structure's own resonance, or a cavity far from its drawing).
 
+With the size, each named mode's Q0 also gives the conductivity of smooth
+uniform walls that would explain it, its spread across modes, and a TE0mp
+vs TM comparison that points at the end-plate joints; with --wall METAL,
+the model's Q0 and the equivalent RMS roughness of that metal under
+--roughness-model (a mode losing more than any roughness explains is
+marked so).
+
 Without the drawn size, --mode-hint MODE@FREQ names the mode of one
 resonance (the one nearest FREQ, within 2 %), e.g. TE011@10.36GHz: the
 ratio D/L between 0.2 and 5 that puts modes nearest the most other
