@@ -256,9 +256,12 @@ func parseHint(v string) (measure.ModeHint, error) {
 	if err != nil {
 		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, err)
 	}
-	f, err := cmdutil.Frequency("mode-hint", strings.TrimSpace(freq), 1e6, 1e13)
+	f, err := cmdutil.FrequencyOf(strings.TrimSpace(freq))
 	if err != nil {
-		return measure.ModeHint{}, err
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, err)
+	}
+	if !(f >= 1e6 && f <= 1e13) {
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, errors.New("the frequency must be between 1 MHz and 10 THz"))
 	}
 	return measure.ModeHint{Mode: m, F: f}, nil
 }
