@@ -66,6 +66,9 @@ type MaskRegion struct {
 	Attenuation float64
 	// Above is true for a region above the passband.
 	Above bool
+	// Bounded is true when the region ends at the rejection's End rather
+	// than at the end of the band of interest.
+	Bounded bool
 	// OutsideModel is true when F lies beyond the model range (ModelRange):
 	// the coupling-matrix model does not predict the response there, so
 	// the requirement cannot be checked.
@@ -117,8 +120,14 @@ func (s Spec) mask() Mask {
 		switch {
 		case g.Above && r.F < hi:
 			g.Low, g.High = r.F, hi
+			if r.End > 0 && r.End < hi {
+				g.High, g.Bounded = r.End, true
+			}
 		case !g.Above && r.F > lo:
 			g.Low, g.High = lo, r.F
+			if r.End > lo {
+				g.Low, g.Bounded = r.End, true
+			}
 		default:
 			g.Low, g.High, g.OutsideModel = r.F, r.F, true
 		}

@@ -37,10 +37,14 @@ func (f Family) String() string {
 const DefaultReturnLoss = 20.0
 
 // Rejection is one stopband requirement: at least Attenuation dB of
-// insertion loss at frequency F (Hz), which must lie outside the passband.
+// insertion loss from frequency F (Hz), which must lie outside the
+// passband, outwards to End, or to the end of the band of interest
+// (ModelRange) when End is 0. End, when given, lies on the far side of F
+// from the passband.
 type Rejection struct {
 	F           float64 // Hz
 	Attenuation float64 // dB, > 0
+	End         float64 // Hz; 0: to the end of the band of interest
 }
 
 // Spec is the specification of a bandpass filter.
@@ -145,6 +149,9 @@ func (s Spec) normalized() (Spec, error) {
 		}
 		if !(r.Attenuation > 0) || math.IsInf(r.Attenuation, 0) {
 			return s, fmt.Errorf("filter: rejection %d: attenuation must be > 0 dB and finite, got %g dB", i+1, r.Attenuation)
+		}
+		if e := r.End; e != 0 && (math.IsNaN(e) || math.IsInf(e, 0) || (r.F > s.F0) != (e > r.F) || e <= 0) {
+			return s, fmt.Errorf("filter: rejection %d: the band from %s must end farther from the passband, got an end at %s", i+1, physics.FormatFrequency(r.F, 6), physics.FormatFrequency(e, 6))
 		}
 	}
 	if s.Order == 0 && len(s.Rejections) == 0 {

@@ -254,7 +254,10 @@ func FrequencyListVar(fs *pflag.FlagSet, p *[]float64, name, usage string, lo, h
 // of a LevelList, with the item as given (trimmed) for later messages.
 type LevelAt struct {
 	DB, Hz float64
-	Text   string
+	// End is the far end of a band "40dB@10.3GHz:10.6GHz", Hz; 0 when
+	// the item names one frequency.
+	End  float64
+	Text string
 }
 
 // LevelList is a flag value holding a comma-separated list of
@@ -299,15 +302,26 @@ func (l *LevelList) parse(it string) (LevelAt, error) {
 	if !(db > 0 && db <= l.maxDB) {
 		return LevelAt{}, ItemErrorf(it, "attenuation must be > 0 dB and <= %g dB", l.maxDB)
 	}
-	f, err := parseFrequency(fr)
-	if err != nil {
-		return LevelAt{}, ItemErrorf(it, "%v", err)
+	fr, endText, bounded := strings.Cut(fr, ":")
+	var fs [2]float64
+	for k, t := range []string{fr, endText} {
+		if k == 1 && !bounded {
+			break
+		}
+		f, err := parseFrequency(t)
+		if err != nil {
+			return LevelAt{}, ItemErrorf(it, "%v", err)
+		}
+		if !(f >= MinFrequency && f <= MaxFrequency) {
+			return LevelAt{}, ItemErrorf(it, "frequency must be between %s and %s",
+				physics.FormatFrequency(MinFrequency, 4), physics.FormatFrequency(MaxFrequency, 4))
+		}
+		fs[k] = f
 	}
-	if !(f >= MinFrequency && f <= MaxFrequency) {
-		return LevelAt{}, ItemErrorf(it, "frequency must be between %s and %s",
-			physics.FormatFrequency(MinFrequency, 4), physics.FormatFrequency(MaxFrequency, 4))
+	if bounded && fs[1] == fs[0] {
+		return LevelAt{}, ItemErrorf(it, "a band FREQ:END needs two different frequencies")
 	}
-	return LevelAt{DB: db, Hz: f, Text: it}, nil
+	return LevelAt{DB: db, Hz: fs[0], End: fs[1], Text: it}, nil
 }
 
 // LevelListVar defines a list flag of attenuations at frequencies

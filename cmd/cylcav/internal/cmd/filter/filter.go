@@ -180,7 +180,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.FrequencyVar(f, &s.F0, "f0", "centre frequency (geometric), e.g. 10GHz (required)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
 	fl.bw = cmdutil.FrequencyOrFractionVar(f, "bw", "passband width f2 - f1, e.g. 200MHz or 2% of f0 (required)")
 	cmdutil.IntVar(f, &s.Order, "order", 0, fmt.Sprintf("number of resonators, 1..%d (or give --reject)", bandpass.MaxOrder), 1, bandpass.MaxOrder)
-	cmdutil.LevelListVar(f, &fl.reject, "reject", "rejections ATT@FREQ[,...], e.g. 40dB@10.25GHz,35dB@9.75GHz", maxAttenuation)
+	cmdutil.LevelListVar(f, &fl.reject, "reject", "rejections ATT@FREQ[:END][,...]: from FREQ outwards, to END when given, e.g. 40dB@10.25GHz:10.6GHz,35dB@9.75GHz", maxAttenuation)
 	cmdutil.DecibelVar(f, &s.ReturnLoss, "return-loss", fmt.Sprintf("passband return loss, e.g. 20dB (default %g dB)", bandpass.DefaultReturnLoss),
 		bandpass.ReturnLossFromRipple(bandpass.MaxRipple), bandpass.MaxReturnLoss)
 	cmdutil.DecibelVar(f, &s.Ripple, "ripple", "passband ripple instead of --return-loss, e.g. 0.01dB",
@@ -265,7 +265,7 @@ func (opts *Options) checkSpec(changed func(string) bool, fl *flags) error {
 		if math.Abs(bandpass.LowpassOmega(r.Hz, f0, bw)) <= 1 {
 			return cmdutil.FlagError("reject", r.Text, fmt.Errorf("frequency lies in the passband %s; rejections must lie outside it", band))
 		}
-		s.Rejections = append(s.Rejections, bandpass.Rejection{F: r.Hz, Attenuation: r.DB})
+		s.Rejections = append(s.Rejections, bandpass.Rejection{F: r.Hz, Attenuation: r.DB, End: r.End})
 	}
 	if s.Order == 0 && len(s.Rejections) == 0 {
 		return cmdutil.Usagef("give --order N (1..%d) or --reject ATT@FREQ (e.g. --reject 40dB@10.3GHz) to choose the order from", bandpass.MaxOrder)

@@ -161,6 +161,10 @@ func (r *Result) WriteTable(w io.Writer) error {
 				dbText(g.Attenuation), ff(g.F), side, 100*bandpass.ModelOffset)
 			continue
 		}
+		if g.Bounded {
+			fmt.Fprintf(&b, "  rejection >= %s dB from %s to %s\n", dbText(g.Attenuation), ff(g.F), ff(end))
+			continue
+		}
 		fmt.Fprintf(&b, "  rejection >= %s dB from %s outwards to %s (f0 %s %g %%, the end of the band of interest)\n",
 			dbText(g.Attenuation), ff(g.F), ff(end), side, 100*bandpass.ModelOffset)
 	}
@@ -447,6 +451,7 @@ type Output struct {
 type RejectionOut struct {
 	F           float64 `json:"f_hz"`
 	Attenuation float64 `json:"attenuation_db"`
+	End         float64 `json:"end_hz,omitempty"` // the band's far end when given; absent: the end of the band of interest
 }
 
 // CrossOut is a coupling outside the main line.
@@ -574,7 +579,7 @@ func (r *Result) JSON() Output {
 		o.ReturnLoss, o.Ripple = finite(s.ReturnLoss), finite(s.Ripple)
 	}
 	for _, rj := range s.Rejections {
-		o.Rejections = append(o.Rejections, RejectionOut{F: rj.F, Attenuation: rj.Attenuation})
+		o.Rejections = append(o.Rejections, RejectionOut{F: rj.F, Attenuation: rj.Attenuation, End: rj.End})
 	}
 	for _, z := range d.Zeros {
 		o.Zeros = append(o.Zeros, bandpass.BandpassFrequency(z, s.F0, s.BW))
