@@ -123,6 +123,9 @@ func Size(m Mode, f float64, fill physics.Medium, by Constraint) (Cavity, error)
 	if err := checkFill(fill); err != nil {
 		return Cavity{}, err
 	}
+	if err := (Cavity{Fill: fill}).ModelHolds(m, "sizing"); err != nil {
+		return Cavity{}, err
+	}
 	if !(f > 0 && f <= math.MaxFloat64) {
 		return Cavity{}, fmt.Errorf("cavity: frequency must be finite and > 0 Hz, got %g Hz", f)
 	}
