@@ -1,8 +1,9 @@
 package cavity
 
 import (
-	"fmt"
 	"math"
+
+	"cylcav/physics"
 )
 
 // radiusFor returns the radius that turns mode family f of c into the modes
@@ -31,7 +32,16 @@ func (c Cavity) radiusFor(f Family) float64 {
 	if f != TM || !c.Fill.Uniaxial() {
 		return c.Radius
 	}
-	return c.Radius * math.Sqrt(c.Fill.EpsPar()/c.Fill.Eps())
+	return c.Radius * radiusScale(c.Fill, f)
+}
+
+// radiusScale returns the factor of radiusFor: sqrt(eps_par/eps_perp) for
+// TM modes in a uniaxial fill, 1 otherwise.
+func radiusScale(fill physics.Medium, f Family) float64 {
+	if f != TM || !fill.Uniaxial() {
+		return 1
+	}
+	return math.Sqrt(fill.EpsPar() / fill.Eps())
 }
 
 // ModelHolds returns nil when a model that assumes an isotropic fill (named
@@ -44,5 +54,16 @@ func (c Cavity) ModelHolds(m Mode, model string) error {
 	if m.Family == TE || !c.Fill.Uniaxial() {
 		return nil
 	}
-	return fmt.Errorf("cavity: %s of %s holds for TE modes only in a uniaxial fill (%s, eps_perp %g, eps_par %g)", model, m, c.Fill.Label(), c.Fill.Eps(), c.Fill.EpsPar())
+	return physics.UniaxialError("cavity: %s of %s holds for TE modes only in a uniaxial fill (%s, eps_perp %g, eps_par %g)", model, m, c.Fill.Label(), c.Fill.Eps(), c.Fill.EpsPar())
+}
+
+// Companion returns the mode that resonates at exactly the frequency of m
+// in c: Mode.Companion (TE0mp with TM1mp) for an isotropic fill, and none
+// in a uniaxial fill, where TM1mp sees eps_par and TE0mp does not
+// (radiusFor).
+func (c Cavity) Companion(m Mode) (Mode, bool) {
+	if c.Fill.Uniaxial() {
+		return Mode{}, false
+	}
+	return m.Companion()
 }

@@ -1,6 +1,7 @@
 package cavity
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -227,15 +228,30 @@ func TestUniaxialRefused(t *testing.T) {
 	if _, err := c.ModeField(tm); err == nil || !strings.Contains(err.Error(), "TE modes only") {
 		t.Errorf("ModeField(TM010) in sapphire: error %v, want a refusal", err)
 	}
-	if _, err := Size(tm, 10e9, s.Both, ByRatio(1)); err == nil {
-		t.Error("Size(TM010) in sapphire: no error")
+	// Size solves the uniaxial condition for every constraint: the sized
+	// cavity resonates on target by Frequency, and keeps the constraint.
+	tm1 := Mode{Family: TM, N: 0, M: 1, P: 1}
+	for _, m := range []Mode{te, tm1, {Family: TM, N: 1, M: 1, P: 1}} {
+		for _, by := range []Constraint{ByRatio(1.3), ByDiameter(0.012), ByLength(0.009)} {
+			sz, err := Size(m, 10e9, s.Both, by)
+			if err != nil {
+				t.Errorf("Size(%s, %s) in sapphire: %v", m, by, err)
+				continue
+			}
+			if f := sz.Frequency(m); math.Abs(f-10e9) > 1e-12*10e9 {
+				t.Errorf("Size(%s, %s) in sapphire resonates at %.12g Hz", m, by, f)
+			}
+		}
 	}
-	sz, err := Size(te, 10e9, s.Both, ByRatio(1))
-	if err != nil {
-		t.Fatal(err)
+	// The least diameter of a TM mode is that of the TM cut-off with
+	// eps_par: 2 j01 c/(2 pi f sqrt(eps_par)) (by hand, TM0m0 limit).
+	_, err := Size(tm1, 10e9, s.Both, ByDiameter(0.001))
+	least := 2 * 2.404825558 * physics.SpeedOfLight / (2 * math.Pi * 10e9 * math.Sqrt(s.Both.EpsPar()))
+	if err == nil || !strings.Contains(err.Error(), shortLength(least)) {
+		t.Errorf("Size(TM011, 1 mm) error %v, want the least diameter %s", err, shortLength(least))
 	}
-	if f := sz.Frequency(te); math.Abs(f-10e9) > 1e-12*10e9 {
-		t.Errorf("Size(TE011) in sapphire resonates at %.12g Hz", f)
+	if _, err := c.ModeField(tm); err == nil || !errors.Is(err, physics.ErrUniaxial) {
+		t.Errorf("ModeField(TM010) error %v, want one matching physics.ErrUniaxial", err)
 	}
 	if _, err := c.Clearance(te, ClearanceOptions{}); err == nil || !strings.Contains(err.Error(), "isotropic fills only") {
 		t.Errorf("Clearance in sapphire: error %v, want a refusal", err)

@@ -1,6 +1,7 @@
 package physics
 
 import (
+	"errors"
 	"fmt"
 	"math"
 )
@@ -74,6 +75,22 @@ func (m Medium) EpsPar() float64 {
 // EpsRParallel is set and differs from Eps.
 func (m Medium) Uniaxial() bool { return m.EpsRParallel != 0 && m.EpsRParallel != m.Eps() }
 
+// ErrUniaxial matches (errors.Is) every refusal of a uniaxial fill by a
+// model that holds for isotropic fills only (RequireIsotropic, cavity's
+// ModelHolds); such errors are made by UniaxialError.
+var ErrUniaxial = errors.New("uniaxial fill not supported")
+
+// UniaxialError returns an error with the formatted message that matches
+// ErrUniaxial.
+func UniaxialError(format string, a ...any) error {
+	return &uniaxialError{fmt.Sprintf(format, a...)}
+}
+
+type uniaxialError struct{ msg string }
+
+func (e *uniaxialError) Error() string        { return e.msg }
+func (e *uniaxialError) Is(target error) bool { return target == ErrUniaxial }
+
 // RequireIsotropic returns nil for an isotropic medium and, for a uniaxial
 // one, an error saying that model (for example "the D/L optimiser") holds
 // for isotropic fills only: the one refusal every model that does not
@@ -82,7 +99,26 @@ func (m Medium) RequireIsotropic(model string) error {
 	if !m.Uniaxial() {
 		return nil
 	}
-	return fmt.Errorf("%s holds for isotropic fills only, not the uniaxial fill %s (eps_perp %g, eps_par %g)", model, m.Label(), m.Eps(), m.EpsPar())
+	return UniaxialError("%s holds for isotropic fills only, not the uniaxial fill %s (eps_perp %g, eps_par %g)", model, m.Label(), m.Eps(), m.EpsPar())
+}
+
+// EpsText returns the permittivity for people: "eps_r 2.08" for an
+// isotropic medium, "uniaxial, c axis along z: eps_perp 9.39, eps_par
+// 11.59" for a uniaxial one (%g format).
+func (m Medium) EpsText() string {
+	if !m.Uniaxial() {
+		return fmt.Sprintf("eps_r %g", m.Eps())
+	}
+	return fmt.Sprintf("uniaxial, c axis along z: eps_perp %g, eps_par %g", m.Eps(), m.EpsPar())
+}
+
+// UniaxialPar returns eps_par of a uniaxial medium and 0 for an isotropic
+// one: the value of the optional "eps_r_parallel" field of JSON output.
+func (m Medium) UniaxialPar() float64 {
+	if !m.Uniaxial() {
+		return 0
+	}
+	return m.EpsPar()
 }
 
 // Mu returns the relative permeability, MuR with zero meaning 1.
