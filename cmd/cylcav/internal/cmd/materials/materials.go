@@ -112,13 +112,13 @@ type conductorJSON struct {
 
 // dielectricJSON is one fill row of the JSON output. Unknown values are null.
 type dielectricJSON struct {
-	Name           string   `json:"name"`
-	Aliases        []string `json:"aliases"`
-	Description    string   `json:"description"`
-	EpsR           float64  `json:"eps_r"`
+	Name        string   `json:"name"`
+	Aliases     []string `json:"aliases"`
+	Description string   `json:"description"`
+	EpsR        float64  `json:"eps_r"`
 	// EpsRParallel is eps_par of a uniaxial crystal (c axis along the
 	// cavity axis; eps_r is then eps_perp); null for an isotropic fill.
-	EpsRParallel *float64 `json:"eps_r_parallel"`
+	EpsRParallel   *float64 `json:"eps_r_parallel"`
 	TanDelta       float64  `json:"tan_delta"`
 	TanDeltaFreqHz *float64 `json:"tan_delta_freq_hz"`
 	MuR            float64  `json:"mu_r"`
