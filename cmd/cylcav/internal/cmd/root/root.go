@@ -18,6 +18,7 @@ import (
 	"cylcav/cmd/cylcav/internal/cmd/report"
 	"cylcav/cmd/cylcav/internal/cmd/resonances"
 	"cylcav/cmd/cylcav/internal/cmd/size"
+	"cylcav/cmd/cylcav/internal/cmd/stack"
 	"cylcav/cmd/cylcav/internal/cmd/tune"
 	"cylcav/cmd/cylcav/internal/cmd/unloadedq"
 	"cylcav/cmd/cylcav/internal/cmd/version"
@@ -69,6 +70,7 @@ refused with a hint). JSON and CSV output use SI base units.`,
 	cmd.AddCommand(filter.NewCmdFilter(io, nil))
 	cmd.AddCommand(report.NewCmdReport(io, nil))
 	cmd.AddCommand(resonances.NewCmdResonances(io, nil))
+	cmd.AddCommand(stack.NewCmdStack(io, nil))
 	requireShell(cmd)
 	cmdutil.HardenFlags(cmd)
 	return cmd

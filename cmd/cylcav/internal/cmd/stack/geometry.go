@@ -1,0 +1,213 @@
+package stack
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"go.yaml.in/yaml/v3"
+
+	"cylcav/axisym"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+)
+
+// FileError is an error in a geometry file: the file, the line and the key
+// it concerns.
+type FileError struct {
+	File string
+	Line int
+	Key  string
+	Err  error
+}
+
+func (e *FileError) Error() string {
+	if e.Key == "" {
+		return fmt.Sprintf("%s:%d: %v", e.File, e.Line, e.Err)
+	}
+	return fmt.Sprintf("%s:%d: %s: %v", e.File, e.Line, e.Key, e.Err)
+}
+
+func (e *FileError) Unwrap() error { return e.Err }
+
+// Geometry is a parsed geometry file.
+type Geometry struct {
+	Title string
+	Body  axisym.Body
+}
+
+// Keys of the geometry file, in the order the help text lists them.
+var (
+	topKeys     = []string{"title", "sections"}
+	sectionKeys = []string{"length", "radius", "inner_radius", "fill", "start"}
+)
+
+// ParseGeometry reads a geometry file's bytes (YAML; see the command's help
+// for the format). Every error is a *FileError naming file, line and key:
+// unknown or repeated keys, missing lengths or radii, values that are not
+// lengths, zero or negative sizes, an inner radius not below the outer,
+// a start that overlaps the previous section or leaves a gap, unknown
+// materials, and bodies that axisym.Body.Validate rejects.
+func ParseGeometry(file string, data []byte) (Geometry, error) {
+	var g Geometry
+	var doc yaml.Node
+	if err := yaml.Unmarshal(data, &doc); err != nil {
+		line := 1
+		msg := err.Error()
+		// The decoder's messages read "yaml: line N: ..."; keep the line.
+		if _, e := fmt.Sscanf(msg, "yaml: line %d:", &line); e == nil {
+			if parts := strings.SplitN(msg, ": ", 3); len(parts) == 3 {
+				msg = parts[2]
+			}
+		}
+		return g, &FileError{File: file, Line: line, Err: fmt.Errorf("not valid YAML: %s", msg)}
+	}
+	if len(doc.Content) == 0 {
+		return g, &FileError{File: file, Line: 1, Err: fmt.Errorf("empty file; it needs a 'sections' list")}
+	}
+	root := doc.Content[0]
+	ferr := func(n *yaml.Node, key string, format string, a ...any) error {
+		return &FileError{File: file, Line: n.Line, Key: key, Err: fmt.Errorf(format, a...)}
+	}
+	if root.Kind != yaml.MappingNode {
+		return g, ferr(root, "", "the file must be a mapping with the keys %s", strings.Join(topKeys, ", "))
+	}
+	var sections *yaml.Node
+	if err := eachKey(file, root, "", topKeys, func(k, v *yaml.Node) error {
+		switch k.Value {
+		case "title":
+			if v.Kind != yaml.ScalarNode {
+				return ferr(v, "title", "must be text")
+			}
+			g.Title = v.Value
+		case "sections":
+			sections = v
+		}
+		return nil
+	}); err != nil {
+		return g, err
+	}
+	if sections == nil {
+		return g, ferr(root, "sections", "missing: list the sections from the end plate at z = 0")
+	}
+	if sections.Kind != yaml.SequenceNode || len(sections.Content) == 0 {
+		return g, ferr(sections, "sections", "must be a non-empty list of sections")
+	}
+	z := 0.0
+	for i, sn := range sections.Content {
+		prefix := fmt.Sprintf("sections[%d]", i+1)
+		if sn.Kind != yaml.MappingNode {
+			return g, ferr(sn, prefix, "must be a mapping with the keys %s", strings.Join(sectionKeys, ", "))
+		}
+		var s axisym.Section
+		var haveLength, haveRadius bool
+		var startNode *yaml.Node
+		start := math.NaN()
+		err := eachKey(file, sn, prefix, sectionKeys, func(k, v *yaml.Node) error {
+			key := prefix + "." + k.Value
+			if v.Kind != yaml.ScalarNode {
+				return ferr(v, key, "must be a single value")
+			}
+			switch k.Value {
+			case "fill":
+				d, err := physics.ParseDielectric(v.Value)
+				if err != nil {
+					return ferr(v, key, "%v", err)
+				}
+				s.Fill = d.Medium
+				return nil
+			}
+			x, err := physics.ParseLength(v.Value)
+			if err != nil {
+				return ferr(v, key, "%v", err)
+			}
+			switch k.Value {
+			case "length":
+				haveLength = true
+				s.Length = x
+				if !(x > 0) {
+					return ferr(v, key, "must be > 0, got %s", v.Value)
+				}
+			case "radius":
+				haveRadius = true
+				s.Radius = x
+				if !(x > 0) {
+					return ferr(v, key, "must be > 0, got %s", v.Value)
+				}
+			case "inner_radius":
+				s.InnerRadius = x
+				if x < 0 {
+					return ferr(v, key, "must be >= 0 (0 means no inner conductor), got %s", v.Value)
+				}
+			case "start":
+				start, startNode = x, v
+			}
+			return nil
+		})
+		if err != nil {
+			return g, err
+		}
+		if !haveLength {
+			return g, ferr(sn, prefix+".length", "missing")
+		}
+		if !haveRadius {
+			return g, ferr(sn, prefix+".radius", "missing")
+		}
+		if s.InnerRadius != 0 && s.InnerRadius >= s.Radius {
+			return g, ferr(sn, prefix+".inner_radius", "must be below the radius %s, got %s",
+				lengthText(s.Radius), lengthText(s.InnerRadius))
+		}
+		if startNode != nil {
+			tol := 1e-9 * max(z, s.Length)
+			switch {
+			case start < z-tol:
+				return g, ferr(startNode, prefix+".start", "overlaps the previous section by %s (it ends at z = %s)",
+					lengthText(z-start), lengthText(z))
+			case start > z+tol:
+				return g, ferr(startNode, prefix+".start", "leaves a gap of %s after the previous section (it ends at z = %s)",
+					lengthText(start-z), lengthText(z))
+			}
+		}
+		z += s.Length
+		g.Body.Sections = append(g.Body.Sections, s)
+		if err := (axisym.Body{Sections: []axisym.Section{s}}).Validate(); err != nil {
+			msg := strings.TrimPrefix(err.Error(), "axisym: section 1: ")
+			return g, ferr(sn, prefix, "%s", msg)
+		}
+	}
+	if err := g.Body.Validate(); err != nil {
+		return g, ferr(sections, "sections", "%v", err)
+	}
+	return g, nil
+}
+
+// eachKey calls fn for every key of mapping m in order, after rejecting keys
+// not in allowed and repeated keys.
+func eachKey(file string, m *yaml.Node, prefix string, allowed []string, fn func(k, v *yaml.Node) error) error {
+	seen := map[string]int{}
+	for i := 0; i+1 < len(m.Content); i += 2 {
+		k, v := m.Content[i], m.Content[i+1]
+		key := k.Value
+		if prefix != "" {
+			key = prefix + "." + k.Value
+		}
+		ok := false
+		for _, a := range allowed {
+			ok = ok || a == k.Value
+		}
+		if !ok {
+			return &FileError{File: file, Line: k.Line, Key: key, Err: fmt.Errorf("unknown key; allowed: %s", strings.Join(allowed, ", "))}
+		}
+		if l, dup := seen[k.Value]; dup {
+			return &FileError{File: file, Line: k.Line, Key: key, Err: fmt.Errorf("given twice (first on line %d)", l)}
+		}
+		seen[k.Value] = k.Line
+		if err := fn(k, v); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// lengthText prints a length for an error message.
+func lengthText(m float64) string { return cmdutil.TrimZeros(physics.FormatLength(m, 6)) }

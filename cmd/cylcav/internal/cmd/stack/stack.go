@@ -1,0 +1,511 @@
+// Package stack implements `cylcav stack`: the resonances of an
+// axisymmetric cavity made of coaxial cylindrical sections, read from a
+// geometry file, by axial mode matching (package axisym).
+//
+// The geometry file is YAML. YAML was chosen over TOML because a cavity is
+// a list of sections, which YAML writes as a plain list with comments, and
+// because the decoder used, go.yaml.in/yaml/v3 (maintained by the YAML
+// organisation, the continuation of gopkg.in/yaml.v3), gives the line of
+// every key and value, so each error can name file, line and key.
+package stack
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"cylcav/axisym"
+	"cylcav/axisymplot"
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure"
+	"cylcav/physics"
+	"cylcav/qfactor"
+)
+
+// Options are the parsed and validated arguments of `cylcav stack`.
+type Options struct {
+	IO *cmdutil.IOStreams
+
+	// File is the geometry file's name as given, Geometry its content.
+	File     string
+	Geometry Geometry
+	// FMax is the upper end of the search in Hz.
+	FMax float64
+	// Modes is the number of modes in the widest section (0: the default).
+	Modes int
+	// Families are the families to solve.
+	Families []cavity.Family
+	Format   cmdutil.Format
+	// Walls, when not nil (--wall given), adds Q0 and its parts: the side
+	// surface of the wall set covers side walls, inner conductors and step
+	// faces, EndA and EndB the end plates.
+	Walls *qfactor.WallSet
+	// Beta, when > 0 (--beta given), adds the accelerator figures of TM0
+	// resonances for a particle at speed Beta c on the axis.
+	Beta float64
+	// FieldMap, when not empty (--field-map), is the file (PNG, SVG or PDF
+	// by its extension) for the field map of resonance number MapIndex (the
+	// # column), written atomically; Force replaces an existing file.
+	FieldMap  string
+	MapFormat figure.Format
+	MapIndex  int
+	Force     bool
+}
+
+// NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
+// command's work (tests use it to inspect the parsed options).
+func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
+	opts := &Options{IO: ios}
+	var fmax, family, beta string
+	var checkFormat func() error
+	var walls *cmdutil.WallFlags
+	cmd := &cobra.Command{
+		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
+		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
+		Long: fmt.Sprintf(`List the azimuthally symmetric (n = 0) resonances below --fmax of a cavity
+made of circular cylindrical sections stacked along z between two metal end
+plates, every change of radius a flat metal step. TE0 (E_phi) and TM0
+(E_r, E_z) resonances are solved separately by axial mode matching; the
+count of resonances below any frequency is exact for the model, so none is
+missed. Each resonance is labelled with the mode of the enclosing cylinder
+(largest radius, total length) it continues from, and carries a
+convergence estimate: how far it moved when the number of waveguide modes
+grew by half.
+
+The geometry file is YAML:
+
+  title: two cells and an iris    # optional
+  sections:                       # from the end plate at z = 0
+    - length: 20mm                # lengths: m, cm, mm, um, in, mil
+      radius: 15mm
+      fill: vacuum                # optional: material name or eps=E[,tand=T]
+    - length: 2mm
+      radius: 4mm
+      start: 20mm                 # optional check: z of the left face
+
+Keys per section: %s. inner_radius > 0 makes a
+coaxial section (a post or inner conductor); at each junction one
+cross-section must lie inside the other. Not solved yet (an error says
+so): other junctions, n >= 1, unloaded Q and field maps. A body with a
+coaxial section has no "continues from" label.
+
+--modes sets the waveguide modes kept in the widest section (default %d);
+narrower sections keep proportionally fewer. JSON and CSV give SI values.
+
+With --wall (a metal, as in 'cylcav q'; --end-wall and the other wall
+flags apply too) each resonance gains Q0 from the matched fields, with the
+wall loss on every surface (side walls, inner conductors and step faces
+take the --wall metal) and each section's loss tangents, plus the change
+of Q0 when the modes grew by half. Bodies without steps give exact Q0;
+next to a step edge the wall loss converges slowly, so there Q0 is an
+estimate (high by about its change or more).
+
+With --beta B (a particle speed over c) TM0 resonances of a body whose
+axis is free (no inner conductor) gain the transit-time factor T and R/Q
+in both conventions, labelled: V^2/(omega W) ("linac") and V^2/(2 omega W)
+("circuit"). Peak surface fields are not given: at a sharp step edge the
+model's field is infinite.
+
+--field-map FILE writes |E| and |H| of resonance --map (the # column,
+default 1) in the r-z half plane, the body outlined, as PNG, SVG or PDF by
+the file's extension; --force replaces an existing file.`,
+			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
+		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
+  $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
+  ...
+
+  # The field map of the re-entrant cavity's lowest resonance
+  $ cylcav stack examples/reentrant.yaml --fmax 4GHz --field-map reentrant.svg --force
+  ...
+
+  # Two cells joined by an iris: resonances up to 12 GHz
+  $ cylcav stack examples/iris-pair.yaml --fmax 12GHz
+  ...
+
+  # A dielectric disc on the end plate of a copper can, TE0 only, with Q0, as CSV
+  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --wall copper --format csv`,
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) != 1 {
+				return cmdutil.Usagef("give one geometry file (e.g. cylcav stack examples/iris-pair.yaml --fmax 12GHz), got %d arguments", len(args))
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			var err error
+			if !cmd.Flags().Changed("fmax") {
+				return cmdutil.Usagef("missing --fmax, the upper end of the search (e.g. --fmax 12GHz)")
+			}
+			if opts.FMax, err = cmdutil.Frequency("fmax", fmax, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
+				return err
+			}
+			switch strings.ToLower(family) {
+			case "both":
+				opts.Families = []cavity.Family{cavity.TE, cavity.TM}
+			case "te":
+				opts.Families = []cavity.Family{cavity.TE}
+			case "tm":
+				opts.Families = []cavity.Family{cavity.TM}
+			default:
+				return cmdutil.FlagError("family", family, fmt.Errorf("must be te, tm or both"))
+			}
+			if opts.Modes != 0 && (opts.Modes < 2 || opts.Modes > axisym.MaxModes) {
+				return cmdutil.FlagError("modes", strconv.Itoa(opts.Modes), fmt.Errorf("must be between 2 and %d", axisym.MaxModes))
+			}
+			if err := checkFormat(); err != nil {
+				return err
+			}
+			if cmd.Flags().Changed("beta") {
+				v, err := strconv.ParseFloat(beta, 64)
+				if err != nil || !(v > 0 && v <= 1) {
+					return cmdutil.FlagError("beta", beta, fmt.Errorf("must be a particle speed over c in (0, 1], e.g. 1 or 0.6"))
+				}
+				opts.Beta = v
+			}
+			if opts.FieldMap != "" {
+				if opts.MapFormat, err = figure.FormatOf(opts.FieldMap); err != nil {
+					return cmdutil.FlagError("field-map", opts.FieldMap, err)
+				}
+				if opts.MapIndex < 1 {
+					return cmdutil.FlagError("map", strconv.Itoa(opts.MapIndex), fmt.Errorf("must be a resonance number (the # column) >= 1"))
+				}
+				if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap}); err != nil {
+					return err
+				}
+			} else if cmd.Flags().Changed("map") {
+				return cmdutil.Usagef("--map needs --field-map FILE")
+			}
+			if walls.Given() {
+				ws, err := walls.Walls()
+				if err != nil {
+					return err
+				}
+				opts.Walls = &ws
+			}
+			data, err := os.ReadFile(opts.File)
+			if err != nil {
+				return cmdutil.Usagef("geometry file: %v", err)
+			}
+			if opts.Geometry, err = ParseGeometry(opts.File, data); err != nil {
+				return &cmdutil.UsageError{Err: err}
+			}
+			if runF != nil {
+				return runF(opts)
+			}
+			return runStack(opts)
+		},
+	}
+	fl := cmd.Flags()
+	fl.StringVar(&fmax, "fmax", "", "list every resonance below this frequency (e.g. 12GHz)")
+	fl.StringVar(&family, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both")
+	fl.StringVar(&beta, "beta", "", "particle speed over c for the accelerator figures of TM0 resonances (e.g. 1)")
+	fl.StringVar(&opts.FieldMap, "field-map", "", "write the field map of resonance --map to this file (.png, .svg or .pdf)")
+	fl.IntVar(&opts.MapIndex, "map", 1, "resonance number (the # column) of the field map")
+	fl.BoolVar(&opts.Force, "force", false, "replace the field-map file if it exists")
+	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
+	walls = cmdutil.AddWallFlags(cmd)
+	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
+	return cmd
+}
+
+// Row is one resonance as printed; JSON keys and CSV headers are the
+// snake_case names.
+type Row struct {
+	Index         int      `json:"index"`
+	Family        string   `json:"family"`
+	FamilyIndex   int      `json:"family_index"`
+	FHz           float64  `json:"f_hz"`
+	ChangeHz      *float64 `json:"change_hz"`      // null: no partner in the smaller model
+	ContinuesFrom string   `json:"continues_from"` // "" for a body with a coaxial section
+	LabelTied     bool     `json:"label_tied"`
+	// With --wall: Q0, the change of Q0 when the modes grew by half (its
+	// convergence estimate), and the wall and fill Q; null when the fields
+	// are not available (QNote says why).
+	Q0       *float64 `json:"q0,omitempty"`
+	Q0Change *float64 `json:"q0_change,omitempty"`
+	QWall    *float64 `json:"q_wall,omitempty"`
+	QFill    *float64 `json:"q_fill,omitempty"` // absent with Q0 given: no fill loss
+	QNote    string   `json:"q_note,omitempty"`
+	// With --beta, TM0 resonances of a body with a free axis: the
+	// transit-time factor and R/Q in both conventions, V^2/(omega W)
+	// ("linac") and V^2/(2 omega W) ("circuit"), in ohm.
+	T             *float64 `json:"transit_time_factor,omitempty"`
+	RoverQLinac   *float64 `json:"r_over_q_linac_ohm,omitempty"`
+	RoverQCircuit *float64 `json:"r_over_q_circuit_ohm,omitempty"`
+}
+
+func runStack(opts *Options) error {
+	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
+		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
+		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "",
+	})
+	if err != nil {
+		if errors.Is(err, axisym.ErrNotImplemented) {
+			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", opts.File, err)}
+		}
+		return err
+	}
+	rows := make([]Row, len(res))
+	for i, r := range res {
+		row := Row{
+			Index: i + 1, Family: r.Family.String() + "0", FamilyIndex: r.Index, FHz: r.Frequency,
+			LabelTied: r.OriginTied,
+		}
+		if r.HasOrigin {
+			row.ContinuesFrom = r.Origin.String()
+		}
+		if !math.IsInf(r.Change, 0) {
+			c := r.Change
+			row.ChangeHz = &c
+		}
+		if opts.Walls != nil {
+			if err := addQ(&row, r, *opts.Walls, opts.Geometry.Body); err != nil {
+				return err
+			}
+		}
+		if opts.Beta > 0 && r.Loss != nil && len(r.Loss.Axis) > 0 {
+			if a, err := r.Loss.Accelerating(opts.Beta); err == nil {
+				row.T, row.RoverQLinac, row.RoverQCircuit = &a.T, &a.RoverQLinac, &a.RoverQCircuit
+			}
+		}
+		rows[i] = row
+	}
+	if opts.FieldMap != "" {
+		if err := writeMap(opts, res); err != nil {
+			return err
+		}
+	}
+	switch opts.Format {
+	case cmdutil.JSON:
+		return cmdutil.WriteJSON(opts.IO.Out, struct {
+			File       string  `json:"file"`
+			Title      string  `json:"title"`
+			Order      int     `json:"n"`
+			Sections   int     `json:"sections"`
+			LengthM    float64 `json:"length_m"`
+			MaxRadiusM float64 `json:"max_radius_m"`
+			FMaxHz     float64 `json:"fmax_hz"`
+			Resonances []Row   `json:"resonances"`
+		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
+			opts.Geometry.Body.MaxRadius(), opts.FMax, rows})
+	case cmdutil.CSV:
+		var out [][]string
+		for _, r := range rows {
+			change := ""
+			if r.ChangeHz != nil {
+				change = strconv.FormatFloat(*r.ChangeHz, 'g', -1, 64)
+			}
+			cells := []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex),
+				strconv.FormatFloat(r.FHz, 'g', -1, 64), change, r.ContinuesFrom, strconv.FormatBool(r.LabelTied)}
+			if opts.Walls != nil {
+				cells = append(cells, csvQ(r.Q0), csvQ(r.Q0Change), csvQ(r.QWall), csvQ(r.QFill))
+			}
+			if opts.Beta > 0 {
+				cells = append(cells, csvQ(r.T), csvQ(r.RoverQLinac), csvQ(r.RoverQCircuit))
+			}
+			out = append(out, cells)
+		}
+		header := []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}
+		if opts.Walls != nil {
+			header = append(header, "q0", "q0_change", "q_wall", "q_fill")
+		}
+		if opts.Beta > 0 {
+			header = append(header, "transit_time_factor", "r_over_q_linac_ohm", "r_over_q_circuit_ohm")
+		}
+		return cmdutil.WriteCSV(opts.IO.Out, header, out)
+	}
+	return writeTable(opts.IO.Out, opts, rows)
+}
+
+func writeTable(w io.Writer, opts *Options, rows []Row) error {
+	b := opts.Geometry.Body
+	title := opts.Geometry.Title
+	if title == "" {
+		title = opts.File
+	}
+	length := cmdutil.TrimZeros(physics.FormatLength(b.Length(), 6))
+	radius := cmdutil.TrimZeros(physics.FormatLength(b.MaxRadius(), 6))
+	fmt.Fprintf(w, "body: %s, %d sections, length %s, largest radius %s\n", title, len(b.Sections), length, radius)
+	fmt.Fprintf(w, "n = 0 resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
+		cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
+	coax := false
+	for _, s := range b.Sections {
+		coax = coax || s.InnerRadius != 0
+	}
+	if coax {
+		fmt.Fprintln(w, "continues from: not given for a body with a coaxial section")
+	} else {
+		fmt.Fprintf(w, "continues from: mode of the enclosing cylinder (radius %s, length %s) at the same place in order\n",
+			radius, length)
+	}
+	if len(rows) == 0 {
+		fmt.Fprintln(w, "no resonance below that frequency")
+		return nil
+	}
+	header := []string{"#", "family", "k", "f", "change", "continues from"}
+	if opts.Walls != nil {
+		header = append(header, "Q0", "Q0 change", "Q wall", "Q fill")
+	}
+	if opts.Beta > 0 {
+		header = append(header, "T", "R/Q linac", "R/Q circuit")
+	}
+	t := cmdutil.NewTable(w, header...)
+	var notes []string
+	for _, r := range rows {
+		change := "unknown"
+		if r.ChangeHz != nil {
+			change = physics.FormatFrequency(*r.ChangeHz, 2)
+		}
+		label := r.ContinuesFrom
+		if label == "" {
+			label = "-"
+		}
+		if r.LabelTied {
+			label += " (tied)"
+		}
+		cells := []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex), physics.FormatFrequency(r.FHz, digits(r)), change, label}
+		if opts.Walls != nil {
+			fill := qText(r.QFill)
+			if r.Q0 != nil && r.QFill == nil {
+				fill = "inf" // no fill loss
+			}
+			cells = append(cells, qText(r.Q0), qText(r.Q0Change), qText(r.QWall), fill)
+			if r.QNote != "" {
+				notes = append(notes, fmt.Sprintf("#%d: %s", r.Index, r.QNote))
+			}
+		}
+		if opts.Beta > 0 {
+			cells = append(cells, numText(r.T, 4, ""), numText(r.RoverQLinac, 4, " ohm"), numText(r.RoverQCircuit, 4, " ohm"))
+		}
+		t.Row(cells...)
+	}
+	if err := t.Flush(); err != nil {
+		return err
+	}
+	if opts.Beta > 0 {
+		fmt.Fprintf(w, "T, R/Q: TM0 only, particle speed %g c on the axis; R/Q linac = V^2/(omega W), circuit = V^2/(2 omega W)\n", opts.Beta)
+		fmt.Fprintln(w, "caution: cells driven at high RF power carry high voltages and heat their walls; these are design")
+		fmt.Fprintln(w, "estimates: follow local codes and licensed practice")
+	}
+	if opts.Walls != nil {
+		fmt.Fprintln(w, "Q: side walls, inner conductors and step faces of the --wall metal; next to a step edge the wall loss")
+		fmt.Fprintln(w, "converges slowly with the modes (Q0 change), so with steps Q0 is an estimate, high by about that change or more")
+		for _, n := range notes {
+			fmt.Fprintln(w, "note "+n)
+		}
+	}
+	return nil
+}
+
+// addQ fills the Q columns of row from the resonance's losses.
+func addQ(row *Row, r axisym.Resonance, walls qfactor.WallSet, b axisym.Body) error {
+	if r.Loss == nil {
+		row.QNote = "fields not available: " + r.LossErr.Error()
+		return nil
+	}
+	rs, _, err := walls.Resistances(r.Frequency)
+	if err != nil {
+		return err
+	}
+	per := func(p axisym.Part) float64 {
+		switch p.Kind {
+		case axisym.EndA:
+			return rs.EndA
+		case axisym.EndB:
+			return rs.EndB
+		}
+		return rs.Side
+	}
+	fills := make([]physics.Medium, len(b.Sections))
+	for i, s := range b.Sections {
+		fills[i] = s.Fill
+	}
+	q0, iw, ifl := r.Loss.Q0(per, fills)
+	qw, qf := 1/iw, 1/ifl
+	row.Q0, row.QWall = &q0, &qw
+	if !math.IsInf(qf, 1) {
+		row.QFill = &qf
+	}
+	if r.CoarseLoss != nil {
+		c, _, _ := r.CoarseLoss.Q0(per, fills)
+		d := math.Abs(q0 - c)
+		row.Q0Change = &d
+	}
+	return nil
+}
+
+// digits returns the significant digits worth printing for a resonance:
+// one beyond those its convergence estimate supports, 4 to 10.
+func digits(r Row) int {
+	if r.ChangeHz == nil {
+		return 4
+	}
+	if *r.ChangeHz <= 0 {
+		return 10
+	}
+	return min(max(int(math.Ceil(math.Log10(r.FHz / *r.ChangeHz)))+1, 4), 10)
+}
+
+// qText prints an optional Q for the table: "-" when missing, "inf" for no
+// loss.
+func qText(q *float64) string {
+	switch {
+	case q == nil:
+		return "-"
+	case math.IsInf(*q, 1):
+		return "inf"
+	}
+	return strconv.FormatFloat(*q, 'f', 0, 64)
+}
+
+// csvQ prints an optional Q for CSV: empty when missing or infinite.
+func csvQ(q *float64) string {
+	if q == nil || math.IsInf(*q, 0) {
+		return ""
+	}
+	return strconv.FormatFloat(*q, 'g', -1, 64)
+}
+
+// numText prints an optional number with digits significant digits and a
+// unit, or "-".
+func numText(v *float64, digits int, unit string) string {
+	if v == nil {
+		return "-"
+	}
+	return strconv.FormatFloat(*v, 'g', digits, 64) + unit
+}
+
+// writeMap draws the field map of resonance opts.MapIndex and writes it.
+func writeMap(opts *Options, res []axisym.Resonance) error {
+	if opts.MapIndex > len(res) {
+		return cmdutil.FlagError("map", strconv.Itoa(opts.MapIndex), fmt.Errorf("there are %d resonances below --fmax", len(res)))
+	}
+	r := res[opts.MapIndex-1]
+	if r.Loss == nil {
+		return fmt.Errorf("field map of resonance %d: %w", opts.MapIndex, r.LossErr)
+	}
+	title := fmt.Sprintf("%s0 resonance %d at %s", r.Family, r.Index, physics.FormatFrequency(r.Frequency, 7))
+	if opts.Geometry.Title != "" {
+		title = opts.Geometry.Title + ": " + title
+	}
+	fm, err := axisymplot.NewFieldMap(opts.Geometry.Body, r.Loss, axisymplot.FieldMapOptions{Title: title})
+	if err != nil {
+		return err
+	}
+	fig, err := fm.Figure(figure.DefaultTheme())
+	if err != nil {
+		return err
+	}
+	data, err := figure.Encode(fig, opts.MapFormat, figure.Page{})
+	if err != nil {
+		return err
+	}
+	return cmdutil.WriteFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap, Data: data})
+}

@@ -1,0 +1,207 @@
+package stack_test
+
+import (
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"cylcav/cavity"
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/stack"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/figure/rendertest"
+	"cylcav/qfactor"
+)
+
+// inRepo runs the test from the repository root so the examples/ paths
+// of the help text resolve.
+func inRepo(t *testing.T) {
+	t.Helper()
+	t.Chdir(filepath.Join("..", "..", "..", "..", ".."))
+}
+
+func TestExamples(t *testing.T) {
+	inRepo(t)
+	// The field-map example writes reentrant.svg in the working directory.
+	t.Cleanup(func() { os.Remove("reentrant.svg") })
+	cmd := stack.NewCmdStack(&cmdutil.IOStreams{}, nil)
+	clitest.CheckExamples(t, cmd.Example)
+	for _, f := range []string{"iris-pair", "disc-in-can", "nosed-cell"} {
+		if r := clitest.Run(t, "stack", "examples/"+f+".yaml", "--fmax", "12GHz"); r.Code != 0 {
+			t.Errorf("examples/%s.yaml: exit %d, %s", f, r.Code, r.Stderr)
+		}
+	}
+}
+
+// TestOneSectionJSON checks the command end to end on a closed cylinder:
+// the frequencies must be package cavity's closed forms (Pozar, Microwave
+// Engineering, 4th ed., sec. 6.4) and the labels the modes themselves.
+func TestOneSectionJSON(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	r := clitest.Run(t, "stack", file, "--fmax", "14GHz", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	c := cavity.Cavity{Radius: 0.02, Length: 0.03}
+	if len(out.Resonances) == 0 {
+		t.Fatal("no resonances")
+	}
+	for _, row := range out.Resonances {
+		m, err := cavity.ParseMode(row.ContinuesFrom)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := c.Frequency(m)
+		if d := (row.FHz - want) / want; d > 1e-10 || d < -1e-10 {
+			t.Errorf("%s: f = %.12g Hz, want %.12g Hz (closed form)", row.ContinuesFrom, row.FHz, want)
+		}
+	}
+}
+
+func TestBadInput(t *testing.T) {
+	dir := t.TempDir()
+	write := func(name, text string) string {
+		p := filepath.Join(dir, name)
+		if err := os.WriteFile(p, []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return p
+	}
+	good := write("good.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n")
+	cases := []struct {
+		name, text string
+		want       []string
+	}{
+		{"unknown.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    colour: red\n", []string{"unknown.yaml:4", "sections[1].colour", "unknown key"}},
+		{"top.yaml", "sectons:\n  - length: 30mm\n", []string{"top.yaml:1", "sectons", "unknown key"}},
+		{"zero.yaml", "sections:\n  - length: 0mm\n    radius: 20mm\n", []string{"zero.yaml:2", "sections[1].length", "> 0"}},
+		{"neg.yaml", "sections:\n  - length: 3mm\n    radius: -20mm\n", []string{"neg.yaml:3", "sections[1].radius"}},
+		{"inner.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n    inner_radius: 2mm\n", []string{"inner.yaml:2", "inner_radius", "below the radius"}},
+		{"overlap.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n  - length: 3mm\n    radius: 4mm\n    start: 2mm\n", []string{"overlap.yaml:6", "sections[2].start", "overlaps"}},
+		{"gap.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n  - length: 3mm\n    radius: 4mm\n    start: 4mm\n", []string{"gap.yaml:6", "gap"}},
+		{"material.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n    fill: unobtainium\n", []string{"material.yaml:4", "sections[1].fill", "unknown dielectric"}},
+		{"unit.yaml", "sections:\n  - length: 3 furlong\n    radius: 2mm\n", []string{"unit.yaml:2", "sections[1].length"}},
+		{"dup.yaml", "sections:\n  - length: 3mm\n    length: 4mm\n    radius: 2mm\n", []string{"dup.yaml:3", "given twice"}},
+		{"missing.yaml", "sections:\n  - length: 3mm\n", []string{"missing.yaml:2", "sections[1].radius", "missing"}},
+		{"yaml.yaml", "sections: [\n", []string{"yaml.yaml:", "not valid YAML"}},
+		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n  - length: 30mm\n    radius: 25mm\n    inner_radius: 8mm\n", []string{"coax.yaml", "sections 1 and 2", "not implemented"}},
+	}
+	var bad []clitest.BadCase
+	for _, c := range cases {
+		bad = append(bad, clitest.BadCase{Args: []string{write(c.name, c.text), "--fmax", "10GHz"}, Code: 2, Want: c.want})
+	}
+	bad = append(bad,
+		clitest.BadCase{Args: []string{good}, Code: 2, Want: []string{"--fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "-1GHz"}, Code: 2, Want: []string{"--fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--family", "hybrid"}, Code: 2, Want: []string{"--family", "te, tm or both"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--modes", "1"}, Code: 2, Want: []string{"--modes"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--beta", "0"}, Code: 2, Want: []string{"--beta", "(0, 1]"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.bmp")}, Code: 2, Want: []string{"--field-map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "0"}, Code: 2, Want: []string{"--map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "99"}, Code: 2, Want: []string{"--map", "resonances below --fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--map", "2"}, Code: 2, Want: []string{"--map needs --field-map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--wall", "unobtainium"}, Code: 2, Want: []string{"--wall"}},
+		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
+		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
+	)
+	clitest.CheckBadInput(t, "stack", bad)
+	if r := clitest.Run(t, "stack", good, "--fmax", "10GHz", "--format", "csv"); r.Code != 0 || !strings.HasPrefix(r.Stdout, "index,family,family_index,f_hz") {
+		t.Errorf("csv: exit %d, %q", r.Code, r.Stdout)
+	}
+}
+
+// TestOneSectionQ0 checks --wall on a closed cylinder against package
+// qfactor's closed-form wall Q (Harrington 1961 ch. 5; Pozar 2012 sec.
+// 6.4) with the same surface resistance.
+func TestOneSectionQ0(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	r := clitest.Run(t, "stack", file, "--fmax", "12GHz", "--wall", "sigma=5.8e7", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	c := cavity.Cavity{Radius: 0.02, Length: 0.03}
+	for _, row := range out.Resonances {
+		m, err := cavity.ParseMode(row.ContinuesFrom)
+		if err != nil {
+			t.Fatal(err)
+		}
+		f := c.Frequency(m)
+		rs := qfactor.SurfaceResistance(f, 5.8e7, 1)
+		want, err := qfactor.WallQ(c, m, qfactor.Uniform(rs))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if row.Q0 == nil || math.Abs(*row.Q0-want.QWall)/want.QWall > 1e-9 {
+			t.Errorf("%s: q0 = %v, want %.10g (closed form)", row.ContinuesFrom, row.Q0, want.QWall)
+		}
+	}
+}
+
+// TestBetaColumns checks that --beta adds the labelled R/Q columns for
+// TM0 rows only (the values are tested in package axisym against the
+// pillbox closed forms).
+func TestBetaColumns(t *testing.T) {
+	inRepo(t)
+	r := clitest.Run(t, "stack", "examples/nosed-cell.yaml", "--fmax", "7GHz", "--beta", "1", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	for _, row := range out.Resonances {
+		has := row.RoverQLinac != nil && row.RoverQCircuit != nil && row.T != nil
+		if has != (row.Family == "TM0") {
+			t.Errorf("%s #%d: R/Q given %v, want it for TM0 only", row.Family, row.Index, has)
+		}
+		if has && math.Abs(*row.RoverQCircuit-*row.RoverQLinac/2) > 1e-12**row.RoverQLinac {
+			t.Errorf("circuit R/Q %g, want half the linac value %g", *row.RoverQCircuit, *row.RoverQLinac)
+		}
+	}
+}
+
+// TestFieldMapFile checks that --field-map writes a valid image (the map's
+// numbers are tested in package axisymplot) and refuses to replace a file
+// without --force.
+func TestFieldMapFile(t *testing.T) {
+	inRepo(t)
+	out := filepath.Join(t.TempDir(), "map.svg")
+	r := clitest.Run(t, "stack", "examples/reentrant.yaml", "--fmax", "4GHz", "--field-map", out)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	b, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rendertest.SVG(t, b)
+	if r := clitest.Run(t, "stack", "examples/reentrant.yaml", "--fmax", "4GHz", "--field-map", out); r.Code != 2 {
+		t.Errorf("second write without --force: exit %d, want 2", r.Code)
+	}
+}
