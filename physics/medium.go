@@ -140,7 +140,8 @@ func (m Medium) Label() string {
 	return m.Name
 }
 
-// Index returns the refractive index sqrt(mu_r eps_r) of the medium.
+// Index returns the refractive index sqrt(mu_r eps_r) of the medium (with
+// eps_perp for a uniaxial one: the index a TE mode sees).
 func (m Medium) Index() float64 { return math.Sqrt(m.Eps() * m.Mu()) }
 
 // EpsTempCoeff returns the temperature coefficient of permittivity
