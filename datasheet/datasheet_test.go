@@ -165,3 +165,43 @@ func TestNoEmptySection(t *testing.T) {
 		}
 	}
 }
+
+// TestCellOperatingModeRow: in the cell datasheet's mode table the
+// operating mode TM010 sits on the second harmonic of the 650 MHz bunch
+// frequency by design (1.3 GHz); it is labelled as the operating mode,
+// never flagged NEAR like a mode the beam could drive.
+func TestCellOperatingModeRow(t *testing.T) {
+	s, err := design.DemoCell()
+	if err != nil {
+		t.Fatal(err)
+	}
+	s.Settings.Tolerance.Samples = 500
+	r, err := s.Run(nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
+	if err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, sec := range sh.Sections {
+		for _, b := range sec.Blocks {
+			if b.Table == nil {
+				continue
+			}
+			for _, row := range b.Table.Rows {
+				if len(row) < 8 || row[0] != "TM010" {
+					continue
+				}
+				found = true
+				if last := row[len(row)-1]; !strings.HasPrefix(last, "operating mode: 2 ×") {
+					t.Errorf("TM010 harmonic cell %q, want 'operating mode: 2 × ...'", last)
+				}
+			}
+		}
+	}
+	if !found {
+		t.Error("no TM010 row in the cell datasheet's mode table")
+	}
+}

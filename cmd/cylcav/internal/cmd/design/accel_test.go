@@ -98,3 +98,39 @@ func TestBulbFillingFactors(t *testing.T) {
 		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "-5mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"--bulb-diameter"}},
 	})
 }
+
+// TestCellReadsRight: the accelerator cell's table and cautions as a
+// technician reads them. The operating mode sits on a bunch harmonic by
+// design (1.3 GHz = 2 x 650 MHz) and is labelled so, never flagged NEAR
+// as a mode the beam could drive; the high-power caution is printed once
+// (the coupler's fuller one replaces the general one), and the
+// cryogenic, radiation and high-power cautions all defer to local codes.
+func TestCellReadsRight(t *testing.T) {
+	r := clitest.Run(t, "design", "--demo", "cell")
+	if r.Code != 0 {
+		t.Fatalf("design --demo cell: exit %d: %s", r.Code, r.Stderr)
+	}
+	var op string
+	for _, line := range strings.Split(r.Stdout, "\n") {
+		if strings.HasPrefix(strings.TrimSpace(line), "TM010 ") {
+			op = line
+		}
+	}
+	if !strings.Contains(op, "operating mode") || strings.Contains(op, "NEAR") {
+		t.Errorf("operating-mode row %q: want it labelled 'operating mode', not NEAR", op)
+	}
+	if n := strings.Count(strings.ToLower(r.Stdout), "high rf power"); n != 1 {
+		t.Errorf("the high-power caution appears %d times, want once:\n%s", n, r.Stdout)
+	}
+	for _, w := range []string{"Cryogenic operation", "Radiation", "High RF power"} {
+		found := false
+		for _, line := range strings.Split(r.Stdout, "\n") {
+			if strings.Contains(line, w) && strings.Contains(line, "local") && strings.Contains(line, "licensed practice") {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("no caution %q deferring to local codes and licensed practice", w)
+		}
+	}
+}

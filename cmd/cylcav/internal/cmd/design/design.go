@@ -416,10 +416,15 @@ func WriteTable(w io.Writer, r design.Result) error {
 }
 
 // printedCautions are the cautions design prints: the result's own, then
-// the general caution for high RF power (cmdutil.CautionRF) as a sentence.
-// The datasheet of `cylcav report` prints the result's own and, in place of
-// the one-line RF caution, its fuller safety notes.
+// the general caution for high RF power (cmdutil.CautionRF) as a sentence,
+// unless the result already has the fuller one of a beam coupling
+// (design.CautionHighPower), which covers it. The datasheet of `cylcav
+// report` prints the result's own and, in place of the one-line RF
+// caution, its fuller safety notes.
 func printedCautions(r design.Result) []string {
+	if slices.Contains(r.Cautions, design.CautionHighPower) {
+		return slices.Clone(r.Cautions)
+	}
 	rf := strings.ToUpper(cmdutil.CautionRF[:1]) + cmdutil.CautionRF[1:] + "."
 	return append(slices.Clone(r.Cautions), rf)
 }
