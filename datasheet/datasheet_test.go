@@ -184,6 +184,13 @@ func TestCellOperatingModeRow(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// The key figure Q0 (about 1.2e10) to four significant digits: a
+	// superconducting Q0 is known to a few per cent at best.
+	for _, kv := range sh.Facts {
+		if kv.Key == "Unloaded Q0" && !strings.Contains(kv.Value, "e+10") {
+			t.Errorf("Unloaded Q0 key figure %q, want four digits in scientific notation", kv.Value)
+		}
+	}
 	found := false
 	for _, sec := range sh.Sections {
 		for _, b := range sec.Blocks {

@@ -121,7 +121,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		{"Clearance", pct(d.Clearance.Value) + " (" + d.Clearance.Limiting.String() + ")"},
 	}
 	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
-		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", fmt.Sprintf("%.0f", d.Q0)})
+		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", qText(d.Q0)})
 	}
 	sh.Facts = append(sh.Facts, accelFacts(r)...)
 
@@ -200,7 +200,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 			if err != nil {
 				return nil, err
 			}
-			q = fmt.Sprintf("%.0f", v)
+			q = qText(v)
 			qpts = append(qpts, modechart.ModeQ{Mode: e.m, Frequency: e.f, Q0: v, Wanted: e.wanted})
 		}
 		off := e.f - f0
@@ -633,9 +633,19 @@ func pct(f float64) string {
 	return fmt.Sprintf("%.3f %%", 100*f)
 }
 
+// sciQ is the Q above which qText switches to four significant digits in
+// scientific notation: a superconducting Q0 of 1.226e+10 is known to a few
+// per cent at best (residual resistance), and eleven digits would claim
+// more; every normal-metal Q stays below it and is printed whole.
+const sciQ = 1e7
+
+// qText formats a Q: whole below sciQ, four significant digits above it.
 func qText(q float64) string {
-	if math.IsInf(q, 1) {
+	switch {
+	case math.IsInf(q, 1):
 		return "∞ (lossless)"
+	case q >= sciQ:
+		return qSci(q)
 	}
 	return fmt.Sprintf("%.0f", q)
 }

@@ -4,6 +4,7 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"math"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -118,6 +119,11 @@ func TestCellReadsRight(t *testing.T) {
 	}
 	if !strings.Contains(op, "operating mode") || strings.Contains(op, "NEAR") {
 		t.Errorf("operating-mode row %q: want it labelled 'operating mode', not NEAR", op)
+	}
+	// A superconducting Q0 (about 1e10) is known to a few per cent
+	// (residual resistance): four significant digits, not eleven.
+	if !regexp.MustCompile(`Q0 = \d\.\d{3}e\+10\n`).MatchString(r.Stdout) {
+		t.Errorf("Q0 not printed to four digits:\n%s", r.Stdout)
 	}
 	if n := strings.Count(strings.ToLower(r.Stdout), "high rf power"); n != 1 {
 		t.Errorf("the high-power caution appears %d times, want once:\n%s", n, r.Stdout)

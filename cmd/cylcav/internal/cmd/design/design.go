@@ -375,7 +375,7 @@ func WriteTable(w io.Writer, r design.Result) error {
 	fmt.Fprintln(w)
 	fmt.Fprint(w, cmdutil.FormatNeighbours(d.Clearance))
 	if u := r.Unloaded; u != nil {
-		fmt.Fprintf(w, "\nUnloaded Q (%s walls at %s, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, physics.FormatTemperature(operate, 4), u.Q0)
+		fmt.Fprintf(w, "\nUnloaded Q (%s walls at %s, smooth): Q0 = %s\n", r.Scenario.Wall.Name, physics.FormatTemperature(operate, 4), qOut(u.Q0))
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
@@ -480,4 +480,14 @@ func modeNames(ms []cavity.Mode) []string {
 		out = append(out, m.String())
 	}
 	return out
+}
+
+// qOut prints a Q whole, or with four significant digits from 1e7 up (a
+// superconducting Q0 is known to a few per cent at best; every normal-metal
+// Q stays below 1e7 and keeps its digits).
+func qOut(q float64) string {
+	if q >= 1e7 {
+		return fmt.Sprintf("%.4g", q)
+	}
+	return fmt.Sprintf("%.0f", q)
 }
