@@ -128,7 +128,9 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 	// Dimensions and tolerances.
 	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
 	edge := "interior optimum"
-	if d.AtRangeEdge {
+	if r.RatioFixed() {
+		edge = "fixed: the allowed range has zero width"
+	} else if d.AtRangeEdge {
 		edge = fmt.Sprintf("on the edge of the allowed range (%s)", d.Limit)
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by the %s constraint", d.Limit)

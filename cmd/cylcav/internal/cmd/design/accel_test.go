@@ -120,6 +120,11 @@ func TestCellReadsRight(t *testing.T) {
 	if !strings.Contains(op, "operating mode") || strings.Contains(op, "NEAR") {
 		t.Errorf("operating-mode row %q: want it labelled 'operating mode', not NEAR", op)
 	}
+	// The cell's D/L is fixed (a zero-width range): no advice to relax a
+	// limit the physics sets.
+	if !strings.Contains(r.Stdout, "fixed: the allowed range has zero width") || strings.Contains(r.Stdout, "relaxing") {
+		t.Errorf("fixed D/L not stated as fixed:\n%s", r.Stdout)
+	}
 	// A superconducting Q0 (about 1e10) is known to a few per cent
 	// (residual resistance): four significant digits, not eleven.
 	if !regexp.MustCompile(`Q0 = \d\.\d{3}e\+10\n`).MatchString(r.Stdout) {

@@ -353,7 +353,9 @@ func WriteTable(w io.Writer, r design.Result) error {
 	fmt.Fprintf(w, "Design: %s at %s with the cavity at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
 		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4), spec.Fill.Label())
 	edge := "interior optimum"
-	if d.AtRangeEdge {
+	if r.RatioFixed() {
+		edge = "fixed: the allowed range has zero width"
+	} else if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by %s", d.Limit)
