@@ -184,6 +184,19 @@ func TestCellOperatingModeRow(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// The Q note of a superconducting cell speaks of the residual
+	// resistance, not of the normal-metal roughness allowance.
+	qNote := ""
+	for _, sec := range sh.Sections {
+		if sec.Heading == "Unloaded Q" {
+			for _, b := range sec.Blocks {
+				qNote += b.Note
+			}
+		}
+	}
+	if strings.Contains(qNote, "10–30 %") || !strings.Contains(qNote, "residual resistance") {
+		t.Errorf("superconducting Q note %q", qNote)
+	}
 	// The key figure Q0 (about 1.2e10) to four significant digits: a
 	// superconducting Q0 is known to a few per cent at best.
 	for _, kv := range sh.Facts {

@@ -225,6 +225,11 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		q.add(true, "Unloaded Q0", "", qText(u.Q0), "100 %")
 		sh.Q = q
 		sh.QNote = "1/Q0 = 1/Q_wall + 1/Q_fill. Real surfaces (roughness, joints, plating) give less: allow 10–30 % below the smooth-wall figure (common practice)."
+		if r.Scenario.Superconductor != nil {
+			// The normal-metal allowance does not apply: a superconducting
+			// Q0 is set by the residual resistance assumed.
+			sh.QNote = "1/Q0 = 1/Q_wall + 1/Q_fill. Superconducting walls: Q0 rests on the residual resistance assumed (see Operating figures); surface preparation, trapped magnetic flux and hydrogen in the niobium raise it and can lower Q0 several-fold."
+		}
 	}
 
 	// Clearance.
