@@ -541,7 +541,7 @@ func parseBare(kind, key, s string) (float64, error) {
 }
 
 // ParseDielectric returns a dielectric from a library name ("ptfe",
-// "sapphire-perp", ...; see LookupDielectric) or from user values, as
+// "sapphire", ...; see LookupDielectric) or from user values, as
 // comma-separated key=value pairs with an optional library name first whose
 // values they override:
 //
