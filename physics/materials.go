@@ -545,7 +545,10 @@ func parseBare(kind, key, s string) (float64, error) {
 // comma-separated key=value pairs with an optional library name first whose
 // values they override:
 //
-//	eps=2.08        relative permittivity, 1..1e4 (required without a name)
+//	eps=2.08        relative permittivity, 1..1e4 (required without a name);
+//	                eps_perp of a uniaxial crystal
+//	epspar=11.59    eps_par of a uniaxial crystal, c axis along the cavity
+//	                axis (Medium.EpsRParallel), 1..1e4 (default: isotropic)
 //	tand=4e-4       dielectric loss tangent, 0..1 (default 0)
 //	f=10GHz         frequency at which tand holds (Hz or with a unit), > 0
 //	mu=1            relative permeability (also mur), 0.001..1e5 (default 1)
