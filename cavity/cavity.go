@@ -90,7 +90,8 @@ func root(f Family, n, m int) float64 {
 	return bessel.JZeros(n, m)[m-1]
 }
 
-// scale returns c / (2 pi sqrt(mu_r eps_r)), the factor that turns a total
+// scale returns c / (2 pi sqrt(mu_r eps_r)) (eps_perp for a uniaxial
+// fill), the factor that turns a total
 // wavenumber in rad/m into a frequency in Hz.
 func (c Cavity) scale() float64 {
 	return physics.SpeedOfLight / (2 * math.Pi * c.Fill.Index())
@@ -122,8 +123,17 @@ func frequency(scale, x, radius float64, p int, length float64) float64 {
 // same mode. Relative accuracy is about 1e-15 beyond that of the Bessel
 // zero. It panics if m is not a valid mode (see Mode.Validate); the cavity
 // itself is not checked.
+//
+// A uniaxial fill (physics.Medium.Uniaxial, c axis along z) is exact too:
+// TE modes have no E_z, so their field lies across the c axis and sees
+// eps_perp (EpsR) alone; TM modes obey
+//
+//	(omega/c0)^2 = kc^2/eps_par + beta^2/eps_perp,
+//
+// which is the formula above with eps_perp and the radius of radiusFor (see
+// uniaxial.go for the source).
 func (c Cavity) Frequency(m Mode) float64 {
-	return frequency(c.scale(), m.Root(), c.Radius, m.P, c.Length)
+	return frequency(c.scale(), m.Root(), c.radiusFor(m.Family), m.P, c.Length)
 }
 
 // FrequencyOfRoot returns the resonant frequency in Hz of the mode whose

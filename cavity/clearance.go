@@ -83,6 +83,9 @@ func (c Cavity) Clearance(w Mode, opt ClearanceOptions) (Clearance, error) {
 	if err := c.Validate(); err != nil {
 		return Clearance{}, err
 	}
+	if err := c.Fill.RequireIsotropic("cavity: the clearance model"); err != nil {
+		return Clearance{}, err
+	}
 	if err := w.Validate(); err != nil {
 		return Clearance{}, err
 	}
@@ -456,6 +459,9 @@ func (r Reach) Verdict() string {
 func (c Cavity) Reach(op Operation) (Reach, error) {
 	w := op.Mode
 	if err := c.Validate(); err != nil {
+		return Reach{}, err
+	}
+	if err := c.Fill.RequireIsotropic("cavity: the reachable-set model (tuning, temperature, tolerance)"); err != nil {
 		return Reach{}, err
 	}
 	if err := w.Validate(); err != nil {

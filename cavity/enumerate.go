@@ -117,7 +117,7 @@ func (c Cavity) Lowest(k int) ([]Resonance, error) {
 	// A limit that fails (index or listing limit) or overshoots k by far is
 	// bisected against the last limit that gave too few.
 	s := c.scale()
-	lo := math.Min(frequency(s, bessel.JZeros(0, 1)[0], c.Radius, 0, c.Length),
+	lo := math.Min(frequency(s, bessel.JZeros(0, 1)[0], c.radiusFor(TM), 0, c.Length),
 		frequency(s, bessel.JPrimeZeros(1, 1)[0], c.Radius, 1, c.Length))
 	hi := math.Inf(1)
 	f := lo
@@ -154,6 +154,7 @@ func (c Cavity) Lowest(k int) ([]Resonance, error) {
 // range of axial indices whose modes lie at or below the limit.
 type rootRange struct {
 	x          float64
+	radius     float64 // the family's radius (Cavity.radiusFor)
 	family     Family
 	n, m       int
 	pmin, pmax int
@@ -187,7 +188,7 @@ func (e *enumeration) list(c Cavity) []Resonance {
 	var hist [8][256]uint32 // byte histograms; only the upper four are used
 	for i, r := range e.roots {
 		for p := r.pmin; p <= r.pmax; p++ {
-			k := math.Float64bits(frequency(e.scale, r.x, c.Radius, p, c.Length))
+			k := math.Float64bits(frequency(e.scale, r.x, r.radius, p, c.Length))
 			a = append(a, item{k, uint64(i)<<10 | uint64(p)})
 			for d := 4; d < 8; d++ {
 				hist[d][byte(k>>(8*d))]++
@@ -239,17 +240,19 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 		return nil, fmt.Errorf("cavity: frequency limit must be finite and > 0 Hz, got %g Hz", fmax)
 	}
 	e := &enumeration{scale: c.scale()}
-	a, d := c.Radius, c.Length
+	// TE modes use the radius a, TM modes the radius of Cavity.radiusFor
+	// (a again, unless the fill is uniaxial).
+	a, aTM, d := c.Radius, c.radiusFor(TM), c.Length
 	// Largest total wavenumber in the fill, and the largest transverse
 	// root for p = 0 (TM) and for p = 1 (TE); Pozar, Microwave Engineering,
 	// 4th ed., sec. 6.4: k^2 = (x/a)^2 + (p pi/d)^2.
 	k := fmax / e.scale
-	xTM := k * a
+	xTM := k * aTM
 	xTE := math.Sqrt(math.Max(0, k*k-(math.Pi/d)*(math.Pi/d))) * a
 	// below returns how many of the ascending roots z have their lowest
-	// mode (axial index p) at or below fmax.
-	below := func(z []float64, p int) int {
-		return sort.Search(len(z), func(i int) bool { return frequency(e.scale, z[i], a, p, d) > fmax })
+	// mode (axial index p) at or below fmax, for radius r.
+	below := func(z []float64, r float64, p int) int {
+		return sort.Search(len(z), func(i int) bool { return frequency(e.scale, z[i], r, p, d) > fmax })
 	}
 
 	// Zeros of each order below the limit: tm[n] from J_n (p >= 0),
@@ -272,7 +275,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 		for {
 			count = min(count, MaxIndex+1)
 			j, jp = bessel.Zeros(n, count)
-			iTM, iTE = below(j, 0), below(jp, 1)
+			iTM, iTE = below(j, aTM, 0), below(jp, a, 1)
 			if iTM < count && (iTE < count || n == 0) {
 				break
 			}
@@ -290,23 +293,34 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 	// j'_{0,m} = j_{1,m} (DLMF 10.6.3): TE0m takes its roots from the
 	// table of J_1, as Mode.Root does, so that TE0mp and TM1mp get the same
 	// root to the last bit.
+	// The table of J_1 holds every root TE0 needs when aTM >= a (always
+	// for an isotropic fill); a uniaxial fill with eps_par < eps_perp has
+	// aTM < a and gets its own table.
 	te[0] = nil
-	if len(tm) > 1 {
-		te[0] = tm[1][:below(tm[1], 1)]
+	switch {
+	case aTM >= a && len(tm) > 1:
+		te[0] = tm[1][:below(tm[1], a, 1)]
+	case aTM < a:
+		z := bessel.JZeros(1, zeroCount(1, xTE)+2)
+		for below(z, a, 1) == len(z) && len(z) <= MaxIndex {
+			z = bessel.JZeros(1, 2*len(z))
+		}
+		te[0] = z[:below(z, a, 1)]
 	}
 
 	add := func(f Family, n int, xs []float64, pmin int) error {
+		r := c.radiusFor(f)
 		for i, x := range xs {
-			kc := x / a
+			kc := x / r
 			// Highest axial index from k^2 >= kc^2 + (p pi/d)^2, then
 			// corrected against the computed frequency so that the list
 			// matches f <= fmax with f as Frequency computes it.
 			pf := math.Sqrt(math.Max(0, k*k-kc*kc)) * d / math.Pi
 			pmax := int(math.Min(pf, MaxIndex+2))
-			for pmax >= pmin && frequency(e.scale, x, a, pmax, d) > fmax {
+			for pmax >= pmin && frequency(e.scale, x, r, pmax, d) > fmax {
 				pmax--
 			}
-			for pmax <= MaxIndex && frequency(e.scale, x, a, pmax+1, d) <= fmax {
+			for pmax <= MaxIndex && frequency(e.scale, x, r, pmax+1, d) <= fmax {
 				pmax++
 			}
 			if pmax > MaxIndex {
@@ -321,7 +335,7 @@ func (c Cavity) enumerate(fmax float64, limit int) (*enumeration, error) {
 			if e.total > limit {
 				return fmt.Errorf("cavity: more than %d modes up to %s (the listing limit)", limit, shortFrequency(fmax))
 			}
-			e.roots = append(e.roots, rootRange{x: x, family: f, n: n, m: i + 1, pmin: pmin, pmax: pmax})
+			e.roots = append(e.roots, rootRange{x: x, radius: r, family: f, n: n, m: i + 1, pmin: pmin, pmax: pmax})
 		}
 		return nil
 	}

@@ -67,6 +67,9 @@ func (c Cavity) ModeField(m Mode) (ModeField, error) {
 	if err := m.Validate(); err != nil {
 		return ModeField{}, err
 	}
+	if err := c.ModelHolds(m, "the field model"); err != nil {
+		return ModeField{}, err
+	}
 	epsR, muR := c.Fill.Eps(), c.Fill.Mu()
 	kc, beta, _ := c.Wavenumbers(m)
 	mf := ModeField{

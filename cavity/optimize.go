@@ -325,6 +325,9 @@ type problem struct {
 // more than MaxChartModes modes near it is refused; a problem with no
 // solution gives *InfeasibleError saying what was achievable.
 func Optimize(spec DesignSpec) (Design, error) {
+	if err := spec.Fill.RequireIsotropic("cavity: the D/L optimiser"); err != nil {
+		return Design{}, err
+	}
 	p, err := newProblem(spec)
 	if err != nil {
 		return Design{}, err

@@ -144,23 +144,27 @@ func Size(m Mode, f float64, fill physics.Medium, by Constraint) (Cavity, error)
 	k := 2 * math.Pi * f * fill.Index() / physics.SpeedOfLight
 	label, freq := m.String(), shortFrequency(f)
 	c := Cavity{Fill: fill}
+	// sr is radiusFor's factor: the formulas above hold for the radius
+	// a sr (sr = sqrt(eps_par/eps_perp) for TM modes in a uniaxial fill,
+	// 1 otherwise; k is then taken with eps_perp).
+	sr := radiusScale(fill, m.Family)
 	switch by.kind {
 	case byRatio:
 		// Derived: with d = 2a/R, (p pi/d)^2 = (p pi R/(2a))^2, so
-		// k^2 a^2 = x^2 + (p pi R/2)^2.
-		c.Radius = math.Hypot(x, p*math.Pi*v/2) / k
+		// k^2 (a sr)^2 = x^2 + (p pi R sr/2)^2.
+		c.Radius = math.Hypot(x, p*math.Pi*v*sr/2) / k / sr
 		c.Length = 2 * c.Radius / v
 	case byDiameter:
 		a := v / 2
-		kc := x / a
+		kc := x / (a * sr)
 		if m.P == 0 {
-			f0 := frequency(physics.SpeedOfLight/(2*math.Pi*fill.Index()), x, a, 0, 1)
+			f0 := frequency(physics.SpeedOfLight/(2*math.Pi*fill.Index()), x, a*sr, 0, 1)
 			return Cavity{}, infeasible("%s has p = 0, so the diameter alone sets its frequency (the length does not enter): diameter %s gives %s, not %s; for %s use diameter %s with any length, or fix the length or the ratio D/L instead",
-				label, shortLength(v), shortFrequency(f0), freq, freq, shortLength(2*x/k))
+				label, shortLength(v), shortFrequency(f0), freq, freq, shortLength(2*x/k/sr))
 		}
 		if kc >= k {
 			return Cavity{}, infeasible("diameter %s is too small for %s at %s: the mode is cut off; the diameter must exceed %s",
-				shortLength(v), label, freq, shortLength(2*x/k))
+				shortLength(v), label, freq, shortLength(2*x/k/sr))
 		}
 		c.Radius = a
 		c.Length = p * math.Pi / math.Sqrt((k-kc)*(k+kc))
@@ -170,7 +174,7 @@ func Size(m Mode, f float64, fill physics.Medium, by Constraint) (Cavity, error)
 			return Cavity{}, infeasible("length %s is too short for %s at %s: the length must exceed %s (p = %d half-wavelengths in the fill)",
 				shortLength(v), label, freq, shortLength(p*math.Pi/k), m.P)
 		}
-		c.Radius = x / math.Sqrt((k-beta)*(k+beta))
+		c.Radius = x / math.Sqrt((k-beta)*(k+beta)) / sr
 		c.Length = v
 	}
 	if checkSize("radius", c.Radius) != nil || checkSize("length", c.Length) != nil {

@@ -55,7 +55,8 @@ const MaxTuneSteps = 100000
 // which each ratio f_i/f_w is monotone (see chartMode), so the smallest
 // |f_i/f_w - 1| of each mode over the range is at an end of the segment or
 // zero where it crosses; crossings solve a linear equation in s (derived).
-// Errors: invalid cavity radius, fill or mode, a mode an end plate does
+// Errors: invalid cavity radius, fill or mode, a uniaxial fill (the
+// chart lines hold for isotropic fills only), a mode an end plate does
 // not tune (p = 0; see EndPlateTuning), lengths outside
 // MinSize..MaxSize or lMin > lMax, D/L outside MinDesignRatio..MaxDesignRatio
 // anywhere on the range, more than MaxChartModes modes near the wanted one,
@@ -63,6 +64,9 @@ const MaxTuneSteps = 100000
 func (c Cavity) Tune(w Mode, lMin, lMax float64, steps int, countDegenerate bool) (TuningCurve, error) {
 	c.Length = lMin
 	if err := c.Validate(); err != nil {
+		return TuningCurve{}, err
+	}
+	if err := c.Fill.RequireIsotropic("cavity: the tuning curve (its clearance is read from the mode chart)"); err != nil {
 		return TuningCurve{}, err
 	}
 	if err := w.Validate(); err != nil {

@@ -1,25 +1,15 @@
 package cavity
 
 import (
-	"fmt"
 	"math"
 
 	"cylcav/physics"
 )
 
-// Uniaxial is a uniaxial crystal (sapphire, for instance) filling the whole
-// cavity with its optic (c) axis along the cylinder's axis z: Perp holds
-// the permittivity and losses for a field perpendicular to the c axis, Par
-// for a field parallel to it (the library rows "sapphire-perp" and
-// "sapphire-par"). Only the permittivities enter the frequency; both media
-// must be non-magnetic.
-type Uniaxial struct {
-	Perp, Par physics.Medium
-}
-
-// UniaxialFrequency returns the resonant frequency in Hz of mode m of a
-// cavity of c's size filled with the uniaxial crystal u (c-axis along z).
-// c.Fill must be vacuum (the crystal is the fill).
+// radiusFor returns the radius that turns mode family f of c into the modes
+// of the isotropic formula of Frequency with the fill's eps_perp: c.Radius,
+// except for TM modes in a uniaxial fill (physics.Medium.Uniaxial, c axis
+// along z), where it is c.Radius sqrt(eps_par/eps_perp).
 //
 // TE_nmp modes have no E_z, so their field lies in the plane perpendicular
 // to the c axis and sees eps_perp alone:
@@ -35,35 +25,45 @@ type Uniaxial struct {
 // the guide: Collin, Field Theory of Guided Waves, 2nd ed., 1991, ch. 3 on
 // anisotropic media; recalled from memory, derived again here and checked
 // in the tests by the curl-curl equation of the fields), with kc = x/a,
-// beta = p pi/d. TM0m0 modes (beta = 0) see eps_par alone.
-//
-// Errors: an invalid cavity, mode or medium; a magnetic medium; a
-// non-vacuum c.Fill.
-func (c Cavity) UniaxialFrequency(m Mode, u Uniaxial) (float64, error) {
-	if err := c.Validate(); err != nil {
-		return 0, err
+// beta = p pi/d. Multiplying by eps_perp gives the isotropic formula with
+// eps_perp and kc = x/a', a' = a sqrt(eps_par/eps_perp) (derived). TM0m0
+// modes (beta = 0) see eps_par alone.
+func (c Cavity) radiusFor(f Family) float64 {
+	if f != TM || !c.Fill.Uniaxial() {
+		return c.Radius
 	}
-	if err := m.Validate(); err != nil {
-		return 0, err
+	return c.Radius * radiusScale(c.Fill, f)
+}
+
+// radiusScale returns the factor of radiusFor: sqrt(eps_par/eps_perp) for
+// TM modes in a uniaxial fill, 1 otherwise.
+func radiusScale(fill physics.Medium, f Family) float64 {
+	if f != TM || !fill.Uniaxial() {
+		return 1
 	}
-	if c.Fill.Eps() != 1 || c.Fill.Mu() != 1 {
-		return 0, fmt.Errorf("cavity: a uniaxial crystal is the cavity's fill; leave Cavity.Fill vacuum, got %s", c.Fill.Label())
+	return math.Sqrt(fill.EpsPar() / fill.Eps())
+}
+
+// ModelHolds returns nil when a model that assumes an isotropic fill (named
+// by model, for the error) holds for mode m of c: always for an isotropic
+// fill, and for TE modes of a uniaxial one, whose fields have no E_z and so
+// are those of the isotropic cavity filled with eps_perp (see radiusFor).
+// For a TM mode in a uniaxial fill it returns an error saying so: the one
+// refusal of every per-mode model that does not support that case.
+func (c Cavity) ModelHolds(m Mode, model string) error {
+	if m.Family == TE || !c.Fill.Uniaxial() {
+		return nil
 	}
-	for _, md := range []physics.Medium{u.Perp, u.Par} {
-		if err := md.Validate(); err != nil {
-			return 0, err
-		}
-		if md.Mu() != 1 {
-			return 0, fmt.Errorf("cavity: the uniaxial model is for non-magnetic crystals, got mu_r = %g", md.Mu())
-		}
+	return physics.UniaxialError("cavity: %s of %s holds for TE modes only in a uniaxial fill (%s, eps_perp %g, eps_par %g)", model, m, c.Fill.Label(), c.Fill.Eps(), c.Fill.EpsPar())
+}
+
+// Companion returns the mode that resonates at exactly the frequency of m
+// in c: Mode.Companion (TE0mp with TM1mp) for an isotropic fill, and none
+// in a uniaxial fill, where TM1mp sees eps_par and TE0mp does not
+// (radiusFor).
+func (c Cavity) Companion(m Mode) (Mode, bool) {
+	if c.Fill.Uniaxial() {
+		return Mode{}, false
 	}
-	kc, beta, _ := c.Wavenumbers(m)
-	ep, ez := u.Perp.Eps(), u.Par.Eps()
-	var k0sq float64
-	if m.Family == TE {
-		k0sq = (kc*kc + beta*beta) / ep
-	} else {
-		k0sq = kc*kc/ez + beta*beta/ep
-	}
-	return physics.SpeedOfLight * math.Sqrt(k0sq) / (2 * math.Pi), nil
+	return m.Companion()
 }

@@ -117,7 +117,10 @@ func accelSection(r design.Result) ([]Table, []string) {
 			row := []string{h.Mode.String(), h.Kind.String(), freq(h.Frequency), ohm(h.ROverQ), tt, rt, qSci(h.Q0)}
 			if bunch > 0 {
 				hs := fmt.Sprintf("%d × %s, %s", h.Harmonic, physics.FormatFrequency(bunch, 4), signedFreq(h.Offset))
-				if h.Near {
+				switch {
+				case h.Mode == r.Design.Spec.Mode:
+					hs = "operating mode: " + hs // on a harmonic by design
+				case h.Near:
 					hs = "NEAR: " + hs
 				}
 				row = append(row, hs)

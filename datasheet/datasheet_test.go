@@ -165,3 +165,63 @@ func TestNoEmptySection(t *testing.T) {
 		}
 	}
 }
+
+// TestCellOperatingModeRow: in the cell datasheet's mode table the
+// operating mode TM010 sits on the second harmonic of the 650 MHz bunch
+// frequency by design (1.3 GHz); it is labelled as the operating mode,
+// never flagged NEAR like a mode the beam could drive.
+func TestCellOperatingModeRow(t *testing.T) {
+	s, err := design.DemoCell()
+	if err != nil {
+		t.Fatal(err)
+	}
+	s.Settings.Tolerance.Samples = 500
+	r, err := s.Run(nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sh, err := datasheet.FromDesign(r, figure.DefaultTheme())
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The Q note of a superconducting cell speaks of the residual
+	// resistance, not of the normal-metal roughness allowance.
+	qNote := ""
+	for _, sec := range sh.Sections {
+		if sec.Heading == "Unloaded Q" {
+			for _, b := range sec.Blocks {
+				qNote += b.Note
+			}
+		}
+	}
+	if strings.Contains(qNote, "10–30 %") || !strings.Contains(qNote, "residual resistance") {
+		t.Errorf("superconducting Q note %q", qNote)
+	}
+	// The key figure Q0 (about 1.2e10) to four significant digits: a
+	// superconducting Q0 is known to a few per cent at best.
+	for _, kv := range sh.Facts {
+		if kv.Key == "Unloaded Q0" && !strings.Contains(kv.Value, "e+10") {
+			t.Errorf("Unloaded Q0 key figure %q, want four digits in scientific notation", kv.Value)
+		}
+	}
+	found := false
+	for _, sec := range sh.Sections {
+		for _, b := range sec.Blocks {
+			if b.Table == nil {
+				continue
+			}
+			for _, row := range b.Table.Rows {
+				if len(row) < 8 || row[0] != "TM010" {
+					continue
+				}
+				found = true
+				if last := row[len(row)-1]; !strings.HasPrefix(last, "operating mode: 2 ×") {
+					t.Errorf("TM010 harmonic cell %q, want 'operating mode: 2 × ...'", last)
+				}
+			}
+		}
+	}
+	if !found {
+		t.Error("no TM010 row in the cell datasheet's mode table")
+	}
+}

@@ -121,14 +121,16 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		{"Clearance", pct(d.Clearance.Value) + " (" + d.Clearance.Limiting.String() + ")"},
 	}
 	if !math.IsNaN(d.Q0) && !math.IsInf(d.Q0, 0) {
-		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", fmt.Sprintf("%.0f", d.Q0)})
+		sh.Facts = append(sh.Facts, KV{"Unloaded Q0", qText(d.Q0)})
 	}
 	sh.Facts = append(sh.Facts, accelFacts(r)...)
 
 	// Dimensions and tolerances.
 	dim := Table{Caption: "Dimensions and tolerances (inside surfaces, at " + temp(operate) + ")", Header: []string{"Quantity", "Value", "Note"}}
 	edge := "interior optimum"
-	if d.AtRangeEdge {
+	if r.RatioFixed() {
+		edge = "fixed: the allowed range has zero width"
+	} else if d.AtRangeEdge {
 		edge = fmt.Sprintf("on the edge of the allowed range (%s)", d.Limit)
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by the %s constraint", d.Limit)
@@ -200,7 +202,7 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 			if err != nil {
 				return nil, err
 			}
-			q = fmt.Sprintf("%.0f", v)
+			q = qText(v)
 			qpts = append(qpts, modechart.ModeQ{Mode: e.m, Frequency: e.f, Q0: v, Wanted: e.wanted})
 		}
 		off := e.f - f0
@@ -223,6 +225,11 @@ func FromDesign(r design.Result, th figure.Theme) (*Sheet, error) {
 		q.add(true, "Unloaded Q0", "", qText(u.Q0), "100 %")
 		sh.Q = q
 		sh.QNote = "1/Q0 = 1/Q_wall + 1/Q_fill. Real surfaces (roughness, joints, plating) give less: allow 10–30 % below the smooth-wall figure (common practice)."
+		if r.Scenario.Superconductor != nil {
+			// The normal-metal allowance does not apply: a superconducting
+			// Q0 is set by the residual resistance assumed.
+			sh.QNote = "1/Q0 = 1/Q_wall + 1/Q_fill. Superconducting walls: Q0 rests on the residual resistance assumed (see Operating figures); surface preparation, trapped magnetic flux and hydrogen in the niobium raise it and can lower Q0 several-fold."
+		}
 	}
 
 	// Clearance.
@@ -633,9 +640,19 @@ func pct(f float64) string {
 	return fmt.Sprintf("%.3f %%", 100*f)
 }
 
+// sciQ is the Q above which qText switches to four significant digits in
+// scientific notation: a superconducting Q0 of 1.226e+10 is known to a few
+// per cent at best (residual resistance), and eleven digits would claim
+// more; every normal-metal Q stays below it and is printed whole.
+const sciQ = 1e7
+
+// qText formats a Q: whole below sciQ, four significant digits above it.
 func qText(q float64) string {
-	if math.IsInf(q, 1) {
+	switch {
+	case math.IsInf(q, 1):
 		return "∞ (lossless)"
+	case q >= sciQ:
+		return qSci(q)
 	}
 	return fmt.Sprintf("%.0f", q)
 }

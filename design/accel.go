@@ -78,7 +78,7 @@ const NotAvailableAxisymmetric = "These figures are for a closed pillbox with no
 const CautionRadiation = "Radiation: at high gradient, field emission accelerates electrons that make X-rays (bremsstrahlung) and dark current, and any beam makes radiation; operate only behind shielding with radiation monitoring, under the local radiation-protection codes and licensed practice."
 
 // CautionHighPower is the caution of a design with a beam coupling.
-const CautionHighPower = "High RF power: kilowatts to megawatts at the input coupler can burn, ignite and arc; all of it returns to the source when the beam trips or the cavity quenches, so protect the transmitter with a circulator and interlocks, and follow local codes and licensed practice."
+const CautionHighPower = "High RF power: kilowatts to megawatts at the input coupler can burn, ignite and arc, leaks are an RF exposure hazard, and multipaction and breakdown can occur in the cavity and coupler; all of the power returns to the source when the beam trips or the cavity quenches, so protect the transmitter with a circulator and interlocks, and follow local codes and licensed practice."
 
 // Walls returns the scenario's wall set at the operating temperature:
 // the wall metal on every part, smooth, superconducting when

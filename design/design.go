@@ -380,6 +380,15 @@ const cryogenicBelow = physics.ZeroCelsius - 150
 // CautionCryogenic is the caution printed wherever cold operation is.
 const CautionCryogenic = "Cryogenic operation: liquid nitrogen and helium and cold surfaces cause severe cold burns, evaporating cryogens displace oxygen (asphyxiation) and over-pressurise closed volumes, and cooled air condenses oxygen-rich liquid; follow local codes and licensed practice, with relief devices and oxygen monitoring."
 
+// RatioFixed reports whether the design's allowed D/L range has zero width
+// (RatioMin == RatioMax, as for an accelerator cell whose length is set by
+// the particle speed): the result is then that ratio, not an optimum, and
+// sitting on the range's edge says nothing.
+func (r Result) RatioFixed() bool {
+	s := r.Design.Spec
+	return s.RatioMin != 0 && s.RatioMin == s.RatioMax
+}
+
 // Cautions returns the warnings a designer should read about a result.
 func Cautions(r Result) []string {
 	var out []string
@@ -391,7 +400,9 @@ func Cautions(r Result) []string {
 		}
 		out = append(out, fmt.Sprintf("%s resonates at exactly the frequency of %s in every cylinder; no D/L separates them. Suppress it: a mode trap, a non-contacting plunger with a gap (TE0mp has no wall current across it), or couplings on its field nulls.", m, spec.Mode))
 	}
-	if d.AtRangeEdge {
+	if r.RatioFixed() {
+		out = append(out, fmt.Sprintf("D/L is fixed at %.4g (the allowed range has zero width): the clearance and Q0 are those of this ratio, not an optimum.", d.Ratio))
+	} else if d.AtRangeEdge {
 		out = append(out, fmt.Sprintf("The optimum sits on the edge of the allowed D/L range (%s, D/L = %.4g); relaxing that limit may give more clearance.", d.Limit, d.Ratio))
 	} else if d.Limit == cavity.LimitMinQ || d.Limit == cavity.LimitMinClearance {
 		out = append(out, fmt.Sprintf("The optimum is held by the %s constraint.", d.Limit))

@@ -267,6 +267,9 @@ func Realise(d *Design, opts RealiseOptions) (*Realisation, error) {
 	if err := mode.Validate(); err != nil {
 		return nil, err
 	}
+	if err := opts.Fill.RequireIsotropic("filter: the realisation (apertures and spurious modes)"); err != nil {
+		return nil, err
+	}
 	if opts.Shape.Name() == "none" {
 		return nil, errors.New("filter: Realise needs a cavity shape: cavity.ByRatio(D/L), cavity.ByDiameter(m) or cavity.ByLength(m)")
 	}

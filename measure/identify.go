@@ -100,6 +100,9 @@ func Identify(f0, q0 []float64, s IdentifySettings) (Identification, error) {
 	if err := s.Nominal.Validate(); err != nil {
 		return Identification{}, err
 	}
+	if err := s.Nominal.Fill.RequireIsotropic("measure: mode identification"); err != nil {
+		return Identification{}, err
+	}
 	tol := s.MatchTol
 	if tol == 0 {
 		tol = 0.003

@@ -356,6 +356,9 @@ func New(s Spec) (*Chart, error) {
 	} else if err := fill.Validate(); err != nil {
 		return nil, fmt.Errorf("modechart: fill: cavity: %w", err)
 	}
+	if err := fill.RequireIsotropic("modechart: the mode chart"); err != nil {
+		return nil, err
+	}
 	eps, mu := fill.Eps(), fill.Mu()
 	if !hasDesign && (s.Tuning != 0 || s.DiameterTol != 0 || s.LengthTol != 0 || s.Clearance != 0) {
 		return nil, fmt.Errorf("modechart: tuning, tolerances and clearance need a design: a cavity and a wanted mode")

@@ -103,6 +103,8 @@ const (
 	srcMatt  = "alpha derived by Matthiessen's rule from the base metal: alpha_alloy = alpha_base rho_base/rho_alloy (an estimate, good to about 20 %)"
 	srcPozar = "recalled from memory, Pozar, Microwave Engineering, 4th ed. (2012), Appendix G (dielectric constants and loss tangents at 10 GHz)"
 	srcKrupk = "recalled from memory, Krupka et al., Meas. Sci. Technol. 10, 387 (1999), room temperature near 10 GHz; tan delta given to its order of magnitude"
+	// srcKrupkCold: the same paper's values near 4.2 K.
+	srcKrupkCold = "recalled from memory, Krupka et al., Meas. Sci. Technol. 10, 387 (1999), near 4.2 K; tan delta given to its order of magnitude"
 )
 
 // Conductors returns the wall-metal library, in a fixed order. Each call
@@ -272,18 +274,20 @@ func Dielectrics() []Dielectric {
 			Source:      srcPozar,
 		},
 		{
-			Medium:      Medium{Name: "sapphire-perp", EpsR: 9.39, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1},
-			Aliases:     []string{"sapphire-perpendicular", "al2o3-perp"},
-			Description: "single-crystal sapphire, field perpendicular to the c axis",
-			Note:        "uniaxial: a full fill sees both axes unless the field lies in one plane; tan delta falls by orders of magnitude when cooled",
+			// Uniaxial: EpsR is eps_perp, EpsRParallel eps_par (c axis
+			// along the cavity axis z).
+			Medium:      Medium{Name: "sapphire", EpsR: 9.3899, EpsRParallel: 11.5867, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"al2o3-crystal", "sapphire-300k"},
+			Description: "single-crystal sapphire near 296 K, uniaxial, c axis along the cavity axis",
+			Note:        "eps_perp 9.3899 for a field across the c axis, eps_par 11.5867 along it; TE modes see eps_perp only; tan delta falls by orders of magnitude when cooled",
 			Source:      srcKrupk,
 		},
 		{
-			Medium:      Medium{Name: "sapphire-par", EpsR: 11.59, TanDelta: 1e-5, TanDeltaFreq: 10e9, MuR: 1},
-			Aliases:     []string{"sapphire-parallel", "al2o3-par"},
-			Description: "single-crystal sapphire, field parallel to the c axis",
-			Note:        "uniaxial: a full fill sees both axes unless the field lies in one plane; tan delta falls by orders of magnitude when cooled",
-			Source:      srcKrupk,
+			Medium:      Medium{Name: "sapphire-cold", EpsR: 9.2725, EpsRParallel: 11.3486, TanDelta: 1e-8, TanDeltaFreq: 10e9, MuR: 1},
+			Aliases:     []string{"sapphire-4k"},
+			Description: "single-crystal sapphire near 4.2 K, uniaxial, c axis along the cavity axis",
+			Note:        "eps_perp 9.2725, eps_par 11.3486 near 4.2 K; tan delta of order 1e-9 to 1e-8 depends strongly on the crystal",
+			Source:      srcKrupkCold,
 		},
 		{
 			Medium:      Medium{Name: "alumina", EpsR: 9.8, TanDelta: 1e-4, TanDeltaFreq: 10e9, MuR: 1},
@@ -537,11 +541,14 @@ func parseBare(kind, key, s string) (float64, error) {
 }
 
 // ParseDielectric returns a dielectric from a library name ("ptfe",
-// "sapphire-perp", ...; see LookupDielectric) or from user values, as
+// "sapphire", ...; see LookupDielectric) or from user values, as
 // comma-separated key=value pairs with an optional library name first whose
 // values they override:
 //
-//	eps=2.08        relative permittivity, 1..1e4 (required without a name)
+//	eps=2.08        relative permittivity, 1..1e4 (required without a name);
+//	                eps_perp of a uniaxial crystal
+//	epspar=11.59    eps_par of a uniaxial crystal, c axis along the cavity
+//	                axis (Medium.EpsRParallel), 1..1e4 (default: isotropic)
 //	tand=4e-4       dielectric loss tangent, 0..1 (default 0)
 //	f=10GHz         frequency at which tand holds (Hz or with a unit), > 0
 //	mu=1            relative permeability (also mur), 0.001..1e5 (default 1)
@@ -578,6 +585,16 @@ func ParseDielectric(spec string) (Dielectric, error) {
 				return Dielectric{}, rangeErr(kind, f.key, minEps, maxEps, "", v)
 			}
 			d.EpsR, haveEps = v, true
+		case "epspar":
+			// eps_par of a uniaxial crystal, c axis along the cavity axis
+			// (Medium.EpsRParallel); eps is then eps_perp.
+			if v, err = parseBare(kind, f.key, f.value); err != nil {
+				return Dielectric{}, err
+			}
+			if !(v >= minEps && v <= maxEps) {
+				return Dielectric{}, rangeErr(kind, f.key, minEps, maxEps, "", v)
+			}
+			d.EpsRParallel = v
 		case "tand", "tandm":
 			if v, err = parseBare(kind, f.key, f.value); err != nil {
 				return Dielectric{}, err
@@ -618,7 +635,7 @@ func ParseDielectric(spec string) (Dielectric, error) {
 			}
 			d.TCEps, d.TCEpsKnown = v, true
 		default:
-			return Dielectric{}, fmt.Errorf("%s %q: unknown key %q; use eps, tand, f, mu, tandm or tceps", kind, spec, f.key)
+			return Dielectric{}, fmt.Errorf("%s %q: unknown key %q; use eps, epspar, tand, f, mu, tandm or tceps", kind, spec, f.key)
 		}
 		keys = append(keys, f.key)
 	}

@@ -50,7 +50,7 @@ func TestLibraryRequiredRows(t *testing.T) {
 		}
 	}
 	for _, n := range []string{"vacuum", "air", "ptfe", "polyethylene", "polystyrene", "fused silica",
-		"sapphire-perp", "sapphire-par", "alumina"} {
+		"sapphire", "sapphire-cold", "alumina"} {
 		if _, err := LookupDielectric(n); err != nil {
 			t.Errorf("LookupDielectric(%q): %v", n, err)
 		}
@@ -148,10 +148,17 @@ func TestConductorsAgainstPozar(t *testing.T) {
 // for frequencies up to tens of GHz and the CRC value is at 900 kHz; they
 // differ by a few percent in eps - 1.
 func TestDielectricsPhysics(t *testing.T) {
-	par, _ := LookupDielectric("sapphire-par")
-	perp, _ := LookupDielectric("sapphire-perp")
-	if !(par.EpsR > perp.EpsR) {
-		t.Errorf("sapphire eps_par = %g, want > eps_perp = %g", par.EpsR, perp.EpsR)
+	// Both rows positive uniaxial, and eps falls on cooling (Krupka et al.
+	// 1999, recalled from memory).
+	warm, _ := LookupDielectric("sapphire")
+	cold, _ := LookupDielectric("sapphire-cold")
+	for _, d := range []Dielectric{warm, cold} {
+		if !d.Uniaxial() || !(d.EpsPar() > d.Eps()) {
+			t.Errorf("%s eps_par = %g, want > eps_perp = %g", d.Name, d.EpsPar(), d.Eps())
+		}
+	}
+	if !(cold.Eps() < warm.Eps() && cold.EpsPar() < warm.EpsPar()) {
+		t.Errorf("sapphire eps cold %g/%g, want below warm %g/%g", cold.Eps(), cold.EpsPar(), warm.Eps(), warm.EpsPar())
 	}
 	air, _ := LookupDielectric("air")
 	const airTol = 0.05
@@ -185,7 +192,7 @@ func TestLookup(t *testing.T) {
 	}
 	for _, tc := range []struct{ in, want string }{
 		{"PTFE", "ptfe"}, {"polytetrafluoroethylene", "ptfe"}, {"Fused Silica", "fused-silica"}, {"Alumina 99.5%", "alumina"},
-		{"sapphire_par", "sapphire-par"},
+		{"sapphire_4k", "sapphire-cold"},
 	} {
 		d, err := LookupDielectric(tc.in)
 		if err != nil || d.Name != tc.want {
@@ -195,8 +202,8 @@ func TestLookup(t *testing.T) {
 	if _, err := LookupConductor("unobtainium"); err == nil || !strings.Contains(err.Error(), "available: copper, ofhc-copper") {
 		t.Errorf("LookupConductor(unknown) error %v, want a list of names", err)
 	}
-	if _, err := LookupDielectric("sapphire"); err == nil || !strings.Contains(err.Error(), "sapphire-perp, sapphire-par") {
-		t.Errorf("LookupDielectric(sapphire) error %v, want the two axes listed", err)
+	if _, err := LookupDielectric("sapphire-perp"); err == nil || !strings.Contains(err.Error(), "sapphire, sapphire-cold") {
+		t.Errorf("LookupDielectric(sapphire-perp) error %v, want the uniaxial rows listed", err)
 	}
 }
 

@@ -117,3 +117,30 @@ func TestEpsAt(t *testing.T) {
 		t.Errorf("vacuum EpsAt(-300) = %v, want 1", got)
 	}
 }
+
+// TestMediumUniaxial: EpsRParallel zero means isotropic; a uniaxial medium
+// must be non-magnetic and its eps_par in range; RequireIsotropic refuses
+// it; ParseDielectric reads epspar.
+func TestMediumUniaxial(t *testing.T) {
+	iso := Medium{EpsR: 2}
+	if iso.Uniaxial() || iso.EpsPar() != 2 || iso.RequireIsotropic("x") != nil {
+		t.Errorf("isotropic medium: Uniaxial %v, EpsPar %g", iso.Uniaxial(), iso.EpsPar())
+	}
+	u := Medium{EpsR: 9.4, EpsRParallel: 11.6}
+	if !u.Uniaxial() || u.EpsPar() != 11.6 || u.Validate() != nil {
+		t.Errorf("uniaxial medium: Uniaxial %v, EpsPar %g, Validate %v", u.Uniaxial(), u.EpsPar(), u.Validate())
+	}
+	if err := u.RequireIsotropic("the model"); err == nil || !strings.Contains(err.Error(), "the model holds for isotropic fills only") {
+		t.Errorf("RequireIsotropic: %v", err)
+	}
+	if err := (Medium{EpsR: 9, EpsRParallel: 11, MuR: 2}).Validate(); err == nil {
+		t.Error("magnetic uniaxial medium validated")
+	}
+	if err := (Medium{EpsR: 9, EpsRParallel: 0.5}).Validate(); err == nil {
+		t.Error("eps_par 0.5 validated")
+	}
+	d, err := ParseDielectric("eps=9.4,epspar=11.6")
+	if err != nil || d.EpsPar() != 11.6 || d.Eps() != 9.4 {
+		t.Errorf("ParseDielectric(eps=9.4,epspar=11.6) = %+v, %v", d.Medium, err)
+	}
+}

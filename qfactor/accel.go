@@ -127,6 +127,9 @@ func Acceleration(c cavity.Cavity, m cavity.Mode, speed float64) (Accel, error) 
 	if err := m.Validate(); err != nil {
 		return Accel{}, err
 	}
+	if err := c.ModelHolds(m, "the accelerator figures"); err != nil {
+		return Accel{}, err
+	}
 	if m.Family != cavity.TM || m.N != 0 {
 		return Accel{}, fmt.Errorf("qfactor: accelerator figures need a TM0mp mode (axial electric field on the axis), got %s", m)
 	}

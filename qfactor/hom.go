@@ -95,6 +95,9 @@ func HOMTable(c cavity.Cavity, o HOMOptions) ([]HOM, error) {
 	if err := c.Validate(); err != nil {
 		return nil, err
 	}
+	if err := c.Fill.RequireIsotropic("qfactor: the higher-order-mode table"); err != nil {
+		return nil, err
+	}
 	if math.IsNaN(o.Speed) || o.Speed <= 0 || o.Speed > 1 {
 		return nil, fmt.Errorf("qfactor: particle speed must be in 0 < beta <= 1 (fraction of c), got %g", o.Speed)
 	}
@@ -196,6 +199,9 @@ func TransverseROverQ(c cavity.Cavity, m cavity.Mode, speed float64) (float64, e
 		return 0, err
 	}
 	if err := m.Validate(); err != nil {
+		return 0, err
+	}
+	if err := c.ModelHolds(m, "the transverse R/Q"); err != nil {
 		return 0, err
 	}
 	if m.N != 1 {

@@ -41,6 +41,9 @@ func UnloadedQ(c cavity.Cavity, m cavity.Mode, rs ResistancesAt) (Unloaded, erro
 	if err := m.Validate(); err != nil {
 		return Unloaded{}, err
 	}
+	if err := c.ModelHolds(m, "the unloaded-Q model"); err != nil {
+		return Unloaded{}, err
+	}
 	x := m.Root()
 	return unloaded(c, m, x, c.FrequencyOfRoot(x, m.P), rs, c.Fill.Q())
 }
@@ -62,6 +65,9 @@ func UnloadedQAll(c cavity.Cavity, res []cavity.Resonance, rs ResistancesAt) ([]
 	var most []int
 	for _, r := range res {
 		if err := r.Mode.Validate(); err != nil {
+			return nil, err
+		}
+		if err := c.ModelHolds(r.Mode, "the unloaded-Q model"); err != nil {
 			return nil, err
 		}
 		if !(r.Frequency > 0) || math.IsInf(r.Frequency, 0) {

@@ -130,6 +130,9 @@ func WallQ(c cavity.Cavity, m cavity.Mode, rs SurfaceResistances) (WallLoss, err
 	if err := m.Validate(); err != nil {
 		return WallLoss{}, err
 	}
+	if err := c.ModelHolds(m, "the wall-loss model"); err != nil {
+		return WallLoss{}, err
+	}
 	if err := rs.Validate(); err != nil {
 		return WallLoss{}, err
 	}
@@ -148,6 +151,9 @@ func GeometryFactors(c cavity.Cavity, m cavity.Mode) (Geometry, error) {
 		return Geometry{}, err
 	}
 	if err := m.Validate(); err != nil {
+		return Geometry{}, err
+	}
+	if err := c.ModelHolds(m, "the wall-loss model"); err != nil {
 		return Geometry{}, err
 	}
 	return geometry(c, m, m.Root()), nil

@@ -16,6 +16,8 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 	"golang.org/x/term"
+
+	"cylcav/physics"
 )
 
 // IOStreams are the streams a command reads and writes. Commands never touch
@@ -122,7 +124,9 @@ func ExitStatus(err error) int {
 	switch {
 	case err == nil:
 		return 0
-	case IsUsage(err):
+	case IsUsage(err), errors.Is(err, physics.ErrUniaxial):
+		// A uniaxial fill given to a model that does not support it is
+		// bad input (the --fill value), whichever command meets it.
 		return 2
 	}
 	return 1

@@ -268,7 +268,10 @@ func writeAccelTable(w io.Writer, r design.Result) {
 			harm := ""
 			if bunch > 0 {
 				harm = fmt.Sprintf("h = %d, %s", h.Harmonic, signedF(h.Offset))
-				if h.Near {
+				switch {
+				case h.Mode == r.Design.Spec.Mode:
+					harm += "  operating mode" // on a harmonic by design
+				case h.Near:
 					harm += "  NEAR"
 				}
 			}

@@ -4,6 +4,7 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"math"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -97,4 +98,50 @@ func TestBulbFillingFactors(t *testing.T) {
 		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "1m", "--bulb-length", "10mm"}, Code: 1, Want: []string{"does not fit", "D = 1.000 m"}},
 		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "-5mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"--bulb-diameter"}},
 	})
+}
+
+// TestCellReadsRight: the accelerator cell's table and cautions as a
+// technician reads them. The operating mode sits on a bunch harmonic by
+// design (1.3 GHz = 2 x 650 MHz) and is labelled so, never flagged NEAR
+// as a mode the beam could drive; the high-power caution is printed once
+// (the coupler's fuller one replaces the general one), and the
+// cryogenic, radiation and high-power cautions all defer to local codes.
+func TestCellReadsRight(t *testing.T) {
+	r := clitest.Run(t, "design", "--demo", "cell")
+	if r.Code != 0 {
+		t.Fatalf("design --demo cell: exit %d: %s", r.Code, r.Stderr)
+	}
+	var op string
+	for _, line := range strings.Split(r.Stdout, "\n") {
+		if strings.HasPrefix(strings.TrimSpace(line), "TM010 ") {
+			op = line
+		}
+	}
+	if !strings.Contains(op, "operating mode") || strings.Contains(op, "NEAR") {
+		t.Errorf("operating-mode row %q: want it labelled 'operating mode', not NEAR", op)
+	}
+	// The cell's D/L is fixed (a zero-width range): no advice to relax a
+	// limit the physics sets.
+	if !strings.Contains(r.Stdout, "fixed: the allowed range has zero width") || strings.Contains(r.Stdout, "relaxing") {
+		t.Errorf("fixed D/L not stated as fixed:\n%s", r.Stdout)
+	}
+	// A superconducting Q0 (about 1e10) is known to a few per cent
+	// (residual resistance): four significant digits, not eleven.
+	if !regexp.MustCompile(`Q0 = \d\.\d{3}e\+10\n`).MatchString(r.Stdout) {
+		t.Errorf("Q0 not printed to four digits:\n%s", r.Stdout)
+	}
+	if n := strings.Count(strings.ToLower(r.Stdout), "high rf power"); n != 1 {
+		t.Errorf("the high-power caution appears %d times, want once:\n%s", n, r.Stdout)
+	}
+	for _, w := range []string{"Cryogenic operation", "Radiation", "High RF power"} {
+		found := false
+		for _, line := range strings.Split(r.Stdout, "\n") {
+			if strings.Contains(line, w) && strings.Contains(line, "local") && strings.Contains(line, "licensed practice") {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("no caution %q deferring to local codes and licensed practice", w)
+		}
+	}
 }

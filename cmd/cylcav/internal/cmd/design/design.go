@@ -353,7 +353,9 @@ func WriteTable(w io.Writer, r design.Result) error {
 	fmt.Fprintf(w, "Design: %s at %s with the cavity at %s, fill %s (mode indices: n azimuthal, m radial, p axial)\n",
 		spec.Mode, physics.FormatFrequency(spec.Frequency, 7), physics.FormatTemperature(operate, 4), spec.Fill.Label())
 	edge := "interior optimum"
-	if d.AtRangeEdge {
+	if r.RatioFixed() {
+		edge = "fixed: the allowed range has zero width"
+	} else if d.AtRangeEdge {
 		edge = fmt.Sprintf("ON THE RANGE EDGE (%s)", d.Limit)
 	} else if d.Limit != cavity.NoLimit {
 		edge = fmt.Sprintf("held by %s", d.Limit)
@@ -375,7 +377,7 @@ func WriteTable(w io.Writer, r design.Result) error {
 	fmt.Fprintln(w)
 	fmt.Fprint(w, cmdutil.FormatNeighbours(d.Clearance))
 	if u := r.Unloaded; u != nil {
-		fmt.Fprintf(w, "\nUnloaded Q (%s walls at %s, smooth): Q0 = %.0f\n", r.Scenario.Wall.Name, physics.FormatTemperature(operate, 4), u.Q0)
+		fmt.Fprintf(w, "\nUnloaded Q (%s walls at %s, smooth): Q0 = %s\n", r.Scenario.Wall.Name, physics.FormatTemperature(operate, 4), qOut(u.Q0))
 		fmt.Fprintf(w, "  loss shares: side wall %.1f %%, end plates %.1f %%, fill %.1f %%\n",
 			100*u.Share.Side, 100*(u.Share.EndA+u.Share.EndB), 100*u.Share.Fill)
 	}
@@ -416,10 +418,15 @@ func WriteTable(w io.Writer, r design.Result) error {
 }
 
 // printedCautions are the cautions design prints: the result's own, then
-// the general caution for high RF power (cmdutil.CautionRF) as a sentence.
-// The datasheet of `cylcav report` prints the result's own and, in place of
-// the one-line RF caution, its fuller safety notes.
+// the general caution for high RF power (cmdutil.CautionRF) as a sentence,
+// unless the result already has the fuller one of a beam coupling
+// (design.CautionHighPower), which covers it. The datasheet of `cylcav
+// report` prints the result's own and, in place of the one-line RF
+// caution, its fuller safety notes.
 func printedCautions(r design.Result) []string {
+	if slices.Contains(r.Cautions, design.CautionHighPower) {
+		return slices.Clone(r.Cautions)
+	}
 	rf := strings.ToUpper(cmdutil.CautionRF[:1]) + cmdutil.CautionRF[1:] + "."
 	return append(slices.Clone(r.Cautions), rf)
 }
@@ -475,4 +482,14 @@ func modeNames(ms []cavity.Mode) []string {
 		out = append(out, m.String())
 	}
 	return out
+}
+
+// qOut prints a Q whole, or with four significant digits from 1e7 up (a
+// superconducting Q0 is known to a few per cent at best; every normal-metal
+// Q stays below 1e7 and keeps its digits).
+func qOut(q float64) string {
+	if q >= 1e7 {
+		return fmt.Sprintf("%.4g", q)
+	}
+	return fmt.Sprintf("%.0f", q)
 }

@@ -102,10 +102,13 @@ type conductorJSON struct {
 
 // dielectricJSON is one fill row of the JSON output. Unknown values are null.
 type dielectricJSON struct {
-	Name           string   `json:"name"`
-	Aliases        []string `json:"aliases"`
-	Description    string   `json:"description"`
-	EpsR           float64  `json:"eps_r"`
+	Name        string   `json:"name"`
+	Aliases     []string `json:"aliases"`
+	Description string   `json:"description"`
+	EpsR        float64  `json:"eps_r"`
+	// EpsRParallel is eps_par of a uniaxial crystal (c axis along the
+	// cavity axis; eps_r is then eps_perp); null for an isotropic fill.
+	EpsRParallel   *float64 `json:"eps_r_parallel"`
 	TanDelta       float64  `json:"tan_delta"`
 	TanDeltaFreqHz *float64 `json:"tan_delta_freq_hz"`
 	MuR            float64  `json:"mu_r"`
@@ -160,7 +163,7 @@ func dielectricRows() []dielectricJSON {
 	for _, d := range physics.Dielectrics() {
 		rows = append(rows, dielectricJSON{
 			Name: d.Name, Aliases: d.Aliases, Description: d.Description,
-			EpsR: d.EpsR, TanDelta: d.TanDelta, TanDeltaFreqHz: ptr(d.TanDeltaFreq, d.TanDeltaFreq != 0),
+			EpsR: d.EpsR, EpsRParallel: ptr(d.EpsPar(), d.Uniaxial()), TanDelta: d.TanDelta, TanDeltaFreqHz: ptr(d.TanDeltaFreq, d.TanDeltaFreq != 0),
 			MuR: d.Mu(), TanDeltaM: d.TanDeltaM, TCEpsPerK: ptr(d.TCEps, d.TCEpsKnown),
 			Note: d.Note, Source: d.Source,
 		})
@@ -190,7 +193,7 @@ func runMaterials(opts *Options) error {
 var csvHeader = []string{"kind", "name", "aliases", "description",
 	"conductivity_s_per_m", "iacs_fraction", "alpha_per_k", "linear_t_min_k", "linear_t_max_k", "mu_r", "expansion_per_k",
 	"electron_density_per_m3", "ferromagnetic",
-	"eps_r", "tan_delta", "tan_delta_freq_hz", "tan_delta_m", "tc_eps_per_k",
+	"eps_r", "eps_r_parallel", "tan_delta", "tan_delta_freq_hz", "tan_delta_m", "tc_eps_per_k",
 	"note", "source"}
 
 func num(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
@@ -208,12 +211,12 @@ func writeCSV(opts *Options, lib libraryJSON) error {
 		rows = append(rows, []string{"conductor", c.Name, strings.Join(c.Aliases, " "), c.Description,
 			num(c.ConductivitySPerM), num(c.IACSFraction), optNum(c.AlphaPerK), num(c.LinearTMinK), num(c.LinearTMaxK),
 			num(c.MuR), optNum(c.ExpansionPerK), optNum(c.ElectronDensityPerM3), strconv.FormatBool(c.Ferromagnetic),
-			"", "", "", "", "", c.Note, c.Source})
+			"", "", "", "", "", "", c.Note, c.Source})
 	}
 	for _, d := range lib.Dielectrics {
 		rows = append(rows, []string{"dielectric", d.Name, strings.Join(d.Aliases, " "), d.Description,
 			"", "", "", "", "", num(d.MuR), "", "", "",
-			num(d.EpsR), num(d.TanDelta), optNum(d.TanDeltaFreqHz), num(d.TanDeltaM), optNum(d.TCEpsPerK),
+			num(d.EpsR), optNum(d.EpsRParallel), num(d.TanDelta), optNum(d.TanDeltaFreqHz), num(d.TanDeltaM), optNum(d.TCEpsPerK),
 			d.Note, d.Source})
 	}
 	return cmdutil.WriteCSV(opts.IO.Out, csvHeader, rows)
@@ -280,14 +283,17 @@ func writeTables(opts *Options, lib libraryJSON) error {
 		if len(lib.Conductors) > 0 {
 			fmt.Fprintln(out)
 		}
-		fmt.Fprintln(out, "Fill dielectrics (room temperature)")
-		t := cmdutil.NewTable(out, "NAME", "DESCRIPTION", "EPS_R", "TAN DELTA", "AT", "TC EPS (ppm/K)", "SOURCE")
+		fmt.Fprintln(out, "Fill dielectrics (room temperature unless the description says otherwise; a uniaxial crystal has")
+		fmt.Fprintln(out, "its c axis along the cavity axis: EPS_R across it, EPS_R PAR along it; TE modes see EPS_R only)")
+		t := cmdutil.NewTable(out, "NAME", "DESCRIPTION", "EPS_R", "EPS_R PAR", "TAN DELTA", "AT", "TC EPS (ppm/K)", "SOURCE")
 		for _, d := range lib.Dielectrics {
 			at := "-"
 			if d.TanDeltaFreqHz != nil {
 				at = physics.FormatFrequency(*d.TanDeltaFreqHz, 2)
 			}
-			t.Row(d.Name, d.Description, strconv.FormatFloat(d.EpsR, 'g', 6, 64), strconv.FormatFloat(d.TanDelta, 'g', 3, 64), at,
+			t.Row(d.Name, d.Description, strconv.FormatFloat(d.EpsR, 'g', 6, 64),
+				orDash(d.EpsRParallel, func(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }),
+				strconv.FormatFloat(d.TanDelta, 'g', 3, 64), at,
 				orDash(d.TCEpsPerK, func(v float64) string { return fmt.Sprintf("%.3g", v*1e6) }),
 				src.ref(d.Source))
 		}

@@ -114,6 +114,14 @@ detail.`, DefaultCount),
 			if opts.Walls, err = parseWalls(walls); err != nil {
 				return err
 			}
+			if opts.Walls != nil {
+				// Checked before any output: the list holds TM modes,
+				// whose Q the wall-loss model cannot give in a
+				// uniaxial fill (cavity.Cavity.ModelHolds).
+				if err := opts.Cavity.Fill.RequireIsotropic("the wall-loss model of the Q columns (--wall)"); err != nil {
+					return cmdutil.FlagError("fill", opts.Cavity.Fill.Label(), err)
+				}
+			}
 			if err := checkFormat(); err != nil {
 				return err
 			}
@@ -188,27 +196,19 @@ type Row struct {
 	Q0    *QValue `json:"q0,omitempty"`
 }
 
-// Rows converts resonances to output rows in the same order (see RowOf).
-func Rows(list []cavity.Resonance) []Row {
-	rows := make([]Row, len(list))
-	for i, r := range list {
-		rows[i] = RowOf(r)
-	}
-	return rows
-}
-
-// RowOf converts one resonance to its output row. DegenerateWith lists the
-// modes that share the frequency exactly in every cylinder (TE0mp with
-// TM1mp); it is empty, never nil, otherwise.
-func RowOf(r cavity.Resonance) Row {
+// RowOf converts one resonance of cavity c to its output row.
+// DegenerateWith lists the modes that share the frequency exactly
+// (Cavity.Companion: TE0mp with TM1mp in an isotropic fill); it is empty,
+// never nil, otherwise.
+func RowOf(c cavity.Cavity, r cavity.Resonance) Row {
 	row := Row{
 		Mode: r.Mode.String(), Family: r.Mode.Family.String(),
 		N: r.Mode.N, M: r.Mode.M, P: r.Mode.P,
 		FHz: r.Frequency, Degeneracy: r.Degeneracy(),
 		DegenerateWith: []string{},
 	}
-	if c, ok := r.Companion(); ok {
-		row.DegenerateWith = append(row.DegenerateWith, c.String())
+	if cm, ok := c.Companion(r.Mode); ok {
+		row.DegenerateWith = append(row.DegenerateWith, cm.String())
 	}
 	return row
 }
@@ -250,7 +250,10 @@ type cavityJSON struct {
 	RadiusM float64 `json:"radius_m"`
 	LengthM float64 `json:"length_m"`
 	EpsR    float64 `json:"eps_r"`
-	MuR     float64 `json:"mu_r"`
+	// EpsRParallel is eps_par of a uniaxial fill (c axis along z, eps_r
+	// then being eps_perp); absent for an isotropic fill.
+	EpsRParallel float64 `json:"eps_r_parallel,omitempty"`
+	MuR          float64 `json:"mu_r"`
 }
 
 // DescribeCavity returns the one-line description of a cavity used in
@@ -258,9 +261,13 @@ type cavityJSON struct {
 func DescribeCavity(c cavity.Cavity) string {
 	f := c.Fill
 	name := f.Label()
-	fill := fmt.Sprintf("fill %s (eps_r %s, mu_r %s)", name, num(f.Eps()), num(f.Mu()))
+	eps := "eps_r " + num(f.Eps())
+	if f.Uniaxial() {
+		eps = fmt.Sprintf("uniaxial, c axis along z: eps_perp %s, eps_par %s", num(f.Eps()), num(f.EpsPar()))
+	}
+	fill := fmt.Sprintf("fill %s (%s, mu_r %s)", name, eps, num(f.Mu()))
 	if name == "user" {
-		fill = fmt.Sprintf("fill eps_r %s, mu_r %s", num(f.Eps()), num(f.Mu()))
+		fill = fmt.Sprintf("fill %s, mu_r %s", eps, num(f.Mu()))
 	}
 	return fmt.Sprintf("radius %s, diameter %s, length %s, %s",
 		cmdutil.TrimZeros(physics.FormatLength(c.Radius, 6)), cmdutil.TrimZeros(physics.FormatLength(c.Diameter(), 6)),

@@ -62,7 +62,7 @@ func (s *rowSource) withQ() bool { return s.opts.Walls != nil }
 
 // row returns row i; rows must be asked for in order.
 func (s *rowSource) row(i int) (Row, error) {
-	r := RowOf(s.list[i])
+	r := RowOf(s.opts.Cavity, s.list[i])
 	if !s.withQ() {
 		return r, nil
 	}
@@ -178,7 +178,7 @@ func writeCSV(w io.Writer, src *rowSource) error {
 // writeJSON writes what cmdutil.WriteJSON writes for the object
 // {cavity, index_convention, modes}, one mode at a time.
 func writeJSON(w io.Writer, c cavity.Cavity, src *rowSource) error {
-	cav, err := json.MarshalIndent(cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: c.Fill.Eps(), MuR: c.Fill.Mu()}, "  ", "  ")
+	cav, err := json.MarshalIndent(cavityJSON{RadiusM: c.Radius, LengthM: c.Length, EpsR: c.Fill.Eps(), EpsRParallel: c.Fill.UniaxialPar(), MuR: c.Fill.Mu()}, "  ", "  ")
 	if err != nil {
 		return err
 	}

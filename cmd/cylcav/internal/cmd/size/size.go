@@ -145,7 +145,10 @@ type Result struct {
 	LengthM   float64 `json:"length_m"`
 	RatioDL   float64 `json:"ratio_d_over_l"`
 	EpsR      float64 `json:"eps_r"`
-	MuR       float64 `json:"mu_r"`
+	// EpsRParallel is eps_par of a uniaxial fill (eps_r is then
+	// eps_perp); absent for an isotropic fill.
+	EpsRParallel float64 `json:"eps_r_parallel,omitempty"`
+	MuR          float64 `json:"mu_r"`
 }
 
 func runSize(opts *Options) error {
@@ -160,7 +163,7 @@ func runSize(opts *Options) error {
 	res := Result{
 		Mode: opts.Mode.String(), FHz: opts.Frequency,
 		RadiusM: c.Radius, DiameterM: c.Diameter(), LengthM: c.Length, RatioDL: c.Diameter() / c.Length,
-		EpsR: c.Fill.Eps(), MuR: c.Fill.Mu(),
+		EpsR: c.Fill.Eps(), EpsRParallel: c.Fill.UniaxialPar(), MuR: c.Fill.Mu(),
 	}
 	w := opts.IO.Out
 	switch opts.Format {
@@ -168,18 +171,21 @@ func runSize(opts *Options) error {
 		return cmdutil.WriteJSON(w, res)
 	case cmdutil.CSV:
 		g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
-		return cmdutil.WriteCSV(w,
-			[]string{"mode", "f_hz", "radius_m", "diameter_m", "length_m", "ratio_d_over_l", "eps_r", "mu_r"},
-			[][]string{{res.Mode, g(res.FHz), g(res.RadiusM), g(res.DiameterM), g(res.LengthM), g(res.RatioDL), g(res.EpsR), g(res.MuR)}})
+		head := []string{"mode", "f_hz", "radius_m", "diameter_m", "length_m", "ratio_d_over_l", "eps_r", "mu_r"}
+		row := []string{res.Mode, g(res.FHz), g(res.RadiusM), g(res.DiameterM), g(res.LengthM), g(res.RatioDL), g(res.EpsR), g(res.MuR)}
+		if res.EpsRParallel != 0 {
+			head, row = append(head, "eps_r_parallel"), append(row, g(res.EpsRParallel))
+		}
+		return cmdutil.WriteCSV(w, head, [][]string{row})
 	}
 	return writeTable(w, opts, c, res)
 }
 
 func writeTable(w io.Writer, opts *Options, c cavity.Cavity, res Result) error {
 	name := c.Fill.Label()
-	fill := fmt.Sprintf("fill %s (eps_r %g, mu_r %g)", name, res.EpsR, res.MuR)
+	fill := fmt.Sprintf("fill %s (%s, mu_r %g)", name, c.Fill.EpsText(), res.MuR)
 	if name == "user" {
-		fill = fmt.Sprintf("fill eps_r %g, mu_r %g", res.EpsR, res.MuR)
+		fill = fmt.Sprintf("fill %s, mu_r %g", c.Fill.EpsText(), res.MuR)
 	}
 	by := opts.By.String()
 	if _, err := fmt.Fprintf(w, "%s at %s, %s, %s\nn azimuthal, m radial, p axial\n",

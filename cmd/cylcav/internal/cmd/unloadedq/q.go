@@ -258,11 +258,14 @@ type scRs struct {
 }
 
 type outJSON struct {
-	Mode            string     `json:"mode"`
-	IndexConvention string     `json:"index_convention"`
-	RadiusM         number     `json:"radius_m"`
-	LengthM         number     `json:"length_m"`
-	EpsR            number     `json:"eps_r"`
+	Mode            string `json:"mode"`
+	IndexConvention string `json:"index_convention"`
+	RadiusM         number `json:"radius_m"`
+	LengthM         number `json:"length_m"`
+	EpsR            number `json:"eps_r"`
+	// EpsRParallel is eps_par of a uniaxial fill (eps_r is then
+	// eps_perp); absent for an isotropic fill.
+	EpsRParallel    float64    `json:"eps_r_parallel,omitempty"`
 	MuR             number     `json:"mu_r"`
 	TanDelta        number     `json:"tan_delta"`
 	TanDeltaM       number     `json:"tan_delta_m"`
@@ -320,6 +323,7 @@ func (r *result) json() outJSON {
 		RadiusM:         number(o.Cavity.Radius),
 		LengthM:         number(o.Cavity.Length),
 		EpsR:            number(o.Cavity.Fill.Eps()),
+		EpsRParallel:    o.Cavity.Fill.UniaxialPar(),
 		MuR:             number(o.Cavity.Fill.Mu()),
 		TanDelta:        number(o.Cavity.Fill.TanDelta),
 		TanDeltaM:       number(o.Cavity.Fill.TanDeltaM),
@@ -410,8 +414,8 @@ func (r *result) table(w io.Writer) error {
 	if fill == "user" {
 		fill = "user values"
 	}
-	fmt.Fprintf(w, "Cavity: radius %s, length %s; fill %s (eps_r %g, mu_r %g, tan delta %g",
-		physics.FormatLength(o.Cavity.Radius, 6), physics.FormatLength(o.Cavity.Length, 6), fill, o.Cavity.Fill.Eps(), o.Cavity.Fill.Mu(), o.Cavity.Fill.TanDelta)
+	fmt.Fprintf(w, "Cavity: radius %s, length %s; fill %s (%s, mu_r %g, tan delta %g",
+		physics.FormatLength(o.Cavity.Radius, 6), physics.FormatLength(o.Cavity.Length, 6), fill, o.Cavity.Fill.EpsText(), o.Cavity.Fill.Mu(), o.Cavity.Fill.TanDelta)
 	if o.Cavity.Fill.TanDeltaM > 0 {
 		fmt.Fprintf(w, ", magnetic tan delta %g", o.Cavity.Fill.TanDeltaM)
 	}
