@@ -31,8 +31,10 @@ type Coupling struct {
 // formula holds for either kind of coupling, electric or magnetic; K is the
 // magnitude, since the sign depends on the reference planes chosen for the
 // two resonators. The pair must be of one family: TE0 and TM0 resonances do
-// not couple at n = 0, so a mixed pair is an error, as is a resonance
-// paired with itself.
+// not couple at n = 0, so a mixed pair is an error; so is a pair that is
+// not adjacent in its family's frequency order (Index differing by one),
+// since a resonance between them would belong to the coupled system and
+// the two-resonator formula would not hold.
 //
 // The formula assumes that the pair comes from two equal resonators and
 // that the other resonances are far away compared with the split; which
@@ -42,8 +44,8 @@ func CouplingOf(a, b Resonance) (Coupling, error) {
 	if a.Family != b.Family {
 		return Coupling{}, fmt.Errorf("axisym: coupling: a %v0 and a %v0 resonance do not couple at n = 0", a.Family, b.Family)
 	}
-	if a.Index == b.Index {
-		return Coupling{}, fmt.Errorf("axisym: coupling: a pair needs two different resonances, got %v0 number %d twice", a.Family, a.Index)
+	if d := a.Index - b.Index; d != 1 && d != -1 {
+		return Coupling{}, fmt.Errorf("axisym: coupling: the two resonances of a pair are neighbours in their family, got %v0 numbers %d and %d", a.Family, a.Index, b.Index)
 	}
 	if !(a.Frequency > 0 && b.Frequency > 0) {
 		return Coupling{}, fmt.Errorf("axisym: coupling: frequencies must be positive, got %g Hz and %g Hz", a.Frequency, b.Frequency)

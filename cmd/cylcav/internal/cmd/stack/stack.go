@@ -57,13 +57,17 @@ type Options struct {
 	MapFormat figure.Format
 	MapIndex  int
 	Force     bool
+	// Pair, when not nil (--pair I,J), names two resonances (the # column)
+	// split from two equal coupled resonators; the output adds their
+	// coupling coefficient (axisym.CouplingOf).
+	Pair *[2]int
 }
 
 // NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
 // command's work (tests use it to inspect the parsed options).
 func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var fmax, family, beta string
+	var fmax, family, beta, pair string
 	var checkFormat func() error
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -115,7 +119,15 @@ model's field is infinite.
 
 --field-map FILE writes |E| and |H| of resonance --map (the # column,
 default 1) in the r-z half plane, the body outlined, as PNG, SVG or PDF by
-the file's extension; --force replaces an existing file.`,
+the file's extension; --force replaces an existing file.
+
+--pair I,J names two resonances (the # column) that two equal coupled
+resonators split into, such as the even and odd TE011 resonances of two
+cells joined by an iris: the output adds their coupling coefficient
+k = (fh^2 - fl^2)/(fh^2 + fl^2) and its change when the modes grew by
+half (table and JSON; with CSV it is refused). Which two resonances form
+the pair is for you to say: they are the two that continue from one mode
+of each cell; they must be neighbours in one family.`,
 			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
@@ -125,8 +137,8 @@ the file's extension; --force replaces an existing file.`,
   $ cylcav stack examples/reentrant.yaml --fmax 4GHz --field-map reentrant.svg --force
   ...
 
-  # Two cells joined by an iris: resonances up to 12 GHz
-  $ cylcav stack examples/iris-pair.yaml --fmax 12GHz
+  # Two TE011 cells joined by an iris: the coupling of the TE011 pair
+  $ cylcav stack examples/iris-pair.yaml --fmax 12GHz --family te --pair 1,2
   ...
 
   # A dielectric disc on the end plate of a copper can, TE0 only, with Q0, as CSV
@@ -182,6 +194,16 @@ the file's extension; --force replaces an existing file.`,
 			} else if cmd.Flags().Changed("map") {
 				return cmdutil.Usagef("--map needs --field-map FILE")
 			}
+			if cmd.Flags().Changed("pair") {
+				p, err := parsePair(pair)
+				if err != nil {
+					return cmdutil.FlagError("pair", pair, err)
+				}
+				if opts.Format == cmdutil.CSV {
+					return cmdutil.Usagef("--pair gives one number for the body, shown in table and JSON output; drop it or use --format json")
+				}
+				opts.Pair = &p
+			}
 			if walls.Given() {
 				ws, err := walls.Walls()
 				if err != nil {
@@ -209,6 +231,7 @@ the file's extension; --force replaces an existing file.`,
 	fl.StringVar(&opts.FieldMap, "field-map", "", "write the field map of resonance --map to this file (.png, .svg or .pdf)")
 	fl.IntVar(&opts.MapIndex, "map", 1, "resonance number (the # column) of the field map")
 	fl.BoolVar(&opts.Force, "force", false, "replace the field-map file if it exists")
+	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
@@ -239,6 +262,44 @@ type Row struct {
 	T             *float64 `json:"transit_time_factor,omitempty"`
 	RoverQLinac   *float64 `json:"r_over_q_linac_ohm,omitempty"`
 	RoverQCircuit *float64 `json:"r_over_q_circuit_ohm,omitempty"`
+}
+
+// PairRow is the coupling coefficient of the pair named by --pair.
+type PairRow struct {
+	Pair    [2]int   `json:"pair"` // the # column of the two resonances
+	Family  string   `json:"family"`
+	K       float64  `json:"k"`
+	KChange *float64 `json:"k_change"` // null: no partner in the smaller model
+}
+
+// parsePair reads "I,J": two different resonance numbers >= 1.
+func parsePair(s string) ([2]int, error) {
+	a, b, ok := strings.Cut(s, ",")
+	i, err1 := strconv.Atoi(strings.TrimSpace(a))
+	j, err2 := strconv.Atoi(strings.TrimSpace(b))
+	if !ok || err1 != nil || err2 != nil || i < 1 || j < 1 || i == j {
+		return [2]int{}, fmt.Errorf("must be two different resonance numbers (the # column, >= 1) as I,J, e.g. 1,2")
+	}
+	return [2]int{i, j}, nil
+}
+
+// pairRow computes the coupling coefficient of the pair opts.Pair.
+func pairRow(opts *Options, res []axisym.Resonance) (*PairRow, error) {
+	p := *opts.Pair
+	flag := fmt.Sprintf("%d,%d", p[0], p[1])
+	if p[0] > len(res) || p[1] > len(res) {
+		return nil, cmdutil.FlagError("pair", flag, fmt.Errorf("there are %d resonances below --fmax", len(res)))
+	}
+	a, b := res[p[0]-1], res[p[1]-1]
+	c, err := axisym.CouplingOf(a, b)
+	if err != nil {
+		return nil, cmdutil.FlagError("pair", flag, err)
+	}
+	row := &PairRow{Pair: p, Family: a.Family.String() + "0", K: c.K}
+	if !math.IsInf(c.Change, 0) {
+		row.KChange = &c.Change
+	}
+	return row, nil
 }
 
 func runStack(opts *Options) error {
@@ -277,6 +338,12 @@ func runStack(opts *Options) error {
 		}
 		rows[i] = row
 	}
+	var pr *PairRow
+	if opts.Pair != nil {
+		if pr, err = pairRow(opts, res); err != nil {
+			return err
+		}
+	}
 	if opts.FieldMap != "" {
 		if err := writeMap(opts, res); err != nil {
 			return err
@@ -285,16 +352,17 @@ func runStack(opts *Options) error {
 	switch opts.Format {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, struct {
-			File       string  `json:"file"`
-			Title      string  `json:"title"`
-			Order      int     `json:"n"`
-			Sections   int     `json:"sections"`
-			LengthM    float64 `json:"length_m"`
-			MaxRadiusM float64 `json:"max_radius_m"`
-			FMaxHz     float64 `json:"fmax_hz"`
-			Resonances []Row   `json:"resonances"`
+			File       string   `json:"file"`
+			Title      string   `json:"title"`
+			Order      int      `json:"n"`
+			Sections   int      `json:"sections"`
+			LengthM    float64  `json:"length_m"`
+			MaxRadiusM float64  `json:"max_radius_m"`
+			FMaxHz     float64  `json:"fmax_hz"`
+			Resonances []Row    `json:"resonances"`
+			Coupling   *PairRow `json:"coupling,omitempty"`
 		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
-			opts.Geometry.Body.MaxRadius(), opts.FMax, rows})
+			opts.Geometry.Body.MaxRadius(), opts.FMax, rows, pr})
 	case cmdutil.CSV:
 		var out [][]string
 		for _, r := range rows {
@@ -321,10 +389,10 @@ func runStack(opts *Options) error {
 		}
 		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
-	return writeTable(opts.IO.Out, opts, rows)
+	return writeTable(opts.IO.Out, opts, rows, pr)
 }
 
-func writeTable(w io.Writer, opts *Options, rows []Row) error {
+func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	b := opts.Geometry.Body
 	title := opts.Geometry.Title
 	if title == "" {
@@ -389,6 +457,14 @@ func writeTable(w io.Writer, opts *Options, rows []Row) error {
 	if err := t.Flush(); err != nil {
 		return err
 	}
+	if pr != nil {
+		change := "unknown"
+		if pr.KChange != nil {
+			change = strconv.FormatFloat(*pr.KChange, 'g', 2, 64)
+		}
+		fmt.Fprintf(w, "coupling coefficient of #%d and #%d (%s): k = %s, change %s; k = (fh^2 - fl^2)/(fh^2 + fl^2) of the pair\n",
+			pr.Pair[0], pr.Pair[1], pr.Family, strconv.FormatFloat(pr.K, 'g', kDigits(pr), 64), change)
+	}
 	if opts.Beta > 0 {
 		fmt.Fprintf(w, "T, R/Q: TM0 only, particle speed %g c on the axis; R/Q linac = V^2/(omega W), circuit = V^2/(2 omega W)\n", opts.Beta)
 		fmt.Fprintln(w, "caution: cells driven at high RF power carry high voltages and heat their walls; these are design")
@@ -451,6 +527,18 @@ func digits(r Row) int {
 		return 10
 	}
 	return min(max(int(math.Ceil(math.Log10(r.FHz / *r.ChangeHz)))+1, 4), 10)
+}
+
+// kDigits returns the significant digits of k worth printing: one beyond
+// those its change supports, 3 to 8.
+func kDigits(p *PairRow) int {
+	if p.KChange == nil || p.K == 0 {
+		return 3
+	}
+	if *p.KChange <= 0 {
+		return 8
+	}
+	return min(max(int(math.Ceil(math.Log10(p.K / *p.KChange)))+1, 3), 8)
 }
 
 // qText prints an optional Q for the table: "-" when missing, "inf" for no
