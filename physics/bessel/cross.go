@@ -231,15 +231,7 @@ func (cr *crossRoot) guess(m int, prev []float64) float64 {
 	h := len(prev)
 	switch {
 	case h >= 3:
-		z := prev[h-min(h, guessHistory):]
-		switch len(z) {
-		case 3:
-			return 3*z[2] - 3*z[1] + z[0]
-		case 4:
-			return 4*z[3] - 6*z[2] + 4*z[1] - z[0]
-		default:
-			return 5*z[4] - 10*z[3] + 10*z[2] - 5*z[1] + z[0]
-		}
+		return extrapolate(prev[h-min(h, guessHistory):])
 	case h >= 1:
 		// The phase difference grows by π to the next root: a
 		// second-order step with the derivatives at the last root.

@@ -21,11 +21,15 @@ func (mr *march) guess(uniform bool) float64 {
 	if uniform || m <= formulaZeros {
 		return mr.asymptotic(m)
 	}
-	// Polynomial extrapolation in m through the last d+1 zeros of the
-	// kind: z_m ~ sum_i (-1)^i binom(d+1, i+1) z_{m-1-i} (Newton's
-	// backward-difference formula with the (d+1)-th difference set to 0).
 	// The zeros are smooth in m, and the degree grows as the history does.
-	z := found[len(found)-extrapDepth(m):]
+	return extrapolate(found[len(found)-extrapDepth(m):])
+}
+
+// extrapolate returns the next member of the smooth sequence z (3, 4 or 5
+// terms) by polynomial extrapolation through all of them:
+// z_next ~ sum_i (-1)^i binom(d+1, i+1) z_{last-i}, Newton's
+// backward-difference formula with the (d+1)-th difference set to 0.
+func extrapolate(z []float64) float64 {
 	switch len(z) {
 	case 3:
 		return 3*z[2] - 3*z[1] + z[0]

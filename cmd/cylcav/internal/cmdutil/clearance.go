@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 
+	"github.com/spf13/pflag"
+
 	"cylcav/cavity"
 	"cylcav/physics"
 )
@@ -65,4 +67,51 @@ func signed(s string, v float64) string {
 		return "-" + s
 	}
 	return "+" + s
+}
+
+// Window is a flag value holding the window of a clearance listing: a
+// percentage of the wanted frequency (10%, or the fraction 0.1) or a
+// frequency (anything ending in Hz, 500MHz), stored in a
+// cavity.ClearanceOptions. A frequency's upper limit depends on the wanted
+// frequency and is checked by the command.
+type Window struct {
+	o    *cavity.ClearanceOptions
+	text string
+}
+
+func (w *Window) String() string { return w.text }
+func (w *Window) Type() string   { return "percent|frequency" }
+
+// Set parses s as a frequency when it ends in Hz, else as a percentage.
+func (w *Window) Set(s string) error {
+	const want = "want a percentage such as 10% or a frequency such as 500MHz"
+	if strings.HasSuffix(strings.ToLower(strings.TrimSpace(s)), "hz") {
+		v, err := FrequencyOf(s)
+		if err != nil {
+			return ValueErrorf("%s: %v", want, err)
+		}
+		if !(v >= 0) {
+			return ValueErrorf("must be between 0 Hz and %g times the wanted frequency", cavity.MaxWindow)
+		}
+		w.o.Window, w.o.WindowHz, w.text = 0, v, s
+		return nil
+	}
+	v, err := physics.ParseFraction(s)
+	if err != nil {
+		return ValueErrorf("%s: %v", want, err)
+	}
+	if !(v >= 0 && v <= cavity.MaxWindow) {
+		return ValueErrorf("must be between 0%% and %g%%", 100*cavity.MaxWindow)
+	}
+	w.o.Window, w.o.WindowHz, w.text = v, 0, s
+	return nil
+}
+
+// WindowVar defines a clearance window flag stored in o, with the default
+// def (as given).
+func WindowVar(fs *pflag.FlagSet, o *cavity.ClearanceOptions, name, def, usage string) *Window {
+	w := &Window{o: o}
+	fs.Var(w, name, usage)
+	SetDefault(fs, name, def)
+	return w
 }

@@ -82,7 +82,11 @@ func FlagValueError(err error) error {
 		return err
 	}
 	if ve, ok := asValueError(err); ok {
-		return fmt.Errorf("--%s %s: %s", ive.GetFlag().Name, quoteValue(ive.GetValue()), ve.msg)
+		value := ive.GetValue()
+		if ve.hasItem {
+			value = ve.item
+		}
+		return fmt.Errorf("--%s %s: %s", ive.GetFlag().Name, quoteValue(value), ve.msg)
 	}
 	var what string
 	switch t := ive.GetFlag().Value.Type(); {

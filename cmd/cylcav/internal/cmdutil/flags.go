@@ -23,8 +23,13 @@ import (
 //     given alone (CheckNeeds, run by the root before each command).
 
 // valueError is the error of a flag value's Set; FlagValueError prints it
-// as `--flag "value": message`.
-type valueError struct{ msg string }
+// as `--flag "value": message`, quoting item instead of the whole value
+// when set (an item of a list).
+type valueError struct {
+	msg     string
+	item    string
+	hasItem bool
+}
 
 func (e *valueError) Error() string { return e.msg }
 
@@ -32,6 +37,12 @@ func (e *valueError) Error() string { return e.msg }
 // without the flag and value, which FlagValueError adds.
 func ValueErrorf(format string, a ...any) error {
 	return &valueError{msg: fmt.Sprintf(format, a...)}
+}
+
+// ItemErrorf is ValueErrorf for one item of a list flag's value: the error
+// line quotes the item, `--zeros "9.99GHz": ...`, not the whole list.
+func ItemErrorf(item, format string, a ...any) error {
+	return &valueError{msg: fmt.Sprintf(format, a...), item: item, hasItem: true}
 }
 
 // strictValue wraps a flag's value with the rules above.

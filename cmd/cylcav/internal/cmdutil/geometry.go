@@ -99,6 +99,9 @@ func AddGeometryFlags(cmd *cobra.Command, g Geometry) *GeometryFlags {
 	return gf
 }
 
+// FlagSet returns the flags the geometry flags belong to.
+func (gf *GeometryFlags) FlagSet() *pflag.FlagSet { return gf.flags }
+
 // Changed reports whether the flag name was given on the command line (an
 // empty value counts: it is rejected when read, never taken as absent).
 func (gf *GeometryFlags) Changed(name string) bool { return gf.flags.Changed(name) }

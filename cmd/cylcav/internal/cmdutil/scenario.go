@@ -3,8 +3,6 @@ package cmdutil
 import (
 	"errors"
 	"fmt"
-	"math"
-	"strconv"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
@@ -22,17 +20,30 @@ type ScenarioFlags struct {
 	acc   *accelFlags
 	names map[string]bool
 
-	wall, objective                          string
-	temp, alphaSide, alphaAxial, tol, tolLen string
-	tolDist, operating, machining, demo      string
+	wall                                     physics.Conductor
+	objective                                cavity.Objective
+	tolDist                                  cavity.Distribution
+	demo                                     string
 	mode                                     cavity.Mode
 	freq, maxD, maxL, tuning, minClear, minQ float64
-	ratioLo, ratioHi                         float64
+	ratioLo, ratioHi, tempLo, tempHi         float64
+	operating, machining                     float64
+	alphaSide, alphaAxial, tol, tolLen       float64
 	maxDText, tuningText                     func() string
 	samples                                  int
 	seed                                     uint64
 	countDeg                                 bool
 }
+
+// Limits of the scenario's temperatures and expansion coefficients.
+const (
+	minScenarioT = 1    // K
+	maxScenarioT = 3000 // K
+	maxAlpha     = 1e-3 // 1/K
+)
+
+// showKelvin prints a temperature limit in kelvin ("3000 K").
+func showKelvin(v float64) string { return fmt.Sprintf("%g K", v) }
 
 // AddScenarioFlags defines the design-request flags on cmd.
 func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
@@ -45,24 +56,29 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	sf.geo = AddGeometryFlags(cmd, Geometry{
 		Fill: "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4,tceps=-350ppm (default vacuum)",
 	})
-	f.StringVar(&sf.wall, "wall", "", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
+	ConductorVar(f, &sf.wall, "wall", "wall metal for Q0: a library name (copper, silver, aluminium, ...) or sigma=5.8e7,cte=17e-6")
 	NumberRangeVar(f, &sf.ratioLo, &sf.ratioHi, "ratio-range", "allowed D/L range LO:HI", cavity.MinDesignRatio, cavity.MaxDesignRatio)
 	SetDefault(f, "ratio-range", "0.5:3")
-	f.StringVar(&sf.objective, "objective", "clearance", "what to maximise: clearance|q")
+	EnumVar(f, &sf.objective, "objective", "clearance", "what to maximise: clearance|q", "objective",
+		Choice[cavity.Objective]{Word: "clearance", Value: cavity.MaxClearance},
+		Choice[cavity.Objective]{Word: "q", Value: cavity.MaxQ})
 	FractionVar(f, &sf.minClear, "min-clearance", "least clearance, e.g. 3% (required with --objective q)", 0, 1)
 	NumberVar(f, &sf.minQ, "min-q", "least unloaded Q0 (needs --wall)", 1, 1e12)
 	sf.maxDText = LengthVar(f, &sf.maxD, "max-diameter", "largest allowed inside diameter", cavity.MinSize, cavity.MaxSize).Text
 	LengthVar(f, &sf.maxL, "max-length", "largest allowed inside length (at the longest tuning position)", cavity.MinSize, cavity.MaxSize)
 	sf.tuningText = FractionVar(f, &sf.tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
-	f.StringVar(&sf.temp, "temp", "", "operating temperature range LO:HI, e.g. -20C:60C or 2K:300K")
-	f.StringVar(&sf.operating, "operating-temp", "", "set-point where the design frequency holds and the walls' Q0 is taken (default: middle of --temp, else 20C)")
-	f.StringVar(&sf.machining, "machining-temp", "", "temperature at which the machining dimensions are given (default 20C)")
-	f.StringVar(&sf.alphaSide, "alpha-side", "", "linear expansion coefficient of the side wall, -50 C..200 C only (default: the wall metal's data), e.g. 23ppm")
-	f.StringVar(&sf.alphaAxial, "alpha-axial", "", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm")
-	f.StringVar(&sf.tol, "tolerance", "", "machining tolerance +-t of diameter and length, e.g. 0.02mm")
-	f.StringVar(&sf.tolLen, "tolerance-length", "", "machining tolerance of the length if different from --tolerance")
-	f.StringVar(&sf.tolDist, "tolerance-dist", "normal", "distribution of machining errors: normal (tolerance = 3 sigma) | uniform")
-	f.IntVar(&sf.samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis")
+	temp := TemperatureRangeVar(f, &sf.tempLo, &sf.tempHi, "temp", "operating temperature range LO:HI, e.g. -20C:60C or 2K:300K", minScenarioT, maxScenarioT)
+	temp.q.show = showKelvin
+	TemperatureVar(f, &sf.operating, "operating-temp", "set-point where the design frequency holds and the walls' Q0 is taken (default: middle of --temp, else 20C)", minScenarioT, maxScenarioT).show = showKelvin
+	TemperatureVar(f, &sf.machining, "machining-temp", "temperature at which the machining dimensions are given (default 20C)", minScenarioT, maxScenarioT).show = showKelvin
+	CoefficientVar(f, &sf.alphaSide, "alpha-side", "linear expansion coefficient of the side wall, -50 C..200 C only (default: the wall metal's data), e.g. 23ppm", maxAlpha)
+	CoefficientVar(f, &sf.alphaAxial, "alpha-axial", "expansion coefficient of what sets the length (default: --alpha-side), e.g. 1.3ppm", maxAlpha)
+	LengthVar(f, &sf.tol, "tolerance", "machining tolerance +-t of diameter and length, e.g. 0.02mm", 0, 1)
+	LengthVar(f, &sf.tolLen, "tolerance-length", "machining tolerance of the length if different from --tolerance", 0, 1)
+	EnumVar(f, &sf.tolDist, "tolerance-dist", "normal", "distribution of machining errors: normal (tolerance = 3 sigma) | uniform", "distribution",
+		Choice[cavity.Distribution]{Word: "normal", Value: cavity.Normal},
+		Choice[cavity.Distribution]{Word: "uniform", Value: cavity.Uniform})
+	IntVar(f, &sf.samples, "samples", 200000, "Monte Carlo samples for the tolerance analysis", 1, cavity.MaxSamples)
 	f.Uint64Var(&sf.seed, "seed", 1, "Monte Carlo seed (same seed, same result on any number of cores)")
 	f.BoolVar(&sf.countDeg, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
 	sf.acc = addAccelFlags(cmd)
@@ -117,21 +133,11 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		return s, err
 	}
 	if set("wall") {
-		c, err := physics.ParseConductor(sf.wall)
-		if err != nil {
-			return s, FlagError("wall", sf.wall, err)
-		}
+		c := sf.wall
 		s.Wall = &c
 	}
 	sp.RatioMin, sp.RatioMax = sf.ratioLo, sf.ratioHi
-	switch sf.objective {
-	case "clearance":
-		sp.Objective = cavity.MaxClearance
-	case "q":
-		sp.Objective = cavity.MaxQ
-	default:
-		return s, FlagError("objective", sf.objective, fmt.Errorf("unknown objective; use clearance|q"))
-	}
+	sp.Objective = sf.objective
 	sp.MinClearance = sf.minClear
 	if sp.Objective == cavity.MaxQ {
 		if s.Wall == nil {
@@ -162,53 +168,28 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 		s.Side, s.Axial = *s.Wall, *s.Wall
 	}
 	if set("alpha-side") {
-		a, err := coefficient("alpha-side", sf.alphaSide)
-		if err != nil {
-			return s, err
-		}
-		s.Side = physics.Conductor{Name: "user (--alpha-side)", Expansion: a, Source: "user input"}
+		s.Side = physics.Conductor{Name: "user (--alpha-side)", Expansion: sf.alphaSide, Source: "user input"}
 		s.Axial, sideFlag, axialFlag = s.Side, "alpha-side", "alpha-side"
 	}
 	if set("alpha-axial") {
-		a, err := coefficient("alpha-axial", sf.alphaAxial)
-		if err != nil {
-			return s, err
-		}
-		s.Axial = physics.Conductor{Name: "user (--alpha-axial)", Expansion: a, Source: "user input"}
+		s.Axial = physics.Conductor{Name: "user (--alpha-axial)", Expansion: sf.alphaAxial, Source: "user input"}
 		axialFlag = "alpha-axial"
 	}
 	if set("temp") {
-		tlo, thi, err := physics.ParseRange(sf.temp, physics.ParseTemperature)
-		if err != nil {
-			return s, FlagError("temp", sf.temp, err)
-		}
-		if !(tlo >= 1 && thi <= 3000) {
-			return s, FlagError("temp", sf.temp, fmt.Errorf("both ends must be between 1 K and 3000 K"))
-		}
-		th.TMin, th.TMax = tlo, thi
+		th.TMin, th.TMax = sf.tempLo, sf.tempHi
 		s.TempGiven = true
 	}
-	for _, t := range []struct {
-		flag, value string
-		dst         *float64
-	}{{"operating-temp", sf.operating, &s.TOperate}, {"machining-temp", sf.machining, &s.TMachine}} {
-		if !set(t.flag) {
-			continue
-		}
-		v, err := physics.ParseTemperature(t.value)
-		if err != nil {
-			return s, FlagError(t.flag, t.value, err)
-		}
-		if !(v >= 1 && v <= 3000) {
-			return s, FlagError(t.flag, t.value, fmt.Errorf("must be between 1 K and 3000 K"))
-		}
-		*t.dst = v
+	if set("operating-temp") {
+		s.TOperate = sf.operating
+	}
+	if set("machining-temp") {
+		s.TMachine = sf.machining
 	}
 	if err := sf.acc.operating(&s, set); err != nil {
 		return s, err
 	}
 	if s.TempGiven && s.TOperate != 0 && !physics.TemperatureIn(s.TOperate, th.TMin, th.TMax) {
-		return s, FlagError("operating-temp", sf.operating, fmt.Errorf("must lie within --temp %s", sf.temp))
+		return s, FlagError("operating-temp", Text(sf.flags, "operating-temp"), fmt.Errorf("must lie within --temp %s", Text(sf.flags, "temp")))
 	}
 	if err := s.SetThermal(sideFlag, axialFlag); err != nil {
 		return s, Usagef("%v", err)
@@ -226,42 +207,15 @@ func (sf *ScenarioFlags) parse() (design.Scenario, error) {
 	if set("tolerance") || set("tolerance-length") {
 		t := &s.Settings.Tolerance
 		if set("tolerance") {
-			if t.Diameter, err = Length("tolerance", sf.tol, 0, 1); err != nil {
-				return s, err
-			}
-			t.Length = t.Diameter
+			t.Diameter, t.Length = sf.tol, sf.tol
 		}
 		if set("tolerance-length") {
-			if t.Length, err = Length("tolerance-length", sf.tolLen, 0, 1); err != nil {
-				return s, err
-			}
+			t.Length = sf.tolLen
 		}
-		switch sf.tolDist {
-		case "normal":
-			t.Distribution = cavity.Normal
-		case "uniform":
-			t.Distribution = cavity.Uniform
-		default:
-			return s, FlagError("tolerance-dist", sf.tolDist, fmt.Errorf("unknown distribution; use normal|uniform"))
-		}
-		if sf.samples < 1 || sf.samples > cavity.MaxSamples {
-			return s, FlagError("samples", strconv.Itoa(sf.samples), fmt.Errorf("must be between 1 and %d", cavity.MaxSamples))
-		}
-		t.Samples, t.Seed = sf.samples, sf.seed
+		t.Distribution, t.Samples, t.Seed = sf.tolDist, sf.samples, sf.seed
 	}
 	sp.CountDegenerate = sf.countDeg
 	return s, nil
-}
-
-func coefficient(flag, value string) (float64, error) {
-	v, err := physics.ParseCoefficient(value)
-	if err != nil {
-		return 0, FlagError(flag, value, err)
-	}
-	if !(math.Abs(v) <= 1e-3) {
-		return 0, FlagError(flag, value, fmt.Errorf("must be within +-1000 ppm/K"))
-	}
-	return v, nil
 }
 
 // progressSamples is the least number of Monte Carlo samples for which

@@ -28,6 +28,8 @@ type Quantity struct {
 	parse  func(string) (float64, error)
 	lo, hi float64
 	show   func(float64) string // a range end in user units
+	// symmetric ranges (lo = -hi) are stated as "within +-hi".
+	symmetric bool
 }
 
 // String returns the value as given ("" when not given).
@@ -43,12 +45,18 @@ func (q *Quantity) Text() string { return q.text }
 func (q *Quantity) Set(s string) error {
 	v, err := q.parse(s)
 	if err != nil {
-		if q.kind == "number" { // as Number: the unit cannot be the slip
+		switch q.kind { // the unit cannot be the slip: state the range
+		case "number":
 			return ValueErrorf("%v; want a number between %s and %s", err, q.show(q.lo), q.show(q.hi))
+		case "dB":
+			return ValueErrorf("%v; want a level between %s and %s", err, q.show(q.lo), q.show(q.hi))
 		}
 		return ValueErrorf("%v", err)
 	}
 	if math.IsNaN(v) || v < q.lo || v > q.hi {
+		if q.symmetric {
+			return ValueErrorf("must be within +-%s", q.show(q.hi))
+		}
 		return ValueErrorf("must be between %s and %s", q.show(q.lo), q.show(q.hi))
 	}
 	*q.p, q.text = v, s
@@ -220,3 +228,7 @@ func SetDefault(fs *pflag.FlagSet, name, value string) {
 	}
 	f.DefValue = value
 }
+
+// Text returns the value of the flag name of fs as given on the command
+// line (its default when not given), for messages that quote it.
+func Text(fs *pflag.FlagSet, name string) string { return fs.Lookup(name).Value.String() }

@@ -101,7 +101,8 @@ func (w *WallFlags) Walls() (qfactor.WallSet, error) {
 }
 
 // common reads the settings shared by every wall part, with the rules
-// between flags (a flag that needs another).
+// between flags that Needs does not state (a flag that needs another is
+// refused alone by CheckNeeds before the command runs).
 func (w *WallFlags) common() (qfactor.Surface, error) {
 	var s qfactor.Surface
 	if w.set("temperature") {
@@ -127,14 +128,9 @@ func (w *WallFlags) common() (qfactor.Surface, error) {
 	if s.RoughnessModel, err = qfactor.ParseRoughnessModel(w.roughModel); err != nil {
 		return s, FlagError("roughness-model", w.roughModel, err)
 	}
-	if w.set("roughness-model") && !w.set("roughness") {
-		return s, Usagef("--roughness-model needs --roughness, e.g. --roughness 0.4um")
-	}
 	switch {
 	case w.set("plating") && !w.set("plating-thickness"):
 		return s, Usagef("--plating needs --plating-thickness, e.g. --plating-thickness 5um")
-	case !w.set("plating") && w.set("plating-thickness"):
-		return s, Usagef("--plating-thickness needs --plating, e.g. --plating silver")
 	case w.set("plating"):
 		pm, err := physics.ParseConductor(w.plating)
 		if err != nil {
@@ -159,8 +155,6 @@ func (w *WallFlags) common() (qfactor.Surface, error) {
 			bcs.Residual = r
 		}
 		s.Superconductor = &bcs
-	} else if w.set("residual") {
-		return s, Usagef("--residual needs --superconducting")
 	}
 	return s, nil
 }

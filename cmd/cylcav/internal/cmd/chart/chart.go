@@ -8,7 +8,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -46,13 +45,13 @@ type Options struct {
 func NewCmdChart(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var (
-		mode, freq, ratio, ratioRange string
-		maxFD, minFD, units, axes     string
-		tol, tolLen                   float64
-		tuningText                    func() string
-		width, height                 string
-		dpi                           int
-		geo                           *cmdutil.GeometryFlags
+		units, axes               string
+		freq, ratio, maxFD, minFD float64
+		width, height             float64
+		tol, tolLen               float64
+		tuningText                func() string
+		ratioRange                *cmdutil.Range
+		geo                       *cmdutil.GeometryFlags
 	)
 	cmd := &cobra.Command{
 		Use:   "chart (--diameter D --length L | --mode MODE --freq F --ratio R) -o FILE [flags]",
@@ -99,29 +98,19 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			fl := cmd.Flags()
 			s := &opts.Spec
 			var err error
-			if fl.Changed("mode") {
-				if s.Wanted, err = cavity.ParseMode(mode); err != nil {
-					return cmdutil.FlagError("mode", mode, err)
-				}
-			}
 			var fillV physics.Medium
 			if fillV, err = geo.Fill(); err != nil {
 				return err
 			}
-			if err := parseCavity(geo, opts, fillV, mode, freq, ratio); err != nil {
+			if err := parseCavity(geo, opts, fillV, freq, ratio); err != nil {
 				return err
 			}
 			if !fl.Changed("mode") && (fl.Changed("tuning") || fl.Changed("tolerance") || fl.Changed("tolerance-length") || fl.Changed("min-clearance")) {
 				return cmdutil.Usagef("--tuning, --tolerance and --min-clearance need --mode (the wanted mode) and a cavity")
 			}
-			lo, hi, err := physics.ParseRange(ratioRange, plain)
-			if err != nil {
-				return cmdutil.FlagError("ratio-range", ratioRange, err)
+			if s.RatioMin == s.RatioMax {
+				return cmdutil.FlagError("ratio-range", ratioRange.Text(), fmt.Errorf("want LO < HI, both between %g and %g", modechart.MinRatio, modechart.MaxRatio))
 			}
-			if !(lo >= modechart.MinRatio && hi <= modechart.MaxRatio && lo < hi) {
-				return cmdutil.FlagError("ratio-range", ratioRange, fmt.Errorf("want LO < HI, both between %g and %g", modechart.MinRatio, modechart.MaxRatio))
-			}
-			s.RatioMin, s.RatioMax = lo, hi
 			if s.Units, err = modechart.ParseUnits(units); err != nil {
 				return cmdutil.FlagError("units", units, errors.New("unknown units; use ghz-cm, ghz-mm or mhz-in"))
 			}
@@ -130,20 +119,12 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			}
 			u := s.Units.Scale()
 			if fl.Changed("max-fd") {
-				v, err := cmdutil.Number("max-fd", maxFD, 1e-9, 1e12)
-				if err != nil {
-					return err
-				}
-				s.MaxFD = v * u
-				opts.MaxFDText = maxFD
+				s.MaxFD = maxFD * u
+				opts.MaxFDText = cmdutil.Text(fl, "max-fd")
 			}
 			if fl.Changed("min-fd") {
-				v, err := cmdutil.Number("min-fd", minFD, 0, 1e12)
-				if err != nil {
-					return err
-				}
-				s.MinFD = v * u
-				opts.MinFDText = minFD
+				s.MinFD = minFD * u
+				opts.MinFDText = cmdutil.Text(fl, "min-fd")
 			}
 			if err := cmdutil.CheckTunable("tuning", tuningText(), s.Wanted, s.Tuning); err != nil {
 				return err
@@ -163,21 +144,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "output", Path: opts.Output}); err != nil {
 				return err
 			}
-			if dpi < figure.MinDPI || dpi > figure.MaxDPI {
-				return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
-			}
-			opts.Page.DPI = dpi
-			// Page limits in metres (1 in = 0.0254 m exactly).
-			pmin, pmax := inches(figure.MinPage), inches(figure.MaxPage)
-			w, err := cmdutil.Length("width", width, pmin, pmax)
-			if err != nil {
-				return err
-			}
-			h, err := cmdutil.Length("height", height, pmin, pmax)
-			if err != nil {
-				return err
-			}
-			opts.Page.Width, opts.Page.Height = vg.Length(w/0.0254)*vg.Inch, vg.Length(h/0.0254)*vg.Inch
+			opts.Page.Width, opts.Page.Height = vg.Length(width/0.0254)*vg.Inch, vg.Length(height/0.0254)*vg.Inch
 			if runF != nil {
 				return runF(opts)
 			}
@@ -185,17 +152,18 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		},
 	}
 	f := cmd.Flags()
-	f.StringVar(&mode, "mode", "", "wanted mode, e.g. TE011 (emphasised, with the design point)")
+	cmdutil.ModeVar(f, &opts.Spec.Wanted, "mode", "wanted mode, e.g. TE011 (emphasised, with the design point)")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter: "inside diameter D of the cavity, e.g. 39.6mm",
 		Length:   "inside length L of the cavity, e.g. 39.6mm",
 		Fill:     "fill: material name (air, ptfe, ...) or eps=E[,mu=M] (default vacuum)",
 	})
-	f.StringVar(&freq, "freq", "", "size the cavity first: wanted frequency, with --ratio, --diameter or --length")
-	f.StringVar(&ratio, "ratio", "", "with --freq: the ratio D/L of the sized cavity")
-	f.StringVar(&ratioRange, "ratio-range", "0.5:3", "D/L range of the chart, LO:HI")
-	f.StringVar(&maxFD, "max-fd", "", "top of the chart as f·D in --units (default 1.5 x the design's f·D)")
-	f.StringVar(&minFD, "min-fd", "", "bottom of the chart as f·D in --units (default 0)")
+	cmdutil.FrequencyVar(f, &freq, "freq", "size the cavity first: wanted frequency, with --ratio, --diameter or --length", cmdutil.MinFrequency, cmdutil.MaxFrequency)
+	cmdutil.NumberVar(f, &ratio, "ratio", "with --freq: the ratio D/L of the sized cavity", modechart.MinRatio, modechart.MaxRatio)
+	ratioRange = cmdutil.NumberRangeVar(f, &opts.Spec.RatioMin, &opts.Spec.RatioMax, "ratio-range", "D/L range of the chart, LO:HI", modechart.MinRatio, modechart.MaxRatio)
+	cmdutil.SetDefault(f, "ratio-range", "0.5:3")
+	cmdutil.NumberVar(f, &maxFD, "max-fd", "top of the chart as f·D in --units (default 1.5 x the design's f·D)", 1e-9, 1e12)
+	cmdutil.NumberVar(f, &minFD, "min-fd", "bottom of the chart as f·D in --units (default 0)", 0, 1e12)
 	f.StringVar(&units, "units", "ghz-cm", "unit of f·D: ghz-cm|ghz-mm|mhz-in")
 	f.StringVar(&axes, "axes", "squared", "axes: squared ((f·D)² vs (D/L)², straight lines) | linear (f·D vs D/L)")
 	tuningText = cmdutil.FractionVar(f, &opts.Spec.Tuning, "tuning", "tuning range by one end plate, e.g. 2% for +-2 %", 0, cavity.MaxTuning).Text
@@ -204,9 +172,13 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.FractionVar(f, &opts.Spec.Clearance, "min-clearance", "required clearance, e.g. 3%: modes this close to the wanted one on the reachable set are emphasised", 0, 0.99)
 	f.StringVarP(&opts.Output, "output", "o", "", "image file to write: .png, .svg or .pdf")
 	f.BoolVar(&opts.Force, "force", false, "replace the output file if it exists")
-	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
-	f.StringVar(&width, "width", "8in", "page width")
-	f.StringVar(&height, "height", "6in", "page height")
+	cmdutil.IntVar(f, &opts.Page.DPI, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch", figure.MinDPI, figure.MaxDPI)
+	// Page limits in metres (1 in = 0.0254 m exactly).
+	pmin, pmax := inches(figure.MinPage), inches(figure.MaxPage)
+	cmdutil.LengthVar(f, &width, "width", "page width", pmin, pmax)
+	cmdutil.SetDefault(f, "width", "8in")
+	cmdutil.LengthVar(f, &height, "height", "page height", pmin, pmax)
+	cmdutil.SetDefault(f, "height", "6in")
 	_ = cmd.RegisterFlagCompletionFunc("units", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
 		return []string{"ghz-cm", "ghz-mm", "mhz-in"}, cobra.ShellCompDirectiveNoFileComp
 	})
@@ -218,16 +190,13 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 
 // parseCavity fills opts.Spec.Cavity from --diameter and --length, or by
 // sizing --mode at --freq with one of --ratio, --diameter, --length.
-func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium, mode, freq, ratio string) error {
+func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium, f, ratio float64) error {
 	s := &opts.Spec
 	changed := geo.Changed
+	fs := geo.FlagSet()
 	if changed("freq") {
 		if !changed("mode") {
 			return cmdutil.Usagef("--freq sizes the cavity for the wanted mode: give --mode too (e.g. --mode TE011)")
-		}
-		f, err := cmdutil.Frequency("freq", freq, cmdutil.MinFrequency, cmdutil.MaxFrequency)
-		if err != nil {
-			return err
 		}
 		var given []string
 		for _, n := range []string{"ratio", "diameter", "length"} {
@@ -242,11 +211,7 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium,
 		var flag, val string
 		switch given[0] {
 		case "ratio":
-			r, err := cmdutil.Number("ratio", ratio, modechart.MinRatio, modechart.MaxRatio)
-			if err != nil {
-				return err
-			}
-			by, flag, val = cavity.ByRatio(r), "ratio", ratio
+			by, flag, val = cavity.ByRatio(ratio), "ratio", cmdutil.Text(fs, "ratio")
 		case "diameter":
 			d, err := geo.Diameter()
 			if err != nil {
@@ -262,7 +227,7 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium,
 		}
 		c, err := cavity.Size(s.Wanted, f, fill, by)
 		if errors.Is(err, cavity.ErrInfeasible) {
-			return cmdutil.Usagef("--freq %q with --%s %q: %w", freq, flag, val, err)
+			return cmdutil.Usagef("--freq %q with --%s %q: %w", cmdutil.Text(fs, "freq"), flag, val, err)
 		}
 		if err != nil {
 			return err
@@ -295,14 +260,6 @@ func parseCavity(geo *cmdutil.GeometryFlags, opts *Options, fill physics.Medium,
 
 // inches converts a page length to metres.
 func inches(l vg.Length) float64 { return float64(l/vg.Inch) * 0.0254 }
-
-func plain(s string) (float64, error) {
-	v, err := physics.ParseNumber(s)
-	if err != nil {
-		return 0, fmt.Errorf("%q is not a number", s)
-	}
-	return v, nil
-}
 
 func runChart(opts *Options) error {
 	ch, err := modechart.New(opts.Spec)

@@ -4,7 +4,6 @@ package clearance
 
 import (
 	"fmt"
-	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -29,7 +28,7 @@ type Options struct {
 // the run step (for tests of flag parsing).
 func NewCmdClearance(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var window string
+	var window *cmdutil.Window
 	var checkFormat func() error
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -59,10 +58,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if opts.Cavity, err = geo.Cavity(); err != nil {
 				return err
 			}
-			if err := parseWindow(window, &opts.Window); err != nil {
-				return err
-			}
-			opts.WindowText = window
+			opts.WindowText = window.String()
 			if err := checkFormat(); err != nil {
 				return err
 			}
@@ -81,36 +77,11 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Fill:        "fill dielectric: a library name (air, ptfe, ...) or eps=2.1,tand=3e-4 (default vacuum)",
 		CobraChecks: true,
 	})
-	f.StringVar(&window, "window", "10%", "list modes within this distance: a percentage or a frequency")
+	window = cmdutil.WindowVar(f, &opts.Window, "window", "10%", "list modes within this distance: a percentage or a frequency")
 	f.BoolVar(&opts.Window.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.MarkFlagRequired("mode")
 	return cmd
-}
-
-// parseWindow reads a window given as a percentage (or fraction) or as a
-// frequency (anything ending in Hz).
-func parseWindow(s string, o *cavity.ClearanceOptions) error {
-	if strings.HasSuffix(strings.ToLower(strings.TrimSpace(s)), "hz") {
-		v, err := cmdutil.FrequencyOf(s)
-		if err != nil {
-			return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz: %w", err))
-		}
-		if !(v >= 0) {
-			return cmdutil.FlagError("window", s, fmt.Errorf("must be between 0 Hz and %g times the wanted frequency", cavity.MaxWindow))
-		}
-		o.WindowHz = v
-		return nil
-	}
-	v, err := physics.ParseFraction(s)
-	if err != nil {
-		return cmdutil.FlagError("window", s, fmt.Errorf("want a percentage such as 10%% or a frequency such as 500MHz: %w", err))
-	}
-	if !(v >= 0 && v <= cavity.MaxWindow) {
-		return cmdutil.FlagError("window", s, fmt.Errorf("must be between 0%% and %g%%", 100*cavity.MaxWindow))
-	}
-	o.Window = v
-	return nil
 }
 
 func runClearance(opts *Options) error {

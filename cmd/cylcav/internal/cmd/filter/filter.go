@@ -9,7 +9,6 @@ import (
 	"fmt"
 	"math"
 	"path/filepath"
-	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -91,11 +90,7 @@ type Options struct {
 // command's work (tests use it to inspect the parsed options).
 func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var (
-		f0, bw, reject, rl, ripple, zeros, response string
-		mode, ratio, q0, holes, holeT, span         string
-		order                                       int
-	)
+	var fl flags
 	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -165,13 +160,13 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			changed := cmd.Flags().Changed
-			if err := opts.parseSpec(changed, f0, bw, order, reject, rl, ripple, zeros, response); err != nil {
+			if err := opts.checkSpec(changed, &fl); err != nil {
 				return err
 			}
-			if err := opts.parseCavities(changed, walls, geo, mode, ratio, q0, holes, holeT); err != nil {
+			if err := opts.checkCavities(changed, walls, geo, &fl); err != nil {
 				return err
 			}
-			if err := opts.parseOutput(span); err != nil {
+			if err := opts.checkOutput(); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -181,28 +176,36 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		},
 	}
 	f := cmd.Flags()
-	f.StringVar(&f0, "f0", "", "centre frequency (geometric), e.g. 10GHz (required)")
-	f.StringVar(&bw, "bw", "", "passband width f2 - f1, e.g. 200MHz or 2% of f0 (required)")
-	f.IntVar(&order, "order", 0, fmt.Sprintf("number of resonators, 1..%d (or give --reject)", bandpass.MaxOrder))
-	f.StringVar(&reject, "reject", "", "rejections ATT@FREQ[,...], e.g. 40dB@10.25GHz,35dB@9.75GHz")
-	f.StringVar(&rl, "return-loss", "", fmt.Sprintf("passband return loss, e.g. 20dB (default %g dB)", bandpass.DefaultReturnLoss))
-	f.StringVar(&ripple, "ripple", "", "passband ripple instead of --return-loss, e.g. 0.01dB")
-	f.StringVar(&zeros, "zeros", "", "transmission zeros outside the passband, e.g. 10.18GHz,9.8GHz")
-	f.StringVar(&response, "response", "chebyshev", "response family: chebyshev|butterworth")
-	f.StringVar(&mode, "mode", "", "cavity mode of every resonator, e.g. TE011 (default TE011 with --wall/--fill)")
+	s := &opts.Spec
+	cmdutil.FrequencyVar(f, &s.F0, "f0", "centre frequency (geometric), e.g. 10GHz (required)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
+	fl.bw = cmdutil.FrequencyOrFractionVar(f, "bw", "passband width f2 - f1, e.g. 200MHz or 2% of f0 (required)")
+	cmdutil.IntVar(f, &s.Order, "order", 0, fmt.Sprintf("number of resonators, 1..%d (or give --reject)", bandpass.MaxOrder), 1, bandpass.MaxOrder)
+	cmdutil.LevelListVar(f, &fl.reject, "reject", "rejections ATT@FREQ[,...], e.g. 40dB@10.25GHz,35dB@9.75GHz", maxAttenuation)
+	cmdutil.DecibelVar(f, &s.ReturnLoss, "return-loss", fmt.Sprintf("passband return loss, e.g. 20dB (default %g dB)", bandpass.DefaultReturnLoss),
+		bandpass.ReturnLossFromRipple(bandpass.MaxRipple), bandpass.MaxReturnLoss)
+	cmdutil.DecibelVar(f, &s.Ripple, "ripple", "passband ripple instead of --return-loss, e.g. 0.01dB",
+		bandpass.RippleFromReturnLoss(bandpass.MaxReturnLoss), bandpass.MaxRipple)
+	fl.zeros = cmdutil.FrequencyListVar(f, &opts.ZerosHz, "zeros", "transmission zeros outside the passband, e.g. 10.18GHz,9.8GHz", cmdutil.MinFrequency, cmdutil.MaxFrequency)
+	cmdutil.EnumVar(f, &s.Family, "response", "chebyshev", "response family: chebyshev|butterworth", "response",
+		cmdutil.Choice[bandpass.Family]{Word: "chebyshev", Value: bandpass.Chebyshev},
+		cmdutil.Choice[bandpass.Family]{Word: "butterworth", Value: bandpass.Butterworth})
+	cmdutil.ModeVar(f, &opts.Mode, "mode", "cavity mode of every resonator, e.g. TE011 (default TE011 with --wall/--fill)")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Fill: "fill: library name (air, ptfe, ...) or eps=...,tand=... (default vacuum)",
 	})
 	walls = cmdutil.AddWallFlags(cmd)
-	f.StringVar(&ratio, "ratio", "", "D/L of every cavity (default: the design optimiser's, largest clearance)")
-	f.StringVar(&holes, "holes", "", "size the main-line couplings as circular holes in the common end|side wall (Bethe)")
-	f.StringVar(&holeT, "hole-thickness", "", "wall thickness at the holes, e.g. 0.5mm (default 0, thin wall)")
-	f.StringVar(&q0, "q0", "", "unloaded Q of every resonator, without cavities, e.g. 5000 (default lossless)")
+	cmdutil.NumberVar(f, &opts.Ratio, "ratio", "D/L of every cavity (default: the design optimiser's, largest clearance)", cavity.MinDesignRatio, cavity.MaxDesignRatio)
+	cmdutil.EnumVar(f, &fl.holes, "holes", "", "size the main-line couplings as circular holes in the common end|side wall (Bethe)", "wall",
+		cmdutil.Choice[bandpass.Wall]{Word: "end", Value: bandpass.EndWall, Note: "cavities stacked on one axis"},
+		cmdutil.Choice[bandpass.Wall]{Word: "side", Value: bandpass.SideWall, Note: "cavities side by side"})
+	cmdutil.LengthVar(f, &fl.holeT, "hole-thickness", "wall thickness at the holes, e.g. 0.5mm (default 0, thin wall)", 0, maxHoleThickness)
+	cmdutil.NumberVar(f, &opts.Q0, "q0", "unloaded Q of every resonator, without cavities, e.g. 5000 (default lossless)", 1, maxQ0)
 	f.StringVar(&opts.Touchstone, "touchstone", "", "write the response as a Touchstone 1.1 file, e.g. filter.s2p")
 	f.StringVar(&opts.Plot, "plot", "", "write the response plot: .png, .svg or .pdf")
-	f.StringVar(&span, "span", "3x", "frequency range: N bandwidths around f0 (Omega -N..N), widened to show every rejection and zero")
-	f.IntVar(&opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints))
-	f.IntVar(&opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch")
+	cmdutil.TimesVar(f, &opts.Span, "span", "3x", "frequency range: N bandwidths around f0 (Omega -N..N), widened to show every rejection and zero",
+		"bandwidths", 1, bandpass.MaxSpan)
+	cmdutil.IntVar(f, &opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints), 2, maxPoints)
+	cmdutil.IntVar(f, &opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch", figure.MinDPI, figure.MaxDPI)
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
 	cmdutil.Needs(cmd, "points", "touchstone")
 	cmdutil.Needs(cmd, "dpi", "plot")
@@ -224,102 +227,70 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	return cmd
 }
 
-// parseSpec validates the specification flags into opts.Spec.
-func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order int, rejectS, rlS, rippleS, zerosS, responseS string) error {
+// flags are the values of the flags that checkSpec and checkCavities
+// turn into Options.
+type flags struct {
+	bw     *cmdutil.FrequencyOrFraction
+	reject []cmdutil.LevelAt
+	zeros  *cmdutil.FrequencyList
+	holes  bandpass.Wall
+	holeT  float64
+}
+
+// checkSpec checks the specification flags against each other and
+// completes opts.Spec (their own ranges were checked while parsing).
+func (opts *Options) checkSpec(changed func(string) bool, fl *flags) error {
 	s := &opts.Spec
-	if f0S == "" {
+	if !changed("f0") {
 		return cmdutil.Usagef("--f0 is required, e.g. --f0 10GHz")
 	}
-	f0, err := cmdutil.Frequency("f0", f0S, cmdutil.MinFrequency, cmdutil.MaxFrequency)
-	if err != nil {
-		return err
-	}
-	s.F0 = f0
-	if bwS == "" {
+	f0 := s.F0
+	if !changed("bw") {
 		return cmdutil.Usagef("--bw is required, e.g. --bw 200MHz or --bw 2%%")
 	}
-	bw, err := parseBandwidth(bwS, f0)
-	if err != nil {
-		return err
+	bw := fl.bw.Of(f0)
+	if !(bw/f0 >= minFBW && bw < f0) { // bw/f0 is correctly rounded: 100 kHz at 10 GHz is exactly minFBW
+		return cmdutil.FlagError("bw", fl.bw.Text(), fmt.Errorf("must be between %s (%g %% of --f0) and the centre frequency --f0 %s",
+			cmdutil.TrimZeros(physics.FormatFrequency(minFBW*f0, 4)), minFBW*100, cmdutil.TrimZeros(physics.FormatFrequency(f0, 6))))
 	}
 	if bandpass.ModelFBWError(f0, bw) != nil {
-		return cmdutil.FlagError("bw", bwS, fmt.Errorf("a fractional bandwidth of %.4g %% is above %g %% of f0, where the narrowband coupling-matrix model (frequency-invariant couplings) stops holding; a wider filter needs couplings modelled with their frequency dependence",
+		return cmdutil.FlagError("bw", fl.bw.Text(), fmt.Errorf("a fractional bandwidth of %.4g %% is above %g %% of f0, where the narrowband coupling-matrix model (frequency-invariant couplings) stops holding; a wider filter needs couplings modelled with their frequency dependence",
 			100*bw/f0, 100*bandpass.MaxModelFBW))
 	}
 	s.BW = bw
 	f1, f2 := bandpass.BandpassFrequency(-1, f0, bw), bandpass.BandpassFrequency(1, f0, bw)
 	band := fmt.Sprintf("%s..%s", physics.FormatFrequency(f1, 6), physics.FormatFrequency(f2, 6))
 
-	switch strings.ToLower(strings.TrimSpace(responseS)) {
-	case "chebyshev":
-		s.Family = bandpass.Chebyshev
-	case "butterworth":
-		s.Family = bandpass.Butterworth
-	default:
-		return cmdutil.FlagError("response", responseS, errors.New("unknown response; use chebyshev or butterworth"))
-	}
-
-	if changed("order") {
-		if order < 1 || order > bandpass.MaxOrder {
-			return cmdutil.FlagError("order", strconv.Itoa(order), fmt.Errorf("must be between 1 and %d", bandpass.MaxOrder))
+	for _, r := range fl.reject {
+		if math.Abs(bandpass.LowpassOmega(r.Hz, f0, bw)) <= 1 {
+			return cmdutil.FlagError("reject", r.Text, fmt.Errorf("frequency lies in the passband %s; rejections must lie outside it", band))
 		}
-		s.Order = order
-	}
-	if rejectS != "" {
-		for _, item := range strings.Split(rejectS, ",") {
-			r, err := parseRejection(item, f0, bw, band)
-			if err != nil {
-				return err
-			}
-			s.Rejections = append(s.Rejections, r)
-		}
+		s.Rejections = append(s.Rejections, bandpass.Rejection{F: r.Hz, Attenuation: r.DB})
 	}
 	if s.Order == 0 && len(s.Rejections) == 0 {
 		return cmdutil.Usagef("give --order N (1..%d) or --reject ATT@FREQ (e.g. --reject 40dB@10.3GHz) to choose the order from", bandpass.MaxOrder)
 	}
-
-	if rlS != "" && rippleS != "" {
+	if changed("return-loss") && changed("ripple") {
 		return cmdutil.Usagef("give --return-loss or --ripple, not both (they fix the same ripple level)")
 	}
-	minRL := bandpass.ReturnLossFromRipple(bandpass.MaxRipple)
-	if rlS != "" {
-		v, err := decibels("return-loss", rlS, minRL, bandpass.MaxReturnLoss)
-		if err != nil {
-			return err
-		}
-		s.ReturnLoss = v
-	}
-	if rippleS != "" {
-		v, err := decibels("ripple", rippleS, bandpass.RippleFromReturnLoss(bandpass.MaxReturnLoss), bandpass.MaxRipple)
-		if err != nil {
-			return err
-		}
-		s.Ripple = v
-	}
-	if s.Family == bandpass.Butterworth && (rlS != "" || rippleS != "" || zerosS != "") {
+	if s.Family == bandpass.Butterworth && (changed("return-loss") || changed("ripple") || changed("zeros")) {
 		return cmdutil.Usagef("--response butterworth has no ripple and no finite transmission zeros; drop --return-loss, --ripple and --zeros or use --response chebyshev")
 	}
 
-	if zerosS != "" {
-		for _, item := range strings.Split(zerosS, ",") {
-			fz, err := cmdutil.Frequency("zeros", strings.TrimSpace(item), cmdutil.MinFrequency, cmdutil.MaxFrequency)
-			if err != nil {
-				return err
-			}
-			w := bandpass.LowpassOmega(fz, f0, bw)
-			if math.Abs(w) <= 1 {
-				return cmdutil.FlagError("zeros", strings.TrimSpace(item), fmt.Errorf("lies in the passband %s; transmission zeros must lie outside it", band))
-			}
-			opts.ZerosHz = append(opts.ZerosHz, fz)
-			s.Zeros = append(s.Zeros, w)
+	s.Zeros = nil
+	for i, fz := range opts.ZerosHz {
+		w := bandpass.LowpassOmega(fz, f0, bw)
+		if math.Abs(w) <= 1 {
+			return cmdutil.FlagError("zeros", fl.zeros.Items()[i], fmt.Errorf("lies in the passband %s; transmission zeros must lie outside it", band))
 		}
-		limit := bandpass.MaxOrder
-		if s.Order != 0 {
-			limit = s.Order
-		}
-		if len(s.Zeros) > limit {
-			return cmdutil.FlagError("zeros", zerosS, fmt.Errorf("%d transmission zeros for order %d; at most %d (%d without a source-load coupling)", len(s.Zeros), limit, limit, limit-1))
-		}
+		s.Zeros = append(s.Zeros, w)
+	}
+	limit := bandpass.MaxOrder
+	if s.Order != 0 {
+		limit = s.Order
+	}
+	if len(s.Zeros) > limit {
+		return cmdutil.FlagError("zeros", fl.zeros.Text(), fmt.Errorf("%d transmission zeros for order %d; at most %d (%d without a source-load coupling)", len(s.Zeros), limit, limit, limit-1))
 	}
 	return nil
 }
@@ -332,125 +303,25 @@ func (opts *Options) parseSpec(changed func(string) bool, f0S, bwS string, order
 // hand. No cavity filter comes near it: Q0 would have to exceed 1e5 / N.
 const minFBW = 1e-5
 
-// parseBandwidth parses --bw as a frequency or as a percentage of f0 and
-// checks minFBW f0 <= bw < f0.
-func parseBandwidth(v string, f0 float64) (float64, error) {
-	t := strings.TrimSpace(v)
-	var bw float64
-	if strings.HasSuffix(t, "%") {
-		frac, err := physics.ParseFraction(t)
-		if err != nil {
-			return 0, cmdutil.FlagError("bw", v, err)
-		}
-		bw = frac * f0
-	} else {
-		var err error
-		if bw, err = cmdutil.ParseFrequency("bw", t); err != nil {
-			return 0, err
-		}
-	}
-	if !(bw/f0 >= minFBW && bw < f0) { // bw/f0 is correctly rounded: 100 kHz at 10 GHz is exactly minFBW
-		return 0, cmdutil.FlagError("bw", v, fmt.Errorf("must be between %s (%g %% of --f0) and the centre frequency --f0 %s",
-			cmdutil.TrimZeros(physics.FormatFrequency(minFBW*f0, 4)), minFBW*100, cmdutil.TrimZeros(physics.FormatFrequency(f0, 6))))
-	}
-	return bw, nil
-}
-
-// parseRejection parses one ATT@FREQ item of --reject.
-func parseRejection(item string, f0, bw float64, band string) (bandpass.Rejection, error) {
-	it := strings.TrimSpace(item)
-	a, fr, ok := strings.Cut(it, "@")
-	if !ok {
-		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, errors.New("want ATTENUATION@FREQUENCY, e.g. 40dB@10.3GHz"))
-	}
-	att, err := physics.ParseDecibel(a)
-	if err != nil {
-		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, err)
-	}
-	if !(att > 0 && att <= maxAttenuation) {
-		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("attenuation must be > 0 dB and <= %g dB", maxAttenuation))
-	}
-	f, err := cmdutil.FrequencyOf(fr)
-	if err != nil {
-		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, err)
-	}
-	if !(f >= cmdutil.MinFrequency && f <= cmdutil.MaxFrequency) {
-		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("frequency must be between %s and %s",
-			physics.FormatFrequency(cmdutil.MinFrequency, 4), physics.FormatFrequency(cmdutil.MaxFrequency, 4)))
-	}
-	if math.Abs(bandpass.LowpassOmega(f, f0, bw)) <= 1 {
-		return bandpass.Rejection{}, cmdutil.FlagError("reject", it, fmt.Errorf("frequency lies in the passband %s; rejections must lie outside it", band))
-	}
-	return bandpass.Rejection{F: f, Attenuation: att}, nil
-}
-
-// decibels parses a dB flag and checks lo <= v <= hi (lo > 0 excluded
-// values are reported with the range).
-func decibels(flag, v string, lo, hi float64) (float64, error) {
-	x, err := physics.ParseDecibel(v)
-	if err != nil {
-		return 0, cmdutil.FlagError(flag, v, err)
-	}
-	if !(x >= lo && x <= hi) {
-		return 0, cmdutil.FlagError(flag, v, fmt.Errorf("must be between %.4g dB and %g dB", lo, hi))
-	}
-	return x, nil
-}
-
-// parseCavities validates the realisation flags.
-func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.WallFlags, geo *cmdutil.GeometryFlags, modeS, ratioS, q0S, holesS, holeTS string) error {
+// checkCavities checks the realisation flags against each other and
+// completes the cavities of opts (the wall flags' companions were checked
+// by cmdutil.CheckNeeds before the command ran).
+func (opts *Options) checkCavities(changed func(string) bool, walls *cmdutil.WallFlags, geo *cmdutil.GeometryFlags, fl *flags) error {
 	wallGiven := walls.Given()
 	opts.Cavities = changed("mode") || wallGiven || changed("fill") || changed("ratio") || changed("holes")
-	if q0S != "" {
-		if opts.Cavities {
-			return cmdutil.Usagef("--q0 sets the unloaded Q without cavities; drop it, or drop --mode, --wall, --fill, --ratio and --holes to use it")
-		}
-		v, err := cmdutil.Number("q0", q0S, 1, maxQ0)
-		if err != nil {
-			return err
-		}
-		opts.Q0 = v
-	}
-	if !wallGiven {
-		for _, fl := range []string{"end-wall", "end-wall-a", "end-wall-b", "temperature", "roughness", "roughness-model", "plating", "plating-thickness", "superconducting", "residual"} {
-			if changed(fl) {
-				return cmdutil.Usagef("--%s describes the cavity walls; %s", fl, wallHint(changed))
-			}
-		}
-	}
-	if changed("hole-thickness") && holesS == "" {
-		return cmdutil.Usagef("--hole-thickness needs --holes end|side")
+	if changed("q0") && opts.Cavities {
+		return cmdutil.Usagef("--q0 sets the unloaded Q without cavities; drop it, or drop --mode, --wall, --fill, --ratio and --holes to use it")
 	}
 	if !opts.Cavities {
 		return nil
 	}
-	opts.Mode = cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
-	if modeS != "" {
-		m, err := cavity.ParseMode(modeS)
-		if err != nil {
-			return cmdutil.FlagError("mode", modeS, err)
-		}
-		if err := m.Validate(); err != nil {
-			return cmdutil.FlagError("mode", modeS, err)
-		}
-		opts.Mode = m
+	if !changed("mode") {
+		opts.Mode = cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
 	}
-	// --fill given empty counts as absent (vacuum), as this command's other
-	// string flags do.
-	opts.Fill = physics.Medium{}
-	if geo.Text("fill") != "" {
-		f, err := geo.Fill()
-		if err != nil {
-			return err
-		}
-		opts.Fill = f
-	}
-	if ratioS != "" {
-		r, err := cmdutil.Number("ratio", ratioS, cavity.MinDesignRatio, cavity.MaxDesignRatio)
-		if err != nil {
-			return err
-		}
-		opts.Ratio = r
+	// Vacuum unless --fill is given (an empty --fill is refused before).
+	var err error
+	if opts.Fill, err = geo.Fill(); err != nil {
+		return err
 	}
 	if wallGiven {
 		s, err := walls.Walls()
@@ -459,48 +330,14 @@ func (opts *Options) parseCavities(changed func(string) bool, walls *cmdutil.Wal
 		}
 		opts.Walls = &s
 	}
-	switch strings.ToLower(strings.TrimSpace(holesS)) {
-	case "":
-	case "end":
-		opts.Hole = &bandpass.Hole{Wall: bandpass.EndWall}
-	case "side":
-		opts.Hole = &bandpass.Hole{Wall: bandpass.SideWall}
-	default:
-		return cmdutil.FlagError("holes", holesS, errors.New("unknown wall; use end (cavities stacked on one axis) or side (cavities side by side)"))
-	}
-	if opts.Hole != nil && holeTS != "" {
-		t, err := cmdutil.Length("hole-thickness", holeTS, 0, maxHoleThickness)
-		if err != nil {
-			return err
-		}
-		opts.Hole.Thickness = t
+	if changed("holes") {
+		opts.Hole = &bandpass.Hole{Wall: fl.holes, Thickness: fl.holeT}
 	}
 	return nil
 }
 
-// wallHint advises the --wall a wall flag needs, one that the wall flags
-// given accept: the superconducting model (--superconducting, --residual)
-// is niobium's and needs a temperature, so those flags get niobium; the
-// others a normal metal.
-func wallHint(changed func(string) bool) string {
-	if changed("superconducting") || changed("residual") {
-		return "give --wall niobium too, the only superconducting wall modelled (e.g. --wall niobium --superconducting --temperature 2K)"
-	}
-	return "give --wall too (e.g. --wall copper)"
-}
-
-// parseOutput validates --span, --points, --touchstone, --plot and --dpi.
-func (opts *Options) parseOutput(spanS string) error {
-	t := strings.TrimSpace(spanS)
-	t = strings.TrimSuffix(strings.TrimSuffix(t, "x"), "X")
-	v, err := physics.ParseNumber(t)
-	if err != nil || !(v > 1 && v <= bandpass.MaxSpan) {
-		return cmdutil.FlagError("span", spanS, fmt.Errorf("want a number of bandwidths above 1 and at most %g, e.g. 3x", bandpass.MaxSpan))
-	}
-	opts.Span = v
-	if opts.Points < 2 || opts.Points > maxPoints {
-		return cmdutil.FlagError("points", strconv.Itoa(opts.Points), fmt.Errorf("must be between 2 and %d", maxPoints))
-	}
+// checkOutput checks the output files.
+func (opts *Options) checkOutput() error {
 	if opts.Touchstone != "" && !strings.EqualFold(filepath.Ext(opts.Touchstone), ".s2p") {
 		return cmdutil.FlagError("touchstone", opts.Touchstone, errors.New("a two-port Touchstone file name must end in .s2p"))
 	}
@@ -510,9 +347,6 @@ func (opts *Options) parseOutput(spanS string) error {
 			return cmdutil.FlagError("plot", opts.Plot, errors.New("the file name must end in .png, .svg or .pdf"))
 		}
 		opts.PlotFormat = f
-	}
-	if opts.DPI < figure.MinDPI || opts.DPI > figure.MaxDPI {
-		return cmdutil.FlagError("dpi", strconv.Itoa(opts.DPI), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
 	}
 	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
 		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)

@@ -14,3 +14,16 @@ func TestBadInputMain(t *testing.T) {
 		{Args: []string{"extra"}, Code: 2, Want: []string{"extra"}},
 	})
 }
+
+// TestKindWords: --kind takes its words in any case, with the plurals and
+// the flag names as other words, and refuses a second --kind.
+func TestKindWords(t *testing.T) {
+	for _, k := range []string{" Wall ", "conductors", "DIELECTRIC", "fill"} {
+		if r := clitest.Run(t, "materials", "--kind", k, "--format", "csv"); r.Code != 0 || r.Stdout == "" {
+			t.Errorf("materials --kind %q: exit %d, stderr %q; want a listing", k, r.Code, r.Stderr)
+		}
+	}
+	clitest.CheckBadInput(t, "materials", []clitest.BadCase{
+		{Args: []string{"--kind", "conductor", "--kind", "dielectric"}, Code: 2, Want: []string{`--kind "dielectric"`, "given twice"}},
+	})
+}

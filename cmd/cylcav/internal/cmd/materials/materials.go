@@ -34,7 +34,6 @@ type Options struct {
 // the default run function (for tests).
 func NewCmdMaterials(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var kind string
 	cmd := &cobra.Command{
 		Use:   "materials",
 		Short: "List the wall metals and fill dielectrics with their sources",
@@ -58,24 +57,15 @@ your own stock are better.`,
 		Args: cobra.NoArgs,
 	}
 	checkFormat := cmdutil.FormatFlag(cmd, &opts.Format)
-	cmd.Flags().StringVar(&kind, "kind", "", "list only one kind: conductor|dielectric")
+	cmdutil.EnumVar(cmd.Flags(), &opts.Kind, "kind", "", "list only one kind: conductor|dielectric", "kind",
+		cmdutil.Choice[Kind]{Word: "conductor", Value: Conductor, Also: []string{"conductors", "wall"}},
+		cmdutil.Choice[Kind]{Word: "dielectric", Value: Dielectric, Also: []string{"dielectrics", "fill"}})
 	_ = cmd.RegisterFlagCompletionFunc("kind", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
 		return []string{"conductor", "dielectric"}, cobra.ShellCompDirectiveNoFileComp
 	})
 	cmd.RunE = func(cmd *cobra.Command, args []string) error {
 		if err := checkFormat(); err != nil {
 			return err
-		}
-		k := strings.ToLower(strings.TrimSpace(kind))
-		switch {
-		case !cmd.Flags().Changed("kind"):
-			opts.Kind = All
-		case k == "conductor" || k == "conductors" || k == "wall":
-			opts.Kind = Conductor
-		case k == "dielectric" || k == "dielectrics" || k == "fill":
-			opts.Kind = Dielectric
-		default:
-			return cmdutil.FlagError("kind", kind, fmt.Errorf("unknown kind; use conductor or dielectric"))
 		}
 		if runF != nil {
 			return runF(opts)

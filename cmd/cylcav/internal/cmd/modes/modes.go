@@ -108,17 +108,11 @@ detail.`, DefaultCount),
 			case fl.Changed("fmax"):
 				opts.FMaxText = fmax.Text()
 			case fl.Changed("count"):
-				if opts.Count < 1 || opts.Count > cavity.MaxModes {
-					return cmdutil.FlagError("count", strconv.Itoa(opts.Count), fmt.Errorf("must be between 1 and %d", cavity.MaxModes))
-				}
 			default:
 				opts.Count = DefaultCount
 			}
 			if opts.Walls, err = parseWalls(walls); err != nil {
 				return err
-			}
-			if opts.Digits < 3 || opts.Digits > 17 {
-				return cmdutil.FlagError("digits", strconv.Itoa(opts.Digits), fmt.Errorf("must be between 3 and 17"))
 			}
 			if err := checkFormat(); err != nil {
 				return err
@@ -142,8 +136,8 @@ detail.`, DefaultCount),
 	})
 	fl := cmd.Flags()
 	fmax = cmdutil.FrequencyVar(fl, &opts.FMax, "fmax", "list every mode at or below this frequency (e.g. 12GHz)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
-	fl.IntVar(&opts.Count, "count", DefaultCount, "list this many of the lowest modes")
-	fl.IntVar(&opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table")
+	cmdutil.IntVar(fl, &opts.Count, "count", DefaultCount, "list this many of the lowest modes", 1, cavity.MaxModes)
+	cmdutil.IntVar(fl, &opts.Digits, "digits", DefaultDigits, "significant digits of the frequencies in the table", 3, 17)
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd

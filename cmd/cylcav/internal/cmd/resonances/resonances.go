@@ -55,8 +55,6 @@ type Options struct {
 // receives the options instead of the default run (for tests).
 func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var minHeight, window string
-	var dpi int
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -126,7 +124,7 @@ replaced only with --force.`,
   Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, args, minHeight, window, dpi, geo, walls); err != nil {
+			if err := opts.parse(cmd, args, geo, walls); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -137,8 +135,9 @@ replaced only with --force.`,
 	}
 	f := cmd.Flags()
 	checkFormat := cmdutil.FormatFlag(cmd, &opts.Format)
-	f.StringVar(&minHeight, "min-height", "", "smallest peak height (dip depth) above the background, e.g. 20dB (default 10 dB peaks, 1 dB dips)")
-	f.StringVar(&window, "window", "3", "half width of each fitted window, in half-power bandwidths")
+	cmdutil.DecibelVar(f, &opts.Settings.Find.MinHeight, "min-height", "smallest peak height (dip depth) above the background, e.g. 20dB (default 10 dB peaks, 1 dB dips)", 0.1, 200)
+	cmdutil.NumberVar(f, &opts.Settings.Window, "window", "half width of each fitted window, in half-power bandwidths", 1, 20)
+	cmdutil.SetDefault(f, "window", "3")
 	geo = cmdutil.AddGeometryFlags(cmd, cmdutil.Geometry{
 		Diameter: "nominal inside diameter, to name the modes, e.g. 40mm",
 		Radius:   "nominal inside radius, to name the modes, e.g. 20mm",
@@ -150,13 +149,13 @@ replaced only with --force.`,
 	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
-	f.IntVar(&dpi, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch")
+	cmdutil.IntVar(f, &opts.Page.DPI, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch", figure.MinDPI, figure.MaxDPI)
 	f.BoolVar(&opts.Force, "force", false, "replace output files that exist")
 	cmd.PreRunE = func(*cobra.Command, []string) error { return checkFormat() }
 	return cmd
 }
 
-func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window string, dpi int, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
+func (opts *Options) parse(cmd *cobra.Command, args []string, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
 	if err := cmdutil.RejectEmptyFlags(cmd); err != nil {
 		return err
 	}
@@ -194,20 +193,6 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window 
 		break
 	}
 	opts.File = args[0]
-	if cmd.Flags().Changed("min-height") {
-		s := strings.TrimSpace(minHeight)
-		s = strings.TrimSuffix(strings.TrimSuffix(s, "dB"), "db")
-		v, err := cmdutil.Number("min-height", s, 0.1, 200)
-		if err != nil {
-			return cmdutil.FlagError("min-height", minHeight, errors.New("must be a level between 0.1 dB and 200 dB, e.g. 20dB"))
-		}
-		opts.Settings.Find.MinHeight = v
-	}
-	v, err := cmdutil.Number("window", window, 1, 20)
-	if err != nil {
-		return err
-	}
-	opts.Settings.Window = v
 	for _, p := range []struct{ flag, path string }{{"plot", opts.Plot}, {"fit-plots", opts.FitPlots}} {
 		if p.path == "" {
 			continue
@@ -216,10 +201,6 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, minHeight, window 
 			return cmdutil.FlagError(p.flag, p.path, err)
 		}
 	}
-	if dpi < figure.MinDPI || dpi > figure.MaxDPI {
-		return cmdutil.FlagError("dpi", strconv.Itoa(dpi), fmt.Errorf("must be between %d and %d", figure.MinDPI, figure.MaxDPI))
-	}
-	opts.Page.DPI = dpi
 	return nil
 }
 

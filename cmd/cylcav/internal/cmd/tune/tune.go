@@ -38,7 +38,6 @@ type Options struct {
 // step (for tests of flag parsing).
 func NewCmdTune(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var at string
 	var sphere *cmdutil.Quantity
 	var lrangeText, modeText func() string
 	var checkFormat func() error
@@ -85,9 +84,6 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 					physics.FormatLength(D, 4), physics.FormatLength(D/cavity.MaxDesignRatio, 4), physics.FormatLength(D/cavity.MinDesignRatio, 4),
 					cavity.MinDesignRatio, cavity.MaxDesignRatio))
 			}
-			if opts.Steps < 1 || opts.Steps > cavity.MaxTuneSteps {
-				return cmdutil.FlagError("steps", strconv.Itoa(opts.Steps), fmt.Errorf("must be between 1 and %d", cavity.MaxTuneSteps))
-			}
 			if opts.Cavity.Fill, err = geo.Fill(); err != nil {
 				return err
 			}
@@ -96,10 +92,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				return cmdutil.Usagef("%v", err)
 			}
 			if cmd.Flags().Changed("sphere") {
-				if opts.SphereAt, err = parsePoint(at); err != nil {
-					return err
-				}
-				opts.SphereText, opts.AtText = sphere.Text(), at
+				opts.SphereText, opts.AtText = sphere.Text(), cmdutil.Text(cmd.Flags(), "at")
 			}
 			if err := checkFormat(); err != nil {
 				return err
@@ -120,36 +113,16 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	})
 	lr := cmdutil.LengthRangeVar(f, &opts.LMin, &opts.LMax, "length-range", "end-plate spacing range LO:HI, e.g. 28mm:32mm (required)", cavity.MinSize, cavity.MaxSize)
 	lrangeText = lr.Text
-	f.IntVar(&opts.Steps, "steps", 10, "number of steps between the ends of the range")
+	cmdutil.IntVar(f, &opts.Steps, "steps", 10, "number of steps between the ends of the range", 1, cavity.MaxTuneSteps)
 	f.BoolVar(&opts.CountDegenerate, "count-degenerate", false, "count the exact TE0mp/TM1mp companion in the clearance")
 	sphere = cmdutil.LengthVar(f, &opts.SphereRadius, "sphere", "radius of a small metal sphere or screw tip, e.g. 1mm", cavity.MinSize, cavity.MaxSize)
-	f.StringVar(&at, "at", "", "its centre RHO,PHI,Z (PHI in degrees, Z from end plate A), e.g. 20mm,0,15mm")
+	cmdutil.PointVar(f, &opts.SphereAt, "at", "its centre RHO,PHI,Z (PHI in degrees, Z from end plate A), e.g. 20mm,0,15mm")
 	cmdutil.Needs(cmd, "sphere", "at")
 	cmdutil.Needs(cmd, "at", "sphere")
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	_ = cmd.MarkFlagRequired("mode")
 	_ = cmd.MarkFlagRequired("length-range")
 	return cmd
-}
-
-func parsePoint(s string) (cavity.Point, error) {
-	parts := strings.Split(s, ",")
-	if len(parts) != 3 {
-		return cavity.Point{}, cmdutil.FlagError("at", s, fmt.Errorf("want RHO,PHI,Z such as 20mm,0,15mm"))
-	}
-	rho, err := cmdutil.ParseLength("at", parts[0])
-	if err != nil {
-		return cavity.Point{}, err
-	}
-	deg, err := physics.ParseNumber(strings.TrimSuffix(strings.TrimSpace(parts[1]), "deg"))
-	if err != nil {
-		return cavity.Point{}, cmdutil.FlagError("at", s, fmt.Errorf("PHI %q is not a number of degrees", parts[1]))
-	}
-	z, err := cmdutil.ParseLength("at", parts[2])
-	if err != nil {
-		return cavity.Point{}, err
-	}
-	return cavity.Point{Rho: rho, Phi: deg * math.Pi / 180, Z: z}, nil
 }
 
 // SphereOutput is the JSON form of a sphere or screw perturbation.

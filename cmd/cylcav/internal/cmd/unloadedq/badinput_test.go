@@ -48,3 +48,22 @@ func TestBadInputMain(t *testing.T) {
 		{Args: with("--mode", "TE011", "extra"), Code: 2, Want: []string{"extra"}},
 	})
 }
+
+// TestBadInputTyped: --beta, --qext and --particle-speed are refused while
+// the command line is parsed, naming the flag, quoting the value (the
+// item, for a list of ports) and stating the range (beta 0..1e6, Qext
+// 1..1e15, at most 2 ports, particle speed 1e-6..1 of c).
+func TestBadInputTyped(t *testing.T) {
+	cu := []string{"--radius", "20mm", "--length", "40mm", "--wall", "copper"}
+	with := func(extra ...string) []string { return append(extra, cu...) }
+	clitest.CheckBadInput(t, "q", []clitest.BadCase{
+		{Args: with("--mode", "TE011", "--beta", "-1"), Code: 2, Want: []string{`--beta "-1"`, "between 0 and 1e+06"}},
+		{Args: with("--mode", "TE011", "--beta", "1, x"), Code: 2, Want: []string{`--beta "x"`, "between 0 and 1e+06"}},
+		{Args: with("--mode", "TE011", "--beta", "1,2,3"), Code: 2, Want: []string{`--beta "1,2,3"`, "at most 2 ports"}},
+		{Args: with("--mode", "TE011", "--qext", "0"), Code: 2, Want: []string{`--qext "0"`, "between 1 and 1e+15"}},
+		{Args: with("--mode", "TE011", "--qext", "1000,abc"), Code: 2, Want: []string{`--qext "abc"`, "between 1 and 1e+15"}},
+		{Args: with("--mode", "TE011", "--beta", "1", "--qext", "1000"), Code: 2, Want: []string{"--beta or --qext, not both"}},
+		{Args: with("--mode", "TM010", "--particle-speed", "1.5"), Code: 2, Want: []string{`--particle-speed "1.5"`, "between 1e-06 and 1"}},
+		{Args: with("--mode", "TE011", "--particle-speed", "0.5"), Code: 2, Want: []string{`--particle-speed "0.5"`, "TM0mp modes only"}},
+	})
+}

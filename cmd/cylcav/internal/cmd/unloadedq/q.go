@@ -52,7 +52,6 @@ const (
 // instead of runQ (for tests).
 func NewCmdQ(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: io}
-	var betaS, qextS, speedS string
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -90,9 +89,7 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
       --particle-speed 0.8 --format json`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, geo, walls, flagValues{
-				beta: betaS, qext: qextS, speed: speedS,
-			}); err != nil {
+			if err := opts.parse(cmd, geo, walls); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -110,23 +107,18 @@ A Q with no loss behind it prints as "infinite" and as null in JSON.`,
 		Fill:     "fill dielectric: library name or eps=...,tand=... (default vacuum)",
 	})
 	walls = cmdutil.AddWallFlags(cmd)
-	f.StringVar(&betaS, "beta", "", "coupling coefficient of each port, e.g. 0.8 or 1,1 (two ports)")
-	f.StringVar(&qextS, "qext", "", "external Q of each port, e.g. 5000 or 4000,4000")
-	f.StringVar(&speedS, "particle-speed", "1", "particle speed as a fraction of c, for TM0mp accelerator figures")
+	cmdutil.NumberListVar(f, &opts.Coupling, "beta", "coupling coefficient of each port, e.g. 0.8 or 1,1 (two ports)", 0, 1e6, maxPorts, "port")
+	cmdutil.NumberListVar(f, &opts.QExt, "qext", "external Q of each port, e.g. 5000 or 4000,4000", 1, 1e15, maxPorts, "port")
+	cmdutil.NumberVar(f, &opts.Speed, "particle-speed", "particle speed as a fraction of c, for TM0mp accelerator figures", 1e-6, 1)
+	cmdutil.SetDefault(f, "particle-speed", "1")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(*cobra.Command, []string) error { return validFormat() }
 	return cmd
 }
 
-// flagValues are the raw flag strings (the cavity's are in the
-// cmdutil.GeometryFlags).
-type flagValues struct {
-	beta, qext, speed string
-}
-
 // parse validates the flags into opts. Every error is a usage error naming
 // the flag, the value and the valid range.
-func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags, v flagValues) error {
+func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
 	// A flag given with an empty value is an error below, never "absent".
 	set := cmd.Flags().Changed
 	if !set("mode") {
@@ -145,42 +137,13 @@ func (opts *Options) parse(cmd *cobra.Command, geo *cmdutil.GeometryFlags, walls
 		return err
 	}
 
-	switch {
-	case set("beta") && set("qext"):
+	if set("beta") && set("qext") {
 		return cmdutil.Usagef("give either --beta or --qext, not both")
-	case set("beta"):
-		if opts.Coupling, err = parseList("beta", v.beta, 0, 1e6); err != nil {
-			return err
-		}
-	case set("qext"):
-		if opts.QExt, err = parseList("qext", v.qext, 1, 1e15); err != nil {
-			return err
-		}
-	}
-	if opts.Speed, err = cmdutil.Number("particle-speed", v.speed, 1e-6, 1); err != nil {
-		return err
 	}
 	if set("particle-speed") && (m.Family != cavity.TM || m.N != 0) {
-		return cmdutil.FlagError("particle-speed", v.speed, fmt.Errorf("accelerator figures exist for TM0mp modes only, not %s", m))
+		return cmdutil.FlagError("particle-speed", cmdutil.Text(cmd.Flags(), "particle-speed"), fmt.Errorf("accelerator figures exist for TM0mp modes only, not %s", m))
 	}
 	return nil
-}
-
-// parseList parses one or two comma-separated numbers in [lo, hi].
-func parseList(flag, s string, lo, hi float64) ([]float64, error) {
-	parts := strings.Split(s, ",")
-	if len(parts) > maxPorts {
-		return nil, cmdutil.FlagError(flag, s, fmt.Errorf("give one value per port, at most %d ports", maxPorts))
-	}
-	out := make([]float64, len(parts))
-	for i, p := range parts {
-		v, err := cmdutil.Number(flag, strings.TrimSpace(p), lo, hi)
-		if err != nil {
-			return nil, err
-		}
-		out[i] = v
-	}
-	return out, nil
 }
 
 // result is everything runQ prints.
