@@ -113,6 +113,7 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "0"}, Code: 2, Want: []string{"--map"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "99"}, Code: 2, Want: []string{"--map", "resonances below --fmax"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--map", "2"}, Code: 2, Want: []string{"--map needs --field-map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--extrapolate", "--modes", "300"}, Code: 2, Want: []string{"--modes", "--extrapolate"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1"}, Code: 2, Want: []string{"--pair", "I,J"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "2,2"}, Code: 2, Want: []string{"--pair", "two different"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1,99"}, Code: 2, Want: []string{"--pair", "resonances below --fmax"}},
@@ -238,5 +239,51 @@ func TestPairJSON(t *testing.T) {
 	}
 	if r := clitest.Run(t, "stack", "examples/iris-pair.yaml", "--fmax", "12GHz", "--pair", "6,7"); r.Code != 2 || !strings.Contains(r.Stderr, "--pair") {
 		t.Errorf("a TM0/TE0 pair: exit %d, %s", r.Code, r.Stderr)
+	}
+}
+
+// TestExtrapolateJSON checks --extrapolate end to end on a closed cylinder,
+// where the extrapolation must keep package cavity's closed forms (Pozar,
+// Microwave Engineering, 4th ed., sec. 6.4) to 1e-10 with no order (the
+// models agree), and on the nosed cell, where every row carries an
+// estimate smaller than its plain change (the extrapolation gains).
+func TestExtrapolateJSON(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	run := func(args ...string) []stack.Row {
+		r := clitest.Run(t, append([]string{"stack"}, append(args, "--extrapolate", "--format", "json")...)...)
+		if r.Code != 0 {
+			t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+		}
+		var out struct {
+			Resonances []stack.Row `json:"resonances"`
+		}
+		if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+			t.Fatal(err)
+		}
+		if len(out.Resonances) == 0 {
+			t.Fatal("no resonances")
+		}
+		return out.Resonances
+	}
+	c := cavity.Cavity{Radius: 0.02, Length: 0.03}
+	for _, row := range run(file, "--fmax", "12GHz") {
+		m, err := cavity.ParseMode(row.ContinuesFrom)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := c.Frequency(m)
+		if row.FExtrapolatedHz == nil || math.Abs(*row.FExtrapolatedHz-want) > 1e-10*want || row.ExtrapolationOrder != nil {
+			t.Errorf("%s: extrapolated %v (order %v), want %.12g Hz (closed form)", row.ContinuesFrom, row.FExtrapolatedHz, row.ExtrapolationOrder, want)
+		}
+	}
+	inRepo(t)
+	for _, row := range run("examples/nosed-cell.yaml", "--fmax", "9GHz") {
+		if row.ExtrapolationErrorHz == nil || row.ChangeHz == nil || *row.ExtrapolationErrorHz >= *row.ChangeHz {
+			t.Errorf("#%d: extrapolation error %v, change %v", row.Index, row.ExtrapolationErrorHz, row.ChangeHz)
+		}
 	}
 }
