@@ -27,6 +27,32 @@ type SweepPlot struct {
 	S    []complex128 // the measured parameter at F
 	Name string       // the parameter's name, "S21" or "S11"
 	Res  []measure.Resonance
+
+	// Modes, when not nil, holds the mode named for each resonance of Res
+	// (measure.Identify), "" where none was; it is drawn under the number.
+	Modes []string
+}
+
+// SetModes labels the resonances with the modes of id (one Assignment
+// per resonance of Res): the mode where it matched, "?" where it did not;
+// a TE0mp/TM1mp pair that showed one resonance gets both names.
+func (sp *SweepPlot) SetModes(id *measure.Identification) error {
+	if len(id.Assign) != len(sp.Res) {
+		return fmt.Errorf("benchplot: %d mode assignments for %d resonances", len(id.Assign), len(sp.Res))
+	}
+	sp.Modes = make([]string, len(sp.Res))
+	for i, a := range id.Assign {
+		switch {
+		case !a.Matched:
+			sp.Modes[i] = "?"
+		case a.Unresolved:
+			c, _ := a.Mode.Companion()
+			sp.Modes[i] = a.Mode.String() + "/" + c.String()
+		default:
+			sp.Modes[i] = a.Mode.String()
+		}
+	}
+	return nil
 }
 
 // NewSweepPlot copies the sweep and the resonances. It rejects an empty
@@ -45,7 +71,8 @@ func NewSweepPlot(f []float64, s []complex128, name string, res []measure.Resona
 }
 
 // Figure draws the sweep in dB over frequency, each fitted resonance
-// marked at its f0 and numbered from 1 in the order of Res.
+// marked at its f0 and numbered from 1 in the order of Res, with its mode
+// under the number when Modes is set.
 func (sp *SweepPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	scale, unit := figure.FrequencyUnit(sp.F[len(sp.F)-1])
 	p := th.NewPlot("", "Frequency ("+unit+")", "|"+sp.Name+"| (dB)")
@@ -57,15 +84,36 @@ func (sp *SweepPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	if _, err := figure.AddCurve(p, xs, ys, 1, th.Series(0)); err != nil {
 		return nil, err
 	}
+	// Labels of resonances closer than labelGap of the span to the
+	// previous one are stacked a level higher, so that neighbours (a split
+	// TE0mp/TM1mp pair) stay readable.
+	const labelGap = 0.03
+	span := sp.F[len(sp.F)-1] - sp.F[0]
 	var pts plotter.XYs
+	var levels [][]int // indices into pts by level
 	var labels []string
+	prev, level := math.Inf(-1), 0
 	for i, r := range sp.Res {
 		if math.IsNaN(r.F0) {
 			continue
 		}
 		k := nearest(sp.F, r.F0)
+		if r.F0-prev < labelGap*span {
+			level++
+		} else {
+			level = 0
+		}
+		prev = r.F0
+		for len(levels) <= level {
+			levels = append(levels, nil)
+		}
+		levels[level] = append(levels[level], len(pts))
 		pts = append(pts, plotter.XY{X: r.F0 / scale, Y: ys[k]})
-		labels = append(labels, strconv.Itoa(i+1))
+		lab := strconv.Itoa(i + 1)
+		if sp.Modes != nil && sp.Modes[i] != "" {
+			lab += "\n" + sp.Modes[i]
+		}
+		labels = append(labels, lab)
 	}
 	fig := figure.NewFigure(th, "Measured sweep and fitted resonances")
 	fig.Legend.Add("|"+sp.Name+"| measured", figure.LineThumb{LineStyle: th.Series(0)})
@@ -76,17 +124,34 @@ func (sp *SweepPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 		}
 		sc.GlyphStyle = th.Marker(2)
 		p.Add(sc)
-		lb, err := plotter.NewLabels(plotter.XYLabels{XYs: pts, Labels: labels})
-		if err != nil {
-			return nil, err
+		lines := 1
+		if sp.Modes != nil {
+			lines = 2
 		}
-		for i := range lb.TextStyle {
-			lb.TextStyle[i] = th.Text(th.TickSize, figure.Ink)
-			lb.TextStyle[i].XAlign = draw.XCenter
+		for lv, idx := range levels {
+			var xy plotter.XYLabels
+			for _, j := range idx {
+				xy.XYs = append(xy.XYs, pts[j])
+				xy.Labels = append(xy.Labels, labels[j])
+			}
+			lb, err := plotter.NewLabels(xy)
+			if err != nil {
+				return nil, err
+			}
+			sty := th.Text(th.TickSize, figure.Ink)
+			sty.XAlign, sty.YAlign = draw.XCenter, draw.YBottom
+			for i := range lb.TextStyle {
+				lb.TextStyle[i] = sty
+			}
+			h := sty.Rectangle("0").Size().Y
+			lb.Offset = vg.Point{Y: vg.Points(5) + vg.Length(lv*lines)*h*1.1}
+			p.Add(lb)
 		}
-		lb.Offset = vg.Point{Y: vg.Points(5)}
-		p.Add(lb)
-		fig.Legend.Add("fitted resonance (numbered as in the table)", figure.GlyphThumb{GlyphStyle: th.Marker(2)})
+		what := "fitted resonance (numbered as in the table)"
+		if sp.Modes != nil {
+			what = "fitted resonance: number as in the table, identified mode (? = no cavity mode)"
+		}
+		fig.Legend.Add(what, figure.GlyphThumb{GlyphStyle: th.Marker(2)})
 	}
 	fig.Panels = []*plot.Plot{p}
 	return fig, nil
@@ -198,9 +263,8 @@ func (fp *FitPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	}
 	l2.LineStyle = th.Series(2)
 	plane.Add(l2)
-	// Equal ranges on both axes, a square around the data; the circle is
-	// drawn round only where the panel is square (it is an ellipse on a
-	// wide page).
+	// Equal ranges on both axes around the data; the figure widens one of
+	// them at draw time so that the circle is round (Figure.Equal).
 	xmin, xmax, ymin, ymax := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
 	for _, q := range [][]plotter.XY{circ, fitC} {
 		for _, v := range q {
@@ -216,6 +280,7 @@ func (fp *FitPlot) Figure(th figure.Theme) (*figure.Figure, error) {
 	title := fmt.Sprintf("Resonance %d: f0 = %.9g GHz, QL = %.6g", fp.Index, c.F0/1e9, c.QL)
 	fig := figure.NewFigure(th, title)
 	fig.Panels = []*plot.Plot{mag, plane}
+	fig.Equal = []*plot.Plot{plane}
 	fig.Legend.Add("measured", figure.GlyphThumb{GlyphStyle: sc.GlyphStyle})
 	fig.Legend.Add("linear fractional fit (Kajfez 1994)", figure.LineThumb{LineStyle: th.Series(2)})
 	fig.Notes = []string{fmt.Sprintf("%d points; RMS residual %.3g; cable delay removed %.4g ns", c.Points, c.Residual, c.Delay*1e9)}

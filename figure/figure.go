@@ -2,6 +2,7 @@ package figure
 
 import (
 	"image/color"
+	"slices"
 	"strings"
 
 	"gonum.org/v1/plot"
@@ -26,6 +27,11 @@ type Figure struct {
 	Notes []string
 	// Theme gives the title and note fonts.
 	Theme Theme
+	// Equal lists panels (among Panels) drawn with equal scales on both
+	// axes, one data unit as long across as up, so that a circle in the
+	// data is round on the page: the axis range that is short for its
+	// side is widened about its centre at draw time.
+	Equal []*plot.Plot
 }
 
 // NewFigure returns an empty figure in the theme with the given title.
@@ -79,8 +85,50 @@ func (f *Figure) Draw(c draw.Canvas) {
 	tiles := draw.Tiles{Rows: len(f.Panels), Cols: 1, PadY: vg.Points(12)}
 	cs := plot.Align(rows, tiles, c)
 	for i, p := range f.Panels {
+		if slices.Contains(f.Equal, p) {
+			drawEqual(p, cs[i][0])
+			continue
+		}
 		p.Draw(cs[i][0])
 	}
+}
+
+// drawEqual draws p on c with equal data scales on both axes (see
+// equalRanges), restoring p's axis ranges afterwards so that drawing again
+// at another size starts from the same ranges.
+func drawEqual(p *plot.Plot, c draw.Canvas) {
+	x0, x1, y0, y1 := p.X.Min, p.X.Max, p.Y.Min, p.Y.Max
+	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = equalRanges(p, c)
+	p.Draw(c)
+	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
+}
+
+// equalRanges returns the axis ranges of p widened about their centres so
+// that one data unit is as long on both axes of p's data area in c. The
+// widened range can change the tick labels' width, and so the data area:
+// two passes settle it. p's ranges are left as they were.
+func equalRanges(p *plot.Plot, c draw.Canvas) (xMin, xMax, yMin, yMax float64) {
+	x0, x1, y0, y1 := p.X.Min, p.X.Max, p.Y.Min, p.Y.Max
+	defer func() { p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1 }()
+	xMin, xMax, yMin, yMax = x0, x1, y0, y1
+	for pass := 0; pass < 2; pass++ {
+		p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = xMin, xMax, yMin, yMax
+		da := p.DataCanvas(c)
+		w, h := float64(da.Size().X), float64(da.Size().Y)
+		if !(w > 0 && h > 0 && x1 > x0 && y1 > y0) {
+			break
+		}
+		xMin, xMax, yMin, yMax = x0, x1, y0, y1
+		sx, sy := (x1-x0)/w, (y1-y0)/h // data units per point
+		if sx > sy {
+			cy, half := (y0+y1)/2, sx*h/2
+			yMin, yMax = cy-half, cy+half
+		} else {
+			cx, half := (x0+x1)/2, sy*w/2
+			xMin, xMax = cx-half, cx+half
+		}
+	}
+	return xMin, xMax, yMin, yMax
 }
 
 // wrap breaks s at spaces into lines no wider than width in style sty; a

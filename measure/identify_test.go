@@ -11,27 +11,25 @@ import (
 	"cylcav/physics"
 )
 
-// TestIdentify: the synthetic whole-cavity sweep of
-// testdata/measure/gen_modes.py (modes of a cavity built 0.08 mm wider and
-// 0.15 mm shorter than drawn, each moved by 150 ppm, a split TE011/TM111
-// pair and a coupling-loop resonance) is fitted, and Identify recovers the
-// built D and L within its stated uncertainty, names every mode, resolves
-// the pair by Q and flags the loop.
-func TestIdentify(t *testing.T) {
+type modesTruth struct {
+	D    float64 `json:"diameter_m"`
+	L    float64 `json:"length_m"`
+	NomD float64 `json:"nominal_diameter_m"`
+	NomL float64 `json:"nominal_length_m"`
+	Res  []struct {
+		Label string  `json:"label"`
+		F0    float64 `json:"f0_hz"`
+	} `json:"resonances"`
+}
+
+// modesSweep reads the truth of testdata/measure/modes.s2p and fits the sweep.
+func modesSweep(t *testing.T) (modesTruth, []Resonance) {
+	t.Helper()
 	b, err := os.ReadFile("../testdata/measure/modes_truth.json")
 	if err != nil {
 		t.Fatal(err)
 	}
-	var truth struct {
-		D    float64 `json:"diameter_m"`
-		L    float64 `json:"length_m"`
-		NomD float64 `json:"nominal_diameter_m"`
-		NomL float64 `json:"nominal_length_m"`
-		Res  []struct {
-			Label string  `json:"label"`
-			F0    float64 `json:"f0_hz"`
-		} `json:"resonances"`
-	}
+	var truth modesTruth
 	if err := json.Unmarshal(b, &truth); err != nil {
 		t.Fatal(err)
 	}
@@ -39,6 +37,17 @@ func TestIdentify(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	return truth, rs
+}
+
+// TestIdentify: the synthetic whole-cavity sweep of
+// testdata/measure/gen_modes.py (modes of a cavity built 0.08 mm wider and
+// 0.15 mm shorter than drawn, each moved by 150 ppm, a split TE011/TM111
+// pair and a coupling-loop resonance) is fitted, and Identify recovers the
+// built D and L within its stated uncertainty, names every mode, resolves
+// the pair by Q and flags the loop.
+func TestIdentify(t *testing.T) {
+	truth, rs := modesSweep(t)
 	if len(rs) != len(truth.Res) {
 		t.Fatalf("%d resonances found, want %d", len(rs), len(truth.Res))
 	}
@@ -175,5 +184,72 @@ func TestIdentifyFill(t *testing.T) {
 	}
 	if id.Cavity.Radius != c.Radius || id.Cavity.Length != c.Length {
 		t.Errorf("FitFill moved the dimensions: %+v", id.Cavity)
+	}
+}
+
+// TestIdentifyFromHint: the same synthetic sweep as TestIdentify, with no
+// drawn size, only the frequency range of the sweep and the hint "the
+// resonance near 10.36 GHz is TE011". CavityFromHint's start and
+// Identify's fit recover the built D and L within the stated uncertainty
+// and name every mode as the generator made it (gen_modes.py).
+func TestIdentifyFromHint(t *testing.T) {
+	truth, rs := modesSweep(t)
+	f0 := make([]float64, len(rs))
+	q0 := make([]float64, len(rs))
+	for i, r := range rs {
+		f0[i], q0[i] = r.F0, r.Q0
+	}
+	te011 := cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
+	h, err := CavityFromHint(f0, ModeHint{Mode: te011, F: 10.36e9}, physics.Medium{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if h.Ambiguous {
+		t.Errorf("ambiguous: D/L %.4g and %.4g fit alike", 2*h.Cavity.Radius/h.Cavity.Length, 2*h.Alternative.Radius/h.Alternative.Length)
+	}
+	if truth.Res[h.Hinted].Label != "TE011" {
+		t.Errorf("hinted resonance %d is %s, want TE011", h.Hinted, truth.Res[h.Hinted].Label)
+	}
+	// The loop resonance is near no mode; every other is.
+	if h.Near != len(f0)-1 {
+		t.Errorf("%d resonances near modes of the start, want %d", h.Near, len(f0)-1)
+	}
+	id, err := Identify(f0, q0, IdentifySettings{Nominal: h.Cavity})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("start D = %.4f mm, L = %.4f mm; fitted D = %.5f +- %.5f mm, L = %.5f +- %.5f mm",
+		2e3*h.Cavity.Radius, 1e3*h.Cavity.Length, 2e3*id.Cavity.Radius, 2e3*id.RadiusErr, 1e3*id.Cavity.Length, 1e3*id.LengthErr)
+	within(t, "radius", id.Cavity.Radius, id.RadiusErr, truth.D/2)
+	within(t, "length", id.Cavity.Length, id.LengthErr, truth.L)
+	for i, w := range truth.Res {
+		a := id.Assign[i]
+		if w.Label == "loop" {
+			if a.Matched {
+				t.Errorf("resonance %d (coupling loop) matched to %v", i, a.Mode)
+			}
+			continue
+		}
+		if !a.Matched || a.Mode.String() != w.Label {
+			t.Errorf("resonance %d at %.4g GHz: %v (matched %v), want %s", i, w.F0/1e9, a.Mode, a.Matched, w.Label)
+		}
+	}
+}
+
+// TestCavityFromHintAmbiguous: a single resonance with its hint fits any
+// ratio at all (the hinted mode is put on it at every ratio): the search
+// says so. A hint far from every resonance is an
+// error.
+func TestCavityFromHintAmbiguous(t *testing.T) {
+	te011 := cavity.Mode{Family: cavity.TE, N: 0, M: 1, P: 1}
+	h, err := CavityFromHint([]float64{10e9}, ModeHint{Mode: te011, F: 10e9}, physics.Medium{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !h.Ambiguous {
+		t.Errorf("one resonance: not reported ambiguous")
+	}
+	if _, err := CavityFromHint([]float64{9e9, 10e9}, ModeHint{Mode: te011, F: 12e9}, physics.Medium{}); err == nil {
+		t.Errorf("hint 2 GHz from every resonance accepted")
 	}
 }

@@ -23,7 +23,7 @@ type ScenarioFlags struct {
 	wall                                     physics.Conductor
 	objective                                cavity.Objective
 	tolDist                                  cavity.Distribution
-	demo                                     string
+	demo                                     func() (design.Scenario, error) // the built-in scenario of --demo
 	mode                                     cavity.Mode
 	freq, maxD, maxL, tuning, minClear, minQ float64
 	ratioLo, ratioHi, tempLo, tempHi         float64
@@ -90,7 +90,9 @@ func AddScenarioFlags(cmd *cobra.Command) *ScenarioFlags {
 	for _, mc := range []string{"samples", "seed", "tolerance-dist"} {
 		Needs(cmd, mc, "tolerance", "tolerance-length")
 	}
-	f.StringVar(&sf.demo, "demo", "link", "built-in invented scenario used when no design flag is given: link (TE011 reference cavity of a microwave link) | cell (superconducting TM010 accelerator cell at 2 K)")
+	EnumVar(f, &sf.demo, "demo", "link", "built-in invented scenario used when no design flag is given: link (TE011 reference cavity of a microwave link) | cell (superconducting TM010 accelerator cell at 2 K)", "demo scenario",
+		Choice[func() (design.Scenario, error)]{Word: "link", Value: design.Demo},
+		Choice[func() (design.Scenario, error)]{Word: "cell", Value: design.DemoCell})
 	return sf
 }
 
@@ -105,13 +107,7 @@ func (sf *ScenarioFlags) Scenario() (design.Scenario, error) {
 		}
 	})
 	if demo {
-		switch sf.demo {
-		case "link":
-			return design.Demo()
-		case "cell":
-			return design.DemoCell()
-		}
-		return design.Scenario{}, FlagError("demo", sf.demo, fmt.Errorf("unknown demo scenario; use link|cell"))
+		return sf.demo()
 	}
 	if sf.flags.Changed("demo") {
 		return design.Scenario{}, Usagef("--demo takes no other design flags: it runs a built-in scenario")

@@ -90,33 +90,6 @@ func Length(flag, value string, min, max float64) (float64, error) {
 	return v, nil
 }
 
-// Frequency parses the value of a frequency flag (10GHz, 915 MHz, 1e9) into
-// hertz and checks that it lies in [min, max].
-func Frequency(flag, value string, min, max float64) (float64, error) {
-	v, err := ParseFrequency(flag, value)
-	if err != nil {
-		return 0, err
-	}
-	if math.IsNaN(v) || v < min || v > max {
-		return 0, FlagError(flag, value, fmt.Errorf("must be between %s and %s",
-			TrimZeros(physics.FormatFrequency(min, 4)), TrimZeros(physics.FormatFrequency(max, 4))))
-	}
-	return v, nil
-}
-
-// Number parses a plain dimensionless flag value (physics.ParseNumber:
-// nothing may follow the number) and checks that it lies in [min, max].
-func Number(flag, value string, min, max float64) (float64, error) {
-	v, err := physics.ParseNumber(value)
-	if err != nil {
-		return 0, FlagError(flag, value, fmt.Errorf("%w; want a number between %g and %g", err, min, max))
-	}
-	if v < min || v > max {
-		return 0, FlagError(flag, value, fmt.Errorf("must be between %g and %g", min, max))
-	}
-	return v, nil
-}
-
 // TrimZeros drops the trailing zeros of a quantity formatted by package
 // physics ("25.0000 mm" -> "25 mm", "5.00000 GHz" -> "5 GHz") for header
 // lines, where columns need not align. Anything else is returned as is.
@@ -126,18 +99,4 @@ func TrimZeros(s string) string {
 		return s
 	}
 	return strings.TrimRight(strings.TrimRight(v, "0"), ".") + " " + unit
-}
-
-// Fraction parses the value of a percentage flag (2%, or the fraction
-// 0.02) and checks that it lies in [lo, hi]; the one parser of every
-// percentage flag, as FractionVar is for typed flags.
-func Fraction(flag, value string, lo, hi float64) (float64, error) {
-	v, err := physics.ParseFraction(value)
-	if err != nil {
-		return 0, FlagError(flag, value, err)
-	}
-	if !(v >= lo && v <= hi) {
-		return 0, FlagError(flag, value, fmt.Errorf("must be between %s and %s", showPercent(lo), showPercent(hi)))
-	}
-	return v, nil
 }

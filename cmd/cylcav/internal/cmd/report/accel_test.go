@@ -143,7 +143,7 @@ func TestAccelBadInput(t *testing.T) {
 		{Args: with("--particle-speed", "1.2"), Code: 2, Want: []string{"--particle-speed", "between"}},
 		{Args: with("--bunch-freq", "650MHz"), Code: 2, Want: []string{"--bunch-freq needs --hom-max"}},
 		{Args: []string{"-o", o, "--mode", "TE011", "--freq", "10GHz", "--wall", "copper", "--gradient", "5MV/m"}, Code: 2, Want: []string{"TM0mp"}},
-		{Args: []string{"-o", o, "--demo", "nope"}, Code: 2, Want: []string{"--demo", "link|cell"}},
+		{Args: []string{"-o", o, "--demo", "nope"}, Code: 2, Want: []string{"--demo", "link or cell"}},
 		{Args: []string{"-o", o, "--demo", "cell", "--mode", "TM010"}, Code: 2, Want: []string{"--demo takes no other"}},
 	})
 	if _, err := os.Stat(o); err == nil {

@@ -41,6 +41,12 @@ type Options struct {
 	Identify bool
 	Ident    measure.IdentifySettings
 
+	// Hint, when set (--mode-hint), replaces the drawn size: the starting
+	// cavity comes from measure.CavityFromHint.
+	Hint     *measure.ModeHint
+	hintText string // --mode-hint as given
+	hinted   *measure.HintSearch
+
 	// Walls, when set (--wall), gives each identified mode's model Q0 for
 	// the wall diagnosis.
 	Walls *qfactor.WallSet
@@ -57,6 +63,7 @@ func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.C
 	opts := &Options{IO: io}
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
+	var hint string
 	cmd := &cobra.Command{
 		Use:   "resonances SWEEP.s1p|SWEEP.s2p [flags]",
 		Short: "Find and fit the resonances of a measured sweep: f0, loaded Q, coupling, Q0",
@@ -87,6 +94,21 @@ resolved by Q (TE0mp has the higher Q) and its splitting printed, and a
 resonance that matches no mode within 0.3 % is flagged (a coupling
 structure's own resonance, or a cavity far from its drawing).
 
+With the size, each named mode's Q0 also gives the conductivity of smooth
+uniform walls that would explain it, its spread across modes, and a TE0mp
+vs TM comparison that points at the end-plate joints; with --wall METAL,
+the model's Q0 and the equivalent RMS roughness of that metal under
+--roughness-model (a mode losing more than any roughness explains is
+marked so).
+
+Without the drawn size, --mode-hint MODE@FREQ names the mode of one
+resonance (the one nearest FREQ, within 2 %), e.g. TE011@10.36GHz: the
+ratio D/L between 0.2 and 5 that puts modes nearest the most other
+resonances (discounting the matches a dense spectrum gives by chance)
+starts the same fit. It says when another ratio fits about as well; then
+give a second resonance's mode by measuring with a different coupling, or
+the drawn size.
+
 With --empty EMPTY, the main sweep is the same cavity completely filled
 with a dielectric (nominal value from --fill): the empty sweep gives the
 effective D and L (and, with --wall, the wall diagnosis); the filled sweep,
@@ -94,7 +116,8 @@ identified in that cavity, gives the fill's eps_r = (f_empty/f_filled)^2
 and loss tangent from the two Q0 values of each mode found in both, with
 their uncertainties (fits and wall model; the dimensions cancel).
 
---plot writes the sweep with the resonances numbered; --fit-plots BASE.EXT
+--plot writes the sweep with the resonances numbered (and their modes,
+when named); --fit-plots BASE.EXT
 writes one plot per resonance (BASE-1.EXT, BASE-2.EXT, ...): measured
 points against the fitted curve, in dB and in the complex plane. The file
 type follows the extension: .png, .svg or .pdf. Existing files are
@@ -118,13 +141,16 @@ replaced only with --force.`,
   ...
   Mean 2.0 % IACS (1.15 MS/m), spread 0.6 % IACS across 8 modes; TE0mp modes 2.6 %, TM modes 1.4 %.
 
+  # The same cavity without its drawing: only the TE011 resonance is known
+  $ cylcav resonances testdata/measure/modes.s2p --mode-hint TE011@10.36GHz
+
   # Measure a fill: the same cavity empty and completely filled with PTFE
   $ cylcav resonances testdata/measure/modes_filled.s2p --empty testdata/measure/modes.s2p --diameter 40mm --length 31mm --fill ptfe
   ...
   Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if err := opts.parse(cmd, args, geo, walls); err != nil {
+			if err := opts.parse(cmd, args, geo, walls, hint); err != nil {
 				return err
 			}
 			if runF != nil {
@@ -146,6 +172,7 @@ replaced only with --force.`,
 	})
 	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&opts.Empty, "empty", "", "sweep of the same cavity empty: the main sweep is then the cavity completely filled, and the fill is measured (needs --diameter, --length, --fill)")
+	f.StringVar(&hint, "mode-hint", "", "without the drawn size: the mode of one resonance, MODE@FREQ, e.g. TE011@10.36GHz")
 	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
@@ -155,11 +182,26 @@ replaced only with --force.`,
 	return cmd
 }
 
-func (opts *Options) parse(cmd *cobra.Command, args []string, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags) error {
+func (opts *Options) parse(cmd *cobra.Command, args []string, geo *cmdutil.GeometryFlags, walls *cmdutil.WallFlags, hint string) error {
 	if err := cmdutil.RejectEmptyFlags(cmd); err != nil {
 		return err
 	}
-	if geo.Changed("diameter") || geo.Changed("radius") || geo.Changed("length") || geo.Changed("fill") {
+	if cmd.Flags().Changed("mode-hint") {
+		for _, name := range []string{"diameter", "radius", "length", "empty", "fit-fill"} {
+			if cmd.Flags().Changed(name) {
+				return cmdutil.Usagef("--mode-hint replaces the drawn size; leave out --%s", name)
+			}
+		}
+		h, err := parseHint(hint)
+		if err != nil {
+			return err
+		}
+		fill, err := geo.Fill()
+		if err != nil {
+			return err
+		}
+		opts.Hint, opts.hintText, opts.Identify, opts.Ident.Nominal.Fill = &h, hint, true, fill
+	} else if geo.Changed("diameter") || geo.Changed("radius") || geo.Changed("length") || geo.Changed("fill") {
 		c, err := geo.Cavity()
 		if err != nil {
 			return err
@@ -202,6 +244,23 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, geo *cmdutil.Geome
 		}
 	}
 	return nil
+}
+
+// parseHint parses --mode-hint MODE@FREQ.
+func parseHint(v string) (measure.ModeHint, error) {
+	mode, freq, ok := strings.Cut(v, "@")
+	if !ok {
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, errors.New("want MODE@FREQ, e.g. TE011@10.36GHz"))
+	}
+	m, err := cavity.ParseMode(mode)
+	if err != nil {
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, err)
+	}
+	f, err := cmdutil.Frequency("mode-hint", strings.TrimSpace(freq), 1e6, 1e13)
+	if err != nil {
+		return measure.ModeHint{}, err
+	}
+	return measure.ModeHint{Mode: m, F: f}, nil
 }
 
 // readSweep reads the sweep file; a missing or malformed file is bad
@@ -267,6 +326,11 @@ func runResonances(opts *Options) error {
 		}
 		fill.empty = idE
 	} else if opts.Identify {
+		if opts.Hint != nil {
+			if err := startFromHint(opts, rs); err != nil {
+				return err
+			}
+		}
 		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
 			return err
 		}
@@ -274,7 +338,7 @@ func runResonances(opts *Options) error {
 			return fmt.Errorf("%s: %w", opts.File, err)
 		}
 	}
-	files, err := renderPlots(opts, d, rs)
+	files, err := renderPlots(opts, d, rs, id)
 	if err != nil {
 		return err
 	}
@@ -288,6 +352,9 @@ func runResonances(opts *Options) error {
 		o := toJSON(opts.File, d, rs, id)
 		o.Walls = wallsJSON(wd)
 		o.Fill = fill.json()
+		if h := opts.hinted; h != nil && o.Cavity != nil {
+			o.Cavity.HintIndex, o.Cavity.HintAmbiguous = h.Hinted+1, &h.Ambiguous
+		}
 		return cmdutil.WriteJSON(opts.IO.Out, o)
 	case cmdutil.CSV:
 		return writeCSV(opts, rs, id)
@@ -314,7 +381,7 @@ type outFile struct {
 
 // renderPlots renders every requested plot in memory, so that a failure
 // leaves no file behind.
-func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance) ([]outFile, error) {
+func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) ([]outFile, error) {
 	th := figure.DefaultTheme()
 	name, main := "S21", func() []complex128 { return nil }
 	if d.Ports == 1 {
@@ -328,6 +395,11 @@ func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance) ([]o
 		sp, err := benchplot.NewSweepPlot(d.Freq, main(), name, rs)
 		if err != nil {
 			return nil, err
+		}
+		if id != nil {
+			if err := sp.SetModes(id); err != nil {
+				return nil, err
+			}
 		}
 		fig, err := sp.Figure(th)
 		if err != nil {
@@ -416,6 +488,11 @@ type cavityJSON struct {
 	EpsRErr      number     `json:"eps_r_err"`
 	RMSResidual  number     `json:"rms_residual"`
 	Pairs        []pairJSON `json:"split_pairs"`
+
+	// With --mode-hint: the hinted resonance (1-based) and whether
+	// another ratio D/L fits about as well.
+	HintIndex     int   `json:"hint_index,omitempty"`
+	HintAmbiguous *bool `json:"hint_ambiguous,omitempty"`
 }
 
 type pairJSON struct {
@@ -587,9 +664,20 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *m
 			fmt.Fprintf(w, "Fitted fill: eps_r = %s with D = %s, L = %s held; RMS residual %.0f ppm.\n",
 				pm(c.Fill.Eps(), id.EpsErr, 1), physics.FormatLength(c.Diameter(), 6), physics.FormatLength(c.Length, 6), 1e6*id.RMS)
 		} else {
-			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (drawn %s, %s); RMS residual %.0f ppm.\n",
-				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3),
+			from := "drawn"
+			if opts.hinted != nil {
+				from = fmt.Sprintf("started from %s at resonance %d:", opts.Hint.Mode, opts.hinted.Hinted+1)
+			}
+			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (%s %s, %s); RMS residual %.0f ppm.\n",
+				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3), from,
 				physics.FormatLength(opts.Ident.Nominal.Diameter(), 6), physics.FormatLength(opts.Ident.Nominal.Length, 6), 1e6*id.RMS)
+		}
+		if h := opts.hinted; h != nil {
+			fmt.Fprintf(w, "Mode hint: %d of %d resonances near a mode of the start (%.1f expected by chance).\n", h.Near, len(id.Assign), h.Chance)
+			if h.Ambiguous {
+				fmt.Fprintf(w, "Caution: D/L = %.3f (D = %s, L = %s) fits the resonances about as well; the naming is not certain. Give the drawn size or a second resonance's mode.\n",
+					h.Alternative.Diameter()/h.Alternative.Length, physics.FormatLength(h.Alternative.Diameter(), 5), physics.FormatLength(h.Alternative.Length, 5))
+			}
 		}
 		for _, p := range id.Pairs {
 			fmt.Fprintf(w, "Resonances %d (%s) and %d (%s): a degenerate pair split by %s; the higher Q is taken as %s.\n",
@@ -659,15 +747,25 @@ type modeWallJSON struct {
 	ModelQ0      number `json:"model_q0"`
 	ModelIACS    number `json:"model_iacs_fraction"`
 	Conductivity number `json:"conductivity_s_per_m"`
+	// With --wall: the equivalent RMS roughness and what was found
+	// (found, smoother, beyond, no_effect).
+	Roughness    *number `json:"roughness_m,omitempty"`
+	RoughnessErr *number `json:"roughness_err_m,omitempty"`
+	RoughVerdict string  `json:"roughness_verdict,omitempty"`
 }
 
 type wallJSON struct {
-	Mean         number         `json:"mean_iacs_fraction"`
-	Spread       number         `json:"spread_iacs_fraction"`
-	TE0          number         `json:"te0_iacs_fraction"`
-	TM           number         `json:"tm_iacs_fraction"`
-	JointSuspect bool           `json:"end_plate_contact_suspect"`
-	Modes        []modeWallJSON `json:"modes"`
+	Mean         number `json:"mean_iacs_fraction"`
+	Spread       number `json:"spread_iacs_fraction"`
+	TE0          number `json:"te0_iacs_fraction"`
+	TM           number `json:"tm_iacs_fraction"`
+	JointSuspect bool   `json:"end_plate_contact_suspect"`
+	// With --wall: the roughness model and the equivalent roughness's
+	// mean and spread over the modes where it was found.
+	RoughModel  string         `json:"roughness_model,omitempty"`
+	RoughMean   *number        `json:"mean_roughness_m,omitempty"`
+	RoughSpread *number        `json:"spread_roughness_m,omitempty"`
+	Modes       []modeWallJSON `json:"modes"`
 }
 
 func wallsJSON(wd *measure.WallDiagnosis) *wallJSON {
@@ -675,12 +773,49 @@ func wallsJSON(wd *measure.WallDiagnosis) *wallJSON {
 		return nil
 	}
 	o := &wallJSON{Mean: number(wd.Mean), Spread: number(wd.Spread), TE0: number(wd.TE0), TM: number(wd.TM), JointSuspect: wd.Joint}
+	num := func(v float64) *number { n := number(v); return &n }
+	withWalls := len(wd.Modes) > 0 && wd.Modes[0].Rough != measure.RoughNone
+	if withWalls {
+		o.RoughModel, o.RoughMean, o.RoughSpread = wd.RoughModel.String(), num(wd.RoughMean), num(wd.RoughSpread)
+	}
 	for _, m := range wd.Modes {
-		o.Modes = append(o.Modes, modeWallJSON{Index: m.Index + 1, Mode: m.Mode.String(), Q0: number(m.Q0), QWall: number(m.QWall),
+		mj := modeWallJSON{Index: m.Index + 1, Mode: m.Mode.String(), Q0: number(m.Q0), QWall: number(m.QWall),
 			IACS: number(m.IACS), IACSErr: number(m.IACSErr), ModelQ0: number(m.ModelQ0), ModelIACS: number(m.ModelIACS),
-			Conductivity: number(m.IACS * physics.IACSConductivity)})
+			Conductivity: number(m.IACS * physics.IACSConductivity)}
+		if withWalls {
+			mj.Roughness, mj.RoughnessErr, mj.RoughVerdict = num(m.Roughness), num(m.RoughnessErr), roughKey(m.Rough)
+		}
+		o.Modes = append(o.Modes, mj)
 	}
 	return o
+}
+
+// roughKey is the stable JSON name of a roughness verdict.
+func roughKey(v measure.RoughVerdict) string {
+	switch v {
+	case measure.RoughFound:
+		return "found"
+	case measure.RoughSmoother:
+		return "smoother"
+	case measure.RoughBeyond:
+		return "beyond"
+	case measure.RoughNoEffect:
+		return "no_effect"
+	}
+	return ""
+}
+
+// roughCell is the table cell of one mode's equivalent roughness, in um.
+func roughCell(m measure.ModeWall) string {
+	switch m.Rough {
+	case measure.RoughFound:
+		return pm(m.Roughness, m.RoughnessErr, 1e-6)
+	case measure.RoughSmoother:
+		return "0 (Q above smooth)"
+	case measure.RoughBeyond:
+		return "beyond model"
+	}
+	return "n/a"
 }
 
 func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
@@ -692,13 +827,13 @@ func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
 	fmt.Fprintln(w, "Walls: the conductivity of a smooth uniform wall that gives each measured Q0 (fill loss removed):")
 	header := []string{"#", "mode", "Q0", "conductivity (% IACS)"}
 	if opts.Walls != nil {
-		header = append(header, "model Q0 (--wall)", "model (% IACS)")
+		header = append(header, "model Q0 (--wall)", "model (% IACS)", "RMS roughness (um, "+wd.RoughModel.String()+")")
 	}
 	t := cmdutil.NewTable(w, header...)
 	for _, m := range wd.Modes {
 		row := []string{strconv.Itoa(m.Index + 1), m.Mode.String(), pm(m.Q0, m.Q0Err, 1), pm(100*m.IACS, 100*m.IACSErr, 1)}
 		if opts.Walls != nil {
-			row = append(row, strconv.FormatFloat(m.ModelQ0, 'f', 0, 64), strconv.FormatFloat(100*m.ModelIACS, 'f', 1, 64))
+			row = append(row, strconv.FormatFloat(m.ModelQ0, 'f', 0, 64), strconv.FormatFloat(100*m.ModelIACS, 'f', 1, 64), roughCell(m))
 		}
 		t.Row(row...)
 	}
@@ -713,7 +848,40 @@ func writeWalls(opts *Options, wd *measure.WallDiagnosis) error {
 	if wd.Joint {
 		fmt.Fprintln(w, "The TM modes, whose wall currents cross the joints between side wall and end plates, lose clearly more than the TE0mp modes, whose currents do not: suspect the end-plate contact (clean, flatten or tighten the joints).")
 	}
+	if opts.Walls != nil {
+		found := 0
+		for _, m := range wd.Modes {
+			if m.Rough == measure.RoughFound {
+				found++
+			}
+		}
+		if found > 0 {
+			fmt.Fprintf(w, "Equivalent RMS roughness of the --wall metal under the %s model: mean %.3g um, spread %.2g um across %d modes.\n",
+				wd.RoughModel, 1e6*wd.RoughMean, 1e6*wd.RoughSpread, found)
+		}
+		if found < len(wd.Modes) {
+			fmt.Fprintln(w, "Roughness raises the surface resistance by at most a factor of 2 in these models: a mode losing more than that is not explained by roughness (contacts, coupling loss, a poorer metal), and one above the smooth model needs a better metal than --wall.")
+		}
+	}
 	fmt.Fprintln(w, "Roughness, plating and the coupling structures' own loss all lower the effective conductivity; it is a figure of merit of the walls as built, not the metal's bulk value.")
+	return nil
+}
+
+// startFromHint sets the starting cavity from --mode-hint.
+func startFromHint(opts *Options, rs []measure.Resonance) error {
+	f0 := make([]float64, 0, len(rs))
+	for _, r := range rs {
+		f0 = append(f0, r.F0)
+	}
+	if hasNaN(f0) {
+		return fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --mode-hint", opts.File)
+	}
+	h, err := measure.CavityFromHint(f0, *opts.Hint, opts.Ident.Nominal.Fill)
+	if err != nil {
+		// the hint does not fit this sweep: bad input
+		return cmdutil.FlagError("mode-hint", opts.hintText, err)
+	}
+	opts.hinted, opts.Ident.Nominal = &h, h.Cavity
 	return nil
 }
 

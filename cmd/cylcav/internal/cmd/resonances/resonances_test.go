@@ -13,6 +13,7 @@ import (
 	"cylcav/cmd/cylcav/internal/cmd/resonances"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/figure/rendertest"
+	"cylcav/physics"
 )
 
 const root = "../../../../.."
@@ -100,6 +101,10 @@ func TestBadInput(t *testing.T) {
 		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm"}, Code: 2, Want: []string{"--length"}},
 		{Args: []string{sweep("modes.s2p"), "--diameter", "-4mm", "--length", "31mm"}, Code: 2, Want: []string{`--diameter "-4mm"`}},
 		{Args: []string{sweep("modes.s2p"), "--fit-fill"}, Code: 2, Want: []string{"--fit-fill", "--diameter"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011"}, Code: 2, Want: []string{`--mode-hint "TE011"`, "MODE@FREQ"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE010@10GHz"}, Code: 2, Want: []string{`--mode-hint "TE010@10GHz"`, "TE modes need p >= 1"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011@12GHz"}, Code: 2, Want: []string{`--mode-hint "TE011@12GHz"`, "no resonance within 2 %"}},
+		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011@10.36GHz", "--length", "31mm"}, Code: 2, Want: []string{"--mode-hint", "--length"}},
 	})
 }
 
@@ -120,9 +125,19 @@ func TestNoResonance(t *testing.T) {
 }
 
 // TestIdentifyJSON: the modes of testdata/measure/gen_modes.py's sweep
-// (built D 40.08 mm, L 30.85 mm) come out in the JSON with the fitted cavity.
+// (built D 40.08 mm, L 30.85 mm) come out in the JSON with the fitted
+// cavity, from the drawn size and from a mode hint alone.
 func TestIdentifyJSON(t *testing.T) {
-	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--format", "json")
+	for _, args := range [][]string{
+		{"--diameter", "40mm", "--length", "31mm"},
+		{"--mode-hint", "TE011@10.36GHz"},
+	} {
+		t.Run(args[0], func(t *testing.T) { identifyJSON(t, args) })
+	}
+}
+
+func identifyJSON(t *testing.T, args []string) {
+	r := clitest.Run(t, append([]string{"resonances", sweep("modes.s2p"), "--format", "json"}, args...)...)
 	if r.Code != 0 {
 		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
 	}
@@ -132,6 +147,8 @@ func TestIdentifyJSON(t *testing.T) {
 			DErr float64 `json:"diameter_err_m"`
 			L    float64 `json:"length_m"`
 			LErr float64 `json:"length_err_m"`
+			Hint int     `json:"hint_index"`
+			Amb  *bool   `json:"hint_ambiguous"`
 		} `json:"fitted_cavity"`
 		Resonances []struct {
 			Mode    string
@@ -143,6 +160,9 @@ func TestIdentifyJSON(t *testing.T) {
 	}
 	if math.Abs(out.Cavity.D-40.08e-3) > 4*out.Cavity.DErr || math.Abs(out.Cavity.L-30.85e-3) > 4*out.Cavity.LErr {
 		t.Errorf("fitted D %g +- %g, L %g +- %g; built 40.08 mm, 30.85 mm", out.Cavity.D, out.Cavity.DErr, out.Cavity.L, out.Cavity.LErr)
+	}
+	if hinted := args[0] == "--mode-hint"; hinted != (out.Cavity.Amb != nil) || (hinted && (*out.Cavity.Amb || out.Cavity.Hint != 8)) {
+		t.Errorf("hint index %d, ambiguous %v; want 8 (the generator's TE011), false, only with --mode-hint", out.Cavity.Hint, out.Cavity.Amb)
 	}
 	var modes []string
 	for _, res := range out.Resonances {
@@ -167,11 +187,15 @@ func TestWallsJSON(t *testing.T) {
 	}
 	var out struct {
 		Walls struct {
-			Mean  float64 `json:"mean_iacs_fraction"`
-			Modes []struct {
+			Mean      float64 `json:"mean_iacs_fraction"`
+			Model     string  `json:"roughness_model"`
+			RoughMean float64 `json:"mean_roughness_m"`
+			Modes     []struct {
 				Mode      string
-				IACS      float64 `json:"iacs_fraction"`
-				ModelIACS float64 `json:"model_iacs_fraction"`
+				IACS      float64  `json:"iacs_fraction"`
+				ModelIACS float64  `json:"model_iacs_fraction"`
+				Rough     *float64 `json:"roughness_m"`
+				Verdict   string   `json:"roughness_verdict"`
 			}
 		}
 	}
@@ -186,6 +210,51 @@ func TestWallsJSON(t *testing.T) {
 		if math.Abs(m.ModelIACS-1) > 0.01 || !(m.IACS > 0) {
 			t.Errorf("%s: IACS %g, model %g (copper, smooth: 1)", m.Mode, m.IACS, m.ModelIACS)
 		}
+	}
+	// Copper walls give far more Q than the generator's 2.5 % IACS: no
+	// roughness explains the loss.
+	for _, m := range out.Walls.Modes {
+		if m.Verdict != "beyond" || m.Rough != nil {
+			t.Errorf("%s against copper: roughness %v (%s), want null (beyond)", m.Mode, m.Rough, m.Verdict)
+		}
+	}
+	r = clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--wall", "ss304", "--roughness-model", "groiss", "--roughness", "0.1um", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	out.Walls.Modes = nil
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	// Against stainless steel 304 (2.4 % IACS in the materials table) the
+	// generator's TE modes (2.5 %) are above the smooth model and its TM
+	// modes (2.5 % x 0.75^2: its tm_q_factor) below it: the verdict follows
+	// the comparison of each Q0 with the smooth model's wall Q.
+	ss, err := physics.LookupConductor("ss304")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var found int
+	if out.Walls.Model != "groiss" || !(out.Walls.RoughMean > 0) {
+		t.Errorf("roughness model %q, mean %g m", out.Walls.Model, out.Walls.RoughMean)
+	}
+	for _, m := range out.Walls.Modes {
+		want := "found"
+		if m.IACS > ss.IACS() {
+			want = "smoother"
+		}
+		if m.Verdict != want {
+			t.Errorf("%s: IACS %g, smooth ss304 %g: verdict %q, want %q", m.Mode, m.IACS, ss.IACS(), m.Verdict, want)
+		}
+		if m.Verdict == "found" {
+			found++
+			if !(*m.Rough > 0 && *m.Rough < 1e-4) {
+				t.Errorf("%s: roughness %g m", m.Mode, *m.Rough)
+			}
+		}
+	}
+	if found != 4 {
+		t.Errorf("%d modes with a roughness, want the 4 TM modes", found)
 	}
 	r = clitest.Run(t, "resonances", sweep("modes.s2p"), "--wall", "copper")
 	if r.Code != 2 || !strings.Contains(r.Stderr, "--wall needs the cavity's size") {

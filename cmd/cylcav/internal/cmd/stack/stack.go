@@ -66,11 +66,19 @@ type Options struct {
 	Extrapolate bool
 }
 
+// Flag limits: a particle slower than minBeta c gains no meaningful energy
+// in a cavity of any practical size (its transit-time factor is zero to
+// rounding); maxMapIndex is far above the resonances any listing holds.
+const (
+	minBeta     = 1e-3
+	maxMapIndex = 1000000
+)
+
 // NewCmdStack returns `cylcav stack`. runF, if not nil, replaces the
 // command's work (tests use it to inspect the parsed options).
 func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
-	var fmax, family, beta, pair string
+	var pair string
 	var checkFormat func() error
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
@@ -164,38 +172,12 @@ of each cell; they must be neighbours in one family.`,
 			if !cmd.Flags().Changed("fmax") {
 				return cmdutil.Usagef("missing --fmax, the upper end of the search (e.g. --fmax 12GHz)")
 			}
-			if opts.FMax, err = cmdutil.Frequency("fmax", fmax, cmdutil.MinFrequency, cmdutil.MaxFrequency); err != nil {
-				return err
-			}
-			switch strings.ToLower(family) {
-			case "both":
-				opts.Families = []cavity.Family{cavity.TE, cavity.TM}
-			case "te":
-				opts.Families = []cavity.Family{cavity.TE}
-			case "tm":
-				opts.Families = []cavity.Family{cavity.TM}
-			default:
-				return cmdutil.FlagError("family", family, fmt.Errorf("must be te, tm or both"))
-			}
-			if opts.Modes != 0 && (opts.Modes < 2 || opts.Modes > axisym.MaxModes) {
-				return cmdutil.FlagError("modes", strconv.Itoa(opts.Modes), fmt.Errorf("must be between 2 and %d", axisym.MaxModes))
-			}
 			if err := checkFormat(); err != nil {
 				return err
-			}
-			if cmd.Flags().Changed("beta") {
-				v, err := strconv.ParseFloat(beta, 64)
-				if err != nil || !(v > 0 && v <= 1) {
-					return cmdutil.FlagError("beta", beta, fmt.Errorf("must be a particle speed over c in (0, 1], e.g. 1 or 0.6"))
-				}
-				opts.Beta = v
 			}
 			if opts.FieldMap != "" {
 				if opts.MapFormat, err = figure.FormatOf(opts.FieldMap); err != nil {
 					return cmdutil.FlagError("field-map", opts.FieldMap, err)
-				}
-				if opts.MapIndex < 1 {
-					return cmdutil.FlagError("map", strconv.Itoa(opts.MapIndex), fmt.Errorf("must be a resonance number (the # column) >= 1"))
 				}
 				if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap}); err != nil {
 					return err
@@ -237,15 +219,18 @@ of each cell; they must be neighbours in one family.`,
 		},
 	}
 	fl := cmd.Flags()
-	fl.StringVar(&fmax, "fmax", "", "list every resonance below this frequency (e.g. 12GHz)")
-	fl.StringVar(&family, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both")
-	fl.StringVar(&beta, "beta", "", "particle speed over c for the accelerator figures of TM0 resonances (e.g. 1)")
+	cmdutil.FrequencyVar(fl, &opts.FMax, "fmax", "list every resonance below this frequency (e.g. 12GHz)", cmdutil.MinFrequency, cmdutil.MaxFrequency)
+	cmdutil.EnumVar(fl, &opts.Families, "family", "both", "te (TE0: E_phi), tm (TM0: E_r, E_z) or both", "family",
+		cmdutil.Choice[[]cavity.Family]{Word: "te", Value: []cavity.Family{cavity.TE}},
+		cmdutil.Choice[[]cavity.Family]{Word: "tm", Value: []cavity.Family{cavity.TM}},
+		cmdutil.Choice[[]cavity.Family]{Word: "both", Value: []cavity.Family{cavity.TE, cavity.TM}})
+	cmdutil.NumberVar(fl, &opts.Beta, "beta", "particle speed over c for the accelerator figures of TM0 resonances, 0.001..1 (e.g. 1)", minBeta, 1)
 	fl.StringVar(&opts.FieldMap, "field-map", "", "write the field map of resonance --map to this file (.png, .svg or .pdf)")
-	fl.IntVar(&opts.MapIndex, "map", 1, "resonance number (the # column) of the field map")
+	cmdutil.IntVar(fl, &opts.MapIndex, "map", 1, "resonance number (the # column) of the field map", 1, maxMapIndex)
 	fl.BoolVar(&opts.Force, "force", false, "replace the field-map file if it exists")
 	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
-	fl.IntVar(&opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section (default %d)", axisym.DefaultModes))
+	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
