@@ -256,9 +256,12 @@ func parseHint(v string) (measure.ModeHint, error) {
 	if err != nil {
 		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, err)
 	}
-	f, err := cmdutil.Frequency("mode-hint", strings.TrimSpace(freq), 1e6, 1e13)
+	f, err := cmdutil.FrequencyOf(strings.TrimSpace(freq))
 	if err != nil {
-		return measure.ModeHint{}, err
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, err)
+	}
+	if !(f >= 1e6 && f <= 1e13) {
+		return measure.ModeHint{}, cmdutil.FlagError("mode-hint", v, errors.New("the frequency must be between 1 MHz and 10 THz"))
 	}
 	return measure.ModeHint{Mode: m, F: f}, nil
 }
@@ -321,10 +324,11 @@ func runResonances(opts *Options) error {
 		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
 			return err
 		}
-		if fill, err = measureFill(rsE, idE, rs, id); err != nil {
+		f, err := measure.MeasureFill(rsE, *idE, rs, *id)
+		if err != nil {
 			return fmt.Errorf("%s and %s: %w", opts.Empty, opts.File, err)
 		}
-		fill.empty = idE
+		fill = &fillResult{empty: idE, Fill: f}
 	} else if opts.Identify {
 		if opts.Hint != nil {
 			if err := startFromHint(opts, rs); err != nil {
@@ -902,67 +906,12 @@ func identify(file string, rs []measure.Resonance, set measure.IdentifySettings)
 	return &id, nil
 }
 
-// fillMode is the fill measured at one mode.
-type fillMode struct {
-	mode            cavity.Mode
-	fEmpty, fFilled float64
-	r               measure.DielectricResult
-}
-
+// fillResult is the fill measured from the empty and filled sweeps, with
+// the empty sweep's identification for the header.
 type fillResult struct {
 	empty *measure.Identification
-	modes []fillMode
-	// eps and tand are the means weighted by 1/err^2; their uncertainty is
-	// that of the best single mode, since the wall-model term is common to
-	// every mode and does not average out.
-	eps, epsErr, tand, tandErr float64
+	measure.Fill
 }
-
-// measureFill pairs the modes found matched and resolved in both sweeps
-// and measures the fill at each.
-func measureFill(rsE []measure.Resonance, idE *measure.Identification, rsF []measure.Resonance, idF *measure.Identification) (*fillResult, error) {
-	find := func(id *measure.Identification, m cavity.Mode) int {
-		for i, a := range id.Assign {
-			if a.Matched && !a.Unresolved && a.Mode == m {
-				return i
-			}
-		}
-		return -1
-	}
-	fr := &fillResult{epsErr: math.Inf(1), tandErr: math.Inf(1)}
-	var we, wt, se, st float64
-	for i, a := range idE.Assign {
-		if !a.Matched || a.Unresolved {
-			continue
-		}
-		j := find(idF, a.Mode)
-		if j < 0 {
-			continue
-		}
-		e, f := rsE[i], rsF[j]
-		r, err := measure.MeasureDielectric(measure.DielectricInput{
-			FEmpty: e.F0, FEmptyErr: e.F0Err, FFilled: f.F0, FFilledErr: f.F0Err,
-			Q0Empty: e.Q0, Q0EmptyErr: e.Q0Err, Q0Filled: f.Q0, Q0FilledErr: f.Q0Err,
-		})
-		if err != nil {
-			return nil, fmt.Errorf("%v: %w", a.Mode, err)
-		}
-		fr.modes = append(fr.modes, fillMode{mode: a.Mode, fEmpty: e.F0, fFilled: f.F0, r: r})
-		we += 1 / sq(r.EpsRErr)
-		se += r.EpsR / sq(r.EpsRErr)
-		wt += 1 / sq(r.TanDeltaErr)
-		st += r.TanDelta / sq(r.TanDeltaErr)
-		fr.epsErr = math.Min(fr.epsErr, r.EpsRErr)
-		fr.tandErr = math.Min(fr.tandErr, r.TanDeltaErr)
-	}
-	if len(fr.modes) == 0 {
-		return nil, fmt.Errorf("no mode is identified in both sweeps, so the fill cannot be measured")
-	}
-	fr.eps, fr.tand = se/we, st/wt
-	return fr, nil
-}
-
-func sq(x float64) float64 { return x * x }
 
 type fillModeJSON struct {
 	Mode        string `json:"mode"`
@@ -988,11 +937,11 @@ func (fr *fillResult) json() *fillJSON {
 	if fr == nil {
 		return nil
 	}
-	o := &fillJSON{EpsR: number(fr.eps), EpsRErr: number(fr.epsErr), TanDelta: number(fr.tand), TanDeltaErr: number(fr.tandErr),
+	o := &fillJSON{EpsR: number(fr.EpsR), EpsRErr: number(fr.EpsRErr), TanDelta: number(fr.TanDelta), TanDeltaErr: number(fr.TanDeltaErr),
 		EmptyDM: number(fr.empty.Cavity.Diameter()), EmptyLM: number(fr.empty.Cavity.Length)}
-	for _, m := range fr.modes {
-		o.Modes = append(o.Modes, fillModeJSON{Mode: m.mode.String(), FEmptyHz: number(m.fEmpty), FFilledHz: number(m.fFilled),
-			EpsR: number(m.r.EpsR), EpsRErr: number(m.r.EpsRErr), TanDelta: number(m.r.TanDelta), TanDeltaErr: number(m.r.TanDeltaErr)})
+	for _, m := range fr.Modes {
+		o.Modes = append(o.Modes, fillModeJSON{Mode: m.Mode.String(), FEmptyHz: number(m.FEmpty), FFilledHz: number(m.FFilled),
+			EpsR: number(m.Result.EpsR), EpsRErr: number(m.Result.EpsRErr), TanDelta: number(m.Result.TanDelta), TanDeltaErr: number(m.Result.TanDeltaErr)})
 	}
 	return o
 }
@@ -1008,10 +957,10 @@ func writeFill(opts *Options, fr *fillResult) error {
 		pm(c.Diameter(), 2*fr.empty.RadiusErr, 1e-3), pm(c.Length, fr.empty.LengthErr, 1e-3), opts.File)
 	t := cmdutil.NewTable(w, "mode", "f empty (GHz)", "f filled (GHz)", "eps_r", "tan delta")
 	best := 0
-	for i, m := range fr.modes {
-		t.Row(m.mode.String(), strconv.FormatFloat(m.fEmpty/1e9, 'f', 6, 64), strconv.FormatFloat(m.fFilled/1e9, 'f', 6, 64),
-			pm(m.r.EpsR, m.r.EpsRErr, 1), pm(1e4*m.r.TanDelta, 1e4*m.r.TanDeltaErr, 1)+" e-4")
-		if m.r.TanDeltaErr < fr.modes[best].r.TanDeltaErr {
+	for i, m := range fr.Modes {
+		t.Row(m.Mode.String(), strconv.FormatFloat(m.FEmpty/1e9, 'f', 6, 64), strconv.FormatFloat(m.FFilled/1e9, 'f', 6, 64),
+			pm(m.Result.EpsR, m.Result.EpsRErr, 1), pm(1e4*m.Result.TanDelta, 1e4*m.Result.TanDeltaErr, 1)+" e-4")
+		if m.Result.TanDeltaErr < fr.Modes[best].Result.TanDeltaErr {
 			best = i
 		}
 	}
@@ -1019,11 +968,11 @@ func writeFill(opts *Options, fr *fillResult) error {
 		return err
 	}
 	fmt.Fprintf(w, "Mean over %d modes (weighted): eps_r = %s, tan delta = %s e-4 (uncertainty of the best mode: the wall-model term is common to all).\n",
-		len(fr.modes), pm(fr.eps, fr.epsErr, 1), pm(1e4*fr.tand, 1e4*fr.tandErr, 1))
-	b := fr.modes[best]
-	fmt.Fprintf(w, "Uncertainty budget at %v (one standard deviation each):\n", b.mode)
+		len(fr.Modes), pm(fr.EpsR, fr.EpsRErr, 1), pm(1e4*fr.TanDelta, 1e4*fr.TanDeltaErr, 1))
+	b := fr.Modes[best]
+	fmt.Fprintf(w, "Uncertainty budget at %v (one standard deviation each):\n", b.Mode)
 	bt := cmdutil.NewTable(w, "  input", "eps_r", "tan delta")
-	for _, x := range b.r.Budget {
+	for _, x := range b.Result.Budget {
 		bt.Row("  "+x.Input, strconv.FormatFloat(x.EpsR, 'e', 1, 64), strconv.FormatFloat(x.TanDelta, 'e', 1, 64))
 	}
 	if err := bt.Flush(); err != nil {
