@@ -31,3 +31,32 @@ func BenchmarkFiveLowest(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkIrisPairCoupling solves the TE0 pair of two TE011 cells joined
+// by a thick iris (default modes, with the smaller model) and its coupling
+// coefficient.
+func BenchmarkIrisPairCoupling(b *testing.B) {
+	body := irisPair(0.040, 0.020, 0.006, 0.002)
+	for b.Loop() {
+		r, err := Solve(body, Request{MaxFrequency: 10.5e9, Families: []cavity.Family{cavity.TE}})
+		if err != nil || len(r) != 2 {
+			b.Fatal(len(r), err)
+		}
+		if _, err := CouplingOf(r[0], r[1]); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkFiveLowestExtrapolated extrapolates the TM0 resonances of the
+// five-section body below 10 GHz from 40, 80 and 160 modes in the widest
+// section (Extrapolate).
+func BenchmarkFiveLowestExtrapolated(b *testing.B) {
+	body := fiveSections()
+	for b.Loop() {
+		r, err := Extrapolate(body, cavity.TM, 10e9, DefaultModes)
+		if err != nil || len(r) < 5 {
+			b.Fatal(len(r), err)
+		}
+	}
+}

@@ -45,6 +45,10 @@ type Resonance struct {
 	// when the number of modes per section grew by half. +Inf when the
 	// resonance had no partner in the smaller model.
 	Change float64
+	// Coarse is the frequency of the same resonance in the smaller model
+	// (two thirds of the modes), in Hz, so Change = |Frequency - Coarse|;
+	// zero when there was no partner.
+	Coarse float64
 	// Origin is the mode of the enclosing cylinder (Body.Enclosing) that
 	// this resonance continues from: the Index-th mode of the same family
 	// and order there. HasOrigin is false, and Origin the zero Mode, for a
@@ -158,11 +162,11 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 			origins, ties = labels(b.Enclosing(), fam, len(fine))
 		}
 		for i, f := range fine {
-			change := math.Inf(1)
+			change, cf := math.Inf(1), 0.0
 			if i < len(coarse) {
-				change = math.Abs(f - coarse[i])
+				change, cf = math.Abs(f-coarse[i]), coarse[i]
 			}
-			r := Resonance{Family: fam, Index: i + 1, Frequency: f, Change: change}
+			r := Resonance{Family: fam, Index: i + 1, Frequency: f, Change: change, Coarse: cf}
 			if losses != nil {
 				r.Loss, r.LossErr = losses[i].loss, losses[i].err
 				if i < len(coarseLoss) && r.Loss != nil {

@@ -117,6 +117,11 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "0"}, Code: 2, Want: []string{"--map"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", filepath.Join(dir, "m.svg"), "--map", "99"}, Code: 2, Want: []string{"--map", "resonances below --fmax"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--map", "2"}, Code: 2, Want: []string{"--map needs --field-map"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--extrapolate", "--modes", "300"}, Code: 2, Want: []string{"--modes", "--extrapolate"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1"}, Code: 2, Want: []string{"--pair", "I,J"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "2,2"}, Code: 2, Want: []string{"--pair", "two different"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1,99"}, Code: 2, Want: []string{"--pair", "resonances below --fmax"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1,2", "--format", "csv"}, Code: 2, Want: []string{"--pair", "json"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--wall", "unobtainium"}, Code: 2, Want: []string{"--wall"}},
 		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
 		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
@@ -207,5 +212,82 @@ func TestFieldMapFile(t *testing.T) {
 	rendertest.SVG(t, b)
 	if r := clitest.Run(t, "stack", "examples/reentrant.yaml", "--fmax", "4GHz", "--field-map", out); r.Code != 2 {
 		t.Errorf("second write without --force: exit %d, want 2", r.Code)
+	}
+}
+
+// TestPairJSON checks --pair on the iris-pair example: k must be the
+// coupling coefficient of the two printed frequencies by the direct formula
+// (Hong and Lancaster 2001, sec. 8.2), the pair's change must be small
+// against k, and a pair from two families is refused.
+func TestPairJSON(t *testing.T) {
+	inRepo(t)
+	r := clitest.Run(t, "stack", "examples/iris-pair.yaml", "--fmax", "12GHz", "--family", "te", "--pair", "2,1", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row    `json:"resonances"`
+		Coupling   *stack.PairRow `json:"coupling"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if out.Coupling == nil || len(out.Resonances) < 2 {
+		t.Fatalf("no coupling in %s", r.Stdout)
+	}
+	f1, f2 := out.Resonances[0].FHz, out.Resonances[1].FHz
+	want := (f2*f2 - f1*f1) / (f2*f2 + f1*f1)
+	// 1e-9: the squares' difference cancels about five digits of f.
+	if c := out.Coupling; math.Abs(c.K-want) > 1e-9*want || c.KChange == nil || *c.KChange > 1e-2*c.K || c.Family != "TE0" {
+		t.Errorf("coupling %+v, want k = %.10g from f = %.12g, %.12g Hz", *c, want, f1, f2)
+	}
+	if r := clitest.Run(t, "stack", "examples/iris-pair.yaml", "--fmax", "12GHz", "--pair", "6,7"); r.Code != 2 || !strings.Contains(r.Stderr, "--pair") {
+		t.Errorf("a TM0/TE0 pair: exit %d, %s", r.Code, r.Stderr)
+	}
+}
+
+// TestExtrapolateJSON checks --extrapolate end to end on a closed cylinder,
+// where the extrapolation must keep package cavity's closed forms (Pozar,
+// Microwave Engineering, 4th ed., sec. 6.4) to 1e-10 with no order (the
+// models agree), and on the nosed cell, where every row carries an
+// estimate smaller than its plain change (the extrapolation gains).
+func TestExtrapolateJSON(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	run := func(args ...string) []stack.Row {
+		r := clitest.Run(t, append([]string{"stack"}, append(args, "--extrapolate", "--format", "json")...)...)
+		if r.Code != 0 {
+			t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+		}
+		var out struct {
+			Resonances []stack.Row `json:"resonances"`
+		}
+		if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+			t.Fatal(err)
+		}
+		if len(out.Resonances) == 0 {
+			t.Fatal("no resonances")
+		}
+		return out.Resonances
+	}
+	c := cavity.Cavity{Radius: 0.02, Length: 0.03}
+	for _, row := range run(file, "--fmax", "12GHz") {
+		m, err := cavity.ParseMode(row.ContinuesFrom)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := c.Frequency(m)
+		if row.FExtrapolatedHz == nil || math.Abs(*row.FExtrapolatedHz-want) > 1e-10*want || row.ExtrapolationOrder != nil {
+			t.Errorf("%s: extrapolated %v (order %v), want %.12g Hz (closed form)", row.ContinuesFrom, row.FExtrapolatedHz, row.ExtrapolationOrder, want)
+		}
+	}
+	inRepo(t)
+	for _, row := range run("examples/nosed-cell.yaml", "--fmax", "9GHz") {
+		if row.ExtrapolationErrorHz == nil || row.ChangeHz == nil || *row.ExtrapolationErrorHz >= *row.ChangeHz {
+			t.Errorf("#%d: extrapolation error %v, change %v", row.Index, row.ExtrapolationErrorHz, row.ChangeHz)
+		}
 	}
 }
