@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"strings"
 	"text/tabwriter"
 
@@ -91,3 +92,17 @@ func (t *TableWriter) Row(cells ...string) {
 
 // Flush writes the aligned table.
 func (t *TableWriter) Flush() error { return t.tw.Flush() }
+
+// JSONNumber is a float64 that encodes NaN and ±Inf (a quantity that is
+// undefined or infinite, such as the Q of a lossless part) as null, which
+// encoding/json refuses to write as a number.
+type JSONNumber float64
+
+// MarshalJSON encodes v, NaN and ±Inf as null.
+func (v JSONNumber) MarshalJSON() ([]byte, error) {
+	f := float64(v)
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		return []byte("null"), nil
+	}
+	return json.Marshal(f)
+}

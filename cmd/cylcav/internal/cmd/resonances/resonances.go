@@ -6,7 +6,6 @@
 package resonances
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
@@ -442,15 +441,8 @@ func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *
 }
 
 // number is a float64 that encodes NaN and infinities as JSON null.
-type number float64
-
-func (v number) MarshalJSON() ([]byte, error) {
-	f := float64(v)
-	if math.IsNaN(f) || math.IsInf(f, 0) {
-		return []byte("null"), nil
-	}
-	return json.Marshal(f)
-}
+// number encodes NaN and Inf as null (cmdutil.JSONNumber).
+type number = cmdutil.JSONNumber
 
 type resonanceJSON struct {
 	Index      int    `json:"index"`

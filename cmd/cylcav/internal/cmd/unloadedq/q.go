@@ -4,7 +4,6 @@
 package unloadedq
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -220,15 +219,8 @@ func runQ(opts *Options) error {
 }
 
 // number is a float64 that encodes NaN and infinities as JSON null.
-type number float64
-
-func (v number) MarshalJSON() ([]byte, error) {
-	f := float64(v)
-	if math.IsNaN(f) || math.IsInf(f, 0) {
-		return []byte("null"), nil
-	}
-	return json.Marshal(f)
-}
+// number encodes NaN and Inf as null (cmdutil.JSONNumber).
+type number = cmdutil.JSONNumber
 
 type shareJSON struct {
 	Side number `json:"side"`
