@@ -66,7 +66,12 @@ type Design struct {
 	Transversal *mat.Dense
 	// Folded is the same network reduced to the folded canonical form
 	// (see InFoldedPattern), M_S1, M_NL and the main line non-negative.
+	// A design from Rearranged, FromMatrix or a matrix file holds its own
+	// matrix here, in the pattern Topology names.
 	Folded *mat.Dense
+	// Topology is the coupling pattern of Folded; the zero value is the
+	// folded canonical form.
+	Topology Topology
 }
 
 // Order returns the number of resonators N.
