@@ -18,7 +18,8 @@ import (
 // Topology is a coupling pattern of an (N+2)x(N+2) matrix: which entries may
 // be non-zero.
 type Topology struct {
-	// Name is "folded", "triplets" or "quadruplets".
+	// Name is "folded", "triplets", "quadruplets" or "given" (a matrix
+	// from the user, FromMatrix).
 	Name string
 	// Order is N.
 	Order int
@@ -27,7 +28,8 @@ type Topology struct {
 	// a-(a+2); quadruplet a spans a..a+3 with the cross coupling a-(a+3)
 	// and the diagonals a-(a+2), (a+1)-(a+3).
 	Blocks []int
-	// Size is 3 for triplets, 4 for quadruplets, 0 for folded.
+	// Size is 3 for triplets, 4 for quadruplets, 0 for folded, -1 for a
+	// given matrix (every entry allowed).
 	Size int
 }
 
@@ -39,8 +41,11 @@ func (t Topology) Allowed(i, j int) bool {
 	if i < 0 || j < 0 || i > n+1 || j > n+1 {
 		return false
 	}
-	if t.Size == 0 {
+	switch t.Size {
+	case 0:
 		return InFoldedPattern(n, i, j)
+	case -1:
+		return true
 	}
 	if i > j {
 		i, j = j, i
@@ -65,8 +70,11 @@ func (t Topology) Allowed(i, j int) bool {
 // Description names the topology for people: "cascaded triplets 1-2-3,
 // 3-4-5".
 func (t Topology) Description() string {
-	if t.Size == 0 {
+	switch t.Size {
+	case 0:
 		return "folded canonical form"
+	case -1:
+		return "as given"
 	}
 	var parts []string
 	for _, a := range t.Blocks {
