@@ -3,6 +3,7 @@ package filter
 import (
 	"fmt"
 	"math"
+	"math/cmplx"
 )
 
 // The generalised Chebyshev filtering function of order N with finite
@@ -42,27 +43,41 @@ func xn(omega, z float64) float64 {
 }
 
 // theta returns sum_n arccos x_n(omega) for |omega| <= 1 (derived phase form
-// of C_N, see above); the N - len(zeros) zeros at infinity contribute
-// arccos(omega) each.
-func theta(n int, zeros []float64, omega float64) float64 {
+// of C_N, see above); the N - len(zeros) - 2 len(pairs) zeros at infinity
+// contribute arccos(omega) each, and each pair of real-axis zeros
+// s = -+sigma (Omega = +-j sigma) contributes 2 Re arccos x(omega) with the
+// complex x of Omega_n = j sigma (the two terms are complex conjugates, so
+// their sum is real; it falls monotonically from 2 pi at omega = -1 to 0
+// at omega = +1, checked in the tests).
+func theta(n int, zeros, pairs []float64, omega float64) float64 {
 	acos := func(x float64) float64 { return math.Acos(math.Max(-1, math.Min(1, x))) }
-	t := float64(n-len(zeros)) * acos(omega)
+	t := float64(n-len(zeros)-2*len(pairs)) * acos(omega)
 	for _, z := range zeros {
 		t += acos(xn(omega, z))
+	}
+	for _, sg := range pairs {
+		t += 2 * real(cmplx.Acos(xnc(omega, sg)))
 	}
 	return t
 }
 
+// xnc is Cameron's x_n(Omega) for the complex zero Omega_n = j sigma.
+func xnc(omega, sigma float64) complex128 {
+	z := complex(0, sigma)
+	w := complex(omega, 0)
+	return (w - 1/z) / (1 - w/z)
+}
+
 // solveTheta finds omega in [-1, 1] with theta(omega) = target, target in
 // [0, N pi], by bisection to the last bit (theta is monotonic decreasing).
-func solveTheta(n int, zeros []float64, target float64) float64 {
+func solveTheta(n int, zeros, pairs []float64, target float64) float64 {
 	lo, hi := -1.0, 1.0
 	for i := 0; i < 200; i++ {
 		mid := 0.5 * (lo + hi)
 		if mid == lo || mid == hi {
 			break
 		}
-		if theta(n, zeros, mid) > target {
+		if theta(n, zeros, pairs, mid) > target {
 			lo = mid
 		} else {
 			hi = mid
@@ -73,37 +88,46 @@ func solveTheta(n int, zeros []float64, target float64) float64 {
 
 // reflectionZeros returns the N real reflection zeros (roots of C_N) of the
 // generalised Chebyshev function, ascending, accurate to about 1e-15.
-func reflectionZeros(n int, zeros []float64) []float64 {
+func reflectionZeros(n int, zeros []float64) []float64 { return reflectionZerosP(n, zeros, nil) }
+
+// reflectionZerosP is reflectionZeros with pairs of real-axis zeros.
+func reflectionZerosP(n int, zeros, pairs []float64) []float64 {
 	r := make([]float64, n)
 	for k := n; k >= 1; k-- {
-		r[n-k] = solveTheta(n, zeros, (float64(k)-0.5)*math.Pi)
+		r[n-k] = solveTheta(n, zeros, pairs, (float64(k)-0.5)*math.Pi)
 	}
 	return r
 }
 
 // ripplePeaks returns the N+1 normalised frequencies in [-1, 1] where
-// |C_N| = 1 (band edges included), ascending.
-func ripplePeaks(n int, zeros []float64) []float64 {
+// |C_N| = 1 (band edges included), ascending; pairs are the real-axis zero
+// pairs (sigma values).
+func ripplePeaks(n int, zeros []float64, pairs ...float64) []float64 {
 	r := make([]float64, n+1)
 	r[0], r[n] = -1, 1
 	for k := n - 1; k >= 1; k-- {
-		r[n-k] = solveTheta(n, zeros, float64(k)*math.Pi)
+		r[n-k] = solveTheta(n, zeros, pairs, float64(k)*math.Pi)
 	}
 	return r
 }
 
 // logAbsC returns ln |C_N(omega)| of the generalised Chebyshev function
-// (-Inf at a reflection zero, +Inf at a transmission zero).
-func logAbsC(n int, zeros []float64, omega float64) float64 {
+// (-Inf at a reflection zero, +Inf at a transmission zero); pairs are the
+// real-axis zero pairs (sigma values), each adding 2 Re arccosh x(omega)
+// outside the passband (the conjugate terms; derived as for theta).
+func logAbsC(n int, zeros []float64, omega float64, pairs ...float64) float64 {
 	if math.Abs(omega) <= 1 {
-		return math.Log(math.Abs(math.Cos(theta(n, zeros, omega))))
+		return math.Log(math.Abs(math.Cos(theta(n, zeros, pairs, omega))))
 	}
-	a := float64(n-len(zeros)) * math.Acosh(math.Abs(omega))
+	a := float64(n-len(zeros)-2*len(pairs)) * math.Acosh(math.Abs(omega))
 	for _, z := range zeros {
 		if omega == z {
 			return math.Inf(1)
 		}
 		a += math.Acosh(math.Abs(xn(omega, z)))
+	}
+	for _, sg := range pairs {
+		a += 2 * math.Abs(real(cmplx.Acosh(xnc(omega, sg))))
 	}
 	// ln cosh a without overflow.
 	return a + math.Log1p(math.Exp(-2*a)) - math.Ln2

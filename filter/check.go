@@ -279,7 +279,7 @@ func (d *Design) passbandGrid() []float64 {
 	var ws []float64
 	ws = append(ws, d.ReflectionZeros...)
 	if d.Spec.Family == Chebyshev {
-		ws = append(ws, ripplePeaks(n, d.Zeros)...)
+		ws = append(ws, ripplePeaks(n, d.Zeros, d.RealPairs...)...)
 	} else {
 		ws = append(ws, -1, 1)
 	}

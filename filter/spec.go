@@ -79,6 +79,12 @@ type Spec struct {
 	// allowed. Chebyshev only.
 	Zeros []float64
 
+	// RealPairs are pairs of real-axis transmission zeros s = -+sigma
+	// (normalised, each sigma in (0, MaxPairSigma]) for group-delay
+	// equalisation; each pair counts as two of the at most Order finite
+	// zeros. Chebyshev only (see pairs.go).
+	RealPairs []float64
+
 	// Rejections are the stopband requirements, checked by Design.Check and
 	// used by MinOrder when Order is 0.
 	Rejections []Rejection
@@ -126,15 +132,15 @@ func (s Spec) normalized() (Spec, error) {
 		if s.Order != 0 {
 			limit = s.Order
 		}
-		if err := checkZeros(limit, s.Zeros); err != nil {
+		if err := checkZerosP(limit, s.Zeros, s.RealPairs); err != nil {
 			return s, err
 		}
 	case Butterworth:
 		if s.ReturnLoss != 0 || s.Ripple != 0 {
 			return s, fmt.Errorf("filter: a Butterworth response has 3.01 dB loss at the band edges; return loss (%g dB) and ripple (%g dB) must be 0", s.ReturnLoss, s.Ripple)
 		}
-		if len(s.Zeros) != 0 {
-			return s, fmt.Errorf("filter: transmission zeros need the Chebyshev family, got %d zeros with Butterworth", len(s.Zeros))
+		if len(s.Zeros)+len(s.RealPairs) != 0 {
+			return s, fmt.Errorf("filter: transmission zeros need the Chebyshev family, got %d zeros with Butterworth", len(s.Zeros)+2*len(s.RealPairs))
 		}
 	default:
 		return s, fmt.Errorf("filter: unknown response family %d; use Chebyshev or Butterworth", int(s.Family))
@@ -165,6 +171,12 @@ func (s Spec) normalized() (Spec, error) {
 func (s Spec) attenuation(n int, omega float64) (float64, error) {
 	if s.Family == Butterworth {
 		return ButterworthAttenuation(n, omega)
+	}
+	if len(s.RealPairs) > 0 {
+		if err := checkZerosP(n, s.Zeros, s.RealPairs); err != nil {
+			return 0, err
+		}
+		return chebAttP(n, s.Ripple, s.Zeros, s.RealPairs, omega), nil
 	}
 	return ChebyshevAttenuation(n, s.Ripple, s.Zeros, omega)
 }
@@ -206,7 +218,7 @@ func (ns Spec) minOrder() (int, error) {
 		return 0, fmt.Errorf("filter: every rejection lies outside %s..%s (f0 -+ %g %%), where the coupling-matrix model does not hold, so none can choose the order; give the order",
 			physics.FormatFrequency(lo, 6), physics.FormatFrequency(hi, 6), 100*ModelOffset)
 	}
-	lo := max(1, len(ns.Zeros))
+	lo := max(1, len(ns.Zeros)+2*len(ns.RealPairs))
 	for n := lo; n <= MaxOrder; n++ {
 		ok := true
 		for _, g := range regions {

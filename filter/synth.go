@@ -49,6 +49,9 @@ type Design struct {
 
 	// Zeros are the finite transmission zeros (normalised Omega), as given.
 	Zeros []float64
+	// RealPairs are the real-axis zero pairs s = -+sigma (normalised), as
+	// given in Spec.RealPairs, for group-delay equalisation (pairs.go).
+	RealPairs []float64
 	// ReflectionZeros are the N real frequencies (normalised Omega) where
 	// the lossless S11 vanishes, ascending.
 	ReflectionZeros []float64
@@ -121,10 +124,10 @@ func Synthesize(spec Spec) (*Design, error) {
 		s.Order = n
 	}
 	n := s.Order
-	if err := checkZeros(n, s.Zeros); err != nil {
+	if err := checkZerosP(n, s.Zeros, s.RealPairs); err != nil {
 		return nil, err
 	}
-	d := &Design{Spec: s, FBW: s.BW / s.F0, Zeros: slices.Clone(s.Zeros)}
+	d := &Design{Spec: s, FBW: s.BW / s.F0, Zeros: slices.Clone(s.Zeros), RealPairs: slices.Clone(s.RealPairs)}
 	s.Zeros = d.Zeros
 	d.Spec.Zeros = d.Zeros
 	d.Spec.Rejections = slices.Clone(spec.Rejections)
@@ -133,7 +136,7 @@ func Synthesize(spec Spec) (*Design, error) {
 	var er []complex128 // E roots in Omega (upper half plane)
 	var eps, epsR float64 = 1, 1
 	a := 0 // P is multiplied by j^a
-	nz := len(s.Zeros)
+	nz := len(s.Zeros) + 2*len(s.RealPairs)
 	if (n-nz)%2 == 0 {
 		a = 1
 	}
@@ -157,9 +160,9 @@ func Synthesize(spec Spec) (*Design, error) {
 				return nil, err
 			}
 		}
-		fr = reflectionZeros(n, s.Zeros)
-		eps, epsR = chebyshevEps(n, fr, s.Zeros, s.ReturnLoss)
-		if er, err = chebyshevPoles(fr, s.Zeros, eps, epsR); err != nil {
+		fr = reflectionZerosP(n, s.Zeros, s.RealPairs)
+		eps, epsR = chebyshevEps(n, fr, s.Zeros, s.RealPairs, s.ReturnLoss)
+		if er, err = chebyshevPoles(fr, s.Zeros, s.RealPairs, eps, epsR); err != nil {
 			return nil, err
 		}
 	}
@@ -176,9 +179,12 @@ func Synthesize(spec Spec) (*Design, error) {
 		jr[k] = complex(0, r)
 	}
 	d.F = polyFromRoots(jr)
-	jz := make([]complex128, nz)
-	for k, z := range s.Zeros {
-		jz[k] = complex(0, z)
+	jz := make([]complex128, 0, nz)
+	for _, z := range s.Zeros {
+		jz = append(jz, complex(0, z))
+	}
+	for _, sg := range s.RealPairs {
+		jz = append(jz, complex(-sg, 0), complex(sg, 0))
 	}
 	d.P = polyFromRoots(jz)
 	if a == 1 {
@@ -187,7 +193,7 @@ func Synthesize(spec Spec) (*Design, error) {
 		}
 	}
 
-	t, err := transversal(fr, s.Zeros, er, eps, epsR, a)
+	t, err := transversal(fr, s.Zeros, s.RealPairs, er, eps, epsR, a)
 	if err != nil {
 		return nil, err
 	}
@@ -246,12 +252,12 @@ func cmpComplex(x, y complex128) int {
 //
 // and, fully canonical, with rho the same expression,
 // Eps = sqrt(1 + rho^2), EpsR = Eps/rho (= Eps/sqrt(Eps^2 - 1)).
-func chebyshevEps(n int, fr, zeros []float64, rl float64) (eps, epsR float64) {
+func chebyshevEps(n int, fr, zeros, pairs []float64, rl float64) (eps, epsR float64) {
 	e1 := 1 / math.Sqrt(math.Expm1(rl*math.Ln10/10))
 	f1, _ := prodEvalReal(fr, 1)
-	p1, _ := prodEvalReal(zeros, 1)
+	p1, _ := prodEvalZ(zeros, pairs, 1)
 	rho := e1 * cmplx.Abs(p1) / cmplx.Abs(f1)
-	if len(zeros) < n {
+	if len(zeros)+2*len(pairs) < n {
 		return rho, 1
 	}
 	eps = math.Sqrt(1 + rho*rho)
@@ -267,15 +273,18 @@ func chebyshevEps(n int, fr, zeros []float64, rl float64) (eps, epsR float64) {
 // are the roots of H (the alternating-pole relation, Cameron, Kudsia &
 // Mansour 2007, ch. 6); they are refined by the Aberth iteration with H
 // evaluated in product form, which keeps full accuracy to N = 30.
-func chebyshevPoles(fr, zeros []float64, eps, epsR float64) ([]complex128, error) {
+func chebyshevPoles(fr, zeros, pairs []float64, eps, epsR float64) ([]complex128, error) {
 	n := len(fr)
 	frc := make([]complex128, n)
 	for k, r := range fr {
 		frc[k] = complex(r, 0)
 	}
-	zc := make([]complex128, len(zeros))
-	for k, z := range zeros {
-		zc[k] = complex(z, 0)
+	zc := make([]complex128, 0, len(zeros)+2*len(pairs))
+	for _, z := range zeros {
+		zc = append(zc, complex(z, 0))
+	}
+	for _, sg := range pairs {
+		zc = append(zc, complex(0, sg), complex(0, -sg))
 	}
 	fp := polyFromRoots(frc)
 	pp := polyFromRoots(zc)
@@ -292,7 +301,7 @@ func chebyshevPoles(fr, zeros []float64, eps, epsR float64) ([]complex128, error
 	}
 	h := func(x complex128) (complex128, complex128) {
 		f, df := prodEvalReal(fr, x)
-		p, dp := prodEvalReal(zeros, x)
+		p, dp := prodEvalZ(zeros, pairs, x)
 		ie := complex(1/(epsR*epsR), 0)
 		ip := complex(1/(eps*eps), 0)
 		return f*f*ie + p*p*ip, 2 * (f*df*ie + p*dp*ip)
@@ -362,13 +371,13 @@ const rootAccept = 1e-12
 //
 // sums of positive terms. Then M_Lk = sqrt(r22k), M_Sk = r21k/M_Lk,
 // M_kk = -l_k. The matrix is accurate to about 1e-14 up to N = 30.
-func transversal(fr, tz []float64, er []complex128, eps, epsR float64, a int) ([][]float64, error) {
+func transversal(fr, tz, pairs []float64, er []complex128, eps, epsR float64, a int) ([][]float64, error) {
 	n := len(fr)
-	nz := len(tz)
+	nz := len(tz) + 2*len(pairs)
 	ieps := 1 / eps
 	gEval := func(z complex128) (complex128, complex128) {
 		f, df := prodEvalReal(fr, z)
-		p, dp := prodEvalReal(tz, z)
+		p, dp := prodEvalZ(tz, pairs, z)
 		return f/complex(epsR, 0) + 1i*p*complex(ieps, 0), df/complex(epsR, 0) + 1i*dp*complex(ieps, 0)
 	}
 	// Split the roots of G: e is a root of G (set U) or conj(e) is (set L);
@@ -534,7 +543,7 @@ func (d *Design) selfCheck() error {
 	n := d.Spec.Order
 	pts := slices.Clone(d.ReflectionZeros)
 	if d.Spec.Family == Chebyshev {
-		pts = append(pts, ripplePeaks(n, d.Zeros)...)
+		pts = append(pts, ripplePeaks(n, d.Zeros, d.RealPairs...)...)
 	} else {
 		pts = append(pts, -1, 0, 1)
 	}
@@ -566,6 +575,9 @@ func (d *Design) polyS(omega float64) (s11, s21 complex128) {
 	p := d.P[len(d.P)-1] // j^a, or -j^a after the sign choice of Synthesize
 	for _, z := range d.Zeros {
 		p *= s - complex(0, z)
+	}
+	for _, sg := range d.RealPairs {
+		p *= s*s - complex(sg*sg, 0)
 	}
 	e := complex(1, 0)
 	for _, r := range d.Poles {
