@@ -79,6 +79,10 @@ type Options struct {
 	Span   float64
 	Points int
 
+	// Space holds the flags of zero placement, normalised and real-axis
+	// zeros, topologies and matrix files (space.go).
+	Space SpaceOptions
+
 	Touchstone string
 	Plot       string
 	PlotFormat figure.Format
@@ -91,6 +95,7 @@ type Options struct {
 func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var fl flags
+	var sf *spaceFlags
 	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -160,7 +165,16 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			changed := cmd.Flags().Changed
-			if err := opts.checkSpec(changed, &fl); err != nil {
+			fromFile, err := opts.readMatrix(changed)
+			if err != nil {
+				return err
+			}
+			if !fromFile {
+				if err := opts.checkSpec(changed, &fl); err != nil {
+					return err
+				}
+			}
+			if err := opts.checkSpace(changed, sf); err != nil {
 				return err
 			}
 			if err := opts.checkCavities(changed, walls, geo, &fl); err != nil {
@@ -209,7 +223,8 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
 	cmdutil.Needs(cmd, "points", "touchstone")
 	cmdutil.Needs(cmd, "dpi", "plot")
-	cmdutil.Needs(cmd, "force", "touchstone", "plot")
+	sf = addSpaceFlags(cmd, opts)
+	cmdutil.Needs(cmd, "force", "touchstone", "plot", "save-matrix")
 	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {

@@ -205,7 +205,9 @@ func (r *Result) WriteTable(w io.Writer) error {
 		}
 	}
 
-	fmt.Fprintf(&b, "\nCoupling matrix M, folded canonical form, normalised (N+2 = %d; |M| < %g printed as 0)\n", n+2, matrixZero)
+	r.writeSpace(&b)
+
+	fmt.Fprintf(&b, "\nCoupling matrix M, %s, normalised (N+2 = %d; |M| < %g printed as 0)\n", matrixTitle(d), n+2, matrixZero)
 	t := cmdutil.NewTable(&b)
 	head := []string{" "}
 	for j := 0; j < n+2; j++ {
@@ -445,6 +447,13 @@ type Output struct {
 	Notes                 []string       `json:"notes"`
 	MatrixZeroThreshold   float64        `json:"matrix_zero_threshold"`
 	ModeIndexConvention   string         `json:"mode_index_convention"`
+	// Topology, RealPairs, TripletZeros, Placement and MatrixFile: see
+	// space.go.
+	Topology     string        `json:"topology"`
+	RealPairs    []float64     `json:"real_axis_zero_pairs_normalised"`
+	TripletZeros []float64     `json:"triplet_zeros_normalised"`
+	Placement    *PlacementOut `json:"zero_placement"`
+	MatrixFile   *string       `json:"matrix_file"`
 }
 
 // RejectionOut is one rejection requirement.
@@ -645,6 +654,7 @@ func (r *Result) JSON() Output {
 		}
 		o.Checks = append(o.Checks, co)
 	}
+	r.spaceJSON(&o)
 	return o
 }
 

@@ -55,6 +55,9 @@ type Result struct {
 	// Sweep is the frequency range of the Touchstone file and the plot.
 	Sweep [2]float64
 
+	// Space is the result of zero placement and topology (space.go).
+	Space SpaceResult
+
 	// Written lists the files written, in order.
 	Written []string
 
@@ -83,11 +86,11 @@ func Compute(opts *Options) (*Result, error) {
 	r := &Result{Opts: opts, Cohn: math.NaN(), DelayEstimate: math.NaN()}
 	spec := opts.Spec
 	r.OrderChosen = spec.Order == 0
-	d, err := bandpass.Synthesize(spec)
+	d, err := r.design()
 	if err != nil {
-		// Every synthesis error is a consequence of the specification.
-		return nil, cmdutil.Usagef("specification: %v", strings.TrimPrefix(err.Error(), "filter: "))
+		return nil, err
 	}
+	spec = d.Spec
 	r.Design = d
 	n := d.Order()
 
@@ -283,6 +286,7 @@ func (r *Result) writeFiles() error {
 	if r.Opts.Plot != "" {
 		files = append(files, cmdutil.File{Flag: "plot", Path: r.Opts.Plot, Data: r.plot})
 	}
+	files = append(files, r.spaceFiles()...)
 	if err := cmdutil.WriteFiles(r.Opts.Force, files...); err != nil {
 		return err
 	}
