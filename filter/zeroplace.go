@@ -4,7 +4,10 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
+	"sync"
+	"sync/atomic"
 
 	"gonum.org/v1/gonum/optimize"
 )
@@ -62,7 +65,8 @@ type Placement struct {
 	// (Design.Check, lossless); Overall(Checks) is Met.
 	Design *Design
 	Checks []Check
-	// Evaluations counts the prototype evaluations of the whole search.
+	// Evaluations counts the evaluations of the margin over the mask
+	// regions (one per region) of the whole search.
 	Evaluations int
 }
 
@@ -80,8 +84,10 @@ type Placement struct {
 // The maximisation is the Nelder-Mead simplex method of gonum's optimize
 // package (J. A. Nelder, R. Mead, "A simplex method for function
 // minimization", Comput. J. 7 (1965) 308-313) on the variables
-// p_i = ln(|Omega_i| - 1), clamped to placePMin..placePMax; the least
-// margin is not smooth, which a simplex method tolerates. Starting zeros
+// p_i = ln(|Omega_i| - 1), clamped to placePMin..placePMax, of a sampled
+// margin (quickMargin); the least margin is not smooth, which a simplex
+// method tolerates. The searches of the splits and starts of one (N, nz)
+// run in parallel. Starting zeros
 // sit at the inner edges of the regions of their side. When the mask is
 // symmetric in Omega (each region above mirrored by one below with the same
 // attenuation; an open region's outer end, the end of the band of interest,
@@ -152,7 +158,7 @@ func PlaceZeros(spec Spec, opt PlaceOptions) (*Placement, error) {
 			if Overall(checks) != Met {
 				continue
 			}
-			return &Placement{Order: n, Zeros: zeros, Margin: margin, Symmetric: sym, Design: d, Checks: checks, Evaluations: pl.evals}, nil
+			return &Placement{Order: n, Zeros: zeros, Margin: margin, Symmetric: sym, Design: d, Checks: checks, Evaluations: int(pl.evals.Load())}, nil
 		}
 	}
 	return nil, fmt.Errorf("filter: no placement of up to %d transmission zeros meets the rejections with at most %d resonators", maxZ, maxN)
@@ -162,7 +168,7 @@ func PlaceZeros(spec Spec, opt PlaceOptions) (*Placement, error) {
 type placer struct {
 	spec    Spec // normalised, Order and Zeros unset
 	regions []MaskRegion
-	evals   int
+	evals   atomic.Int64
 }
 
 // omegaRange returns the region's bounds in normalised Omega, inner edge
@@ -213,13 +219,83 @@ func (pl *placer) margin(n int, zeros []float64) float64 {
 	m := math.Inf(1)
 	for _, g := range pl.regions {
 		a, err := s.regionMinimum(n, g)
-		pl.evals++
+		pl.evals.Add(1)
 		if err != nil || math.IsNaN(a) {
 			return math.Inf(-1)
 		}
 		m = math.Min(m, a-g.Attenuation)
 	}
 	return m
+}
+
+// quickMargin is margin for the search: the least attenuation of each
+// region from quickSamples samples per segment between the zeros (spaced
+// uniformly in ln|Omega| as in bandMinimum), each local minimum refined by
+// quickGolden golden-section steps (the bracket shrinks to 1e-6 of its
+// width), with the attenuation evaluated without argument checks. The
+// placement found is then judged by margin (exact minima) and
+// Design.Check.
+func (pl *placer) quickMargin(n int, zeros []float64) float64 {
+	s := pl.spec
+	att := func(w float64) float64 { return chebAttP(n, s.Ripple, zeros, nil, w) }
+	m := math.Inf(1)
+	for _, g := range pl.regions {
+		pl.evals.Add(1)
+		a, b := LowpassOmega(g.Low, s.F0, s.BW), LowpassOmega(g.High, s.F0, s.BW)
+		nodes := []float64{a, b}
+		for _, z := range zeros {
+			if z > a && z < b {
+				nodes = append(nodes, z)
+			}
+		}
+		slices.Sort(nodes)
+		best := math.Inf(1)
+		for k := 0; k+1 < len(nodes); k++ {
+			u, v := nodes[k], nodes[k+1]
+			lu, lv := math.Log(math.Abs(u)), math.Log(math.Abs(v))
+			sign := math.Copysign(1, u+v)
+			xs := make([]float64, quickSamples)
+			ys := make([]float64, quickSamples)
+			for i := range xs {
+				xs[i] = sign * math.Exp(lu+(lv-lu)*float64(i)/float64(quickSamples-1))
+				ys[i] = att(xs[i])
+				best = math.Min(best, ys[i])
+			}
+			for i := 1; i+1 < quickSamples; i++ {
+				if ys[i] <= ys[i-1] && ys[i] <= ys[i+1] {
+					best = math.Min(best, goldenSteps(att, xs[i-1], xs[i+1], quickGolden))
+				}
+			}
+		}
+		m = math.Min(m, best-g.Attenuation)
+	}
+	return m
+}
+
+// quickSamples and quickGolden set the resolution of quickMargin.
+const (
+	quickSamples = 48
+	quickGolden  = 30
+)
+
+// goldenSteps is goldenMin with a fixed number of steps; it returns the
+// least value seen.
+func goldenSteps(f func(float64) float64, a, b float64, steps int) float64 {
+	const r = 0.6180339887498949
+	c, d := b-r*(b-a), a+r*(b-a)
+	fc, fd := f(c), f(d)
+	for i := 0; i < steps; i++ {
+		if fc <= fd {
+			b, d, fd = d, c, fc
+			c = b - r*(b-a)
+			fc = f(c)
+		} else {
+			a, c, fc = c, d, fd
+			d = a + r*(b-a)
+			fd = f(d)
+		}
+	}
+	return math.Min(fc, fd)
 }
 
 // zerosOf maps search variables to zeros: with sym, p holds one variable
@@ -258,27 +334,49 @@ func (pl *placer) best(n, nz int, sym bool) ([]float64, float64) {
 			splits = append(splits, k)
 		}
 	}
+	// Every split and start is an independent simplex search; they run in
+	// parallel (one per CPU) and the best is picked in a fixed order, so
+	// the result does not depend on the scheduling.
+	dim := nz
+	if sym {
+		dim = nz / 2
+	}
+	type task struct {
+		above int
+		x0    []float64
+		m     float64
+		z     []float64
+	}
+	var tasks []*task
 	for _, above := range splits {
-		dim := nz
-		if sym {
-			dim = nz / 2
-		}
 		for _, x0 := range pl.starts(dim, above, sym) {
-			f := func(p []float64) float64 { return -pl.margin(n, zerosOf(p, above, sym)) }
-			res, err := optimize.Minimize(optimize.Problem{Func: f}, x0, &optimize.Settings{
+			tasks = append(tasks, &task{above: above, x0: x0, m: math.Inf(-1)})
+		}
+	}
+	sem := make(chan struct{}, max(1, runtime.GOMAXPROCS(0)))
+	var wg sync.WaitGroup
+	for _, tk := range tasks {
+		wg.Add(1)
+		sem <- struct{}{}
+		go func() {
+			defer wg.Done()
+			defer func() { <-sem }()
+			f := func(p []float64) float64 { return -pl.quickMargin(n, zerosOf(p, tk.above, sym)) }
+			res, err := optimize.Minimize(optimize.Problem{Func: f}, tk.x0, &optimize.Settings{
 				FuncEvaluations: 150 * (dim + 1),
 				Converger:       &optimize.FunctionConverge{Absolute: 1e-4, Relative: 1e-6, Iterations: 40},
 			}, &optimize.NelderMead{SimplexSize: 0.5})
-			if res == nil {
-				_ = err
-				continue
+			if res == nil || err != nil && res.X == nil {
+				return
 			}
-			if m := -res.F; m > bestM {
-				bestM, bestZ = m, zerosOf(res.X, above, sym)
-			}
-			if bestM > placeMarginTarget {
-				return bestZ, bestM
-			}
+			tk.z = zerosOf(res.X, tk.above, sym)
+			tk.m = pl.margin(n, tk.z)
+		}()
+	}
+	wg.Wait()
+	for _, tk := range tasks {
+		if tk.m > bestM {
+			bestM, bestZ = tk.m, tk.z
 		}
 	}
 	return bestZ, bestM

@@ -237,7 +237,7 @@ func (r *Result) writeSpace(b *strings.Builder) {
 	}
 	if p := r.Space.Placement; p != nil {
 		fmt.Fprintf(b, "\nZero placement (--place-zeros): N = %d with %d zeros meets every rejection band\n", p.Order, len(p.Zeros))
-		fmt.Fprintf(b, "  least margin over the rejection bands %s dB (lossless), %d prototype evaluations", dbText(p.Margin), p.Evaluations)
+		fmt.Fprintf(b, "  least margin over the rejection bands %s dB (lossless), %d mask evaluations", dbText(p.Margin), p.Evaluations)
 		if p.Symmetric {
 			fmt.Fprintf(b, "; symmetric mask: mirrored pairs")
 		}
