@@ -57,6 +57,13 @@
 //     (SizeHole, CouplingThrough), each checked against the theory's
 //     validity limits; cross couplings and port Qext listed for a field
 //     solver or measurement.
+//  9. More of the design space: PlaceZeros chooses the order and the
+//     transmission zeros from the mask (Nelder-Mead, gonum optimize;
+//     verdict by Design.Check); Spec.RealPairs adds real-axis zero pairs
+//     for group-delay equalisation; Design.Rearranged carries the folded
+//     matrix into cascaded triplets or quadruplets (CascadeTopology,
+//     Rearrange); ParseMatrixFile, WriteMatrixFile and FromMatrix analyse a
+//     coupling matrix given as text.
 //
 // # Conventions
 //
@@ -126,6 +133,8 @@
 //     Proc. IRE 47 (1959) 1342-1348.
 //   - O. Aberth, "Iteration methods for finding all zeros of a polynomial
 //     simultaneously", Math. Comp. 27 (1973) 339-344.
+//   - J. A. Nelder, R. Mead, "A simplex method for function minimization",
+//     Comput. J. 7 (1965) 308-313 (the search of PlaceZeros).
 //   - Touchstone File Format Specification, version 1.1 (EIA/IBIS Open
 //     Forum, 2002).
 //   - H. A. Bethe, "Theory of diffraction by small holes", Phys. Rev. 66
