@@ -188,7 +188,7 @@ func NewResponsePlot(d *filter.Design, opts PlotOptions) (*ResponsePlot, error) 
 	if rp.Title == "" {
 		rp.Title = plotTitle(d)
 	}
-	rp.Notes = append(rp.Notes, rp.lossNote(opts.Q0, d.Spec.Order))
+	rp.Notes = append(rp.Notes, rp.lossNote(opts.Q0, d.Spec.Order, d.Topology.Description()))
 	rp.Notes = append(rp.Notes, opts.Notes...)
 	return rp, nil
 }
@@ -216,9 +216,14 @@ func familyName(f filter.Family) string {
 	return "Chebyshev"
 }
 
-// lossNote states the model and the losses of the plotted response.
-func (rp *ResponsePlot) lossNote(q0 []float64, n int) string {
+// lossNote states the model (form: the matrix's topology, as
+// filter.Topology.Description gives it) and the losses of the plotted
+// response.
+func (rp *ResponsePlot) lossNote(q0 []float64, n int, form string) string {
 	model := "Response of the folded N+2 coupling matrix, Omega = (f0/bw)(f/f0 - f0/f)"
+	if form != "folded canonical form" {
+		model = "Response of the N+2 coupling matrix (" + form + "), Omega = (f0/bw)(f/f0 - f0/f)"
+	}
 	if rp.Lossless {
 		return model + "; lossless (Q0 infinite)."
 	}
