@@ -47,6 +47,11 @@ type PlaceOptions struct {
 	// the folded network needs no coupling from a port to an inner
 	// resonator.
 	MaxZeros int
+	// Q0 is the unloaded Q of every resonator for the acceptance check
+	// (Design.Check with losses); 0 means lossless. The search itself
+	// uses the lossless prototype, so with losses a candidate whose
+	// margin the losses eat is rejected and the search goes on.
+	Q0 float64
 }
 
 // Placement is the outcome of PlaceZeros.
@@ -62,7 +67,8 @@ type Placement struct {
 	// was restricted to mirrored zero pairs.
 	Symmetric bool
 	// Design is the synthesised filter and Checks its pass/fail table
-	// (Design.Check, lossless); Overall(Checks) is Met.
+	// (Design.Check, lossless or with PlaceOptions.Q0); Overall(Checks)
+	// is Met.
 	Design *Design
 	Checks []Check
 	// Evaluations counts the evaluations of the margin over the mask
@@ -118,6 +124,9 @@ func PlaceZeros(spec Spec, opt PlaceOptions) (*Placement, error) {
 	if maxZ == 0 {
 		maxZ = DefaultMaxPlacedZeros
 	}
+	if opt.Q0 < 0 || math.IsNaN(opt.Q0) {
+		return nil, fmt.Errorf("filter: unloaded Q of the zero placement must be > 0 (0 for lossless), got %g", opt.Q0)
+	}
 	if maxZ < 0 || maxZ > MaxOrder-2 {
 		return nil, fmt.Errorf("filter: largest number of placed zeros must be 0..%d, got %d", MaxOrder-2, maxZ)
 	}
@@ -151,7 +160,14 @@ func PlaceZeros(spec Spec, opt PlaceOptions) (*Placement, error) {
 			if err != nil {
 				continue
 			}
-			checks, err := d.Check(nil, nil)
+			var q0 []float64
+			if opt.Q0 > 0 {
+				q0 = make([]float64, n)
+				for i := range q0 {
+					q0[i] = opt.Q0
+				}
+			}
+			checks, err := d.Check(q0, nil)
 			if err != nil {
 				return nil, err
 			}

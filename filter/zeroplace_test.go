@@ -186,3 +186,25 @@ func BenchmarkPlaceZeros(b *testing.B) {
 		})
 	}
 }
+
+// TestPlaceZerosLossy: with a low unloaded Q the acceptance check (with
+// the losses) can need more than the lossless placement, never less, and
+// the placed design meets the mask with the losses by Design.Check.
+func TestPlaceZerosLossy(t *testing.T) {
+	s := handMask(t, handExamples[0])
+	lossless, err := PlaceZeros(s, PlaceOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	lossy, err := PlaceZeros(s, PlaceOptions{Q0: 300})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("lossless N = %d, Q0 = 300: N = %d zeros %v", lossless.Order, lossy.Order, lossy.Zeros)
+	if lossy.Order < lossless.Order {
+		t.Errorf("lossy placement N = %d below the lossless %d", lossy.Order, lossless.Order)
+	}
+	if Overall(lossy.Checks) != Met || len(lossy.Checks) <= len(lossless.Checks) {
+		t.Errorf("lossy checks: %v, %d lines", Overall(lossy.Checks), len(lossy.Checks))
+	}
+}

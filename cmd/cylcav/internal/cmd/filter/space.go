@@ -181,7 +181,9 @@ func (r *Result) design() (*bandpass.Design, error) {
 			return nil, cmdutil.FlagError("matrix", sp.MatrixPath, errors.New(strings.TrimPrefix(err.Error(), "filter: ")))
 		}
 	case sp.Place:
-		p, err := bandpass.PlaceZeros(opts.Spec, bandpass.PlaceOptions{MaxZeros: sp.MaxZeros})
+		// With --q0 the acceptance check includes the losses; the
+		// cavities' Q0 is not known before they are sized.
+		p, err := bandpass.PlaceZeros(opts.Spec, bandpass.PlaceOptions{MaxZeros: sp.MaxZeros, Q0: opts.Q0})
 		if err != nil {
 			return nil, cmdutil.Usagef("--place-zeros: %v", strings.TrimPrefix(err.Error(), "filter: "))
 		}
