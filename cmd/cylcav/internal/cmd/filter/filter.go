@@ -95,9 +95,9 @@ type Options struct {
 func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var fl flags
-	var sf *spaceFlags
 	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
+	var sf *spaceFlags
 	cmd := &cobra.Command{
 		Use:   "filter --f0 F --bw B (--order N | --reject ATT@F[,...]) [flags]",
 		Short: "Design a coupled-cavity bandpass filter: coupling matrix, cavities, response",

@@ -587,6 +587,7 @@ func (r *Result) JSON() Output {
 	if s.Family == bandpass.Chebyshev {
 		o.ReturnLoss, o.Ripple = finite(s.ReturnLoss), finite(s.Ripple)
 	}
+	r.spaceJSON(&o)
 	for _, rj := range s.Rejections {
 		o.Rejections = append(o.Rejections, RejectionOut{F: rj.F, Attenuation: rj.Attenuation, End: rj.End})
 	}
@@ -654,7 +655,6 @@ func (r *Result) JSON() Output {
 		}
 		o.Checks = append(o.Checks, co)
 	}
-	r.spaceJSON(&o)
 	return o
 }
 
