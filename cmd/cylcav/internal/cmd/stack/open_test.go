@@ -27,7 +27,7 @@ func TestOpenEndsJSON(t *testing.T) {
 		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
 	}
 	var out struct {
-		Cutoff     struct {
+		Cutoff struct {
 			TE0Hz *float64 `json:"te0_hz"`
 		} `json:"pipe_cutoff"`
 		Resonances []stack.Row `json:"resonances"`
@@ -86,10 +86,10 @@ func TestOpenEndsBadInput(t *testing.T) {
 	sec := "sections:\n  - length: 30mm\n    radius: 20mm\n"
 	walls := write("walls.yaml", "walls:\n  side: copper\n"+sec)
 	bad := []clitest.BadCase{
-		{Args: []string{write("end.yaml", "end_a: open\n" + sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"end.yaml:1", "end_a", "plate or pipe"}},
-		{Args: []string{write("wk.yaml", "walls:\n  roof: copper\n" + sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"wk.yaml:2", "walls.roof", "unknown key"}},
-		{Args: []string{write("wm.yaml", "walls:\n  side: unobtainium\n" + sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"wm.yaml:2", "walls.side"}},
-		{Args: []string{write("ws.yaml", "walls:\n  steps: copper\n" + sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"ws.yaml:2", "walls.side", "missing"}},
+		{Args: []string{write("end.yaml", "end_a: open\n"+sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"end.yaml:1", "end_a", "plate or pipe"}},
+		{Args: []string{write("wk.yaml", "walls:\n  roof: copper\n"+sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"wk.yaml:2", "walls.roof", "unknown key"}},
+		{Args: []string{write("wm.yaml", "walls:\n  side: unobtainium\n"+sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"wm.yaml:2", "walls.side"}},
+		{Args: []string{write("ws.yaml", "walls:\n  steps: copper\n"+sec), "--fmax", "10GHz"}, Code: 2, Want: []string{"ws.yaml:2", "walls.side", "missing"}},
 		{Args: []string{walls, "--fmax", "10GHz", "--wall", "copper"}, Code: 2, Want: []string{"walls", "--wall", "one place"}},
 		{Args: []string{write("rad.yaml", "end_a: pipe\nsections:\n  - length: 10mm\n    radius: 20mm\n  - length: 2mm\n    radius: 10mm\n  - length: 40mm\n    radius: 20mm\n"), "--fmax", "10.5GHz", "--family", "te", "--field-map", filepath.Join(dir, "m.svg")}, Code: 2, Want: []string{"--map", "radiates"}},
 	}

@@ -415,12 +415,12 @@ func runStack(opts *Options) error {
 	switch opts.Format {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, struct {
-			File       string   `json:"file"`
-			Title      string   `json:"title"`
-			Order      int      `json:"n"`
-			Sections   int      `json:"sections"`
-			LengthM    float64  `json:"length_m"`
-			MaxRadiusM float64  `json:"max_radius_m"`
+			File       string      `json:"file"`
+			Title      string      `json:"title"`
+			Order      int         `json:"n"`
+			Sections   int         `json:"sections"`
+			LengthM    float64     `json:"length_m"`
+			MaxRadiusM float64     `json:"max_radius_m"`
 			FMaxHz     float64     `json:"fmax_hz"`
 			EndA       string      `json:"end_a"`
 			EndB       string      `json:"end_b"`
