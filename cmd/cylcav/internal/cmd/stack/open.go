@@ -43,14 +43,16 @@ func addRadiating(opts *Options, rows []Row, res []axisym.Resonance) ([]Row, []a
 			row := Row{Family: fam.String() + "0", FHz: r.F, Status: statusRadiating}
 			fi, q := r.FImag, r.Qext
 			row.FImagHz, row.QExt = &fi, &q
-			best := math.Inf(1)
+			best, qc := math.Inf(1), 0.0
 			for _, c := range coarse {
-				best = math.Min(best, math.Abs(c.F-r.F))
+				if d := math.Abs(c.F - r.F); d < best {
+					best, qc = d, math.Abs(c.Qext-r.Qext)
+				}
 			}
 			// A partner further than a tenth of the distance to the cutoff
 			// is another resonance.
 			if best < 0.1*(r.F-b.Cutoff(fam)) {
-				row.ChangeHz = &best
+				row.ChangeHz, row.QExtChange = &best, &qc
 			}
 			if opts.Walls != nil {
 				row.QNote = "radiates into the open end: Q0 of the walls not computed (its fields are complex); Qext given"
@@ -122,10 +124,14 @@ func cutoffs(b axisym.Body, fams []cavity.Family) *cutoffJSON {
 	return c
 }
 
-// qextText prints an external Q for the table.
-func qextText(q *float64) string {
+// qextText prints an external Q for the table with its change when the
+// modes grew by half.
+func qextText(q, change *float64) string {
 	if q == nil {
 		return "-"
 	}
-	return strconv.FormatFloat(*q, 'g', 6, 64)
+	if change == nil {
+		return strconv.FormatFloat(*q, 'g', 3, 64) + " (change unknown)"
+	}
+	return strconv.FormatFloat(*q, 'f', 0, 64) + " (change " + strconv.FormatFloat(*change, 'g', 2, 64) + ")"
 }

@@ -284,6 +284,8 @@ type Row struct {
 	Status  string   `json:"status,omitempty"`
 	FImagHz *float64 `json:"f_imag_hz,omitempty"`
 	QExt    *float64 `json:"q_ext,omitempty"`
+	// QExtChange is the change of QExt when the modes grew by half.
+	QExtChange *float64 `json:"q_ext_change,omitempty"`
 	// With --wall: Q0, the change of Q0 when the modes grew by half (its
 	// convergence estimate), and the wall and fill Q; null when the fields
 	// are not available (QNote says why).
@@ -450,7 +452,7 @@ func runStack(opts *Options) error {
 				cells = append(cells, csvQ(r.FExtrapolatedHz), csvQ(r.ExtrapolationErrorHz), csvQ(r.ExtrapolationOrder))
 			}
 			if open {
-				cells = append(cells, r.Status, csvQ(r.FImagHz), csvQ(r.QExt))
+				cells = append(cells, r.Status, csvQ(r.FImagHz), csvQ(r.QExt), csvQ(r.QExtChange))
 			}
 			out = append(out, cells)
 		}
@@ -465,7 +467,7 @@ func runStack(opts *Options) error {
 			header = append(header, "f_extrapolated_hz", "extrapolation_error_hz", "extrapolation_order")
 		}
 		if open {
-			header = append(header, "status", "f_imag_hz", "q_ext")
+			header = append(header, "status", "f_imag_hz", "q_ext", "q_ext_change")
 		}
 		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
@@ -557,7 +559,7 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 			}
 		}
 		if b.Open() {
-			cells = append(cells, r.Status, qextText(r.QExt))
+			cells = append(cells, r.Status, qextText(r.QExt, r.QExtChange))
 		}
 		t.Row(cells...)
 	}
