@@ -157,3 +157,26 @@ func TestOpenPipeNoTrapped(t *testing.T) {
 		}
 	}
 }
+
+// TestOpenSusceptanceFoster checks the evanescent termination of an open
+// line: it is the long-line limit of lineSusceptance (coth -> 1) and it
+// increases with frequency below the cutoff, as Foster's reactance theorem
+// requires of a lossless one-port (the property the exact count rests on).
+func TestOpenSusceptanceFoster(t *testing.T) {
+	const kc, eps, mu = 300.0, 2.0, 1.5
+	for _, fam := range []cavity.Family{cavity.TE, cavity.TM} {
+		prev := math.Inf(-1)
+		for i := 1; i < 200; i++ {
+			k2 := sq(kc * float64(i) / 200) // k^2 eps mu, below the cutoff kc^2
+			b := openSusceptance(fam, k2-kc*kc, eps, mu)
+			if !(b > prev) {
+				t.Errorf("%v: susceptance not increasing at k^2 = %g: %g after %g", fam, k2, b, prev)
+			}
+			prev = b
+			long, _, poles := lineSusceptance(fam, k2-kc*kc, 1.0, eps, mu)
+			if poles != 0 || math.Abs(long-b) > 1e-12*math.Abs(b) {
+				t.Errorf("%v: long line %g (poles %d), open %g", fam, long, poles, b)
+			}
+		}
+	}
+}
