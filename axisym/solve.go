@@ -110,6 +110,10 @@ var ErrNotImplemented = errors.New("not implemented")
 // is found to relTol. A body of one section, or of sections of one radius,
 // has no truncation error: its frequencies are the closed-form ones.
 //
+// For a body with an open end (Body.Open) Solve returns the trapped
+// resonances only, those below the pipes' cutoff (Body.Cutoff), with no
+// enclosing-cylinder label; Radiating finds those above it.
+//
 // Errors: an invalid body (Body.Validate), a maximum frequency that is not
 // positive and finite, more than MaxResonances resonances below it, a
 // section that would need more than MaxModes modes, and, wrapping
