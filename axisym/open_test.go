@@ -180,3 +180,23 @@ func TestOpenSusceptanceFoster(t *testing.T) {
 		}
 	}
 }
+
+// TestCoaxialPipeTraps checks that a coaxial open end traps no TM0
+// resonance (its TEM mode propagates at every frequency, Cutoff 0) while
+// TE0 resonances below its TE01 cutoff stay trapped.
+func TestCoaxialPipeTraps(t *testing.T) {
+	b := Body{Sections: []Section{
+		{Length: 0.01, Radius: 0.008, InnerRadius: 0.003},
+		{Length: 0.03, Radius: 0.02},
+	}, EndA: Pipe}
+	r, err := Solve(b, Request{MaxFrequency: 20e9})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, x := range r {
+		if x.Family == cavity.TM || b.Radiates(x.Family, x.Frequency) {
+			t.Errorf("%v resonance at %g Hz listed as trapped", x.Family, x.Frequency)
+		}
+	}
+	t.Logf("%d TE0 resonances trapped below %g Hz", len(r), b.Cutoff(cavity.TE))
+}

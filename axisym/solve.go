@@ -262,6 +262,9 @@ func resonancesWith(b Body, fam cavity.Family, fmax float64, counts []int, withL
 		// An open body: the real model holds below the pipe's cutoff only
 		// (trapped resonances); Radiating finds the others.
 		fmax = b.Cutoff(fam) * (1 - belowCutoff)
+		if fmax <= 0 {
+			return nil, nil, nil // a coaxial pipe's TEM mode: nothing is trapped
+		}
 	}
 	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
 	s.calibrate(b, sv.a)
