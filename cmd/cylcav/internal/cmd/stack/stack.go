@@ -85,12 +85,14 @@ func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
 		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
 		Long: fmt.Sprintf(`List the azimuthally symmetric (n = 0) resonances below --fmax of a cavity
-made of circular cylindrical sections stacked along z between two metal end
-plates, every change of radius a flat metal step. TE0 (E_phi) and TM0
+made of circular cylindrical sections stacked along z between two ends
+(metal plates, or pipes to infinity: see end_a and end_b below), every
+change of radius a flat metal step. TE0 (E_phi) and TM0
 (E_r, E_z) resonances are solved separately by axial mode matching; the
 count of resonances below any frequency is exact for the model, so none is
 missed. Each resonance is labelled with the mode of the enclosing cylinder
-(largest radius, total length) it continues from, and carries a
+(largest radius, total length) it continues from (not for a body with an
+open end or a coaxial section), and carries a
 convergence estimate: how far it moved when the number of waveguide modes
 grew by half.
 
@@ -105,8 +107,8 @@ The geometry file is YAML:
       radius: 4mm
       start: 20mm                 # optional check: z of the left face
 
-Top-level keys: %s. end_a and end_b (the ends at z = 0
-and at the far end) are plate (the default: a metal end plate) or pipe: a
+Top-level keys: %s.
+end_a and end_b (the ends at z = 0 and at the far end) are plate (the default: a metal end plate) or pipe: a
 semi-infinite pipe of the end section's cross-section and fill, as a beam
 pipe or a feeding waveguide. Below the pipe's lowest cutoff of a family
 every resonance is trapped (a real resonance, found with the same exact
