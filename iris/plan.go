@@ -1,0 +1,375 @@
+package iris
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"cylcav/cavity"
+	"cylcav/filter"
+	"cylcav/physics"
+)
+
+// Method is how a coupling is realised and computed.
+type Method uint8
+
+const (
+	// NoMethod: no method of this package applies (a source-load or
+	// source-to-inner coupling, a coupling of the opposite kind to what a
+	// hole gives, an n >= 1 mode in line).
+	NoMethod Method = iota
+	// ModeMatching: a centred iris between in-line cells, from the split
+	// pair of the two cells solved by package axisym.
+	ModeMatching
+	// PortMatching: a centred end iris to a circular waveguide port, from
+	// the port solver (PortFunc).
+	PortMatching
+	// BetheThick: an off-axis hole in a common side wall by Bethe's
+	// polarisabilities with the thickness correction exp(-alpha t)
+	// (filter.SizeHole: Bethe 1944; Cohn 1952; Matthaei, Young and Jones
+	// 1964, sec. 5.10).
+	BetheThick
+)
+
+// String names the method for people.
+func (m Method) String() string {
+	switch m {
+	case ModeMatching:
+		return "mode matching (axisymmetric pair)"
+	case PortMatching:
+		return "mode matching (open port)"
+	case BetheThick:
+		return "Bethe + thickness correction"
+	}
+	return "none"
+}
+
+// Key names the method for programs.
+func (m Method) Key() string {
+	switch m {
+	case ModeMatching:
+		return "mode_matching_pair"
+	case PortMatching:
+		return "mode_matching_port"
+	case BetheThick:
+		return "bethe_thick_wall"
+	}
+	return "none"
+}
+
+// Coupling is the realisation of one coupling of a design.
+type Coupling struct {
+	// Kind is "main" (k_i,i+1), "port" (Qext of resonator 1 or N) or
+	// "cross" (any other coupling; source and load are 0 and N+1).
+	Kind     string
+	From, To int
+	// Required is the bandpass k (signed) for main and cross couplings
+	// and the external Q for ports.
+	Required float64
+	Method   Method
+	// Radius is the iris or hole radius, m, Thickness the wall's, m; Where
+	// says where it sits, for people.
+	Radius, Thickness float64
+	Where             string
+	// Achieved is the k (or Qext) of the realisation; Change the
+	// convergence estimate of k (mode matching; NaN where not known);
+	// RadiusChange the resulting radius uncertainty, m.
+	Achieved, Change, RadiusChange float64
+	// Iterations is the number of solves after the bracket.
+	Iterations int
+	// Isolation is the pair's isolation (Point.Isolation); Monotone whether
+	// the k-versus-radius curve was monotone.
+	Isolation float64
+	Monotone  bool
+	// Shift is the relative detuning this iris causes in each cavity it
+	// opens into (mode matching and ports; 0 otherwise).
+	Shift float64
+	// Hole is the Bethe result for BetheThick.
+	Hole *filter.HoleCoupling
+	// Err says why no realisation is given (nil when one is).
+	Err error
+}
+
+// Status is the verdict on one coupling.
+type Status uint8
+
+const (
+	// Valid: the method holds for this realisation.
+	Valid Status = iota
+	// Outside: a number was computed but the method's limits are broken;
+	// the number is not to be built from.
+	Outside
+	// Unrealised: no method here gives a number (see the reasons).
+	Unrealised
+)
+
+// String returns "valid", "outside range" or "not realised".
+func (s Status) String() string {
+	switch s {
+	case Valid:
+		return "valid"
+	case Outside:
+		return "outside range"
+	}
+	return "not realised"
+}
+
+// Limits of the mode-matching verdict.
+const (
+	// MaxRelChange is the largest convergence estimate of k, relative to
+	// k, accepted (common practice: 1 % of k, well inside the tuning range
+	// a filter's screws cover).
+	MaxRelChange = 0.01
+	// MinIsolation is the least distance from the pair to any other
+	// resonance of its family in units of the split: the two-resonator
+	// formula assumes the rest far away (Hong and Lancaster 2001, sec. 8.2;
+	// the factor is common practice).
+	MinIsolation = 3.0
+)
+
+// Judge is the one verdict on a coupling's realisation: Unrealised with
+// the reason when no number was given, Outside with every broken limit
+// (mode matching: convergence of k above MaxRelChange, isolation below
+// MinIsolation; Bethe: every limit of filter.HoleCoupling.Problems), Valid
+// otherwise.
+func Judge(c Coupling) (Status, []string) {
+	if c.Err != nil || c.Method == NoMethod {
+		msg := "no method applies"
+		if c.Err != nil {
+			msg = c.Err.Error()
+		}
+		return Unrealised, []string{msg}
+	}
+	var out []string
+	switch c.Method {
+	case ModeMatching:
+		if !(c.Change <= MaxRelChange*math.Abs(c.Achieved)) {
+			out = append(out, fmt.Sprintf("k changes by %.2g (%.2g %% of k) when the modes grow by half, more than %g %%: raise the mode count", c.Change, 100*c.Change/math.Abs(c.Achieved), 100*MaxRelChange))
+		}
+		if c.Isolation < MinIsolation {
+			out = append(out, fmt.Sprintf("another resonance lies %.3g splits from the pair, less than %g: the two-resonator formula does not hold", c.Isolation, MinIsolation))
+		}
+	case BetheThick:
+		if c.Hole != nil {
+			out = append(out, c.Hole.Problems...)
+		}
+	}
+	if len(out) > 0 {
+		return Outside, out
+	}
+	return Valid, nil
+}
+
+// Tuning is one cavity of an in-line filter with the detuning of its irises
+// and the dimension that restores its frequency.
+type Tuning struct {
+	Resonator int
+	// F is the resonator's own frequency f_i, Hz.
+	F float64
+	// Radius and Length are the closed cavity's, m (package filter's
+	// realisation).
+	Radius, Length float64
+	// Shift is the relative detuning of the irises that open into it
+	// (first order: the shifts of the irises on its two end plates add,
+	// derived), and Complete false when an iris could not be sized, so that
+	// Shift lacks its part.
+	Shift    float64
+	Complete bool
+	// CorrectedRadius and CorrectedLength are the dimensions with which the
+	// loaded cavity resonates at F: the closed cavity sized for
+	// F/(1 + Shift), the length changed for p > 0 and the radius for
+	// TM0m0 (whose frequency does not depend on the length).
+	CorrectedRadius, CorrectedLength float64
+}
+
+// Options are the inputs of Realise besides the design.
+type Options struct {
+	// Wall is the wall thickness at every iris and hole, m.
+	Wall float64
+	// Modes is the mode count of the solver (0: axisym.DefaultModes).
+	Modes int
+	// Port is the port solver; nil: the end irises are not sized (their
+	// rows carry an error wrapping ErrNoPortSolver).
+	Port PortFunc
+	// PortRadius is the port guide radius, m (0: the end cell's radius).
+	PortRadius float64
+}
+
+// Plan is the realisation of every coupling of a design.
+type Plan struct {
+	Mode      cavity.Mode
+	Couplings []Coupling
+	Cavities  []Tuning
+	// Curves are the k-versus-radius curves of the distinct pairs, in the
+	// order first used.
+	Curves []Curve
+}
+
+// Curve is one k-versus-radius curve and the couplings sized on it.
+type Curve struct {
+	Pair   Pair
+	Points []Point
+	Used   []int // indices of Plan.Couplings
+}
+
+// Realise sizes every coupling of design d whose cavities rz realises
+// (filter.Realise), for cavities on one axis joined by centred irises
+// (main line, ports) and off-axis holes in a common side wall for the
+// cross couplings, and the cavity dimensions that keep each resonator on
+// its frequency with the irises in place.
+//
+// Main line: the pair of cavities i and i+1 (their mean radius and length
+// where they differ, as for the detuned resonators of an asymmetric
+// design) solved over CurvePoints radii from CurveLow to CurveHigh of the
+// cell radius, and the curve inverted (Pair.Invert). Ports: Port.Invert
+// with opts.Port. Cross couplings between resonators: filter.SizeHole on
+// the side wall at the position of the strongest coupling; a coupling of
+// the sign a hole cannot give (the main line is taken as the kind the
+// irises give, magnetic for a hole in a TE0 cavity's side wall) and
+// couplings involving source or load are Unrealised.
+//
+// Errors: a nil design or realisation, a mode with n != 0, an invalid
+// wall thickness or mode count. Couplings that cannot be sized are rows
+// with Err set, not errors.
+func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, error) {
+	if d == nil || rz == nil || d.Folded == nil || len(rz.Cavities) != d.Spec.Order {
+		return nil, errors.New("iris: Realise needs a synthesised design and its realisation")
+	}
+	mode := rz.Mode
+	if mode.N != 0 {
+		return nil, fmt.Errorf("iris: in-line irises need a TE0mp or TM0mp mode (n = 0), got %s", mode)
+	}
+	if !(opts.Wall >= cavity.MinSize && opts.Wall <= cavity.MaxSize) {
+		return nil, fmt.Errorf("iris: wall thickness must be in %g..%g m, got %g m", cavity.MinSize, cavity.MaxSize, opts.Wall)
+	}
+	n := d.Spec.Order
+	fill := rz.Cavities[0].Cavity.Fill
+	pl := &Plan{Mode: mode}
+	shifts := make([]float64, n)
+	complete := make([]bool, n)
+	for i := range complete {
+		complete[i] = true
+	}
+	pairOf := func(i, j int) Pair {
+		a, b := rz.Cavities[i-1].Cavity, rz.Cavities[j-1].Cavity
+		return Pair{Radius: 0.5 * (a.Radius + b.Radius), Length: 0.5 * (a.Length + b.Length), Fill: fill, Mode: mode, Wall: opts.Wall, Modes: opts.Modes}
+	}
+	curveOf := func(p Pair, row int) ([]Point, error) {
+		for k := range pl.Curves {
+			if pl.Curves[k].Pair == p {
+				pl.Curves[k].Used = append(pl.Curves[k].Used, row)
+				return pl.Curves[k].Points, nil
+			}
+		}
+		pts, err := p.Curve(CurveLow*p.Radius, CurveHigh*p.Radius, CurvePoints)
+		if err != nil {
+			return nil, err
+		}
+		pl.Curves = append(pl.Curves, Curve{Pair: p, Points: pts, Used: []int{row}})
+		return pts, nil
+	}
+	// Ports first (input), then the main line, then the output port and
+	// cross couplings, in the order of the filter.
+	port := func(res int, q float64) {
+		c := rz.Cavities[res-1].Cavity
+		row := Coupling{Kind: "port", From: 0, To: res, Required: q, Method: PortMatching, Thickness: opts.Wall,
+			Where: fmt.Sprintf("centred in the outer end plate of cavity %d", res), Change: math.NaN(), Monotone: true}
+		if res == n && n > 1 {
+			row.From, row.To = res, n+1
+		}
+		p := Port{Pair: Pair{Radius: c.Radius, Length: c.Length, Fill: fill, Mode: mode, Wall: opts.Wall, Modes: opts.Modes},
+			GuideRadius: opts.PortRadius, Solve: opts.Port}
+		s, err := p.Invert(q)
+		if err != nil {
+			row.Err = err
+			complete[res-1] = false
+		} else {
+			row.Radius, row.Achieved, row.Iterations, row.Shift = s.Radius, s.Qext, s.Iterations, s.Shift
+			shifts[res-1] += s.Shift
+		}
+		pl.Couplings = append(pl.Couplings, row)
+	}
+	port(1, d.QextIn)
+	for i := 1; i < n; i++ {
+		k := d.Coupling(i, i+1)
+		row := Coupling{Kind: "main", From: i, To: i + 1, Required: k, Method: ModeMatching, Thickness: opts.Wall,
+			Where: fmt.Sprintf("centred in the wall between cavities %d and %d", i, i+1)}
+		p := pairOf(i, i+1)
+		pts, err := curveOf(p, len(pl.Couplings))
+		if err == nil {
+			var s Sized
+			s, err = p.Invert(pts, math.Abs(k))
+			if err == nil {
+				row.Radius, row.Achieved, row.Change, row.RadiusChange = s.Radius, s.K, s.KChange, s.RadiusChange
+				row.Iterations, row.Isolation, row.Monotone, row.Shift = s.Iterations, s.Isolation, s.Monotone, s.Shift
+				shifts[i-1] += s.Shift
+				shifts[i] += s.Shift
+			}
+		}
+		if err != nil {
+			row.Err = err
+			complete[i-1], complete[i] = false, false
+		}
+		pl.Couplings = append(pl.Couplings, row)
+	}
+	if n > 1 {
+		port(n, d.QextOut)
+	}
+	for i := 0; i < n+2; i++ {
+		for j := i + 2; j < n+2; j++ {
+			m := d.Folded.At(i, j)
+			if math.Abs(m) <= 1e-9 || (i == 0 && j == 1) || (i == n && j == n+1) {
+				continue
+			}
+			pl.Couplings = append(pl.Couplings, crossHole(d, rz, i, j, opts.Wall))
+		}
+	}
+	for i, cd := range rz.Cavities {
+		t := Tuning{Resonator: i + 1, F: cd.F, Radius: cd.Cavity.Radius, Length: cd.Cavity.Length, Shift: shifts[i], Complete: complete[i]}
+		target := cd.F / (1 + shifts[i])
+		var by cavity.Constraint
+		if mode.P == 0 {
+			by = cavity.ByLength(cd.Cavity.Length)
+		} else {
+			by = cavity.ByDiameter(2 * cd.Cavity.Radius)
+		}
+		c, err := cavity.Size(mode, target, fill, by)
+		if err != nil {
+			return nil, fmt.Errorf("iris: corrected cavity %d at %s: %w", i+1, physics.FormatFrequency(target, 6), err)
+		}
+		t.CorrectedRadius, t.CorrectedLength = c.Radius, c.Length
+		pl.Cavities = append(pl.Cavities, t)
+	}
+	return pl, nil
+}
+
+// crossHole realises a coupling off the main line as a side-wall hole.
+func crossHole(d *filter.Design, rz *filter.Realisation, i, j int, wall float64) Coupling {
+	n := d.Spec.Order
+	k := d.Coupling(i, j)
+	row := Coupling{Kind: "cross", From: i, To: j, Required: k, Method: BetheThick, Thickness: wall, Change: math.NaN(), Monotone: true}
+	if i == 0 || j == n+1 {
+		row.Method = NoMethod
+		row.Err = fmt.Errorf("a coupling to the source or load besides the end resonators needs a probe or a second port path; no method here realises it")
+		return row
+	}
+	c1, c2 := rz.Cavities[i-1].Cavity, rz.Cavities[j-1].Cavity
+	hc, err := filter.SizeHole(c1, c2, rz.Mode, filter.Hole{Wall: filter.SideWall, Thickness: wall}, k)
+	if err != nil {
+		row.Method = NoMethod
+		row.Err = err
+		return row
+	}
+	if hc.K*k < 0 {
+		row.Method = NoMethod
+		kind := "electric"
+		if hc.K > 0 {
+			kind = "magnetic"
+		}
+		row.Err = fmt.Errorf("k = %.4g needs the opposite kind of coupling to the main line, and a side-wall hole gives %s coupling for %s; realise it with a probe or another structure (field solver)", k, kind, rz.Mode)
+		return row
+	}
+	row.Radius, row.Achieved, row.Hole = hc.Radius, hc.K, &hc
+	row.Where = fmt.Sprintf("side wall shared by cavities %d and %d, at z/L = %.3g", i, j, hc.Position)
+	return row
+}

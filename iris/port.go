@@ -1,0 +1,148 @@
+package iris
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"cylcav/axisym"
+	"cylcav/cavity"
+	"cylcav/physics"
+)
+
+// PortFunc returns the resonant frequency f0 and external Q of the
+// resonance of family fam nearest fNear of body b, whose last section is
+// an open circular waveguide running to infinity (the port), with modes
+// waveguide modes in the widest section. It is the signature of the
+// open-end solver of package axisym; this package takes it as a value so
+// that the iris sizing does not depend on when that solver lands.
+type PortFunc func(b axisym.Body, fam cavity.Family, fNear float64, modes int) (f0, qext float64, err error)
+
+// ErrNoPortSolver is wrapped when end irises are asked for without a port
+// solver: the external Q through an iris needs an open end, which is not
+// available.
+var ErrNoPortSolver = errors.New("end-iris sizing needs the open-end (port) solver, which is not available yet")
+
+// Port is an end cell fed through a centred iris from a circular waveguide
+// port on its axis.
+type Port struct {
+	// Cell is the end cavity (its Radius, Length and Fill) and Mode its
+	// TE0mp or TM0mp mode; Wall and Modes as in Pair.
+	Pair
+	// GuideRadius is the radius of the port waveguide, m; zero means the
+	// cell's radius.
+	GuideRadius float64
+	// Solve is the port solver; nil makes every call an error wrapping
+	// ErrNoPortSolver.
+	Solve PortFunc
+}
+
+// Body returns the port body with an iris of radius r: cell, iris, port
+// guide (length one cell radius; the solver treats the last section as
+// running to infinity).
+func (p Port) Body(r float64) axisym.Body {
+	g := p.GuideRadius
+	if g == 0 {
+		g = p.Radius
+	}
+	return axisym.Body{Sections: []axisym.Section{
+		{Length: p.Length, Radius: p.Radius, Fill: p.Fill},
+		{Length: p.Wall, Radius: r, Fill: p.Fill},
+		{Length: p.Radius, Radius: g, Fill: p.Fill},
+	}}
+}
+
+// PortPoint is the end cell solved at one iris radius.
+type PortPoint struct {
+	Radius float64 // m
+	// F0 is the loaded cell's resonant frequency, Hz, and Shift its
+	// relative shift from the closed cell.
+	F0, Shift float64
+	// Qext is the external Q through the iris (the port solver's, from the
+	// group delay of the port's reflection at resonance: Qext = omega0
+	// tau/4, J. B. Ness, IEEE Trans. MTT 46 (1998) 343-351).
+	Qext float64
+}
+
+// At solves the end cell with an iris of radius r.
+func (p Port) At(r float64) (PortPoint, error) {
+	if p.Solve == nil {
+		return PortPoint{}, fmt.Errorf("iris: %w", ErrNoPortSolver)
+	}
+	if err := p.Pair.Validate(); err != nil {
+		return PortPoint{}, err
+	}
+	g := p.GuideRadius
+	if g == 0 {
+		g = p.Radius
+	}
+	if !(r >= cavity.MinSize && r < p.Radius && r < g) {
+		return PortPoint{}, fmt.Errorf("iris: port iris radius must be in %g m..min(cell radius, guide radius) %g m (exclusive), got %g m", cavity.MinSize, math.Min(p.Radius, g), r)
+	}
+	fc := p.Cell().Frequency(p.Mode)
+	f0, q, err := p.Solve(p.Body(r), p.Mode.Family, fc, p.Modes)
+	if err != nil {
+		return PortPoint{}, err
+	}
+	return PortPoint{Radius: r, F0: f0, Shift: f0/fc - 1, Qext: q}, nil
+}
+
+// PortSized is a port iris found for a wanted external Q.
+type PortSized struct {
+	PortPoint
+	Target     float64
+	Iterations int
+}
+
+// Invert returns the port iris radius that gives Qext = target: the
+// external Q falls as the iris opens, so it is bracketed on portCurve
+// radii spaced in log r over the curve range (CurveLow..CurveHigh of the
+// smaller of the cell and guide radii) and refined by the Illinois regula
+// falsi on ln Qext against ln r. Errors wrap ErrNoPortSolver without a
+// solver and ErrUnreachable when no radius of the range gives the target.
+func (p Port) Invert(target float64) (PortSized, error) {
+	if p.Solve == nil {
+		return PortSized{}, fmt.Errorf("iris: %w", ErrNoPortSolver)
+	}
+	if !(target > 0) || math.IsInf(target, 0) {
+		return PortSized{}, fmt.Errorf("iris: external Q to realise must be > 0 and finite, got %g", target)
+	}
+	g := p.GuideRadius
+	if g == 0 {
+		g = p.Radius
+	}
+	rmax := CurveHigh * math.Min(p.Radius, g)
+	rmin := CurveLow * p.Radius
+	var prev PortPoint
+	for i := range portCurve {
+		r := rmin * math.Pow(rmax/rmin, float64(i)/float64(portCurve-1))
+		pt, err := p.At(r)
+		if err != nil {
+			return PortSized{}, err
+		}
+		if i > 0 && (prev.Qext-target)*(pt.Qext-target) <= 0 {
+			var last PortPoint
+			x, it, err := illinois(prev.Radius, prev.Qext, pt.Radius, pt.Qext, target, func(r float64) (float64, error) {
+				q, err := p.At(r)
+				last = q
+				return q.Qext, err
+			})
+			if err != nil {
+				return PortSized{}, err
+			}
+			switch x {
+			case prev.Radius:
+				last = prev
+			case pt.Radius:
+				last = pt
+			}
+			return PortSized{PortPoint: last, Target: target, Iterations: it}, nil
+		}
+		prev = pt
+	}
+	return PortSized{}, fmt.Errorf("iris: %w: Qext = %.4g is not reached by a centred port iris of radius %s..%s in a %s wall",
+		ErrUnreachable, target, physics.FormatLength(rmin, 3), physics.FormatLength(rmax, 3), physics.FormatLength(p.Wall, 3))
+}
+
+// portCurve is the number of radii of the port bracket scan.
+const portCurve = 10
