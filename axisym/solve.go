@@ -152,7 +152,7 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 		if err != nil {
 			return nil, err
 		}
-		coax := false
+		coax := b.Open() // an open body has no enclosing-cylinder label either
 		for _, s := range b.Sections {
 			coax = coax || s.InnerRadius != 0
 		}
@@ -253,6 +253,11 @@ func resonancesWith(b Body, fam cavity.Family, fmax float64, counts []int, withL
 	s, err := newSystem(b, fam, counts)
 	if err != nil {
 		return nil, nil, err
+	}
+	if b.Radiates(fam, fmax) {
+		// An open body: the real model holds below the pipe's cutoff only
+		// (trapped resonances); Radiating finds the others.
+		fmax = b.Cutoff(fam) * (1 - belowCutoff)
 	}
 	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
 	s.calibrate(b, sv.a)
