@@ -38,8 +38,8 @@ type Port struct {
 }
 
 // Body returns the port body with an iris of radius r: cell, iris, port
-// guide (length one cell radius; the solver treats the last section as
-// running to infinity).
+// guide (length one cell radius, then running on to infinity: EndB is
+// axisym.Pipe).
 func (p Port) Body(r float64) axisym.Body {
 	g := p.GuideRadius
 	if g == 0 {
@@ -49,7 +49,7 @@ func (p Port) Body(r float64) axisym.Body {
 		{Length: p.Length, Radius: p.Radius, Fill: p.Fill},
 		{Length: p.Wall, Radius: r, Fill: p.Fill},
 		{Length: p.Radius, Radius: g, Fill: p.Fill},
-	}}
+	}, EndB: axisym.Pipe}
 }
 
 // PortPoint is the end cell solved at one iris radius.
@@ -80,7 +80,13 @@ func (p Port) At(r float64) (PortPoint, error) {
 		return PortPoint{}, fmt.Errorf("iris: port iris radius must be in %g m..min(cell radius, guide radius) %g m (exclusive), got %g m", cavity.MinSize, math.Min(p.Radius, g), r)
 	}
 	fc := p.Cell().Frequency(p.Mode)
-	f0, q, err := p.Solve(p.Body(r), p.Mode.Family, fc, p.Modes)
+	return p.atNear(r, fc)
+}
+
+// atNear is At with the solver started from fNear (Hz).
+func (p Port) atNear(r, fNear float64) (PortPoint, error) {
+	fc := p.Cell().Frequency(p.Mode)
+	f0, q, err := p.Solve(p.Body(r), p.Mode.Family, fNear, p.Modes)
 	if err != nil {
 		return PortPoint{}, err
 	}
@@ -97,8 +103,10 @@ type PortSized struct {
 // Invert returns the port iris radius that gives Qext = target: the
 // external Q falls as the iris opens, so it is bracketed on portCurve
 // radii spaced in log r over the curve range (CurveLow..CurveHigh of the
-// smaller of the cell and guide radii) and refined by the Illinois regula
-// falsi on ln Qext against ln r. Errors wrap ErrNoPortSolver without a
+// smaller of the cell and guide radii), in increasing order, each solve
+// started from the previous resonance (irises too small for the solver to
+// resolve their Qext are passed over until the first result), and refined
+// by the Illinois regula falsi on ln Qext against ln r. Errors wrap ErrNoPortSolver without a
 // solver and ErrUnreachable when no radius of the range gives the target.
 func (p Port) Invert(target float64) (PortSized, error) {
 	if p.Solve == nil {
@@ -111,19 +119,32 @@ func (p Port) Invert(target float64) (PortSized, error) {
 	if g == 0 {
 		g = p.Radius
 	}
+	if err := p.Pair.Validate(); err != nil {
+		return PortSized{}, err
+	}
 	rmax := CurveHigh * math.Min(p.Radius, g)
 	rmin := CurveLow * p.Radius
 	var prev PortPoint
+	have := false
+	fNear := p.Cell().Frequency(p.Mode)
 	for i := range portCurve {
 		r := rmin * math.Pow(rmax/rmin, float64(i)/float64(portCurve-1))
-		pt, err := p.At(r)
+		pt, err := p.atNear(r, fNear)
 		if err != nil {
+			if !have {
+				// A small iris: the external Q is beyond what the port
+				// solver resolves (it finds no decaying root); larger
+				// irises are tried, and the bracket needs two results.
+				continue
+			}
 			return PortSized{}, err
 		}
-		if i > 0 && (prev.Qext-target)*(pt.Qext-target) <= 0 {
+		fNear = pt.F0 // the next, larger iris starts from here
+		if have && (prev.Qext-target)*(pt.Qext-target) <= 0 {
 			var last PortPoint
+			start := prev.F0
 			x, it, err := illinois(prev.Radius, prev.Qext, pt.Radius, pt.Qext, target, func(r float64) (float64, error) {
-				q, err := p.At(r)
+				q, err := p.atNear(r, start)
 				last = q
 				return q.Qext, err
 			})
@@ -138,7 +159,7 @@ func (p Port) Invert(target float64) (PortSized, error) {
 			}
 			return PortSized{PortPoint: last, Target: target, Iterations: it}, nil
 		}
-		prev = pt
+		prev, have = pt, true
 	}
 	return PortSized{}, fmt.Errorf("iris: %w: Qext = %.4g is not reached by a centred port iris of radius %s..%s in a %s wall",
 		ErrUnreachable, target, physics.FormatLength(rmin, 3), physics.FormatLength(rmax, 3), physics.FormatLength(p.Wall, 3))

@@ -29,10 +29,9 @@ type IrisOptions struct {
 // maxIrisWall bounds --iris-wall.
 const maxIrisWall = 0.1 // m
 
-// portSolver is the open-end solver that sizes the end irises; nil until
-// package axisym has open ends, and the end irises are then reported as
-// not available.
-var portSolver iris.PortFunc
+// portSolver is the open-end solver that sizes the end irises (nil would
+// report them as not available).
+var portSolver iris.PortFunc = axisym.PortQ
 
 // irisFlags holds the flag values before they are checked.
 type irisFlags struct {
