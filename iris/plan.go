@@ -72,8 +72,10 @@ type Coupling struct {
 	Radius, Thickness float64
 	Where             string
 	// Achieved is the k (or Qext) of the realisation; Change the
-	// convergence estimate of k (mode matching; NaN where not known);
-	// RadiusChange the resulting radius uncertainty, m.
+	// convergence estimate of k or Qext (mode matching and ports; NaN for
+	// Bethe);
+	// RadiusChange the resulting radius uncertainty, m (pairs; NaN
+	// otherwise).
 	Achieved, Change, RadiusChange float64
 	// Iterations is the number of solves after the bracket.
 	Iterations int
@@ -125,11 +127,18 @@ const (
 	// formula assumes the rest far away (Hong and Lancaster 2001, sec. 8.2;
 	// the factor is common practice).
 	MinIsolation = 3.0
+	// MaxShift is the largest detuning of a cavity by one iris for which
+	// the first-order correction of the cavity's length (shifts of the
+	// irises on its two end plates added, each from a symmetric pair) is
+	// offered as valid (common practice: a few percent, where the
+	// neglected second-order terms stay below the usual tuning range).
+	MaxShift = 0.02
 )
 
 // Judge is the one verdict on a coupling's realisation: Unrealised with
 // the reason when no number was given, Outside with every broken limit
-// (mode matching: convergence of k above MaxRelChange, isolation below
+// (mode matching and ports: convergence of k or Qext above MaxRelChange,
+// a detuning above MaxShift, and for pairs an isolation below
 // MinIsolation; Bethe: every limit of filter.HoleCoupling.Problems), Valid
 // otherwise.
 func Judge(c Coupling) (Status, []string) {
@@ -142,11 +151,18 @@ func Judge(c Coupling) (Status, []string) {
 	}
 	var out []string
 	switch c.Method {
-	case ModeMatching:
-		if !(c.Change <= MaxRelChange*math.Abs(c.Achieved)) {
-			out = append(out, fmt.Sprintf("k changes by %.2g (%.2g %% of k) when the modes grow by half, more than %g %%: raise the mode count", c.Change, 100*c.Change/math.Abs(c.Achieved), 100*MaxRelChange))
+	case ModeMatching, PortMatching:
+		what := "k"
+		if c.Method == PortMatching {
+			what = "Qext"
 		}
-		if c.Isolation < MinIsolation {
+		if !(c.Change <= MaxRelChange*math.Abs(c.Achieved)) {
+			out = append(out, fmt.Sprintf("%s changes by %.2g (%.2g %% of %s) when the modes grow by half, more than %g %%: raise the mode count", what, c.Change, 100*c.Change/math.Abs(c.Achieved), what, 100*MaxRelChange))
+		}
+		if math.Abs(c.Shift) > MaxShift {
+			out = append(out, fmt.Sprintf("the iris detunes each cavity it opens into by %.3g %%, more than %g %%: the first-order length correction is not to be trusted; solve the whole filter body", 100*c.Shift, 100*MaxShift))
+		}
+		if c.Method == ModeMatching && c.Isolation < MinIsolation {
 			out = append(out, fmt.Sprintf("another resonance lies %.3g splits from the pair, less than %g: the two-resonator formula does not hold", c.Isolation, MinIsolation))
 		}
 	case BetheThick:
@@ -273,7 +289,7 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 	port := func(res int, q float64) {
 		c := rz.Cavities[res-1].Cavity
 		row := Coupling{Kind: "port", From: 0, To: res, Required: q, Method: PortMatching, Thickness: opts.Wall,
-			Where: fmt.Sprintf("centred in the outer end plate of cavity %d", res), Change: math.NaN(), Monotone: true}
+			Where: fmt.Sprintf("centred in the outer end plate of cavity %d", res), Change: math.NaN(), RadiusChange: math.NaN(), Monotone: true}
 		if res == n && n > 1 {
 			row.From, row.To = res, n+1
 		}
@@ -284,7 +300,7 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 			row.Err = err
 			complete[res-1] = false
 		} else {
-			row.Radius, row.Achieved, row.Iterations, row.Shift = s.Radius, s.Qext, s.Iterations, s.Shift
+			row.Radius, row.Achieved, row.Iterations, row.Shift, row.Change = s.Radius, s.Qext, s.Iterations, s.Shift, s.QextChange
 			shifts[res-1] += s.Shift
 		}
 		pl.Couplings = append(pl.Couplings, row)
@@ -347,7 +363,7 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 func crossHole(d *filter.Design, rz *filter.Realisation, i, j int, wall float64) Coupling {
 	n := d.Spec.Order
 	k := d.Coupling(i, j)
-	row := Coupling{Kind: "cross", From: i, To: j, Required: k, Method: BetheThick, Thickness: wall, Change: math.NaN(), Monotone: true}
+	row := Coupling{Kind: "cross", From: i, To: j, Required: k, Method: BetheThick, Thickness: wall, Change: math.NaN(), RadiusChange: math.NaN(), Monotone: true}
 	if i == 0 || j == n+1 {
 		row.Method = NoMethod
 		row.Err = fmt.Errorf("a coupling to the source or load besides the end resonators needs a probe or a second port path; no method here realises it")

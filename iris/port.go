@@ -98,6 +98,10 @@ type PortSized struct {
 	PortPoint
 	Target     float64
 	Iterations int
+	// QextChange is the convergence estimate of Qext: its change at the
+	// found radius when the solver keeps two thirds of the modes (as
+	// axisym.Solve's Change).
+	QextChange float64
 }
 
 // Invert returns the port iris radius that gives Qext = target: the
@@ -157,7 +161,13 @@ func (p Port) Invert(target float64) (PortSized, error) {
 			case pt.Radius:
 				last = pt
 			}
-			return PortSized{PortPoint: last, Target: target, Iterations: it}, nil
+			out := PortSized{PortPoint: last, Target: target, Iterations: it, QextChange: math.Inf(1)}
+			coarse := p
+			coarse.Modes = (2*p.modes() + 2) / 3
+			if c, err := coarse.atNear(last.Radius, last.F0); err == nil {
+				out.QextChange = math.Abs(c.Qext - last.Qext)
+			}
+			return out, nil
 		}
 		prev, have = pt, true
 	}
@@ -167,3 +177,11 @@ func (p Port) Invert(target float64) (PortSized, error) {
 
 // portCurve is the number of radii of the port bracket scan.
 const portCurve = 10
+
+// modes is the mode count in use (Modes, or axisym.DefaultModes).
+func (p Port) modes() int {
+	if p.Modes == 0 {
+		return axisym.DefaultModes
+	}
+	return p.Modes
+}

@@ -102,7 +102,7 @@ func writeIrises(b *strings.Builder, r *Result) {
 	n := r.Design.Order()
 	fl := func(v float64) string { return physics.FormatLength(v, 6) }
 	fmt.Fprintf(b, "\nIrises and holes (%s cavities on one axis, walls %s, solver modes %d)\n", pl.Mode, fl(r.Opts.Iris.Wall), r.Opts.Iris.Modes)
-	t := cmdutil.NewTable(b, "  coupling", "required", "method", "radius", "achieved", "k change", "verdict")
+	t := cmdutil.NewTable(b, "  coupling", "required", "method", "radius", "achieved", "change", "verdict")
 	var notes []string
 	for _, c := range pl.Couplings {
 		req := fmt.Sprintf("k %.6g", c.Required)
@@ -152,7 +152,8 @@ type IrisOut struct {
 	Limits    map[string]float64 `json:"limits"`
 }
 
-// IrisCouplingOut is one coupling.
+// IrisCouplingOut is one coupling: achieved and change are k (main,
+// cross) or Qext (port) and their convergence estimates.
 type IrisCouplingOut struct {
 	From         int                 `json:"from"`
 	To           int                 `json:"to"`
@@ -164,7 +165,7 @@ type IrisCouplingOut struct {
 	ThicknessM   float64             `json:"thickness_m"`
 	Where        string              `json:"position"`
 	Achieved     *cmdutil.JSONNumber `json:"achieved"`
-	KChange      *cmdutil.JSONNumber `json:"k_change"`
+	KChange      *cmdutil.JSONNumber `json:"change"`
 	RadiusChange *cmdutil.JSONNumber `json:"radius_change_m"`
 	Shift        *cmdutil.JSONNumber `json:"detuning_per_cavity"`
 	Iterations   int                 `json:"iterations"`
