@@ -108,9 +108,12 @@ type PortSized struct {
 // external Q falls as the iris opens, so it is bracketed on portCurve
 // radii spaced in log r over the curve range (CurveLow..CurveHigh of the
 // smaller of the cell and guide radii), in increasing order, each solve
-// started from the previous resonance (irises too small for the solver to
-// resolve their Qext are passed over until the first result), and refined
-// by the Illinois regula falsi on ln Qext against ln r. Errors wrap ErrNoPortSolver without a
+// started from the previous resonance, and refined by the Illinois regula
+// falsi on ln Qext against ln r. A radius where the port solver fails (an
+// iris too small for it to resolve Qext, a solve that does not converge)
+// or jumps by more than maxPortJump to another resonance breaks the scan:
+// no bracket spans it, and when no bracket is found the last failure is
+// in the error. Errors wrap ErrNoPortSolver without a
 // solver and ErrUnreachable when no radius of the range gives the target.
 func (p Port) Invert(target float64) (PortSized, error) {
 	if p.Solve == nil {
@@ -130,18 +133,20 @@ func (p Port) Invert(target float64) (PortSized, error) {
 	rmin := CurveLow * p.Radius
 	var prev PortPoint
 	have := false
+	var lastErr error
 	fNear := p.Cell().Frequency(p.Mode)
 	for i := range portCurve {
 		r := rmin * math.Pow(rmax/rmin, float64(i)/float64(portCurve-1))
 		pt, err := p.atNear(r, fNear)
+		if err == nil && math.Abs(pt.F0/fNear-1) > maxPortJump {
+			err = fmt.Errorf("iris: the port solver went from %s to %s at iris radius %s: another resonance",
+				physics.FormatFrequency(fNear, 6), physics.FormatFrequency(pt.F0, 6), physics.FormatLength(r, 4))
+		}
 		if err != nil {
-			if !have {
-				// A small iris: the external Q is beyond what the port
-				// solver resolves (it finds no decaying root); larger
-				// irises are tried, and the bracket needs two results.
-				continue
-			}
-			return PortSized{}, err
+			// A small iris whose Qext the port solver cannot resolve (no
+			// decaying root), or a failed solve: no bracket spans it.
+			lastErr, have = fmt.Errorf("at iris radius %s: %w", physics.FormatLength(r, 4), err), false
+			continue
 		}
 		fNear = pt.F0 // the next, larger iris starts from here
 		if have && (prev.Qext-target)*(pt.Qext-target) <= 0 {
@@ -171,12 +176,20 @@ func (p Port) Invert(target float64) (PortSized, error) {
 		}
 		prev, have = pt, true
 	}
+	if lastErr != nil {
+		return PortSized{}, fmt.Errorf("iris: no port iris bracketed Qext = %.4g; the port solver failed %w", target, lastErr)
+	}
 	return PortSized{}, fmt.Errorf("iris: %w: Qext = %.4g is not reached by a centred port iris of radius %s..%s in a %s wall",
 		ErrUnreachable, target, physics.FormatLength(rmin, 3), physics.FormatLength(rmax, 3), physics.FormatLength(p.Wall, 3))
 }
 
 // portCurve is the number of radii of the port bracket scan.
 const portCurve = 10
+
+// maxPortJump is the largest relative move of the port resonance from one
+// radius of the scan to the next accepted as the same resonance (common
+// practice: far beyond the detuning of a usable iris).
+const maxPortJump = 0.1
 
 // modes is the mode count in use (Modes, or axisym.DefaultModes).
 func (p Port) modes() int {
