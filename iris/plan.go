@@ -386,6 +386,6 @@ func crossHole(d *filter.Design, rz *filter.Realisation, i, j int, wall float64)
 		return row
 	}
 	row.Radius, row.Achieved, row.Hole = hc.Radius, hc.K, &hc
-	row.Where = fmt.Sprintf("side wall shared by cavities %d and %d, at z/L = %.3g", i, j, hc.Position)
+	row.Where = fmt.Sprintf("side wall shared by cavities %d and %d (side by side: a folded layout), at z/L = %.3g", i, j, hc.Position)
 	return row
 }
