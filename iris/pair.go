@@ -237,6 +237,8 @@ type Sized struct {
 	// Monotone is false when the curve was not monotone between its ends
 	// (the first radius reaching the target is returned).
 	Monotone bool
+
+	slope float64 // d ln k / d ln r at the root, from the last two solves or the curve
 }
 
 // radiusTol is the relative width of the final radius bracket: far below
@@ -308,6 +310,7 @@ func (p Pair) Invert(curve []Point, target float64) (Sized, error) {
 	c0, c1 := curve[j-1], curve[j]
 	if n := math.Log(c1.K/c0.K) / math.Log(c1.Radius/c0.Radius); n != 0 && !math.IsNaN(n) {
 		s.RadiusChange = best.KChange * best.Radius / math.Abs(n*best.K)
+		s.slope = n
 	} else {
 		s.RadiusChange = math.Inf(1)
 	}
@@ -365,4 +368,58 @@ func illinois(xa, va, xb, vb, target float64, v func(float64) (float64, error)) 
 		}
 	}
 	return x, it, nil
+}
+
+// near finds the radius of coupling target starting from the radius r0 of
+// a nearby pair, with slope = d ln k / d ln r there: a secant iteration on
+// ln k against ln r (no curve, no bracket), for the later passes of
+// Realise, whose cavities change little. It fails (the caller then takes
+// the curve) when a step leaves 0..0.99 of the cell radius or it does not
+// converge in 30 solves.
+func (p Pair) near(target, r0, slope float64) (Sized, error) {
+	if !(slope > 0) || !(r0 > 0) {
+		return Sized{}, errNoStart
+	}
+	var pts [2]Point
+	eval := func(x float64) (float64, error) {
+		r := math.Exp(x)
+		if !(r >= cavity.MinSize && r < 0.99*p.Radius) {
+			return 0, fmt.Errorf("iris: secant left the cell at %g m", r)
+		}
+		pt, err := p.at(r)
+		if err != nil {
+			return 0, err
+		}
+		if !(pt.K > 0) {
+			return 0, fmt.Errorf("iris: no coupling at %g m", r)
+		}
+		pts[0], pts[1] = pts[1], pt
+		return math.Log(pt.K / target), nil
+	}
+	x0 := math.Log(r0)
+	y0, err := eval(x0)
+	if err != nil {
+		return Sized{}, err
+	}
+	x1 := x0 - y0/slope
+	for it := 1; it <= 30; it++ {
+		y1, err := eval(x1)
+		if err != nil {
+			return Sized{}, err
+		}
+		if math.Abs(y1) <= 1e-10 || math.Abs(x1-x0) <= radiusTol {
+			best := pts[1]
+			s := Sized{Point: best, Target: target, Iterations: it, Monotone: true, slope: slope}
+			if y1 != y0 && x1 != x0 {
+				s.slope = (y1 - y0) / (x1 - x0)
+			}
+			s.RadiusChange = best.KChange * best.Radius / math.Abs(s.slope*best.K)
+			return s, nil
+		}
+		if y1 == y0 {
+			break
+		}
+		x0, y0, x1 = x1, y1, x1-y1*(x1-x0)/(y1-y0)
+	}
+	return Sized{}, fmt.Errorf("iris: the secant from %g m did not converge", r0)
 }

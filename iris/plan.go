@@ -5,9 +5,9 @@ import (
 	"fmt"
 	"math"
 
+	"cylcav/axisym"
 	"cylcav/cavity"
 	"cylcav/filter"
-	"cylcav/physics"
 )
 
 // Method is how a coupling is realised and computed.
@@ -86,10 +86,18 @@ type Coupling struct {
 	// Shift is the relative detuning this iris causes in each cavity it
 	// opens into (mode matching and ports; 0 otherwise).
 	Shift float64
+	// F0 is the loaded end cavity's resonant frequency for ports, Hz.
+	F0 float64
+	// Extension is the effective length the iris adds to each cavity it
+	// opens into (p > 0): the closed cavity that resonates at the loaded
+	// frequency is this much longer, m (see Realise).
+	Extension float64
 	// Hole is the Bethe result for BetheThick.
 	Hole *filter.HoleCoupling
 	// Err says why no realisation is given (nil when one is).
 	Err error
+
+	slope float64 // d ln k / d ln r at the radius (pairs)
 }
 
 // Status is the verdict on one coupling.
@@ -185,16 +193,17 @@ type Tuning struct {
 	// Radius and Length are the closed cavity's, m (package filter's
 	// realisation).
 	Radius, Length float64
-	// Shift is the relative detuning of the irises that open into it
-	// (first order: the shifts of the irises on its two end plates add,
-	// derived), and Complete false when an iris could not be sized, so that
-	// Shift lacks its part.
-	Shift    float64
-	Complete bool
+	// Extension is the summed effective length of the irises on its two
+	// end plates, m (p > 0; see Realise), and Shift the relative detuning
+	// they cause in the corrected cavity (for TM0m0, the summed detunings
+	// of its irises). Complete is false when an iris could not be sized,
+	// so that both lack its part.
+	Extension, Shift float64
+	Complete         bool
 	// CorrectedRadius and CorrectedLength are the dimensions with which the
-	// loaded cavity resonates at F: the closed cavity sized for
-	// F/(1 + Shift), the length changed for p > 0 and the radius for
-	// TM0m0 (whose frequency does not depend on the length).
+	// loaded cavity resonates at F (see Realise): the length changed for
+	// p > 0, the radius for TM0m0 (whose frequency does not depend on the
+	// length).
 	CorrectedRadius, CorrectedLength float64
 }
 
@@ -216,9 +225,16 @@ type Plan struct {
 	Mode      cavity.Mode
 	Couplings []Coupling
 	Cavities  []Tuning
-	// Curves are the k-versus-radius curves of the distinct pairs, in the
-	// order first used.
+	// Curves are the k-versus-radius curves of the distinct pairs of the
+	// closed cavities (the start of the iteration), in the order first
+	// used.
 	Curves []Curve
+	// Passes is the number of sizing passes (see Realise), Change the
+	// largest relative change of a corrected cavity dimension in the last
+	// pass and Converged whether it fell below DimensionTol.
+	Passes    int
+	Change    float64
+	Converged bool
 }
 
 // Curve is one k-versus-radius curve and the couplings sized on it.
@@ -228,6 +244,16 @@ type Curve struct {
 	Used   []int // indices of Plan.Couplings
 }
 
+// Limits of the sizing passes of Realise.
+const (
+	// DimensionTol is the relative change of every corrected cavity
+	// dimension below which the passes stop (common practice: far below
+	// machining tolerances, 0.3 um on 30 mm).
+	DimensionTol = 1e-5
+	// MaxPasses bounds the passes.
+	MaxPasses = 8
+)
+
 // Realise sizes every coupling of design d whose cavities rz realises
 // (filter.Realise), for cavities on one axis joined by centred irises
 // (main line, ports) and off-axis holes in a common side wall for the
@@ -235,14 +261,32 @@ type Curve struct {
 // its frequency with the irises in place.
 //
 // Main line: the pair of cavities i and i+1 (their mean radius and length
-// where they differ, as for the detuned resonators of an asymmetric
-// design) solved over CurvePoints radii from CurveLow to CurveHigh of the
-// cell radius, and the curve inverted (Pair.Invert). Ports: Port.Invert
-// with opts.Port. Cross couplings between resonators: filter.SizeHole on
-// the side wall at the position of the strongest coupling; a coupling of
-// the sign a hole cannot give (the main line is taken as the kind the
-// irises give, magnetic for a hole in a TE0 cavity's side wall) and
-// couplings involving source or load are Unrealised.
+// where they differ) solved over CurvePoints radii from CurveLow to
+// CurveHigh of the cell radius, and the curve inverted (Pair.Invert).
+// Ports: Port.Invert with opts.Port. Cross couplings between resonators:
+// filter.SizeHole on the side wall at the position of the strongest
+// coupling; a coupling of the sign a hole cannot give (the main line is
+// taken as the kind the irises give, magnetic for a hole in a TE0
+// cavity's side wall) and couplings involving source or load are
+// Unrealised.
+//
+// Cavities: each iris loads the cavities it opens into. For p > 0 its
+// effect is an effective extension of each cavity's length (the closed
+// cavity resonating at the loaded frequency, Point.Self or the port's f0,
+// is longer by Extension: the reference-plane shift of the iris seen as
+// an inverter between two lines, as in the direct-coupled cavity filters
+// of Matthaei, Young and Jones, ch. 8, derived here from the pair), and
+// the extensions of the irises on a cavity's two end plates add; the
+// cavity is made shorter by their sum than the closed cavity resonating
+// at f_i. (Adding the frequency shifts instead is wrong at first order
+// in the shift over the cavity's length sensitivity: about 5 % of a two-
+// iris cavity's detuning in the tests.) For TM0m0, whose frequency does
+// not depend on the length, the summed relative shifts set the radius.
+// An iris's k and extension depend on the cavities' dimensions, so the
+// sizing is repeated on the corrected cavities (each later pass starts
+// every iris from its last radius: a secant on ln k against ln r, the
+// curve and bracket again if that fails) until every dimension changes by
+// less than DimensionTol (at most MaxPasses passes).
 //
 // Errors: a nil design or realisation, a mode with n != 0, an invalid
 // wall thickness or mode count. Couplings that cannot be sized are rows
@@ -258,16 +302,180 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 	if !(opts.Wall >= cavity.MinSize && opts.Wall <= cavity.MaxSize) {
 		return nil, fmt.Errorf("iris: wall thickness must be in %g..%g m, got %g m", cavity.MinSize, cavity.MaxSize, opts.Wall)
 	}
+	if opts.Modes < 0 || opts.Modes > axisym.MaxModes {
+		return nil, fmt.Errorf("iris: modes must be in 0..%d (0: %d), got %d", axisym.MaxModes, axisym.DefaultModes, opts.Modes)
+	}
 	n := d.Spec.Order
-	fill := rz.Cavities[0].Cavity.Fill
+	cells := make([]cavity.Cavity, n)
+	for i, c := range rz.Cavities {
+		cells[i] = c.Cavity
+	}
+	var first []Curve
+	var pl *Plan
+	hist := make([]fixHist, n)
+	portCells := make([]cavity.Cavity, n)
+	for pass := 1; pass <= MaxPasses; pass++ {
+		copy(portCells, cells) // the cavities this pass sizes on
+		next, err := sizePass(d, rz, cells, opts, pl)
+		if err != nil {
+			return nil, err
+		}
+		if first == nil {
+			first = next.Curves
+		}
+		next.Curves, next.Passes = first, pass
+		change := 0.0
+		for i := range next.Cavities {
+			t := &next.Cavities[i]
+			cur := cells[i]
+			// g is the fixed-point image of the tuning dimension: the
+			// closed cavity for f_i with the irises' loading taken off.
+			var img cavity.Cavity
+			if mode.P == 0 {
+				// TM0m0: the radius, from the summed frequency shifts.
+				img, err = resize(mode, t.F/(1+t.Shift), cur)
+			} else {
+				// The length that resonates at f_i, less the irises'
+				// effective extensions.
+				img, err = resize(mode, t.F, cur)
+				img.Length -= t.Extension
+			}
+			if err != nil {
+				return nil, fmt.Errorf("iris: corrected cavity %d: %w", i+1, err)
+			}
+			x, g := dimOf(mode, cur), dimOf(mode, img)
+			h := x - g
+			next := g
+			if hs := hist[i]; pass > 1 && h != hs.h && x != hs.x {
+				// Secant on x - g(x) from the last two passes, when it
+				// stays near the plain step.
+				if sx := x - h*(x-hs.x)/(h-hs.h); math.Abs(sx-g) <= 10*math.Abs(h) {
+					next = sx
+				}
+			}
+			hist[i] = fixHist{x, h}
+			nc := setDim(mode, cur, next)
+			if err := nc.Validate(); err != nil {
+				return nil, fmt.Errorf("iris: corrected cavity %d: %w", i+1, err)
+			}
+			change = math.Max(change, math.Abs(next/x-1))
+			if mode.P != 0 {
+				loaded := nc
+				loaded.Length += t.Extension
+				t.Shift = loaded.Frequency(mode)/nc.Frequency(mode) - 1
+			}
+			t.CorrectedRadius, t.CorrectedLength = nc.Radius, nc.Length
+			cells[i] = nc
+		}
+		next.Change = change
+		pl = next
+		if change <= DimensionTol {
+			pl.Converged = true
+			break
+		}
+	}
+	// The ports' convergence estimates, once, on the cavities of the last
+	// pass.
+	for k := range pl.Couplings {
+		c := &pl.Couplings[k]
+		if c.Kind != "port" || c.Err != nil {
+			continue
+		}
+		res := c.To
+		if c.To == n+1 {
+			res = c.From
+		}
+		cell := portCells[res-1]
+		p := Port{Pair: Pair{Radius: cell.Radius, Length: cell.Length, Fill: cell.Fill, Mode: mode, Wall: opts.Wall, Modes: opts.Modes},
+			GuideRadius: opts.PortRadius, Solve: opts.Port}
+		c.Change = p.qextChange(PortPoint{Radius: c.Radius, F0: c.F0, Qext: c.Achieved})
+	}
+	return pl, nil
+}
+
+// fixHist is one pass of a cavity's dimension iteration: the dimension
+// and its distance from the fixed-point image.
+type fixHist struct{ x, h float64 }
+
+// dimOf returns the dimension that tunes a cavity in mode: the length for
+// p > 0, the radius for TM0m0.
+func dimOf(mode cavity.Mode, c cavity.Cavity) float64 {
+	if mode.P == 0 {
+		return c.Radius
+	}
+	return c.Length
+}
+
+// setDim returns c with its tuning dimension set to x.
+func setDim(mode cavity.Mode, c cavity.Cavity, x float64) cavity.Cavity {
+	if mode.P == 0 {
+		c.Radius = x
+	} else {
+		c.Length = x
+	}
+	return c
+}
+
+// resize returns the cavity like c that resonates, closed, at f in mode:
+// the length changed for p > 0, the radius for TM0m0.
+func resize(mode cavity.Mode, f float64, c cavity.Cavity) (cavity.Cavity, error) {
+	by := cavity.ByDiameter(2 * c.Radius)
+	if mode.P == 0 {
+		by = cavity.ByLength(c.Length)
+	}
+	return cavity.Size(mode, f, c.Fill, by)
+}
+
+// sizePass sizes every coupling on the cavities cells; prev, when not nil,
+// is the previous pass, whose radii start the irises' secant iterations.
+func sizePass(d *filter.Design, rz *filter.Realisation, cells []cavity.Cavity, opts Options, prev *Plan) (*Plan, error) {
+	mode := rz.Mode
+	n := d.Spec.Order
+	fill := cells[0].Fill
 	pl := &Plan{Mode: mode}
 	shifts := make([]float64, n)
+	exts := make([]float64, n)
 	complete := make([]bool, n)
 	for i := range complete {
 		complete[i] = true
 	}
+	// extension returns the effective length an iris adds to a cell of
+	// radius a and length l that it detunes to fl: the length of the closed
+	// cell resonating at fl, less l (p > 0; 0 for TM0m0).
+	extension := func(a, l, fl float64) (float64, error) {
+		if mode.P == 0 {
+			return 0, nil
+		}
+		c, err := cavity.Size(mode, fl, fill, cavity.ByDiameter(2*a))
+		if err != nil {
+			return 0, err
+		}
+		return c.Length - l, nil
+	}
+	prevRow := func(kind string, from, to int) *Coupling {
+		if prev == nil {
+			return nil
+		}
+		for k := range prev.Couplings {
+			c := &prev.Couplings[k]
+			if c.Kind == kind && c.From == from && c.To == to && c.Err == nil {
+				return c
+			}
+		}
+		return nil
+	}
+	type sizedErr struct {
+		s   Sized
+		err error
+	}
+	type portErr struct {
+		s   PortSized
+		err error
+	}
+	memo := map[pairKey]sizedErr{}
+	portMemo := map[pairKey]portErr{}
 	pairOf := func(i, j int) Pair {
-		a, b := rz.Cavities[i-1].Cavity, rz.Cavities[j-1].Cavity
+		a, b := cells[i-1], cells[j-1]
 		return Pair{Radius: 0.5 * (a.Radius + b.Radius), Length: 0.5 * (a.Length + b.Length), Fill: fill, Mode: mode, Wall: opts.Wall, Modes: opts.Modes}
 	}
 	curveOf := func(p Pair, row int) ([]Point, error) {
@@ -284,24 +492,43 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 		pl.Curves = append(pl.Curves, Curve{Pair: p, Points: pts, Used: []int{row}})
 		return pts, nil
 	}
-	// Ports first (input), then the main line, then the output port and
-	// cross couplings, in the order of the filter.
 	port := func(res int, q float64) {
-		c := rz.Cavities[res-1].Cavity
+		c := cells[res-1]
 		row := Coupling{Kind: "port", From: 0, To: res, Required: q, Method: PortMatching, Thickness: opts.Wall,
 			Where: fmt.Sprintf("centred in the outer end plate of cavity %d", res), Change: math.NaN(), RadiusChange: math.NaN(), Monotone: true}
 		if res == n && n > 1 {
 			row.From, row.To = res, n+1
 		}
 		p := Port{Pair: Pair{Radius: c.Radius, Length: c.Length, Fill: fill, Mode: mode, Wall: opts.Wall, Modes: opts.Modes},
-			GuideRadius: opts.PortRadius, Solve: opts.Port}
-		s, err := p.Invert(q)
+			GuideRadius: opts.PortRadius, Solve: opts.Port, noChange: true}
+		var s PortSized
+		err := errNoStart
+		key := keyOf(p.Pair, q)
+		if m, ok := portMemo[key]; ok {
+			s, err = m.s, m.err
+		} else {
+			if pr := prevRow(row.Kind, row.From, row.To); pr != nil {
+				s, err = p.near(q, pr.Radius, pr.F0)
+			}
+			if err != nil {
+				s, err = p.Invert(q)
+			}
+			portMemo[key] = portErr{s, err}
+		}
 		if err != nil {
 			row.Err = err
 			complete[res-1] = false
 		} else {
 			row.Radius, row.Achieved, row.Iterations, row.Shift, row.Change = s.Radius, s.Qext, s.Iterations, s.Shift, s.QextChange
-			shifts[res-1] += s.Shift
+			row.F0 = s.F0
+			row.Extension, err = extension(c.Radius, c.Length, s.F0)
+			if err != nil {
+				row.Err = err
+				complete[res-1] = false
+			} else {
+				shifts[res-1] += s.Shift
+				exts[res-1] += row.Extension
+			}
 		}
 		pl.Couplings = append(pl.Couplings, row)
 	}
@@ -311,18 +538,38 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 		row := Coupling{Kind: "main", From: i, To: i + 1, Required: k, Method: ModeMatching, Thickness: opts.Wall,
 			Where: fmt.Sprintf("centred in the wall between cavities %d and %d", i, i+1)}
 		p := pairOf(i, i+1)
-		pts, err := curveOf(p, len(pl.Couplings))
-		if err == nil {
-			var s Sized
-			s, err = p.Invert(pts, math.Abs(k))
-			if err == nil {
-				row.Radius, row.Achieved, row.Change, row.RadiusChange = s.Radius, s.K, s.KChange, s.RadiusChange
-				row.Iterations, row.Isolation, row.Monotone, row.Shift = s.Iterations, s.Isolation, s.Monotone, s.Shift
-				shifts[i-1] += s.Shift
-				shifts[i] += s.Shift
+		var s Sized
+		err := errNoStart
+		key := keyOf(p, math.Abs(k))
+		if m, ok := memo[key]; ok {
+			// A symmetric design repeats its couplings: the same pair and
+			// k give the same iris.
+			s, err = m.s, m.err
+		} else {
+			if pr := prevRow(row.Kind, row.From, row.To); pr != nil {
+				s, err = p.near(math.Abs(k), pr.Radius, pr.slope)
 			}
+			if err != nil {
+				var pts []Point
+				pts, err = curveOf(p, len(pl.Couplings))
+				if err == nil {
+					s, err = p.Invert(pts, math.Abs(k))
+				}
+			}
+			memo[key] = sizedErr{s, err}
 		}
-		if err != nil {
+		if err == nil {
+			row.Radius, row.Achieved, row.Change, row.RadiusChange = s.Radius, s.K, s.KChange, s.RadiusChange
+			row.Iterations, row.Isolation, row.Monotone, row.Shift = s.Iterations, s.Isolation, s.Monotone, s.Shift
+			row.slope = s.slope
+			row.Extension, err = extension(p.Radius, p.Length, s.Self)
+		}
+		if err == nil {
+			shifts[i-1] += s.Shift
+			shifts[i] += s.Shift
+			exts[i-1] += row.Extension
+			exts[i] += row.Extension
+		} else {
 			row.Err = err
 			complete[i-1], complete[i] = false, false
 		}
@@ -337,30 +584,42 @@ func Realise(d *filter.Design, rz *filter.Realisation, opts Options) (*Plan, err
 			if math.Abs(m) <= 1e-9 || (i == 0 && j == 1) || (i == n && j == n+1) {
 				continue
 			}
-			pl.Couplings = append(pl.Couplings, crossHole(d, rz, i, j, opts.Wall))
+			pl.Couplings = append(pl.Couplings, crossHole(d, rz, cells, i, j, opts.Wall))
 		}
 	}
-	for i, cd := range rz.Cavities {
-		t := Tuning{Resonator: i + 1, F: cd.F, Radius: cd.Cavity.Radius, Length: cd.Cavity.Length, Shift: shifts[i], Complete: complete[i]}
-		target := cd.F / (1 + shifts[i])
-		var by cavity.Constraint
-		if mode.P == 0 {
-			by = cavity.ByLength(cd.Cavity.Length)
-		} else {
-			by = cavity.ByDiameter(2 * cd.Cavity.Radius)
-		}
-		c, err := cavity.Size(mode, target, fill, by)
-		if err != nil {
-			return nil, fmt.Errorf("iris: corrected cavity %d at %s: %w", i+1, physics.FormatFrequency(target, 6), err)
-		}
-		t.CorrectedRadius, t.CorrectedLength = c.Radius, c.Length
-		pl.Cavities = append(pl.Cavities, t)
+	for i, c := range cells {
+		pl.Cavities = append(pl.Cavities, Tuning{Resonator: i + 1, F: rz.Cavities[i].F, Radius: rz.Cavities[i].Cavity.Radius,
+			Length: rz.Cavities[i].Cavity.Length, Shift: shifts[i], Extension: exts[i], Complete: complete[i],
+			CorrectedRadius: c.Radius, CorrectedLength: c.Length})
 	}
 	return pl, nil
 }
 
+// pairKey identifies a sizing: the pair (or port cell) and the target,
+// rounded to 1e-12 relative, so that the mirror-image couplings of a
+// symmetric design, equal but for rounding, are sized once.
+type pairKey struct {
+	p      Pair
+	target float64
+}
+
+func keyOf(p Pair, target float64) pairKey {
+	r := func(x float64) float64 {
+		if x == 0 {
+			return 0
+		}
+		e := math.Pow(10, math.Floor(math.Log10(math.Abs(x)))-12)
+		return math.Round(x/e) * e
+	}
+	p.Radius, p.Length, p.Wall = r(p.Radius), r(p.Length), r(p.Wall)
+	return pairKey{p, r(target)}
+}
+
+// errNoStart marks a row with no previous radius to start from.
+var errNoStart = errors.New("iris: no previous radius")
+
 // crossHole realises a coupling off the main line as a side-wall hole.
-func crossHole(d *filter.Design, rz *filter.Realisation, i, j int, wall float64) Coupling {
+func crossHole(d *filter.Design, rz *filter.Realisation, cells []cavity.Cavity, i, j int, wall float64) Coupling {
 	n := d.Spec.Order
 	k := d.Coupling(i, j)
 	row := Coupling{Kind: "cross", From: i, To: j, Required: k, Method: BetheThick, Thickness: wall, Change: math.NaN(), RadiusChange: math.NaN(), Monotone: true}
@@ -369,7 +628,7 @@ func crossHole(d *filter.Design, rz *filter.Realisation, i, j int, wall float64)
 		row.Err = fmt.Errorf("a coupling to the source or load besides the end resonators needs a probe or a second port path; no method here realises it")
 		return row
 	}
-	c1, c2 := rz.Cavities[i-1].Cavity, rz.Cavities[j-1].Cavity
+	c1, c2 := cells[i-1], cells[j-1]
 	hc, err := filter.SizeHole(c1, c2, rz.Mode, filter.Hole{Wall: filter.SideWall, Thickness: wall}, k)
 	if err != nil {
 		row.Method = NoMethod

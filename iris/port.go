@@ -35,6 +35,8 @@ type Port struct {
 	// Solve is the port solver; nil makes every call an error wrapping
 	// ErrNoPortSolver.
 	Solve PortFunc
+
+	noChange bool // skip the convergence estimate (Realise makes it once, at the end)
 }
 
 // Body returns the port body with an iris of radius r: cell, iris, port
@@ -167,10 +169,8 @@ func (p Port) Invert(target float64) (PortSized, error) {
 				last = pt
 			}
 			out := PortSized{PortPoint: last, Target: target, Iterations: it, QextChange: math.Inf(1)}
-			coarse := p
-			coarse.Modes = (2*p.modes() + 2) / 3
-			if c, err := coarse.atNear(last.Radius, last.F0); err == nil {
-				out.QextChange = math.Abs(c.Qext - last.Qext)
+			if !p.noChange {
+				out.QextChange = p.qextChange(last)
 			}
 			return out, nil
 		}
@@ -197,4 +197,72 @@ func (p Port) modes() int {
 		return axisym.DefaultModes
 	}
 	return p.Modes
+}
+
+// near finds the port iris radius for Qext = target starting from the
+// radius r0 of a nearby end cell, whose resonance was at f0: a secant on
+// ln Qext against ln r, the first step with slope -6 (Qext goes as the
+// inverse square of the coupling, and a small centred hole's electric
+// dipole couples as r^3, Bethe 1944; TE0 cells fall faster; only the
+// start of the secant), for the later passes of Realise. It fails (the caller then scans) when a
+// solve fails, jumps to another resonance or the secant does not converge.
+func (p Port) near(target, r0, f0 float64) (PortSized, error) {
+	if p.Solve == nil {
+		return PortSized{}, fmt.Errorf("iris: %w", ErrNoPortSolver)
+	}
+	if !(r0 > 0) || !(f0 > 0) {
+		return PortSized{}, errNoStart
+	}
+	var last PortPoint
+	eval := func(x float64) (float64, error) {
+		r := math.Exp(x)
+		if !(r >= cavity.MinSize && r < 0.99*p.Radius) {
+			return 0, fmt.Errorf("iris: secant left the cell at %g m", r)
+		}
+		pt, err := p.atNear(r, f0)
+		if err != nil {
+			return 0, err
+		}
+		if math.Abs(pt.F0/f0-1) > maxPortJump || !(pt.Qext > 0) {
+			return 0, fmt.Errorf("iris: port solver left the resonance at %g m", r)
+		}
+		last = pt
+		return math.Log(pt.Qext / target), nil
+	}
+	x0 := math.Log(r0)
+	y0, err := eval(x0)
+	if err != nil {
+		return PortSized{}, err
+	}
+	x1 := x0 + y0/6
+	for it := 1; it <= 30; it++ {
+		y1, err := eval(x1)
+		if err != nil {
+			return PortSized{}, err
+		}
+		if math.Abs(y1) <= 1e-10 || math.Abs(x1-x0) <= radiusTol {
+			out := PortSized{PortPoint: last, Target: target, Iterations: it, QextChange: math.Inf(1)}
+			if !p.noChange {
+				out.QextChange = p.qextChange(last)
+			}
+			return out, nil
+		}
+		if y1 == y0 {
+			break
+		}
+		x0, y0, x1 = x1, y1, x1-y1*(x1-x0)/(y1-y0)
+	}
+	return PortSized{}, fmt.Errorf("iris: the secant from %g m did not converge", r0)
+}
+
+// qextChange is the convergence estimate of Qext at pt: its change when
+// the solver keeps two thirds of the modes (+Inf when that solve fails).
+func (p Port) qextChange(pt PortPoint) float64 {
+	coarse := p
+	coarse.Modes = (2*p.modes() + 2) / 3
+	c, err := coarse.atNear(pt.Radius, pt.F0)
+	if err != nil {
+		return math.Inf(1)
+	}
+	return math.Abs(c.Qext - pt.Qext)
 }
