@@ -49,6 +49,11 @@ func TestChainAgainstModel(t *testing.T) {
 		if !pl.Converged {
 			t.Fatalf("n = %d: passes did not converge (change %g)", n, pl.Change)
 		}
+		for _, c := range pl.Couplings {
+			if c.Kind == "main" {
+				t.Logf("n = %d, iris %d-%d: r = %.5g m, k = %.5g, isolation %.3g splits, detuning %.3g %%", n, c.From, c.To, c.Radius, c.Achieved, c.Isolation, 100*c.Shift)
+			}
+		}
 		var secs []axisym.Section
 		for i, c := range pl.Cavities {
 			secs = append(secs, axisym.Section{Length: c.CorrectedLength, Radius: c.CorrectedRadius})

@@ -79,7 +79,7 @@ func TestInvert(t *testing.T) {
 // hand, with values either side of the limits (MaxRelChange, MaxShift,
 // MinIsolation, Bethe's problems, a missing realisation).
 func TestJudge(t *testing.T) {
-	ok := Coupling{Method: ModeMatching, Achieved: 0.01, Change: 0.99e-4, Isolation: 3.1, Shift: -0.019}
+	ok := Coupling{Method: ModeMatching, Achieved: 0.01, Change: 0.99e-4, Isolation: 10.1, Shift: -0.019}
 	cases := []struct {
 		name string
 		c    Coupling
@@ -88,7 +88,7 @@ func TestJudge(t *testing.T) {
 		{"inside every limit", ok, Valid},
 		{"k not converged", func() Coupling { c := ok; c.Change = 1.01e-4; return c }(), Outside},
 		{"k change unknown", func() Coupling { c := ok; c.Change = math.NaN(); return c }(), Outside},
-		{"not isolated", func() Coupling { c := ok; c.Isolation = 2.9; return c }(), Outside},
+		{"not isolated", func() Coupling { c := ok; c.Isolation = 9.9; return c }(), Outside},
 		{"large detuning", func() Coupling { c := ok; c.Shift = 0.021; return c }(), Outside},
 		{"port inside", Coupling{Method: PortMatching, Achieved: 100, Change: 0.5, Shift: 0.01}, Valid},
 		{"port not converged", Coupling{Method: PortMatching, Achieved: 100, Change: 1.5, Shift: 0.01}, Outside},

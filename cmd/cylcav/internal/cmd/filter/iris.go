@@ -82,8 +82,11 @@ func (r *Result) sizeIrises() error {
 	}
 	for _, t := range pl.Cavities {
 		if !t.Complete {
-			r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: the corrected length lacks the detuning of an iris that could not be sized", t.Resonator))
+			r.Warnings = append(r.Warnings, fmt.Sprintf("cavity %d: the corrected length lacks the loading of an iris that could not be sized", t.Resonator))
 		}
+	}
+	if !pl.Converged {
+		r.Warnings = append(r.Warnings, fmt.Sprintf("the corrected cavity lengths did not settle in %d passes (last change %.2g relative, want %g): take them as estimates", pl.Passes, pl.Change, iris.DimensionTol))
 	}
 	return nil
 }
@@ -130,14 +133,18 @@ func writeIrises(b *strings.Builder, r *Result) {
 	for _, nt := range notes {
 		fmt.Fprintf(b, "  - %s\n", nt)
 	}
-	fmt.Fprintf(b, "\nCavities with the irises in place (first order: the detuning of the irises on both end plates adds)\n")
-	t = cmdutil.NewTable(b, "  resonator", "f", "D", "L closed", "iris shift", "L corrected", "D corrected")
+	settled := fmt.Sprintf("settled in %d passes", pl.Passes)
+	if !pl.Converged {
+		settled = fmt.Sprintf("NOT settled after %d passes", pl.Passes)
+	}
+	fmt.Fprintf(b, "\nCavities with the irises in place (each iris lengthens the cavities it opens into by its extension; %s)\n", settled)
+	t = cmdutil.NewTable(b, "  resonator", "f", "D", "L closed", "extension", "detuning", "L corrected", "D corrected")
 	for _, c := range pl.Cavities {
 		shift := fmt.Sprintf("%+.4f %%", 100*c.Shift)
 		if !c.Complete {
 			shift += " (incomplete)"
 		}
-		t.Row(fmt.Sprintf("  %d", c.Resonator), physics.FormatFrequency(c.F, 6), fl(2*c.Radius), fl(c.Length), shift, fl(c.CorrectedLength), fl(2*c.CorrectedRadius))
+		t.Row(fmt.Sprintf("  %d", c.Resonator), physics.FormatFrequency(c.F, 6), fl(2*c.Radius), fl(c.Length), fl(c.Extension), shift, fl(c.CorrectedLength), fl(2*c.CorrectedRadius))
 	}
 	_ = t.Flush()
 }
@@ -146,6 +153,9 @@ func writeIrises(b *strings.Builder, r *Result) {
 type IrisOut struct {
 	WallM     float64            `json:"wall_m"`
 	Modes     int                `json:"solver_modes"`
+	Passes    int                `json:"passes"`
+	Settled   bool               `json:"lengths_settled"`
+	Change    float64            `json:"last_relative_length_change"`
 	Couplings []IrisCouplingOut  `json:"couplings"`
 	Cavities  []IrisCavityOut    `json:"cavities"`
 	Curves    []IrisCurveOut     `json:"k_radius_curves"`
@@ -168,6 +178,7 @@ type IrisCouplingOut struct {
 	KChange      *cmdutil.JSONNumber `json:"change"`
 	RadiusChange *cmdutil.JSONNumber `json:"radius_change_m"`
 	Shift        *cmdutil.JSONNumber `json:"detuning_per_cavity"`
+	Extension    *cmdutil.JSONNumber `json:"extension_m"`
 	Iterations   int                 `json:"iterations"`
 	Verdict      string              `json:"verdict"`
 	Reasons      []string            `json:"reasons"`
@@ -180,6 +191,7 @@ type IrisCavityOut struct {
 	RadiusM         float64 `json:"radius_m"`
 	LengthM         float64 `json:"length_m"`
 	Shift           float64 `json:"iris_detuning"`
+	Extension       float64 `json:"iris_extension_m"`
 	Complete        bool    `json:"detuning_complete"`
 	CorrectedRadius float64 `json:"corrected_radius_m"`
 	CorrectedLength float64 `json:"corrected_length_m"`
@@ -211,8 +223,9 @@ func (r *Result) irisJSON() *IrisOut {
 	}
 	n := r.Design.Order()
 	num := func(v float64) *cmdutil.JSONNumber { x := cmdutil.JSONNumber(v); return &x }
-	o := &IrisOut{WallM: r.Opts.Iris.Wall, Modes: r.Opts.Iris.Modes, Couplings: []IrisCouplingOut{}, Cavities: []IrisCavityOut{}, Curves: []IrisCurveOut{},
-		Limits: map[string]float64{"max_relative_k_change": iris.MaxRelChange, "min_isolation_splits": iris.MinIsolation}}
+	o := &IrisOut{WallM: r.Opts.Iris.Wall, Modes: r.Opts.Iris.Modes, Passes: pl.Passes, Settled: pl.Converged, Change: pl.Change, Couplings: []IrisCouplingOut{}, Cavities: []IrisCavityOut{}, Curves: []IrisCurveOut{},
+		Limits: map[string]float64{"max_relative_change": iris.MaxRelChange, "min_isolation_splits": iris.MinIsolation,
+			"max_detuning_per_iris": iris.MaxShift, "length_tolerance": iris.DimensionTol}}
 	for _, c := range pl.Couplings {
 		st, why := iris.Judge(c)
 		co := IrisCouplingOut{From: c.From, To: c.To, Kind: c.Kind, Method: c.Method.Key(), ThicknessM: c.Thickness, Where: c.Where,
@@ -226,11 +239,14 @@ func (r *Result) irisJSON() *IrisOut {
 		if c.Err == nil {
 			co.RadiusM, co.Achieved = num(c.Radius), num(c.Achieved)
 			co.KChange, co.RadiusChange, co.Shift = num(c.Change), num(c.RadiusChange), num(c.Shift)
+			if c.Method != iris.BetheThick {
+				co.Extension = num(c.Extension)
+			}
 		}
 		o.Couplings = append(o.Couplings, co)
 	}
 	for _, t := range pl.Cavities {
-		o.Cavities = append(o.Cavities, IrisCavityOut{Resonator: t.Resonator, F: t.F, RadiusM: t.Radius, LengthM: t.Length, Shift: t.Shift,
+		o.Cavities = append(o.Cavities, IrisCavityOut{Resonator: t.Resonator, F: t.F, RadiusM: t.Radius, LengthM: t.Length, Shift: t.Shift, Extension: t.Extension,
 			Complete: t.Complete, CorrectedRadius: t.CorrectedRadius, CorrectedLength: t.CorrectedLength})
 	}
 	for _, cv := range pl.Curves {
