@@ -114,7 +114,7 @@ func writeIrises(b *strings.Builder, r *Result) {
 		}
 		st, why := iris.Judge(c)
 		radius, ach, ch := "-", "-", "-"
-		if c.Err == nil {
+		if st == iris.Valid { // no number from a method outside its range
 			radius = fl(c.Radius)
 			ach = fmt.Sprintf("%.6g", c.Achieved)
 			if !math.IsNaN(c.Change) {
@@ -122,7 +122,7 @@ func writeIrises(b *strings.Builder, r *Result) {
 			}
 		}
 		t.Row("  "+couplingLabel(c, n), req, c.Method.String(), radius, ach, ch, st.String())
-		if c.Err == nil {
+		if st == iris.Valid {
 			notes = append(notes, fmt.Sprintf("%s: %s", couplingLabel(c, n), c.Where))
 		}
 		for _, w := range why {
@@ -139,14 +139,44 @@ func writeIrises(b *strings.Builder, r *Result) {
 	}
 	fmt.Fprintf(b, "\nCavities with the irises in place (each iris lengthens the cavities it opens into by its extension; %s)\n", settled)
 	t = cmdutil.NewTable(b, "  resonator", "f", "D", "L closed", "extension", "detuning", "L corrected", "D corrected")
-	for _, c := range pl.Cavities {
-		shift := fmt.Sprintf("%+.4f %%", 100*c.Shift)
-		if !c.Complete {
-			shift += " (incomplete)"
+	trusted := trustedCavities(pl)
+	for i, c := range pl.Cavities {
+		ext, shift, lc, dc := fl(c.Extension), fmt.Sprintf("%+.4f %%", 100*c.Shift), fl(c.CorrectedLength), fl(2*c.CorrectedRadius)
+		if !trusted[i] {
+			ext, shift, lc, dc = "-", "-", "-", "-"
 		}
-		t.Row(fmt.Sprintf("  %d", c.Resonator), physics.FormatFrequency(c.F, 6), fl(2*c.Radius), fl(c.Length), fl(c.Extension), shift, fl(c.CorrectedLength), fl(2*c.CorrectedRadius))
+		t.Row(fmt.Sprintf("  %d", c.Resonator), physics.FormatFrequency(c.F, 6), fl(2*c.Radius), fl(c.Length), ext, shift, lc, dc)
 	}
 	_ = t.Flush()
+	for i, ok := range trusted {
+		if !ok {
+			fmt.Fprintf(b, "  - cavity %d: no corrected dimensions: an iris that opens into it is not realised or outside its range\n", i+1)
+		}
+	}
+}
+
+// trustedCavities reports, per cavity, whether its corrected dimensions
+// rest only on valid irises (iris.Judge) and every iris was sized.
+func trustedCavities(pl *iris.Plan) []bool {
+	ok := make([]bool, len(pl.Cavities))
+	for i, c := range pl.Cavities {
+		ok[i] = c.Complete
+	}
+	n := len(pl.Cavities)
+	for _, c := range pl.Couplings {
+		if c.Kind == "cross" {
+			continue
+		}
+		if st, _ := iris.Judge(c); st == iris.Valid {
+			continue
+		}
+		for _, res := range []int{c.From, c.To} {
+			if res >= 1 && res <= n {
+				ok[res-1] = false
+			}
+		}
+	}
+	return ok
 }
 
 // IrisOut is the JSON form of the coupling realisation.
@@ -163,7 +193,8 @@ type IrisOut struct {
 }
 
 // IrisCouplingOut is one coupling: achieved and change are k (main,
-// cross) or Qext (port) and their convergence estimates.
+// cross) or Qext (port) and their convergence estimates; the numbers are
+// null unless the verdict is valid.
 type IrisCouplingOut struct {
 	From         int                 `json:"from"`
 	To           int                 `json:"to"`
@@ -184,17 +215,18 @@ type IrisCouplingOut struct {
 	Reasons      []string            `json:"reasons"`
 }
 
-// IrisCavityOut is one cavity with its corrected dimensions.
+// IrisCavityOut is one cavity with its corrected dimensions (null unless
+// every iris opening into it was sized and is valid: corrected_valid).
 type IrisCavityOut struct {
-	Resonator       int     `json:"resonator"`
-	F               float64 `json:"f_hz"`
-	RadiusM         float64 `json:"radius_m"`
-	LengthM         float64 `json:"length_m"`
-	Shift           float64 `json:"iris_detuning"`
-	Extension       float64 `json:"iris_extension_m"`
-	Complete        bool    `json:"detuning_complete"`
-	CorrectedRadius float64 `json:"corrected_radius_m"`
-	CorrectedLength float64 `json:"corrected_length_m"`
+	Resonator       int                 `json:"resonator"`
+	F               float64             `json:"f_hz"`
+	RadiusM         float64             `json:"radius_m"`
+	LengthM         float64             `json:"length_m"`
+	Shift           *cmdutil.JSONNumber `json:"iris_detuning"`
+	Extension       *cmdutil.JSONNumber `json:"iris_extension_m"`
+	Complete        bool                `json:"corrected_valid"`
+	CorrectedRadius *cmdutil.JSONNumber `json:"corrected_radius_m"`
+	CorrectedLength *cmdutil.JSONNumber `json:"corrected_length_m"`
 }
 
 // IrisCurveOut is one k-versus-radius curve.
@@ -236,7 +268,7 @@ func (r *Result) irisJSON() *IrisOut {
 		} else {
 			co.K = &req
 		}
-		if c.Err == nil {
+		if st == iris.Valid { // no number from a method outside its range
 			co.RadiusM, co.Achieved = num(c.Radius), num(c.Achieved)
 			co.KChange, co.RadiusChange, co.Shift = num(c.Change), num(c.RadiusChange), num(c.Shift)
 			if c.Method != iris.BetheThick {
@@ -245,9 +277,13 @@ func (r *Result) irisJSON() *IrisOut {
 		}
 		o.Couplings = append(o.Couplings, co)
 	}
-	for _, t := range pl.Cavities {
-		o.Cavities = append(o.Cavities, IrisCavityOut{Resonator: t.Resonator, F: t.F, RadiusM: t.Radius, LengthM: t.Length, Shift: t.Shift, Extension: t.Extension,
-			Complete: t.Complete, CorrectedRadius: t.CorrectedRadius, CorrectedLength: t.CorrectedLength})
+	trusted := trustedCavities(pl)
+	for i, t := range pl.Cavities {
+		co := IrisCavityOut{Resonator: t.Resonator, F: t.F, RadiusM: t.Radius, LengthM: t.Length, Complete: trusted[i]}
+		if trusted[i] {
+			co.Shift, co.Extension, co.CorrectedRadius, co.CorrectedLength = num(t.Shift), num(t.Extension), num(t.CorrectedRadius), num(t.CorrectedLength)
+		}
+		o.Cavities = append(o.Cavities, co)
 	}
 	for _, cv := range pl.Curves {
 		co := IrisCurveOut{CellRadiusM: cv.Pair.Radius, CellLengthM: cv.Pair.Length, Couplings: []string{}}
