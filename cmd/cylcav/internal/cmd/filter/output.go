@@ -349,6 +349,9 @@ func writeCavities(b *strings.Builder, r *Result, ff func(float64) string) {
 		_ = t.Flush()
 	}
 
+	if r.Irises != nil {
+		return // the iris table (writeIrises) realises every coupling
+	}
 	fmt.Fprintf(b, "\nCoupling realisation\n")
 	t = cmdutil.NewTable(b, "  coupling", fmt.Sprintf("%10s", "k required"), "realisation")
 	for _, a := range rz.Apertures {
