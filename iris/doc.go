@@ -76,12 +76,12 @@
 //     (Bethe's theory is first order in k r and in the field's variation
 //     over the hole). For TE0 cells the centred hole has no dipole term,
 //     so that limit is checked with TM010.
-//   - TestChainAgainstModel: a 3- and a 4-cavity in-line filter built from
-//     the sized irises and corrected lengths and solved as one closed body
-//     resonate within 0.05 bandwidths of the coupling-matrix model
-//     f0/sqrt(1 + lambda(K)); the chain's k is about 5 % below the pairs'
-//     (the pairs lie 15 to 22 splits from their next resonance, which the
-//     two-resonator formula neglects).
+//   - TestChainAgainstModel: 3- and 4-cavity in-line TE011 and TM010
+//     filters built from the sized irises and corrected dimensions and
+//     solved as one closed body resonate within 0.053 bandwidths of the
+//     coupling-matrix model f0/sqrt(1 + lambda(K)); the TE011 chain's k is
+//     about 5 % below the pairs' (the pairs lie 13 to 22 splits from their
+//     next resonance, which the two-resonator formula neglects).
 //   - TestRealiseSixPole: every iris and port iris of a 6-pole filter
 //     reproduces its k and Qext when solved again on the corrected
 //     cavities (1e-5); the corrected cavities resonate at f_i/(1 + shift).

@@ -137,11 +137,18 @@ func writeIrises(b *strings.Builder, r *Result) {
 	if !pl.Converged {
 		settled = fmt.Sprintf("NOT settled after %d passes", pl.Passes)
 	}
-	fmt.Fprintf(b, "\nCavities with the irises in place (each iris lengthens the cavities it opens into by its extension; %s)\n", settled)
+	how := "each iris lengthens the cavities it opens into by its extension"
+	if pl.Mode.P == 0 {
+		how = "TM0m0: the irises' detunings add and the diameter restores f"
+	}
+	fmt.Fprintf(b, "\nCavities with the irises in place (%s; %s)\n", how, settled)
 	t = cmdutil.NewTable(b, "  resonator", "f", "D", "L closed", "extension", "detuning", "L corrected", "D corrected")
 	trusted := trustedCavities(pl)
 	for i, c := range pl.Cavities {
 		ext, shift, lc, dc := fl(c.Extension), fmt.Sprintf("%+.4f %%", 100*c.Shift), fl(c.CorrectedLength), fl(2*c.CorrectedRadius)
+		if pl.Mode.P == 0 {
+			ext = "n/a"
+		}
 		if !trusted[i] {
 			ext, shift, lc, dc = "-", "-", "-", "-"
 		}
