@@ -21,9 +21,10 @@ import (
 // cover (common practice).
 const chainTol = 0.1
 
-// TestChainAgainstModel builds the whole in-line filter body of a 3- and a
-// 4-pole all-pole design (closed at both ends, no ports) from the sized
-// irises and corrected cavity lengths and solves it with package axisym.
+// TestChainAgainstModel builds the whole in-line filter body of 3- and
+// 4-pole all-pole designs in TE011 and TM010 cavities (closed at both
+// ends, no ports) from the sized irises and corrected cavity dimensions
+// and solves it with package axisym.
 // Its resonances must be those of the coupling-matrix model of the
 // design: for synchronously tuned resonators coupled by k_i,i+1, the
 // eigenfrequencies f0/sqrt(1 + lambda) with lambda the eigenvalues of the
