@@ -356,6 +356,9 @@ func (d *Design) Rearranged(t Topology) (*Design, error) {
 	if d == nil || d.Folded == nil {
 		return nil, errors.New("filter: Rearranged needs a synthesised design (from Synthesize)")
 	}
+	if t.Size == 3 && len(d.RealPairs) > 0 {
+		return nil, errors.New("filter: a triplet realises one zero on the frequency axis; real-axis zero pairs need quadruplets (or the folded form)")
+	}
 	m, err := Rearrange(d.Folded, t)
 	if err != nil {
 		return nil, err

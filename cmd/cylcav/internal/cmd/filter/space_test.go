@@ -174,6 +174,7 @@ func TestBadInputSpace(t *testing.T) {
 		{Args: with("--order", "4", "--delay-pairs", "1,1,1"), Code: 2, Want: []string{"6 transmission zeros", "at most 4"}},
 		{Args: with("--order", "4", "--topology", "ring"), Code: 2, Want: []string{`--topology "ring"`, "folded", "triplets", "quadruplets"}},
 		{Args: with("--order", "4", "--topology", "triplets"), Code: 2, Want: []string{`--topology "triplets"`, "1 to 1 transmission zeros for order 4"}},
+		{Args: with("--order", "7", "--zeros-norm", "1.8", "--delay-pairs", "1.2", "--topology", "triplets"), Code: 2, Want: []string{`--topology "triplets"`, "real-axis zero pairs need quadruplets"}},
 		{Args: with("--reject", "40dB@10.1GHz", "--place-zeros", "--max-zeros", "99"), Code: 2, Want: []string{`--max-zeros "99"`, "between 1 and 28"}},
 		{Args: with("--order", "4", "--max-zeros", "2"), Code: 2, Want: []string{"--max-zeros needs --place-zeros"}},
 		{Args: with("--order", "4", "--reject", "40dB@10.1GHz", "--place-zeros"), Code: 2, Want: []string{"--place-zeros chooses the order", "--order"}},
