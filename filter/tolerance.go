@@ -406,16 +406,9 @@ func Yield(d *Design, r *Realisation, opts YieldOptions) (*YieldResult, error) {
 		nom11[i], nom21[i] = db(s11), db(s21)
 	}
 	var nomChecks []Check
-	md := *d // the design judged against the production mask
-	if opts.ReturnLoss != 0 {
-		if d.Spec.Family != Chebyshev {
-			return nil, errors.New("filter: a production return loss applies to a Chebyshev design only")
-		}
-		if !(opts.ReturnLoss > 0 && opts.ReturnLoss <= d.Spec.ReturnLoss) {
-			return nil, fmt.Errorf("filter: production return loss must be > 0 dB and at most the design's %g dB, got %g dB", d.Spec.ReturnLoss, opts.ReturnLoss)
-		}
-		md.Spec.ReturnLoss = opts.ReturnLoss
-		md.Spec.Ripple = RippleFromReturnLoss(opts.ReturnLoss)
+	md, err := productionDesign(d, opts.ReturnLoss)
+	if err != nil {
+		return nil, err
 	}
 	if opts.Verdict {
 		if nomChecks, err = md.Check(q0, opts.Spurious); err != nil {
@@ -693,4 +686,23 @@ func ScrewTunings(r *Realisation, needs []TuningNeed) ([]ScrewTuning, error) {
 		out[i] = st
 	}
 	return out, nil
+}
+
+// productionDesign returns a copy of d whose specification asks for the
+// return loss rl (dB) instead of the design's (zero: unchanged), so that
+// Design.Check judges a built filter against the production mask.
+func productionDesign(d *Design, rl float64) (Design, error) {
+	md := *d
+	if rl == 0 {
+		return md, nil
+	}
+	if d.Spec.Family != Chebyshev {
+		return md, errors.New("filter: a production return loss applies to a Chebyshev design only")
+	}
+	if !(rl > 0 && rl <= d.Spec.ReturnLoss) {
+		return md, fmt.Errorf("filter: production return loss must be > 0 dB and at most the design's %g dB, got %g dB", d.Spec.ReturnLoss, rl)
+	}
+	md.Spec.ReturnLoss = rl
+	md.Spec.Ripple = RippleFromReturnLoss(rl)
+	return md, nil
 }
