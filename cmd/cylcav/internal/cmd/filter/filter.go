@@ -84,6 +84,9 @@ type Options struct {
 	PlotFormat figure.Format
 	DPI        int
 	Force      bool
+
+	// Fab holds the manufacturing analyses (fab.go).
+	Fab FabOptions
 }
 
 // NewCmdFilter returns `cylcav filter`. runF, if not nil, replaces the
@@ -91,6 +94,7 @@ type Options struct {
 func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var fl flags
+	var fabfl *fabFlags
 	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
 	cmd := &cobra.Command{
@@ -166,6 +170,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := opts.checkCavities(changed, walls, geo, &fl); err != nil {
 				return err
 			}
+			if err := opts.checkFab(changed, fabfl); err != nil {
+				return err
+			}
 			if err := opts.checkOutput(); err != nil {
 				return err
 			}
@@ -211,6 +218,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.Needs(cmd, "dpi", "plot")
 	cmdutil.Needs(cmd, "force", "touchstone", "plot")
 	cmdutil.Needs(cmd, "hole-thickness", "holes")
+	fabfl = addFabFlags(cmd, opts)
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
 		if err := cmdutil.RejectEmptyFlags(c); err != nil {
