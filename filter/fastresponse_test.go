@@ -145,3 +145,25 @@ func TestCsymEigen(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkResponse1e4MixedLU times the LU reference path on the points of
+// BenchmarkResponse1e4Mixed, for comparison with the complex modal path.
+func BenchmarkResponse1e4MixedLU(b *testing.B) {
+	d, err := Synthesize(benchSpec)
+	if err != nil {
+		b.Fatal(err)
+	}
+	q0 := make([]float64, 12)
+	for i := range q0 {
+		q0[i] = 8000 + 100*float64(i)
+	}
+	ev, err := d.evaluator(q0)
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		for i := 0; i < 10000; i++ {
+			ev.atLU(LowpassOmega(9.5e9+float64(i)*1e5, d.Spec.F0, d.Spec.BW))
+		}
+	}
+}

@@ -127,3 +127,40 @@ func TestTuningNeed(t *testing.T) {
 		}
 	}
 }
+
+// TestHoleSensitivity checks the sensitivity of a coupling to its hole
+// radius against Bethe's law for a thin wall: k = g r0^3 (Bethe 1944;
+// both polarisabilities scale as r0^3), so dM/dr0 = 3 M / r0.
+func TestHoleSensitivity(t *testing.T) {
+	d, err := Synthesize(Spec{F0: 10e9, BW: 20e6, Order: 4, ReturnLoss: 20})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Hole: &Hole{Wall: EndWall}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	src, err := Sensitivities(d, r, Machining{Hole: 10e-6})
+	if err != nil {
+		t.Fatal(err)
+	}
+	seen := 0
+	for _, s := range src {
+		e := s.Entries[0]
+		a := r.Apertures[e.I-1]
+		if !a.Sized || a.Thickness != 0 {
+			t.Fatalf("aperture %d-%d not a sized thin hole", a.From, a.To)
+		}
+		want := 3 * d.Folded.At(e.I, e.J) / a.Radius
+		if rel := math.Abs(e.DM-want) / want; rel > 1e-6 {
+			t.Errorf("%s: dM/dr0 = %g /m, Bethe's r0^3 law gives %g /m", s.Name, e.DM, want)
+		}
+		if math.Abs(s.Sigma-10e-6/3) > 1e-18 {
+			t.Errorf("%s: sigma %g m, want tolerance/3", s.Name, s.Sigma)
+		}
+		seen++
+	}
+	if seen != 3 {
+		t.Errorf("%d hole sources, want 3 (main line of 4 resonators)", seen)
+	}
+}
