@@ -167,3 +167,32 @@ func BenchmarkResponse1e4MixedLU(b *testing.B) {
 		}
 	}
 }
+
+// TestS11S21Lean checks the Monte Carlo's lean evaluation (no derivative,
+// textbook reciprocal) against the full one, common and unequal losses.
+func TestS11S21Lean(t *testing.T) {
+	d, err := Synthesize(benchSpec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, q0 := range [][]float64{
+		{5000, 5000, 5000, 5000, 5000, 5000, 5000, 5000, 5000, 5000, 5000, 5000},
+		{3000, 4000, 5000, 6000, 7000, 8000, 9000, 10000, 11000, 12000, 13000, 14000},
+	} {
+		ev, err := d.evaluator(q0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i := 0; i <= 4000; i++ {
+			w := -4 + 8*float64(i)/4000
+			a11, a21 := ev.s11s21(w)
+			b11, b21, _, _ := ev.at(w)
+			if dd := max(cmplx.Abs(a11-b11), cmplx.Abs(a21-b21)); dd > 1e-13 {
+				t.Fatalf("Omega = %g: lean differs by %.3g", w, dd)
+			}
+			if a21 != 0 && math.Abs(db2(a21)-db(a21)) > 1e-12*(1+math.Abs(db(a21))) {
+				t.Fatalf("db2 %g != db %g", db2(a21), db(a21))
+			}
+		}
+	}
+}

@@ -271,6 +271,10 @@ type TuningNeed struct {
 type YieldResult struct {
 	Samples int
 	Seed    uint64
+	// Machining is the tolerance drawn; ReturnLoss the production return
+	// loss judged (dB; zero: the design's).
+	Machining  Machining
+	ReturnLoss float64
 	// Sources are the error sources with their sensitivities.
 	Sources []ErrorSource
 	// Yield is the fraction of samples whose whole check (Overall) is Met,
@@ -394,7 +398,7 @@ func Yield(d *Design, r *Realisation, opts YieldOptions) (*YieldResult, error) {
 	for i, f := range opts.Freqs {
 		omegas[i] = LowpassOmega(f, d.Spec.F0, d.Spec.BW)
 	}
-	res := &YieldResult{Samples: opts.Samples, Seed: opts.Seed, Sources: sens,
+	res := &YieldResult{Samples: opts.Samples, Seed: opts.Seed, Machining: opts.Machining, ReturnLoss: opts.ReturnLoss, Sources: sens,
 		Yield: math.NaN(), YieldStd: math.NaN(), Outside: math.NaN()}
 
 	// Nominal response and check.
@@ -500,9 +504,9 @@ func Yield(d *Design, r *Realisation, opts YieldOptions) (*YieldResult, error) {
 				m := mat.NewDense(nn, nn, slices.Clone(mbuf))
 				ev := newEvaluator(m, loss)
 				for i, w := range omegas {
-					s11, s21, _, _ := ev.at(w)
-					a.s11[i].add(db(s11))
-					a.s21[i].add(db(s21))
+					s11, s21 := ev.s11s21(w)
+					a.s11[i].add(db2(s11))
+					a.s21[i].add(db2(s21))
 				}
 				if opts.Verdict {
 					sd.Folded = m

@@ -430,17 +430,11 @@ func (f *FabResult) json() *FabOut {
 		t := &ToleranceOut{Samples: y.Samples, Seed: y.Seed, Distribution: "normal, tolerance = 3 sigma",
 			Yield: y.Yield, YieldStd: y.YieldStd, OutsideModel: y.Outside,
 			Lines: []LineSpreadOut{}, Points: []PointSpreadOut{}, Tuning: []TuningOut{}}
-		for _, s := range y.Sources {
-			switch {
-			case strings.HasPrefix(s.Name, "D"):
-				t.ToleranceD = 3 * s.Sigma
-			case strings.HasPrefix(s.Name, "L"):
-				t.ToleranceL = 3 * s.Sigma
-			case strings.HasPrefix(s.Name, "hole"):
-				t.ToleranceHole = 3 * s.Sigma
-			default:
-				t.ToleranceCoupling = 3 * s.Sigma
-			}
+		t.ToleranceD, t.ToleranceL = y.Machining.Diameter, y.Machining.Length
+		t.ToleranceHole, t.ToleranceCoupling = y.Machining.Hole, y.Machining.Coupling
+		if y.ReturnLoss > 0 {
+			rl := y.ReturnLoss
+			t.AcceptReturnLossDB = &rl
 		}
 		for _, l := range y.Lines {
 			t.Lines = append(t.Lines, LineSpreadOut{Name: l.Name, F: l.F, RequiredDB: finite(l.Required), NominalDB: finite(l.Achieved),
