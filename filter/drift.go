@@ -84,7 +84,8 @@ type DriftResult struct {
 // exact end values.
 //
 // Errors: invalid input, a temperature outside the data of either metal,
-// or a fill that is not isotropic.
+// or, for a fill with a temperature coefficient, outside -50..200 C (the
+// coefficient is a linear model stated near 20 C).
 func Drift(d *Design, r *Realisation, ds DriftSpec) (*DriftResult, error) {
 	if d == nil || d.Folded == nil || r == nil || len(r.Cavities) != d.Spec.Order {
 		return nil, errors.New("filter: drift needs a synthesised design and its realisation")
@@ -95,6 +96,16 @@ func Drift(d *Design, r *Realisation, ds DriftSpec) (*DriftResult, error) {
 	}
 	if !(ds.Low < ds.High) || !(ds.Low > 0) || math.IsInf(ds.High, 0) {
 		return nil, fmt.Errorf("filter: temperature range must have 0 < low < high, got %g..%g K", ds.Low, ds.High)
+	}
+	if r.Cavities[0].Cavity.Fill.TCEpsKnown {
+		// The fill's coefficient is stated near 20 C (physics.Medium.TCEps):
+		// the linear model is used over the metals' linear range only.
+		for _, T := range []float64{ds.Low, ds.High} {
+			if !physics.TemperatureIn(T, physics.DefaultLinearTMin, physics.DefaultLinearTMax) {
+				return nil, fmt.Errorf("filter: the fill's temperature coefficient is a linear model stated near 20 C, used from %s to %s only; got %s",
+					physics.FormatTemperature(physics.DefaultLinearTMin, 4), physics.FormatTemperature(physics.DefaultLinearTMax, 4), physics.FormatTemperature(T, 4))
+			}
+		}
 	}
 	rod := ds.Body
 	if ds.Rod != nil {

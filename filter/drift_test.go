@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"cylcav/cavity"
 	"cylcav/physics"
 )
 
@@ -86,5 +87,37 @@ func TestDriftRefusesOutsideData(t *testing.T) {
 	}
 	if _, err := Drift(d, r, DriftSpec{Body: plain, Low: 77, High: 300}); err == nil {
 		t.Errorf("%s at 77 K: no error, want the range of its linear coefficient", plain.Name)
+	}
+}
+
+// TestDriftFillCoefficient checks the fill's part of the drift against
+// f ~ 1/sqrt(eps) (Pozar, sec. 6.4: f scales as 1/sqrt(eps_r)) with a
+// zero-expansion body, and the refusal of a cryogenic range for a fill
+// whose coefficient is stated near 20 C.
+func TestDriftFillCoefficient(t *testing.T) {
+	s := Spec{F0: 10e9, BW: 100e6, Order: 3, ReturnLoss: 20}
+	d, err := Synthesize(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fill := physics.Medium{Name: "user", EpsR: 2.1, TCEps: -300e-6, TCEpsKnown: true}
+	r, err := Realise(d, RealiseOptions{Shape: cavity.ByRatio(1.2), Fill: fill})
+	if err != nil {
+		t.Fatal(err)
+	}
+	rigid := physics.Conductor{Name: "rigid", Conductivity: 5.8e7, Expansion: 1e-30}
+	res, err := Drift(d, r, DriftSpec{Body: rigid, Low: physics.ZeroCelsius, High: physics.ZeroCelsius + 40, Reference: physics.ZeroCelsius + 20})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, e := range []DriftEnd{res.Low, res.High} {
+		dT := e.T - (physics.ZeroCelsius + 20)
+		want := r.Cavities[0].F / math.Sqrt(1-300e-6*dT)
+		if rel := math.Abs(e.F[0]-want) / want; rel > 1e-12 {
+			t.Errorf("T = %g K: f = %.15g Hz, 1/sqrt(eps) law %.15g Hz", e.T, e.F[0], want)
+		}
+	}
+	if _, err := Drift(d, r, DriftSpec{Body: rigid, Low: 77, High: 300}); err == nil {
+		t.Error("fill coefficient at 77 K: no error")
 	}
 }
