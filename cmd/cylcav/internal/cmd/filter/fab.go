@@ -231,6 +231,12 @@ func writeFabTable(w io.Writer, f *FabResult) error {
 				num(l.P05), num(l.P95), 100*l.Met)
 		}
 		tw.Flush()
+		for _, l := range y.Lines {
+			if !l.Info && l.Verdict != bandpass.Met {
+				b.WriteString("The design itself does not meet every line (see the specification check above; a spurious resonance or the model range decides such a line for every sample): the yield counts that.\n")
+				break
+			}
+		}
 		b.WriteString("Spread of the response at the mask points (Monte Carlo std and the linearised std):\n")
 		tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
 		fmt.Fprintln(tw, "f\tS21 dB\tstd\tlinear\tS11 dB\tstd\tlinear\t")
