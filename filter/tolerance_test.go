@@ -2,7 +2,10 @@ package filter
 
 import (
 	"math"
+	"math/rand/v2"
 	"testing"
+
+	"gonum.org/v1/gonum/mat"
 
 	"cylcav/cavity"
 )
@@ -163,4 +166,59 @@ func TestHoleSensitivity(t *testing.T) {
 	if seen != 3 {
 		t.Errorf("%d hole sources, want 3 (main line of 4 resonators)", seen)
 	}
+}
+
+// TestYieldRecount recounts the yield of a short run serially: each sample
+// redrawn from PCG(seed, k) in the order of Sensitivities, the matrix moved
+// entry by entry with gonum, and judged by Design.Check and Overall; the
+// count must equal Yield's, and the progress callback must reach the total.
+func TestYieldRecount(t *testing.T) {
+	d, r := tolDesign(t)
+	tol := Machining{Diameter: 4e-6, Length: 4e-6, Coupling: 0.01}
+	const n, seed = 60, 9
+	last := 0
+	res, err := Yield(d, r, YieldOptions{Machining: tol, Samples: n, Seed: seed, Verdict: true, ReturnLoss: 18,
+		Progress: func(done, total int) { last = done }})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if last != n {
+		t.Errorf("progress ended at %d, want %d", last, n)
+	}
+	src, err := Sensitivities(d, r, tol)
+	if err != nil {
+		t.Fatal(err)
+	}
+	md := *d
+	md.Spec.ReturnLoss, md.Spec.Ripple = 18, RippleFromReturnLoss(18)
+	pass := 0
+	for k := 0; k < n; k++ {
+		rng := rand.New(rand.NewPCG(seed, uint64(k)))
+		m := mat.DenseCopyOf(d.Folded)
+		for _, s := range src {
+			x := s.Sigma * rng.NormFloat64()
+			for _, e := range s.Entries {
+				m.Set(e.I, e.J, m.At(e.I, e.J)+e.DM*x)
+				if e.I != e.J {
+					m.Set(e.J, e.I, m.At(e.J, e.I)+e.DM*x)
+				}
+			}
+		}
+		sd := md
+		sd.Folded = m
+		checks, err := sd.Check(r.Q0(), nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if Overall(checks) == Met {
+			pass++
+		}
+	}
+	if got := res.Yield * n; math.Abs(got-float64(pass)) > 1e-9 {
+		t.Errorf("Yield counts %g passing samples, the serial recount %d", got, pass)
+	}
+	if pass == 0 || pass == n {
+		t.Errorf("recount %d of %d: choose a tolerance with a yield between 0 and 1", pass, n)
+	}
+	t.Logf("yield %d of %d", pass, n)
 }
