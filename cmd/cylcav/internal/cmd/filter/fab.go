@@ -53,8 +53,9 @@ type FabOptions struct {
 	Reference float64 // K
 	TempText  string  // --temp as given
 
-	// Power is the input power, W; zero: no power analysis.
-	Power float64
+	// Power is the input power, W; zero: no power analysis. Pressure is
+	// the air pressure, Pa; zero: sea level.
+	Power, Pressure float64
 }
 
 type fabFlags struct {
@@ -78,11 +79,13 @@ func addFabFlags(cmd *cobra.Command, opts *Options) *fabFlags {
 	cmdutil.TemperatureRangeVar(f, &o.TempLo, &o.TempHi, "temp", "operating temperature range LO:HI for the drift, e.g. -20C:60C (body metal: --wall's)", minTemp, maxTemp)
 	cmdutil.ConductorVar(f, &fl.rod, "rod-metal", "metal of the rods or spacers that set the cavity lengths (default: the body, --wall), e.g. invar")
 	cmdutil.TemperatureVar(f, &o.Reference, "machining-temp", "temperature at which the dimensions hold (default 20C)", minTemp, maxTemp)
-	cmdutil.NumberVar(f, &o.Power, "power", "input power in W for stored energy, peak fields and the air breakdown margin, e.g. 200", minPower, maxPower)
+	cmdutil.PowerVar(f, &o.Power, "power", "input power for the stored energy, peak fields and air breakdown margin, e.g. 200W", minPower, maxPower)
+	cmdutil.PressureVar(f, &o.Pressure, "pressure", "air pressure in the cavities for the breakdown field (default 1atm), e.g. 70kPa", bandpass.MinPressure, bandpass.MaxPressure)
 	for _, c := range []string{"tolerance-length", "hole-tolerance", "coupling-tolerance", "samples", "seed"} {
 		cmdutil.Needs(cmd, c, "tolerance", "tolerance-length", "hole-tolerance", "coupling-tolerance")
 	}
 	cmdutil.Needs(cmd, "rod-metal", "temp")
+	cmdutil.Needs(cmd, "pressure", "power")
 	cmdutil.Needs(cmd, "machining-temp", "temp")
 	cmdutil.Needs(cmd, "accept-return-loss", "tolerance", "tolerance-length", "hole-tolerance", "coupling-tolerance", "temp")
 	return fl
@@ -198,7 +201,7 @@ func computeFab(opts *Options, r *Result) (*FabResult, error) {
 		out.Drift = dr
 	}
 	if o.Power > 0 {
-		pw, err := bandpass.PowerHandling(d, re, bandpass.PowerSpec{Power: o.Power})
+		pw, err := bandpass.PowerHandling(d, re, bandpass.PowerSpec{Power: o.Power, Pressure: o.Pressure})
 		if err != nil {
 			return nil, err
 		}
@@ -287,16 +290,16 @@ func writeFabTable(w io.Writer, f *FabResult) error {
 		}
 	}
 	if p := f.Power; p != nil {
-		fmt.Fprintf(&b, "\nPower handling at %g W input (largest stored energy over the passband; breakdown field %s, air at %.4g kPa):\n",
-			p.Power, fieldText(p.Breakdown), p.Pressure/1e3)
+		fmt.Fprintf(&b, "\nPower handling at %s input (largest stored energy over the passband; breakdown field %s, air at %.4g kPa):\n",
+			physics.FormatSI(p.Power, "W", 4), fieldText(p.Breakdown), p.Pressure/1e3)
 		tw := tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
 		fmt.Fprintln(tw, "resonator\tenergy\tat\tpeak E\twall H\tmargin\tpower limit\t")
 		for _, r := range p.Resonators {
-			fmt.Fprintf(tw, "%d\t%.4g uJ\t%s\t%s\t%.4g kA/m\t%.3g x\t%.4g W\t\n", r.Resonator, r.Energy*1e6, physics.FormatFrequency(r.F, 6),
-				fieldText(r.EPeak), r.HWall/1e3, r.Margin, r.MaxPower)
+			fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%s\t%.3g x\t%s\t\n", r.Resonator, physics.FormatSI(r.Energy, "J", 4), physics.FormatFrequency(r.F, 6),
+				fieldText(r.EPeak), physics.FormatSI(r.HWall, "A/m", 4), r.Margin, physics.FormatSI(r.MaxPower, "W", 4))
 		}
 		tw.Flush()
-		fmt.Fprintf(&b, "Power limit (first estimate): %.4g W, set by resonator %d.\n", p.Limit, p.Worst)
+		fmt.Fprintf(&b, "Power limit (first estimate): %s, set by resonator %d.\n", physics.FormatSI(p.Limit, "W", 4), p.Worst)
 		for _, c := range p.Cautions {
 			fmt.Fprintf(&b, "CAUTION: %s\n", c)
 		}

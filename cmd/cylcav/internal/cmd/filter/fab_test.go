@@ -24,7 +24,10 @@ func TestFabBadInput(t *testing.T) {
 		{Args: cav("--hole-tolerance", "5um"), Code: 2, Want: []string{"--hole-tolerance needs --holes"}},
 		{Args: cav("--samples", "100"), Code: 2, Want: []string{"--samples needs --tolerance"}},
 		{Args: cav("--rod-metal", "invar"), Code: 2, Want: []string{"--rod-metal needs --temp"}},
-		{Args: cav("--power", "0"), Code: 2, Want: []string{`--power "0"`, "between 1e-06 and 1e+09"}},
+		{Args: cav("--power", "0W"), Code: 2, Want: []string{`--power "0W"`, "between 1.000 uW and 1.000 GW"}},
+		{Args: cav("--power", "200"), Code: 2, Want: []string{`--power "200"`, "no unit", "W, kW"}},
+		{Args: cav("--power", "1W", "--pressure", "5kPa"), Code: 2, Want: []string{`--pressure "5kPa"`, "between 10.00 kPa and 300.0 kPa"}},
+		{Args: cav("--pressure", "70kPa"), Code: 2, Want: []string{"--pressure needs --power"}},
 		{Args: append(append([]string{}, base...), "--tolerance", "5um"), Code: 2, Want: []string{"--tolerance needs the cavities"}},
 		{Args: append(append([]string{}, base...), "--mode", "TE011", "--temp", "0C:40C"), Code: 2, Want: []string{"--temp needs the body metal", "--wall"}},
 		// A metal known only near room temperature is refused at 77 K.
@@ -39,7 +42,7 @@ func TestFabBadInput(t *testing.T) {
 func TestFabJSON(t *testing.T) {
 	r := clitest.Run(t, "filter", "--f0", "10GHz", "--bw", "100MHz", "--return-loss", "23dB", "--order", "5",
 		"--mode", "TE011", "--wall", "copper", "--ratio", "1.2", "--tolerance", "5um", "--samples", "300", "--seed", "4",
-		"--accept-return-loss", "18dB", "--temp", "15C:25C", "--power", "100", "--format", "json")
+		"--accept-return-loss", "18dB", "--temp", "15C:25C", "--power", "100W", "--format", "json")
 	if r.Code != 0 {
 		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
 	}

@@ -166,7 +166,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
   # range, the drift from 10 C to 30 C with invar rods, and 200 W of input
   $ cylcav filter --f0 10GHz --bw 100MHz --return-loss 23dB --order 6 \
       --mode TE011 --wall copper --ratio 1.2 --tolerance 0.005mm \
-      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200`,
+      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200W`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			changed := cmd.Flags().Changed
