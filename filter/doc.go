@@ -103,8 +103,16 @@
 // separate the nearly degenerate eigenvalue pairs of high orders. The folded
 // matrix reproduces the polynomial response to about 1e-13 up to N = 30
 // (each Synthesize call checks it). Response evaluates a matrix in O(N) per
-// frequency through its modal decomposition when all resonators share one
-// Q0, and by an LU factorisation otherwise.
+// frequency through its modal decomposition: real when all resonators share
+// one Q0, complex orthogonal (fastresponse.go) when they do not; an LU
+// factorisation, the reference, takes over near a modal resonance or where
+// the complex decomposition is refused.
+//
+// Manufacture (tolerance.go, drift.go, power.go): machining tolerance and
+// yield through first-order sensitivities and Design.Check (Yield), the
+// Slater screw that covers the tuning range (ScrewTunings), temperature
+// drift from the metals' strain data (Drift), and the stored energy, peak
+// fields and air breakdown margin at an input power (PowerHandling).
 //
 // References:
 //   - G. L. Matthaei, L. Young, E. M. T. Jones, Microwave Filters,

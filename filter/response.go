@@ -78,6 +78,11 @@ type evaluator struct {
 	d             float64   // common loss
 	mu, us, ul    []float64 // eigenvalues and port projections
 	mss, msl, mll float64
+
+	// The complex modal form for unequal losses (fastresponse.go).
+	cmodal   bool
+	lam      []complex128
+	cus, cul []complex128
 }
 
 func newEvaluator(m mat.Matrix, loss []float64) *evaluator {
@@ -99,6 +104,7 @@ func (e *evaluator) initModal() {
 	if len(e.loss) > 0 {
 		for _, d := range e.loss {
 			if d != e.loss[0] {
+				e.initComplexModal()
 				return
 			}
 		}
@@ -179,6 +185,13 @@ func (e *evaluator) at(omega float64) (s11, s21, s22, ds21 complex128) {
 	if e.modal {
 		var ok bool
 		if s11, s21, s22, ds21, ok = e.atModal(omega); ok {
+			e.pivok = true
+			return
+		}
+	}
+	if e.cmodal {
+		var ok bool
+		if s11, s21, s22, ds21, ok = e.atComplexModal(omega); ok {
 			e.pivok = true
 			return
 		}
@@ -360,8 +373,10 @@ func lossTerms(n int, f0, bw float64, q0 []float64) ([]float64, error) {
 // (derived), not a finite difference.
 //
 // q0 gives one unloaded Q per resonator (+Inf allowed), or is empty for a
-// lossless response. The cost is one complex LU factorisation of size N+2
-// per frequency. Errors name the bad argument; a matrix that is singular at
+// lossless response. The cost is O(N) per frequency through a modal
+// decomposition (real for a common Q0, complex orthogonal for unequal Q0,
+// see fastresponse.go), and one complex LU factorisation of size N+2 where
+// the decomposition is refused or a point lies near a modal resonance. Errors name the bad argument; a matrix that is singular at
 // some frequency (a resonator isolated from both ports) is an error too.
 func Response(m mat.Matrix, f0, bw float64, freqs, q0 []float64) ([]Point, error) {
 	n, err := checkMatrix(m)

@@ -90,6 +90,9 @@ type Options struct {
 	PlotFormat figure.Format
 	DPI        int
 	Force      bool
+
+	// Fab holds the manufacturing analyses (fab.go).
+	Fab FabOptions
 }
 
 // NewCmdFilter returns `cylcav filter`. runF, if not nil, replaces the
@@ -97,6 +100,7 @@ type Options struct {
 func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Command {
 	opts := &Options{IO: ios}
 	var fl flags
+	var fabfl *fabFlags
 	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
 	var sf *spaceFlags
@@ -164,7 +168,13 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
   $ cylcav filter --f0 2.45GHz --bw 80MHz --order 5 --ripple 0.01dB --format json
 
   # The same with Q0 = 3000 per resonator, over 5 bandwidths
-  $ cylcav filter --f0 2.45GHz --bw 80MHz --order 5 --ripple 0.01dB --q0 3000 --span 5x`,
+  $ cylcav filter --f0 2.45GHz --bw 80MHz --order 5 --ripple 0.01dB --q0 3000 --span 5x
+
+  # As a manufactured part: yield at +-5 um against 18 dB, the screw tuning
+  # range, the drift from 10 C to 30 C with invar rods, and 200 W of input
+  $ cylcav filter --f0 10GHz --bw 100MHz --return-loss 23dB --order 6 \
+      --mode TE011 --wall copper --ratio 1.2 --tolerance 0.005mm \
+      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200W`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			changed := cmd.Flags().Changed
@@ -184,6 +194,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 				return err
 			}
 			if err := opts.checkIris(changed, ifl); err != nil {
+				return err
+			}
+			if err := opts.checkFab(changed, fabfl); err != nil {
 				return err
 			}
 			if err := opts.checkOutput(); err != nil {
@@ -233,6 +246,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.Needs(cmd, "force", "touchstone", "plot", "save-matrix")
 	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	ifl = addIrisFlags(cmd)
+	fabfl = addFabFlags(cmd, opts)
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
 		if err := cmdutil.RejectEmptyFlags(c); err != nil {

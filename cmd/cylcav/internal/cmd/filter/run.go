@@ -77,10 +77,20 @@ func runFilter(opts *Options) error {
 	if err := r.writeFiles(); err != nil {
 		return err
 	}
-	if opts.Format == cmdutil.JSON {
-		return cmdutil.WriteJSON(opts.IO.Out, r.JSON())
+	fab, err := computeFab(opts, r)
+	if err != nil {
+		return err
 	}
-	return r.WriteTable(opts.IO.Out)
+	if opts.Format == cmdutil.JSON {
+		return cmdutil.WriteJSON(opts.IO.Out, struct {
+			Output
+			Manufacture *FabOut `json:"manufacture,omitempty"`
+		}{r.JSON(), fab.json()})
+	}
+	if err := r.WriteTable(opts.IO.Out); err != nil {
+		return err
+	}
+	return writeFabTable(opts.IO.Out, fab)
 }
 
 // Compute does all the work of the command except writing: synthesis,
