@@ -61,7 +61,7 @@ func TestFillingHomogeneous(t *testing.T) {
 
 // layeredTE0 is an independent model of the TE0m resonances of a body
 // whose sections all have radius a (layers along z): E_phi = J1(kc r)
-// e(z) with kc = j'_0m/a, and in each layer e'' = -(k0^2 eps_r - kc^2) e,
+// e(z) with kc = j'_0m/a, and in each layer d2e/dz2 = -(k0^2 eps_r - kc^2) e,
 // e and e' continuous at the interfaces (non-magnetic layers; the
 // transverse-resonance picture, Pozar, Microwave Engineering, 4th ed.,
 // sec. 6.7), e(0) = 0. H_z = kc J0(kc r) e / (omega mu) and |H_r| =
@@ -212,7 +212,7 @@ func TestFillingErrors(t *testing.T) {
 		s    RegionSettings
 	}{
 		{cavity.Bulb{Radius: 0, Length: 0.01}, RegionSettings{}},
-		{cavity.Bulb{Radius: 0.01, Length: 0.01}, RegionSettings{}},                // wider than section 2
+		{cavity.Bulb{Radius: 0.01, Length: 0.01}, RegionSettings{}},               // wider than section 2
 		{cavity.Bulb{Radius: 0.005, Length: 0.01}, RegionSettings{Centre: 0.018}}, // past the end
 		{cavity.Bulb{Radius: 0.005, Length: 0.01}, RegionSettings{Tol: 0.5}},
 	} {
