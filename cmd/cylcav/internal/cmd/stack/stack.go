@@ -64,6 +64,9 @@ type Options struct {
 	// Extrapolate (--extrapolate) adds each resonance extrapolated to
 	// infinitely many modes (axisym.Extrapolate) with its error estimate.
 	Extrapolate bool
+	// Bulb (--bulb-diameter, --bulb-length, --bulb-centre) adds the
+	// filling factors of a storage bulb on the axis (see bulb.go).
+	Bulb BulbOptions
 }
 
 // Flag limits: a particle slower than minBeta c gains no meaningful energy
@@ -212,6 +215,9 @@ of each cell; they must be neighbours in one family.`,
 			if opts.Geometry, err = ParseGeometry(opts.File, data); err != nil {
 				return &cmdutil.UsageError{Err: err}
 			}
+			if err := checkBulb(opts.Bulb, opts.Geometry.Body); err != nil {
+				return err
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -231,6 +237,7 @@ of each cell; they must be neighbours in one family.`,
 	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
 	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
+	addBulbFlags(cmd, &opts.Bulb)
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
@@ -267,6 +274,8 @@ type Row struct {
 	FExtrapolatedHz      *float64 `json:"f_extrapolated_hz,omitempty"`
 	ExtrapolationErrorHz *float64 `json:"extrapolation_error_hz,omitempty"`
 	ExtrapolationOrder   *float64 `json:"extrapolation_order,omitempty"`
+	// With --bulb-diameter: the bulb's filling factors.
+	Bulb *BulbRow `json:"bulb,omitempty"`
 }
 
 // PairRow is the coupling coefficient of the pair named by --pair.
@@ -310,7 +319,7 @@ func pairRow(opts *Options, res []axisym.Resonance) (*PairRow, error) {
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
 		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
-		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "",
+		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "" || opts.Bulb.Diameter > 0,
 	})
 	if err != nil {
 		if errors.Is(err, axisym.ErrNotImplemented) {
@@ -339,6 +348,11 @@ func runStack(opts *Options) error {
 		if opts.Beta > 0 && r.Loss != nil && len(r.Loss.Axis) > 0 {
 			if a, err := r.Loss.Accelerating(opts.Beta); err == nil {
 				row.T, row.RoverQLinac, row.RoverQCircuit = &a.T, &a.RoverQLinac, &a.RoverQCircuit
+			}
+		}
+		if opts.Bulb.Diameter > 0 {
+			if row.Bulb, err = bulbRow(opts.Bulb, opts.Geometry.Body, r); err != nil {
+				return err
 			}
 		}
 		rows[i] = row
@@ -391,6 +405,9 @@ func runStack(opts *Options) error {
 			if opts.Extrapolate {
 				cells = append(cells, csvQ(r.FExtrapolatedHz), csvQ(r.ExtrapolationErrorHz), csvQ(r.ExtrapolationOrder))
 			}
+			if opts.Bulb.Diameter > 0 {
+				cells = append(cells, bulbCells(r.Bulb)...)
+			}
 			out = append(out, cells)
 		}
 		header := []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}
@@ -402,6 +419,9 @@ func runStack(opts *Options) error {
 		}
 		if opts.Extrapolate {
 			header = append(header, "f_extrapolated_hz", "extrapolation_error_hz", "extrapolation_order")
+		}
+		if opts.Bulb.Diameter > 0 {
+			header = append(header, bulbHeader...)
 		}
 		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
@@ -443,6 +463,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Extrapolate {
 		header = append(header, "f extrapolated", "error")
 	}
+	if opts.Bulb.Diameter > 0 {
+		header = append(header, "bulb Hz^2", "H^2", "E^2", "eta'")
+	}
 	t := cmdutil.NewTable(w, header...)
 	var notes []string
 	for _, r := range rows {
@@ -479,6 +502,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 					physics.FormatFrequency(*r.ExtrapolationErrorHz, 2))
 			}
 		}
+		if opts.Bulb.Diameter > 0 {
+			cells = append(cells, bulbText(r.Bulb)...)
+		}
 		t.Row(cells...)
 	}
 	if err := t.Flush(); err != nil {
@@ -487,6 +513,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Extrapolate {
 		fmt.Fprintln(w, "f extrapolated: Richardson's rule on N, 2N and 4N modes per section, the order fitted; error: its")
 		fmt.Fprintln(w, "distance from the order-2 extrapolation (irregular: the three models did not converge regularly)")
+	}
+	if opts.Bulb.Diameter > 0 {
+		writeBulbNote(w, opts.Bulb, b)
 	}
 	if pr != nil {
 		change := "unknown"
