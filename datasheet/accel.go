@@ -125,7 +125,7 @@ func accelSection(r design.Result) ([]Table, []string) {
 				}
 				row = append(row, hs)
 			}
-			t.add(h.Near && h.Mode != r.Design.Spec.Mode && (h.ROverQ > 0 || h.ROverQTransverse > 0), row...)
+			t.add(h.Drivable(r.Design.Spec.Mode), row...)
 		}
 		tables = append(tables, t)
 		if bunch > 0 {
