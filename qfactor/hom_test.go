@@ -161,7 +161,7 @@ func TestBeamHarmonic(t *testing.T) {
 		near          bool
 	}{
 		{1.3e9, 650e6, 0, 2, 0, true},
-		{3.254921e9, 650e6, 0, 5, 4.921e6, true},   // 4.921 MHz < 0.5 % of 3.25 GHz = 16.3 MHz
+		{3.254921e9, 650e6, 0, 5, 4.921e6, true},     // 4.921 MHz < 0.5 % of 3.25 GHz = 16.3 MHz
 		{1.838478e9, 650e6, 0, 3, -111.522e6, false}, // 111.5 MHz > 9.2 MHz
 		{1.838478e9, 650e6, 0.1, 3, -111.522e6, true},
 		{100e6, 650e6, 0, 0, 100e6, false}, // below the first harmonic
