@@ -67,6 +67,9 @@ type Options struct {
 	// Bulb (--bulb-diameter, --bulb-length, --bulb-centre) adds the
 	// filling factors of a storage bulb on the axis (see bulb.go).
 	Bulb BulbOptions
+	// Beam (--bunch-freq, --harmonic-window) gives every resonance its
+	// nearest beam harmonic (see beam.go).
+	Beam BeamOptions
 }
 
 // Flag limits: a particle slower than minBeta c gains no meaningful energy
@@ -147,7 +150,20 @@ cells joined by an iris: the output adds their coupling coefficient
 k = (fh^2 - fl^2)/(fh^2 + fl^2) and its change when the modes grew by
 half (table and JSON; with CSV it is refused). Which two resonances form
 the pair is for you to say: they are the two that continue from one mode
-of each cell; they must be neighbours in one family.`,
+of each cell; they must be neighbours in one family.
+
+--bulb-diameter D --bulb-length L (optionally --bulb-centre Z, the
+distance of the bulb's centre from the first end plate; default half-way)
+add the filling factors of a storage bulb on the axis to every resonance:
+the fractions of the mode's magnetic energy along z, of all its magnetic
+energy and of its electric energy inside the bulb, and the maser filling
+factor eta', from the matched fields (a dielectric-loaded can included).
+The bulb must lie in free space of circular sections.
+
+--bunch-freq F gives every resonance its nearest beam harmonic and flags
+it NEAR within --harmonic-window (default 0.5 %%) of one. With --beta or
+--bunch-freq the output says that dipole (n = 1) modes and their
+transverse R/Q are not solved for stacked bodies.`,
 			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
@@ -238,6 +254,7 @@ of each cell; they must be neighbours in one family.`,
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
 	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
 	addBulbFlags(cmd, &opts.Bulb)
+	addBeamFlags(cmd, &opts.Beam)
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
@@ -276,6 +293,8 @@ type Row struct {
 	ExtrapolationOrder   *float64 `json:"extrapolation_order,omitempty"`
 	// With --bulb-diameter: the bulb's filling factors.
 	Bulb *BulbRow `json:"bulb,omitempty"`
+	// With --bunch-freq: the nearest beam harmonic.
+	Harmonic *HarmonicRow `json:"harmonic,omitempty"`
 }
 
 // PairRow is the coupling coefficient of the pair named by --pair.
@@ -355,6 +374,11 @@ func runStack(opts *Options) error {
 				return err
 			}
 		}
+		if opts.Beam.Bunch > 0 {
+			if row.Harmonic, err = harmonicRow(opts.Beam, r); err != nil {
+				return err
+			}
+		}
 		rows[i] = row
 	}
 	if opts.Extrapolate {
@@ -385,8 +409,9 @@ func runStack(opts *Options) error {
 			FMaxHz     float64  `json:"fmax_hz"`
 			Resonances []Row    `json:"resonances"`
 			Coupling   *PairRow `json:"coupling,omitempty"`
+			Dipoles    string   `json:"dipoles,omitempty"`
 		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
-			opts.Geometry.Body.MaxRadius(), opts.FMax, rows, pr})
+			opts.Geometry.Body.MaxRadius(), opts.FMax, rows, pr, dipolesJSON(opts)})
 	case cmdutil.CSV:
 		var out [][]string
 		for _, r := range rows {
@@ -408,6 +433,9 @@ func runStack(opts *Options) error {
 			if opts.Bulb.Diameter > 0 {
 				cells = append(cells, bulbCells(r.Bulb)...)
 			}
+			if opts.Beam.Bunch > 0 {
+				cells = append(cells, harmonicCells(r.Harmonic)...)
+			}
 			out = append(out, cells)
 		}
 		header := []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}
@@ -422,6 +450,9 @@ func runStack(opts *Options) error {
 		}
 		if opts.Bulb.Diameter > 0 {
 			header = append(header, bulbHeader...)
+		}
+		if opts.Beam.Bunch > 0 {
+			header = append(header, harmonicHeader...)
 		}
 		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
@@ -466,6 +497,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Bulb.Diameter > 0 {
 		header = append(header, "bulb Hz^2", "H^2", "E^2", "eta'")
 	}
+	if opts.Beam.Bunch > 0 {
+		header = append(header, "beam harmonic")
+	}
 	t := cmdutil.NewTable(w, header...)
 	var notes []string
 	for _, r := range rows {
@@ -505,6 +539,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 		if opts.Bulb.Diameter > 0 {
 			cells = append(cells, bulbText(r.Bulb)...)
 		}
+		if opts.Beam.Bunch > 0 {
+			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch))
+		}
 		t.Row(cells...)
 	}
 	if err := t.Flush(); err != nil {
@@ -529,6 +566,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 		fmt.Fprintf(w, "T, R/Q: TM0 only, particle speed %g c on the axis; R/Q linac = V^2/(omega W), circuit = V^2/(2 omega W)\n", opts.Beta)
 		fmt.Fprintln(w, "caution: cells driven at high RF power carry high voltages and heat their walls; these are design")
 		fmt.Fprintln(w, "estimates: follow local codes and licensed practice")
+	}
+	if opts.Beta > 0 || opts.Beam.Bunch > 0 {
+		writeBeamNote(w, opts.Beam)
 	}
 	if opts.Walls != nil {
 		fmt.Fprintln(w, "Q: side walls, inner conductors and step faces of the --wall metal; next to a step edge the wall loss")
