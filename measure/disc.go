@@ -33,7 +33,7 @@ const maxDiscEps = 1000
 // permittivity epsR (non-magnetic) filling its whole cross-section on one
 // end plate, the rest vacuum. The disc keeps the fields separable:
 // E_phi = J1(kc r) e(z) with kc = j'_0m / a, and in each layer
-// e'' = -(k0^2 eps_r - kc^2) e with e and e' continuous at the disc's face
+// d2e/dz2 = -(k0^2 eps_r - kc^2) e with e and e' continuous at the disc's face
 // and e = 0 on both end plates: the transverse-resonance condition of the
 // layered guide (R. E. Collin, Field Theory of Guided Waves, 2nd ed., IEEE
 // Press, 1991, ch. 5 and 8; recalled from memory). The p-th root in k0 of
