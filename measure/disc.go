@@ -245,7 +245,9 @@ type DiscResult struct {
 // which assumes walls of one metal and the empty cavity's loss all in its
 // walls. The uncertainty budget propagates each input (both frequencies
 // and Q0s, the radius, length and thickness, and the exponent a) to first
-// order by central differences; the terms add in quadrature.
+// order by central differences; the terms add in quadrature. An input
+// whose uncertainty is NaN (unknown, such as the radius fitted from as
+// many resonances as unknowns) has a NaN term, left out of the totals.
 //
 // Errors: the model's (DiscResonance), f_filled not below f_empty, a
 // permittivity above the search range, a loss tangent negative beyond
@@ -282,6 +284,12 @@ func MeasureDisc(in DiscInput) (DiscResult, error) {
 	for i := range x {
 		if sig[i] == 0 {
 			r.Budget = append(r.Budget, BudgetTerm{Input: names[i]})
+			continue
+		}
+		if math.IsNaN(sig[i]) {
+			// Unknown (a fit with no redundancy): shown as NaN, left out
+			// of the totals.
+			r.Budget = append(r.Budget, BudgetTerm{Input: names[i], EpsR: math.NaN(), TanDelta: math.NaN()})
 			continue
 		}
 		h := 1e-5 * math.Abs(x[i])
@@ -365,4 +373,77 @@ func discAt(m cavity.Mode, x [8]float64) (discEval, error) {
 func DiscSample(in DiscInput, a float64) (epsR, tanDelta float64, err error) {
 	c, err := discAt(in.Mode, [8]float64{in.FEmpty, in.FFilled, in.Q0Empty, in.Q0Filled, a, in.Radius, in.Length, in.Thickness})
 	return c.eps, c.tand, err
+}
+
+// DiscSpec describes the disc of MeasureDiscFill: its thickness and
+// that thickness's standard uncertainty (m), and its nominal relative
+// permittivity, which only picks the loaded resonance of each mode.
+type DiscSpec struct {
+	Thickness, ThicknessErr float64
+	NominalEps              float64
+}
+
+// MeasureDiscFill measures a full-diameter disc lying on one end plate
+// from the empty sweep (resonances empty, identified in idEmpty, whose
+// fitted cavity and its uncertainties give the dimensions) and the loaded
+// sweep (resonances filled), at every TE0mp mode matched in the empty
+// sweep: its loaded resonance is the one nearest the frequency the disc
+// model (DiscResonance) predicts with the nominal permittivity, each
+// loaded resonance taken once; MeasureDisc gives eps_r and tan(delta).
+// The means are weighted as in MeasureFill. A nominal permittivity far
+// from the truth can pick the wrong loaded resonance: the mode's
+// residual (the loaded frequency against the model at the measured
+// eps_r) is then no help, so give a nominal value within about 20 %.
+//
+// Errors: no TE0mp mode matched in the empty sweep, no loaded resonance
+// left for one, or a failed measurement at a mode (the error names it).
+func MeasureDiscFill(empty []Resonance, idEmpty Identification, filled []Resonance, d DiscSpec) (Fill, error) {
+	c := idEmpty.Cavity
+	out := Fill{EpsRErr: math.Inf(1), TanDeltaErr: math.Inf(1)}
+	used := make([]bool, len(filled))
+	var we, wt, se, st float64
+	for i, a := range idEmpty.Assign {
+		if !a.Matched || a.Mode.Family != cavity.TE || a.Mode.N != 0 || empty[i].Problem != "" {
+			continue
+		}
+		p, err := DiscResonance(c.Radius, c.Length, d.Thickness, d.NominalEps, a.Mode)
+		if err != nil {
+			return Fill{}, fmt.Errorf("%v: %w", a.Mode, err)
+		}
+		j := -1
+		for k, f := range filled {
+			if used[k] || f.Problem != "" {
+				continue
+			}
+			if j < 0 || math.Abs(f.F0-p.F) < math.Abs(filled[j].F0-p.F) {
+				j = k
+			}
+		}
+		if j < 0 {
+			return Fill{}, fmt.Errorf("%v: no loaded resonance left to pair with it", a.Mode)
+		}
+		used[j] = true
+		e, f := empty[i], filled[j]
+		r, err := MeasureDisc(DiscInput{
+			Mode: a.Mode, Radius: c.Radius, RadiusErr: idEmpty.RadiusErr, Length: c.Length, LengthErr: idEmpty.LengthErr,
+			Thickness: d.Thickness, ThicknessErr: d.ThicknessErr,
+			FEmpty: e.F0, FEmptyErr: e.F0Err, FFilled: f.F0, FFilledErr: f.F0Err,
+			Q0Empty: e.Q0, Q0EmptyErr: e.Q0Err, Q0Filled: f.Q0, Q0FilledErr: f.Q0Err,
+		})
+		if err != nil {
+			return Fill{}, fmt.Errorf("%v: %w", a.Mode, err)
+		}
+		out.Modes = append(out.Modes, FillMode{Mode: a.Mode, FEmpty: e.F0, FFilled: f.F0, Result: r.DielectricResult, FillE: r.FillE})
+		we += 1 / (r.EpsRErr * r.EpsRErr)
+		se += r.EpsR / (r.EpsRErr * r.EpsRErr)
+		wt += 1 / (r.TanDeltaErr * r.TanDeltaErr)
+		st += r.TanDelta / (r.TanDeltaErr * r.TanDeltaErr)
+		out.EpsRErr = math.Min(out.EpsRErr, r.EpsRErr)
+		out.TanDeltaErr = math.Min(out.TanDeltaErr, r.TanDeltaErr)
+	}
+	if len(out.Modes) == 0 {
+		return Fill{}, fmt.Errorf("no TE0mp mode is identified in the empty sweep, so the disc cannot be measured (the disc model needs TE0mp modes)")
+	}
+	out.EpsR, out.TanDelta = se/we, st/wt
+	return out, nil
 }
