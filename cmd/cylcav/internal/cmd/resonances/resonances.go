@@ -31,12 +31,12 @@ type Options struct {
 	IO     *cmdutil.IOStreams
 	Format cmdutil.Format
 
-	File     string // the sweep file
-	Empty    string // the empty cavity's sweep (--empty); File is then the filled one
+	File  string // the sweep file
+	Empty string // the empty cavity's sweep (--empty); File is then the filled one
 	// Disc, when set (--sample-thickness), makes the filled sweep the
 	// cavity with a full-diameter disc of that thickness on one end plate,
 	// measured by measure.MeasureDiscFill instead of a complete fill.
-	Disc *measure.DiscSpec
+	Disc     *measure.DiscSpec
 	Settings measure.Settings
 
 	// Identify is set when the cavity's nominal size was given: the modes
