@@ -1,6 +1,7 @@
 package axisym
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -235,5 +236,29 @@ func BenchmarkFilling(b *testing.B) {
 		if _, err := res[0].Loss.Filling(body, cavity.Bulb{Radius: 0.01, Length: 0.012}, RegionSettings{}); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// TestUniaxialFill: a uniaxial section is refused for TM0 (error matching
+// physics.ErrUniaxial) and solved for TE0, whose frequency is then that of
+// the isotropic fill eps_perp (E_phi is perpendicular to the c axis).
+func TestUniaxialFill(t *testing.T) {
+	uni := physics.Medium{EpsR: 9.4, EpsRParallel: 11.6}
+	b := Body{Sections: []Section{{Length: 0.004, Radius: 0.015, Fill: uni}, {Length: 0.02, Radius: 0.015}}}
+	if _, err := Solve(b, Request{MaxFrequency: 10e9, Families: []cavity.Family{cavity.TM}}); !errors.Is(err, physics.ErrUniaxial) {
+		t.Errorf("TM0 with a uniaxial section: error %v, want one matching physics.ErrUniaxial", err)
+	}
+	got, err := Solve(b, Request{MaxFrequency: 10e9, Families: []cavity.Family{cavity.TE}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	iso := b
+	iso.Sections = []Section{{Length: 0.004, Radius: 0.015, Fill: physics.Medium{EpsR: 9.4}}, {Length: 0.02, Radius: 0.015}}
+	want, err := Solve(iso, Request{MaxFrequency: 10e9, Families: []cavity.Family{cavity.TE}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(got) != len(want) || len(got) == 0 || got[0].Frequency != want[0].Frequency {
+		t.Errorf("TE0 with a uniaxial section: %d resonances, want %d equal to the eps_perp fill's", len(got), len(want))
 	}
 }
