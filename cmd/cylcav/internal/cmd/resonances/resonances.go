@@ -161,7 +161,12 @@ replaced only with --force.`,
   # Measure a fill: the same cavity empty and completely filled with PTFE
   $ cylcav resonances testdata/measure/modes_filled.s2p --empty testdata/measure/modes.s2p --diameter 40mm --length 31mm --fill ptfe
   ...
-  Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
+  Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).
+
+  # Measure a 2 mm ceramic disc lying on one end plate of a TE01p test cavity
+  $ cylcav resonances testdata/measure/disc_loaded.s2p --empty testdata/measure/disc_empty.s2p --diameter 36mm --length 26mm --fill eps=9.5 --sample-thickness 2mm --sample-thickness-tol 10um
+  ...
+  Mean over 2 modes (weighted): eps_r = 9.900 ± 0.082, tan delta = 4.97 ± 0.19 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := opts.parse(cmd, args, geo, walls, hint); err != nil {

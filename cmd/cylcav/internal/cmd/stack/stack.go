@@ -178,7 +178,11 @@ transverse R/Q are not solved for stacked bodies.`,
   ...
 
   # A dielectric disc on the end plate of a copper can, TE0 only, with Q0, as CSV
-  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --wall copper --format csv`,
+  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --wall copper --format csv
+
+  # The filling factors of a maser's storage bulb in a disc-loaded can
+  $ cylcav stack examples/loaded-maser.yaml --fmax 12GHz --family te --bulb-diameter 20mm --bulb-length 12mm
+  ...`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) != 1 {
 				return cmdutil.Usagef("give one geometry file (e.g. cylcav stack examples/iris-pair.yaml --fmax 12GHz), got %d arguments", len(args))
