@@ -60,3 +60,15 @@ func BenchmarkFiveLowestExtrapolated(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkPortQ finds the complex resonant frequency and external Q of
+// the TE011-like resonance of a cavity fed through a centred iris from a
+// circular waveguide (PortQ, default modes, Muller from 9.88 GHz).
+func BenchmarkPortQ(b *testing.B) {
+	body := fedCell(0.010, 0.002)
+	for b.Loop() {
+		if _, _, err := PortQ(body, cavity.TE, 9.88e9, 0); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

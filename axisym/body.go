@@ -30,6 +30,10 @@ type Section struct {
 // step face.
 type Body struct {
 	Sections []Section
+	// EndA and EndB say how the body ends at z = 0 and at its far end: a
+	// metal plate (the zero value) or a semi-infinite pipe of the end
+	// section's cross-section (see End, open.go).
+	EndA, EndB End
 }
 
 // MaxSections bounds the number of sections Validate accepts; it rejects
@@ -54,7 +58,7 @@ func (b Body) Validate() error {
 			return fmt.Errorf("axisym: section %d: %w", i+1, err)
 		}
 	}
-	return nil
+	return b.validateEnds()
 }
 
 func (s Section) validate() error {

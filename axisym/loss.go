@@ -411,6 +411,8 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 				} else {
 					fl = closedField(s.fam, k2-kc*kc, ln.length, omega, eps, mu)
 				}
+			} else if ln.open {
+				fl = openLineField(s.fam, k2-kc*kc, ln.length, omega, eps, mu, fields[i].v1[m], fields[i].v2[m], i == 0)
 			} else {
 				fl, err = newLineField(s.fam, k2-kc*kc, ln.length, omega, eps, mu, fields[i].v1[m], fields[i].v2[m])
 				if err != nil {
@@ -427,6 +429,9 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		// Energies per mode (orthonormal modes: no cross terms), by
 		// quadrature along z.
 		q := zRule(ln.length, ln.kc, k2)
+		if ln.open {
+			q = openRule(ln.length, ln.kc, k2, i == 0)
+		}
 		wall := map[float64]float64{} // r -> int |H_t(r, z)|^2 dz
 		radii := []float64{sec.Radius}
 		if sec.InnerRadius > 0 {
@@ -471,7 +476,7 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		if sec.InnerRadius > 0 {
 			add(Part{Inner, i + 1}, 2*math.Pi*sec.InnerRadius*wall[sec.InnerRadius])
 		}
-		if i == 0 {
+		if i == 0 && b.EndA != Pipe {
 			var x float64
 			for m := range ln.kc {
 				_, I := lf[m].at(0)
@@ -479,7 +484,7 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 			}
 			add(Part{EndA, 1}, x)
 		}
-		if i == len(s.lines)-1 {
+		if i == len(s.lines)-1 && b.EndB != Pipe {
 			var x float64
 			for m := range ln.kc {
 				_, I := lf[m].at(ln.length)
@@ -582,6 +587,7 @@ type lineField struct {
 	iScale         float64 // I = iScale V'
 	closed         bool    // a single closed section: V = sin, I = cos form
 	omega, eps, mu float64
+	tail           int8 // open end section: -1 field decays towards -z, +1 towards +z (open.go)
 }
 
 // newLineField returns the field of a line with end voltages v1 and v2; it
@@ -615,6 +621,9 @@ func closedField(fam cavity.Family, beta2, l, omega, eps, mu float64) lineField 
 
 // at returns V(z) and I(z).
 func (f lineField) at(z float64) (v, i float64) {
+	if f.tail != 0 {
+		return f.atTail(z)
+	}
 	if f.closed {
 		b := math.Sqrt(f.beta2)
 		if f.fam == cavity.TE {
@@ -658,7 +667,7 @@ type zPoint struct{ z, w float64 }
 // and weights: A&S Table 25.4, as recalled), with panels halving towards
 // both ends down to a tenth of the decay length of the most evanescent
 // mode and split so that no panel holds more than a quarter period of the
-// most oscillatory one.
+// most oscillatory one (or of the wavenumber k of the medium).
 func zRule(l float64, kc []float64, k2 float64) []zPoint {
 	x := [4]float64{0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363}
 	w := [4]float64{0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763}
@@ -670,6 +679,9 @@ func zRule(l float64, kc []float64, k2 float64) []zPoint {
 			bmax = math.Max(bmax, math.Sqrt(b2))
 		}
 	}
+	// The phase of a particle at the speed of light (Loss.Accelerating)
+	// turns at k: resolve it too, also where every mode is evanescent.
+	bmax = math.Max(bmax, math.Sqrt(k2))
 	levels := 1
 	if amax*l > 1 {
 		levels = int(math.Ceil(math.Log2(10*amax*l))) + 1

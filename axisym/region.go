@@ -52,7 +52,8 @@ const maxRegionLevels = 6
 // and Maser are 0. Mode is left zero: the caller labels the resonance
 // (Resonance.Origin).
 //
-// Errors: l without fields, a bulb with a radius or length that is not
+// Errors: l without fields, a body with an open end (wrapping
+// ErrNotImplemented), a bulb with a radius or length that is not
 // positive, a bulb not inside the body's free space (every section it
 // overlaps must be circular, with a radius at least the bulb's, and the
 // bulb must end inside the body), a tolerance outside (0, 1e-2], and a
@@ -63,6 +64,9 @@ func (l Loss) Filling(b Body, bulb cavity.Bulb, s RegionSettings) (cavity.Fillin
 	}
 	if err := b.Validate(); err != nil {
 		return cavity.Filling{}, err
+	}
+	if b.Open() {
+		return cavity.Filling{}, fmt.Errorf("axisym: bulb filling factors need a body closed by end plates at both ends (an open pipe's field runs on to infinity): %w", ErrNotImplemented)
 	}
 	if len(b.Sections) != len(l.Field.sections) {
 		return cavity.Filling{}, fmt.Errorf("axisym: the body has %d sections, the fields %d: not the body solved", len(b.Sections), len(l.Field.sections))

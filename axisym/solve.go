@@ -110,6 +110,10 @@ var ErrNotImplemented = errors.New("not implemented")
 // is found to relTol. A body of one section, or of sections of one radius,
 // has no truncation error: its frequencies are the closed-form ones.
 //
+// For a body with an open end (Body.Open) Solve returns the trapped
+// resonances only, those below the pipes' cutoff (Body.Cutoff), with no
+// enclosing-cylinder label; Radiating finds those above it.
+//
 // Errors: an invalid body (Body.Validate), a maximum frequency that is not
 // positive and finite, more than MaxResonances resonances below it, a
 // section that would need more than MaxModes modes, and, wrapping
@@ -155,7 +159,7 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 		if err != nil {
 			return nil, err
 		}
-		coax := false
+		coax := b.Open() // an open body has no enclosing-cylinder label either
 		for _, s := range b.Sections {
 			coax = coax || s.InnerRadius != 0
 		}
@@ -256,6 +260,14 @@ func resonancesWith(b Body, fam cavity.Family, fmax float64, counts []int, withL
 	s, err := newSystem(b, fam, counts)
 	if err != nil {
 		return nil, nil, err
+	}
+	if b.Radiates(fam, fmax) {
+		// An open body: the real model holds below the pipe's cutoff only
+		// (trapped resonances); Radiating finds the others.
+		fmax = b.Cutoff(fam) * (1 - belowCutoff)
+		if fmax <= 0 {
+			return nil, nil, nil // a coaxial pipe's TEM mode: nothing is trapped
+		}
 	}
 	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
 	s.calibrate(b, sv.a)

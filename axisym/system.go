@@ -34,6 +34,7 @@ type lines struct {
 	eps, mu  float64   // relative permittivity and permeability
 	length   float64   // m
 	b11, b12 []float64 // scratch: driving-point and transfer susceptance per mode
+	open     bool      // an open end section: the lines run on into the pipe (open.go)
 }
 
 // join is one junction between sections i (left) and i+1 (right).
@@ -81,6 +82,7 @@ func newSystem(b Body, fam cavity.Family, counts []int) (*system, error) {
 		s.ndof += j.n
 		s.joins = append(s.joins, j)
 	}
+	s.markOpen(b)
 	return s, nil
 }
 
@@ -148,6 +150,9 @@ func (s *system) eval(f float64, a []float64) (j0 int) {
 		k2 := k0 * k0 * ln.eps * ln.mu
 		for m, kc := range ln.kc {
 			b11, b12, poles := lineSusceptance(s.fam, k2-kc*kc, ln.length, ln.eps, ln.mu)
+			if ln.open {
+				b11, b12, poles = openSusceptance(s.fam, k2-kc*kc, ln.eps, ln.mu), 0, 0
+			}
 			ln.b11[m], ln.b12[m] = b11, b12
 			j0 += poles
 		}

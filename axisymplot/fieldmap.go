@@ -139,17 +139,22 @@ func (fm *FieldMap) Figure(th figure.Theme) (*figure.Figure, error) {
 	return fig, nil
 }
 
-// outline draws the metal boundary of the body in the r-z half plane.
+// outline draws the metal boundary of the body in the r-z half plane
+// (no end plate at an open end).
 func outline(p *plot.Plot, b axisym.Body) error {
 	sty := draw.LineStyle{Color: figure.Ink, Width: vg.Points(1)}
 	var pts plotter.XYs
 	z := 0.0
-	pts = append(pts, plotter.XY{X: 0, Y: 0})
+	if b.EndA != axisym.Pipe { // an open end has no plate to draw
+		pts = append(pts, plotter.XY{X: 0, Y: 0})
+	}
 	for _, s := range b.Sections {
 		pts = append(pts, plotter.XY{X: z * 1e3, Y: s.Radius * 1e3}, plotter.XY{X: (z + s.Length) * 1e3, Y: s.Radius * 1e3})
 		z += s.Length
 	}
-	pts = append(pts, plotter.XY{X: z * 1e3, Y: 0})
+	if b.EndB != axisym.Pipe {
+		pts = append(pts, plotter.XY{X: z * 1e3, Y: 0})
+	}
 	l, err := plotter.NewLine(pts)
 	if err != nil {
 		return err

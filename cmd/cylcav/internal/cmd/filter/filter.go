@@ -70,6 +70,8 @@ type Options struct {
 	Walls *qfactor.WallSet
 	// Hole, when not nil, sizes the main-line couplings as holes.
 	Hole *bandpass.Hole
+	// Iris, when not nil, sizes every coupling as an iris (iris.go).
+	Iris *IrisOptions
 
 	// Q0 is one unloaded Q for every resonator (--q0), zero for none.
 	Q0 float64
@@ -93,6 +95,7 @@ func NewCmdFilter(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comm
 	var fl flags
 	var walls *cmdutil.WallFlags
 	var geo *cmdutil.GeometryFlags
+	var ifl *irisFlags
 	cmd := &cobra.Command{
 		Use:   "filter --f0 F --bw B (--order N | --reject ATT@F[,...]) [flags]",
 		Short: "Design a coupled-cavity bandpass filter: coupling matrix, cavities, response",
@@ -166,6 +169,9 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 			if err := opts.checkCavities(changed, walls, geo, &fl); err != nil {
 				return err
 			}
+			if err := opts.checkIris(changed, ifl); err != nil {
+				return err
+			}
 			if err := opts.checkOutput(); err != nil {
 				return err
 			}
@@ -211,6 +217,7 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.Needs(cmd, "dpi", "plot")
 	cmdutil.Needs(cmd, "force", "touchstone", "plot")
 	cmdutil.Needs(cmd, "hole-thickness", "holes")
+	ifl = addIrisFlags(cmd)
 	validFormat := cmdutil.FormatFlag(cmd, &opts.Format, cmdutil.Table, cmdutil.JSON)
 	cmd.PreRunE = func(c *cobra.Command, _ []string) error {
 		if err := cmdutil.RejectEmptyFlags(c); err != nil {
@@ -308,7 +315,7 @@ const minFBW = 1e-5
 // by cmdutil.CheckNeeds before the command ran).
 func (opts *Options) checkCavities(changed func(string) bool, walls *cmdutil.WallFlags, geo *cmdutil.GeometryFlags, fl *flags) error {
 	wallGiven := walls.Given()
-	opts.Cavities = changed("mode") || wallGiven || changed("fill") || changed("ratio") || changed("holes")
+	opts.Cavities = changed("mode") || wallGiven || changed("fill") || changed("ratio") || changed("holes") || changed("iris-wall")
 	if changed("q0") && opts.Cavities {
 		return cmdutil.Usagef("--q0 sets the unloaded Q without cavities; drop it, or drop --mode, --wall, --fill, --ratio and --holes to use it")
 	}

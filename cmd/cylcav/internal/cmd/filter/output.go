@@ -268,6 +268,7 @@ func (r *Result) WriteTable(w io.Writer) error {
 
 	if rz := r.Realisation; rz != nil {
 		writeCavities(&b, r, ff)
+		writeIrises(&b, r)
 	} else {
 		fmt.Fprintf(&b, "\nCavities: none sized (give --mode, --wall, --fill or --ratio)\n")
 	}
@@ -348,6 +349,9 @@ func writeCavities(b *strings.Builder, r *Result, ff func(float64) string) {
 		_ = t.Flush()
 	}
 
+	if r.Irises != nil {
+		return // the iris table (writeIrises) realises every coupling
+	}
 	fmt.Fprintf(b, "\nCoupling realisation\n")
 	t = cmdutil.NewTable(b, "  coupling", fmt.Sprintf("%10s", "k required"), "realisation")
 	for _, a := range rz.Apertures {
@@ -444,6 +448,7 @@ type Output struct {
 	Convention            string         `json:"convention"`
 	Notes                 []string       `json:"notes"`
 	MatrixZeroThreshold   float64        `json:"matrix_zero_threshold"`
+	Irises                *IrisOut       `json:"irises,omitempty"`
 	ModeIndexConvention   string         `json:"mode_index_convention"`
 }
 
@@ -645,6 +650,7 @@ func (r *Result) JSON() Output {
 		}
 		o.Checks = append(o.Checks, co)
 	}
+	o.Irises = r.irisJSON()
 	return o
 }
 

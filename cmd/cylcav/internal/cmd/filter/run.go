@@ -13,6 +13,7 @@ import (
 	"cylcav/figure"
 	bandpass "cylcav/filter"
 	"cylcav/filterplot"
+	"cylcav/iris"
 	"cylcav/physics"
 	"cylcav/qfactor"
 )
@@ -29,6 +30,9 @@ type Result struct {
 	// their D/L was chosen.
 	Realisation *bandpass.Realisation
 	Shape       string
+	// Irises is the realisation of the couplings as irises and holes
+	// (--iris-wall); nil otherwise.
+	Irises *iris.Plan
 
 	// Q0 holds the unloaded Q per resonator used for the response (nil
 	// for lossless); Lossless is true when none is finite.
@@ -211,6 +215,11 @@ func (r *Result) realise() error {
 		return err
 	}
 	r.Realisation = rz
+	if opts.Iris != nil {
+		if err := r.sizeIrises(); err != nil {
+			return err
+		}
+	}
 	for _, w := range rz.WallWarnings {
 		r.Warnings = append(r.Warnings, "walls: "+w)
 	}

@@ -46,6 +46,9 @@ func checkBulb(b BulbOptions, body axisym.Body) error {
 	if b.Diameter == 0 {
 		return nil
 	}
+	if body.Open() {
+		return cmdutil.Usagef("--bulb-diameter needs a body closed by end plates at both ends; this one has an open pipe")
+	}
 	l := body.Length()
 	zc := b.Centre
 	if zc == 0 {

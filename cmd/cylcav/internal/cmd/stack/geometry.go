@@ -1,6 +1,7 @@
 package stack
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -10,6 +11,7 @@ import (
 	"cylcav/axisym"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
+	"cylcav/qfactor"
 )
 
 // FileError is an error in a geometry file: the file, the line and the key
@@ -34,11 +36,16 @@ func (e *FileError) Unwrap() error { return e.Err }
 type Geometry struct {
 	Title string
 	Body  axisym.Body
+	// Walls, when not nil (the file's walls key), gives the metal of each
+	// kind of surface (at 20 C, smooth); nil when the file has none.
+	Walls *axisym.Walls
 }
 
 // Keys of the geometry file, in the order the help text lists them.
 var (
-	topKeys     = []string{"title", "sections"}
+	topKeys     = []string{"title", "end_a", "end_b", "walls", "sections"}
+	endWords    = []string{"plate", "pipe"}
+	wallKeys    = []string{"side", "steps", "inner", "plate_a", "plate_b"}
 	sectionKeys = []string{"length", "radius", "inner_radius", "fill", "start"}
 )
 
@@ -82,6 +89,22 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 			g.Title = v.Value
 		case "sections":
 			sections = v
+		case "end_a", "end_b":
+			e, err := parseEnd(v)
+			if err != nil {
+				return ferr(v, k.Value, "%v", err)
+			}
+			if k.Value == "end_a" {
+				g.Body.EndA = e
+			} else {
+				g.Body.EndB = e
+			}
+		case "walls":
+			w, err := parseWalls(file, v)
+			if err != nil {
+				return err
+			}
+			g.Walls = w
 		}
 		return nil
 	}); err != nil {
@@ -211,3 +234,71 @@ func eachKey(file string, m *yaml.Node, prefix string, allowed []string, fn func
 
 // lengthText prints a length for an error message.
 func lengthText(m float64) string { return cmdutil.TrimZeros(physics.FormatLength(m, 6)) }
+
+// parseEnd reads an end_a or end_b value: plate or pipe.
+func parseEnd(v *yaml.Node) (axisym.End, error) {
+	if v.Kind == yaml.ScalarNode {
+		switch strings.ToLower(strings.TrimSpace(v.Value)) {
+		case "plate":
+			return axisym.Plate, nil
+		case "pipe":
+			return axisym.Pipe, nil
+		}
+	}
+	return 0, fmt.Errorf("must be %s (a metal end plate, or a pipe of the end section's cross-section running on to infinity), got %q",
+		strings.Join(endWords, " or "), v.Value)
+}
+
+// parseWalls reads the walls mapping: a metal (a library name or
+// sigma=/iacs=/rho=..., as --wall takes) for each kind of surface; side is
+// required, the others default to it.
+func parseWalls(file string, m *yaml.Node) (*axisym.Walls, error) {
+	ferr := func(n *yaml.Node, key string, format string, a ...any) error {
+		return &FileError{File: file, Line: n.Line, Key: key, Err: fmt.Errorf(format, a...)}
+	}
+	if m.Kind != yaml.MappingNode {
+		return nil, ferr(m, "walls", "must be a mapping with the keys %s, each a metal (e.g. side: copper)", strings.Join(wallKeys, ", "))
+	}
+	got := map[string]qfactor.Surface{}
+	err := eachKey(file, m, "walls", wallKeys, func(k, v *yaml.Node) error {
+		key := "walls." + k.Value
+		if v.Kind != yaml.ScalarNode {
+			return ferr(v, key, "must be a single metal, e.g. copper")
+		}
+		c, err := physics.ParseConductor(v.Value)
+		if err != nil {
+			return ferr(v, key, "%v", err)
+		}
+		s := qfactor.Surface{Conductor: c}
+		if err := (qfactor.SameWalls(s)).Validate(); err != nil {
+			var we *qfactor.WallError
+			if errors.As(err, &we) {
+				err = we.Err
+			}
+			return ferr(v, key, "%v", err)
+		}
+		got[k.Value] = s
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	side, ok := got["side"]
+	if !ok {
+		return nil, ferr(m, "walls.side", "missing: the side-wall metal, which the other surfaces default to")
+	}
+	w := &axisym.Walls{Set: qfactor.SameWalls(side)}
+	if s, ok := got["plate_a"]; ok {
+		w.Set.EndA = s
+	}
+	if s, ok := got["plate_b"]; ok {
+		w.Set.EndB = s
+	}
+	if s, ok := got["steps"]; ok {
+		w.Steps = &s
+	}
+	if s, ok := got["inner"]; ok {
+		w.Inner = &s
+	}
+	return w, nil
+}

@@ -26,7 +26,6 @@ import (
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/figure"
 	"cylcav/physics"
-	"cylcav/qfactor"
 )
 
 // Options are the parsed and validated arguments of `cylcav stack`.
@@ -43,10 +42,11 @@ type Options struct {
 	// Families are the families to solve.
 	Families []cavity.Family
 	Format   cmdutil.Format
-	// Walls, when not nil (--wall given), adds Q0 and its parts: the side
-	// surface of the wall set covers side walls, inner conductors and step
-	// faces, EndA and EndB the end plates.
-	Walls *qfactor.WallSet
+	// Walls, when not nil (--wall given, or walls in the file), adds Q0
+	// and its parts: with --wall the side surface of the wall set covers
+	// side walls, inner conductors and step faces, EndA and EndB the end
+	// plates; the file may give each kind of surface its own metal.
+	Walls *axisym.Walls
 	// Beta, when > 0 (--beta given), adds the accelerator figures of TM0
 	// resonances for a particle at speed Beta c on the axis.
 	Beta float64
@@ -91,12 +91,14 @@ func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
 		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
 		Long: fmt.Sprintf(`List the azimuthally symmetric (n = 0) resonances below --fmax of a cavity
-made of circular cylindrical sections stacked along z between two metal end
-plates, every change of radius a flat metal step. TE0 (E_phi) and TM0
+made of circular cylindrical sections stacked along z between two ends
+(metal plates, or pipes to infinity: see end_a and end_b below), every
+change of radius a flat metal step. TE0 (E_phi) and TM0
 (E_r, E_z) resonances are solved separately by axial mode matching; the
 count of resonances below any frequency is exact for the model, so none is
 missed. Each resonance is labelled with the mode of the enclosing cylinder
-(largest radius, total length) it continues from, and carries a
+(largest radius, total length) it continues from (not for a body with an
+open end or a coaxial section), and carries a
 convergence estimate: how far it moved when the number of waveguide modes
 grew by half.
 
@@ -110,6 +112,23 @@ The geometry file is YAML:
     - length: 2mm
       radius: 4mm
       start: 20mm                 # optional check: z of the left face
+
+Top-level keys: %s.
+end_a and end_b (the ends at z = 0 and at the far end) are plate (the default: a metal end plate) or pipe: a
+semi-infinite pipe of the end section's cross-section and fill, as a beam
+pipe or a feeding waveguide. Below the pipe's lowest cutoff of a family
+every resonance is trapped (a real resonance, found with the same exact
+count); above it a resonance radiates into the pipe: it is listed with
+its external Q (Qext = Re f / (2 Im f) of the complex resonant frequency,
+found by Muller's method from the resonance of the body with the pipes
+shorted at their apertures; that list is not proven complete). An open
+end has no plate loss. walls gives a metal per kind of surface (side,
+steps, inner, plate_a, plate_b; side required, the others default to it),
+used for Q0 at 20 C without --wall:
+
+  walls:
+    side: copper
+    plate_b: silver
 
 Keys per section: %s. inner_radius > 0 makes a
 coaxial section (a post or inner conductor); at each junction one
@@ -164,7 +183,7 @@ The bulb must lie in free space of circular sections.
 it NEAR within --harmonic-window (default 0.5 %%) of one. With --beta or
 --bunch-freq the output says that dipole (n = 1) modes and their
 transverse R/Q are not solved for stacked bodies.`,
-			strings.Join(sectionKeys, ", "), axisym.DefaultModes),
+			strings.Join(topKeys, ", "), strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
   ...
@@ -175,6 +194,14 @@ transverse R/Q are not solved for stacked bodies.`,
 
   # Two TE011 cells joined by an iris: the coupling of the TE011 pair
   $ cylcav stack examples/iris-pair.yaml --fmax 12GHz --family te --pair 1,2
+  ...
+
+  # A nosed cell with beam pipes to infinity (walls from the file): trapped and radiating TM0
+  $ cylcav stack examples/nosed-cell-open.yaml --fmax 16GHz --family tm --beta 1
+  ...
+
+  # A TE011 cavity fed through an iris from a circular waveguide: its external Q
+  $ cylcav stack examples/fed-cell.yaml --fmax 10.5GHz --family te
   ...
 
   # A dielectric disc on the end plate of a copper can, TE0 only, with Q0, as CSV
@@ -226,7 +253,7 @@ transverse R/Q are not solved for stacked bodies.`,
 				if err != nil {
 					return err
 				}
-				opts.Walls = &ws
+				opts.Walls = &axisym.Walls{Set: ws}
 			}
 			data, err := os.ReadFile(opts.File)
 			if err != nil {
@@ -237,6 +264,12 @@ transverse R/Q are not solved for stacked bodies.`,
 			}
 			if err := checkBulb(opts.Bulb, opts.Geometry.Body); err != nil {
 				return err
+			}
+			if opts.Geometry.Walls != nil {
+				if opts.Walls != nil {
+					return cmdutil.Usagef("%s gives walls and so does --wall: give the metals in one place", opts.File)
+				}
+				opts.Walls = opts.Geometry.Walls
 			}
 			if runF != nil {
 				return runF(opts)
@@ -272,8 +305,17 @@ type Row struct {
 	FamilyIndex   int      `json:"family_index"`
 	FHz           float64  `json:"f_hz"`
 	ChangeHz      *float64 `json:"change_hz"`      // null: no partner in the smaller model
-	ContinuesFrom string   `json:"continues_from"` // "" for a body with a coaxial section
+	ContinuesFrom string   `json:"continues_from"` // "" for a body with a coaxial section or open ends
 	LabelTied     bool     `json:"label_tied"`
+	// For a body with an open end: "trapped" (below the pipe cutoff, a
+	// real resonance) or "radiating" (above it: FHz is the real part of the
+	// complex resonant frequency, FImagHz its imaginary part and QExt the
+	// external Q); empty for a closed body.
+	Status  string   `json:"status,omitempty"`
+	FImagHz *float64 `json:"f_imag_hz,omitempty"`
+	QExt    *float64 `json:"q_ext,omitempty"`
+	// QExtChange is the change of QExt when the modes grew by half.
+	QExtChange *float64 `json:"q_ext_change,omitempty"`
 	// With --wall: Q0, the change of Q0 when the modes grew by half (its
 	// convergence estimate), and the wall and fill Q; null when the fields
 	// are not available (QNote says why).
@@ -383,6 +425,9 @@ func runStack(opts *Options) error {
 				return err
 			}
 		}
+		if opts.Geometry.Body.Open() {
+			row.Status = statusTrapped
+		}
 		rows[i] = row
 	}
 	if opts.Extrapolate {
@@ -390,13 +435,25 @@ func runStack(opts *Options) error {
 			return err
 		}
 	}
+	if opts.Geometry.Body.Open() {
+		if rows, res, err = addRadiating(opts, rows, res); err != nil {
+			return err
+		}
+	}
 	var pr *PairRow
 	if opts.Pair != nil {
+		p := *opts.Pair
+		if err := refuseRadiating("pair", fmt.Sprintf("%d,%d", p[0], p[1]), rows, p[0], p[1]); err != nil {
+			return err
+		}
 		if pr, err = pairRow(opts, res); err != nil {
 			return err
 		}
 	}
 	if opts.FieldMap != "" {
+		if err := refuseRadiating("map", strconv.Itoa(opts.MapIndex), rows, opts.MapIndex); err != nil {
+			return err
+		}
 		if err := writeMap(opts, res); err != nil {
 			return err
 		}
@@ -404,19 +461,24 @@ func runStack(opts *Options) error {
 	switch opts.Format {
 	case cmdutil.JSON:
 		return cmdutil.WriteJSON(opts.IO.Out, struct {
-			File       string   `json:"file"`
-			Title      string   `json:"title"`
-			Order      int      `json:"n"`
-			Sections   int      `json:"sections"`
-			LengthM    float64  `json:"length_m"`
-			MaxRadiusM float64  `json:"max_radius_m"`
-			FMaxHz     float64  `json:"fmax_hz"`
-			Resonances []Row    `json:"resonances"`
-			Coupling   *PairRow `json:"coupling,omitempty"`
-			Dipoles    string   `json:"dipoles,omitempty"`
+			File       string      `json:"file"`
+			Title      string      `json:"title"`
+			Order      int         `json:"n"`
+			Sections   int         `json:"sections"`
+			LengthM    float64     `json:"length_m"`
+			MaxRadiusM float64     `json:"max_radius_m"`
+			FMaxHz     float64     `json:"fmax_hz"`
+			EndA       string      `json:"end_a"`
+			EndB       string      `json:"end_b"`
+			Cutoff     *cutoffJSON `json:"pipe_cutoff,omitempty"`
+			Resonances []Row       `json:"resonances"`
+			Coupling   *PairRow    `json:"coupling,omitempty"`
+			Dipoles    string      `json:"dipoles,omitempty"`
 		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
-			opts.Geometry.Body.MaxRadius(), opts.FMax, rows, pr, dipolesJSON(opts)})
+			opts.Geometry.Body.MaxRadius(), opts.FMax, opts.Geometry.Body.EndA.String(), opts.Geometry.Body.EndB.String(),
+			cutoffs(opts.Geometry.Body, opts.Families), rows, pr, dipolesJSON(opts)})
 	case cmdutil.CSV:
+		open := opts.Geometry.Body.Open()
 		var out [][]string
 		for _, r := range rows {
 			change := ""
@@ -440,6 +502,9 @@ func runStack(opts *Options) error {
 			if opts.Beam.Bunch > 0 {
 				cells = append(cells, harmonicCells(r.Harmonic)...)
 			}
+			if open {
+				cells = append(cells, r.Status, csvQ(r.FImagHz), csvQ(r.QExt), csvQ(r.QExtChange))
+			}
 			out = append(out, cells)
 		}
 		header := []string{"index", "family", "family_index", "f_hz", "change_hz", "continues_from", "label_tied"}
@@ -457,6 +522,9 @@ func runStack(opts *Options) error {
 		}
 		if opts.Beam.Bunch > 0 {
 			header = append(header, harmonicHeader...)
+		}
+		if open {
+			header = append(header, "status", "f_imag_hz", "q_ext", "q_ext_change")
 		}
 		return cmdutil.WriteCSV(opts.IO.Out, header, out)
 	}
@@ -478,9 +546,15 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	for _, s := range b.Sections {
 		coax = coax || s.InnerRadius != 0
 	}
-	if coax {
+	if l := endsLine(b, opts.Families); l != "" {
+		fmt.Fprintln(w, l)
+	}
+	switch {
+	case b.Open():
+		fmt.Fprintln(w, "continues from: not given for a body with an open end")
+	case coax:
 		fmt.Fprintln(w, "continues from: not given for a body with a coaxial section")
-	} else {
+	default:
 		fmt.Fprintf(w, "continues from: mode of the enclosing cylinder (radius %s, length %s) at the same place in order\n",
 			radius, length)
 	}
@@ -504,6 +578,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Beam.Bunch > 0 {
 		header = append(header, "beam harmonic")
 	}
+	if b.Open() {
+		header = append(header, "end", "Qext")
+	}
 	t := cmdutil.NewTable(w, header...)
 	var notes []string
 	for _, r := range rows {
@@ -518,7 +595,11 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 		if r.LabelTied {
 			label += " (tied)"
 		}
-		cells := []string{strconv.Itoa(r.Index), r.Family, strconv.Itoa(r.FamilyIndex), physics.FormatFrequency(r.FHz, digits(r)), change, label}
+		k := strconv.Itoa(r.FamilyIndex)
+		if r.Status == statusRadiating {
+			k = "-" // radiating resonances are not counted
+		}
+		cells := []string{strconv.Itoa(r.Index), r.Family, k, physics.FormatFrequency(r.FHz, digits(r)), change, label}
 		if opts.Walls != nil {
 			fill := qText(r.QFill)
 			if r.Q0 != nil && r.QFill == nil {
@@ -546,6 +627,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 		if opts.Beam.Bunch > 0 {
 			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch))
 		}
+		if b.Open() {
+			cells = append(cells, r.Status, qextText(r.QExt, r.QExtChange))
+		}
 		t.Row(cells...)
 	}
 	if err := t.Flush(); err != nil {
@@ -568,6 +652,10 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	}
 	if opts.Beta > 0 {
 		fmt.Fprintf(w, "T, R/Q: TM0 only, particle speed %g c on the axis; R/Q linac = V^2/(omega W), circuit = V^2/(2 omega W)\n", opts.Beta)
+		fmt.Fprintln(w, "peak surface fields: not given; at a sharp step edge the model's E is infinite (Meixner's edge condition)")
+		if b.Open() {
+			fmt.Fprintln(w, "open ends: the axial integral runs into the pipes until the field has fallen by e^-40")
+		}
 		fmt.Fprintln(w, "caution: cells driven at high RF power carry high voltages and heat their walls; these are design")
 		fmt.Fprintln(w, "estimates: follow local codes and licensed practice")
 	}
@@ -575,7 +663,11 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 		writeBeamNote(w, opts.Beam)
 	}
 	if opts.Walls != nil {
-		fmt.Fprintln(w, "Q: side walls, inner conductors and step faces of the --wall metal; next to a step edge the wall loss")
+		if opts.Geometry.Walls != nil {
+			fmt.Fprintf(w, "Q: walls of %s per surface (20 C, smooth); no loss at an open end; next to a step edge the wall loss\n", opts.File)
+		} else {
+			fmt.Fprintln(w, "Q: side walls, inner conductors and step faces of the --wall metal; next to a step edge the wall loss")
+		}
 		fmt.Fprintln(w, "converges slowly with the modes (Q0 change), so with steps Q0 is an estimate, high by about that change or more")
 		for _, n := range notes {
 			fmt.Fprintln(w, "note "+n)
@@ -584,39 +676,27 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	return nil
 }
 
-// addQ fills the Q columns of row from the resonance's losses.
-func addQ(row *Row, r axisym.Resonance, walls qfactor.WallSet, b axisym.Body) error {
+// addQ fills the Q columns of row from the resonance's losses
+// (axisym.Loss.Unloaded).
+func addQ(row *Row, r axisym.Resonance, walls axisym.Walls, b axisym.Body) error {
 	if r.Loss == nil {
 		row.QNote = "fields not available: " + r.LossErr.Error()
 		return nil
 	}
-	rs, _, err := walls.Resistances(r.Frequency)
+	u, err := r.Loss.Unloaded(b, walls)
 	if err != nil {
 		return err
 	}
-	per := func(p axisym.Part) float64 {
-		switch p.Kind {
-		case axisym.EndA:
-			return rs.EndA
-		case axisym.EndB:
-			return rs.EndB
-		}
-		return rs.Side
-	}
-	fills := make([]physics.Medium, len(b.Sections))
-	for i, s := range b.Sections {
-		fills[i] = s.Fill
-	}
-	q0, iw, ifl := r.Loss.Q0(per, fills)
-	qw, qf := 1/iw, 1/ifl
+	q0, qw, qf := u.Q0, u.QWall, u.QFill
 	row.Q0, row.QWall = &q0, &qw
 	if !math.IsInf(qf, 1) {
 		row.QFill = &qf
 	}
 	if r.CoarseLoss != nil {
-		c, _, _ := r.CoarseLoss.Q0(per, fills)
-		d := math.Abs(q0 - c)
-		row.Q0Change = &d
+		if c, err := r.CoarseLoss.Unloaded(b, walls); err == nil {
+			d := math.Abs(q0 - c.Q0)
+			row.Q0Change = &d
+		}
 	}
 	return nil
 }
