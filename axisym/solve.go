@@ -146,6 +146,9 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 		if fam != cavity.TE && fam != cavity.TM {
 			return nil, fmt.Errorf("axisym: unknown family %v", fam)
 		}
+		if err := b.requireIsotropicFor(fam); err != nil {
+			return nil, err
+		}
 		// The smaller model searches a little beyond the limit so that a
 		// resonance just below it still has a partner.
 		coarse, coarseLoss, err := resonances(b, fam, r.MaxFrequency*(1+estimateMargin), modes, r.Losses)

@@ -56,7 +56,8 @@ type Filling struct {
 // the cavity's totals from u = x = j'_0m (J1(x) = 0). The ratios do not
 // depend on the fill's permittivity (a homogeneous fill scales omega only).
 // A bulb with a different permittivity from the fill changes the fields;
-// that needs the mode-matching solver, which is not available yet.
+// that needs the mode-matching solver: axisym's Loss.Filling handles
+// dielectric layers along z (discs on the end plates).
 //
 // Errors: an invalid cavity or mode, a mode other than TE0mp, a bulb not
 // inside the cavity (0 < Radius <= c.Radius, 0 < Length <= c.Length).

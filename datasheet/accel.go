@@ -50,7 +50,7 @@ func accelSection(r design.Result) ([]Table, []string) {
 		t.add(false, "Electric energy", fmt.Sprintf("%.4f", fl.Electric), "scales the loss of the bulb wall")
 		t.add(true, "Maser filling factor η′", fmt.Sprintf("%.4f", fl.Maser), "(∫bulb Hz dV)² / (V_bulb ∫cavity |H|² dV), Kleppner et al. 1965")
 		tables = append(tables, t)
-		notes = append(notes, "Filling factors hold for a bulb of the fill's own permittivity; a dielectric bulb in an empty cavity changes the fields and needs the mode-matching solver, which is not available yet.")
+		notes = append(notes, "Filling factors hold for a bulb of the fill's own permittivity; dielectric layers along the axis (discs, plates) are solved by cylcav stack --bulb-diameter; a bulb wall of another permittivity around the axis is not modelled.")
 	}
 	a := r.Accel
 	if a == nil {
@@ -125,7 +125,7 @@ func accelSection(r design.Result) ([]Table, []string) {
 				}
 				row = append(row, hs)
 			}
-			t.add(h.Near && h.Mode != r.Design.Spec.Mode && (h.ROverQ > 0 || h.ROverQTransverse > 0), row...)
+			t.add(h.Drivable(r.Design.Spec.Mode), row...)
 		}
 		tables = append(tables, t)
 		if bunch > 0 {

@@ -486,7 +486,7 @@ func Cautions(r Result) []string {
 			out = append(out, CautionHighPower)
 		}
 		for _, h := range a.HOMs {
-			if h.Near && !(h.Mode == spec.Mode) && (h.ROverQ > 0 || h.ROverQTransverse > 0) {
+			if h.Drivable(spec.Mode) {
 				out = append(out, fmt.Sprintf("%v at %s lies within %.3g %% of beam harmonic %d (%s): a beam can drive it; damp or move it.", h.Mode, physics.FormatFrequency(h.Frequency, 7), 100*a.HOMWindow, h.Harmonic, physics.FormatFrequency(float64(h.Harmonic)*r.Scenario.Accel.Bunch, 7)))
 			}
 		}

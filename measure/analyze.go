@@ -154,7 +154,12 @@ func fitOne(d *touchstone.Data, kind Kind, p Peak, i, j int, maxDelay float64) R
 	} else {
 		if r.Main, err = fit(d.Param(2, 1)); err == nil {
 			// The reflection circles start from the transmission fit.
+			// With f0 and QL fixed the resonance's own phase cannot be
+			// taken for a delay, so a longer one is searched: the
+			// reflections see the cables twice, and a broad resonance's
+			// window can exceed the inverse of that round trip.
 			fGuess, qGuess, set.Fixed = r.Main.F0, r.Main.QL, true
+			set.MaxDelay = fixedDelayFactor * maxDelay
 			if r.Port1, err = fit(d.Param(1, 1)); err == nil {
 				r.Port2, err = fit(d.Param(2, 2))
 			}
@@ -210,6 +215,13 @@ func fitOne(d *touchstone.Data, kind Kind, p Peak, i, j int, maxDelay float64) R
 	}
 	return r
 }
+
+// fixedDelayFactor widens the delay search of the reflection fits of a
+// transmission measurement (f0 and QL fixed) beyond the inverse of the
+// window: four windows' worth of phase turns, enough for the round trip
+// of cables a few times longer than the one-way delay of the default
+// (derived from the default's rule; checked on gen_disc.py's sweeps).
+const fixedDelayFactor = 4
 
 func sq(x float64) float64 { return x * x }
 

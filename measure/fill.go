@@ -12,6 +12,9 @@ type FillMode struct {
 	Mode            cavity.Mode
 	FEmpty, FFilled float64 // Hz
 	Result          DielectricResult
+	// FillE is the sample's electric filling factor, the fraction of the
+	// mode's electric energy in it: 1 for a complete fill.
+	FillE float64
 }
 
 // Fill is the fill measured from an empty and a filled sweep of the same
@@ -58,7 +61,7 @@ func MeasureFill(empty []Resonance, idEmpty Identification, filled []Resonance, 
 		if err != nil {
 			return Fill{}, fmt.Errorf("%v: %w", a.Mode, err)
 		}
-		out.Modes = append(out.Modes, FillMode{Mode: a.Mode, FEmpty: e.F0, FFilled: f.F0, Result: r})
+		out.Modes = append(out.Modes, FillMode{Mode: a.Mode, FEmpty: e.F0, FFilled: f.F0, Result: r, FillE: 1})
 		we += 1 / (r.EpsRErr * r.EpsRErr)
 		se += r.EpsR / (r.EpsRErr * r.EpsRErr)
 		wt += 1 / (r.TanDeltaErr * r.TanDeltaErr)

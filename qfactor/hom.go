@@ -158,13 +158,50 @@ func HOMTable(c cavity.Cavity, o HOMOptions) ([]HOM, error) {
 			}
 		}
 		if o.Bunch > 0 {
-			h.Harmonic = int(math.Round(r.Frequency / o.Bunch))
-			h.Offset = r.Frequency - float64(h.Harmonic)*o.Bunch
-			h.Near = math.Abs(h.Offset) <= win*r.Frequency
+			h.Harmonic, h.Offset, h.Near = beamHarmonic(r.Frequency, o.Bunch, win)
 		}
 		out[i] = h
 	}
 	return out, nil
+}
+
+// BeamHarmonic returns the beam harmonic h = round(f/bunch) nearest a
+// mode at frequency f (Hz) for bunches repeating at bunch (Hz), the offset
+// f - h bunch (Hz), and whether the mode is near it: |offset| <= window f,
+// window a fraction (0 means DefaultHarmonicWindow). This is the one
+// verdict on a mode near a beam harmonic; HOMTable and every command that
+// flags modes use it. A beam's current has lines at every harmonic of the
+// bunch frequency (Wangler 2008, ch. on beam loading), so a mode within
+// its tuning and manufacturing scatter of one can be driven.
+//
+// Errors: f or bunch not positive and finite, window outside [0, 0.5).
+func BeamHarmonic(f, bunch, window float64) (h int, offset float64, near bool, err error) {
+	if !(f > 0) || math.IsInf(f, 0) || !(bunch > 0) || math.IsInf(bunch, 0) {
+		return 0, 0, false, fmt.Errorf("qfactor: mode and bunch frequencies must be > 0 and finite, got %g Hz and %g Hz", f, bunch)
+	}
+	if window == 0 {
+		window = DefaultHarmonicWindow
+	}
+	if !(window > 0 && window < 0.5) {
+		return 0, 0, false, fmt.Errorf("qfactor: harmonic window must be between 0 and 50 %%, got %g", window)
+	}
+	h, offset, near = beamHarmonic(f, bunch, window)
+	return h, offset, near, nil
+}
+
+// beamHarmonic is BeamHarmonic on checked input.
+func beamHarmonic(f, bunch, window float64) (int, float64, bool) {
+	h := int(math.Round(f / bunch))
+	off := f - float64(h)*bunch
+	return h, off, math.Abs(off) <= window*f
+}
+
+// Drivable reports whether a beam can drive the row's mode to harm: it is
+// near a beam harmonic (Near), it is not the operating mode, and it has a
+// longitudinal or transverse R/Q. The design's warnings and the
+// datasheet's highlighted rows use it.
+func (h HOM) Drivable(operating cavity.Mode) bool {
+	return h.Near && h.Mode != operating && (h.ROverQ > 0 || h.ROverQTransverse > 0)
 }
 
 // TransverseROverQ returns the transverse R/Q of the dipole mode m (n = 1)

@@ -150,3 +150,33 @@ func TestHOMTable(t *testing.T) {
 		t.Error("HOMTable up to 1 THz: no error")
 	}
 }
+
+// TestBeamHarmonic checks the one verdict on modes near beam harmonics by
+// hand: a 650 MHz bunch train has lines at 1.3, 1.95, 2.6, ... GHz.
+func TestBeamHarmonic(t *testing.T) {
+	for _, tc := range []struct {
+		f, bunch, win float64
+		h             int
+		off           float64
+		near          bool
+	}{
+		{1.3e9, 650e6, 0, 2, 0, true},
+		{3.254921e9, 650e6, 0, 5, 4.921e6, true},     // 4.921 MHz < 0.5 % of 3.25 GHz = 16.3 MHz
+		{1.838478e9, 650e6, 0, 3, -111.522e6, false}, // 111.5 MHz > 9.2 MHz
+		{1.838478e9, 650e6, 0.1, 3, -111.522e6, true},
+		{100e6, 650e6, 0, 0, 100e6, false}, // below the first harmonic
+	} {
+		h, off, near, err := BeamHarmonic(tc.f, tc.bunch, tc.win)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if h != tc.h || math.Abs(off-tc.off) > 1e-3 || near != tc.near {
+			t.Errorf("BeamHarmonic(%g, %g, %g) = %d, %g, %v; want %d, %g, %v", tc.f, tc.bunch, tc.win, h, off, near, tc.h, tc.off, tc.near)
+		}
+	}
+	for _, bad := range [][3]float64{{0, 650e6, 0}, {1e9, 0, 0}, {1e9, 650e6, 0.5}, {1e9, math.Inf(1), 0}} {
+		if _, _, _, err := BeamHarmonic(bad[0], bad[1], bad[2]); err == nil {
+			t.Errorf("BeamHarmonic(%v): nil error", bad)
+		}
+	}
+}

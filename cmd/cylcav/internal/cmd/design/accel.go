@@ -221,7 +221,7 @@ func writeAccelTable(w io.Writer, r design.Result) {
 	if fl := r.Filling; fl != nil {
 		fmt.Fprintf(w, "\nStorage bulb D = %s, L = %s, centred (fractions of the mode's energy inside it):\n", physics.FormatLength(2*fl.Bulb.Radius, 4), physics.FormatLength(fl.Bulb.Length, 4))
 		fmt.Fprintf(w, "  magnetic energy along z %.4f, all magnetic %.4f, electric %.4f; maser filling factor eta' = %.4f (Kleppner et al. 1965)\n", fl.MagneticZ, fl.Magnetic, fl.Electric, fl.Maser)
-		fmt.Fprintf(w, "  for a bulb of the fill's own permittivity; a quartz bulb in an empty cavity needs the mode-matching solver, not available yet\n")
+		fmt.Fprintf(w, "  for a bulb of the fill's own permittivity; dielectric discs along the axis: cylcav stack --bulb-diameter; a quartz bulb wall is not modelled\n")
 	}
 	a := r.Accel
 	if a == nil {

@@ -80,8 +80,8 @@ niobium guides; --beam-current and --sync-phase the matched input coupling
 detuning); --hom-max the monopole and dipole modes with R/Q, transverse R/Q,
 T and Q0, flagged near the harmonics of --bunch-freq. A cold vacuum cavity
 also gets its bench figures: the frequency of the machined cavity warm in
-vacuum and in air. The figures hold for the closed pillbox: the
-axisymmetric solver for beam pipes and noses is not available yet.
+vacuum and in air. The figures hold for the closed pillbox; 'cylcav stack
+--beta' gives T and R/Q of the monopoles of bodies with noses and steps.
 
 With no flags at all, design runs a built-in demo scenario and says so on
 its first line (--demo cell: the superconducting accelerator cell). --format

@@ -72,7 +72,7 @@ func TestSuperconductingDatasheet(t *testing.T) {
 		"External Q", fmt.Sprintf("%.4g", a.Coupling.QExt), physics.FormatSI(a.Coupling.ForwardDetunedW, "W", 4),
 		"Frequency on the bench, in air", physics.FormatFrequency(out.Bench.WarmAirHz, 7),
 		"BCS part", "Residual part", "quench guide", "field-emission guide", "guides, not limits",
-		"not available yet", "Radiation:", "Cryogenic operation", "R/Q⊥", "NEAR",
+		"cylcav stack --beta", "Radiation:", "Cryogenic operation", "R/Q⊥", "NEAR",
 	} {
 		if !strings.Contains(page, want) {
 			t.Errorf("datasheet lacks %q", want)

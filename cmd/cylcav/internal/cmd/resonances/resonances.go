@@ -31,8 +31,12 @@ type Options struct {
 	IO     *cmdutil.IOStreams
 	Format cmdutil.Format
 
-	File     string // the sweep file
-	Empty    string // the empty cavity's sweep (--empty); File is then the filled one
+	File  string // the sweep file
+	Empty string // the empty cavity's sweep (--empty); File is then the filled one
+	// Disc, when set (--sample-thickness), makes the filled sweep the
+	// cavity with a full-diameter disc of that thickness on one end plate,
+	// measured by measure.MeasureDiscFill instead of a complete fill.
+	Disc     *measure.DiscSpec
 	Settings measure.Settings
 
 	// Identify is set when the cavity's nominal size was given: the modes
@@ -63,6 +67,7 @@ func NewCmdResonances(io *cmdutil.IOStreams, runF func(*Options) error) *cobra.C
 	var geo *cmdutil.GeometryFlags
 	var walls *cmdutil.WallFlags
 	var hint string
+	var sampleT, sampleTErr float64
 	cmd := &cobra.Command{
 		Use:   "resonances SWEEP.s1p|SWEEP.s2p [flags]",
 		Short: "Find and fit the resonances of a measured sweep: f0, loaded Q, coupling, Q0",
@@ -115,6 +120,16 @@ identified in that cavity, gives the fill's eps_r = (f_empty/f_filled)^2
 and loss tangent from the two Q0 values of each mode found in both, with
 their uncertainties (fits and wall model; the dimensions cancel).
 
+With --sample-thickness T as well, the main sweep is the cavity with a
+dielectric disc of its full diameter and thickness T lying on one end
+plate (nominal permittivity from --fill): each TE0mp mode identified in the
+empty sweep is paired with the loaded resonance nearest the disc model's
+prediction, and eps_r is the root of the transverse-resonance equation of
+the layered cavity that gives the measured frequency ratio; tan delta
+follows from the loaded Q0, the disc's electric filling factor and the
+wall Q scaled from the empty Q0. The budget adds the fitted D and L and
+--sample-thickness-tol (the thickness's standard uncertainty).
+
 --plot writes the sweep with the resonances numbered (and their modes,
 when named); --fit-plots BASE.EXT
 writes one plot per resonance (BASE-1.EXT, BASE-2.EXT, ...): measured
@@ -146,11 +161,22 @@ replaced only with --force.`,
   # Measure a fill: the same cavity empty and completely filled with PTFE
   $ cylcav resonances testdata/measure/modes_filled.s2p --empty testdata/measure/modes.s2p --diameter 40mm --length 31mm --fill ptfe
   ...
-  Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
+  Mean over 8 modes (weighted): eps_r = 2.07999899 ± 0.00000090, tan delta = 3.85 ± 0.15 e-4 (uncertainty of the best mode: the wall-model term is common to all).
+
+  # Measure a 2 mm ceramic disc lying on one end plate of a TE01p test cavity
+  $ cylcav resonances testdata/measure/disc_loaded.s2p --empty testdata/measure/disc_empty.s2p --diameter 36mm --length 26mm --fill eps=9.5 --sample-thickness 2mm --sample-thickness-tol 10um
+  ...
+  Mean over 2 modes (weighted): eps_r = 9.900 ± 0.082, tan delta = 4.97 ± 0.19 e-4 (uncertainty of the best mode: the wall-model term is common to all).`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			if err := opts.parse(cmd, args, geo, walls, hint); err != nil {
 				return err
+			}
+			if sampleT > 0 {
+				opts.Disc = &measure.DiscSpec{Thickness: sampleT, ThicknessErr: sampleTErr, NominalEps: opts.Ident.Nominal.Fill.Eps()}
+				if !(sampleT < opts.Ident.Nominal.Length) {
+					return cmdutil.Usagef("--sample-thickness %s must be less than the cavity length %s", cmdutil.Text(cmd.Flags(), "sample-thickness"), cmdutil.Text(cmd.Flags(), "length"))
+				}
 			}
 			if runF != nil {
 				return runF(opts)
@@ -171,6 +197,10 @@ replaced only with --force.`,
 	})
 	walls = cmdutil.AddWallFlags(cmd)
 	f.StringVar(&opts.Empty, "empty", "", "sweep of the same cavity empty: the main sweep is then the cavity completely filled, and the fill is measured (needs --diameter, --length, --fill)")
+	cmdutil.LengthVar(f, &sampleT, "sample-thickness", "with --empty: the main sweep has a full-diameter dielectric disc of this thickness on one end plate, e.g. 2mm", cavity.MinSize, cavity.MaxSize)
+	cmdutil.LengthVar(f, &sampleTErr, "sample-thickness-tol", "standard uncertainty of --sample-thickness, e.g. 10um (default 0: left out of the budget)", 1e-9, cavity.MaxSize)
+	cmdutil.Needs(cmd, "sample-thickness", "empty")
+	cmdutil.Needs(cmd, "sample-thickness-tol", "sample-thickness")
 	f.StringVar(&hint, "mode-hint", "", "without the drawn size: the mode of one resonance, MODE@FREQ, e.g. TE011@10.36GHz")
 	f.BoolVar(&opts.Ident.FitFill, "fit-fill", false, "fit the fill's permittivity with D and L held, instead of D and L")
 	f.StringVar(&opts.Plot, "plot", "", "write the sweep with the fitted resonances to this file (.png, .svg, .pdf)")
@@ -316,18 +346,26 @@ func runResonances(opts *Options) error {
 		if wd, err = diagnose(opts, rsE, idE); err != nil {
 			return fmt.Errorf("%s: %w", opts.Empty, err)
 		}
-		nominalFill := opts.Ident.Nominal.Fill
-		opts.Ident.Nominal = idE.Cavity
-		opts.Ident.Nominal.Fill = nominalFill
-		opts.Ident.FitFill = true
-		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
-			return err
+		if opts.Disc != nil {
+			f, err := measure.MeasureDiscFill(rsE, *idE, rs, *opts.Disc)
+			if err != nil {
+				return fmt.Errorf("%s and %s: %w", opts.Empty, opts.File, err)
+			}
+			fill = &fillResult{empty: idE, Fill: f, disc: opts.Disc}
+		} else {
+			nominalFill := opts.Ident.Nominal.Fill
+			opts.Ident.Nominal = idE.Cavity
+			opts.Ident.Nominal.Fill = nominalFill
+			opts.Ident.FitFill = true
+			if id, err = identify(opts.File, rs, opts.Ident); err != nil {
+				return err
+			}
+			f, err := measure.MeasureFill(rsE, *idE, rs, *id)
+			if err != nil {
+				return fmt.Errorf("%s and %s: %w", opts.Empty, opts.File, err)
+			}
+			fill = &fillResult{empty: idE, Fill: f}
 		}
-		f, err := measure.MeasureFill(rsE, *idE, rs, *id)
-		if err != nil {
-			return fmt.Errorf("%s and %s: %w", opts.Empty, opts.File, err)
-		}
-		fill = &fillResult{empty: idE, Fill: f}
 	} else if opts.Identify {
 		if opts.Hint != nil {
 			if err := startFromHint(opts, rs); err != nil {
@@ -903,6 +941,7 @@ func identify(file string, rs []measure.Resonance, set measure.IdentifySettings)
 type fillResult struct {
 	empty *measure.Identification
 	measure.Fill
+	disc *measure.DiscSpec // nil for a complete fill
 }
 
 type fillModeJSON struct {
@@ -913,6 +952,8 @@ type fillModeJSON struct {
 	EpsRErr     number `json:"eps_r_err"`
 	TanDelta    number `json:"tan_delta"`
 	TanDeltaErr number `json:"tan_delta_err"`
+	// FillE is the sample's electric filling factor (1: complete fill).
+	FillE number `json:"electric_filling_factor"`
 }
 
 type fillJSON struct {
@@ -923,6 +964,8 @@ type fillJSON struct {
 	EmptyDM     number         `json:"empty_diameter_m"`
 	EmptyLM     number         `json:"empty_length_m"`
 	Modes       []fillModeJSON `json:"modes"`
+	// DiscThicknessM is the disc's thickness with --sample-thickness.
+	DiscThicknessM *number `json:"disc_thickness_m,omitempty"`
 }
 
 func (fr *fillResult) json() *fillJSON {
@@ -933,7 +976,12 @@ func (fr *fillResult) json() *fillJSON {
 		EmptyDM: number(fr.empty.Cavity.Diameter()), EmptyLM: number(fr.empty.Cavity.Length)}
 	for _, m := range fr.Modes {
 		o.Modes = append(o.Modes, fillModeJSON{Mode: m.Mode.String(), FEmptyHz: number(m.FEmpty), FFilledHz: number(m.FFilled),
-			EpsR: number(m.Result.EpsR), EpsRErr: number(m.Result.EpsRErr), TanDelta: number(m.Result.TanDelta), TanDeltaErr: number(m.Result.TanDeltaErr)})
+			EpsR: number(m.Result.EpsR), EpsRErr: number(m.Result.EpsRErr), TanDelta: number(m.Result.TanDelta), TanDeltaErr: number(m.Result.TanDeltaErr),
+			FillE: number(m.FillE)})
+	}
+	if fr.disc != nil {
+		t := number(fr.disc.Thickness)
+		o.DiscThicknessM = &t
 	}
 	return o
 }
@@ -969,6 +1017,15 @@ func writeFill(opts *Options, fr *fillResult) error {
 	}
 	if err := bt.Flush(); err != nil {
 		return err
+	}
+	if fr.disc != nil {
+		fmt.Fprintf(w, "Disc of thickness %s on one end plate, full diameter (TE0mp modes, transverse-resonance model); its electric filling factor:", physics.FormatLength(fr.disc.Thickness, 4))
+		for _, m := range fr.Modes {
+			fmt.Fprintf(w, " %v %.4f", m.Mode, m.FillE)
+		}
+		fmt.Fprintln(w, ".")
+		fmt.Fprintln(w, "The model needs the disc flat on the plate and touching the side wall all round; a gap at the rim lowers the apparent eps_r.")
+		return nil
 	}
 	fmt.Fprintln(w, "The method needs a complete fill: a gap between the sample and the walls lowers the apparent eps_r.")
 	return nil

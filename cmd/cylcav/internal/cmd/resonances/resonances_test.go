@@ -292,3 +292,70 @@ func TestFillJSON(t *testing.T) {
 		{Args: []string{sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm"}, Code: 2, Want: []string{"--fill"}},
 	})
 }
+
+// TestDiscJSON: the empty/loaded pair of gen_disc.py (a 2.00 mm disc of
+// eps_r 9.9, tan(delta) 5e-4 on one end plate of a 36 x 26 mm stainless
+// TE01p cavity; scipy's brentq on the transverse-resonance equation made
+// the loaded frequencies) is measured back. The fits' uncertainties count
+// noise only; the tail of the neighbouring resonance biases each loaded
+// f0 by about 1e-3 of its bandwidth, which moves eps_r by a few ppm:
+// discEpsTol allows for that.
+func TestDiscJSON(t *testing.T) {
+	const discEpsTol = 2e-5 // relative
+	r := clitest.Run(t, "resonances", sweep("disc_loaded.s2p"), "--empty", sweep("disc_empty.s2p"),
+		"--diameter", "36mm", "--length", "26mm", "--fill", "eps=9.5", "--sample-thickness", "2mm", "--format", "json")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Fill struct {
+			EpsR        float64 `json:"eps_r"`
+			TanDelta    float64 `json:"tan_delta"`
+			TanDeltaErr float64 `json:"tan_delta_err"`
+			Thickness   float64 `json:"disc_thickness_m"`
+			Modes       []struct {
+				Mode  string
+				FillE float64 `json:"electric_filling_factor"`
+			}
+		}
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	var truth struct {
+		Eps    float64 `json:"disc_eps_r"`
+		TanD   float64 `json:"disc_tan_delta"`
+		Loaded []struct {
+			Label string
+			FillE float64 `json:"fill_e"`
+		}
+	}
+	readJSON(t, "disc_truth.json", &truth)
+	f := out.Fill
+	if len(f.Modes) != len(truth.Loaded) || math.Abs(f.EpsR/truth.Eps-1) > discEpsTol || math.Abs(f.TanDelta-truth.TanD) > 4*f.TanDeltaErr || f.Thickness != 2e-3 {
+		t.Errorf("disc: eps_r %.8g, tan(delta) %.4g +- %.2g over %d modes, thickness %g m; want %g, %g, %d modes, 0.002 m",
+			f.EpsR, f.TanDelta, f.TanDeltaErr, len(f.Modes), f.Thickness, truth.Eps, truth.TanD, len(truth.Loaded))
+	}
+	for i, m := range f.Modes {
+		if i < len(truth.Loaded) && (m.Mode != truth.Loaded[i].Label || math.Abs(m.FillE-truth.Loaded[i].FillE) > 1e-4) {
+			t.Errorf("mode %d: %s with filling factor %.6f, want %s, %.6f (scipy quad)", i, m.Mode, m.FillE, truth.Loaded[i].Label, truth.Loaded[i].FillE)
+		}
+	}
+	clitest.CheckBadInput(t, "resonances", []clitest.BadCase{
+		{Args: []string{sweep("disc_loaded.s2p"), "--sample-thickness", "2mm"}, Code: 2, Want: []string{"--empty"}},
+		{Args: []string{sweep("disc_loaded.s2p"), "--empty", sweep("disc_empty.s2p"), "--diameter", "36mm", "--length", "26mm", "--fill", "eps=9.5", "--sample-thickness", "30mm"}, Code: 2, Want: []string{"--sample-thickness 30mm", "cavity length"}},
+		{Args: []string{sweep("disc_loaded.s2p"), "--empty", sweep("disc_empty.s2p"), "--diameter", "36mm", "--length", "26mm", "--fill", "eps=9.5", "--sample-thickness-tol", "5um"}, Code: 2, Want: []string{"--sample-thickness"}},
+	})
+}
+
+// readJSON reads testdata/measure/NAME into v.
+func readJSON(t *testing.T, name string, v any) {
+	t.Helper()
+	b, err := os.ReadFile(sweep(name))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := json.Unmarshal(b, v); err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+}

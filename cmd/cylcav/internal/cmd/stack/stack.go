@@ -64,6 +64,12 @@ type Options struct {
 	// Extrapolate (--extrapolate) adds each resonance extrapolated to
 	// infinitely many modes (axisym.Extrapolate) with its error estimate.
 	Extrapolate bool
+	// Bulb (--bulb-diameter, --bulb-length, --bulb-centre) adds the
+	// filling factors of a storage bulb on the axis (see bulb.go).
+	Bulb BulbOptions
+	// Beam (--bunch-freq, --harmonic-window) gives every resonance its
+	// nearest beam harmonic (see beam.go).
+	Beam BeamOptions
 }
 
 // Flag limits: a particle slower than minBeta c gains no meaningful energy
@@ -163,7 +169,20 @@ cells joined by an iris: the output adds their coupling coefficient
 k = (fh^2 - fl^2)/(fh^2 + fl^2) and its change when the modes grew by
 half (table and JSON; with CSV it is refused). Which two resonances form
 the pair is for you to say: they are the two that continue from one mode
-of each cell; they must be neighbours in one family.`,
+of each cell; they must be neighbours in one family.
+
+--bulb-diameter D --bulb-length L (optionally --bulb-centre Z, the
+distance of the bulb's centre from the first end plate; default half-way)
+add the filling factors of a storage bulb on the axis to every resonance:
+the fractions of the mode's magnetic energy along z, of all its magnetic
+energy and of its electric energy inside the bulb, and the maser filling
+factor eta', from the matched fields (a dielectric-loaded can included).
+The bulb must lie in free space of circular sections.
+
+--bunch-freq F gives every resonance its nearest beam harmonic and flags
+it NEAR within --harmonic-window (default 0.5 %%) of one. With --beta or
+--bunch-freq the output says that dipole (n = 1) modes and their
+transverse R/Q are not solved for stacked bodies.`,
 			strings.Join(topKeys, ", "), strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
@@ -186,7 +205,11 @@ of each cell; they must be neighbours in one family.`,
   ...
 
   # A dielectric disc on the end plate of a copper can, TE0 only, with Q0, as CSV
-  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --wall copper --format csv`,
+  $ cylcav stack examples/disc-in-can.yaml --fmax 15GHz --family te --wall copper --format csv
+
+  # The filling factors of a maser's storage bulb in a disc-loaded can
+  $ cylcav stack examples/loaded-maser.yaml --fmax 12GHz --family te --bulb-diameter 20mm --bulb-length 12mm
+  ...`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if len(args) != 1 {
 				return cmdutil.Usagef("give one geometry file (e.g. cylcav stack examples/iris-pair.yaml --fmax 12GHz), got %d arguments", len(args))
@@ -239,6 +262,9 @@ of each cell; they must be neighbours in one family.`,
 			if opts.Geometry, err = ParseGeometry(opts.File, data); err != nil {
 				return &cmdutil.UsageError{Err: err}
 			}
+			if err := checkBulb(opts.Bulb, opts.Geometry.Body); err != nil {
+				return err
+			}
 			if opts.Geometry.Walls != nil {
 				if opts.Walls != nil {
 					return cmdutil.Usagef("%s gives walls and so does --wall: give the metals in one place", opts.File)
@@ -264,6 +290,8 @@ of each cell; they must be neighbours in one family.`,
 	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
 	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
+	addBulbFlags(cmd, &opts.Bulb)
+	addBeamFlags(cmd, &opts.Beam)
 	walls = cmdutil.AddWallFlags(cmd)
 	checkFormat = cmdutil.FormatFlag(cmd, &opts.Format)
 	return cmd
@@ -309,6 +337,10 @@ type Row struct {
 	FExtrapolatedHz      *float64 `json:"f_extrapolated_hz,omitempty"`
 	ExtrapolationErrorHz *float64 `json:"extrapolation_error_hz,omitempty"`
 	ExtrapolationOrder   *float64 `json:"extrapolation_order,omitempty"`
+	// With --bulb-diameter: the bulb's filling factors.
+	Bulb *BulbRow `json:"bulb,omitempty"`
+	// With --bunch-freq: the nearest beam harmonic.
+	Harmonic *HarmonicRow `json:"harmonic,omitempty"`
 }
 
 // PairRow is the coupling coefficient of the pair named by --pair.
@@ -352,7 +384,7 @@ func pairRow(opts *Options, res []axisym.Resonance) (*PairRow, error) {
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
 		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
-		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "",
+		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "" || opts.Bulb.Diameter > 0,
 	})
 	if err != nil {
 		if errors.Is(err, axisym.ErrNotImplemented) {
@@ -381,6 +413,16 @@ func runStack(opts *Options) error {
 		if opts.Beta > 0 && r.Loss != nil && len(r.Loss.Axis) > 0 {
 			if a, err := r.Loss.Accelerating(opts.Beta); err == nil {
 				row.T, row.RoverQLinac, row.RoverQCircuit = &a.T, &a.RoverQLinac, &a.RoverQCircuit
+			}
+		}
+		if opts.Bulb.Diameter > 0 {
+			if row.Bulb, err = bulbRow(opts.Bulb, opts.Geometry.Body, r); err != nil {
+				return err
+			}
+		}
+		if opts.Beam.Bunch > 0 {
+			if row.Harmonic, err = harmonicRow(opts.Beam, r); err != nil {
+				return err
 			}
 		}
 		if opts.Geometry.Body.Open() {
@@ -431,9 +473,10 @@ func runStack(opts *Options) error {
 			Cutoff     *cutoffJSON `json:"pipe_cutoff,omitempty"`
 			Resonances []Row       `json:"resonances"`
 			Coupling   *PairRow    `json:"coupling,omitempty"`
+			Dipoles    string      `json:"dipoles,omitempty"`
 		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
 			opts.Geometry.Body.MaxRadius(), opts.FMax, opts.Geometry.Body.EndA.String(), opts.Geometry.Body.EndB.String(),
-			cutoffs(opts.Geometry.Body, opts.Families), rows, pr})
+			cutoffs(opts.Geometry.Body, opts.Families), rows, pr, dipolesJSON(opts)})
 	case cmdutil.CSV:
 		open := opts.Geometry.Body.Open()
 		var out [][]string
@@ -453,6 +496,12 @@ func runStack(opts *Options) error {
 			if opts.Extrapolate {
 				cells = append(cells, csvQ(r.FExtrapolatedHz), csvQ(r.ExtrapolationErrorHz), csvQ(r.ExtrapolationOrder))
 			}
+			if opts.Bulb.Diameter > 0 {
+				cells = append(cells, bulbCells(r.Bulb)...)
+			}
+			if opts.Beam.Bunch > 0 {
+				cells = append(cells, harmonicCells(r.Harmonic)...)
+			}
 			if open {
 				cells = append(cells, r.Status, csvQ(r.FImagHz), csvQ(r.QExt), csvQ(r.QExtChange))
 			}
@@ -467,6 +516,12 @@ func runStack(opts *Options) error {
 		}
 		if opts.Extrapolate {
 			header = append(header, "f_extrapolated_hz", "extrapolation_error_hz", "extrapolation_order")
+		}
+		if opts.Bulb.Diameter > 0 {
+			header = append(header, bulbHeader...)
+		}
+		if opts.Beam.Bunch > 0 {
+			header = append(header, harmonicHeader...)
 		}
 		if open {
 			header = append(header, "status", "f_imag_hz", "q_ext", "q_ext_change")
@@ -517,6 +572,12 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Extrapolate {
 		header = append(header, "f extrapolated", "error")
 	}
+	if opts.Bulb.Diameter > 0 {
+		header = append(header, "bulb Hz^2", "H^2", "E^2", "eta'")
+	}
+	if opts.Beam.Bunch > 0 {
+		header = append(header, "beam harmonic")
+	}
 	if b.Open() {
 		header = append(header, "end", "Qext")
 	}
@@ -560,6 +621,12 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 					physics.FormatFrequency(*r.ExtrapolationErrorHz, 2))
 			}
 		}
+		if opts.Bulb.Diameter > 0 {
+			cells = append(cells, bulbText(r.Bulb)...)
+		}
+		if opts.Beam.Bunch > 0 {
+			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch))
+		}
 		if b.Open() {
 			cells = append(cells, r.Status, qextText(r.QExt, r.QExtChange))
 		}
@@ -571,6 +638,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Extrapolate {
 		fmt.Fprintln(w, "f extrapolated: Richardson's rule on N, 2N and 4N modes per section, the order fitted; error: its")
 		fmt.Fprintln(w, "distance from the order-2 extrapolation (irregular: the three models did not converge regularly)")
+	}
+	if opts.Bulb.Diameter > 0 {
+		writeBulbNote(w, opts.Bulb, b)
 	}
 	if pr != nil {
 		change := "unknown"
@@ -588,6 +658,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 		}
 		fmt.Fprintln(w, "caution: cells driven at high RF power carry high voltages and heat their walls; these are design")
 		fmt.Fprintln(w, "estimates: follow local codes and licensed practice")
+	}
+	if opts.Beta > 0 || opts.Beam.Bunch > 0 {
+		writeBeamNote(w, opts.Beam)
 	}
 	if opts.Walls != nil {
 		if opts.Geometry.Walls != nil {

@@ -1,0 +1,102 @@
+package stack
+
+import (
+	"fmt"
+	"io"
+
+	"github.com/spf13/cobra"
+
+	"cylcav/axisym"
+	"cylcav/cmd/cylcav/internal/cmdutil"
+	"cylcav/physics"
+	"cylcav/qfactor"
+)
+
+// BeamOptions are the beam-harmonic flags of `cylcav stack`: Bunch is the
+// bunch repetition frequency (Hz, 0: none) and Window the half-width of the
+// band flagged around each harmonic (fraction; 0: the default).
+type BeamOptions struct {
+	Bunch, Window float64
+}
+
+// HarmonicRow is a resonance's nearest beam harmonic (qfactor.BeamHarmonic).
+type HarmonicRow struct {
+	Harmonic int     `json:"beam_harmonic"`
+	OffsetHz float64 `json:"harmonic_offset_hz"`
+	Near     bool    `json:"near_harmonic"`
+}
+
+// dipoleNote says what the stacked-body solver does not give an
+// accelerator user: printed (and in JSON) with --beta or --bunch-freq, so
+// that the absence of dipoles is stated, not silent.
+const dipoleNote = "dipole (n = 1) modes and their transverse R/Q are not solved for stacked bodies (the solver handles n = 0 only); " +
+	"use 'cylcav design --hom-max' for the closed pillbox or a 3-D field solver"
+
+// addBeamFlags registers --bunch-freq and --harmonic-window.
+func addBeamFlags(cmd *cobra.Command, b *BeamOptions) {
+	fl := cmd.Flags()
+	cmdutil.FrequencyVar(fl, &b.Bunch, "bunch-freq", "bunch repetition frequency: give every resonance its nearest beam harmonic and flag those near one, e.g. 650MHz", cmdutil.MinFrequency, cmdutil.MaxFrequency)
+	cmdutil.FractionVar(fl, &b.Window, "harmonic-window", "half-width of the band flagged around each beam harmonic, e.g. 0.5% (default 0.5 %)", 1e-6, 0.1)
+	cmdutil.Needs(cmd, "harmonic-window", "bunch-freq")
+}
+
+// harmonicRow returns the nearest beam harmonic of resonance r.
+func harmonicRow(b BeamOptions, r axisym.Resonance) (*HarmonicRow, error) {
+	h, off, near, err := qfactor.BeamHarmonic(r.Frequency, b.Bunch, b.Window)
+	if err != nil {
+		return nil, err
+	}
+	return &HarmonicRow{Harmonic: h, OffsetHz: off, Near: near}, nil
+}
+
+// harmonicText is the table cell of a resonance's beam harmonic.
+func harmonicText(r *HarmonicRow, bunch float64) string {
+	if r == nil {
+		return "-"
+	}
+	s := fmt.Sprintf("%d x %s, %s", r.Harmonic, cmdutil.TrimZeros(physics.FormatFrequency(bunch, 6)), signedHz(r.OffsetHz))
+	if r.Near {
+		s = "NEAR " + s
+	}
+	return s
+}
+
+func signedHz(x float64) string {
+	if x >= 0 {
+		return "+" + physics.FormatFrequency(x, 4)
+	}
+	return "-" + physics.FormatFrequency(-x, 4)
+}
+
+// writeBeamNote explains the harmonic column and states the missing dipoles.
+func writeBeamNote(w io.Writer, b BeamOptions) {
+	if b.Bunch > 0 {
+		win := b.Window
+		if win == 0 {
+			win = qfactor.DefaultHarmonicWindow
+		}
+		fmt.Fprintf(w, "beam harmonic: nearest harmonic of the %s bunch frequency; NEAR within %.3g %% of the resonance frequency\n",
+			cmdutil.TrimZeros(physics.FormatFrequency(b.Bunch, 6)), 100*win)
+		fmt.Fprintln(w, "(our default window, not a standard); a NEAR TM0 resonance with R/Q can be driven by the beam: damp or move it")
+	}
+	fmt.Fprintln(w, "note: "+dipoleNote)
+}
+
+// harmonicHeader and harmonicCells are the CSV columns of the beam harmonic.
+var harmonicHeader = []string{"beam_harmonic", "harmonic_offset_hz", "near_harmonic"}
+
+func harmonicCells(r *HarmonicRow) []string {
+	if r == nil {
+		return []string{"", "", ""}
+	}
+	return []string{fmt.Sprint(r.Harmonic), fmt.Sprint(r.OffsetHz), fmt.Sprint(r.Near)}
+}
+
+// dipolesJSON is the JSON statement on dipoles, given with the accelerator
+// flags.
+func dipolesJSON(opts *Options) string {
+	if opts.Beta > 0 || opts.Beam.Bunch > 0 {
+		return dipoleNote
+	}
+	return ""
+}

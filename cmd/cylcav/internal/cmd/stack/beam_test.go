@@ -1,0 +1,64 @@
+package stack_test
+
+import (
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"cylcav/cmd/cylcav/internal/clitest"
+	"cylcav/cmd/cylcav/internal/cmd/stack"
+)
+
+// TestBeamHarmonics checks --bunch-freq on a closed cylinder of radius
+// 20 mm and length 30 mm: TM010 at c j_01/(2 pi a) = 5.7378 GHz (j_01 =
+// 2.404825557695773, A&S Table 9.5) lies on the third harmonic of a
+// 1912.6 MHz bunch train (flagged), and for a 1.5 GHz train its nearest
+// harmonic is h = 4 (5.7378/1.5 = 3.83), 262 MHz away (not flagged). The
+// statement that dipoles are not solved is in the JSON and the table.
+func TestBeamHarmonics(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "can.yaml")
+	if err := os.WriteFile(file, []byte("sections:\n  - length: 30mm\n    radius: 20mm\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	f010 := 299792458 * 2.404825557695773 / (2 * math.Pi * 0.02)
+	for _, tc := range []struct {
+		bunch string
+		h     int
+		off   float64
+		near  bool
+	}{
+		{"1912.6MHz", 3, f010 - 3*1912.6e6, true},
+		{"1.5GHz", 4, f010 - 6e9, false},
+	} {
+		r := clitest.Run(t, "stack", file, "--fmax", "6GHz", "--family", "tm", "--bunch-freq", tc.bunch, "--format", "json")
+		if r.Code != 0 {
+			t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+		}
+		var out struct {
+			Resonances []stack.Row `json:"resonances"`
+			Dipoles    string      `json:"dipoles"`
+		}
+		if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+			t.Fatal(err)
+		}
+		if len(out.Resonances) != 1 || out.Resonances[0].Harmonic == nil {
+			t.Fatalf("--bunch-freq %s: %d resonances, want TM010 with its harmonic", tc.bunch, len(out.Resonances))
+		}
+		h := out.Resonances[0].Harmonic
+		if h.Harmonic != tc.h || math.Abs(h.OffsetHz-tc.off) > 1e-6*f010 || h.Near != tc.near {
+			t.Errorf("--bunch-freq %s: %+v, want harmonic %d, offset %g Hz, near %v", tc.bunch, *h, tc.h, tc.off, tc.near)
+		}
+		if !strings.Contains(out.Dipoles, "not solved") {
+			t.Errorf("--bunch-freq %s: JSON dipoles %q, want the statement that n = 1 is not solved", tc.bunch, out.Dipoles)
+		}
+	}
+	// The table says so too, with --beta alone.
+	r := clitest.Run(t, "stack", file, "--fmax", "6GHz", "--beta", "1")
+	if r.Code != 0 || !strings.Contains(r.Stdout, "dipole (n = 1) modes") {
+		t.Errorf("--beta 1: exit %d, no dipole note in\n%s", r.Code, r.Stdout)
+	}
+}
