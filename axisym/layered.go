@@ -123,6 +123,7 @@ type layeredGuide struct {
 	inner, outer float64
 	radii, eps   []float64
 	n            int     // modes kept
+	onlyProp     bool    // find only the propagating modes (a section without junctions needs only its poles)
 	k0           float64 // frequency of the cached modes (wavenumber, rad/m)
 	modes        []lmode
 }
@@ -143,11 +144,11 @@ const (
 // piece is a mode's function on lo < r < hi: f = a F1 + b F2 of the kind,
 // and the transverse fields e = cE f, h = cH f.
 type piece struct {
-	lo, hi  float64
-	kind    int
-	k, p2   float64 // k (or s) and the signed square kc^2
-	a, b    float64
-	cE, cH  float64
+	lo, hi float64
+	kind   int
+	k, p2  float64 // k (or s) and the signed square kc^2
+	a, b   float64
+	cE, cH float64
 }
 
 // fg returns f(r) and G(r) = (1/r) d(r f)/dr (DLMF 10.6.2 and 10.29.2:
@@ -227,11 +228,14 @@ func (lg *layeredGuide) shoot(k0, beta2 float64, keep bool) (count int, end floa
 			default:
 				a = 0.5
 			}
-		} else {
-			f1, g1, f2, g2 := basis(kind, k, lo)
-			det := f1*g2 - f2*g1
-			a = (u*g2 - f2*w) / det
-			b = (f1*w - g1*u) / det
+		}
+		var f1lo, f2lo float64
+		if lo > 0 {
+			var g1, g2 float64
+			f1lo, g1, f2lo, g2 = basis(kind, k, lo)
+			det := f1lo*g2 - f2lo*g1
+			a = (u*g2 - f2lo*w) / det
+			b = (f1lo*w - g1*u) / det
 		}
 		f1, g1, f2, g2 := basis(kind, k, hi)
 		un, wn := a*f1+b*f2, a*g1+b*g2
@@ -242,12 +246,12 @@ func (lg *layeredGuide) shoot(k0, beta2 float64, keep bool) (count int, end floa
 			if lo == 0 {
 				c1 = (-math.Pi/2 - alpha - math.Pi/2) / math.Pi
 			} else {
-				c1 = (besselPhase(k*lo) - alpha - math.Pi/2) / math.Pi
+				c1 = (besselPhase(k*lo, f1lo, f2lo) - alpha - math.Pi/2) / math.Pi
 				if u == 0 {
 					c1 = math.Round(c1) // a zero at lo itself is not inside
 				}
 			}
-			c2 := (besselPhase(k*hi) - alpha - math.Pi/2) / math.Pi
+			c2 := (besselPhase(k*hi, f1, f2) - alpha - math.Pi/2) / math.Pi
 			zeros += int(math.Floor(c2) - math.Floor(c1))
 		default:
 			s0 := math.Copysign(1, a) // sign just off the axis
@@ -277,9 +281,10 @@ func (lg *layeredGuide) shoot(k0, beta2 float64, keep bool) (count int, end floa
 
 // besselPhase returns the continuous phase theta_1(x) of J1 + i Y1 (DLMF
 // 10.18.3), from atan2 and the large-argument form x - 3 pi/4 (DLMF
-// 10.18.18), which stays within pi/4 of it for every x > 0.
-func besselPhase(x float64) float64 {
-	t := math.Atan2(math.Y1(x), math.J1(x))
+// 10.18.18), which stays within pi/4 of it for every x > 0; j1 and y1 are
+// J1(x) and Y1(x).
+func besselPhase(x, j1, y1 float64) float64 {
+	t := math.Atan2(y1, j1)
 	return t + 2*math.Pi*math.Round((x-0.75*math.Pi-t)/(2*math.Pi))
 }
 
@@ -305,6 +310,12 @@ func (lg *layeredGuide) at(k0 float64) {
 	chi, ehi, _ := lg.shoot(k0, hi, false)
 	_, elo, _ := lg.shoot(k0, lo, false)
 	lg.modes = lg.modes[:0]
+	n := lg.n
+	if lg.onlyProp {
+		c0, _, _ := lg.shoot(k0, 0, false)
+		lg.n = min(n, c0)
+		defer func() { lg.n = n }()
+	}
 	lg.isolate(bpoint{lo, clo, elo}, bpoint{hi, chi, ehi}, scale)
 	// isolate appends from high beta2 down; order by mode index.
 	for i, m := range lg.modes {

@@ -31,6 +31,7 @@ func (s *system) initLayers(b Body, guides []guide) {
 		ls.any = true
 		n := len(s.lines[i].kc)
 		ls.guides[i] = newLayeredGuide(s.fam, sec, n)
+		ls.guides[i].onlyProp = len(b.Sections) == 1
 		// The layered normalisation makes the modal admittances those of
 		// lineSusceptance with eps = mu = 1 (see layeredGuide).
 		s.lines[i].eps, s.lines[i].mu = 1, 1

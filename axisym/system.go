@@ -25,7 +25,7 @@ type system struct {
 	lines  []lines
 	joins  []join
 	ndof   int
-	offset int // see count
+	offset int        // see count
 	layers layerState // radially layered sections (layered_system.go)
 }
 
