@@ -104,10 +104,17 @@ The geometry file is YAML:
     - length: 2mm
       radius: 4mm
       start: 20mm                 # optional check: z of the left face
+    - length: 5mm                 # radial layers instead of fill:
+      radius: 15mm
+      layers:                     # innermost first, the last at the radius
+        - {radius: 6mm, fill: eps=38}
+        - {radius: 15mm}          # fill: vacuum when not given
 
 Keys per section: %s. inner_radius > 0 makes a
 coaxial section (a post or inner conductor); at each junction one
-cross-section must lie inside the other. Not solved yet (an error says
+cross-section must lie inside the other. A section with layers (n = 0
+only; isotropic, non-magnetic layers) gives frequencies but not yet Q0
+or field maps. Not solved yet (an error says
 so): other junctions and n >= 1. A body with a
 coaxial section has no "continues from" label.
 
