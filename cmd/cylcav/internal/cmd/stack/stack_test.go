@@ -97,6 +97,11 @@ func TestBadInput(t *testing.T) {
 		{"dup.yaml", "sections:\n  - length: 3mm\n    length: 4mm\n    radius: 2mm\n", []string{"dup.yaml:3", "given twice"}},
 		{"missing.yaml", "sections:\n  - length: 3mm\n", []string{"missing.yaml:2", "sections[1].radius", "missing"}},
 		{"yaml.yaml", "sections: [\n", []string{"yaml.yaml:", "not valid YAML"}},
+		{"layerkey.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fil: eps=38}\n", []string{"layerkey.yaml:5", "sections[1].layers[1].fil", "unknown key"}},
+		{"layerlast.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: eps=38}\n      - {radius: 11mm}\n", []string{"layerlast.yaml:2", "layer 2", "section radius"}},
+		{"layerorder.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm}\n      - {radius: 5mm}\n      - {radius: 12mm}\n", []string{"layerorder.yaml:2", "layer 2", "above the previous layer"}},
+		{"layermat.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: unobtainium}\n      - {radius: 12mm}\n", []string{"layermat.yaml:5", "layers[1].fill", "unknown dielectric"}},
+		{"layerradius.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {fill: eps=3}\n", []string{"layerradius.yaml:5", "layers[1].radius", "missing"}},
 		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n  - length: 30mm\n    radius: 25mm\n    inner_radius: 8mm\n", []string{"coax.yaml", "sections 1 and 2", "not implemented"}},
 	}
 	var bad []clitest.BadCase
