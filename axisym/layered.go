@@ -3,6 +3,7 @@ package axisym
 import (
 	"fmt"
 	"math"
+	"sync"
 
 	"cylcav/cavity"
 	"cylcav/physics"
@@ -441,7 +442,6 @@ func homogeneousPieces(g guide, m int) []piece {
 func pieceIntegral(f, g piece, lo, hi float64) float64 {
 	same := f == g
 	d := f.p2 - g.p2
-	big := max(math.Abs(f.p2), math.Abs(g.p2))
 	switch {
 	case same && math.Abs(f.p2)*hi*hi >= 1e-2 && f.kind != kindPow:
 		F := func(r float64) float64 {
@@ -452,7 +452,7 @@ func pieceIntegral(f, g piece, lo, hi float64) float64 {
 			return (sq(r*w-u) + (f.p2*r*r-1)*u*u) / (2 * f.p2)
 		}
 		return F(hi) - F(lo)
-	case !same && math.Abs(d) > 1e-3*big && math.Abs(d)*hi*hi > 1e-2:
+	case !same && lommelOK(f, g, hi):
 		F := func(r float64) float64 {
 			if r == 0 {
 				return 0
@@ -477,13 +477,18 @@ func pieceIntegral(f, g piece, lo, hi float64) float64 {
 	return s * half
 }
 
-var glCache = map[int][2][]float64{}
+var (
+	glMu    sync.Mutex
+	glCache = map[int][2][]float64{}
+)
 
 // gaussLegendre returns the n nodes and weights of Gauss-Legendre
 // quadrature on [-1, 1], by Newton's method on the three-term recurrence of
 // the Legendre polynomials (DLMF 3.5(v), 18.9.1; Press et al., Numerical
 // Recipes, 3rd ed., sec. 4.6).
 func gaussLegendre(n int) (x, w []float64) {
+	glMu.Lock()
+	defer glMu.Unlock()
 	if c, ok := glCache[n]; ok {
 		return c[0], c[1]
 	}
@@ -547,11 +552,37 @@ func overlap(w, g [][]piece, inner, outer float64) []float64 {
 			continue
 		}
 		mid := 0.5 * (lo + hi)
+		// Values at the interval's ends, once per mode, for Lommel's form.
+		type ends struct {
+			p                  piece
+			flo, glo, fhi, ghi float64
+		}
+		at := func(ps []piece) ends {
+			p := find(ps, mid)
+			e := ends{p: p}
+			if lo > 0 {
+				e.flo, e.glo = p.fg(lo)
+			}
+			e.fhi, e.ghi = p.fg(hi)
+			return e
+		}
+		gs := make([]ends, ng)
+		for j := range g {
+			gs[j] = at(g[j])
+		}
 		for i := range w {
-			pw := find(w[i], mid)
+			ew := at(w[i])
+			pw := ew.p
 			for j := range g {
-				pg := find(g[j], mid)
-				m[i*ng+j] += 2 * math.Pi * pw.cH * pg.cE * pieceIntegral(pw, pg, lo, hi)
+				eg := gs[j]
+				pg := eg.p
+				var v float64
+				if d := pw.p2 - pg.p2; lommelOK(pw, pg, hi) {
+					v = (hi*(ew.fhi*eg.ghi-ew.ghi*eg.fhi) - lo*(ew.flo*eg.glo-ew.glo*eg.flo)) / d
+				} else {
+					v = pieceIntegral(pw, pg, lo, hi)
+				}
+				m[i*ng+j] += 2 * math.Pi * pw.cH * pg.cE * v
 			}
 		}
 	}
@@ -564,4 +595,15 @@ func sortFloats(a []float64) {
 			a[j], a[j-1] = a[j-1], a[j]
 		}
 	}
+}
+
+// lommelOK reports whether Lommel's closed form for two different
+// functions is well conditioned on an interval reaching out to hi (the
+// difference of kc^2 not small against either, nor against 1/hi^2).
+func lommelOK(f, g piece, hi float64) bool {
+	if f == g {
+		return false
+	}
+	d := math.Abs(f.p2 - g.p2)
+	return d > 1e-3*max(math.Abs(f.p2), math.Abs(g.p2)) && d*hi*hi > 1e-2
 }

@@ -223,3 +223,15 @@ func detSign(a []float64, n int) float64 {
 	_, sign := lu.LogDet()
 	return sign
 }
+
+// BenchmarkPuckFiveTE0 solves the five lowest TE0 resonances of puckBody
+// (DefaultModes, two models for the convergence estimate).
+func BenchmarkPuckFiveTE0(b *testing.B) {
+	body := puckBody()
+	for i := 0; i < b.N; i++ {
+		res, err := Solve(body, Request{MaxFrequency: 11.7e9, Families: []cavity.Family{cavity.TE}})
+		if err != nil || len(res) != 5 {
+			b.Fatal(len(res), err)
+		}
+	}
+}
