@@ -34,6 +34,11 @@ func TestExamples(t *testing.T) {
 			t.Errorf("examples/%s.yaml: exit %d, %s", f, r.Code, r.Stderr)
 		}
 	}
+	// The layered puck: its TE01-delta-like resonance (axisym's
+	// TestPuckFiniteDifference checks the value).
+	if r := clitest.Run(t, "stack", "examples/puck-in-can.yaml", "--fmax", "5GHz"); r.Code != 0 || !strings.Contains(r.Stdout, "4.5150718") {
+		t.Errorf("examples/puck-in-can.yaml: exit %d, %s%s", r.Code, r.Stdout, r.Stderr)
+	}
 }
 
 // TestOneSectionJSON checks the command end to end on a closed cylinder:
