@@ -360,7 +360,9 @@ func (lg *layeredGuide) refine(lo, hi bpoint, scale float64) float64 {
 	side, stall := 0, 0
 	for range 200 {
 		w := hi.x - lo.x
-		if w <= 2e-16*scale {
+		// Stop at a few units in the last place of beta^2 itself (for the
+		// highest modes far below scale's reach).
+		if w <= max(2e-16*scale, 4e-16*max(math.Abs(lo.x), math.Abs(hi.x))) {
 			break
 		}
 		x := 0.5 * (lo.x + hi.x)
