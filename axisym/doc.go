@@ -91,7 +91,7 @@
 // (examples/puck-in-can.yaml) meets a finite-difference solution with
 // varying permittivity, extrapolated to zero step, to 9e-8 (its stated
 // accuracy 7e-7); its change when the modes grow by half is 2e-8. Speed:
-// the five lowest TE0 resonances of that puck take about 3.5 s
+// the five lowest TE0 resonances of that puck take about 0.9 s
 // (BenchmarkPuckFiveTE0), almost all in finding the layered modes afresh
 // at each frequency.
 //
