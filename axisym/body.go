@@ -16,12 +16,17 @@ type Section struct {
 	// Radius is the outer (metal wall) radius.
 	Radius float64
 	// InnerRadius is the radius of a coaxial inner conductor; zero means a
-	// circular section with no inner conductor. Coaxial sections pass
-	// Validate but Solve does not handle them yet (it says so).
+	// circular section with no inner conductor. A junction between two
+	// coaxial sections where neither cross-section lies inside the other
+	// is refused by Solve (ErrNotImplemented).
 	InnerRadius float64
 	// Fill is the homogeneous medium filling the section; the zero value is
-	// vacuum.
+	// vacuum. It must be left zero when Layers is set.
 	Fill physics.Medium
+	// Layers, when not empty, fills the section with radial layers instead
+	// of Fill, innermost first, the last reaching out to Radius (see
+	// Layer; layered.go).
+	Layers []Layer
 }
 
 // Body is an axisymmetric cavity: sections stacked along z in order, the
@@ -77,7 +82,7 @@ func (s Section) validate() error {
 	if err := s.Fill.Validate(); err != nil {
 		return fmt.Errorf("fill: %w", err)
 	}
-	return nil
+	return s.validateLayers()
 }
 
 // Length returns the total length of the body along z.

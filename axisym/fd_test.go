@@ -25,7 +25,12 @@ import (
 // The lowest eigenvalue comes from inverse iteration with a banded
 // Cholesky factor of A (Golub and Van Loan, Matrix Computations, 4th ed.,
 // sec. 4.3.5 and 8.2.2) and the Rayleigh quotient.
-func fdTE0(secs []Section, h float64) float64 {
+func fdTE0(secs []Section, h float64) float64 { return fdTE0Eps(secs, h, nil) }
+
+// fdTE0Eps is fdTE0 with a relative permittivity eps(r, z) (nil: vacuum):
+// the mass matrix becomes diag(r eps), eps at each node the mean of the
+// four grid cells around it (a finite-volume lumping; derived).
+func fdTE0Eps(secs []Section, h float64, eps func(r, z float64) float64) float64 {
 	var nz int
 	var lo, hi []float64 // inner and outer radius of the field region at z_j
 	for si, s := range secs {
@@ -75,6 +80,10 @@ func fdTE0(secs []Section, h float64) float64 {
 			r := float64(i) * h
 			rp, rm := r+h/2, r-h/2
 			rw[p] = r
+			if eps != nil {
+				z := float64(j) * h
+				rw[p] *= (eps(r-h/2, z-h/2) + eps(r+h/2, z-h/2) + eps(r-h/2, z+h/2) + eps(r+h/2, z+h/2)) / 4
+			}
 			band[p*(w+1)] = (rp+rm)/(h*h) + 1/r + 2*r/(h*h)
 			if q := at(i-1, j); q >= 0 {
 				band[p*(w+1)+p-q] = -rm / (h * h)

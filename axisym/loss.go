@@ -317,6 +317,9 @@ const poleTol = 1e-7
 // matrix gives the aperture voltages, and each modal line's voltage and
 // current follow along its section (see lineField).
 func (s *system) losses(b Body, f float64) (Loss, error) {
+	if err := s.layers.lossErr(); err != nil {
+		return Loss{}, err
+	}
 	omega := 2 * math.Pi * f
 	n := s.ndof
 	var v []float64

@@ -45,6 +45,15 @@ func (b Body) validateEnds() error {
 			return fmt.Errorf("axisym: %s must be a plate or a pipe, got %v", e.name, e.e)
 		}
 	}
+	if b.Open() {
+		// The pipe's cutoff, the trapped count and the complex port
+		// frequencies all assume homogeneous sections.
+		for i, s := range b.Sections {
+			if len(s.Layers) > 0 {
+				return fmt.Errorf("axisym: section %d: radial layers in a body with an open end (pipe): %w (close both ends with plates)", i+1, ErrNotImplemented)
+			}
+		}
+	}
 	return nil
 }
 

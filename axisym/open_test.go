@@ -1,6 +1,7 @@
 package axisym
 
 import (
+	"errors"
 	"math"
 	"testing"
 
@@ -199,4 +200,25 @@ func TestCoaxialPipeTraps(t *testing.T) {
 		}
 	}
 	t.Logf("%d TE0 resonances trapped below %g Hz", len(r), b.Cutoff(cavity.TE))
+}
+
+// TestLayersRefusedWithOpenEnd checks that a layered section in a body with
+// a pipe end is refused (the cutoff and the trapped count assume
+// homogeneous sections) rather than solved with the wrong pipe.
+func TestLayersRefusedWithOpenEnd(t *testing.T) {
+	layered := Section{Length: 0.005, Radius: 0.012, Layers: []Layer{
+		{Radius: 0.006, Medium: physics.Medium{EpsR: 38}},
+		{Radius: 0.012},
+	}}
+	closed := Body{Sections: []Section{{Length: 0.01, Radius: 0.012}, layered}}
+	if err := closed.Validate(); err != nil {
+		t.Fatalf("closed layered body: %v", err)
+	}
+	for _, ends := range [][2]End{{Pipe, Plate}, {Plate, Pipe}} {
+		b := closed
+		b.EndA, b.EndB = ends[0], ends[1]
+		if err := b.Validate(); !errors.Is(err, ErrNotImplemented) {
+			t.Errorf("ends %v: got %v, want ErrNotImplemented", ends, err)
+		}
+	}
 }

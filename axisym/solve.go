@@ -217,7 +217,7 @@ func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, erro
 		// cross-product roots of a coaxial guide of width w near m pi/w
 		// (DLMF 10.21.49, as recalled), so fewer than k w/pi + 2 of them
 		// lie below k (plus the TEM mode).
-		k := 2 * math.Pi * fmax / physics.SpeedOfLight * s.Fill.Index()
+		k := 2 * math.Pi * fmax / physics.SpeedOfLight * s.maxIndex()
 		guess := int(k*w/math.Pi) + 3
 		if guess > MaxModes {
 			return nil, fmt.Errorf("axisym: section %d propagates about %d modes at %g Hz, more than the %d the solver keeps; lower the maximum frequency",
@@ -228,6 +228,9 @@ func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, erro
 			if kc < k {
 				prop++
 			}
+		}
+		if len(s.Layers) > 0 {
+			prop = layeredPropagating(fam, s, fmax)
 		}
 		n = max(n, prop+2, 1)
 		if n > MaxModes {

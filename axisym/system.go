@@ -25,7 +25,8 @@ type system struct {
 	lines  []lines
 	joins  []join
 	ndof   int
-	offset int // see count
+	offset int        // see count
+	layers layerState // radially layered sections (layered_system.go)
 }
 
 // lines is one section's set of modal transmission lines.
@@ -35,6 +36,7 @@ type lines struct {
 	length   float64   // m
 	b11, b12 []float64 // scratch: driving-point and transfer susceptance per mode
 	open     bool      // an open end section: the lines run on into the pipe (open.go)
+	beta2    []float64 // layered section: beta^2 per mode at the current frequency (else nil)
 }
 
 // join is one junction between sections i (left) and i+1 (right).
@@ -83,6 +85,7 @@ func newSystem(b Body, fam cavity.Family, counts []int) (*system, error) {
 		s.joins = append(s.joins, j)
 	}
 	s.markOpen(b)
+	s.initLayers(b, guides)
 	return s, nil
 }
 
@@ -145,13 +148,18 @@ func lineSusceptance(fam cavity.Family, beta2, l, eps, mu float64) (b11, b12 flo
 func (s *system) eval(f float64, a []float64) (j0 int) {
 	clear(a)
 	k0 := 2 * math.Pi * f / physics.SpeedOfLight
+	s.refreshLayers(k0)
 	for i := range s.lines {
 		ln := &s.lines[i]
 		k2 := k0 * k0 * ln.eps * ln.mu
 		for m, kc := range ln.kc {
-			b11, b12, poles := lineSusceptance(s.fam, k2-kc*kc, ln.length, ln.eps, ln.mu)
+			beta2 := k2 - kc*kc
+			if ln.beta2 != nil {
+				beta2 = ln.beta2[m]
+			}
+			b11, b12, poles := lineSusceptance(s.fam, beta2, ln.length, ln.eps, ln.mu)
 			if ln.open {
-				b11, b12, poles = openSusceptance(s.fam, k2-kc*kc, ln.eps, ln.mu), 0, 0
+				b11, b12, poles = openSusceptance(s.fam, beta2, ln.eps, ln.mu), 0, 0
 			}
 			ln.b11[m], ln.b12[m] = b11, b12
 			j0 += poles
@@ -305,7 +313,7 @@ func (s *system) count(f float64, a []float64) (j int, last float64) {
 func (s *system) calibrate(b Body, a []float64) {
 	n := 1.0
 	for _, sec := range b.Sections {
-		n = max(n, sec.Fill.Index())
+		n = max(n, sec.maxIndex())
 	}
 	f := 1e-3 * physics.SpeedOfLight / (2 * n * (b.Length() + 2*b.MaxRadius()))
 	s.offset = 0

@@ -14,14 +14,14 @@ import (
 // resonance of family fam nearest fNear of body b, whose last section is
 // an open circular waveguide running to infinity (the port), with modes
 // waveguide modes in the widest section. It is the signature of the
-// open-end solver of package axisym; this package takes it as a value so
-// that the iris sizing does not depend on when that solver lands.
+// open-end solver of package axisym (axisym.PortQ); this package takes it
+// as a value so that tests can give a model port.
 type PortFunc func(b axisym.Body, fam cavity.Family, fNear float64, modes int) (f0, qext float64, err error)
 
 // ErrNoPortSolver is wrapped when end irises are asked for without a port
-// solver: the external Q through an iris needs an open end, which is not
-// available.
-var ErrNoPortSolver = errors.New("end-iris sizing needs the open-end (port) solver, which is not available yet")
+// solver (a nil PortFunc): the external Q through an iris needs an open
+// end's complex resonance, such as axisym.PortQ gives.
+var ErrNoPortSolver = errors.New("end-iris sizing needs a port solver (an open-end solver such as axisym.PortQ); none was given")
 
 // Port is an end cell fed through a centred iris from a circular waveguide
 // port on its axis.

@@ -46,7 +46,8 @@ var (
 	topKeys     = []string{"title", "end_a", "end_b", "walls", "sections"}
 	endWords    = []string{"plate", "pipe"}
 	wallKeys    = []string{"side", "steps", "inner", "plate_a", "plate_b"}
-	sectionKeys = []string{"length", "radius", "inner_radius", "fill", "start"}
+	sectionKeys = []string{"length", "radius", "inner_radius", "fill", "start", "layers"}
+	layerKeys   = []string{"radius", "fill"}
 )
 
 // ParseGeometry reads a geometry file's bytes (YAML; see the command's help
@@ -128,6 +129,11 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 		start := math.NaN()
 		err := eachKey(file, sn, prefix, sectionKeys, func(k, v *yaml.Node) error {
 			key := prefix + "." + k.Value
+			if k.Value == "layers" {
+				layers, err := parseLayers(file, key, v)
+				s.Layers = layers
+				return err
+			}
 			if v.Kind != yaml.ScalarNode {
 				return ferr(v, key, "must be a single value")
 			}
@@ -301,4 +307,56 @@ func parseWalls(file string, m *yaml.Node) (*axisym.Walls, error) {
 		w.Inner = &s
 	}
 	return w, nil
+}
+
+// parseLayers reads a section's radial layers: a list of mappings with an
+// outer radius and an optional fill (vacuum), innermost first.
+func parseLayers(file, key string, v *yaml.Node) ([]axisym.Layer, error) {
+	ferr := func(n *yaml.Node, key string, format string, a ...any) error {
+		return &FileError{File: file, Line: n.Line, Key: key, Err: fmt.Errorf(format, a...)}
+	}
+	if v.Kind != yaml.SequenceNode || len(v.Content) == 0 {
+		return nil, ferr(v, key, "must be a non-empty list of layers (radius, fill), innermost first")
+	}
+	var out []axisym.Layer
+	for i, ln := range v.Content {
+		lk := fmt.Sprintf("%s[%d]", key, i+1)
+		if ln.Kind != yaml.MappingNode {
+			return nil, ferr(ln, lk, "must be a mapping with the keys %s", strings.Join(layerKeys, ", "))
+		}
+		var l axisym.Layer
+		have := false
+		err := eachKey(file, ln, lk, layerKeys, func(k, v *yaml.Node) error {
+			kk := lk + "." + k.Value
+			if v.Kind != yaml.ScalarNode {
+				return ferr(v, kk, "must be a single value")
+			}
+			switch k.Value {
+			case "fill":
+				d, err := physics.ParseDielectric(v.Value)
+				if err != nil {
+					return ferr(v, kk, "%v", err)
+				}
+				l.Medium = d.Medium
+			case "radius":
+				x, err := physics.ParseLength(v.Value)
+				if err != nil {
+					return ferr(v, kk, "%v", err)
+				}
+				if !(x > 0) {
+					return ferr(v, kk, "must be > 0, got %s", v.Value)
+				}
+				l.Radius, have = x, true
+			}
+			return nil
+		})
+		if err != nil {
+			return nil, err
+		}
+		if !have {
+			return nil, ferr(ln, lk+".radius", "missing")
+		}
+		out = append(out, l)
+	}
+	return out, nil
 }

@@ -112,6 +112,11 @@ The geometry file is YAML:
     - length: 2mm
       radius: 4mm
       start: 20mm                 # optional check: z of the left face
+    - length: 5mm                 # radial layers instead of fill:
+      radius: 15mm
+      layers:                     # innermost first, the last at the radius
+        - {radius: 6mm, fill: eps=38}
+        - {radius: 15mm}          # fill: vacuum when not given
 
 Top-level keys: %s.
 end_a and end_b (the ends at z = 0 and at the far end) are plate (the default: a metal end plate) or pipe: a
@@ -132,7 +137,9 @@ used for Q0 at 20 C without --wall:
 
 Keys per section: %s. inner_radius > 0 makes a
 coaxial section (a post or inner conductor); at each junction one
-cross-section must lie inside the other. Not solved yet (an error says
+cross-section must lie inside the other. A section with layers (n = 0
+only; isotropic, non-magnetic layers) gives frequencies but not yet Q0
+or field maps. Not solved yet (an error says
 so): other junctions and n >= 1. A body with a
 coaxial section has no "continues from" label.
 
@@ -264,6 +271,13 @@ transverse R/Q are not solved for stacked bodies.`,
 			}
 			if err := checkBulb(opts.Bulb, opts.Geometry.Body); err != nil {
 				return err
+			}
+			if err := opts.Geometry.Body.FieldsAvailable(); err != nil {
+				for _, f := range []string{"field-map", "bulb-diameter"} {
+					if cmd.Flags().Changed(f) {
+						return cmdutil.Usagef("--%s needs the fields of %s: %v", f, opts.File, err)
+					}
+				}
 			}
 			if opts.Geometry.Walls != nil {
 				if opts.Walls != nil {

@@ -34,6 +34,11 @@ func TestExamples(t *testing.T) {
 			t.Errorf("examples/%s.yaml: exit %d, %s", f, r.Code, r.Stderr)
 		}
 	}
+	// The layered puck: its TE01-delta-like resonance (axisym's
+	// TestPuckFiniteDifference checks the value).
+	if r := clitest.Run(t, "stack", "examples/puck-in-can.yaml", "--fmax", "5GHz"); r.Code != 0 || !strings.Contains(r.Stdout, "4.5150718") {
+		t.Errorf("examples/puck-in-can.yaml: exit %d, %s%s", r.Code, r.Stdout, r.Stderr)
+	}
 }
 
 // TestOneSectionJSON checks the command end to end on a closed cylinder:
@@ -81,6 +86,10 @@ func TestBadInput(t *testing.T) {
 		return p
 	}
 	good := write("good.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n")
+	puck, err := filepath.Abs(filepath.Join("..", "..", "..", "..", "..", "examples", "puck-in-can.yaml"))
+	if err != nil {
+		t.Fatal(err)
+	}
 	cases := []struct {
 		name, text string
 		want       []string
@@ -97,6 +106,12 @@ func TestBadInput(t *testing.T) {
 		{"dup.yaml", "sections:\n  - length: 3mm\n    length: 4mm\n    radius: 2mm\n", []string{"dup.yaml:3", "given twice"}},
 		{"missing.yaml", "sections:\n  - length: 3mm\n", []string{"missing.yaml:2", "sections[1].radius", "missing"}},
 		{"yaml.yaml", "sections: [\n", []string{"yaml.yaml:", "not valid YAML"}},
+		{"layerkey.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fil: eps=38}\n", []string{"layerkey.yaml:5", "sections[1].layers[1].fil", "unknown key"}},
+		{"layerlast.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: eps=38}\n      - {radius: 11mm}\n", []string{"layerlast.yaml:2", "layer 2", "section radius"}},
+		{"layerorder.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm}\n      - {radius: 5mm}\n      - {radius: 12mm}\n", []string{"layerorder.yaml:2", "layer 2", "above the previous layer"}},
+		{"layermat.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: unobtainium}\n      - {radius: 12mm}\n", []string{"layermat.yaml:5", "layers[1].fill", "unknown dielectric"}},
+		{"layerradius.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {fill: eps=3}\n", []string{"layerradius.yaml:5", "layers[1].radius", "missing"}},
+		{"layeropen.yaml", "end_b: pipe\nsections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: eps=38}\n      - {radius: 12mm}\n", []string{"layeropen.yaml", "radial layers in a body with an open end", "not implemented"}},
 		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n  - length: 30mm\n    radius: 25mm\n    inner_radius: 8mm\n", []string{"coax.yaml", "sections 1 and 2", "not implemented"}},
 	}
 	var bad []clitest.BadCase
@@ -124,6 +139,8 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1,2", "--format", "csv"}, Code: 2, Want: []string{"--pair", "json"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--wall", "unobtainium"}, Code: 2, Want: []string{"--wall"}},
 		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
+		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--field-map", filepath.Join(dir, "p.svg")}, Code: 2, Want: []string{"--field-map", "radially layered", "not implemented"}},
+		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--bulb-diameter", "4mm", "--bulb-length", "2mm"}, Code: 2, Want: []string{"--bulb-diameter", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
 	)
 	clitest.CheckBadInput(t, "stack", bad)
