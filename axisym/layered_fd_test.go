@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"cylcav/cavity"
+	"cylcav/internal/fdref"
 	"cylcav/physics"
 
 	"gonum.org/v1/gonum/mat"
@@ -46,11 +47,11 @@ func epsOf(b Body, r, z float64) float64 {
 // published table of a dielectric resonator in a cavity was at hand, so
 // the lowest TE0 resonance (the TE01-delta-like mode) of puckBody is
 // checked against a finite-difference solution of the E_phi problem with
-// the permittivity varying over the grid (fdTE0Eps), on grids of 1/4,
+// the permittivity varying over the grid (fdTE0), on grids of 1/4,
 // 1/6 and 1/8 mm extrapolated to zero step by Richardson's rule with the
 // order 2 that the smooth (H^2) solution of a problem with a discontinuous
 // zeroth-order coefficient allows (Strang and Fix, ch. 3, as recalled);
-// the stated accuracy is fdSafety times the difference of the two
+// the stated accuracy is fdref.Safety times the difference of the two
 // extrapolations.
 func TestPuckFiniteDifference(t *testing.T) {
 	if testing.Short() {
@@ -58,19 +59,14 @@ func TestPuckFiniteDifference(t *testing.T) {
 	}
 	b := puckBody()
 	eps := func(r, z float64) float64 { return epsOf(b, r, z) }
-	hs := []float64{0.001 / 4, 0.001 / 6, 0.001 / 8}
+	hs := [3]float64{0.001 / 4, 0.001 / 6, 0.001 / 8}
 	var lam [3]float64
 	for i, h := range hs {
-		lam[i] = fdTE0Eps(b.Sections, h, eps)
+		lam[i] = fdTE0(t, b.Sections, h, eps)
 	}
-	const p = 2.0
-	extrap := func(i int) float64 {
-		a, c := math.Pow(hs[i], p), math.Pow(hs[i+1], p)
-		return (lam[i+1]*a - lam[i]*c) / (a - c)
-	}
-	ex1, ex2 := extrap(0), extrap(1)
+	ex1, ex2 := fdref.Richardson(hs, lam, 2.0)
 	fd := physics.SpeedOfLight * math.Sqrt(ex2) / (2 * math.Pi)
-	acc := fdSafety * math.Abs(ex2-ex1) / ex2 / 2
+	acc := fdref.Safety * math.Abs(ex2-ex1) / ex2 / 2
 	got, err := Solve(b, Request{MaxFrequency: 6e9, Families: []cavity.Family{cavity.TE}})
 	if err != nil || len(got) == 0 {
 		t.Fatal(got, err)
