@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"cylcav/physics"
+	"cylcav/physics/quad"
 )
 
 var fieldCases = []struct {
@@ -126,7 +127,7 @@ func TestFieldsBoundary(t *testing.T) {
 // ModeField and, through it, the radial Bessel integrals it uses.
 func TestFieldsEnergy(t *testing.T) {
 	const energyTol = 1e-10
-	x, wq := gaussLegendre(40)
+	x, wq := quad.GaussLegendre(40)
 	for _, tc := range fieldCases {
 		m := mustMode(t, tc.mode)
 		mf, err := tc.c.ModeField(m)

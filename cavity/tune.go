@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"slices"
+
+	"cylcav/physics/quad"
 )
 
 // TuningPoint is one point of a tuning curve.
@@ -457,7 +459,7 @@ func (c Cavity) EndPlateShift(m Mode, delta float64) (float64, error) {
 	if math.IsNaN(delta) || math.IsInf(delta, 0) {
 		return 0, fmt.Errorf("cavity: end-plate motion must be finite, got %g m", delta)
 	}
-	nodes, weights := gaussLegendre(48)
+	nodes, weights := quad.GaussLegendre(48)
 	nphi := 4*m.N + 8
 	var sum float64
 	for i, x := range nodes {
@@ -471,36 +473,6 @@ func (c Cavity) EndPlateShift(m Mode, delta float64) (float64, error) {
 	}
 	// 4 W = 4 J for the normalised field.
 	return mf.omega / (2 * math.Pi) * delta * sum / 4, nil
-}
-
-// gaussLegendre returns the n nodes and weights of Gauss-Legendre
-// quadrature on [-1, 1], computed by Newton's method on the Legendre
-// recurrence (Press et al., Numerical Recipes, 3rd ed., sec. 4.6, routine
-// gauleg).
-func gaussLegendre(n int) (x, w []float64) {
-	x, w = make([]float64, n), make([]float64, n)
-	for i := range (n + 1) / 2 {
-		z := math.Cos(math.Pi * (float64(i) + 0.75) / (float64(n) + 0.5))
-		var pp float64
-		for range 100 {
-			p1, p2 := 1.0, 0.0
-			for j := 0; j < n; j++ {
-				p3 := p2
-				p2 = p1
-				p1 = ((2*float64(j)+1)*z*p2 - float64(j)*p3) / float64(j+1)
-			}
-			pp = float64(n) * (z*p1 - p2) / (z*z - 1)
-			z1 := z
-			z = z1 - p1/pp
-			if math.Abs(z-z1) < 1e-15 {
-				break
-			}
-		}
-		x[i], x[n-1-i] = -z, z
-		w[i] = 2 / ((1 - z*z) * pp * pp)
-		w[n-1-i] = w[i]
-	}
-	return x, w
 }
 
 // ErrNotTunable is matched by errors.Is for every NotTunableError.

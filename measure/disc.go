@@ -7,6 +7,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
+	"cylcav/physics/quad"
 )
 
 // ErrDiscMode is wrapped by the disc model's error for a mode it does not
@@ -83,9 +84,9 @@ func DiscResonance(a, l, t, epsR float64, m cavity.Mode) (DiscPoint, error) {
 	for i, y := range ly {
 		panels := 8 + int(math.Ceil(math.Sqrt(math.Abs(k0*k0*y.eps-kc*kc))*y.d/(math.Pi/4)))
 		var s float64
-		for _, q := range glRuleZ(z0, z0+y.d, panels) {
-			e, _ := shoot(ly, kc, k0, q.x)
-			s += q.w * e * e
+		for _, q := range quad.Composite(z0, z0+y.d, panels, 8) {
+			e, _ := shoot(ly, kc, k0, q.X)
+			s += q.W * e * e
 		}
 		ie += s
 		iee += y.eps * s
@@ -179,25 +180,6 @@ func nthRoot(f func(float64) float64, lo, hi, step float64, n int) (float64, boo
 		x0, f0 = x1, f1
 	}
 	return 0, false
-}
-
-// zNode is a quadrature node.
-type zNode struct{ x, w float64 }
-
-// glRuleZ is the composite 8-point Gauss-Legendre rule of n panels on
-// [lo, hi] (Abramowitz and Stegun, Table 25.4).
-func glRuleZ(lo, hi float64, n int) []zNode {
-	x := [4]float64{0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363}
-	w := [4]float64{0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763}
-	h := (hi - lo) / float64(n)
-	out := make([]zNode, 0, 8*n)
-	for p := range n {
-		c := lo + (float64(p)+0.5)*h
-		for k := range 4 {
-			out = append(out, zNode{c - x[k]*h/2, w[k] * h / 2}, zNode{c + x[k]*h/2, w[k] * h / 2})
-		}
-	}
-	return out
 }
 
 // DiscInput is an empty and a disc-loaded measurement of the same TE0mp
