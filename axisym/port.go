@@ -233,10 +233,21 @@ func newComplexSystem(b Body, fam cavity.Family, f0 float64, modes int) (*comple
 		p := make([]bool, len(ln.kc))
 		for m, kc := range ln.kc {
 			p[m] = !ln.open && k*k*ln.eps*ln.mu > kc*kc
+			if s.fam == cavity.TM && !ln.open {
+				// The TM line's p = 0 pole at its own cutoff (beta = 0)
+				// is removed too when that cutoff is within nearCutoff
+				// of f0 (in k^2): a TM0m0 cell resonates there.
+				p[m] = p[m] || kc*kc-k*k*ln.eps*ln.mu < nearCutoff*k*k*ln.eps*ln.mu
+			}
 		}
 		cs.pole = append(cs.pole, p)
 	}
-	cs.eval(complex(f0, 0), cs.a)
+	// The scaling is taken off the real axis (Im f = scaleOffset f0), where
+	// no closed line's pole lies: at the closed resonance of a TM0m0 cell,
+	// a usual starting frequency, the cell line's beta = 0 pole would make
+	// the diagonal of every row it reaches huge, and the scaled
+	// determinant underflow.
+	cs.eval(complex(f0, scaleOffset*f0), cs.a)
 	cs.scale = make([]float64, s.ndof)
 	for i := range cs.scale {
 		d := cmplx.Abs(cs.a[i*s.ndof+i])
@@ -306,7 +317,7 @@ func (cs *complexSystem) eval(f complex128, a []complex128) (sinProd complex128)
 				b11[i][m], b12[i][m] = -eps*cot/beta, eps*csc/beta
 			}
 			if cs.pole != nil && cs.pole[i][m] {
-				sinProd *= cmplx.Sin(z)
+				sinProd *= poleFactor(s.fam, z)
 			}
 		}
 	}
@@ -333,6 +344,23 @@ func (cs *complexSystem) eval(f complex128, a []complex128) (sinProd complex128)
 		}
 	}
 	return sinProd
+}
+
+// poleFactor returns the factor that removes the poles of a closed line's
+// susceptances from the determinant, as an even function of z = beta l
+// (so of beta^2, and analytic in f: an odd factor such as sin z would put
+// a square-root branch point at the line's cutoff, beta = 0). TE
+// susceptances (-beta cot z / mu) have poles at z = p pi, p >= 1: sin z / z.
+// TM ones (-eps cot z / beta) also at z = 0, the cutoff itself (the p = 0
+// pole that lineSusceptance counts; a TM0m0 cell resonates there): z sin z.
+func poleFactor(fam cavity.Family, z complex128) complex128 {
+	if fam == cavity.TM {
+		return z * cmplx.Sin(z)
+	}
+	if cmplx.Abs(z) < 1e-4 {
+		return 1 - z*z/6
+	}
+	return cmplx.Sin(z) / z
 }
 
 // addComplex adds Ta^T diag(d) Tb to the block (ja, jb) of the full matrix
@@ -368,10 +396,11 @@ func addComplex(a []complex128, n int, ja, jb *join, ta, tb []float64, d []compl
 }
 
 // det returns the scaled determinant of the junction matrix at complex
-// frequency f times the pole factor: an analytic function of f near the
-// resonances, without the poles of closed sections, whose zeros are the
-// complex resonant frequencies.
-func (cs *complexSystem) det(f complex128) complex128 {
+// frequency f times the pole factor, as m 2^e (the determinant of a
+// thin iris's many nearly shorted modes underflows a float64): an
+// analytic function of f near the resonances, without the poles of closed
+// sections, whose zeros are the complex resonant frequencies.
+func (cs *complexSystem) det(f complex128) (m complex128, e int) {
 	n := cs.s.ndof
 	sp := cs.eval(f, cs.a)
 	for i := range n {
@@ -379,13 +408,31 @@ func (cs *complexSystem) det(f complex128) complex128 {
 			cs.a[i*n+j] *= complex(cs.scale[i]*cs.scale[j], 0)
 		}
 	}
-	return luDet(cs.a, n) * sp
+	m, e = luDet(cs.a, n)
+	return normExp(m*sp, e)
+}
+
+// normExp returns m 2^e as m' 2^e' with |Re m'|, |Im m'| < 1 and the
+// larger at least 1/2 (m' = 0, e' = 0 for m = 0).
+func normExp(m complex128, e int) (complex128, int) {
+	_, er := math.Frexp(real(m))
+	_, ei := math.Frexp(imag(m))
+	x := max(er, ei)
+	if m == 0 || cmplx.IsNaN(m) || cmplx.IsInf(m) {
+		return m, 0
+	}
+	return complex(math.Ldexp(real(m), -x), math.Ldexp(imag(m), -x)), e + x
+}
+
+// ldexpC returns m 2^e.
+func ldexpC(m complex128, e int) complex128 {
+	return complex(math.Ldexp(real(m), e), math.Ldexp(imag(m), e))
 }
 
 // luDet returns the determinant of the n x n matrix a (overwritten) by
-// Gaussian elimination with partial pivoting.
-func luDet(a []complex128, n int) complex128 {
-	d := complex(1, 0)
+// Gaussian elimination with partial pivoting, as m 2^e.
+func luDet(a []complex128, n int) (complex128, int) {
+	d, e := complex(1, 0), 0
 	for p := range n {
 		piv := p
 		for i := p + 1; i < n; i++ {
@@ -394,7 +441,7 @@ func luDet(a []complex128, n int) complex128 {
 			}
 		}
 		if a[piv*n+p] == 0 {
-			return 0
+			return 0, 0
 		}
 		if piv != p {
 			for j := range n {
@@ -403,7 +450,7 @@ func luDet(a []complex128, n int) complex128 {
 			d = -d
 		}
 		pp := a[p*n+p]
-		d *= pp
+		d, e = normExp(d*pp, e)
 		for i := p + 1; i < n; i++ {
 			g := a[i*n+p] / pp
 			if g == 0 {
@@ -414,7 +461,7 @@ func luDet(a []complex128, n int) complex128 {
 			}
 		}
 	}
-	return d
+	return d, e
 }
 
 // solveComplex solves a x = b for the n x n matrix a (overwritten) by
@@ -459,6 +506,22 @@ func solveComplex(a, b []complex128, n int) ([]complex128, error) {
 	return x, nil
 }
 
+// nearCutoff is the relative distance in k^2 below f0 within which a
+// closed TM line's cutoff (its p = 0 pole) is removed from the
+// determinant (common practice: well beyond the detuning of a resonance
+// by its openings, and few lines qualify).
+const nearCutoff = 0.1
+
+// scaleOffset is the relative imaginary part of the frequency at which
+// newComplexSystem takes the determinant's diagonal scaling (any value
+// well off the real axis and small against 1 serves; common practice).
+const scaleOffset = 1e-3
+
+// startOffset is the relative imaginary part given to the third starting
+// point of Muller's iteration (small against the step 1e-4 between the
+// starts; common practice).
+const startOffset = 1e-7
+
 // mullerTol is the relative step at which Muller's iteration stops.
 const mullerTol = 1e-13
 
@@ -472,8 +535,18 @@ func (cs *complexSystem) muller(x2 complex128) (complex128, error) {
 	}
 	h := complex(1e-4*real(x2), 0)
 	x0, x1 := x2-h, x2+h
-	f0, f1, f2 := cs.det(x0), cs.det(x1), cs.det(x2)
+	// The third start is moved a little off the real axis: a usual start,
+	// the closed resonance of a TM0m0 cell, is a pole of the cell line
+	// (beta = 0), where the matrix cannot be evaluated.
+	x2 += complex(0, startOffset*real(x2))
+	m0, e0 := cs.det(x0)
+	m1, e1 := cs.det(x1)
+	m2, e2 := cs.det(x2)
 	for it := 0; it < 100; it++ {
+		// Muller's step is homogeneous in the three values: scale them
+		// by a common power of two.
+		top := max(e0, e1, e2)
+		f0, f1, f2 := ldexpC(m0, e0-top), ldexpC(m1, e1-top), ldexpC(m2, e2-top)
 		h1, h2 := x1-x0, x2-x1
 		d1, d2 := (f1-f0)/h1, (f2-f1)/h2
 		q := (d2 - d1) / (h2 + h1)
@@ -490,12 +563,12 @@ func (cs *complexSystem) muller(x2 complex128) (complex128, error) {
 			dx = -2 * f2 / den
 		}
 		x0, x1, x2 = x1, x2, x2+dx
-		f0, f1 = f1, f2
-		f2 = cs.det(x2)
-		if cmplx.IsNaN(f2) || cmplx.IsInf(f2) {
+		m0, e0, m1, e1 = m1, e1, m2, e2
+		m2, e2 = cs.det(x2)
+		if cmplx.IsNaN(m2) || cmplx.IsInf(m2) {
 			return 0, fmt.Errorf("axisym: Muller's iteration left the range of the model at %v Hz", x2)
 		}
-		if cmplx.Abs(dx) <= mullerTol*cmplx.Abs(x2) || f2 == 0 {
+		if cmplx.Abs(dx) <= mullerTol*cmplx.Abs(x2) || m2 == 0 {
 			return x2, nil
 		}
 	}

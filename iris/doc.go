@@ -76,6 +76,16 @@
 //     (Bethe's theory is first order in k r and in the field's variation
 //     over the hole). For TE0 cells the centred hole has no dipole term,
 //     so that limit is checked with TM010.
+//   - TestQextBetheLimitTM010: the port's Qext of a TM010 cell (a = 20
+//     mm, l = 10 mm) fed through a centred iris from a TM01 guide of
+//     radius 30 mm, extrapolated to zero wall thickness from 1 and 2 um,
+//     against Bethe's small-hole Qext (derived in the test: the hole's
+//     electric dipole radiating into the guide's TM01 mode): ratios
+//     1.147, 1.0375 and 1.0079 at r/a = 0.2, 0.1, 0.05, the departure
+//     falling as (r/a)^2. TestDipoleModePowerFreeSpace checks the guide
+//     mode's dipole power against free-space radiation (0.2 % at k b =
+//     400); TestQextCentredHoleTE011: a centred hole on a TE011 cell has
+//     no dipole term, and its Qext falls as r^-9.9 (r^-10 expected).
 //   - TestChainAgainstModel: 3- and 4-cavity in-line TE011 and TM010
 //     filters built from the sized irises and corrected dimensions and
 //     solved as one closed body resonate within 0.053 bandwidths of the
