@@ -28,6 +28,10 @@ type Radiation struct {
 	Start float64
 }
 
+// maxPortJump bounds how far PortQ's root may lie from its start, relative
+// (a guard, not a model limit: a resonance with Qext near 1 moves less).
+const maxPortJump = 0.25
+
 // PortQ returns the resonant frequency f0 (Hz) and external Q of the
 // resonance of family fam of open body b nearest fNear (Hz), for modes
 // waveguide modes in the widest section (0: DefaultModes). It is the
@@ -41,6 +45,9 @@ type Radiation struct {
 // to order 1/Qext, from the group delay of the reflection at a single
 // port, Qext = omega0 tau(omega0) / 4 (Kajfez, Q Factor, 1994, ch. 2;
 // PortS11 gives the reflection; TestPortQGroupDelay).
+//
+// A root whose real part lies more than maxPortJump (relative) from fNear
+// is refused: the iteration has left the resonance it started at.
 func PortQ(b Body, fam cavity.Family, fNear float64, modes int) (f0, qext float64, err error) {
 	if err := b.Validate(); err != nil {
 		return 0, 0, err
@@ -68,6 +75,10 @@ func PortQ(b Body, fam cavity.Family, fNear float64, modes int) (f0, qext float6
 	}
 	if !b.Radiates(fam, real(f)) {
 		return 0, 0, fmt.Errorf("axisym: the iteration from %g Hz ended below the cutoff, at %g Hz", fNear, real(f))
+	}
+	if math.Abs(real(f)-fNear) > maxPortJump*fNear {
+		return 0, 0, fmt.Errorf("axisym: the iteration from %g Hz ended at %g Hz, more than %g %% away: not the resonance near the start (start closer to it)",
+			fNear, real(f), 100*maxPortJump)
 	}
 	return real(f), real(f) / (2 * imag(f)), nil
 }
