@@ -89,7 +89,7 @@ func Extrapolate(b Body, fam cavity.Family, fmax float64, modes int) ([]Extrapol
 		for j, n := range counts {
 			c[j] = n << i
 			if c[j] > MaxModes {
-				return nil, fmt.Errorf("axisym: section %d would need %d modes in the finest model, more than %d; lower the mode count", j+1, c[j], MaxModes)
+				return nil, limitErrorf("axisym: section %d would need %d modes in the finest model, more than %d; lower the mode count", j+1, c[j], MaxModes)
 			}
 		}
 		// The finest model sets the list; the coarser ones search a little

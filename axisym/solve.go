@@ -96,6 +96,23 @@ const relTol = 1e-14
 // requests the solver does not handle yet.
 var ErrNotImplemented = errors.New("not implemented")
 
+// ErrLimit is wrapped by the errors of a request beyond the solver's
+// limits (more than MaxResonances resonances, or a section needing more
+// than MaxModes modes, below the maximum frequency): the request is too
+// large for the body, which a caller reports as bad input.
+var ErrLimit = errors.New("beyond the solver's limits")
+
+// limitErrorf returns an error wrapping ErrLimit with the message only
+// (errors.Is finds ErrLimit; the text does not repeat it).
+func limitErrorf(format string, a ...any) error {
+	return &limitError{msg: fmt.Sprintf(format, a...)}
+}
+
+type limitError struct{ msg string }
+
+func (e *limitError) Error() string        { return e.msg }
+func (e *limitError) Is(target error) bool { return target == ErrLimit }
+
 // Solve returns every resonance of body b of azimuthal order r.Order below
 // r.MaxFrequency, sorted by frequency (TE0 before TM0 at equal frequency),
 // each with its convergence estimate and the enclosing-cylinder mode it
@@ -115,8 +132,9 @@ var ErrNotImplemented = errors.New("not implemented")
 // enclosing-cylinder label; Radiating finds those above it.
 //
 // Errors: an invalid body (Body.Validate), a maximum frequency that is not
-// positive and finite, more than MaxResonances resonances below it, a
-// section that would need more than MaxModes modes, and, wrapping
+// positive and finite, more than MaxResonances resonances below it or a
+// section that would need more than MaxModes modes (these two wrap
+// ErrLimit), and, wrapping
 // ErrNotImplemented, an order other than 0 or a junction where neither
 // cross-section lies inside the other (for example two coaxial sections
 // whose inner and outer radii both grow).
@@ -220,8 +238,8 @@ func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, erro
 		k := 2 * math.Pi * fmax / physics.SpeedOfLight * s.maxIndex()
 		guess := int(k*w/math.Pi) + 3
 		if guess > MaxModes {
-			return nil, fmt.Errorf("axisym: section %d propagates about %d modes at %g Hz, more than the %d the solver keeps; lower the maximum frequency",
-				i+1, guess, fmax, MaxModes)
+			return nil, limitErrorf("axisym: section %d propagates about %d modes at %s, more than the %d the solver keeps; lower the maximum frequency",
+				i+1, guess, physics.FormatFrequency(fmax, 4), MaxModes)
 		}
 		prop := 0
 		for _, kc := range newGuide(fam, s.InnerRadius, s.Radius, guess).kc {
@@ -234,7 +252,7 @@ func ModeCounts(b Body, fam cavity.Family, fmax float64, modes int) ([]int, erro
 		}
 		n = max(n, prop+2, 1)
 		if n > MaxModes {
-			return nil, fmt.Errorf("axisym: section %d would need %d modes, more than %d; lower the mode count or the maximum frequency", i+1, n, MaxModes)
+			return nil, limitErrorf("axisym: section %d would need %d modes, more than %d; lower the mode count or the maximum frequency", i+1, n, MaxModes)
 		}
 		counts[i] = n
 	}
@@ -276,7 +294,7 @@ func resonancesWith(b Body, fam cavity.Family, fmax float64, counts []int, withL
 	s.calibrate(b, sv.a)
 	jmax, gmax := sv.count(fmax)
 	if jmax > MaxResonances {
-		return nil, nil, fmt.Errorf("axisym: %d %v0 resonances below %g Hz, more than %d; lower the maximum frequency", jmax, fam, fmax, MaxResonances)
+		return nil, nil, limitErrorf("axisym: %d %v0 resonances below %s, more than %d; lower the maximum frequency", jmax, fam, physics.FormatFrequency(fmax, 4), MaxResonances)
 	}
 	sv.isolate(point{0, 0, 0}, point{fmax, jmax, gmax})
 	if !withLoss {

@@ -51,7 +51,9 @@ type Bench struct {
 type AccelResult struct {
 	Figures qfactor.Accel
 	// Dissipation is the RF loss at the gradient; nil without a gradient
-	// or Q0.
+	// or Q0, and nil (with a note) when superconducting walls' peak
+	// magnetic field is above the quench guide (Margins.AboveQuench), where
+	// the BCS Q0 does not hold; so are Heat and Coupling then.
 	Dissipation *qfactor.Dissipation
 	// Heat is the heat load at the bath; nil unless the walls are
 	// superconducting and a gradient is given.
@@ -132,18 +134,8 @@ func (s Scenario) accel(r Result) (*AccelResult, error) {
 		return nil, fmt.Errorf("%s gives almost no gain at beta = %g (transit-time factor %.3g): no gradient can be held", m, a.Speed, fig.TransitTime)
 	}
 	if a.Gradient > 0 && r.Unloaded != nil {
-		d, err := qfactor.Dissipated(fig, c.Length, r.Unloaded.Q0, a.Gradient)
-		if err != nil {
-			return nil, err
-		}
-		out.Dissipation = &d
 		if s.Superconductor != nil {
 			operate, _ := s.Temps()
-			h, err := qfactor.Refrigeration(d.Power, operate, 0)
-			if err != nil {
-				return nil, err
-			}
-			out.Heat = &h
 			lim, err := qfactor.NiobiumLimits(operate, s.Superconductor.Tc)
 			if err != nil {
 				return nil, err
@@ -154,7 +146,31 @@ func (s Scenario) accel(r Result) (*AccelResult, error) {
 			}
 			out.Margins = &mg
 		}
-		if a.Beam != nil {
+		// Above the quench guide the walls are not in the low-field
+		// superconducting state that the BCS surface resistance (and so
+		// Q0) describes: no power, heat load or coupling from it.
+		powered := out.Margins == nil || !out.Margins.AboveQuench
+		if !powered {
+			out.Notes = append(out.Notes, fmt.Sprintf("dissipated power, heat load and beam coupling are not given: the peak surface magnetic field %.4g mT at this gradient is above the quench guide %.4g mT, where the BCS surface resistance (low field, superconducting state) and so Q0 do not hold",
+				out.Margins.Bpk*1e3, out.Margins.Limits.Quench*1e3))
+		}
+		var d qfactor.Dissipation
+		if powered {
+			var err error
+			if d, err = qfactor.Dissipated(fig, c.Length, r.Unloaded.Q0, a.Gradient); err != nil {
+				return nil, err
+			}
+			out.Dissipation = &d
+		}
+		if powered && s.Superconductor != nil {
+			operate, _ := s.Temps()
+			h, err := qfactor.Refrigeration(d.Power, operate, 0)
+			if err != nil {
+				return nil, err
+			}
+			out.Heat = &h
+		}
+		if powered && a.Beam != nil {
 			k, err := qfactor.MatchBeam(fig.Frequency, d.Voltage, fig.ROverQLinac, r.Unloaded.Q0, *a.Beam)
 			if err != nil {
 				return nil, err

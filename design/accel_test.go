@@ -135,3 +135,57 @@ func TestSuperconductingRun(t *testing.T) {
 		t.Error("accelerator figures of TE011: no error")
 	}
 }
+
+// TestAboveQuenchNoPower: at a gradient whose peak surface magnetic field
+// is above the quench guide the BCS surface resistance (a low-field model
+// of the superconducting state) does not hold, so the run gives no
+// dissipated power, heat load or beam coupling, and says why; just below
+// the guide it gives them (found by the user pass: 1 GV/m gave a heat
+// load from the low-field Q0 and the margin line read "0.07x below").
+// The guide is qfactor.NiobiumLimits' and Bpk = (Bpk/Eacc) Eacc
+// (Padamsee et al. 2008, ch. 1), computed here from qfactor.Acceleration.
+func TestAboveQuenchNoPower(t *testing.T) {
+	s, err := design.DemoCell()
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := s.Run(nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fig, err := qfactor.Acceleration(r.Design.Cavity, s.Spec.Mode, s.Accel.Speed)
+	if err != nil {
+		t.Fatal(err)
+	}
+	operate, _ := s.Temps()
+	lim, err := qfactor.NiobiumLimits(operate, s.Superconductor.Tc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	quenchGradient := lim.Quench / fig.BpkOverEacc
+	for _, tc := range []struct {
+		factor  float64
+		powered bool
+	}{{0.9, true}, {2, false}} {
+		acc := *s.Accel
+		acc.Gradient = tc.factor * quenchGradient
+		sc := s
+		sc.Accel = &acc
+		r, err := sc.Run(nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		a := r.Accel
+		if a.Margins == nil || a.Margins.AboveQuench == tc.powered {
+			t.Fatalf("gradient %.3g x the quench gradient: margins %+v", tc.factor, a.Margins)
+		}
+		if got := a.Dissipation != nil && a.Heat != nil && a.Coupling != nil; got != tc.powered {
+			t.Errorf("gradient %.3g x the quench gradient: dissipation %v, heat %v, coupling %v; want all given = %v",
+				tc.factor, a.Dissipation, a.Heat, a.Coupling, tc.powered)
+		}
+		noted := strings.Contains(strings.Join(a.Notes, "\n"), "above the quench guide")
+		if noted == tc.powered {
+			t.Errorf("gradient %.3g x the quench gradient: notes %q", tc.factor, a.Notes)
+		}
+	}
+}

@@ -119,15 +119,17 @@ func (a *accelFlags) apply(s *design.Scenario, set func(string) bool) error {
 		}
 		s.Bulb = &cavity.Bulb{Radius: a.bulbD / 2, Length: a.bulbL}
 	}
-	given := false
+	given := ""
 	for _, n := range accelFlagNames {
-		given = given || set(n)
+		if given == "" && set(n) {
+			given = n
+		}
 	}
-	if !given {
+	if given == "" {
 		return nil
 	}
 	if m := s.Spec.Mode; m.Family != cavity.TM || m.N != 0 {
-		return Usagef("--gradient, --beam-current, --hom-max and the other accelerator flags need a TM0mp mode (an axial electric field on the axis); --mode is %s", m)
+		return Usagef("--%s needs a TM0mp mode (an axial electric field on the axis), as do all the accelerator flags (--gradient, --beam-current, --hom-max, ...); --mode is %s", given, m)
 	}
 	acc := &design.Accelerator{Speed: 1}
 	if set("particle-speed") {

@@ -65,7 +65,7 @@ func (q *Quantity) Set(s string) error {
 
 func showLength(v float64) string    { return TrimZeros(physics.FormatLength(v, 4)) }
 func showFrequency(v float64) string { return TrimZeros(physics.FormatFrequency(v, 4)) }
-func showPercent(v float64) string   { return fmt.Sprintf("%g%%", 100*v) }
+func showPercent(v float64) string   { return fmt.Sprintf("%.6g%%", 100*v) }
 func showNumber(v float64) string    { return fmt.Sprintf("%g", v) }
 func showTemperature(v float64) string {
 	return TrimZeros(physics.FormatTemperature(v, 5))

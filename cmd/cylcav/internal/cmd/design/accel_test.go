@@ -145,3 +145,35 @@ func TestCellReadsRight(t *testing.T) {
 		}
 	}
 }
+
+// TestMarginAboveGuide: a peak field above its guide is stated as above it
+// with the factor, from the library's verdict (qfactor.Margins), never as
+// "0.07x below" (found by the user pass); below it the margin reads as
+// before. Bpk/Eacc = 2.924 mT/(MV/m) of this cell (the command's own line)
+// puts 1 GV/m at 2924 mT, 15.3 times the 190.7 mT guide at 2 K.
+func TestMarginAboveGuide(t *testing.T) {
+	args := []string{"design", "--mode", "TM010", "--freq", "1.3GHz", "--wall", "niobium", "--superconducting", "--temperature", "2K", "--ratio-range", "1.5:1.6"}
+	r := clitest.Run(t, append(args, "--gradient", "1000MV/m", "--beam-current", "1mA")...)
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	for _, want := range []string{"Bpk = 2924 mT: AT OR ABOVE (15.3x) the quench guide 190.7 mT", "Epk = 1506 MV/m: AT OR ABOVE (37.7x) the field-emission guide",
+		"dissipated power, heat load and beam coupling are not given"} {
+		if !strings.Contains(r.Stdout, want) {
+			t.Errorf("output lacks %q:\n%s", want, r.Stdout)
+		}
+	}
+	for _, bad := range []string{"x below", "dissipated P", "heat load at", "Beam coupling"} {
+		if strings.Contains(r.Stdout, bad) {
+			t.Errorf("output has %q above the quench guide:\n%s", bad, r.Stdout)
+		}
+	}
+	r = clitest.Run(t, append(args, "--gradient", "15MV/m")...)
+	if r.Code != 0 || !strings.Contains(r.Stdout, "x below the quench guide") || !strings.Contains(r.Stdout, "dissipated P") {
+		t.Errorf("15 MV/m: exit %d, output:\n%s", r.Code, r.Stdout)
+	}
+	clitest.CheckBadInput(t, "design", []clitest.BadCase{
+		// The message names the accelerator flag given.
+		{Args: []string{"--mode", "TE011", "--freq", "10GHz", "--particle-speed", "0.5"}, Code: 2, Want: []string{"--particle-speed needs a TM0mp mode", "--mode is TE011"}},
+	})
+}

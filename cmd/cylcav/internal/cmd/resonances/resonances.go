@@ -11,6 +11,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -177,6 +178,13 @@ replaced only with --force.`,
 				if !(sampleT < opts.Ident.Nominal.Length) {
 					return cmdutil.Usagef("--sample-thickness %s must be less than the cavity length %s", cmdutil.Text(cmd.Flags(), "sample-thickness"), cmdutil.Text(cmd.Flags(), "length"))
 				}
+				if !(sampleTErr < sampleT/2) {
+					// A standard uncertainty this large makes the
+					// linearised budget meaningless (the thickness could
+					// be zero within two sigma).
+					return cmdutil.FlagError("sample-thickness-tol", cmdutil.Text(cmd.Flags(), "sample-thickness-tol"),
+						fmt.Errorf("must be below half the --sample-thickness %s", cmdutil.Text(cmd.Flags(), "sample-thickness")))
+				}
 			}
 			if runF != nil {
 				return runF(opts)
@@ -207,6 +215,8 @@ replaced only with --force.`,
 	f.StringVar(&opts.FitPlots, "fit-plots", "", "write one plot per resonance to BASE-1.EXT, BASE-2.EXT, ... (.png, .svg, .pdf)")
 	cmdutil.IntVar(f, &opts.Page.DPI, "dpi", figure.DefaultDPI, "resolution of PNG output, dots per inch", figure.MinDPI, figure.MaxDPI)
 	f.BoolVar(&opts.Force, "force", false, "replace output files that exist")
+	cmdutil.Needs(cmd, "dpi", "plot", "fit-plots")
+	cmdutil.Needs(cmd, "force", "plot", "fit-plots")
 	cmd.PreRunE = func(*cobra.Command, []string) error { return checkFormat() }
 	return cmd
 }
@@ -272,6 +282,14 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, geo *cmdutil.Geome
 			return cmdutil.FlagError(p.flag, p.path, err)
 		}
 	}
+	if opts.Plot != "" {
+		// The fit plots' names depend on the resonances found: they are
+		// checked with the plot once the sweep is analysed, before any
+		// file is written.
+		if err := cmdutil.CheckFiles(opts.Force, cmdutil.File{Flag: "plot", Path: opts.Plot}); err != nil {
+			return err
+		}
+	}
 	return nil
 }
 
@@ -331,7 +349,7 @@ func runResonances(opts *Options) error {
 		// filled sweep, identified in that cavity, the fill.
 		dE, err := readSweep(opts.Empty)
 		if err != nil {
-			return err
+			return cmdutil.Usagef("--empty: %v", err)
 		}
 		rsE, err := measure.Analyze(dE, opts.Settings)
 		if err != nil {
@@ -375,18 +393,22 @@ func runResonances(opts *Options) error {
 		if id, err = identify(opts.File, rs, opts.Ident); err != nil {
 			return err
 		}
+		if opts.Ident.FitFill && id.Cavity.Fill.Eps() < 1 {
+			return fmt.Errorf("%s: with --fit-fill the fitted permittivity is %.6g, below vacuum's 1: the cavity is larger than drawn, not filled; fit D and L instead (leave out --fit-fill)", opts.File, id.Cavity.Fill.Eps())
+		}
 		if wd, err = diagnose(opts, rs, id); err != nil {
 			return fmt.Errorf("%s: %w", opts.File, err)
 		}
+	}
+	if err := cmdutil.CheckFiles(opts.Force, plotFiles(opts, rs)...); err != nil {
+		return err
 	}
 	files, err := renderPlots(opts, d, rs, id)
 	if err != nil {
 		return err
 	}
-	for _, f := range files {
-		if err := cmdutil.WriteFileAtomic(f.path, f.data, opts.Force); err != nil {
-			return err
-		}
+	if err := cmdutil.WriteFiles(opts.Force, files...); err != nil {
+		return err
 	}
 	switch opts.Format {
 	case cmdutil.JSON:
@@ -410,19 +432,39 @@ func runResonances(opts *Options) error {
 		return err
 	}
 	for _, f := range files {
-		fmt.Fprintf(opts.IO.Out, "wrote %s\n", f.path)
+		fmt.Fprintf(opts.IO.Out, "wrote %s\n", f.Path)
 	}
 	return nil
 }
 
-type outFile struct {
-	path string
-	data []byte
+// plotFiles names the files --plot and --fit-plots will write for the
+// resonances rs (contents not yet rendered), for cmdutil.CheckFiles.
+func plotFiles(opts *Options, rs []measure.Resonance) []cmdutil.File {
+	var out []cmdutil.File
+	if opts.Plot != "" {
+		out = append(out, cmdutil.File{Flag: "plot", Path: opts.Plot})
+	}
+	if opts.FitPlots != "" {
+		for i, r := range rs {
+			if r.Main == nil || r.Problem != "" {
+				continue
+			}
+			out = append(out, cmdutil.File{Flag: "fit-plots", Path: fitPlotPath(opts.FitPlots, i+1)})
+		}
+	}
+	return out
+}
+
+// fitPlotPath is the file of the fit plot of resonance i (from 1):
+// BASE-i.EXT for --fit-plots BASE.EXT.
+func fitPlotPath(base string, i int) string {
+	ext := filepath.Ext(base)
+	return fmt.Sprintf("%s-%d%s", strings.TrimSuffix(base, ext), i, ext)
 }
 
 // renderPlots renders every requested plot in memory, so that a failure
 // leaves no file behind.
-func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) ([]outFile, error) {
+func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *measure.Identification) ([]cmdutil.File, error) {
 	th := figure.DefaultTheme()
 	name, main := "S21", func() []complex128 { return nil }
 	if d.Ports == 1 {
@@ -431,7 +473,7 @@ func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *
 	} else {
 		main = func() []complex128 { return d.Param(2, 1) }
 	}
-	var out []outFile
+	var out []cmdutil.File
 	if opts.Plot != "" {
 		sp, err := benchplot.NewSweepPlot(d.Freq, main(), name, rs)
 		if err != nil {
@@ -450,11 +492,9 @@ func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *
 		if err != nil {
 			return nil, err
 		}
-		out = append(out, outFile{opts.Plot, b})
+		out = append(out, cmdutil.File{Flag: "plot", Path: opts.Plot, Data: b})
 	}
 	if opts.FitPlots != "" {
-		ext := filepath.Ext(opts.FitPlots)
-		base := strings.TrimSuffix(opts.FitPlots, ext)
 		for i, r := range rs {
 			if r.Main == nil || r.Problem != "" {
 				continue
@@ -467,12 +507,12 @@ func renderPlots(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *
 			if err != nil {
 				return nil, err
 			}
-			path := fmt.Sprintf("%s-%d%s", base, i+1, ext)
+			path := fitPlotPath(opts.FitPlots, i+1)
 			b, err := figure.EncodeAs(fig, path, opts.Page)
 			if err != nil {
 				return nil, err
 			}
-			out = append(out, outFile{path, b})
+			out = append(out, cmdutil.File{Flag: "fit-plots", Path: path, Data: b})
 		}
 	}
 	return out, nil
@@ -920,6 +960,10 @@ func startFromHint(opts *Options, rs []measure.Resonance) error {
 }
 
 // identify names the modes of the fitted resonances rs of file.
+// nominalMargin is how far above the highest resonance measure.Identify
+// takes the nominal cavity's modes as candidates.
+const nominalMargin = 1.2
+
 func identify(file string, rs []measure.Resonance, set measure.IdentifySettings) (*measure.Identification, error) {
 	f0 := make([]float64, 0, len(rs))
 	q0 := make([]float64, 0, len(rs))
@@ -928,6 +972,15 @@ func identify(file string, rs []measure.Resonance, set measure.IdentifySettings)
 	}
 	if hasNaN(f0) {
 		return nil, fmt.Errorf("%s: a resonance could not be fitted, so the modes cannot be named; see the table without --diameter", file)
+	}
+	if fmax := slices.Max(append(f0, 0)); fmax > 0 {
+		// The size is bad input when the drawn cavity has no mode near
+		// the measured band (a unit slip: 1mm for 40mm).
+		if ms, err := set.Nominal.Modes(fmax * nominalMargin); err == nil && len(ms) == 0 {
+			return nil, cmdutil.Usagef("the drawn cavity (D = %s, L = %s) has no mode below %s, %g times the highest resonance of %s: check --diameter (--radius) and --length and their units",
+				cmdutil.TrimZeros(physics.FormatLength(set.Nominal.Diameter(), 6)), cmdutil.TrimZeros(physics.FormatLength(set.Nominal.Length, 6)),
+				cmdutil.TrimZeros(physics.FormatFrequency(fmax*nominalMargin, 4)), nominalMargin, file)
+		}
 	}
 	id, err := measure.Identify(f0, q0, set)
 	if err != nil {

@@ -105,7 +105,41 @@ func TestBadInput(t *testing.T) {
 		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE010@10GHz"}, Code: 2, Want: []string{`--mode-hint "TE010@10GHz"`, "TE modes need p >= 1"}},
 		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011@12GHz"}, Code: 2, Want: []string{`--mode-hint "TE011@12GHz"`, "no resonance within 2 %"}},
 		{Args: []string{sweep("modes.s2p"), "--mode-hint", "TE011@10.36GHz", "--length", "31mm"}, Code: 2, Want: []string{"--mode-hint", "--length"}},
+		// Found by the user pass: --dpi and --force alone did nothing;
+		// the size checked against the sweep (a unit slip); output
+		// paths named with their flag.
+		{Args: []string{sweep("wide.s2p"), "--dpi", "100"}, Code: 2, Want: []string{"--dpi needs --plot"}},
+		{Args: []string{sweep("wide.s2p"), "--force"}, Code: 2, Want: []string{"--force needs --plot"}},
+		{Args: []string{sweep("modes.s2p"), "--diameter", "1mm", "--length", "31mm"}, Code: 2, Want: []string{"D = 1 mm", "no mode below 12.79 GHz", "--diameter"}},
+		{Args: []string{sweep("wide.s2p"), "--plot", filepath.Join(dir, "nodir", "p.svg")}, Code: 2, Want: []string{"--plot", "does not exist"}},
+		{Args: []string{sweep("wide.s2p"), "--plot", dir}, Code: 2, Want: []string{"--plot", "no extension"}},
+		{Args: []string{sweep("wide.s2p"), "--empty", dir, "--diameter", "40mm", "--length", "31mm", "--fill", "ptfe"}, Code: 2, Want: []string{"--empty", "is a directory"}},
+		// An empty cavity fitted for its fill gives eps_r below 1: said
+		// so, with the way out (status 1: the request cannot be met).
+		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--fit-fill"}, Code: 1, Want: []string{"--fit-fill", "below vacuum's 1", "fit D and L instead"}},
 	})
+}
+
+// TestPlotsAllOrNone: the sweep plot and the fit plots are written all or
+// none: a fit plot that exists without --force, or a --plot that names a
+// fit plot's file, is refused before anything is written (found by the
+// user pass: the files were written one by one, so a refusal left the
+// earlier ones behind).
+func TestPlotsAllOrNone(t *testing.T) {
+	dir := t.TempDir()
+	plot := filepath.Join(dir, "sweep.svg")
+	if err := os.WriteFile(filepath.Join(dir, "fit-3.svg"), []byte("x"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	clitest.CheckBadInput(t, "resonances", []clitest.BadCase{
+		{Args: []string{sweep("wide.s2p"), "--plot", plot, "--fit-plots", filepath.Join(dir, "fit.svg")}, Code: 2, Want: []string{`--fit-plots "`, "fit-3.svg", "--force"}},
+		{Args: []string{sweep("wide.s2p"), "--plot", filepath.Join(dir, "q-1.svg"), "--fit-plots", filepath.Join(dir, "q.svg")}, Code: 2, Want: []string{"name the same file"}},
+	})
+	for _, name := range []string{"sweep.svg", "fit-1.svg", "fit-2.svg", "q-1.svg", "q-2.svg"} {
+		if _, err := os.Stat(filepath.Join(dir, name)); err == nil {
+			t.Errorf("%s was written by a refused run", name)
+		}
+	}
 }
 
 // TestNoResonance: a sweep with no resonance is an error that says so.
@@ -345,6 +379,9 @@ func TestDiscJSON(t *testing.T) {
 		{Args: []string{sweep("disc_loaded.s2p"), "--sample-thickness", "2mm"}, Code: 2, Want: []string{"--empty"}},
 		{Args: []string{sweep("disc_loaded.s2p"), "--empty", sweep("disc_empty.s2p"), "--diameter", "36mm", "--length", "26mm", "--fill", "eps=9.5", "--sample-thickness", "30mm"}, Code: 2, Want: []string{"--sample-thickness 30mm", "cavity length"}},
 		{Args: []string{sweep("disc_loaded.s2p"), "--empty", sweep("disc_empty.s2p"), "--diameter", "36mm", "--length", "26mm", "--fill", "eps=9.5", "--sample-thickness-tol", "5um"}, Code: 2, Want: []string{"--sample-thickness"}},
+		// Found by the user pass: an uncertainty above the thickness was
+		// taken into the budget.
+		{Args: []string{sweep("disc_loaded.s2p"), "--empty", sweep("disc_empty.s2p"), "--diameter", "36mm", "--length", "26mm", "--fill", "eps=9.5", "--sample-thickness", "2mm", "--sample-thickness-tol", "5mm"}, Code: 2, Want: []string{`--sample-thickness-tol "5mm"`, "below half the --sample-thickness 2mm"}},
 	})
 }
 

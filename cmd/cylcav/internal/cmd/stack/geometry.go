@@ -1,8 +1,10 @@
 package stack
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"strings"
 
@@ -72,6 +74,9 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 	}
 	if len(doc.Content) == 0 {
 		return g, &FileError{File: file, Line: 1, Err: fmt.Errorf("empty file; it needs a 'sections' list")}
+	}
+	if line := secondDocument(data); line > 0 {
+		return g, &FileError{File: file, Line: line, Err: fmt.Errorf("a second YAML document ('---'): a geometry file holds one body; split it into two files")}
 	}
 	root := doc.Content[0]
 	ferr := func(n *yaml.Node, key string, format string, a ...any) error {
@@ -146,7 +151,7 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 				s.Fill = d.Medium
 				return nil
 			}
-			x, err := physics.ParseLength(v.Value)
+			x, err := cmdutil.LengthOf(v.Value)
 			if err != nil {
 				return ferr(v, key, "%v", err)
 			}
@@ -208,6 +213,27 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 		return g, ferr(sections, "sections", "%v", err)
 	}
 	return g, nil
+}
+
+// secondDocument returns the line of a second YAML document in data, or
+// 0 when there is one document (yaml.Unmarshal reads only the first, so
+// the rest would be ignored without a word).
+func secondDocument(data []byte) int {
+	dec := yaml.NewDecoder(bytes.NewReader(data))
+	var first, second yaml.Node
+	if dec.Decode(&first) != nil {
+		return 0
+	}
+	if err := dec.Decode(&second); err != nil {
+		if errors.Is(err, io.EOF) {
+			return 0
+		}
+		return 1 // a malformed second document: still a second one
+	}
+	if len(second.Content) == 0 || (len(second.Content) == 1 && second.Content[0].Tag == "!!null" && second.Content[0].Value == "") {
+		return 0 // a closing '---' with nothing after it
+	}
+	return max(second.Line, 1)
 }
 
 // eachKey calls fn for every key of mapping m in order, after rejecting keys
@@ -339,7 +365,7 @@ func parseLayers(file, key string, v *yaml.Node) ([]axisym.Layer, error) {
 				}
 				l.Medium = d.Medium
 			case "radius":
-				x, err := physics.ParseLength(v.Value)
+				x, err := cmdutil.LengthOf(v.Value)
 				if err != nil {
 					return ferr(v, kk, "%v", err)
 				}

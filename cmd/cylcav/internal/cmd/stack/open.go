@@ -33,11 +33,11 @@ func addRadiating(opts *Options, rows []Row, res []axisym.Resonance) ([]Row, []a
 	for _, fam := range opts.Families {
 		fine, err := axisym.Radiating(b, fam, opts.FMax, (3*modes+1)/2)
 		if err != nil {
-			return nil, nil, err
+			return nil, nil, solveError(opts, err)
 		}
 		coarse, err := axisym.Radiating(b, fam, opts.FMax*1.05, modes)
 		if err != nil {
-			return nil, nil, err
+			return nil, nil, solveError(opts, err)
 		}
 		for _, r := range fine {
 			row := Row{Family: fam.String() + "0", FHz: r.F, Status: statusRadiating}

@@ -35,8 +35,10 @@ type Options struct {
 	// File is the geometry file's name as given, Geometry its content.
 	File     string
 	Geometry Geometry
-	// FMax is the upper end of the search in Hz.
-	FMax float64
+	// FMax is the upper end of the search in Hz, FMaxText the --fmax value
+	// as typed (for messages).
+	FMax     float64
+	FMaxText string
 	// Modes is the number of modes in the widest section (0: the default).
 	Modes int
 	// Families are the families to solve.
@@ -232,6 +234,10 @@ transverse R/Q are not solved for stacked bodies.`,
 			if err := checkFormat(); err != nil {
 				return err
 			}
+			opts.FMaxText = cmdutil.Text(cmd.Flags(), "fmax")
+			if cmd.Flags().Changed("field-map") && opts.FieldMap == "" {
+				return cmdutil.FlagError("field-map", opts.FieldMap, errors.New("empty file name; name a .png, .svg or .pdf file"))
+			}
 			if opts.FieldMap != "" {
 				if opts.MapFormat, err = figure.FormatOf(opts.FieldMap); err != nil {
 					return cmdutil.FlagError("field-map", opts.FieldMap, err)
@@ -273,10 +279,16 @@ transverse R/Q are not solved for stacked bodies.`,
 				return err
 			}
 			if err := opts.Geometry.Body.FieldsAvailable(); err != nil {
-				for _, f := range []string{"field-map", "bulb-diameter"} {
+				// Q0, R/Q, field maps and filling factors all come from the
+				// matched fields: refuse each request for them, rather than
+				// print a column of dashes.
+				for _, f := range []string{"field-map", "bulb-diameter", "wall", "beta"} {
 					if cmd.Flags().Changed(f) {
 						return cmdutil.Usagef("--%s needs the fields of %s: %v", f, opts.File, err)
 					}
+				}
+				if opts.Geometry.Walls != nil {
+					return cmdutil.Usagef("%s: walls: Q0 needs the fields of the body: %v; remove the walls key to list the frequencies", opts.File, err)
 				}
 			}
 			if opts.Geometry.Walls != nil {
@@ -401,10 +413,7 @@ func runStack(opts *Options) error {
 		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "" || opts.Bulb.Diameter > 0,
 	})
 	if err != nil {
-		if errors.Is(err, axisym.ErrNotImplemented) {
-			return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", opts.File, err)}
-		}
-		return err
+		return solveError(opts, err)
 	}
 	rows := make([]Row, len(res))
 	for i, r := range res {
@@ -690,6 +699,20 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	return nil
 }
 
+// solveError reports an error of the solver: a body or request it does not
+// handle (axisym.ErrNotImplemented) and a request beyond its limits
+// (axisym.ErrLimit: too many resonances or modes below --fmax for this
+// body) are bad input, exit status 2; anything else is a failure.
+func solveError(opts *Options, err error) error {
+	switch {
+	case errors.Is(err, axisym.ErrNotImplemented):
+		return &cmdutil.UsageError{Err: fmt.Errorf("%s: %w", opts.File, err)}
+	case errors.Is(err, axisym.ErrLimit):
+		return cmdutil.FlagError("fmax", opts.FMaxText, fmt.Errorf("too high for %s: %v", opts.File, strings.TrimPrefix(err.Error(), "axisym: ")))
+	}
+	return err
+}
+
 // addQ fills the Q columns of row from the resonance's losses
 // (axisym.Loss.Unloaded).
 func addQ(row *Row, r axisym.Resonance, walls axisym.Walls, b axisym.Body) error {
@@ -734,7 +757,7 @@ func addExtrapolation(opts *Options, res []axisym.Resonance, rows []Row) error {
 	for _, fam := range opts.Families {
 		ex, err := axisym.Extrapolate(opts.Geometry.Body, fam, opts.FMax, opts.Modes)
 		if err != nil {
-			return err
+			return solveError(opts, err)
 		}
 		byFam[fam] = ex
 	}

@@ -113,6 +113,16 @@ func TestBadInput(t *testing.T) {
 		{"layerradius.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {fill: eps=3}\n", []string{"layerradius.yaml:5", "layers[1].radius", "missing"}},
 		{"layeropen.yaml", "end_b: pipe\nsections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: eps=38}\n      - {radius: 12mm}\n", []string{"layeropen.yaml", "radial layers in a body with an open end", "not implemented"}},
 		{"coax.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n    inner_radius: 5mm\n  - length: 30mm\n    radius: 25mm\n    inner_radius: 8mm\n", []string{"coax.yaml", "sections 1 and 2", "not implemented"}},
+		// Found by the user pass: a bare number was read as metres (30
+		// for 30 mm made a 30 m body), unlike every length flag; a second
+		// YAML document was ignored; a body too large for --fmax failed
+		// with status 1 and an internal frequency.
+		{"bare.yaml", "sections:\n  - length: 30\n    radius: 20mm\n", []string{"bare.yaml:2", "sections[1].length", "needs a unit", "30mm"}},
+		{"barelayer.yaml", "sections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 0.006, fill: eps=38}\n      - {radius: 12mm}\n", []string{"barelayer.yaml:5", "layers[1].radius", "needs a unit"}},
+		{"barestart.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n  - length: 3mm\n    radius: 4mm\n    start: 0.003\n", []string{"barestart.yaml:6", "sections[2].start", "needs a unit"}},
+		{"twodocs.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n---\nsections:\n  - length: 3mm\n    radius: 2mm\n", []string{"twodocs.yaml:4", "second YAML document"}},
+		{"huge.yaml", "sections:\n  - length: 3m\n    radius: 2m\n", []string{`--fmax "10GHz"`, "too high for", "huge.yaml", "more than 1000"}},
+		{"layerwalls.yaml", "walls:\n  side: copper\nsections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: eps=38}\n      - {radius: 12mm}\n", []string{"layerwalls.yaml: walls", "radially layered", "not implemented"}},
 	}
 	var bad []clitest.BadCase
 	for _, c := range cases {
@@ -142,6 +152,14 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--field-map", filepath.Join(dir, "p.svg")}, Code: 2, Want: []string{"--field-map", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--bulb-diameter", "4mm", "--bulb-length", "2mm"}, Code: 2, Want: []string{"--bulb-diameter", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
+		// Found by the user pass: Q0 and R/Q of a layered body were a
+		// column of dashes and a note per row; they are refused like its
+		// field map. An empty --field-map was taken as none.
+		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--wall", "copper"}, Code: 2, Want: []string{"--wall", "radially layered", "not implemented"}},
+		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--beta", "1"}, Code: 2, Want: []string{"--beta", "radially layered", "not implemented"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", ""}, Code: 2, Want: []string{`--field-map ""`, "empty file name"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10THz"}, Code: 2, Want: []string{`--fmax "10THz"`, "too high for", "lower the maximum frequency"}},
+		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--bunch-freq", "650MHz", "--harmonic-window", "0%"}, Code: 2, Want: []string{`--harmonic-window "0%"`, "between 0.0001% and 10%"}},
 	)
 	clitest.CheckBadInput(t, "stack", bad)
 	if r := clitest.Run(t, "stack", good, "--fmax", "10GHz", "--format", "csv"); r.Code != 0 || !strings.HasPrefix(r.Stdout, "index,family,family_index,f_hz") {
