@@ -23,7 +23,10 @@ type BeamOptions struct {
 type HarmonicRow struct {
 	Harmonic int     `json:"beam_harmonic"`
 	OffsetHz float64 `json:"harmonic_offset_hz"`
-	Near     bool    `json:"near_harmonic"`
+	// Near is the proximity verdict of qfactor.BeamHarmonic for any
+	// family; the table flags only TM0 resonances NEAR (a TE0 one has no
+	// E_z for the beam to drive).
+	Near bool `json:"near_harmonic"`
 }
 
 // dipoleNote says what the stacked-body solver does not give an
@@ -49,13 +52,15 @@ func harmonicRow(b BeamOptions, r axisym.Resonance) (*HarmonicRow, error) {
 	return &HarmonicRow{Harmonic: h, OffsetHz: off, Near: near}, nil
 }
 
-// harmonicText is the table cell of a resonance's beam harmonic.
-func harmonicText(r *HarmonicRow, bunch float64) string {
+// harmonicText is the table cell of a resonance's beam harmonic; only a
+// TM0 resonance (E_z on the axis) is flagged NEAR: the beam cannot drive
+// a TE0 one (E_phi only), whatever its frequency.
+func harmonicText(r *HarmonicRow, bunch float64, family string) string {
 	if r == nil {
 		return "-"
 	}
 	s := fmt.Sprintf("%d x %s, %s", r.Harmonic, cmdutil.TrimZeros(physics.FormatFrequency(bunch, 6)), signedHz(r.OffsetHz))
-	if r.Near {
+	if r.Near && family == "TM0" {
 		s = "NEAR " + s
 	}
 	return s
@@ -75,9 +80,14 @@ func writeBeamNote(w io.Writer, b BeamOptions) {
 		if win == 0 {
 			win = qfactor.DefaultHarmonicWindow
 		}
+		which := "--harmonic-window"
+		if b.Window == 0 {
+			which = "our default window, not a standard"
+		}
 		fmt.Fprintf(w, "beam harmonic: nearest harmonic of the %s bunch frequency; NEAR within %.3g %% of the resonance frequency\n",
 			cmdutil.TrimZeros(physics.FormatFrequency(b.Bunch, 6)), 100*win)
-		fmt.Fprintln(w, "(our default window, not a standard); a NEAR TM0 resonance with R/Q can be driven by the beam: damp or move it")
+		fmt.Fprintf(w, "(%s); a NEAR TM0 resonance with R/Q can be driven by the beam: damp or move it; a TE0 resonance has\n", which)
+		fmt.Fprintln(w, "no E_z anywhere, so a beam along the axis does not drive it: its harmonic is shown, never flagged NEAR")
 	}
 	fmt.Fprintln(w, "note: "+dipoleNote)
 }

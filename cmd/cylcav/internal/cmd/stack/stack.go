@@ -189,7 +189,8 @@ factor eta', from the matched fields (a dielectric-loaded can included).
 The bulb must lie in free space of circular sections.
 
 --bunch-freq F gives every resonance its nearest beam harmonic and flags
-it NEAR within --harmonic-window (default 0.5 %%) of one. With --beta or
+a TM0 resonance NEAR within --harmonic-window (default 0.5 %%) of one (a
+TE0 resonance has no E_z for the beam to drive). With --beta or
 --bunch-freq the output says that dipole (n = 1) modes and their
 transverse R/Q are not solved for stacked bodies.`,
 			strings.Join(topKeys, ", "), strings.Join(sectionKeys, ", "), axisym.DefaultModes),
@@ -648,7 +649,7 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 			cells = append(cells, bulbText(r.Bulb)...)
 		}
 		if opts.Beam.Bunch > 0 {
-			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch))
+			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch, r.Family))
 		}
 		if b.Open() {
 			cells = append(cells, r.Status, qextText(r.QExt, r.QExtChange))
