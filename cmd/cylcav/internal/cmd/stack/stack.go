@@ -292,6 +292,16 @@ transverse R/Q are not solved for stacked bodies.`,
 					return cmdutil.Usagef("%s: walls: Q0 needs the fields of the body: %v; remove the walls key to list the frequencies", opts.File, err)
 				}
 			}
+			if cmd.Flags().Changed("beta") {
+				// T and R/Q need the axis free for the beam: with an inner
+				// conductor they would be a column of dashes.
+				for i, sec := range opts.Geometry.Body.Sections {
+					if sec.InnerRadius > 0 {
+						return cmdutil.Usagef("--beta needs a free axis for the beam, but section %d of %s has an inner conductor (inner_radius %s)",
+							i+1, opts.File, lengthText(sec.InnerRadius))
+					}
+				}
+			}
 			if opts.Geometry.Walls != nil {
 				if opts.Walls != nil {
 					return cmdutil.Usagef("%s gives walls and so does --wall: give the metals in one place", opts.File)
@@ -638,7 +648,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 			cells = append(cells, numText(r.T, 4, ""), numText(r.RoverQLinac, 4, " ohm"), numText(r.RoverQCircuit, 4, " ohm"))
 		}
 		if opts.Extrapolate {
-			if r.FExtrapolatedHz == nil {
+			if r.Status == statusRadiating {
+				cells = append(cells, "-", "-") // the extrapolation is of the real (trapped) model only
+			} else if r.FExtrapolatedHz == nil {
 				cells = append(cells, "irregular", "-")
 			} else {
 				cells = append(cells, physics.FormatFrequency(*r.FExtrapolatedHz, extrapDigits(*r.FExtrapolatedHz, *r.ExtrapolationErrorHz)),
@@ -662,6 +674,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if opts.Extrapolate {
 		fmt.Fprintln(w, "f extrapolated: Richardson's rule on N, 2N and 4N modes per section, the order fitted; error: its")
 		fmt.Fprintln(w, "distance from the order-2 extrapolation (irregular: the three models did not converge regularly)")
+		if b.Open() {
+			fmt.Fprintln(w, "radiating resonances are not extrapolated (-): only the trapped ones, real resonances of the model")
+		}
 	}
 	if opts.Bulb.Diameter > 0 {
 		writeBulbNote(w, opts.Bulb, b)

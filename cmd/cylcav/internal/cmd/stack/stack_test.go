@@ -90,6 +90,10 @@ func TestBadInput(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	reentrant, err := filepath.Abs(filepath.Join("..", "..", "..", "..", "..", "examples", "reentrant.yaml"))
+	if err != nil {
+		t.Fatal(err)
+	}
 	cases := []struct {
 		name, text string
 		want       []string
@@ -158,6 +162,7 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--wall", "copper"}, Code: 2, Want: []string{"--wall", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--beta", "1"}, Code: 2, Want: []string{"--beta", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", ""}, Code: 2, Want: []string{`--field-map ""`, "empty file name"}},
+		clitest.BadCase{Args: []string{reentrant, "--fmax", "6GHz", "--beta", "1"}, Code: 2, Want: []string{"--beta needs a free axis", "section 1", "inner conductor"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10THz"}, Code: 2, Want: []string{`--fmax "10THz"`, "too high for", "lower the maximum frequency"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--bunch-freq", "650MHz", "--harmonic-window", "0%"}, Code: 2, Want: []string{`--harmonic-window "0%"`, "between 0.0001% and 10%"}},
 	)
@@ -323,6 +328,23 @@ func TestExtrapolateJSON(t *testing.T) {
 	for _, row := range run("examples/nosed-cell.yaml", "--fmax", "9GHz") {
 		if row.ExtrapolationErrorHz == nil || row.ChangeHz == nil || *row.ExtrapolationErrorHz >= *row.ChangeHz {
 			t.Errorf("#%d: extrapolation error %v, change %v", row.Index, row.ExtrapolationErrorHz, row.ChangeHz)
+		}
+	}
+}
+
+// TestExtrapolateRadiating: with --extrapolate a radiating resonance of an
+// open body shows "-" (not extrapolated: Extrapolate works on the real,
+// trapped model), not "irregular", which would claim the three models
+// were tried and did not converge (found by the user pass).
+func TestExtrapolateRadiating(t *testing.T) {
+	inRepo(t)
+	r := clitest.Run(t, "stack", "examples/fed-cell.yaml", "--fmax", "10.5GHz", "--family", "te", "--extrapolate")
+	if r.Code != 0 || !strings.Contains(r.Stdout, "radiating resonances are not extrapolated") {
+		t.Fatalf("exit %d: %s%s", r.Code, r.Stdout, r.Stderr)
+	}
+	for _, line := range strings.Split(r.Stdout, "\n") {
+		if strings.Contains(line, "radiating  ") && strings.Contains(line, "irregular") {
+			t.Errorf("radiating row claims an irregular extrapolation: %q", line)
 		}
 	}
 }
