@@ -341,8 +341,7 @@ func (s Scenario) Run(progress func(done, total int)) (Result, error) {
 	if s.Bulb != nil {
 		b := *s.Bulb
 		if b.Radius > d.Cavity.Radius || b.Length > d.Cavity.Length {
-			return Result{}, fmt.Errorf("the storage bulb (D = %s, L = %s) does not fit in the designed cavity (D = %s, L = %s)",
-				physics.FormatLength(2*b.Radius, 4), physics.FormatLength(b.Length, 4), physics.FormatLength(d.Cavity.Diameter(), 6), physics.FormatLength(d.Cavity.Length, 6))
+			return Result{}, &BulbError{Bulb: b, Cavity: d.Cavity}
 		}
 		f, err := d.Cavity.FillingFactors(spec.Mode, b)
 		if err != nil {
@@ -505,4 +504,17 @@ func plateauChoice(spec cavity.DesignSpec) string {
 		return "the point of highest Q0"
 	}
 	return "the geometric centre"
+}
+
+// BulbError is the error of Scenario.Run for a storage bulb larger than
+// the cavity it designed: the request is inconsistent with the design
+// found, which a command reports as bad input against its bulb flags.
+type BulbError struct {
+	Bulb   cavity.Bulb
+	Cavity cavity.Cavity
+}
+
+func (e *BulbError) Error() string {
+	return fmt.Sprintf("the storage bulb (D = %s, L = %s) does not fit in the designed cavity (D = %s, L = %s)",
+		physics.FormatLength(2*e.Bulb.Radius, 4), physics.FormatLength(e.Bulb.Length, 4), physics.FormatLength(e.Cavity.Diameter(), 6), physics.FormatLength(e.Cavity.Length, 6))
 }

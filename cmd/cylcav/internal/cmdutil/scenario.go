@@ -240,6 +240,11 @@ func RunScenario(io *IOStreams, s design.Scenario) (design.Result, error) {
 		}
 		return r, Usagef("--%s %s: must be below a tenth of the designed dimension, %s", flag, physics.FormatLength(te.Value, 4), physics.FormatLength(te.Max, 4))
 	}
+	// So is a storage bulb larger than the cavity designed.
+	var be *design.BulbError
+	if errors.As(err, &be) {
+		return r, Usagef("--bulb-diameter/--bulb-length: %v; the bulb must fit inside it", be)
+	}
 	return r, err
 }
 

@@ -95,7 +95,9 @@ func TestBulbFillingFactors(t *testing.T) {
 	clitest.CheckBadInput(t, "design", []clitest.BadCase{
 		{Args: []string{"--mode", "TM010", "--freq", "1.3GHz", "--bulb-diameter", "10mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"TE0mp"}},
 		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "10mm"}, Code: 2, Want: []string{"--bulb-diameter needs --bulb-length"}},
-		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "1m", "--bulb-length", "10mm"}, Code: 1, Want: []string{"does not fit", "D = 1.000 m"}},
+		// Bad input against the design found, as a tolerance too large
+		// for it is (exit 2, naming the flags).
+		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "1m", "--bulb-length", "10mm"}, Code: 2, Want: []string{"--bulb-diameter", "does not fit", "D = 1.000 m"}},
 		{Args: []string{"--mode", "TE011", "--freq", "1.4GHz", "--bulb-diameter", "-5mm", "--bulb-length", "10mm"}, Code: 2, Want: []string{"--bulb-diameter"}},
 	})
 }

@@ -55,6 +55,10 @@ func TestBadInputMain(t *testing.T) {
 		{Args: with("--min-clearance", "50%"), Code: 1, Want: []string{"best clearance", "7.364 %"}},
 		{Args: with("--max-diameter", "10mm"), Code: 2, Want: []string{`--max-diameter "10mm"`, "cut off", "must exceed 36.5648 mm"}},
 		{Args: with("--tuning", "45%"), Code: 1, Want: []string{"tuning", "D/L >="}},
+		// Found by the user pass: a bulb larger than the designed cavity
+		// (42.07 x 30.31 mm for TE011 at 10 GHz) was status 1 without the
+		// flag's name.
+		{Args: with("--bulb-diameter", "500mm", "--bulb-length", "5mm"), Code: 2, Want: []string{"--bulb-diameter", "D = 500.0 mm", "does not fit in the designed cavity"}},
 		// Beyond the reach of the mode chart (cavity.MaxChartModes).
 		{Args: []string{"--mode", "TE(50,50,50)", "--freq", "10GHz"}, Code: 1, Want: []string{"lower-order mode"}},
 	})

@@ -156,9 +156,9 @@ of Q0 when the modes grew by half. Bodies without steps give exact Q0;
 next to a step edge the wall loss converges slowly, so there Q0 is an
 estimate (high by about its change or more).
 
-With --beta B (a particle speed over c) TM0 resonances of a body whose
-axis is free (no inner conductor) gain the transit-time factor T and R/Q
-in both conventions, labelled: V^2/(omega W) ("linac") and V^2/(2 omega W)
+With --beta B (a particle speed over c; the axis must be free, so a body
+with an inner conductor is refused) TM0 resonances gain the transit-time
+factor T and R/Q in both conventions, labelled: V^2/(omega W) ("linac") and V^2/(2 omega W)
 ("circuit"). Peak surface fields are not given: at a sharp step edge the
 model's field is infinite.
 
