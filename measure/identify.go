@@ -3,6 +3,7 @@ package measure
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 
 	"gonum.org/v1/gonum/mat"
@@ -68,6 +69,47 @@ type Identification struct {
 
 	Assign []Assignment // one per measured resonance, in input order
 	Pairs  []Pair
+
+	// Chance is the number of resonances expected within MatchTol of a
+	// mode of the fitted cavity by chance alone (see ByChance).
+	Chance float64
+}
+
+// ByChance is the one verdict on a naming that a dense spectrum makes
+// meaningless: the resonances expected to match a mode by chance
+// (Chance) are at least half of those matched, as when a drawn size
+// far too large (4000mm for 40mm) gives thousands of modes in the band.
+// Chance = N min(1, 2 tol n / ln(f2/f1)) for N resonances and the n
+// distinct mode frequencies of the fitted cavity between f1 and f2, the
+// measured band widened by the assignment's capture 20 tol on each side:
+// n frequencies spread over the band put a random frequency within tol of
+// one with that probability (derived, as for CavityFromHint's score; the
+// threshold of one half is our choice).
+func (id Identification) ByChance() bool {
+	matched := 0
+	for _, a := range id.Assign {
+		if a.Matched {
+			matched++
+		}
+	}
+	return matched > 0 && id.Chance >= 0.5*float64(matched)
+}
+
+// chanceMatches returns Identification.Chance for the measured
+// frequencies f0, the fitted model frequencies fs (one per slot) and the
+// match tolerance tol.
+func chanceMatches(f0, fs []float64, tol float64) float64 {
+	if len(f0) == 0 {
+		return 0
+	}
+	lo, hi := slices.Min(f0)/(1+20*tol), slices.Max(f0)*(1+20*tol)
+	n := 0
+	for _, f := range fs {
+		if f >= lo && f <= hi {
+			n++
+		}
+	}
+	return float64(len(f0)) * math.Min(1, 2*tol*float64(n)/math.Log(hi/lo))
 }
 
 // slot is one distinct frequency of the model: a mode, or the TE0mp and
@@ -249,6 +291,7 @@ func Identify(f0, q0 []float64, s IdentifySettings) (Identification, error) {
 		}
 		out.Assign[i] = a
 	}
+	out.Chance = chanceMatches(f0, fs, tol)
 	fin := observations(f0, matchedOnly(assign, out.Assign), c, slots, tol)
 	ss, n = 0, len(fin)
 	for _, o := range fin {

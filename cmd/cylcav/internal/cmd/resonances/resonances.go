@@ -562,6 +562,11 @@ type cavityJSON struct {
 	EpsRErr      number     `json:"eps_r_err"`
 	RMSResidual  number     `json:"rms_residual"`
 	Pairs        []pairJSON `json:"split_pairs"`
+	// ChanceMatches is the number of resonances expected to match a mode
+	// by chance; NamesByChance the verdict measure.Identification.ByChance
+	// (the mode names are then not meaningful).
+	ChanceMatches number `json:"chance_matches"`
+	NamesByChance bool   `json:"names_by_chance"`
 
 	// With --mode-hint: the hinted resonance (1-based) and whether
 	// another ratio D/L fits about as well.
@@ -611,7 +616,7 @@ func toJSON(file string, d *touchstone.Data, rs []measure.Resonance, id *measure
 		c := id.Cavity
 		o.Cavity = &cavityJSON{DiameterM: number(c.Diameter()), DiameterErrM: number(2 * id.RadiusErr),
 			LengthM: number(c.Length), LengthErrM: number(id.LengthErr), EpsR: number(c.Fill.Eps()), EpsRErr: number(id.EpsErr),
-			RMSResidual: number(id.RMS), Pairs: []pairJSON{}}
+			RMSResidual: number(id.RMS), Pairs: []pairJSON{}, ChanceMatches: number(id.Chance), NamesByChance: id.ByChance()}
 		for _, p := range id.Pairs {
 			o.Cavity.Pairs = append(o.Cavity.Pairs, pairJSON{TE: p.TE + 1, TM: p.TM + 1, SplitHz: number(p.Split)})
 		}
@@ -745,6 +750,9 @@ func writeTable(opts *Options, d *touchstone.Data, rs []measure.Resonance, id *m
 			fmt.Fprintf(w, "Effective cavity: D = %s mm, L = %s mm (%s %s, %s); RMS residual %.0f ppm.\n",
 				pm(c.Diameter(), 2*id.RadiusErr, 1e-3), pm(c.Length, id.LengthErr, 1e-3), from,
 				physics.FormatLength(opts.Ident.Nominal.Diameter(), 6), physics.FormatLength(opts.Ident.Nominal.Length, 6), 1e6*id.RMS)
+		}
+		if id.ByChance() {
+			fmt.Fprintf(w, "Caution: about %.1f of the matches are expected by chance: the fitted cavity's modes are so dense in the band that any frequency lies near one, so the mode names and the fit mean nothing; check the drawn size and its units.\n", id.Chance)
 		}
 		if h := opts.hinted; h != nil {
 			fmt.Fprintf(w, "Mode hint: %d of %d resonances near a mode of the start (%.1f expected by chance).\n", h.Near, len(id.Assign), h.Chance)

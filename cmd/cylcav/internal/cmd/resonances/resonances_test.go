@@ -396,3 +396,30 @@ func readJSON(t *testing.T, name string, v any) {
 		t.Fatalf("%s: %v", name, err)
 	}
 }
+
+// TestNamesByChance: a drawn diameter 20 times too large (800mm for a
+// 40 mm cavity, a unit slip) gives a spectrum so dense that every
+// resonance lies near some mode; the output says the names mean nothing
+// (measure.Identification.ByChance), and JSON carries the verdict. With
+// the right drawing it does not (found by the user pass: 4000mm named all
+// nine resonances with "5 ppm" residuals and no warning).
+func TestNamesByChance(t *testing.T) {
+	r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", "800mm", "--length", "31mm")
+	if r.Code != 0 || !strings.Contains(r.Stdout, "expected by chance") || !strings.Contains(r.Stdout, "check the drawn size") {
+		t.Errorf("800mm: exit %d, %s%s", r.Code, r.Stdout, r.Stderr)
+	}
+	for _, c := range []struct {
+		d    string
+		want bool
+	}{{"800mm", true}, {"40mm", false}} {
+		r := clitest.Run(t, "resonances", sweep("modes.s2p"), "--diameter", c.d, "--length", "31mm", "--format", "json")
+		var out struct {
+			Cavity struct {
+				ByChance bool `json:"names_by_chance"`
+			} `json:"fitted_cavity"`
+		}
+		if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil || out.Cavity.ByChance != c.want {
+			t.Errorf("--diameter %s: names_by_chance %v (%v), want %v", c.d, out.Cavity.ByChance, err, c.want)
+		}
+	}
+}
