@@ -53,11 +53,13 @@ type strictValue struct {
 	repeat  bool
 }
 
-// IsBoolFlag keeps a wrapped boolean flag usable without a value (--force).
-func (v *strictValue) IsBoolFlag() bool {
-	b, ok := v.Value.(interface{ IsBoolFlag() bool })
-	return ok && b.IsBoolFlag()
-}
+// strictBool is a strictValue of a boolean flag: IsBoolFlag keeps it
+// usable without a value (--force). Only boolean flags get the method:
+// pflag takes any value with it for a boolean and then prints a default
+// "0" in the help ("(default 40) (default 0)").
+type strictBool struct{ *strictValue }
+
+func (v strictBool) IsBoolFlag() bool { return true }
 
 func (v *strictValue) Set(s string) error {
 	if len(v.given) > 0 && !v.repeat {
@@ -89,15 +91,21 @@ func isDecimalInteger(s string) bool {
 // subcommands. Call it once, after every command and flag is defined.
 func HardenFlags(cmd *cobra.Command) {
 	harden := func(f *pflag.Flag) {
-		if _, done := f.Value.(*strictValue); done {
+		switch f.Value.(type) {
+		case *strictValue, strictBool:
 			return
 		}
 		t := f.Value.Type()
-		f.Value = &strictValue{
+		sv := &strictValue{
 			Value:   f.Value,
 			integer: strings.HasPrefix(t, "int") || strings.HasPrefix(t, "uint"),
 			repeat:  strings.HasSuffix(t, "Slice") || strings.HasSuffix(t, "Array"),
 		}
+		if b, ok := f.Value.(interface{ IsBoolFlag() bool }); ok && b.IsBoolFlag() {
+			f.Value = strictBool{sv}
+			return
+		}
+		f.Value = sv
 	}
 	cmd.LocalFlags().VisitAll(harden)
 	cmd.PersistentFlags().VisitAll(harden)

@@ -207,6 +207,9 @@ func TestFlagRules(t *testing.T) {
 		{with(flt, "--force"), []string{"--force needs --touchstone or --plot"}},
 		{with(flt, "--temperature", "2K"), []string{"--temperature needs --wall"}},
 		{[]string{"tune", "--mode", "TE011", "--diameter", "40mm", "--length-range", "28mm:32mm", "--at", "1mm,0,1mm"}, []string{"--at needs --sphere"}},
+		// Found by the user pass: alone these did nothing.
+		{[]string{"stack", "examples/iris-pair.yaml", "--fmax", "12GHz", "--force"}, []string{"--force needs --field-map"}},
+		{[]string{"resonances", "testdata/measure/wide.s2p", "--dpi", "100"}, []string{"--dpi needs --plot or --fit-plots"}},
 	} {
 		r := clitest.Run(t, tc.args...)
 		ok := r.Code == 2 && r.Stdout == "" && strings.Count(r.Stderr, "\n") == 1
@@ -250,6 +253,24 @@ func TestBareNumbers(t *testing.T) {
 	} {
 		if r := clitest.Run(t, args...); r.Code != 0 {
 			t.Errorf("cylcav %s: exit %d, stderr %q; want success", strings.Join(args, " "), r.Code, r.Stderr)
+		}
+	}
+}
+
+// TestHelpDefaults: no flag's help line states two defaults. Every flag is
+// wrapped by cmdutil.HardenFlags; a wrapper of a non-boolean flag that
+// answered IsBoolFlag made pflag print "(default 0)" after the usage's own
+// default ("(default 40) (default 0)"; found by the user pass).
+func TestHelpDefaults(t *testing.T) {
+	for _, c := range []string{"stack", "filter", "resonances", "design", "modes", "report", "tune", "q", "size", "chart", "clearance"} {
+		r := clitest.Run(t, c, "--help")
+		if r.Code != 0 {
+			t.Fatalf("%s --help: exit %d", c, r.Code)
+		}
+		for _, line := range strings.Split(r.Stdout, "\n") {
+			if strings.HasPrefix(strings.TrimSpace(line), "-") && strings.Count(line, "(default ") > 1 {
+				t.Errorf("%s --help: %q", c, line)
+			}
 		}
 	}
 }

@@ -324,6 +324,7 @@ transverse R/Q are not solved for stacked bodies.`,
 	fl.StringVar(&opts.FieldMap, "field-map", "", "write the field map of resonance --map to this file (.png, .svg or .pdf)")
 	cmdutil.IntVar(fl, &opts.MapIndex, "map", 1, "resonance number (the # column) of the field map", 1, maxMapIndex)
 	fl.BoolVar(&opts.Force, "force", false, "replace the field-map file if it exists")
+	cmdutil.Needs(cmd, "force", "field-map")
 	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
 	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
