@@ -273,6 +273,16 @@ func (opts *Options) parse(cmd *cobra.Command, args []string, geo *cmdutil.Geome
 		opts.Walls = &ws
 		break
 	}
+	if opts.Format == cmdutil.CSV {
+		// The CSV has one row per resonance: the fill and the wall
+		// diagnosis, results for the cavity, would be dropped unsaid.
+		switch {
+		case opts.Empty != "":
+			return cmdutil.Usagef("--empty measures the fill, shown in table and JSON output; with --format csv (one row per resonance) it would be lost: use --format json")
+		case opts.Walls != nil:
+			return cmdutil.Usagef("--wall gives the wall diagnosis, shown in table and JSON output; with --format csv (one row per resonance) it would be lost: use --format json or leave out the wall flags")
+		}
+	}
 	opts.File = args[0]
 	for _, p := range []struct{ flag, path string }{{"plot", opts.Plot}, {"fit-plots", opts.FitPlots}} {
 		if p.path == "" {

@@ -116,6 +116,10 @@ func TestBadInput(t *testing.T) {
 		{Args: []string{sweep("wide.s2p"), "--empty", dir, "--diameter", "40mm", "--length", "31mm", "--fill", "ptfe"}, Code: 2, Want: []string{"--empty", "is a directory"}},
 		// An empty cavity fitted for its fill gives eps_r below 1: said
 		// so, with the way out (status 1: the request cannot be met).
+		// The CSV (a row per resonance) would drop the fill and the wall
+		// diagnosis without a word.
+		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--wall", "ss304", "--format", "csv"}, Code: 2, Want: []string{"--wall", "--format csv", "use --format json"}},
+		{Args: []string{sweep("modes_filled.s2p"), "--empty", sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--fill", "ptfe", "--format", "csv"}, Code: 2, Want: []string{"--empty", "--format csv"}},
 		{Args: []string{sweep("modes.s2p"), "--diameter", "40mm", "--length", "31mm", "--fit-fill"}, Code: 1, Want: []string{"--fit-fill", "below vacuum's 1", "fit D and L instead"}},
 	})
 }

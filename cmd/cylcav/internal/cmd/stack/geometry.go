@@ -85,7 +85,7 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 	if root.Kind != yaml.MappingNode {
 		return g, ferr(root, "", "the file must be a mapping with the keys %s", strings.Join(topKeys, ", "))
 	}
-	var sections *yaml.Node
+	var sections, wallsNode *yaml.Node
 	if err := eachKey(file, root, "", topKeys, func(k, v *yaml.Node) error {
 		switch k.Value {
 		case "title":
@@ -111,6 +111,7 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 				return err
 			}
 			g.Walls = w
+			wallsNode = v
 		}
 		return nil
 	}); err != nil {
@@ -118,6 +119,16 @@ func ParseGeometry(file string, data []byte) (Geometry, error) {
 	}
 	if sections == nil {
 		return g, ferr(root, "sections", "missing: list the sections from the end plate at z = 0")
+	}
+	if wallsNode != nil {
+		// A plate's metal for an end that is a pipe would be ignored.
+		for i := 0; i+1 < len(wallsNode.Content); i += 2 {
+			k := wallsNode.Content[i]
+			if (k.Value == "plate_a" && g.Body.EndA == axisym.Pipe) || (k.Value == "plate_b" && g.Body.EndB == axisym.Pipe) {
+				end := "end_" + strings.TrimPrefix(k.Value, "plate_")
+				return g, ferr(k, "walls."+k.Value, "%s is a pipe: there is no plate to give a metal; remove walls.%s or make %s a plate", end, k.Value, end)
+			}
+		}
 	}
 	if sections.Kind != yaml.SequenceNode || len(sections.Content) == 0 {
 		return g, ferr(sections, "sections", "must be a non-empty list of sections")

@@ -292,6 +292,18 @@ transverse R/Q are not solved for stacked bodies.`,
 					return cmdutil.Usagef("%s: walls: Q0 needs the fields of the body: %v; remove the walls key to list the frequencies", opts.File, err)
 				}
 			}
+			// An end plate's metal for an end that is a pipe would be
+			// ignored.
+			b := opts.Geometry.Body
+			for _, e := range []struct {
+				flag, ends string
+				pipe       bool
+			}{{"end-wall-a", "end_a is a pipe", b.EndA == axisym.Pipe}, {"end-wall-b", "end_b is a pipe", b.EndB == axisym.Pipe},
+				{"end-wall", "both ends are pipes", b.EndA == axisym.Pipe && b.EndB == axisym.Pipe}} {
+				if e.pipe && cmd.Flags().Changed(e.flag) {
+					return cmdutil.Usagef("--%s sets an end plate's metal, but in %s %s: leave it out", e.flag, opts.File, e.ends)
+				}
+			}
 			if cmd.Flags().Changed("beta") {
 				// T and R/Q need the axis free for the beam: with an inner
 				// conductor they would be a column of dashes.

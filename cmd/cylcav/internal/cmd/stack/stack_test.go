@@ -94,6 +94,10 @@ func TestBadInput(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	fed, err := filepath.Abs(filepath.Join("..", "..", "..", "..", "..", "examples", "fed-cell.yaml"))
+	if err != nil {
+		t.Fatal(err)
+	}
 	cases := []struct {
 		name, text string
 		want       []string
@@ -126,6 +130,7 @@ func TestBadInput(t *testing.T) {
 		{"barestart.yaml", "sections:\n  - length: 3mm\n    radius: 2mm\n  - length: 3mm\n    radius: 4mm\n    start: 0.003\n", []string{"barestart.yaml:6", "sections[2].start", "needs a unit"}},
 		{"twodocs.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n---\nsections:\n  - length: 3mm\n    radius: 2mm\n", []string{"twodocs.yaml:4", "second YAML document"}},
 		{"huge.yaml", "sections:\n  - length: 3m\n    radius: 2m\n", []string{`--fmax "10GHz"`, "too high for", "huge.yaml", "more than 1000"}},
+		{"platea.yaml", "end_a: pipe\nwalls:\n  side: copper\n  plate_a: silver\nsections:\n  - length: 10mm\n    radius: 20mm\n  - length: 40mm\n    radius: 18mm\n", []string{"platea.yaml:4", "walls.plate_a", "end_a is a pipe"}},
 		{"layerwalls.yaml", "walls:\n  side: copper\nsections:\n  - length: 5mm\n    radius: 12mm\n    layers:\n      - {radius: 6mm, fill: eps=38}\n      - {radius: 12mm}\n", []string{"layerwalls.yaml: walls", "radially layered", "not implemented"}},
 	}
 	var bad []clitest.BadCase
@@ -162,6 +167,7 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--wall", "copper"}, Code: 2, Want: []string{"--wall", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--beta", "1"}, Code: 2, Want: []string{"--beta", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--field-map", ""}, Code: 2, Want: []string{`--field-map ""`, "empty file name"}},
+		clitest.BadCase{Args: []string{fed, "--fmax", "10.5GHz", "--wall", "copper", "--end-wall-a", "silver"}, Code: 2, Want: []string{"--end-wall-a", "end_a is a pipe"}},
 		clitest.BadCase{Args: []string{reentrant, "--fmax", "6GHz", "--beta", "1"}, Code: 2, Want: []string{"--beta needs a free axis", "section 1", "inner conductor"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10THz"}, Code: 2, Want: []string{`--fmax "10THz"`, "too high for", "lower the maximum frequency"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--bunch-freq", "650MHz", "--harmonic-window", "0%"}, Code: 2, Want: []string{`--harmonic-window "0%"`, "between 0.0001% and 10%"}},
