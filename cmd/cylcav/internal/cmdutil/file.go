@@ -26,7 +26,7 @@ type File struct {
 // and a failed run leaves nothing behind:
 //
 //  1. every path is checked before anything is written: its directory must
-//     exist; an existing path must be a regular file (or a symbolic link to
+//     exist and take a new file (probeDir); an existing path must be a regular file (or a symbolic link to
 //     one, which is kept and its target replaced) and is replaced only when
 //     force is true; a named pipe, device, socket, directory or dangling
 //     link is refused even with force, and so is one path given twice.
@@ -103,6 +103,9 @@ func checkTarget(f File, force bool) (target, error) {
 		if err != nil || !di.IsDir() {
 			return t, bad("directory %s does not exist", dir)
 		}
+		if err := probeDir(dir); err != nil {
+			return t, bad("cannot create a file in %s: %v", dir, err)
+		}
 		return t, nil
 	case err != nil:
 		return t, bad("%v", errors.Unwrap(err))
@@ -123,8 +126,31 @@ func checkTarget(f File, force bool) (target, error) {
 	if !force {
 		return t, bad("file exists; pass --force to replace it")
 	}
+	if dir := filepath.Dir(t.real); probeDir(dir) != nil {
+		// The replacement is written beside the file, then renamed.
+		return t, bad("cannot create a file in %s: %v", dir, probeDir(dir))
+	}
 	t.existed, t.perm = true, fi.Mode().Perm()
 	return t, nil
+}
+
+// probeDir tells whether a file can be created in dir (a read-only
+// directory or file system, a pseudo file system that takes no new
+// files), by creating an empty temporary file and removing it, so that a
+// path that cannot be written is refused before any work, as bad input,
+// rather than failing at the end.
+func probeDir(dir string) error {
+	fh, err := os.CreateTemp(dir, ".cylcav-probe-*")
+	if err != nil {
+		var pe *fs.PathError
+		if errors.As(err, &pe) {
+			return pe.Err
+		}
+		return err
+	}
+	name := fh.Name()
+	fh.Close()
+	return os.Remove(name)
 }
 
 // kind names the type of a file that is not regular.

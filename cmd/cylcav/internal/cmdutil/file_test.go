@@ -213,3 +213,27 @@ func TestMessage(t *testing.T) {
 		}
 	}
 }
+
+// TestCheckFilesUnwritableDirectory: a directory that takes no new file is
+// refused by the checks, as bad input naming the flag, before any work
+// (found by the user pass: --plot /proc/p.svg ran the whole analysis and
+// then failed with status 1). /proc exists on Linux and takes no regular
+// file, even for root; a read-only directory does the same for other
+// users.
+func TestCheckFilesUnwritableDirectory(t *testing.T) {
+	if fi, err := os.Stat("/proc"); err != nil || !fi.IsDir() {
+		t.Skip("no /proc")
+	}
+	err := CheckFiles(false, File{Flag: "plot", Path: "/proc/cylcav-probe.svg"})
+	if !IsUsage(err) || !strings.Contains(err.Error(), `--plot "/proc/cylcav-probe.svg": cannot create a file in /proc`) {
+		t.Errorf("CheckFiles in /proc: %v; want a usage error naming --plot and /proc", err)
+	}
+	// A writable directory keeps no trace of the probe.
+	dir := t.TempDir()
+	if err := CheckFiles(false, File{Flag: "plot", Path: filepath.Join(dir, "p.svg")}); err != nil {
+		t.Fatal(err)
+	}
+	if names := entries(t, dir); len(names) != 0 {
+		t.Errorf("the probe left %v", names)
+	}
+}
