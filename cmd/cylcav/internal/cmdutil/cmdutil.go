@@ -177,7 +177,7 @@ func (c *CheckedWriter) Err() error { return c.err }
 // libraryPrefix matches the package prefix that a library error carries by
 // Go convention ("cavity: ...", "qfactor: ..."), at the start of the text
 // or after another message's colon.
-var libraryPrefix = regexp.MustCompile(`(^|: )(cavity|qfactor|modechart|filter|filterplot|figure|physics|bessel|design|datasheet): `)
+var libraryPrefix = regexp.MustCompile(`(^|: )(cavity|qfactor|modechart|filter|filterplot|figure|physics|bessel|quad|design|datasheet|axisym|axisymplot|iris|measure|benchplot|touchstone): `)
 
 // Message returns the text of err as a user reads it: without the package
 // prefixes of library errors, which name Go packages, not anything the

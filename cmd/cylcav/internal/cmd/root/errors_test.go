@@ -14,7 +14,7 @@ import (
 // Patterns of what an error line must not hold (issue 9 item 14).
 var (
 	// packagePrefix is a Go package name used as a message prefix.
-	packagePrefix = regexp.MustCompile(`\b(cavity|qfactor|modechart|filter|filterplot|figure|physics|bessel|design|datasheet): `)
+	packagePrefix = regexp.MustCompile(`\b(cavity|qfactor|modechart|filter|filterplot|figure|physics|bessel|quad|design|datasheet|axisym|axisymplot|iris|measure|benchplot|touchstone): `)
 	// longNumber is a number printed with more digits than any user unit
 	// needs (a float64 printed in full: 0.036564799999999998).
 	longNumber = regexp.MustCompile(`\d\.?\d{9,}`)
@@ -64,6 +64,12 @@ func TestErrorMessages(t *testing.T) {
 		// Library validation reaches the user without package prefixes.
 		{[]string{"q", "--mode", "TM010", "--diameter", "200mm", "--length", "100mm", "--wall", "copper", "--temperature", "1000K"}, 2, []string{`--temperature "1000K"`, "200.0 C"}},
 		{[]string{"modes", "--diameter", "40mm", "--length", "30mm", "--fill", "eps=0.5"}, 2, []string{`--fill "eps=0.5"`}},
+		// The packages of stack and resonances too (found by the user
+		// pass: "axisym: coupling: ..." and a drawn size with no mode,
+		// "measure: ... 1.2794220913651512e+10 Hz").
+		{[]string{"stack", "../../../../../examples/iris-pair.yaml", "--fmax", "12GHz", "--pair", "1,3"}, 2, []string{`--pair "1,3"`, "neighbours in their family"}},
+		{[]string{"stack", "../../../../../examples/puck-in-can.yaml", "--fmax", "9GHz", "--wall", "copper"}, 2, []string{"--wall", "not implemented"}},
+		{[]string{"resonances", "../../../../../testdata/measure/modes.s2p", "--diameter", "1mm", "--length", "31mm"}, 2, []string{"D = 1 mm", "12.79 GHz"}},
 		// Long values are quoted cut short.
 		{[]string{"q", "--mode", "TE011", "--diameter", "40mm", "--length", "30mm", "--wall", long}, 2, []string{`--wall "xxxxxxxx`, `"...`}},
 		{[]string{"size", "--mode", "TE" + strings.Repeat("1", 120), "--freq", "10GHz", "--ratio", "1"}, 2, []string{"--mode"}},
