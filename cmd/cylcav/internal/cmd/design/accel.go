@@ -271,8 +271,12 @@ func writeAccelTable(w io.Writer, r design.Result) {
 				switch {
 				case h.Mode == r.Design.Spec.Mode:
 					harm += "  operating mode" // on a harmonic by design
-				case h.Near:
+				case h.Drivable(r.Design.Spec.Mode):
 					harm += "  NEAR"
+				case h.Near:
+					// Near in frequency, but with no R/Q the beam cannot
+					// drive it (qfactor.HOM.Drivable, the one verdict).
+					harm += "  near, R/Q 0"
 				}
 			}
 			fmt.Fprintf(w, "  %-7s %-8s %16s %11s %7s %13s %11.4g  %s\n", h.Mode, h.Kind, physics.FormatFrequency(h.Frequency, 9), fmt.Sprintf("%.4g ohm", h.ROverQ), t, rt, h.Q0, harm)

@@ -179,3 +179,34 @@ func TestMarginAboveGuide(t *testing.T) {
 		{Args: []string{"--mode", "TE011", "--freq", "10GHz", "--particle-speed", "0.5"}, Code: 2, Want: []string{"--particle-speed needs a TM0mp mode", "--mode is TE011"}},
 	})
 }
+
+// TestHOMNearDrivable: in the mode table a mode near a beam harmonic is
+// flagged NEAR only when the beam can drive it (qfactor.HOM.Drivable: R/Q
+// or transverse R/Q above zero); a TE dipole (E_z = 0, so no transverse
+// kick at beta = 1 by Panofsky-Wenzel) reads "near, R/Q 0" (found by the
+// user pass: TE121 and TE122 were flagged NEAR with 0 ohm). With a 3 %
+// window and 650 MHz bunches TE121 at 3.186 GHz is 2 % from h = 5 and
+// TM021 at 3.279 GHz 0.9 %.
+func TestHOMNearDrivable(t *testing.T) {
+	r := clitest.Run(t, "design", "--mode", "TM010", "--freq", "1.3GHz", "--wall", "niobium", "--superconducting", "--temperature", "2K",
+		"--hom-max", "3.3GHz", "--ratio-range", "1.5:1.6", "--bunch-freq", "650MHz", "--harmonic-window", "3%")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	for _, line := range strings.Split(r.Stdout, "\n") {
+		f := strings.Fields(line)
+		if len(f) == 0 {
+			continue
+		}
+		switch f[0] {
+		case "TE121":
+			if !strings.HasSuffix(line, "near, R/Q 0") {
+				t.Errorf("TE121: %q, want it near but not drivable", line)
+			}
+		case "TM021":
+			if !strings.HasSuffix(line, "NEAR") {
+				t.Errorf("TM021: %q, want NEAR", line)
+			}
+		}
+	}
+}
