@@ -60,8 +60,11 @@ func harmonicText(r *HarmonicRow, bunch float64, family string) string {
 		return "-"
 	}
 	s := fmt.Sprintf("%d x %s, %s", r.Harmonic, cmdutil.TrimZeros(physics.FormatFrequency(bunch, 6)), signedHz(r.OffsetHz))
-	if r.Near && family == "TM0" {
+	switch {
+	case r.Near && family == "TM0":
 		s = "NEAR " + s
+	case r.Near:
+		s += " (near, R/Q 0)" // as design's mode table words it
 	}
 	return s
 }
@@ -87,7 +90,7 @@ func writeBeamNote(w io.Writer, b BeamOptions) {
 		fmt.Fprintf(w, "beam harmonic: nearest harmonic of the %s bunch frequency; NEAR within %.3g %% of the resonance frequency\n",
 			cmdutil.TrimZeros(physics.FormatFrequency(b.Bunch, 6)), 100*win)
 		fmt.Fprintf(w, "(%s); a NEAR TM0 resonance with R/Q can be driven by the beam: damp or move it; a TE0 resonance has\n", which)
-		fmt.Fprintln(w, "no E_z anywhere, so a beam along the axis does not drive it: its harmonic is shown, never flagged NEAR")
+		fmt.Fprintln(w, "no E_z anywhere, so a beam along the axis does not drive it: near a harmonic it reads (near, R/Q 0), never NEAR")
 	}
 	fmt.Fprintln(w, "note: "+dipoleNote)
 }

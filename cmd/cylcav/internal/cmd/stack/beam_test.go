@@ -87,7 +87,7 @@ func TestHarmonicTE0NotFlagged(t *testing.T) {
 	if r.Code != 0 {
 		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
 	}
-	if strings.Contains(r.Stdout, "NEAR 8 x") || strings.Contains(r.Stdout, "our default window") || !strings.Contains(r.Stdout, "(--harmonic-window)") {
+	if strings.Contains(r.Stdout, "NEAR 8 x") || !strings.Contains(r.Stdout, "(near, R/Q 0)") || strings.Contains(r.Stdout, "our default window") || !strings.Contains(r.Stdout, "(--harmonic-window)") {
 		t.Errorf("TE011 on the 8th harmonic:\n%s", r.Stdout)
 	}
 	r = clitest.Run(t, "stack", file, "--fmax", "11GHz", "--family", "te", "--bunch-freq", bunch, "--format", "json")
