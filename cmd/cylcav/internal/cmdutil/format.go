@@ -41,11 +41,16 @@ func FormatFlag(cmd *cobra.Command, f *Format, allowed ...Format) func() error {
 		return names, cobra.ShellCompDirectiveNoFileComp
 	})
 	return func() error {
+		// Words are matched in any case, as the EnumVar flags' are
+		// (--family TE): "JSON" is json.
+		given := *f
 		for _, a := range allowed {
-			if *f == a {
+			if strings.EqualFold(strings.TrimSpace(string(given)), string(a)) {
+				*f = a
 				return nil
 			}
 		}
+		*f = given
 		return FlagError("format", string(*f), fmt.Errorf("unknown format; use %s", list))
 	}
 }

@@ -274,3 +274,18 @@ func TestHelpDefaults(t *testing.T) {
 		}
 	}
 }
+
+// TestFormatAnyCase: --format takes its words in any case, as the word
+// flags do (--family TE); found by the user pass (--format JSON was
+// refused while --family TE was taken).
+func TestFormatAnyCase(t *testing.T) {
+	for _, f := range []string{"JSON", "Json", " json"} {
+		r := clitest.Run(t, "modes", "--diameter", "40mm", "--length", "30mm", "--format", f)
+		if r.Code != 0 || !strings.HasPrefix(r.Stdout, "{") {
+			t.Errorf("--format %q: exit %d, stdout %.40q, stderr %q", f, r.Code, r.Stdout, r.Stderr)
+		}
+	}
+	if r := clitest.Run(t, "modes", "--diameter", "40mm", "--length", "30mm", "--format", "XML"); r.Code != 2 || !strings.Contains(r.Stderr, `--format "XML"`) {
+		t.Errorf("--format XML: exit %d, stderr %q", r.Code, r.Stderr)
+	}
+}
