@@ -61,6 +61,9 @@ type HOMOut struct {
 	Harmonic            *int     `json:"beam_harmonic"`
 	OffsetHz            *float64 `json:"harmonic_offset_hz"`
 	NearHarmonic        bool     `json:"near_harmonic"`
+	// BeamDrivable is qfactor.HOM.Drivable: near a harmonic, not the
+	// operating mode, and with R/Q or transverse R/Q (the table's NEAR).
+	BeamDrivable bool `json:"beam_drivable"`
 }
 
 // AccelOut is the JSON form of the accelerator figures.
@@ -120,12 +123,14 @@ func finite(v float64) *float64 {
 	return &v
 }
 
-// HOMRows returns the JSON/CSV rows of a higher-order-mode table.
-func HOMRows(hs []qfactor.HOM, bunch float64) []HOMOut {
+// HOMRows returns the JSON/CSV rows of a higher-order-mode table of a
+// design operating in mode operating.
+func HOMRows(hs []qfactor.HOM, bunch float64, operating cavity.Mode) []HOMOut {
 	out := make([]HOMOut, len(hs))
 	for i, h := range hs {
 		o := HOMOut{Mode: h.Mode.String(), Kind: h.Kind.String(), FHz: h.Frequency, ROverQOhm: h.ROverQ,
-			TransitTime: finite(h.TransitTime), ROverQTransverseOhm: finite(h.ROverQTransverse), Q0: h.Q0, NearHarmonic: h.Near}
+			TransitTime: finite(h.TransitTime), ROverQTransverseOhm: finite(h.ROverQTransverse), Q0: h.Q0, NearHarmonic: h.Near,
+			BeamDrivable: h.Drivable(operating)}
 		if bunch > 0 {
 			k := h.Harmonic
 			o.Harmonic, o.OffsetHz = &k, ptr(h.Offset)
@@ -173,14 +178,14 @@ func accelJSON(r design.Result) *AccelOut {
 			ForwardBeamOffW: k.ForwardBeamOff, ReflectedBeamOffW: k.ReflectedBeamOff, TripReflectedW: k.TripReflected, TripVoltageV: k.TripVoltage}
 	}
 	if a.HOMs != nil {
-		o.HOMs = HOMRows(a.HOMs, r.Scenario.Accel.Bunch)
+		o.HOMs = HOMRows(a.HOMs, r.Scenario.Accel.Bunch, r.Design.Spec.Mode)
 	}
 	return o
 }
 
 // writeHOMCSV writes the higher-order-mode table as CSV, each number in
 // the shortest form that reads back exactly.
-func writeHOMCSV(w io.Writer, hs []qfactor.HOM, bunch float64) error {
+func writeHOMCSV(w io.Writer, hs []qfactor.HOM, bunch float64, operating cavity.Mode) error {
 	g := func(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 	opt := func(v *float64) string {
 		if v == nil {
@@ -189,14 +194,14 @@ func writeHOMCSV(w io.Writer, hs []qfactor.HOM, bunch float64) error {
 		return g(*v)
 	}
 	var rows [][]string
-	for _, h := range HOMRows(hs, bunch) {
+	for _, h := range HOMRows(hs, bunch, operating) {
 		harm, off := "", ""
 		if h.Harmonic != nil {
 			harm, off = fmt.Sprint(*h.Harmonic), g(*h.OffsetHz)
 		}
-		rows = append(rows, []string{h.Mode, h.Kind, g(h.FHz), g(h.ROverQOhm), opt(h.TransitTime), opt(h.ROverQTransverseOhm), g(h.Q0), harm, off, fmt.Sprint(h.NearHarmonic)})
+		rows = append(rows, []string{h.Mode, h.Kind, g(h.FHz), g(h.ROverQOhm), opt(h.TransitTime), opt(h.ROverQTransverseOhm), g(h.Q0), harm, off, fmt.Sprint(h.NearHarmonic), fmt.Sprint(h.BeamDrivable)})
 	}
-	return cmdutil.WriteCSV(w, []string{"mode", "kind", "f_hz", "r_over_q_linac_ohm", "transit_time", "r_over_q_transverse_ohm", "q0", "beam_harmonic", "harmonic_offset_hz", "near_harmonic"}, rows)
+	return cmdutil.WriteCSV(w, []string{"mode", "kind", "f_hz", "r_over_q_linac_ohm", "transit_time", "r_over_q_transverse_ohm", "q0", "beam_harmonic", "harmonic_offset_hz", "near_harmonic", "beam_drivable"}, rows)
 }
 
 func mw(v float64) string { return physics.FormatSI(v, "W", 4) }

@@ -193,6 +193,27 @@ func TestHOMNearDrivable(t *testing.T) {
 	if r.Code != 0 {
 		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
 	}
+	j := clitest.Run(t, "design", "--mode", "TM010", "--freq", "1.3GHz", "--wall", "niobium", "--superconducting", "--temperature", "2K",
+		"--hom-max", "3.3GHz", "--ratio-range", "1.5:1.6", "--bunch-freq", "650MHz", "--harmonic-window", "3%", "--format", "json")
+	var out struct {
+		Accelerator struct {
+			HOMs []struct {
+				Mode     string `json:"mode"`
+				Near     bool   `json:"near_harmonic"`
+				Drivable bool   `json:"beam_drivable"`
+			} `json:"hom"`
+		} `json:"accelerator"`
+	}
+	if err := json.Unmarshal([]byte(j.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	for _, h := range out.Accelerator.HOMs {
+		if want := map[string]bool{"TE121": false, "TM021": true}; h.Mode == "TE121" || h.Mode == "TM021" {
+			if !h.Near || h.Drivable != want[h.Mode] {
+				t.Errorf("JSON %s: near %v, drivable %v; want near, drivable %v", h.Mode, h.Near, h.Drivable, want[h.Mode])
+			}
+		}
+	}
 	for _, line := range strings.Split(r.Stdout, "\n") {
 		f := strings.Fields(line)
 		if len(f) == 0 {

@@ -155,7 +155,7 @@ func runDesign(opts *Options) error {
 		return cmdutil.WriteJSON(opts.IO.Out, JSON(r))
 	case cmdutil.CSV:
 		if opts.HOMCSV {
-			return writeHOMCSV(opts.IO.Out, r.Accel.HOMs, opts.Scenario.Accel.Bunch)
+			return writeHOMCSV(opts.IO.Out, r.Accel.HOMs, opts.Scenario.Accel.Bunch, r.Design.Spec.Mode)
 		}
 		return writeCSV(opts.IO.Out, r.Analysis.Curve)
 	}

@@ -7,6 +7,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/axisym"
+	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
@@ -27,6 +28,9 @@ type HarmonicRow struct {
 	// family; the table flags only TM0 resonances NEAR (a TE0 one has no
 	// E_z for the beam to drive).
 	Near bool `json:"near_harmonic"`
+	// Drivable is Near for a TM0 resonance (the table's NEAR); a TE0 one
+	// is never drivable.
+	Drivable bool `json:"beam_drivable"`
 }
 
 // dipoleNote says what the stacked-body solver does not give an
@@ -49,7 +53,7 @@ func harmonicRow(b BeamOptions, r axisym.Resonance) (*HarmonicRow, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &HarmonicRow{Harmonic: h, OffsetHz: off, Near: near}, nil
+	return &HarmonicRow{Harmonic: h, OffsetHz: off, Near: near, Drivable: near && r.Family == cavity.TM}, nil
 }
 
 // harmonicText is the table cell of a resonance's beam harmonic; only a
@@ -96,13 +100,13 @@ func writeBeamNote(w io.Writer, b BeamOptions) {
 }
 
 // harmonicHeader and harmonicCells are the CSV columns of the beam harmonic.
-var harmonicHeader = []string{"beam_harmonic", "harmonic_offset_hz", "near_harmonic"}
+var harmonicHeader = []string{"beam_harmonic", "harmonic_offset_hz", "near_harmonic", "beam_drivable"}
 
 func harmonicCells(r *HarmonicRow) []string {
 	if r == nil {
-		return []string{"", "", ""}
+		return []string{"", "", "", ""}
 	}
-	return []string{fmt.Sprint(r.Harmonic), fmt.Sprint(r.OffsetHz), fmt.Sprint(r.Near)}
+	return []string{fmt.Sprint(r.Harmonic), fmt.Sprint(r.OffsetHz), fmt.Sprint(r.Near), fmt.Sprint(r.Drivable)}
 }
 
 // dipolesJSON is the JSON statement on dipoles, given with the accelerator

@@ -91,7 +91,7 @@ func TestHarmonicTE0NotFlagged(t *testing.T) {
 		t.Errorf("TE011 on the 8th harmonic:\n%s", r.Stdout)
 	}
 	r = clitest.Run(t, "stack", file, "--fmax", "11GHz", "--family", "te", "--bunch-freq", bunch, "--format", "json")
-	if r.Code != 0 || !strings.Contains(r.Stdout, `"near_harmonic": true`) {
+	if r.Code != 0 || !strings.Contains(r.Stdout, `"near_harmonic": true`) || !strings.Contains(r.Stdout, `"beam_drivable": false`) {
 		t.Errorf("JSON: exit %d, %s", r.Code, r.Stdout)
 	}
 }
