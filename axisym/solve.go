@@ -13,8 +13,10 @@ import (
 // Request says which resonances Solve looks for. The zero value of every
 // field but MaxFrequency is a documented default.
 type Request struct {
-	// Order is the azimuthal order n of the fields (cos n phi). Only n = 0
-	// is implemented; any other order is an error that says so.
+	// Order is the azimuthal order n of the fields (cos n phi). n = 0 is
+	// solved for every body; n >= 1 (TE_n and TM_n coupled at steps,
+	// hybrid.go) for closed bodies of homogeneous circular sections, without
+	// losses or fields; other bodies are an error wrapping ErrNotImplemented.
 	Order int
 	// MaxFrequency is the upper end of the search, in Hz: every resonance
 	// below it is returned.
@@ -117,15 +119,16 @@ var ErrNotImplemented = errors.New("not implemented")
 // Errors: an invalid body (Body.Validate), a maximum frequency that is not
 // positive and finite, more than MaxResonances resonances below it, a
 // section that would need more than MaxModes modes, and, wrapping
-// ErrNotImplemented, an order other than 0 or a junction where neither
+// ErrNotImplemented, an order n >= 1 for a body that is open, coaxial,
+// layered or uniaxial (see solveHybrid), or a junction where neither
 // cross-section lies inside the other (for example two coaxial sections
 // whose inner and outer radii both grow).
 func Solve(b Body, r Request) ([]Resonance, error) {
 	if err := b.Validate(); err != nil {
 		return nil, err
 	}
-	if r.Order != 0 {
-		return nil, fmt.Errorf("axisym: azimuthal order n = %d: %w (only n = 0 is solved so far)", r.Order, ErrNotImplemented)
+	if r.Order < 0 || r.Order > cavity.MaxIndex {
+		return nil, fmt.Errorf("axisym: azimuthal order n must be in 0..%d, got %d", cavity.MaxIndex, r.Order)
 	}
 	if !(r.MaxFrequency > 0) || math.IsInf(r.MaxFrequency, 0) {
 		return nil, fmt.Errorf("axisym: maximum frequency must be positive and finite, got %g Hz", r.MaxFrequency)
@@ -136,6 +139,9 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 	}
 	if modes < 1 || modes > MaxModes {
 		return nil, fmt.Errorf("axisym: modes must be in 1..%d, got %d", MaxModes, modes)
+	}
+	if r.Order != 0 {
+		return solveHybrid(b, r, modes) // hybrid.go
 	}
 	fams := r.Families
 	if fams == nil {
@@ -305,9 +311,14 @@ type solver struct {
 	s   *system
 	a   []float64
 	out []float64
+	// countFn, when set, replaces s and a (the hybrid model, hybrid.go).
+	countFn func(f float64) (int, float64)
 }
 
 func (sv *solver) count(f float64) (int, float64) {
+	if sv.countFn != nil {
+		return sv.countFn(f)
+	}
 	if sv.s.ndof == 0 {
 		j := sv.s.eval(f, nil)
 		return j - sv.s.offset, math.NaN()
