@@ -41,7 +41,10 @@ type Options struct {
 	Modes int
 	// Families are the families to solve.
 	Families []cavity.Family
-	Format   cmdutil.Format
+	// Order is the azimuthal order n (--order; 0: TE0 and TM0 apart; n >= 1:
+	// TE_n and TM_n coupled at steps, frequencies and labels only).
+	Order  int
+	Format cmdutil.Format
 	// Walls, when not nil (--wall given, or walls in the file), adds Q0
 	// and its parts: with --wall the side surface of the wall set covers
 	// side walls, inner conductors and step faces, EndA and EndB the end
@@ -88,7 +91,7 @@ func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var checkFormat func() error
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
-		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
+		Use:   "stack FILE --fmax F [--family te|tm|both] [--order N] [--modes N]",
 		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
 		Long: fmt.Sprintf(`List the azimuthally symmetric (n = 0) resonances below --fmax of a cavity
 made of circular cylindrical sections stacked along z between two ends
@@ -140,8 +143,19 @@ coaxial section (a post or inner conductor); at each junction one
 cross-section must lie inside the other. A section with layers (n = 0
 only; isotropic, non-magnetic layers) gives frequencies but not yet Q0
 or field maps. Not solved yet (an error says
-so): other junctions and n >= 1. A body with a
+so): other junctions. A body with a
 coaxial section has no "continues from" label.
+
+--order N (default 0) lists the resonances of azimuthal order n = N
+instead (N = 1: the dipole modes of a cell). For n >= 1 the TE_n and TM_n
+waveguide modes of each section couple at every step and are solved
+together, with the same exact count (none missed); each resonance is
+labelled with the TE_nmp or TM_nmp mode of the enclosing cylinder at the
+same place in the order-n list. Only closed bodies of homogeneous
+circular sections (no inner conductor, no layers, no pipe ends), and
+frequencies only: --wall, --beta, --field-map, --bulb-*, --extrapolate,
+--pair and --family te|tm are refused with --order >= 1, and walls in
+the file are not used.
 
 --modes sets the waveguide modes kept in the widest section (default %d);
 narrower sections keep proportionally fewer. JSON and CSV give SI values.
@@ -188,11 +202,15 @@ The bulb must lie in free space of circular sections.
 
 --bunch-freq F gives every resonance its nearest beam harmonic and flags
 it NEAR within --harmonic-window (default 0.5 %%) of one. With --beta or
---bunch-freq the output says that dipole (n = 1) modes and their
-transverse R/Q are not solved for stacked bodies.`,
+--bunch-freq the output says that dipole (n = 1) modes are listed with
+--order 1 but their transverse R/Q is not computed for stacked bodies.`,
 			strings.Join(topKeys, ", "), strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
+  ...
+
+  # Its dipole (n = 1) resonances, labelled TE11p/TM11p
+  $ cylcav stack examples/nosed-cell.yaml --fmax 5GHz --order 1
   ...
 
   # The field map of the re-entrant cavity's lowest resonance
@@ -252,6 +270,9 @@ transverse R/Q are not solved for stacked bodies.`,
 				}
 				opts.Pair = &p
 			}
+			if err := checkOrder(cmd, opts.Order); err != nil {
+				return err
+			}
 			if opts.Extrapolate && opts.Modes > axisym.MaxModes/4 {
 				return cmdutil.FlagError("modes", strconv.Itoa(opts.Modes), fmt.Errorf("must be at most %d with --extrapolate (its finest model keeps four times as many)", axisym.MaxModes/4))
 			}
@@ -279,7 +300,7 @@ transverse R/Q are not solved for stacked bodies.`,
 					}
 				}
 			}
-			if opts.Geometry.Walls != nil {
+			if opts.Geometry.Walls != nil && opts.Order == 0 {
 				if opts.Walls != nil {
 					return cmdutil.Usagef("%s gives walls and so does --wall: give the metals in one place", opts.File)
 				}
@@ -303,6 +324,7 @@ transverse R/Q are not solved for stacked bodies.`,
 	fl.BoolVar(&opts.Force, "force", false, "replace the field-map file if it exists")
 	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
+	cmdutil.IntVar(fl, &opts.Order, "order", 0, fmt.Sprintf("azimuthal order n of the resonances, 0..%d (1: dipole modes; n >= 1 for closed bodies of circular sections, frequencies only)", maxOrder), 0, maxOrder)
 	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
 	addBulbFlags(cmd, &opts.Bulb)
 	addBeamFlags(cmd, &opts.Beam)
@@ -397,7 +419,7 @@ func pairRow(opts *Options, res []axisym.Resonance) (*PairRow, error) {
 
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
-		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
+		Order: opts.Order, MaxFrequency: opts.FMax, Modes: opts.Modes, Families: familiesFor(opts),
 		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "" || opts.Bulb.Diameter > 0,
 	})
 	if err != nil {
@@ -409,7 +431,7 @@ func runStack(opts *Options) error {
 	rows := make([]Row, len(res))
 	for i, r := range res {
 		row := Row{
-			Index: i + 1, Family: r.Family.String() + "0", FamilyIndex: r.Index, FHz: r.Frequency,
+			Index: i + 1, Family: familyText(opts.Order, r.Family), FamilyIndex: r.Index, FHz: r.Frequency,
 			LabelTied: r.OriginTied,
 		}
 		if r.HasOrigin {
@@ -488,7 +510,7 @@ func runStack(opts *Options) error {
 			Resonances []Row       `json:"resonances"`
 			Coupling   *PairRow    `json:"coupling,omitempty"`
 			Dipoles    string      `json:"dipoles,omitempty"`
-		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
+		}{opts.File, opts.Geometry.Title, opts.Order, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
 			opts.Geometry.Body.MaxRadius(), opts.FMax, opts.Geometry.Body.EndA.String(), opts.Geometry.Body.EndB.String(),
 			cutoffs(opts.Geometry.Body, opts.Families), rows, pr, dipolesJSON(opts)})
 	case cmdutil.CSV:
@@ -554,8 +576,11 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	length := cmdutil.TrimZeros(physics.FormatLength(b.Length(), 6))
 	radius := cmdutil.TrimZeros(physics.FormatLength(b.MaxRadius(), 6))
 	fmt.Fprintf(w, "body: %s, %d sections, length %s, largest radius %s\n", title, len(b.Sections), length, radius)
-	fmt.Fprintf(w, "n = 0 resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
-		cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
+	fmt.Fprintf(w, "n = %d resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
+		opts.Order, cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
+	if opts.Order > 0 {
+		writeOrderNote(w, opts)
+	}
 	coax := false
 	for _, s := range b.Sections {
 		coax = coax || s.InnerRadius != 0
