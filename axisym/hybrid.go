@@ -63,8 +63,8 @@ import (
 // guide excites no TE mode of the wide one: the known result that a TE11
 // wave meeting a circular step excites TM1m modes of the larger guide
 // (as recalled from the classic circular-step analyses, for example
-// English, IEEE Trans. MTT-19 (1971), and the Wexler formulation; the
-// formulas here are derived, not copied). At a = b, J_n(kw b) = 0 for
+// W. J. English, IEEE Trans. MTT-21 (1973) 633-636, in the Wexler
+// formulation; the formulas here are derived, not copied). At a = b, J_n(kw b) = 0 for
 // every TM mode of the wide guide, so the cross term vanishes: sections of
 // equal radius do not couple TE and TM.
 //
