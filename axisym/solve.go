@@ -25,6 +25,7 @@ type Request struct {
 	// widest section; narrower sections keep proportionally fewer (the
 	// relative-convergence rule), and every section keeps at least the modes
 	// that propagate in it at MaxFrequency plus two. Zero means DefaultModes.
+	// For Order >= 1 the count applies to each of TE_n and TM_n.
 	Modes int
 	// Families lists the families to solve (cavity.TE for TE0, cavity.TM for
 	// TM0); nil means both.
