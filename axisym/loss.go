@@ -69,15 +69,10 @@ type Factor struct {
 // of the electric and of the magnetic stored energy in it (the filling
 // factors that weight each medium's loss tangents).
 type Loss struct {
-	Factors      []Factor
-	FillE, FillM []float64 // per section, each summing to 1
-	// Layers gives, for a section with radial layers, each layer's share
-	// of the stored energies (its filling factors; they sum to the
-	// section's FillE and FillM); nil for a homogeneous section, and nil
-	// altogether for a body without layers.
-	Layers         [][]LayerShare
-	StoredEnergyJ  float64 // W for the normalisation used (for checks)
-	ElectricShareJ float64 // W_e, equal to W/2 at resonance (for checks)
+	Factors        []Factor
+	FillE, FillM   []float64 // per section, each summing to 1
+	StoredEnergyJ  float64   // W for the normalisation used (for checks)
+	ElectricShareJ float64   // W_e, equal to W/2 at resonance (for checks)
 	// Axis samples E_z on the axis r = 0 (TM0 only, for the same
 	// normalisation as StoredEnergyJ) at quadrature nodes along the body,
 	// for Accelerating; empty for TE0 and for a body with a coaxial
@@ -86,6 +81,11 @@ type Loss struct {
 	Frequency float64 // Hz
 	// Field is the matched field itself, for sampling (Field.At).
 	Field *Field
+	// Layers gives, for a section with radial layers, each layer's share
+	// of the stored energies (its filling factors; they sum to the
+	// section's FillE and FillM); nil for a homogeneous section, and nil
+	// altogether for a body without layers.
+	Layers [][]LayerShare
 }
 
 // Field is the matched field of one resonance in the r-z half plane, for
