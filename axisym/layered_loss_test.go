@@ -132,3 +132,150 @@ func TestLayeredRodLossMpmath(t *testing.T) {
 		}
 	}
 }
+
+// TestLayeredSameMediumLoss checks that a section split into layers of
+// one medium gives the homogeneous section's Loss: frequencies, every
+// part's geometry factor, the filling factors, Q0 with a loss tangent and
+// the field at sample points, to 1e-9 (an identity: the layered guide's
+// modes are then the homogeneous guide's, found by another route). The
+// bodies have steps on both sides of the layered section (narrow and
+// wide), so junction, step-face and end-plate integrals all take part.
+func TestLayeredSameMediumLoss(t *testing.T) {
+	const tol = 1e-9
+	fill := physics.Medium{EpsR: 2.1, TanDelta: 3e-4}
+	split := func(s Section, radii ...float64) Section {
+		s.Fill = physics.Medium{}
+		for _, r := range radii {
+			s.Layers = append(s.Layers, Layer{Radius: r, Medium: fill})
+		}
+		return s
+	}
+	for _, tc := range []struct {
+		name  string
+		body  Body
+		layer func(Body) Body
+	}{
+		{"narrow layered", Body{Sections: []Section{
+			{Length: 0.006, Radius: 0.012},
+			{Length: 0.005, Radius: 0.008, Fill: fill},
+			{Length: 0.008, Radius: 0.012},
+		}}, func(b Body) Body {
+			b.Sections[1] = split(b.Sections[1], 0.003, 0.008)
+			return b
+		}},
+		{"wide layered", Body{Sections: []Section{
+			{Length: 0.007, Radius: 0.012, Fill: fill},
+			{Length: 0.003, Radius: 0.005},
+			{Length: 0.006, Radius: 0.012, Fill: fill},
+		}}, func(b Body) Body {
+			b.Sections[0] = split(b.Sections[0], 0.004, 0.009, 0.012)
+			b.Sections[2] = split(b.Sections[2], 0.006, 0.012)
+			return b
+		}},
+		{"coaxial layered", Body{Sections: []Section{
+			{Length: 0.008, Radius: 0.012, InnerRadius: 0.003, Fill: fill},
+			{Length: 0.006, Radius: 0.012},
+		}}, func(b Body) Body {
+			b.Sections[0] = split(b.Sections[0], 0.007, 0.012)
+			return b
+		}},
+	} {
+		req := Request{MaxFrequency: 22e9, Losses: true, Modes: 12}
+		hom, err := Solve(tc.body, req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		lb := tc.layer(Body{Sections: append([]Section(nil), tc.body.Sections...)})
+		lay, err := Solve(lb, req)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(hom) != len(lay) || len(hom) < 4 {
+			t.Fatalf("%s: %d resonances layered, %d homogeneous", tc.name, len(lay), len(hom))
+		}
+		var worst float64
+		check := func(what string, got, want, scale float64) {
+			d := math.Abs(got-want) / scale
+			worst = max(worst, d)
+			if d > tol {
+				t.Errorf("%s: %s = %.15g, want %.15g (homogeneous)", tc.name, what, got, want)
+			}
+		}
+		for i, h := range hom {
+			y := lay[i]
+			if y.Family != h.Family || h.Loss == nil || y.Loss == nil {
+				t.Fatalf("%s #%d: %v/%v, losses %v / %v", tc.name, i, y.Family, h.Family, y.LossErr, h.LossErr)
+			}
+			id := h.Family.String() + " " + strconv.Itoa(h.Index)
+			check(id+" f", y.Frequency, h.Frequency, h.Frequency)
+			hl, yl := h.Loss, y.Loss
+			if len(hl.Factors) != len(yl.Factors) {
+				t.Fatalf("%s %s: parts %v, want %v", tc.name, id, yl.Factors, hl.Factors)
+			}
+			inv := 1 / hl.G()
+			for k, fc := range hl.Factors {
+				if yl.Factors[k].Part != fc.Part {
+					t.Fatalf("%s %s: part %v, want %v", tc.name, id, yl.Factors[k].Part, fc.Part)
+				}
+				check(id+" 1/G "+fc.Part.Kind.String(), 1/yl.Factors[k].G, 1/fc.G, inv)
+			}
+			for s := range hl.FillE {
+				check(id+" FillE", yl.FillE[s], hl.FillE[s], 1)
+				check(id+" FillM", yl.FillM[s], hl.FillM[s], 1)
+				if ls := yl.Layers[s]; ls != nil {
+					var se, sm float64
+					for _, x := range ls {
+						se += x.FillE
+						sm += x.FillM
+					}
+					check(id+" sum of layers' FillE", se, yl.FillE[s], 1)
+					check(id+" sum of layers' FillM", sm, yl.FillM[s], 1)
+				}
+			}
+			fills := make([]physics.Medium, len(tc.body.Sections))
+			for s, sec := range tc.body.Sections {
+				fills[s] = sec.Fill
+			}
+			rs := func(Part) float64 { return 0.01 }
+			qh, _, _ := hl.Q0(rs, fills)
+			qy, _, _ := yl.Q0(rs, make([]physics.Medium, len(fills)))
+			check(id+" Q0", qy, qh, qh)
+			// Fields: the same for the same stored energy, up to the null
+			// vector's sign, on a grid.
+			nh, ny := 1/math.Sqrt(hl.StoredEnergyJ), 1/math.Sqrt(yl.StoredEnergyJ)
+			var fh, fy [][4]float64
+			var scale float64
+			length := tc.body.Length()
+			for iz := range 9 {
+				for ir := range 7 {
+					z, r := length*(float64(iz)+0.3)/9, 0.012*(float64(ir)+0.1)/7
+					a1, a2, a3, a4, ok1 := hl.Field.At(r, z)
+					b1, b2, b3, b4, ok2 := yl.Field.At(r, z)
+					if ok1 != ok2 {
+						t.Fatalf("%s %s: At(%g, %g) inside %v, want %v", tc.name, id, r, z, ok2, ok1)
+					}
+					fh = append(fh, [4]float64{a1 * nh, a2 * nh, a3 * nh, a4 * nh})
+					fy = append(fy, [4]float64{b1 * ny, b2 * ny, b3 * ny, b4 * ny})
+					scale = max(scale, math.Abs(a1*nh), math.Abs(a2*nh), math.Abs(a3*nh)*376.73, math.Abs(a4*nh)*376.73)
+				}
+			}
+			var dot float64
+			for k := range fh {
+				for c := range 4 {
+					dot += fh[k][c] * fy[k][c]
+				}
+			}
+			sign := math.Copysign(1, dot)
+			for k := range fh {
+				for c := range 4 {
+					z0 := 1.0
+					if c >= 2 {
+						z0 = 376.73 // H compared as Z0 H (V/m)
+					}
+					check(id+" field", sign*fy[k][c]*z0, fh[k][c]*z0, scale)
+				}
+			}
+		}
+		t.Logf("%s: %d resonances, worst relative deviation %.2g", tc.name, len(hom), worst)
+	}
+}
