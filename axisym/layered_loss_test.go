@@ -279,3 +279,64 @@ func TestLayeredSameMediumLoss(t *testing.T) {
 		t.Logf("%s: %d resonances, worst relative deviation %.2g", tc.name, len(hom), worst)
 	}
 }
+
+// puckWith is puckBody with the puck's permittivity eps and loss
+// tangent 1e-4.
+func puckWith(eps float64) Body {
+	b := puckBody()
+	b.Sections[1].Layers[0].Medium = physics.Medium{EpsR: eps, TanDelta: 1e-4}
+	return b
+}
+
+// TestPuckFillingPerturbation checks the puck's electric filling factor
+// against the frequency's derivative with respect to its permittivity.
+// For a change d eps of the permittivity of a region holding the share
+// p_e of the electric energy, with mu unchanged, the cavity perturbation
+// formula (Slater, Microwave Electronics, 1950; Harrington, Time-Harmonic
+// Electromagnetic Fields, 1961, sec. 7-2) gives
+//
+//	d omega / omega = -(1/4) int d eps |E|^2 dV / W = -(1/2) p_e d eps/eps
+//
+// (W = 2 W_e at resonance, W_e = (1/4) int eps |E|^2 dV), exact for the
+// derivative, so p_e = -2 (eps/f) df/d eps. The derivative is a central
+// difference of Solve's frequencies at eps (1 +- h), with h and h/2
+// combined by Richardson extrapolation (error O(h^4)); what is left is the
+// root tolerance over h, about 1e-9, and the truncation of the model
+// (the fields and the frequency of the same truncated model need not obey
+// the relation exactly: for TE0 the gap is about 1e-11; for TM0, with
+// fields singular at the puck's edges, about 3e-7, within the model's
+// relative change of frequency, 6e-6).
+func TestPuckFillingPerturbation(t *testing.T) {
+	const eps, h, tol = 38.0, 2e-4, 1e-9
+	for _, fam := range []cavity.Family{cavity.TE, cavity.TM} {
+		solve := func(e float64, losses bool) Resonance {
+			res, err := Solve(puckWith(e), Request{MaxFrequency: 7e9, Losses: losses, Families: []cavity.Family{fam}})
+			if err != nil || len(res) == 0 {
+				t.Fatalf("eps %g: %v (%d resonances)", e, err, len(res))
+			}
+			return res[0]
+		}
+		r := solve(eps, true)
+		if r.Loss == nil {
+			t.Fatal(r.LossErr)
+		}
+		pe := r.Loss.Layers[1][0].FillE
+		d := func(h float64) float64 {
+			fp, fm := solve(eps*(1+h), false).Frequency, solve(eps*(1-h), false).Frequency
+			return -2 * eps / r.Frequency * (fp - fm) / (2 * h * eps)
+		}
+		d1, d2 := d(h), d(h/2)
+		fd := (4*d2 - d1) / 3
+		t.Logf("%v: f %.10g Hz, p_e %.12f, -2 (eps/f) df/deps %.12f (h: %.12f, h/2: %.12f), difference %.2g", fam, r.Frequency, pe, fd, d1, d2, pe-fd)
+		// TM0's fields are singular at the puck's edges (E_z jumps across its
+	// side wall): there the truncated model obeys the relation only to its
+	// truncation error, bounded by the frequency's relative change.
+	lim := tol
+	if fam == cavity.TM {
+		lim = max(tol, r.Change/r.Frequency)
+	}
+	if math.Abs(pe-fd) > lim {
+			t.Errorf("%v: puck p_e = %.12f, want -2 (eps/f) df/d eps = %.12f (Slater's perturbation relation, finite difference)", fam, pe, fd)
+		}
+	}
+}
