@@ -329,13 +329,13 @@ func TestPuckFillingPerturbation(t *testing.T) {
 		fd := (4*d2 - d1) / 3
 		t.Logf("%v: f %.10g Hz, p_e %.12f, -2 (eps/f) df/deps %.12f (h: %.12f, h/2: %.12f), difference %.2g", fam, r.Frequency, pe, fd, d1, d2, pe-fd)
 		// TM0's fields are singular at the puck's edges (E_z jumps across its
-	// side wall): there the truncated model obeys the relation only to its
-	// truncation error, bounded by the frequency's relative change.
-	lim := tol
-	if fam == cavity.TM {
-		lim = max(tol, r.Change/r.Frequency)
-	}
-	if math.Abs(pe-fd) > lim {
+		// side wall): there the truncated model obeys the relation only to its
+		// truncation error, bounded by the frequency's relative change.
+		lim := tol
+		if fam == cavity.TM {
+			lim = max(tol, r.Change/r.Frequency)
+		}
+		if math.Abs(pe-fd) > lim {
 			t.Errorf("%v: puck p_e = %.12f, want -2 (eps/f) df/d eps = %.12f (Slater's perturbation relation, finite difference)", fam, pe, fd)
 		}
 	}
