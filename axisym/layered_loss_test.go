@@ -10,6 +10,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
+	"cylcav/qfactor"
 )
 
 // TestLayeredRodLossMpmath checks the loss quantities of the resonances of
@@ -337,6 +338,28 @@ func TestPuckFillingPerturbation(t *testing.T) {
 		}
 		if math.Abs(pe-fd) > lim {
 			t.Errorf("%v: puck p_e = %.12f, want -2 (eps/f) df/d eps = %.12f (Slater's perturbation relation, finite difference)", fam, pe, fd)
+		}
+	}
+}
+
+// BenchmarkPuckQ0 solves the lowest TE0 resonance of the puck (the
+// TE01-delta-like mode; DefaultModes, two models for the convergence
+// estimate) with its fields, and its Q0 with copper walls and the puck's
+// loss tangent.
+func BenchmarkPuckQ0(b *testing.B) {
+	body := puckWith(38)
+	cu, err := physics.LookupConductor("copper")
+	if err != nil {
+		b.Fatal(err)
+	}
+	walls := Walls{Set: qfactor.WallSet{Side: qfactor.Surface{Conductor: cu}, EndA: qfactor.Surface{Conductor: cu}, EndB: qfactor.Surface{Conductor: cu}}}
+	for b.Loop() {
+		res, err := Solve(body, Request{MaxFrequency: 5e9, Losses: true, Families: []cavity.Family{cavity.TE}})
+		if err != nil || len(res) != 1 || res[0].Loss == nil {
+			b.Fatal(len(res), err)
+		}
+		if _, err := res[0].Loss.Unloaded(body, walls); err != nil {
+			b.Fatal(err)
 		}
 	}
 }
