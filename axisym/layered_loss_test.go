@@ -64,6 +64,11 @@ func TestLayeredRodLossMpmath(t *testing.T) {
 		t.Fatalf("rodloss.tsv: %d rows", len(rows))
 	}
 	solved := map[string][]Resonance{}
+	cu, err := physics.LookupConductor("copper")
+	if err != nil {
+		t.Fatal(err)
+	}
+	cuSet := qfactor.WallSet{Side: qfactor.Surface{Conductor: cu}, EndA: qfactor.Surface{Conductor: cu}, EndB: qfactor.Surface{Conductor: cu}}
 	var worst [4]float64 // FillE, FillM, part share, Q (relative)
 	defer func() {
 		t.Logf("worst relative deviation: FillE %.2g, FillM %.2g, part share of the wall loss %.2g, Q %.2g", worst[0], worst[1], worst[2], worst[3])
@@ -73,10 +78,10 @@ func TestLayeredRodLossMpmath(t *testing.T) {
 		return d
 	}
 	for _, w := range rows {
+		b := rodBody(w.a, w.b, w.eps, w.l)
+		b.Sections[0].Layers[0].Medium.TanDelta = tand
 		res, ok := solved[w.name]
 		if !ok {
-			b := rodBody(w.a, w.b, w.eps, w.l)
-			b.Sections[0].Layers[0].Medium.TanDelta = tand
 			res, err = Solve(b, Request{MaxFrequency: 1.61e10, Losses: true})
 			if err != nil {
 				t.Fatal(err)
@@ -127,6 +132,16 @@ func TestLayeredRodLossMpmath(t *testing.T) {
 		}
 		if qd, want := 1/invFill, 1/(w.pe*tand); note(3, math.Abs(qd/want-1)) > lossTol {
 			t.Errorf("%s %v %g Hz: dielectric Q = %.15g, want 1/(p_e tan delta) = %.15g (mpmath)", w.name, w.fam, w.f, qd, want)
+		}
+		// Unloaded's per-medium breakdown: the rod alone (vacuum outside).
+		u, err := l.Unloaded(b, Walls{Set: cuSet})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(u.Media) != 1 || u.Media[0].Section != 1 || u.Media[0].Layer != 1 {
+			t.Errorf("%s %v %g Hz: Unloaded.Media = %+v, want the rod alone", w.name, w.fam, w.f, u.Media)
+		} else if m := u.Media[0]; note(3, math.Abs(m.Q*w.pe*tand-1)) > lossTol || math.Abs(m.Q/u.QFill-1) > 1e-14 {
+			t.Errorf("%s %v %g Hz: rod Q = %.15g (QFill %.15g), want 1/(p_e tan delta) = %.15g (mpmath)", w.name, w.fam, w.f, m.Q, u.QFill, 1/(w.pe*tand))
 		}
 		if math.Abs(l.ElectricShareJ/l.StoredEnergyJ-0.5) > lossTol {
 			t.Errorf("%s %v %g Hz: W_e/W = %.15g, want 1/2", w.name, w.fam, w.f, l.ElectricShareJ/l.StoredEnergyJ)
