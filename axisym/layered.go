@@ -155,6 +155,12 @@ type piece struct {
 // fg returns f(r) and G(r) = (1/r) d(r f)/dr (DLMF 10.6.2 and 10.29.2:
 // (x Z1)' = x Z0 for J and Y, (x I1)' = x I0, (x K1)' = -x K0).
 func (p piece) fg(r float64) (f, g float64) {
+	if r == 0 { // on the axis (b = 0 there): J1, I1 and r vanish, J0 = I0 = 1
+		if p.kind == kindPow {
+			return 0, 2 * p.a
+		}
+		return 0, p.a * p.k
+	}
 	f1, g1, f2, g2 := basis(p.kind, p.k, r)
 	return p.a*f1 + p.b*f2, p.a*g1 + p.b*g2
 }

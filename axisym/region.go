@@ -111,7 +111,7 @@ func (l Loss) Filling(b Body, bulb cavity.Bulb, s RegionSettings) (cavity.Fillin
 	omega := l.Field.omega
 	var nmax float64
 	for _, sec := range b.Sections {
-		nmax = math.Max(nmax, math.Sqrt(sec.Fill.Eps()*sec.Fill.Mu()))
+		nmax = math.Max(nmax, sec.maxIndex())
 	}
 	k := omega / physics.SpeedOfLight * nmax
 	startPanels := func(w float64) int { return max(2, int(math.Ceil(k*w/(math.Pi/2)))) }
@@ -120,11 +120,24 @@ func (l Loss) Filling(b Body, bulb cavity.Bulb, s RegionSettings) (cavity.Fillin
 	// the first rule multiplied by m.
 	integrate := func(m int) (acc [4]float64) {
 		for _, p := range pieces {
-			sec := b.Sections[l.Field.section((p.z1+p.z2)/2)]
-			er, mr := sec.Fill.Eps(), sec.Fill.Mu()
-			nz, nr := m*startPanels(p.z2-p.z1), m*startPanels(p.r)
+			k := l.Field.section((p.z1 + p.z2) / 2)
+			// Radial panels split at the layer radii, where E_r (TM0)
+			// jumps and the fields' derivatives do.
+			var rr []glNode
+			lo := 0.0
+			for _, ly := range b.Sections[k].Layers {
+				if hi := math.Min(ly.Radius, p.r); hi > lo {
+					rr = append(rr, glRule(lo, hi, m*startPanels(hi-lo))...)
+					lo = hi
+				}
+			}
+			if lo < p.r {
+				rr = append(rr, glRule(lo, p.r, m*startPanels(p.r-lo))...)
+			}
+			nz := m * startPanels(p.z2-p.z1)
 			for _, zq := range glRule(p.z1, p.z2, nz) {
-				for _, rq := range glRule(0, p.r, nr) {
+				for _, rq := range rr {
+					er, mr := l.Field.epsAt(k, rq.x)
 					e1, e2, h1, h2, ok := l.Field.At(rq.x, zq.x)
 					if !ok {
 						continue
