@@ -3,11 +3,11 @@ package axisym
 import (
 	"fmt"
 	"math"
-	"sync"
 
 	"cylcav/cavity"
 	"cylcav/physics"
 	"cylcav/physics/bessel"
+	"cylcav/physics/quad"
 )
 
 // Layer is one radial layer of a layered Section: the medium between the
@@ -473,7 +473,7 @@ func pieceIntegral(f, g piece, lo, hi float64) float64 {
 	}
 	phase := (math.Sqrt(math.Abs(f.p2)) + math.Sqrt(math.Abs(g.p2))) * (hi - lo)
 	n := min(20+int(0.5*phase), 600)
-	x, wt := gaussLegendre(n)
+	x, wt := quad.GaussLegendre(n)
 	half, mid := 0.5*(hi-lo), 0.5*(hi+lo)
 	s := 0.0
 	for i := range x {
@@ -483,45 +483,6 @@ func pieceIntegral(f, g piece, lo, hi float64) float64 {
 		s += wt[i] * r * u * v
 	}
 	return s * half
-}
-
-var (
-	glMu    sync.Mutex
-	glCache = map[int][2][]float64{}
-)
-
-// gaussLegendre returns the n nodes and weights of Gauss-Legendre
-// quadrature on [-1, 1], by Newton's method on the three-term recurrence of
-// the Legendre polynomials (DLMF 3.5(v), 18.9.1; Press et al., Numerical
-// Recipes, 3rd ed., sec. 4.6).
-func gaussLegendre(n int) (x, w []float64) {
-	glMu.Lock()
-	defer glMu.Unlock()
-	if c, ok := glCache[n]; ok {
-		return c[0], c[1]
-	}
-	x, w = make([]float64, n), make([]float64, n)
-	for i := range (n + 1) / 2 {
-		z := math.Cos(math.Pi * (float64(i) + 0.75) / (float64(n) + 0.5))
-		var dp float64
-		for range 100 {
-			p1, p2 := 1.0, 0.0
-			for j := 1; j <= n; j++ {
-				p1, p2 = ((2*float64(j)-1)*z*p1-(float64(j)-1)*p2)/float64(j), p1
-			}
-			dp = float64(n) * (z*p1 - p2) / (z*z - 1)
-			dz := p1 / dp
-			z -= dz
-			if math.Abs(dz) < 1e-16 {
-				break
-			}
-		}
-		x[i], x[n-1-i] = -z, z
-		w[i] = 2 / ((1 - z*z) * dp * dp)
-		w[n-1-i] = w[i]
-	}
-	glCache[n] = [2][]float64{x, w}
-	return x, w
 }
 
 // overlap returns M[i][j] = 2 pi int h_w,i e_g,j r dr over g's

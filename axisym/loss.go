@@ -8,6 +8,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
+	"cylcav/physics/quad"
 )
 
 // PartKind names a kind of metal surface of a body.
@@ -793,8 +794,6 @@ func zRule(l float64, kc []float64, k2 float64) []zPoint {
 // zRuleBeta is zRule for modes given by beta^2 (a layered section, k2 the
 // largest k^2 of its media).
 func zRuleBeta(l float64, beta2 []float64, k2 float64) []zPoint {
-	x := [4]float64{0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363}
-	w := [4]float64{0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763}
 	var amax, bmax float64
 	for _, b2 := range beta2 {
 		if b2 < 0 {
@@ -819,12 +818,8 @@ func zRuleBeta(l float64, beta2 []float64, k2 float64) []zPoint {
 	var pts []zPoint
 	panel := func(lo, hi float64) {
 		n := max(1, int(math.Ceil(bmax*(hi-lo)/(math.Pi/2))))
-		h := (hi - lo) / float64(n)
-		for p := range n {
-			c := lo + (float64(p)+0.5)*h
-			for k := range 4 {
-				pts = append(pts, zPoint{c - x[k]*h/2, w[k] * h / 2}, zPoint{c + x[k]*h/2, w[k] * h / 2})
-			}
+		for _, q := range quad.Composite(lo, hi, n, 8) {
+			pts = append(pts, zPoint{q.X, q.W})
 		}
 	}
 	for k := 0; k+1 < len(edges); k++ {
