@@ -359,46 +359,19 @@ func (lg *layeredGuide) isolate(lo, hi bpoint, scale float64) {
 	lg.isolate(lo, mid, scale)
 }
 
-// refine narrows a bracket holding one mode (lo.c = hi.c + 1) by the
-// Illinois variant of regula falsi on the wall value (Dowell and Jarratt
-// 1971), falling back to bisection; the count decides the side.
+// refine narrows a bracket holding one mode (lo.c = hi.c + 1) by illinois
+// on the wall value; the count decides the side.
 func (lg *layeredGuide) refine(lo, hi bpoint, scale float64) float64 {
-	side, stall := 0, 0
-	for range 200 {
-		w := hi.x - lo.x
+	return illinois(lo.x, hi.x, lo.end, hi.end, 200,
 		// Stop at a few units in the last place of beta^2 itself (for the
 		// highest modes far below scale's reach).
-		if w <= max(2e-16*scale, 4e-16*max(math.Abs(lo.x), math.Abs(hi.x))) {
-			break
-		}
-		x := 0.5 * (lo.x + hi.x)
-		if stall < 3 && lo.end*hi.end < 0 {
-			if s := lo.x - lo.end*w/(hi.end-lo.end); s > lo.x && s < hi.x {
-				x = s
-			}
-		} else {
-			stall = 0
-		}
-		c, e, _ := lg.shoot(lg.k0, x, false)
-		p := bpoint{x, c, e}
-		if c >= lo.c {
-			if side == -1 {
-				hi.end /= 2
-			}
-			lo, side = p, -1
-		} else {
-			if side == 1 {
-				lo.end /= 2
-			}
-			hi, side = p, 1
-		}
-		if hi.x-lo.x > 0.5*w {
-			stall++
-		} else {
-			stall = 0
-		}
-	}
-	return 0.5 * (lo.x + hi.x)
+		func(lo, hi float64) bool {
+			return hi-lo <= max(2e-16*scale, 4e-16*max(math.Abs(lo), math.Abs(hi)))
+		},
+		func(x float64) (float64, bool) {
+			c, e, _ := lg.shoot(lg.k0, x, false)
+			return e, c >= lo.c
+		})
 }
 
 // mode returns the normalised mode with the given beta2.
