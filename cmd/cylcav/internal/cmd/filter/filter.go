@@ -87,6 +87,8 @@ type Options struct {
 
 	Touchstone string
 	Plot       string
+	// Datasheet is the datasheet file (.html or .pdf), empty for none.
+	Datasheet  string
 	PlotFormat figure.Format
 	DPI        int
 	Force      bool
@@ -235,15 +237,16 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.NumberVar(f, &opts.Q0, "q0", "unloaded Q of every resonator, without cavities, e.g. 5000 (default lossless)", 1, maxQ0)
 	f.StringVar(&opts.Touchstone, "touchstone", "", "write the response as a Touchstone 1.1 file, e.g. filter.s2p")
 	f.StringVar(&opts.Plot, "plot", "", "write the response plot: .png, .svg or .pdf")
+	f.StringVar(&opts.Datasheet, "datasheet", "", "write the filter datasheet: .html (one self-contained file) or .pdf")
 	cmdutil.TimesVar(f, &opts.Span, "span", "3x", "frequency range: N bandwidths around f0 (Omega -N..N), widened to show every rejection and zero",
 		"bandwidths", 1, bandpass.MaxSpan)
 	cmdutil.IntVar(f, &opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints), 2, maxPoints)
 	cmdutil.IntVar(f, &opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch", figure.MinDPI, figure.MaxDPI)
-	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
+	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone, --plot and --datasheet files")
 	cmdutil.Needs(cmd, "points", "touchstone")
 	cmdutil.Needs(cmd, "dpi", "plot")
 	sf = addSpaceFlags(cmd, opts)
-	cmdutil.Needs(cmd, "force", "touchstone", "plot", "save-matrix")
+	cmdutil.Needs(cmd, "force", "touchstone", "plot", "datasheet", "save-matrix")
 	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	ifl = addIrisFlags(cmd)
 	fabfl = addFabFlags(cmd, opts)
@@ -384,8 +387,10 @@ func (opts *Options) checkOutput() error {
 		}
 		opts.PlotFormat = f
 	}
-	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
-		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)
+	if opts.Datasheet != "" {
+		if _, err := sheetFormat(opts.Datasheet); err != nil {
+			return cmdutil.FlagError("datasheet", opts.Datasheet, err)
+		}
 	}
 	var files []cmdutil.File
 	if opts.Touchstone != "" {
@@ -393,6 +398,16 @@ func (opts *Options) checkOutput() error {
 	}
 	if opts.Plot != "" {
 		files = append(files, cmdutil.File{Flag: "plot", Path: opts.Plot})
+	}
+	if opts.Datasheet != "" {
+		files = append(files, cmdutil.File{Flag: "datasheet", Path: opts.Datasheet})
+	}
+	for i := range files {
+		for j := i + 1; j < len(files); j++ {
+			if filepath.Clean(files[i].Path) == filepath.Clean(files[j].Path) {
+				return cmdutil.Usagef("--%s and --%s name the same file %s", files[i].Flag, files[j].Flag, files[i].Path)
+			}
+		}
 	}
 	return cmdutil.CheckFiles(opts.Force, files...)
 }
