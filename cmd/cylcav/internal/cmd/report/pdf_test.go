@@ -2,7 +2,6 @@ package report_test
 
 import (
 	"os"
-	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strconv"
@@ -30,17 +29,10 @@ const (
 )
 
 // poppler returns the output of a poppler tool, skipping the test when the
-// tool is not installed.
+// tool is not installed (clitest.Poppler).
 func poppler(t *testing.T, tool string, args ...string) string {
 	t.Helper()
-	if _, err := exec.LookPath(tool); err != nil {
-		t.Skipf("%s not found: install poppler-utils (apt-get install -y poppler-utils) to check the PDF datasheet", tool)
-	}
-	out, err := exec.Command(tool, args...).Output()
-	if err != nil {
-		t.Fatalf("%s %s: %v", tool, strings.Join(args, " "), err)
-	}
-	return string(out)
+	return clitest.Poppler(t, tool, args...)
 }
 
 // sheets writes the demo datasheet and one for an accelerator cavity
