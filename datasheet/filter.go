@@ -312,10 +312,6 @@ func resonatorBlocks(in Filter) []Block {
 	}
 	t.Header = append(t.Header, "Q0")
 	t.Num = append(t.Num, true)
-	if len(in.Screws) == n {
-		t.Header = append(t.Header, "Tuning needed", "Screw tip radius")
-		t.Num = append(t.Num, true, true)
-	}
 	for i, c := range rz.Cavities {
 		row := []string{strconv.Itoa(c.Resonator), rz.Mode.String(), freq(c.F), length(c.Cavity.Diameter()), length(c.Cavity.Length)}
 		if pl := in.Irises; pl != nil {
@@ -331,25 +327,32 @@ func resonatorBlocks(in Filter) []Block {
 			row = append(row, v)
 		}
 		row = append(row, qText(c.Q0))
-		if len(in.Screws) == n {
-			sc := in.Screws[i]
-			rad := "–"
-			if !math.IsNaN(sc.Radius) {
-				rad = micro(physics.FormatLength(sc.Radius, 4))
-				if !sc.Valid {
-					rad += " (outside Slater)"
-				}
-			}
-			row = append(row, signedFreq(-sc.High)+" .. "+signedFreq(-sc.Low), rad)
-		}
 		t.add(false, row...)
 	}
 	out := []Block{{Table: &t}}
 	if in.Irises != nil {
 		out = append(out, Block{Note: "L with irises: the length with which each cavity, loaded by the irises on its end plates, resonates at its frequency (TM0m0: the diameter); – where an iris opening into it is not realised or outside its range."})
 	}
+	// The tuning range each resonator needs (tolerance analysis).
 	if len(in.Screws) == n {
-		out = append(out, Block{Note: "Tuning needed: the frequency change that brings every Monte Carlo sample of the resonator back to its design frequency; the screw tip radius is the hemispherical boss (Slater perturbation) whose shift spans it."})
+		tt := Table{Caption: "Tuning range each resonator needs (from the machining tolerance) and the tuning screw that covers it",
+			Header: []string{"Resonator", "Tuning needed", "Span", "Screw at", "Screw tip radius"},
+			Num:    []bool{false, true, true, false, true}}
+		for _, sc := range in.Screws {
+			at := "end plate, ρ = " + micro(physics.FormatLength(sc.At.Rho, 3))
+			if sc.OnSide {
+				at = "side wall, z = " + micro(physics.FormatLength(sc.At.Z, 3))
+			}
+			rad := "–"
+			if !math.IsNaN(sc.Radius) {
+				rad = micro(physics.FormatLength(sc.Radius, 4))
+				if !sc.Valid {
+					rad += " (outside Slater's range)"
+				}
+			}
+			tt.add(false, strconv.Itoa(sc.Resonator), signedFreq(-sc.High)+" .. "+signedFreq(-sc.Low), physics.FormatFrequency(sc.Span, 4), at, rad)
+		}
+		out = append(out, Block{Table: &tt}, Block{Note: "Tuning needed: the frequency change that brings every Monte Carlo sample of the resonator back to its design frequency; the screw tip is the hemispherical boss (Slater perturbation) whose shift spans it. The Slater model holds for a tip radius up to 5 % of the wavelength and 20 % of the gap to the other walls."})
 	}
 	// Spurious resonances near the band.
 	st := Table{Caption: fmt.Sprintf("Spurious resonances of the cavities from %s to %s", freq(rz.Window[0]), freq(rz.Window[1])),
@@ -604,7 +607,7 @@ func manufactureBlocks(in Filter) []Block {
 				pt.add(false, freq(p.F), numDB(p.S21DB.Nominal), numDB(p.S21DB.Std), numDB(p.S21DB.Linear),
 					numDB(p.S11DB.Nominal), numDB(p.S11DB.Std), numDB(p.S11DB.Linear))
 			}
-			out = append(out, Block{Table: &pt}, Block{Note: "The tuning range each resonator needs and its screw are in the resonator table. The Slater model of the screw holds for a tip radius up to 5 % of the wavelength and 20 % of the gap to the other walls."})
+			out = append(out, Block{Table: &pt}, Block{Note: "The tuning range each resonator needs and its screw are in the section on the resonators."})
 		}
 	}
 	if dr := in.Drift; dr != nil {

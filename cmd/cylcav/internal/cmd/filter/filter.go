@@ -402,12 +402,6 @@ func (opts *Options) checkOutput() error {
 	if opts.Datasheet != "" {
 		files = append(files, cmdutil.File{Flag: "datasheet", Path: opts.Datasheet})
 	}
-	for i := range files {
-		for j := i + 1; j < len(files); j++ {
-			if filepath.Clean(files[i].Path) == filepath.Clean(files[j].Path) {
-				return cmdutil.Usagef("--%s and --%s name the same file %s", files[i].Flag, files[j].Flag, files[i].Path)
-			}
-		}
-	}
+	// CheckFiles refuses two flags naming one file.
 	return cmdutil.CheckFiles(opts.Force, files...)
 }
