@@ -178,4 +178,3 @@ func TestFromFilterMatrix(t *testing.T) {
 		}
 	}
 }
-
