@@ -636,10 +636,10 @@ func manufactureBlocks(in Filter) []Block {
 			Header: []string{"Resonator", "Energy", "At", "Peak E", "Wall H", "Margin", "Power limit"},
 			Num:    []bool{false, true, true, true, true, true, true}}
 		for _, r := range p.Resonators {
-			t.add(r.Resonator == p.Worst, strconv.Itoa(r.Resonator), physics.FormatSI(r.Energy, "J", 4), freq(r.F),
+			t.add(r.Resonator == p.Worst, strconv.Itoa(r.Resonator), microSI(physics.FormatSI(r.Energy, "J", 4)), freq(r.F),
 				fmt.Sprintf("%.4g MV/m", r.EPeak/1e6), physics.FormatSI(r.HWall, "A/m", 4), fmt.Sprintf("%.3g ×", r.Margin), physics.FormatSI(r.MaxPower, "W", 4))
 		}
-		out = append(out, Block{Table: &t}, Block{Para: fmt.Sprintf("Power limit (first estimate): %s, set by resonator %d. See the cautions (section on cautions) before applying power.", physics.FormatSI(p.Limit, "W", 4), p.Worst)})
+		out = append(out, Block{Table: &t}, Block{Para: fmt.Sprintf("Power limit (first estimate): %s, set by resonator %d. Read the section Cautions before applying power.", physics.FormatSI(p.Limit, "W", 4), p.Worst)})
 	}
 	return out
 }
@@ -729,6 +729,9 @@ func numDB(v float64) string {
 	}
 	return minus(strconv.FormatFloat(v, 'g', 4, 64))
 }
+
+// microSI writes the prefix micro as µ ("1.2 uJ" -> "1.2 µJ").
+func microSI(s string) string { return strings.Replace(s, " u", " µ", 1) }
 
 func num6(v float64) string { return minus(strconv.FormatFloat(v, 'f', 6, 64)) }
 

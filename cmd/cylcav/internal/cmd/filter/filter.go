@@ -155,8 +155,14 @@ clearance of the mode at f0.
 
 --touchstone writes the response as a Touchstone 1.1 .s2p file (RI, 50 ohm,
 Hz); --plot draws |S21|, |S11| with the specification mask and the group
-delay (.png, .svg or .pdf). Existing files are replaced only with --force;
-no file is written when anything fails.
+delay (.png, .svg or .pdf). --datasheet writes the filter's datasheet, as
+one self-contained HTML file (.html) or as a PDF (.pdf): the specification
+with the verdict of every mask line, the topology diagram, the coupling
+matrix, the resonators, the coupling realisation, the response charts
+(mask, passband loss, the wide view with the cavities' spurious modes),
+the tolerance, temperature and power results that were asked for, and the
+cautions. Existing files are replaced only with --force; no file is written
+when anything fails.
 
 Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Example: `  # A channel filter for an invented 10 GHz beacon receiver:
@@ -176,7 +182,12 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
   # range, the drift from 10 C to 30 C with invar rods, and 200 W of input
   $ cylcav filter --f0 10GHz --bw 100MHz --return-loss 23dB --order 6 \
       --mode TE011 --wall copper --ratio 1.2 --tolerance 0.005mm \
-      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200W`,
+      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200W
+
+  # Its datasheet, as one HTML file (or .pdf)
+  $ cylcav filter --f0 10GHz --bw 100MHz --return-loss 23dB --order 6 \
+      --mode TE011 --wall copper --ratio 1.2 --tolerance 0.005mm --power 200W \
+      --datasheet channel.html`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			changed := cmd.Flags().Changed
