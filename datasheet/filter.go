@@ -306,7 +306,7 @@ func resonatorBlocks(in Filter) []Block {
 	t.Num = []bool{false, false, true, true, true}
 	var trusted []bool
 	if pl := in.Irises; pl != nil {
-		trusted = trustedCavities(pl)
+		trusted = pl.Trusted()
 		t.Header = append(t.Header, "L with irises")
 		t.Num = append(t.Num, true)
 	}
@@ -411,30 +411,6 @@ func spuriousGroups(rz *filter.Realisation) []spuriousGroup {
 		out[i].res = slices.Compact(out[i].res)
 	}
 	return out
-}
-
-// trustedCavities reports, per cavity, whether its corrected dimensions
-// rest only on valid irises (iris.Judge) and every iris was sized.
-func trustedCavities(pl *iris.Plan) []bool {
-	ok := make([]bool, len(pl.Cavities))
-	for i, c := range pl.Cavities {
-		ok[i] = c.Complete
-	}
-	n := len(pl.Cavities)
-	for _, c := range pl.Couplings {
-		if c.Kind == "cross" {
-			continue
-		}
-		if st, _ := iris.Judge(c); st == iris.Valid {
-			continue
-		}
-		for _, r := range []int{c.From, c.To} {
-			if r >= 1 && r <= n {
-				ok[r-1] = false
-			}
-		}
-	}
-	return ok
 }
 
 // realisationBlocks is the coupling-realisation table: the irises (radius,
