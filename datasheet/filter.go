@@ -212,10 +212,13 @@ func FromFilter(in Filter, th figure.Theme) (*Sheet, error) {
 			rows = 2
 		}
 	}
+	// The diagram's notes follow it as a note, so that the figure stays
+	// short enough to share a page with the specification.
+	tf.Notes = nil
 	topo := &Chart{ID: "topology", Title: "Coupling topology",
 		Caption: "Resonators and their couplings as realised by the coupling matrix of section 3 (" + tp.Form + ").",
-		Figure:  tf, Page: figure.Page{Width: 7.5 * vg.Inch, Height: vg.Length(2.6+0.9*rows) * vg.Inch}}
-	sh.Sections = append(sh.Sections, Section{SecTopology, []Block{{Chart: topo}}})
+		Figure:  tf, Page: figure.Page{Width: 7.5 * vg.Inch, Height: vg.Length(1.6+0.55*rows) * vg.Inch}}
+	sh.Sections = append(sh.Sections, Section{SecTopology, []Block{{Chart: topo}, {Note: strings.Join(tp.Notes, " ")}}})
 
 	// 3. Coupling matrix, couplings and external Q.
 	mt := Table{Caption: fmt.Sprintf("Coupling matrix M, normalised (N+2 = %d, rows and columns S, 1..%d, L; |M| < %g set as 0)", n+2, n, matrixZero)}

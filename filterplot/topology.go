@@ -203,7 +203,6 @@ func (t *Topology) Figure(th figure.Theme) (*figure.Figure, error) {
 	p.Add(&topologyPlotter{t: t, th: th})
 	fig := figure.NewFigure(th, t.Title)
 	fig.Panels = []*plot.Plot{p}
-	fig.Equal = []*plot.Plot{p}
 	fig.Legend.Add("main-line coupling", figure.LineThumb{LineStyle: linkStyle(th, TopologyLink{M: 1})})
 	fig.Legend.Add("cross coupling > 0", figure.LineThumb{LineStyle: linkStyle(th, TopologyLink{M: 1, Cross: true})})
 	fig.Legend.Add("cross coupling < 0", figure.LineThumb{LineStyle: linkStyle(th, TopologyLink{M: -1, Cross: true})})
@@ -231,14 +230,33 @@ type topologyPlotter struct {
 	th figure.Theme
 }
 
+// topoMaxUnit is the largest spacing of neighbouring nodes on the page:
+// a short filter is drawn compact in the middle, not stretched across.
+const topoMaxUnit = 1.3 * vg.Inch
+
 // Plot implements plot.Plotter: links first, their labels, then the nodes
-// over them.
+// over them. The layout is scaled on its own, the rows at most as far
+// apart as the columns, and centred on the canvas (the plot's axes are
+// hidden and only bound the layout).
 func (tp *topologyPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
-	trX, trY := plt.Transforms(&c)
-	at := func(x, y float64) vg.Point { return vg.Point{X: trX(x), Y: trY(y)} }
+	x0, x1, y0, y1 := plt.X.Min, plt.X.Max, plt.Y.Min, plt.Y.Max
+	w, h := c.Max.X-c.Min.X, c.Max.Y-c.Min.Y
+	ux := min(w/vg.Length(x1-x0), topoMaxUnit)
+	uy := min(h/vg.Length(y1-y0), ux)
+	cx, cy := (c.Min.X+c.Max.X)/2, (c.Min.Y+c.Max.Y)/2
+	at := func(x, y float64) vg.Point {
+		return vg.Point{X: cx + ux*vg.Length(x-(x0+x1)/2), Y: cy + uy*vg.Length(y-(y0+y1)/2)}
+	}
 	// The node radius shrinks for long filters so that neighbours never
-	// touch: at most 30 % of the spacing of neighbouring resonators.
-	unit := trX(1) - trX(0)
+	// touch: at most 30 % of the spacing of neighbouring nodes (and of the
+	// rows, for a folded layout).
+	unit := ux
+	for _, nd := range tp.t.Nodes {
+		if nd.Y != 0 {
+			unit = min(ux, uy)
+			break
+		}
+	}
 	r := topoNode
 	if lim := 0.3 * unit; lim < r {
 		r = lim

@@ -114,8 +114,8 @@ func PassbandFigure(th figure.Theme, d *filter.Design, q0 []float64, points int)
 }
 
 // WideFigure draws |S21| and |S11| of d with the unloaded Qs q0 from lo to
-// hi (Hz) with the markers as labelled vertical lines, and notes under the
-// legend. The coupling-matrix response knows nothing of the markers: a
+// hi (Hz) with the rejection requirements of the specification and the
+// markers as labelled vertical lines, and notes under the legend. The coupling-matrix response knows nothing of the markers: a
 // spurious resonance shows only as its marker.
 func WideFigure(th figure.Theme, d *filter.Design, q0 []float64, lo, hi float64, points int, markers []Marker, notes []string) (*figure.Figure, error) {
 	if d == nil || d.Folded == nil || d.Spec.Order < 1 {
@@ -137,6 +137,23 @@ func WideFigure(th figure.Theme, d *filter.Design, q0 []float64, lo, hi float64,
 	}
 	r.Fill, r.LineStyle, r.NoRange = passbandFill, draw.LineStyle{}, true
 	p.Add(r)
+	// The rejection requirements, as on the response plot.
+	req := draw.LineStyle{Color: figure.Red, Width: vg.Points(1.2), Dashes: []vg.Length{vg.Points(6), vg.Points(2.5)}}
+	for _, m := range rp.Rejections {
+		a, b := math.Min(m.F, m.Edge)/sc, math.Max(m.F, m.Edge)/sc
+		if !(b > a) {
+			continue // outside the model: not checked, nothing to draw
+		}
+		r, err := figure.NewRegion(a, b, m.Level, rp.DBMax)
+		if err != nil {
+			return nil, err
+		}
+		r.Fill, r.LineStyle, r.NoRange = maskFill, draw.LineStyle{}, true
+		p.Add(r)
+		if err := addLine(p, []float64{a, b}, []float64{m.Level, m.Level}, req); err != nil {
+			return nil, err
+		}
+	}
 	clip := rp.DBMin - 0.1*(rp.DBMax-rp.DBMin)
 	s21, s11 := th.Series(0), th.Series(1)
 	if err := addLine(p, x, clampBelow(rp.S11DB, clip), s11); err != nil {
@@ -170,6 +187,9 @@ func WideFigure(th figure.Theme, d *filter.Design, q0 []float64, lo, hi float64,
 	fig.Legend.Add("|S21|", figure.LineThumb{LineStyle: s21})
 	fig.Legend.Add("|S11|", figure.LineThumb{LineStyle: s11})
 	fig.Legend.Add("passband", figure.BoxThumb{Fill: passbandFill})
+	if len(rp.Rejections) > 0 {
+		fig.Legend.Add("rejection limit", figure.BoxThumb{Fill: maskFill}, figure.LineThumb{LineStyle: req})
+	}
 	hasAlarm, hasQuiet := false, false
 	for _, m := range ms {
 		hasAlarm = hasAlarm || m.Alarm
