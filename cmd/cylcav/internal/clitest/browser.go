@@ -159,3 +159,44 @@ func DarkSamples(t *testing.T, path string) int {
 	}
 	return dark
 }
+
+// Page geometry of the PDF datasheets, points (1 mm = 72/25.4 pt): the
+// text area starts 15 mm from the top; the footer starts 20 mm from the
+// bottom.
+const (
+	pdfPageTop    = 15 * 72 / 25.4
+	pdfPageFooter = 20 * 72 / 25.4
+)
+
+var (
+	// bboxPage and bboxBlock read pdftotext -bbox-layout output.
+	bboxPage  = regexp.MustCompile(`<page width="[\d.]+" height="([\d.]+)">`)
+	bboxBlock = regexp.MustCompile(`<block xMin="[\d.]+" yMin="([\d.]+)" xMax="[\d.]+" yMax="([\d.]+)">`)
+)
+
+// PDFPageFills returns, for each page of the PDF datasheet at path, the
+// part of its text area that is used: the lowest text on the page (a
+// chart's caption lies under the chart) measured from the top margin,
+// against the height down to the footer (pdftotext -bbox-layout).
+func PDFPageFills(t *testing.T, path string) []float64 {
+	t.Helper()
+	var out []float64
+	pages := strings.Split(Poppler(t, "pdftotext", "-bbox-layout", path, "-"), "<page ")[1:]
+	for i, pg := range pages {
+		m := bboxPage.FindStringSubmatch("<page " + pg)
+		if m == nil {
+			t.Fatalf("%s page %d: no page size in pdftotext output", path, i+1)
+		}
+		h, _ := strconv.ParseFloat(m[1], 64)
+		bottom := 0.0
+		for _, b := range bboxBlock.FindAllStringSubmatch(pg, -1) {
+			y0, _ := strconv.ParseFloat(b[1], 64)
+			y1, _ := strconv.ParseFloat(b[2], 64)
+			if y0 < h-pdfPageFooter {
+				bottom = max(bottom, y1)
+			}
+		}
+		out = append(out, (bottom-pdfPageTop)/(h-pdfPageFooter-pdfPageTop))
+	}
+	return out
+}

@@ -230,8 +230,9 @@ func TestFilterDatasheetIrises(t *testing.T) {
 }
 
 // TestFilterDatasheetPDF: the PDF datasheet embeds its fonts (pdffonts),
-// its first page renders with ink (pdftoppm), and its section headings are
-// those of the HTML datasheet, in order (pdftotext).
+// its first page renders with ink (pdftoppm), no page is nearly empty, and
+// its section headings are those of the HTML datasheet, in order
+// (pdftotext).
 func TestFilterDatasheetPDF(t *testing.T) {
 	path, b := sheet(t, "ch.pdf", channel...)
 	rendertest.PDF(t, b)
@@ -244,6 +245,18 @@ func TestFilterDatasheetPDF(t *testing.T) {
 	}
 	if dark := inkSamples(t, pngs[0]); dark < 200 {
 		t.Errorf("page 1 is nearly blank (%d dark samples)", dark)
+	}
+	// Every page fills at least a quarter of its text area (a page less
+	// full, a stray bullet or a lone caption, reads as a layout fault:
+	// common practice in typesetting, as for the cavity datasheet).
+	fills := clitest.PDFPageFills(t, path)
+	if len(fills) < 5 {
+		t.Errorf("%d pages, want at least 5", len(fills))
+	}
+	for i, f := range fills {
+		if f < 0.25 {
+			t.Errorf("page %d of %d fills %.0f %% of its text area, want at least 25 %%", i+1, len(fills), 100*f)
+		}
 	}
 	text := strings.ReplaceAll(clitest.Poppler(t, "pdftotext", "-layout", path, "-"), "\f", "\n")
 	last := -1
