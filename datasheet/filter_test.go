@@ -18,7 +18,7 @@ import (
 // perfectly conducting walls, Q0 = 8000 each for the response), 10 GHz,
 // 100 MHz wide, a zero at 10.11 GHz, bounded rejections on both sides.
 // With cavities false the realisation is left out.
-func filterInput(t *testing.T, cavities bool) datasheet.Filter {
+func filterInput(t testing.TB, cavities bool) datasheet.Filter {
 	t.Helper()
 	const f0, bw = 10e9, 100e6
 	d, err := filter.Synthesize(filter.Spec{F0: f0, BW: bw, Order: 6, ReturnLoss: 23,
@@ -176,5 +176,30 @@ func TestFromFilterMatrix(t *testing.T) {
 				t.Errorf("M[%d][%d] = %s, want %s", i, j, cell, want)
 			}
 		}
+	}
+}
+
+// BenchmarkFromFilter: the filter datasheet of the channel scenario with
+// cavities, assembled (charts computed) and written as HTML, then as PDF.
+func BenchmarkFromFilter(b *testing.B) {
+	in := filterInput(b, true)
+	for _, kind := range []string{"html", "pdf"} {
+		b.Run(kind, func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				sh, err := datasheet.FromFilter(in, figure.DefaultTheme())
+				if err != nil {
+					b.Fatal(err)
+				}
+				var w bytes.Buffer
+				if kind == "html" {
+					err = sh.WriteHTML(&w)
+				} else {
+					err = sh.WritePDF(&w)
+				}
+				if err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
