@@ -327,9 +327,19 @@ func (tp *topologyPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 		c.Stroke(circ)
 		c.FillText(th.Bold(th.AxisSize*vg.Length(math.Max(0.7, scale)), figure.Ink), pt, nd.Label)
 		if nd.Self != 0 {
+			// Away from every link: above a node of the upper row, right of
+			// the turning node of an odd folded layout, below the others
+			// (arcs of a one-row layout run above it).
 			sty := th.Text(labelSize, figure.DarkOrange)
-			sty.XAlign = draw.XLeft
-			c.FillText(sty, vg.Point{X: pt.X + r + vg.Points(2), Y: pt.Y - r}, "M"+nd.Label+nd.Label+" "+strconv.FormatFloat(nd.Self, 'f', 4, 64))
+			at := vg.Point{X: pt.X, Y: pt.Y - r - vg.Points(1)}
+			sty.YAlign = draw.YTop
+			switch {
+			case nd.Y == 1:
+				at.Y, sty.YAlign = pt.Y+r+vg.Points(1), draw.YBottom
+			case nd.Y == 0.5:
+				at, sty.XAlign, sty.YAlign = vg.Point{X: pt.X + r + vg.Points(3), Y: pt.Y}, draw.XLeft, draw.YCenter
+			}
+			c.FillText(sty, at, "M"+nd.Label+nd.Label+" "+strconv.FormatFloat(nd.Self, 'f', 4, 64))
 		}
 	}
 }
