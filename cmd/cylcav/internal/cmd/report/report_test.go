@@ -2,9 +2,7 @@ package report_test
 
 import (
 	"bytes"
-	"context"
 	"encoding/json"
-	"image/png"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -12,7 +10,6 @@ import (
 	"strconv"
 	"strings"
 	"testing"
-	"time"
 
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/report"
@@ -209,10 +206,6 @@ func TestFlagsAreDesigns(t *testing.T) {
 // tests.
 const chromium = clitest.Chromium
 
-func chromiumArgs(profile string, extra ...string) []string {
-	return clitest.ChromiumArgs(profile, extra...)
-}
-
 // runProbe returns the probe's SVG count, hidden count and errors as text.
 func runProbe(t *testing.T, dir, name, page string) []string {
 	t.Helper()
@@ -245,41 +238,10 @@ func TestDatasheetInChromium(t *testing.T) {
 		t.Error("the probe missed a deliberate script error")
 	}
 
-	// Screenshot of the datasheet as shipped, with console logging on.
+	// Screenshot of the datasheet as shipped, with console logging on
+	// (clitest.ChromiumScreenshot fails on any console message).
 	shot := filepath.Join(dir, "datasheet.png")
-	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
-	defer cancel()
-	cmd := exec.CommandContext(ctx, chromium, chromiumArgs(filepath.Join(dir, "profile-shot"),
-		"--enable-logging=stderr", "--v=0", "--screenshot="+shot, "--window-size=1000,2400", "file://"+html)...)
-	var errOut bytes.Buffer
-	cmd.Stderr = &errOut
-	if err := cmd.Run(); err != nil {
-		t.Fatalf("chromium --screenshot: %v\n%s", err, errOut.String())
-	}
-	for _, line := range strings.Split(errOut.String(), "\n") {
-		if strings.Contains(line, ":CONSOLE") {
-			t.Errorf("console message from the datasheet: %s", line)
-		}
-	}
-	f, err := os.Open(shot)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	img, err := png.Decode(f)
-	if err != nil {
-		t.Fatalf("screenshot does not decode: %v", err)
-	}
-	dark := 0
-	bnd := img.Bounds()
-	for y := bnd.Min.Y; y < bnd.Max.Y; y += 4 {
-		for x := bnd.Min.X; x < bnd.Max.X; x += 4 {
-			if r, g, b, _ := img.At(x, y).RGBA(); r+g+b < 3*0x4000 {
-				dark++
-			}
-		}
-	}
-	if dark < 500 {
+	if dark := clitest.ChromiumScreenshot(t, dir, html, shot, 1000, 2400); dark < 500 {
 		t.Errorf("screenshot is nearly blank (%d dark samples)", dark)
 	}
 	t.Logf("screenshot: %s", shot)
