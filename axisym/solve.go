@@ -353,45 +353,15 @@ func (sv *solver) isolate(lo, hi point) {
 }
 
 // refine narrows a bracket holding exactly one resonance (hi.j = lo.j + 1)
-// to relTol. Each step is a secant step on the last pivot (Illinois
-// weighting; Dowell and Jarratt 1971) when the pivot changes sign across
-// the bracket and the step lands well inside it, and a bisection otherwise;
-// the count alone decides which side keeps the resonance, so a pole of the
-// pivot can slow the search but never mislead it.
+// to relTol by illinois on the last pivot; the count alone decides which
+// side keeps the resonance.
 func (sv *solver) refine(lo, hi point) float64 {
-	side, stall := 0, 0
-	for range 300 {
-		w := hi.f - lo.f
-		if w <= relTol*hi.f {
-			break
-		}
-		x := 0.5 * (lo.f + hi.f)
-		if stall < 3 && lo.g*hi.g < 0 {
-			if s := lo.f - lo.g*w/(hi.g-lo.g); s > lo.f && s < hi.f {
-				x = s
-			}
-		} else {
-			stall = 0 // this step bisects
-		}
-		p := sv.at(x)
-		if p.j <= lo.j {
-			if side == -1 {
-				hi.g /= 2
-			}
-			lo, side = p, -1
-		} else {
-			if side == 1 {
-				lo.g /= 2
-			}
-			hi, side = p, 1
-		}
-		if hi.f-lo.f > 0.5*w {
-			stall++
-		} else {
-			stall = 0
-		}
-	}
-	return 0.5 * (lo.f + hi.f)
+	return illinois(lo.f, hi.f, lo.g, hi.g, 300,
+		func(lo, hi float64) bool { return hi-lo <= relTol*hi },
+		func(x float64) (float64, bool) {
+			p := sv.at(x)
+			return p.g, p.j <= lo.j
+		})
 }
 
 // labels returns, for k = 1..count, the k-th TE0 or TM0 mode of the closed

@@ -141,8 +141,8 @@ used for Q0 at 20 C without --wall:
 Keys per section: %s. inner_radius > 0 makes a
 coaxial section (a post or inner conductor); at each junction one
 cross-section must lie inside the other. A section with layers (n = 0
-only; isotropic, non-magnetic layers) gives frequencies but not yet Q0
-or field maps. Not solved yet (an error says
+only; isotropic, non-magnetic layers; both ends plates) gives Q0, field
+maps and bulb filling factors like a homogeneous one. Not solved yet (an error says
 so): other junctions. A body with a
 coaxial section has no "continues from" label.
 
@@ -163,8 +163,12 @@ narrower sections keep proportionally fewer. JSON and CSV give SI values.
 With --wall (a metal, as in 'cylcav q'; --end-wall and the other wall
 flags apply too) each resonance gains Q0 from the matched fields, with the
 wall loss on every surface (side walls, inner conductors and step faces
-take the --wall metal) and each section's loss tangents, plus the change
-of Q0 when the modes grew by half. Bodies without steps give exact Q0;
+take the --wall metal) and each section's (or layer's) loss tangents,
+plus the change of Q0 when the modes grew by half. A table below lists,
+for every region filled with something other than vacuum (a section's
+fill or one layer), its electric filling factor p_e (its share of the
+electric energy) and the Q of its loss tangents alone, Q = 1/(p_e tand +
+p_m tandm); JSON gives them per resonance under "dielectrics". Bodies without steps give exact Q0;
 next to a step edge the wall loss converges slowly, so there Q0 is an
 estimate (high by about its change or more).
 
@@ -209,8 +213,12 @@ it NEAR within --harmonic-window (default 0.5 %%) of one. With --beta or
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
   ...
 
-  # Its dipole (n = 1) resonances, labelled TE11p/TM11p
-  $ cylcav stack examples/nosed-cell.yaml --fmax 5GHz --order 1
+  # The same cell's dipole (n = 1) resonances, labelled TE11p/TM11p
+  $ cylcav stack examples/nosed-cell.yaml --fmax 9GHz --order 1
+  ...
+
+  # A dielectric puck in a copper can: Q0, wall and dielectric Q, the puck's filling factor
+  $ cylcav stack examples/puck-in-can.yaml --fmax 9GHz --wall copper
   ...
 
   # The field map of the re-entrant cavity's lowest resonance
@@ -360,6 +368,9 @@ type Row struct {
 	QWall    *float64 `json:"q_wall,omitempty"`
 	QFill    *float64 `json:"q_fill,omitempty"` // absent with Q0 given: no fill loss
 	QNote    string   `json:"q_note,omitempty"`
+	// With --wall: every region filled with something other than vacuum
+	// (a section's fill or one layer), with its filling factors and Q.
+	Dielectrics []DielectricRow `json:"dielectrics,omitempty"`
 	// With --beta, TM0 resonances of a body with a free axis: the
 	// transit-time factor and R/Q in both conventions, V^2/(omega W)
 	// ("linac") and V^2/(2 omega W) ("circuit"), in ohm.
@@ -377,6 +388,21 @@ type Row struct {
 	Bulb *BulbRow `json:"bulb,omitempty"`
 	// With --bunch-freq: the nearest beam harmonic.
 	Harmonic *HarmonicRow `json:"harmonic,omitempty"`
+}
+
+// DielectricRow is one filled region's share of a resonance
+// (axisym.MediumQ).
+type DielectricRow struct {
+	Section  int     `json:"section"`
+	Layer    int     `json:"layer"`  // 0: the section's fill; else the layer, innermost 1
+	Medium   string  `json:"medium"` // its name ("user" for values given as eps=...)
+	EpsR     float64 `json:"eps_r"`
+	TanDelta float64 `json:"tan_delta"`
+	// FillE and FillM are the electric and magnetic filling factors; Q
+	// that of the region's loss tangents alone (null: no loss tangent).
+	FillE float64  `json:"electric_filling_factor"`
+	FillM float64  `json:"magnetic_filling_factor"`
+	Q     *float64 `json:"q_dielectric,omitempty"`
 }
 
 // PairRow is the coupling coefficient of the pair named by --pair.
@@ -674,6 +700,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if err := t.Flush(); err != nil {
 		return err
 	}
+	if err := writeDielectrics(w, rows); err != nil {
+		return err
+	}
 	if opts.Extrapolate {
 		fmt.Fprintln(w, "f extrapolated: Richardson's rule on N, 2N and 4N modes per section, the order fitted; error: its")
 		fmt.Fprintln(w, "distance from the order-2 extrapolation (irregular: the three models did not converge regularly)")
@@ -727,6 +756,15 @@ func addQ(row *Row, r axisym.Resonance, walls axisym.Walls, b axisym.Body) error
 		return err
 	}
 	q0, qw, qf := u.Q0, u.QWall, u.QFill
+	for _, m := range u.Media {
+		d := DielectricRow{Section: m.Section, Layer: m.Layer, Medium: m.Medium.Label(), EpsR: m.Medium.Eps(),
+			TanDelta: m.Medium.TanDelta, FillE: m.FillE, FillM: m.FillM}
+		if !math.IsInf(m.Q, 1) {
+			q := m.Q
+			d.Q = &q
+		}
+		row.Dielectrics = append(row.Dielectrics, d)
+	}
 	row.Q0, row.QWall = &q0, &qw
 	if !math.IsInf(qf, 1) {
 		row.QFill = &qf
@@ -853,4 +891,52 @@ func writeMap(opts *Options, res []axisym.Resonance) error {
 		return err
 	}
 	return cmdutil.WriteFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap, Data: data})
+}
+
+// writeDielectrics writes, with --wall, each filled region's electric
+// filling factor and Q per resonance, one pair of columns per region.
+func writeDielectrics(w io.Writer, rows []Row) error {
+	var regions []DielectricRow
+	for _, r := range rows {
+		if len(r.Dielectrics) > len(regions) {
+			regions = r.Dielectrics
+		}
+	}
+	if len(regions) == 0 {
+		return nil
+	}
+	name := func(d DielectricRow) string {
+		if d.Layer == 0 {
+			return fmt.Sprintf("s%d", d.Section)
+		}
+		return fmt.Sprintf("s%d.%d", d.Section, d.Layer)
+	}
+	fmt.Fprintln(w, "filled regions: p_e = electric energy in the region / all electric energy, Q = 1/(p_e tand + p_m tandm)")
+	for _, d := range regions {
+		where := fmt.Sprintf("section %d", d.Section)
+		if d.Layer > 0 {
+			where += fmt.Sprintf(", layer %d", d.Layer)
+		}
+		what := fmt.Sprintf("eps_r %g, tand %g", d.EpsR, d.TanDelta)
+		if d.Medium != "user" {
+			what = d.Medium + ", " + what
+		}
+		fmt.Fprintf(w, "  %s: %s: %s\n", name(d), where, what)
+	}
+	header := []string{"#"}
+	for _, d := range regions {
+		header = append(header, "p_e "+name(d), "Q "+name(d))
+	}
+	t := cmdutil.NewTable(w, header...)
+	for _, r := range rows {
+		if len(r.Dielectrics) == 0 {
+			continue
+		}
+		cells := []string{strconv.Itoa(r.Index)}
+		for _, d := range r.Dielectrics {
+			cells = append(cells, strconv.FormatFloat(d.FillE, 'f', 4, 64), qText(d.Q))
+		}
+		t.Row(cells...)
+	}
+	return t.Flush()
 }

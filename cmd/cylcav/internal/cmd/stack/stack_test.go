@@ -86,10 +86,6 @@ func TestBadInput(t *testing.T) {
 		return p
 	}
 	good := write("good.yaml", "sections:\n  - length: 30mm\n    radius: 20mm\n")
-	puck, err := filepath.Abs(filepath.Join("..", "..", "..", "..", "..", "examples", "puck-in-can.yaml"))
-	if err != nil {
-		t.Fatal(err)
-	}
 	cases := []struct {
 		name, text string
 		want       []string
@@ -139,8 +135,6 @@ func TestBadInput(t *testing.T) {
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--pair", "1,2", "--format", "csv"}, Code: 2, Want: []string{"--pair", "json"}},
 		clitest.BadCase{Args: []string{good, "--fmax", "10GHz", "--wall", "unobtainium"}, Code: 2, Want: []string{"--wall"}},
 		clitest.BadCase{Args: []string{filepath.Join(dir, "nofile.yaml"), "--fmax", "10GHz"}, Code: 2, Want: []string{"nofile.yaml"}},
-		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--field-map", filepath.Join(dir, "p.svg")}, Code: 2, Want: []string{"--field-map", "radially layered", "not implemented"}},
-		clitest.BadCase{Args: []string{puck, "--fmax", "9GHz", "--bulb-diameter", "4mm", "--bulb-length", "2mm"}, Code: 2, Want: []string{"--bulb-diameter", "radially layered", "not implemented"}},
 		clitest.BadCase{Args: []string{}, Code: 2, Want: []string{"one geometry file"}},
 	)
 	clitest.CheckBadInput(t, "stack", bad)
@@ -306,5 +300,52 @@ func TestExtrapolateJSON(t *testing.T) {
 		if row.ExtrapolationErrorHz == nil || row.ChangeHz == nil || *row.ExtrapolationErrorHz >= *row.ChangeHz {
 			t.Errorf("#%d: extrapolation error %v, change %v", row.Index, row.ExtrapolationErrorHz, row.ChangeHz)
 		}
+	}
+}
+
+// TestPuckFields checks that a body with radially layered sections gets
+// its fields: Q0 with its breakdown per filled region, a field map and a
+// bulb's filling factors. The values are checked in package axisym (the
+// rod against mpmath, the puck's p_e against Slater's perturbation
+// relation); here the assembly: Q0 from the wall and region Qs, the
+// puck's p_e of the TE01-delta-like mode (axisym's
+// TestPuckFillingPerturbation: 0.97983547), and p_e over the regions
+// below 1.
+func TestPuckFields(t *testing.T) {
+	inRepo(t)
+	dir := t.TempDir()
+	r := clitest.Run(t, "stack", "examples/puck-in-can.yaml", "--fmax", "9GHz", "--wall", "copper", "--format", "json",
+		"--bulb-diameter", "4mm", "--bulb-length", "4mm", "--field-map", filepath.Join(dir, "puck.png"), "--map", "1")
+	if r.Code != 0 {
+		t.Fatalf("exit %d: %s", r.Code, r.Stderr)
+	}
+	var out struct {
+		Resonances []stack.Row `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(r.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	if len(out.Resonances) != 5 {
+		t.Fatalf("%d resonances, want 5", len(out.Resonances))
+	}
+	for _, row := range out.Resonances {
+		if row.Q0 == nil || row.QWall == nil || row.QFill == nil || row.Bulb == nil || len(row.Dielectrics) != 2 {
+			t.Fatalf("#%d: Q0 %v, Q wall %v, Q fill %v, bulb %v, regions %+v, note %q", row.Index, row.Q0, row.QWall, row.QFill, row.Bulb, row.Dielectrics, row.QNote)
+		}
+		inv := 1 / *row.QWall
+		var pe float64
+		for _, d := range row.Dielectrics {
+			inv += 1 / *d.Q
+			pe += d.FillE
+		}
+		if math.Abs(*row.Q0*inv-1) > 1e-12 || pe >= 1 {
+			t.Errorf("#%d: Q0 %g, want 1/(1/Q wall + sum 1/Q region) = %g; p_e sum %g", row.Index, *row.Q0, 1/inv, pe)
+		}
+	}
+	if d := out.Resonances[0].Dielectrics[1]; d.Section != 2 || d.Layer != 1 || math.Abs(d.FillE-0.97983547) > 1e-8 {
+		t.Errorf("#1: puck region %+v, want section 2 layer 1 with p_e 0.97983547", d)
+	}
+	if st, err := os.Stat(filepath.Join(dir, "puck.png")); err != nil || st.Size() == 0 {
+		t.Errorf("field map: %v", err)
 	}
 }
