@@ -324,9 +324,11 @@
 // shift of seven order-1 resonances when a ring of the wall is pushed in
 // to 1.3e-4 (TestHybridSlater). Speed: the five lowest order-1
 // resonances of that cell with their estimates (40 and 60 modes per
-// family in the widest section) take about 0.21 s
-// (BenchmarkHybridFiveLowest), most of it assembling the coupled junction
-// matrix. Losses, fields and transverse R/Q for n >= 1 are not computed
+// family in the widest section) take about 95 ms on one core of a shared
+// 2-core virtual machine (BenchmarkHybridFiveLowest; the same for TM0 of
+// the five-section body, BenchmarkFiveLowest: 23 ms), most of it
+// assembling the coupled junction matrix, whose wide-section blocks are
+// dense in both families. Losses, fields and transverse R/Q for n >= 1 are not computed
 // (with Request.Losses each LossErr wraps ErrNotImplemented).
 //
 // # References
