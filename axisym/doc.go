@@ -318,7 +318,8 @@
 // inertia counting the same resonances), on grids of 1, 0.5 and 0.25 mm
 // and extrapolated with the observed order (1.3 and 1.5: the re-entrant
 // edges), meets the two lowest order-1 resonances of a three-section
-// stepped body to 1.7e-5 and 2.3e-5 (bound 2e-4; TestHybridFD); without
+// stepped body to 1.7e-5 and 2.3e-5 and the lowest order-2 one to 2.0e-5
+// (bound 2e-4; TestHybridFD); without
 // the TE-TM cross term they would differ by 1.8e-2 and 5.6e-2. Slater's
 // perturbation theorem with package cavity's closed-form fields gives the
 // shift of seven order-1 resonances when a ring of the wall is pushed in
