@@ -38,8 +38,11 @@ type Request struct {
 // Resonance is one resonance of a body.
 type Resonance struct {
 	// Family is TE (TE0: E_phi, H_r, H_z) or TM (TM0: E_r, E_z, H_phi).
+	// For Order >= 1, where TE_n and TM_n couple at steps, it is the family
+	// of Origin, the label, not of the field.
 	Family cavity.Family
-	// Index counts the resonances of the family from 1 in frequency order.
+	// Index counts the resonances of the family from 1 in frequency order
+	// (for Order >= 1: all resonances of that order).
 	Index int
 	// Frequency is the resonant frequency in Hz, computed with 1.5 times
 	// the requested number of modes.
