@@ -381,7 +381,11 @@ func solveHybrid(b Body, r Request, modes int) ([]Resonance, error) {
 	if err != nil {
 		return nil, err
 	}
-	origins, ties, err := hybridLabels(b.Enclosing(), r.Order, len(fine))
+	top := 0.0
+	if len(fine) > 0 {
+		top = fine[len(fine)-1]
+	}
+	origins, ties, err := hybridLabels(b.Enclosing(), r.Order, len(fine), top)
 	if err != nil {
 		return nil, err
 	}
@@ -401,34 +405,58 @@ func solveHybrid(b Body, r Request, modes int) ([]Resonance, error) {
 }
 
 // hybridLabels returns the count lowest modes of order n (TE_nmp and
-// TM_nmp together, in the frequency order of package cavity) of the closed
-// cylinder c, and whether another mode of order n shares each one's
-// frequency (to 1e-12 relative).
-func hybridLabels(c cavity.Cavity, n, count int) ([]cavity.Mode, []bool, error) {
+// TM_nmp together, in frequency order, TE before TM, then m, p at equal
+// frequency, as package cavity lists them; frequencies from
+// cavity.Cavity.Frequency) of the closed cylinder c, and whether another
+// mode of order n shares each one's frequency (to 1e-12 relative). top is
+// a first guess of the count-th frequency (the body's highest resonance);
+// the bound grows until count modes lie below it.
+func hybridLabels(c cavity.Cavity, n, count int, top float64) ([]cavity.Mode, []bool, error) {
 	if count == 0 {
 		return nil, nil, nil
 	}
-	// The first count modes TE_n1p, p = 1..count, bound the search.
-	f := c.Frequency(cavity.Mode{Family: cavity.TE, N: n, M: 1, P: min(count, cavity.MaxIndex)}) * (1 + 1e-9)
-	all, err := c.Modes(f)
-	if err != nil {
-		return nil, nil, fmt.Errorf("axisym: labels: %w", err)
+	type entry struct {
+		m cavity.Mode
+		f float64
 	}
-	var list []cavity.Resonance
-	for _, m := range all {
-		if m.Mode.N == n {
-			list = append(list, m)
+	var list []entry
+	for bound := top * (1 + 1e-9); ; bound *= 1.5 {
+		list = list[:0]
+		k := 2 * math.Pi * bound / physics.SpeedOfLight * c.Fill.Index()
+		guess := min(int(k*c.Radius/math.Pi)+3, cavity.MaxIndex)
+		jz, jpz := bessel.Zeros(n, guess)
+		for _, fam := range []cavity.Family{cavity.TE, cavity.TM} {
+			zeros, p0 := jpz, 1
+			if fam == cavity.TM {
+				zeros, p0 = jz, 0
+			}
+			for mi, x := range zeros {
+				if x/c.Radius > k {
+					break
+				}
+				for p := p0; p <= cavity.MaxIndex; p++ {
+					md := cavity.Mode{Family: fam, N: n, M: mi + 1, P: p}
+					f := c.Frequency(md)
+					if f > bound {
+						break
+					}
+					list = append(list, entry{md, f})
+				}
+			}
+		}
+		if len(list) > count || guess >= cavity.MaxIndex || bound > 1e6*top {
+			break
 		}
 	}
-	sort.SliceStable(list, func(i, j int) bool { return list[i].Frequency < list[j].Frequency })
 	if len(list) < count {
-		return nil, nil, fmt.Errorf("axisym: labels: only %d modes of order %d below %g Hz, need %d", len(list), n, f, count)
+		return nil, nil, fmt.Errorf("axisym: labels: only %d modes of order %d in the enclosing cylinder within the index limits, need %d", len(list), n, count)
 	}
+	sort.SliceStable(list, func(i, j int) bool { return list[i].f < list[j].f })
 	modes, ties := make([]cavity.Mode, count), make([]bool, count)
 	for i := range count {
-		modes[i] = list[i].Mode
+		modes[i] = list[i].m
 		tie := func(j int) bool {
-			return j >= 0 && j < len(list) && math.Abs(list[j].Frequency-list[i].Frequency) <= 1e-12*list[i].Frequency
+			return j >= 0 && j < len(list) && math.Abs(list[j].f-list[i].f) <= 1e-12*list[i].f
 		}
 		ties[i] = tie(i-1) || tie(i+1)
 	}
