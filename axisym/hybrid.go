@@ -342,6 +342,12 @@ func hybridResonances(b Body, n int, fmax float64, modes int) ([]float64, error)
 	if err != nil {
 		return nil, err
 	}
+	return hybridResonancesWith(b, n, fmax, te, tm)
+}
+
+// hybridResonancesWith is hybridResonances with the TE and TM mode counts
+// of every section given.
+func hybridResonancesWith(b Body, n int, fmax float64, te, tm []int) ([]float64, error) {
 	h := newHybridSystem(b, n, te, tm)
 	a := make([]float64, h.sys.ndof*h.sys.ndof)
 	sv := &solver{countFn: func(f float64) (int, float64) { return h.count(f, a) }}
@@ -461,4 +467,74 @@ func hybridLabels(c cavity.Cavity, n, count int, top float64) ([]cavity.Mode, []
 		ties[i] = tie(i-1) || tie(i+1)
 	}
 	return modes, ties, nil
+}
+
+// ExtrapolateOrder is Extrapolate for azimuthal order n >= 1 (TE_n and TM_n
+// together, hybrid.go): the resonances of order n of b below fmax from
+// three models with N, 2N and 4N modes of each family in every section (N
+// from the same rule as Solve with modes in the widest section; doubling
+// keeps every ratio of counts), extrapolated by Richardson's rule with the
+// observed order and the error estimate of Extrapolate. Family and Index
+// of each entry are those of Solve's list for the same order (the label's
+// family and the place in the order-n list). Errors: those of Solve for
+// n >= 1, and 4 times a count above MaxModes.
+func ExtrapolateOrder(b Body, n int, fmax float64, modes int) ([]Extrapolation, error) {
+	if err := b.Validate(); err != nil {
+		return nil, err
+	}
+	if n < 1 || n > cavity.MaxIndex {
+		return nil, fmt.Errorf("axisym: azimuthal order n must be in 1..%d for ExtrapolateOrder (n = 0: Extrapolate), got %d", cavity.MaxIndex, n)
+	}
+	if err := b.hybridSupported(n); err != nil {
+		return nil, err
+	}
+	if !(fmax > 0) || math.IsInf(fmax, 0) {
+		return nil, fmt.Errorf("axisym: maximum frequency must be positive and finite, got %g Hz", fmax)
+	}
+	if modes == 0 {
+		modes = DefaultModes
+	}
+	if modes < 1 || 4*modes > MaxModes {
+		return nil, fmt.Errorf("axisym: modes must be in 1..%d for extrapolation (four times as many in the finest model), got %d", MaxModes/4, modes)
+	}
+	te, tm, err := hybridCounts(b, n, fmax*(1+estimateMargin), modes)
+	if err != nil {
+		return nil, err
+	}
+	var models [3][]float64
+	for i := range models {
+		ct, cm := make([]int, len(te)), make([]int, len(tm))
+		for j := range te {
+			ct[j], cm[j] = te[j]<<i, tm[j]<<i
+			if ct[j] > MaxModes || cm[j] > MaxModes {
+				return nil, fmt.Errorf("axisym: section %d would need %d modes in the finest model, more than %d; lower the mode count", j+1, max(ct[j], cm[j]), MaxModes)
+			}
+		}
+		lim := fmax
+		if i < 2 {
+			lim *= 1 + estimateMargin
+		}
+		if models[i], err = hybridResonancesWith(b, n, lim, ct, cm); err != nil {
+			return nil, err
+		}
+	}
+	top := 0.0
+	if k := len(models[2]); k > 0 {
+		top = models[2][k-1]
+	}
+	origins, _, err := hybridLabels(b.Enclosing(), n, len(models[2]), top)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]Extrapolation, len(models[2]))
+	for k, f2 := range models[2] {
+		e := Extrapolation{Family: origins[k].Family, Index: k + 1, Order: math.NaN(), Frequency: f2, Error: math.Inf(1)}
+		e.Models[2] = f2
+		if k < len(models[0]) && k < len(models[1]) {
+			e.Models[0], e.Models[1] = models[0][k], models[1][k]
+			e.richardson()
+		}
+		out[k] = e
+	}
+	return out, nil
 }

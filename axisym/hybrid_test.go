@@ -528,3 +528,50 @@ func TestHybridSlater(t *testing.T) {
 		}
 	}
 }
+
+// TestHybridExtrapolate: on beamCell the extrapolated order-1 frequencies
+// from N = 20 (models of 20, 40, 80 modes per family in the widest
+// section) lie within their error estimate of the extrapolation from
+// N = 40 (40, 80, 160), and much closer to it than the finest model
+// alone; on one section (no truncation error) they are exact.
+func TestHybridExtrapolate(t *testing.T) {
+	if testing.Short() {
+		t.Skip("models with up to 160 modes per family")
+	}
+	coarse, err := ExtrapolateOrder(beamCell(), 1, 10e9, 20)
+	if err != nil || len(coarse) != 5 {
+		t.Fatal(len(coarse), err)
+	}
+	fine, err := ExtrapolateOrder(beamCell(), 1, 10e9, 40)
+	if err != nil || len(fine) != 5 {
+		t.Fatal(len(fine), err)
+	}
+	for i, c := range coarse {
+		f := fine[i]
+		if !c.Regular || !f.Regular {
+			t.Errorf("#%d: not regular (%v, %v)", i+1, c.Models, f.Models)
+			continue
+		}
+		d := math.Abs(c.Frequency - f.Frequency)
+		t.Logf("#%d %v: order %.2f, extrapolated %.10g Hz (error %.2g), from 2N: %.10g Hz (error %.2g); finest model off by %.2g",
+			i+1, c.Family, c.Order, c.Frequency, c.Error, f.Frequency, f.Error, math.Abs(c.Models[2]-f.Frequency))
+		if d > c.Error+f.Error || d > 0.2*math.Abs(c.Models[2]-f.Frequency) {
+			t.Errorf("#%d: extrapolations %.10g and %.10g Hz differ by %.3g Hz, estimates %.3g and %.3g Hz, finest model %.10g Hz",
+				i+1, c.Frequency, f.Frequency, d, c.Error, f.Error, c.Models[2])
+		}
+	}
+	c := cavity.Cavity{Radius: 0.020, Length: 0.033}
+	one, err := ExtrapolateOrder(Body{Sections: []Section{{Length: c.Length, Radius: c.Radius}}}, 1, 20e9, 8)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := orderList(t, c, 1, 20e9)
+	if len(one) != len(want) {
+		t.Fatalf("one section: %d resonances, want %d", len(one), len(want))
+	}
+	for i, w := range want {
+		if d := math.Abs(one[i].Frequency-w.Frequency) / w.Frequency; d > closedTol || !one[i].Regular {
+			t.Errorf("one section #%d: %.15g Hz (regular %v), want %.15g Hz (%v)", i+1, one[i].Frequency, one[i].Regular, w.Frequency, w.Mode)
+		}
+	}
+}

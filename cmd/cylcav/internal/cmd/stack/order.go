@@ -3,9 +3,11 @@ package stack
 import (
 	"fmt"
 	"io"
+	"math"
 
 	"github.com/spf13/cobra"
 
+	"cylcav/axisym"
 	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 )
@@ -23,7 +25,7 @@ const hybridFamily = "hybrid"
 // orderRefused are the flags that need losses or fields, which the solver
 // does not compute for n >= 1, and the flags that assume separate families.
 var orderRefused = []string{"wall", "end-wall", "end-wall-a", "end-wall-b", "roughness", "roughness-model", "temperature",
-	"plating", "plating-thickness", "superconducting", "residual", "beta", "field-map", "map", "bulb-diameter", "bulb-length", "bulb-centre", "extrapolate", "pair"}
+	"plating", "plating-thickness", "superconducting", "residual", "beta", "field-map", "map", "bulb-diameter", "bulb-length", "bulb-centre", "pair"}
 
 // checkOrder refuses, with --order >= 1, every flag whose figure is not
 // computed for n >= 1 (one line, exit 2), and --family te or tm.
@@ -68,4 +70,24 @@ func writeOrderNote(w io.Writer, opts *Options) {
 	if opts.Geometry.Walls != nil {
 		fmt.Fprintf(w, "walls of %s: not used (no losses for n >= 1)\n", opts.File)
 	}
+}
+
+// addOrderExtrapolation fills the extrapolation columns of rows for
+// --order >= 1 (axisym.ExtrapolateOrder), matched by place in the list.
+func addOrderExtrapolation(opts *Options, res []axisym.Resonance, rows []Row) error {
+	ex, err := axisym.ExtrapolateOrder(opts.Geometry.Body, opts.Order, opts.FMax, opts.Modes)
+	if err != nil {
+		return err
+	}
+	for i, r := range res {
+		if r.Index > len(ex) || !ex[r.Index-1].Regular {
+			continue
+		}
+		e := ex[r.Index-1]
+		rows[i].FExtrapolatedHz, rows[i].ExtrapolationErrorHz = &e.Frequency, &e.Error
+		if !math.IsNaN(e.Order) {
+			rows[i].ExtrapolationOrder = &e.Order
+		}
+	}
+	return nil
 }

@@ -18,7 +18,7 @@ import (
 // with x = j'_11 = 1.841183781340659 and j_11 = 3.831705970207512
 // (A&S Tables 9.5 and 9.7, as recalled; Pozar, Microwave Engineering, 4th
 // ed., sec. 6.4), to 1e-10, labelled with those modes, family "hybrid",
-// n = 1 in the JSON.
+// n = 1 in the JSON; with --extrapolate the extrapolated values too.
 func TestOrderOne(t *testing.T) {
 	dir := t.TempDir()
 	file := filepath.Join(dir, "can.yaml")
@@ -57,6 +57,21 @@ func TestOrderOne(t *testing.T) {
 			t.Errorf("#%d: %s %s %.12g Hz, want hybrid %s %.12g Hz (closed form)", i+1, g.Family, g.ContinuesFrom, g.FHz, w.label, w.f)
 		}
 	}
+	// --extrapolate: no truncation error without steps, so the
+	// extrapolated frequencies are the closed form too.
+	ex := clitest.Run(t, "stack", file, "--fmax", "11GHz", "--order", "1", "--extrapolate", "--format", "json")
+	if ex.Code != 0 {
+		t.Fatalf("--extrapolate: exit %d: %s", ex.Code, ex.Stderr)
+	}
+	if err := json.Unmarshal([]byte(ex.Stdout), &out); err != nil {
+		t.Fatal(err)
+	}
+	for i, w := range want {
+		g := out.Resonances[i]
+		if g.FExtrapolatedHz == nil || math.Abs(*g.FExtrapolatedHz-w.f) > 1e-10*w.f {
+			t.Errorf("--extrapolate #%d: %v, want %.12g Hz (closed form)", i+1, g.FExtrapolatedHz, w.f)
+		}
+	}
 	tab := clitest.Run(t, "stack", file, "--fmax", "11GHz", "--order", "1")
 	if tab.Code != 0 || !strings.Contains(tab.Stdout, "n = 1 resonances below") || !strings.Contains(tab.Stdout, "TM110") {
 		t.Errorf("table: exit %d\n%s", tab.Code, tab.Stdout)
@@ -89,7 +104,6 @@ func TestOrderRefused(t *testing.T) {
 		{[]string{can, "--field-map", filepath.Join(dir, "m.png")}, "--field-map"},
 		{[]string{can, "--bulb-diameter", "5mm", "--bulb-length", "5mm"}, "--bulb-diameter"},
 		{[]string{can, "--family", "tm"}, "--family"},
-		{[]string{can, "--extrapolate"}, "--extrapolate"},
 		{[]string{coax}, "coaxial"},
 		{[]string{open}, "open ends"},
 	} {

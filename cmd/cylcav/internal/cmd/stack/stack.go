@@ -153,9 +153,9 @@ together, with the same exact count (none missed); each resonance is
 labelled with the TE_nmp or TM_nmp mode of the enclosing cylinder at the
 same place in the order-n list. Only closed bodies of homogeneous
 circular sections (no inner conductor, no layers, no pipe ends), and
-frequencies only: --wall, --beta, --field-map, --bulb-*, --extrapolate,
---pair and --family te|tm are refused with --order >= 1, and walls in
-the file are not used.
+frequencies only: --wall, --beta, --field-map, --bulb-*, --pair and
+--family te|tm are refused with --order >= 1, and walls in the file are
+not used; --extrapolate works as for n = 0.
 
 --modes sets the waveguide modes kept in the widest section (default %d);
 narrower sections keep proportionally fewer. JSON and CSV give SI values.
@@ -794,6 +794,9 @@ func digits(r Row) int {
 // res by family and place in the family.
 func addExtrapolation(opts *Options, res []axisym.Resonance, rows []Row) error {
 	byFam := map[cavity.Family][]axisym.Extrapolation{}
+	if opts.Order > 0 {
+		return addOrderExtrapolation(opts, res, rows) // order.go
+	}
 	for _, fam := range opts.Families {
 		ex, err := axisym.Extrapolate(opts.Geometry.Body, fam, opts.FMax, opts.Modes)
 		if err != nil {
