@@ -3,11 +3,11 @@ package axisym
 import (
 	"fmt"
 	"math"
-	"sync"
 
 	"cylcav/cavity"
 	"cylcav/physics"
 	"cylcav/physics/bessel"
+	"cylcav/physics/quad"
 )
 
 // Layer is one radial layer of a layered Section: the medium between the
@@ -155,6 +155,12 @@ type piece struct {
 // fg returns f(r) and G(r) = (1/r) d(r f)/dr (DLMF 10.6.2 and 10.29.2:
 // (x Z1)' = x Z0 for J and Y, (x I1)' = x I0, (x K1)' = -x K0).
 func (p piece) fg(r float64) (f, g float64) {
+	if r == 0 { // on the axis (b = 0 there): J1, I1 and r vanish, J0 = I0 = 1
+		if p.kind == kindPow {
+			return 0, 2 * p.a
+		}
+		return 0, p.a * p.k
+	}
 	f1, g1, f2, g2 := basis(p.kind, p.k, r)
 	return p.a*f1 + p.b*f2, p.a*g1 + p.b*g2
 }
@@ -353,46 +359,19 @@ func (lg *layeredGuide) isolate(lo, hi bpoint, scale float64) {
 	lg.isolate(lo, mid, scale)
 }
 
-// refine narrows a bracket holding one mode (lo.c = hi.c + 1) by the
-// Illinois variant of regula falsi on the wall value (Dowell and Jarratt
-// 1971), falling back to bisection; the count decides the side.
+// refine narrows a bracket holding one mode (lo.c = hi.c + 1) by illinois
+// on the wall value; the count decides the side.
 func (lg *layeredGuide) refine(lo, hi bpoint, scale float64) float64 {
-	side, stall := 0, 0
-	for range 200 {
-		w := hi.x - lo.x
+	return illinois(lo.x, hi.x, lo.end, hi.end, 200,
 		// Stop at a few units in the last place of beta^2 itself (for the
 		// highest modes far below scale's reach).
-		if w <= max(2e-16*scale, 4e-16*max(math.Abs(lo.x), math.Abs(hi.x))) {
-			break
-		}
-		x := 0.5 * (lo.x + hi.x)
-		if stall < 3 && lo.end*hi.end < 0 {
-			if s := lo.x - lo.end*w/(hi.end-lo.end); s > lo.x && s < hi.x {
-				x = s
-			}
-		} else {
-			stall = 0
-		}
-		c, e, _ := lg.shoot(lg.k0, x, false)
-		p := bpoint{x, c, e}
-		if c >= lo.c {
-			if side == -1 {
-				hi.end /= 2
-			}
-			lo, side = p, -1
-		} else {
-			if side == 1 {
-				lo.end /= 2
-			}
-			hi, side = p, 1
-		}
-		if hi.x-lo.x > 0.5*w {
-			stall++
-		} else {
-			stall = 0
-		}
-	}
-	return 0.5 * (lo.x + hi.x)
+		func(lo, hi float64) bool {
+			return hi-lo <= max(2e-16*scale, 4e-16*max(math.Abs(lo), math.Abs(hi)))
+		},
+		func(x float64) (float64, bool) {
+			c, e, _ := lg.shoot(lg.k0, x, false)
+			return e, c >= lo.c
+		})
 }
 
 // mode returns the normalised mode with the given beta2.
@@ -467,7 +446,7 @@ func pieceIntegral(f, g piece, lo, hi float64) float64 {
 	}
 	phase := (math.Sqrt(math.Abs(f.p2)) + math.Sqrt(math.Abs(g.p2))) * (hi - lo)
 	n := min(20+int(0.5*phase), 600)
-	x, wt := gaussLegendre(n)
+	x, wt := quad.GaussLegendre(n)
 	half, mid := 0.5*(hi-lo), 0.5*(hi+lo)
 	s := 0.0
 	for i := range x {
@@ -477,45 +456,6 @@ func pieceIntegral(f, g piece, lo, hi float64) float64 {
 		s += wt[i] * r * u * v
 	}
 	return s * half
-}
-
-var (
-	glMu    sync.Mutex
-	glCache = map[int][2][]float64{}
-)
-
-// gaussLegendre returns the n nodes and weights of Gauss-Legendre
-// quadrature on [-1, 1], by Newton's method on the three-term recurrence of
-// the Legendre polynomials (DLMF 3.5(v), 18.9.1; Press et al., Numerical
-// Recipes, 3rd ed., sec. 4.6).
-func gaussLegendre(n int) (x, w []float64) {
-	glMu.Lock()
-	defer glMu.Unlock()
-	if c, ok := glCache[n]; ok {
-		return c[0], c[1]
-	}
-	x, w = make([]float64, n), make([]float64, n)
-	for i := range (n + 1) / 2 {
-		z := math.Cos(math.Pi * (float64(i) + 0.75) / (float64(n) + 0.5))
-		var dp float64
-		for range 100 {
-			p1, p2 := 1.0, 0.0
-			for j := 1; j <= n; j++ {
-				p1, p2 = ((2*float64(j)-1)*z*p1-(float64(j)-1)*p2)/float64(j), p1
-			}
-			dp = float64(n) * (z*p1 - p2) / (z*z - 1)
-			dz := p1 / dp
-			z -= dz
-			if math.Abs(dz) < 1e-16 {
-				break
-			}
-		}
-		x[i], x[n-1-i] = -z, z
-		w[i] = 2 / ((1 - z*z) * dp * dp)
-		w[n-1-i] = w[i]
-	}
-	glCache[n] = [2][]float64{x, w}
-	return x, w
 }
 
 // overlap returns M[i][j] = 2 pi int h_w,i e_g,j r dr over g's

@@ -8,6 +8,7 @@ import (
 	"cylcav/internal/fdref"
 	"cylcav/physics"
 
+	"cylcav/physics/quad"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -150,7 +151,7 @@ func TestLayeredOverlap(t *testing.T) {
 		{kind: kindJY, k: 300 * (1 + 1e-5), p2: sq(300 * (1 + 1e-5)), a: 1, b: 0.3},
 	}
 	lo, hi := 0.002, 0.006
-	x, w := gaussLegendre(400)
+	x, w := quad.GaussLegendre(400)
 	for i, f := range ps {
 		for j, g := range ps {
 			got := pieceIntegral(f, g, lo, hi)

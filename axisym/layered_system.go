@@ -105,26 +105,19 @@ func apertureOf(ls *layerState, s *system, i int) [2]float64 {
 	return [2]float64{ps[0].lo, ps[len(ps)-1].hi}
 }
 
-// lossErr refuses the losses and fields of a body with layered sections,
-// which are not computed yet (Body.FieldsAvailable).
-func (ls *layerState) lossErr() error {
-	if ls.any {
-		return errLayeredFields
-	}
-	return nil
-}
-
-var errLayeredFields = fmt.Errorf("axisym: losses and fields of a body with radially layered sections: %w", ErrNotImplemented)
-
 // FieldsAvailable reports whether Solve computes the fields of b's
 // resonances, and with them Loss (Q0 and its breakdown, filling factors,
 // accelerator figures) and field maps: nil, or an error wrapping
-// ErrNotImplemented that says why not (today: radially layered sections).
-// Commands ask it before accepting a flag that needs fields.
+// ErrNotImplemented that says why not. Every body that Validate accepts
+// has its fields today (radial layers next to an open end, whose fields
+// are not computed, are refused by Validate itself); commands still ask it
+// before accepting a flag that needs fields.
 func (b Body) FieldsAvailable() error {
-	for _, s := range b.Sections {
-		if len(s.Layers) > 0 {
-			return errLayeredFields
+	if b.Open() {
+		for i, s := range b.Sections {
+			if len(s.Layers) > 0 {
+				return fmt.Errorf("axisym: section %d: fields of radial layers in a body with an open end: %w", i+1, ErrNotImplemented)
+			}
 		}
 	}
 	return nil

@@ -30,5 +30,10 @@ func TestErrLimit(t *testing.T) {
 		if got := errors.Is(err, ErrLimit); got != tc.want {
 			t.Errorf("%s: errors.Is(%v, ErrLimit) = %v, want %v", tc.name, err, got, tc.want)
 		}
+		// The same for the dipoles (order 1, hybrid.go).
+		_, err = Solve(tc.b, Request{Order: 1, MaxFrequency: tc.fmax})
+		if got := errors.Is(err, ErrLimit); got != tc.want {
+			t.Errorf("%s, n = 1: errors.Is(%v, ErrLimit) = %v, want %v", tc.name, err, got, tc.want)
+		}
 	}
 }

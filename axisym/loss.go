@@ -8,6 +8,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
+	"cylcav/physics/quad"
 )
 
 // PartKind names a kind of metal surface of a body.
@@ -81,6 +82,11 @@ type Loss struct {
 	Frequency float64 // Hz
 	// Field is the matched field itself, for sampling (Field.At).
 	Field *Field
+	// Layers gives, for a section with radial layers, each layer's share
+	// of the stored energies (its filling factors; they sum to the
+	// section's FillE and FillM); nil for a homogeneous section, and nil
+	// altogether for a body without layers.
+	Layers [][]LayerShare
 }
 
 // Field is the matched field of one resonance in the r-z half plane, for
@@ -97,6 +103,51 @@ type fieldSection struct {
 	eps, mu      float64 // absolute
 	g            guide
 	lines        []lineField
+	// A radially layered section: its modes (nil pieces: a mode not
+	// carried) and layers (outer radii, relative permittivities).
+	modes       []lmode
+	radii, epsr []float64
+}
+
+// shape returns mode m's transverse functions e_m(r) and h_m(r) and its
+// axial coefficient ax: E_z = ax I_m/omega (TM0) or H_z = -ax V_m/omega
+// (TE0), as in At.
+func (fd *Field) shape(sc *fieldSection, m int, r float64) (e, h, ax float64) {
+	if sc.modes != nil {
+		ps := sc.modes[m].pieces
+		if ps == nil {
+			return 0, 0, 0
+		}
+		l := layerAt(sc.radii, r)
+		p := ps[l]
+		f, g := p.fg(r)
+		if fd.fam == cavity.TM {
+			ax = p.cH * g / (physics.VacuumPermittivity * sc.epsr[l])
+		} else {
+			ax = p.cE * g / physics.VacuumPermeability
+		}
+		return p.cE * f, p.cH * f, ax
+	}
+	e = modeAt(sc.g, m, r)
+	if kc := sc.g.kc[m]; kc > 0 {
+		ax = sc.g.norm[m] * kc * sc.g.z(m, 0, kc*r)
+	}
+	if fd.fam == cavity.TM {
+		ax /= sc.eps
+	} else {
+		ax /= sc.mu
+	}
+	return e, e, ax
+}
+
+// epsAt returns the relative permittivity and permeability at radius r
+// of section k.
+func (fd *Field) epsAt(k int, r float64) (er, mr float64) {
+	sc := &fd.sections[k]
+	if sc.modes != nil {
+		return sc.epsr[layerAt(sc.radii, r)], 1
+	}
+	return sc.eps / physics.VacuumPermittivity, sc.mu / physics.VacuumPermeability
 }
 
 // Magnitudes returns |E| and |H| on the grid rs x zs (indexed [iz][ir]),
@@ -107,22 +158,20 @@ type fieldSection struct {
 // modes len(rs) len(zs)) multiplications.
 func (fd *Field) Magnitudes(rs, zs []float64) (e, h [][]float64) {
 	e, h = make([][]float64, len(zs)), make([][]float64, len(zs))
-	type rcache struct{ em, ax []float64 } // per radius: e_m(r), norm kc Z0(kc r)
+	type rcache struct{ em, hm, ax []float64 } // per radius: e_m(r), h_m(r), axial coefficient (shape)
 	cache := make([][]rcache, len(fd.sections))
-	for k, sc := range fd.sections {
+	for k := range fd.sections {
+		sc := &fd.sections[k]
 		cache[k] = make([]rcache, len(rs))
 		for ir, r := range rs {
 			if r < sc.inner || r > sc.outer {
 				continue
 			}
-			em, ax := make([]float64, len(sc.lines)), make([]float64, len(sc.lines))
+			em, hm, ax := make([]float64, len(sc.lines)), make([]float64, len(sc.lines)), make([]float64, len(sc.lines))
 			for m := range sc.lines {
-				em[m] = modeAt(sc.g, m, r)
-				if kc := sc.g.kc[m]; kc > 0 {
-					ax[m] = sc.g.norm[m] * kc * sc.g.z(m, 0, kc*r)
-				}
+				em[m], hm[m], ax[m] = fd.shape(sc, m, r)
 			}
-			cache[k][ir] = rcache{em, ax}
+			cache[k][ir] = rcache{em, hm, ax}
 		}
 	}
 	for iz, z := range zs {
@@ -150,17 +199,17 @@ func (fd *Field) Magnitudes(rs, zs []float64) (e, h [][]float64) {
 				if fd.fam == cavity.TM {
 					e1 += c.em[m] * v[m]
 					e2 += c.ax[m] * i[m]
-					h1 += c.em[m] * i[m]
+					h1 += c.hm[m] * i[m]
 				} else {
 					e1 += c.em[m] * v[m]
-					h1 -= c.em[m] * i[m]
+					h1 -= c.hm[m] * i[m]
 					h2 -= c.ax[m] * v[m]
 				}
 			}
 			if fd.fam == cavity.TM {
-				e2 /= fd.omega * sc.eps
+				e2 /= fd.omega
 			} else {
-				h2 /= fd.omega * sc.mu
+				h2 /= fd.omega
 			}
 			e[iz][ir], h[iz][ir] = math.Hypot(e1, e2), math.Hypot(h1, h2)
 		}
@@ -195,7 +244,8 @@ func (fd *Field) section(z float64) int {
 // axial parts from (1/x)(x Z1)' = Z0, DLMF 10.6.2). A point on a junction
 // plane takes the section to its right.
 func (fd *Field) At(r, z float64) (e1, e2, h1, h2 float64, ok bool) {
-	for k, sc := range fd.sections {
+	for k := range fd.sections {
+		sc := &fd.sections[k]
 		last := k == len(fd.sections)-1
 		if z < sc.z0 || (z >= sc.z0+sc.length && !last) || z > sc.z0+sc.length {
 			continue
@@ -209,20 +259,15 @@ func (fd *Field) At(r, z float64) (e1, e2, h1, h2 float64, ok bool) {
 			if v == 0 && i == 0 {
 				continue
 			}
-			kc := sc.g.kc[m]
-			em := modeAt(sc.g, m, r)
-			var axial float64
-			if kc > 0 {
-				axial = sc.g.norm[m] * kc * sc.g.z(m, 0, kc*r)
-			}
+			em, hm, axial := fd.shape(sc, m, r)
 			if fd.fam == cavity.TM {
 				e1 += em * v
-				e2 += axial * i / (fd.omega * sc.eps)
-				h1 += em * i
+				e2 += axial * i / fd.omega
+				h1 += hm * i
 			} else {
 				e1 += em * v
-				h1 -= em * i
-				h2 -= axial * v / (fd.omega * sc.mu)
+				h1 -= hm * i
+				h2 -= axial * v / fd.omega
 			}
 		}
 		return e1, e2, h1, h2, true
@@ -294,7 +339,9 @@ func (l Loss) G() float64 {
 // medium (Pozar, Microwave Engineering, 4th ed., sec. 6.3, extended
 // per region; derived), with rs giving each part's surface resistance in
 // ohm at the resonance (from qfactor.Surface.Resistance) and fills the
-// sections' media. It also returns the wall and fill parts of 1/Q0.
+// sections' media. A section with radial layers takes its layers' media
+// and filling factors from l.Layers instead (its entry of fills is not
+// used). It also returns the wall and fill parts of 1/Q0.
 func (l Loss) Q0(rs func(Part) float64, fills []physics.Medium) (q0, invWall, invFill float64) {
 	for _, f := range l.Factors {
 		if r := rs(f.Part); r != 0 && !math.IsInf(f.G, 1) {
@@ -302,7 +349,15 @@ func (l Loss) Q0(rs func(Part) float64, fills []physics.Medium) (q0, invWall, in
 		}
 	}
 	for i, m := range fills {
+		if i < len(l.Layers) && l.Layers[i] != nil {
+			continue // a layered section: its layers' media below
+		}
 		invFill += m.TanDelta*l.FillE[i] + m.TanDeltaM*l.FillM[i]
+	}
+	for _, ls := range l.Layers {
+		for _, y := range ls {
+			invFill += y.Medium.TanDelta*y.FillE + y.Medium.TanDeltaM*y.FillM
+		}
 	}
 	return 1 / (invWall + invFill), invWall, invFill
 }
@@ -317,11 +372,25 @@ const poleTol = 1e-7
 // matrix gives the aperture voltages, and each modal line's voltage and
 // current follow along its section (see lineField).
 func (s *system) losses(b Body, f float64) (Loss, error) {
-	if err := s.layers.lossErr(); err != nil {
-		return Loss{}, err
-	}
 	omega := 2 * math.Pi * f
 	n := s.ndof
+	if n == 0 && s.layers.any {
+		// eval is not called below. A lone section's guide keeps only the
+		// propagating modes, and a TM0 resonance with beta = 0 sits on
+		// that count's edge: find them all here.
+		lg := s.layers.guides[0]
+		only := lg.onlyProp
+		lg.onlyProp, lg.k0 = false, -1
+		s.refreshLayers(omega / physics.SpeedOfLight)
+		lg.onlyProp, lg.k0 = only, -1
+	}
+	// beta2 returns beta^2 of mode m of section ln (k2 the medium's k^2).
+	beta2 := func(ln *lines, m int, k2 float64) float64 {
+		if ln.beta2 != nil {
+			return ln.beta2[m]
+		}
+		return k2 - ln.kc[m]*ln.kc[m]
+	}
 	var v []float64
 	single := -1 // for a one-section body: the resonant mode's index
 	if n > 0 {
@@ -369,8 +438,8 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		ln := s.lines[0]
 		k2 := sq(omega/physics.SpeedOfLight) * ln.eps * ln.mu
 		bestd := math.Inf(1)
-		for m, kc := range ln.kc {
-			b2 := k2 - kc*kc
+		for m := range ln.kc {
+			b2 := beta2(&ln, m, k2)
 			if b2 < -1e-9*k2 {
 				continue
 			}
@@ -397,6 +466,7 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		coax = coax || sec.InnerRadius > 0
 	}
 	fd := &Field{fam: s.fam, omega: omega}
+	layerW := make([][2][]float64, len(s.lines)) // layered sections: W_e and W_m per layer
 	z0 := 0.0
 	for i := range s.lines {
 		ln := &s.lines[i]
@@ -405,19 +475,22 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 		mu := physics.VacuumPermeability * ln.mu
 		k2 := omega * omega * eps * mu
 		var lf []lineField
-		for m, kc := range ln.kc {
+		for m := range ln.kc {
 			var fl lineField
 			var err error
+			b2 := beta2(ln, m, k2)
 			if n == 0 {
 				if m != single {
 					fl = lineField{}
 				} else {
-					fl = closedField(s.fam, k2-kc*kc, ln.length, omega, eps, mu)
+					fl = closedField(s.fam, b2, ln.length, omega, eps, mu)
 				}
+			} else if math.IsInf(b2, -1) {
+				fl = lineField{} // a layered mode not found: cut off far below
 			} else if ln.open {
-				fl = openLineField(s.fam, k2-kc*kc, ln.length, omega, eps, mu, fields[i].v1[m], fields[i].v2[m], i == 0)
+				fl = openLineField(s.fam, b2, ln.length, omega, eps, mu, fields[i].v1[m], fields[i].v2[m], i == 0)
 			} else {
-				fl, err = newLineField(s.fam, k2-kc*kc, ln.length, omega, eps, mu, fields[i].v1[m], fields[i].v2[m])
+				fl, err = newLineField(s.fam, b2, ln.length, omega, eps, mu, fields[i].v1[m], fields[i].v2[m])
 				if err != nil {
 					return Loss{}, fmt.Errorf("axisym: section %d at %g Hz: %w", i+1, f, err)
 				}
@@ -429,6 +502,37 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 			z0: z0, length: ln.length, inner: sec.InnerRadius, outer: sec.Radius,
 			eps: eps, mu: mu, g: g, lines: lf,
 		})
+		if lg := s.layers.guides[i]; lg != nil {
+			x := s.layeredLosses(b, i, lg, lf, omega, z0, coax)
+			fs := &fd.sections[len(fd.sections)-1]
+			fs.modes, fs.radii, fs.epsr = x.modes, lg.radii, lg.eps
+			add(Part{Side, i + 1}, 2*math.Pi*sec.Radius*x.side)
+			if sec.InnerRadius > 0 {
+				add(Part{Inner, i + 1}, 2*math.Pi*sec.InnerRadius*x.inner)
+			}
+			if i == 0 && b.EndA != Pipe {
+				add(Part{EndA, 1}, x.endA)
+			}
+			if i == len(s.lines)-1 && b.EndB != Pipe {
+				add(Part{EndB, i + 1}, x.endB)
+			}
+			if x.hasStepA {
+				add(Part{Step, i}, x.stepA)
+			}
+			if x.hasStepB {
+				add(Part{Step, i + 1}, x.stepB)
+			}
+			l.Axis = append(l.Axis, x.axis...)
+			layerW[i] = [2][]float64{x.we, x.wm}
+			for k := range x.we {
+				weSec[i] += x.we[k]
+				wmSec[i] += x.wm[k]
+			}
+			we += weSec[i]
+			wm += wmSec[i]
+			z0 += ln.length
+			continue
+		}
 		// Energies per mode (orthonormal modes: no cross terms), by
 		// quadrature along z.
 		q := zRule(ln.length, ln.kc, k2)
@@ -542,6 +646,14 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 	l.FillE, l.FillM = make([]float64, len(s.lines)), make([]float64, len(s.lines))
 	for i := range s.lines {
 		l.FillE[i], l.FillM[i] = weSec[i]/we, wmSec[i]/wm
+		if x := layerW[i]; x[0] != nil {
+			if l.Layers == nil {
+				l.Layers = make([][]LayerShare, len(s.lines))
+			}
+			for k, ly := range b.Sections[i].Layers {
+				l.Layers[i] = append(l.Layers[i], LayerShare{Medium: ly.Medium, Radius: ly.Radius, FillE: x[0][k] / we, FillM: x[1][k] / wm})
+			}
+		}
 	}
 	return l, nil
 }
@@ -672,11 +784,19 @@ type zPoint struct{ z, w float64 }
 // mode and split so that no panel holds more than a quarter period of the
 // most oscillatory one (or of the wavenumber k of the medium).
 func zRule(l float64, kc []float64, k2 float64) []zPoint {
-	x := [4]float64{0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363}
-	w := [4]float64{0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763}
+	b2s := make([]float64, len(kc))
+	for m, k := range kc {
+		b2s[m] = k2 - k*k
+	}
+	return zRuleBeta(l, b2s, k2)
+}
+
+// zRuleBeta is zRule for modes given by beta^2 (a layered section, k2 the
+// largest k^2 of its media).
+func zRuleBeta(l float64, beta2 []float64, k2 float64) []zPoint {
 	var amax, bmax float64
-	for _, k := range kc {
-		if b2 := k2 - k*k; b2 < 0 {
+	for _, b2 := range beta2 {
+		if b2 < 0 {
 			amax = math.Max(amax, math.Sqrt(-b2))
 		} else {
 			bmax = math.Max(bmax, math.Sqrt(b2))
@@ -698,12 +818,8 @@ func zRule(l float64, kc []float64, k2 float64) []zPoint {
 	var pts []zPoint
 	panel := func(lo, hi float64) {
 		n := max(1, int(math.Ceil(bmax*(hi-lo)/(math.Pi/2))))
-		h := (hi - lo) / float64(n)
-		for p := range n {
-			c := lo + (float64(p)+0.5)*h
-			for k := range 4 {
-				pts = append(pts, zPoint{c - x[k]*h/2, w[k] * h / 2}, zPoint{c + x[k]*h/2, w[k] * h / 2})
-			}
+		for _, q := range quad.Composite(lo, hi, n, 8) {
+			pts = append(pts, zPoint{q.X, q.W})
 		}
 	}
 	for k := 0; k+1 < len(edges); k++ {

@@ -6,6 +6,7 @@ import (
 
 	"cylcav/cavity"
 	"cylcav/physics"
+	"cylcav/physics/quad"
 )
 
 // RegionSettings tunes Loss.Filling. The zero value gives the defaults.
@@ -111,7 +112,7 @@ func (l Loss) Filling(b Body, bulb cavity.Bulb, s RegionSettings) (cavity.Fillin
 	omega := l.Field.omega
 	var nmax float64
 	for _, sec := range b.Sections {
-		nmax = math.Max(nmax, math.Sqrt(sec.Fill.Eps()*sec.Fill.Mu()))
+		nmax = math.Max(nmax, sec.maxIndex())
 	}
 	k := omega / physics.SpeedOfLight * nmax
 	startPanels := func(w float64) int { return max(2, int(math.Ceil(k*w/(math.Pi/2)))) }
@@ -120,16 +121,29 @@ func (l Loss) Filling(b Body, bulb cavity.Bulb, s RegionSettings) (cavity.Fillin
 	// the first rule multiplied by m.
 	integrate := func(m int) (acc [4]float64) {
 		for _, p := range pieces {
-			sec := b.Sections[l.Field.section((p.z1+p.z2)/2)]
-			er, mr := sec.Fill.Eps(), sec.Fill.Mu()
-			nz, nr := m*startPanels(p.z2-p.z1), m*startPanels(p.r)
-			for _, zq := range glRule(p.z1, p.z2, nz) {
-				for _, rq := range glRule(0, p.r, nr) {
-					e1, e2, h1, h2, ok := l.Field.At(rq.x, zq.x)
+			k := l.Field.section((p.z1 + p.z2) / 2)
+			// Radial panels split at the layer radii, where E_r (TM0)
+			// jumps and the fields' derivatives do.
+			var rr []quad.Node
+			lo := 0.0
+			for _, ly := range b.Sections[k].Layers {
+				if hi := math.Min(ly.Radius, p.r); hi > lo {
+					rr = append(rr, quad.Composite(lo, hi, m*startPanels(hi-lo), 8)...)
+					lo = hi
+				}
+			}
+			if lo < p.r {
+				rr = append(rr, quad.Composite(lo, p.r, m*startPanels(p.r-lo), 8)...)
+			}
+			nz := m * startPanels(p.z2-p.z1)
+			for _, zq := range quad.Composite(p.z1, p.z2, nz, 8) {
+				for _, rq := range rr {
+					er, mr := l.Field.epsAt(k, rq.X)
+					e1, e2, h1, h2, ok := l.Field.At(rq.X, zq.X)
 					if !ok {
 						continue
 					}
-					w := 2 * math.Pi * rq.x * rq.w * zq.w
+					w := 2 * math.Pi * rq.X * rq.W * zq.W
 					hz := 0.0
 					if te {
 						hz = h2
@@ -171,24 +185,4 @@ func (l Loss) Filling(b Body, bulb cavity.Bulb, s RegionSettings) (cavity.Fillin
 		}
 	}
 	return cavity.Filling{}, fmt.Errorf("axisym: the bulb's field integrals did not converge to %g in %d refinements", tol, maxRegionLevels)
-}
-
-// glNode is one node of a quadrature rule: position and weight.
-type glNode struct{ x, w float64 }
-
-// glRule returns the composite 8-point Gauss-Legendre rule of n equal
-// panels on [lo, hi] (nodes and weights: Abramowitz and Stegun, Table
-// 25.4).
-func glRule(lo, hi float64, n int) []glNode {
-	x := [4]float64{0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363}
-	w := [4]float64{0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763}
-	h := (hi - lo) / float64(n)
-	out := make([]glNode, 0, 8*n)
-	for p := range n {
-		c := lo + (float64(p)+0.5)*h
-		for k := range 4 {
-			out = append(out, glNode{c - x[k]*h/2, w[k] * h / 2}, glNode{c + x[k]*h/2, w[k] * h / 2})
-		}
-	}
-	return out
 }

@@ -13,8 +13,10 @@ import (
 // Request says which resonances Solve looks for. The zero value of every
 // field but MaxFrequency is a documented default.
 type Request struct {
-	// Order is the azimuthal order n of the fields (cos n phi). Only n = 0
-	// is implemented; any other order is an error that says so.
+	// Order is the azimuthal order n of the fields (cos n phi). n = 0 is
+	// solved for every body; n >= 1 (TE_n and TM_n coupled at steps,
+	// hybrid.go) for closed bodies of homogeneous circular sections, without
+	// losses or fields; other bodies are an error wrapping ErrNotImplemented.
 	Order int
 	// MaxFrequency is the upper end of the search, in Hz: every resonance
 	// below it is returned.
@@ -23,6 +25,7 @@ type Request struct {
 	// widest section; narrower sections keep proportionally fewer (the
 	// relative-convergence rule), and every section keeps at least the modes
 	// that propagate in it at MaxFrequency plus two. Zero means DefaultModes.
+	// For Order >= 1 the count applies to each of TE_n and TM_n.
 	Modes int
 	// Families lists the families to solve (cavity.TE for TE0, cavity.TM for
 	// TM0); nil means both.
@@ -35,8 +38,11 @@ type Request struct {
 // Resonance is one resonance of a body.
 type Resonance struct {
 	// Family is TE (TE0: E_phi, H_r, H_z) or TM (TM0: E_r, E_z, H_phi).
+	// For Order >= 1, where TE_n and TM_n couple at steps, it is the family
+	// of Origin, the label, not of the field.
 	Family cavity.Family
-	// Index counts the resonances of the family from 1 in frequency order.
+	// Index counts the resonances of the family from 1 in frequency order
+	// (for Order >= 1: all resonances of that order).
 	Index int
 	// Frequency is the resonant frequency in Hz, computed with 1.5 times
 	// the requested number of modes.
@@ -134,16 +140,17 @@ func (e *limitError) Is(target error) bool { return target == ErrLimit }
 // Errors: an invalid body (Body.Validate), a maximum frequency that is not
 // positive and finite, more than MaxResonances resonances below it or a
 // section that would need more than MaxModes modes (these two wrap
-// ErrLimit), and, wrapping
-// ErrNotImplemented, an order other than 0 or a junction where neither
+// ErrLimit), and, wrapping ErrNotImplemented, an order n >= 1 for a body
+// that is open, coaxial, layered or uniaxial (see solveHybrid), or a
+// junction where neither
 // cross-section lies inside the other (for example two coaxial sections
 // whose inner and outer radii both grow).
 func Solve(b Body, r Request) ([]Resonance, error) {
 	if err := b.Validate(); err != nil {
 		return nil, err
 	}
-	if r.Order != 0 {
-		return nil, fmt.Errorf("axisym: azimuthal order n = %d: %w (only n = 0 is solved so far)", r.Order, ErrNotImplemented)
+	if r.Order < 0 || r.Order > cavity.MaxIndex {
+		return nil, fmt.Errorf("axisym: azimuthal order n must be in 0..%d, got %d", cavity.MaxIndex, r.Order)
 	}
 	if !(r.MaxFrequency > 0) || math.IsInf(r.MaxFrequency, 0) {
 		return nil, fmt.Errorf("axisym: maximum frequency must be positive and finite, got %g Hz", r.MaxFrequency)
@@ -154,6 +161,9 @@ func Solve(b Body, r Request) ([]Resonance, error) {
 	}
 	if modes < 1 || modes > MaxModes {
 		return nil, fmt.Errorf("axisym: modes must be in 1..%d, got %d", MaxModes, modes)
+	}
+	if r.Order != 0 {
+		return solveHybrid(b, r, modes) // hybrid.go
 	}
 	fams := r.Families
 	if fams == nil {
@@ -323,9 +333,14 @@ type solver struct {
 	s   *system
 	a   []float64
 	out []float64
+	// countFn, when set, replaces s and a (the hybrid model, hybrid.go).
+	countFn func(f float64) (int, float64)
 }
 
 func (sv *solver) count(f float64) (int, float64) {
+	if sv.countFn != nil {
+		return sv.countFn(f)
+	}
 	if sv.s.ndof == 0 {
 		j := sv.s.eval(f, nil)
 		return j - sv.s.offset, math.NaN()
@@ -359,45 +374,15 @@ func (sv *solver) isolate(lo, hi point) {
 }
 
 // refine narrows a bracket holding exactly one resonance (hi.j = lo.j + 1)
-// to relTol. Each step is a secant step on the last pivot (Illinois
-// weighting; Dowell and Jarratt 1971) when the pivot changes sign across
-// the bracket and the step lands well inside it, and a bisection otherwise;
-// the count alone decides which side keeps the resonance, so a pole of the
-// pivot can slow the search but never mislead it.
+// to relTol by illinois on the last pivot; the count alone decides which
+// side keeps the resonance.
 func (sv *solver) refine(lo, hi point) float64 {
-	side, stall := 0, 0
-	for range 300 {
-		w := hi.f - lo.f
-		if w <= relTol*hi.f {
-			break
-		}
-		x := 0.5 * (lo.f + hi.f)
-		if stall < 3 && lo.g*hi.g < 0 {
-			if s := lo.f - lo.g*w/(hi.g-lo.g); s > lo.f && s < hi.f {
-				x = s
-			}
-		} else {
-			stall = 0 // this step bisects
-		}
-		p := sv.at(x)
-		if p.j <= lo.j {
-			if side == -1 {
-				hi.g /= 2
-			}
-			lo, side = p, -1
-		} else {
-			if side == 1 {
-				lo.g /= 2
-			}
-			hi, side = p, 1
-		}
-		if hi.f-lo.f > 0.5*w {
-			stall++
-		} else {
-			stall = 0
-		}
-	}
-	return 0.5 * (lo.f + hi.f)
+	return illinois(lo.f, hi.f, lo.g, hi.g, 300,
+		func(lo, hi float64) bool { return hi-lo <= relTol*hi },
+		func(x float64) (float64, bool) {
+			p := sv.at(x)
+			return p.g, p.j <= lo.j
+		})
 }
 
 // labels returns, for k = 1..count, the k-th TE0 or TM0 mode of the closed

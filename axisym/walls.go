@@ -58,12 +58,33 @@ type Unloaded struct {
 	Parts []PartQ
 	// Warnings are the surface models' notes (qfactor.Surface.Resistance).
 	Warnings []string
+	// Media lists every region filled with something other than vacuum
+	// (a section's fill, or one layer of a layered section) with its
+	// filling factors and its own Q.
+	Media []MediumQ
+}
+
+// MediumQ is one filled region's share of a resonance's stored energy
+// and of its fill loss.
+type MediumQ struct {
+	// Section counts from 1; Layer counts the layers of a layered section
+	// from 1 (innermost first) and is 0 for a homogeneous section's fill.
+	Section, Layer int
+	Medium         physics.Medium
+	// FillE and FillM are the region's electric and magnetic filling
+	// factors (its shares of W_e and W_m).
+	FillE, FillM float64
+	// Q = 1/(tan delta FillE + tan delta_m FillM), the Q of the region's
+	// loss alone (+Inf without loss tangents); 1/QFill is the sum of 1/Q
+	// over Media.
+	Q float64
 }
 
 // Unloaded returns the unloaded Q of the resonance of body b described by
 // l, with the walls w: each part's surface resistance at the resonant
 // frequency (qfactor.Surface.Resistance) over its geometry factor, plus
-// each section's loss tangents weighted by its filling factors (Loss.Q0).
+// each section's (or layer's) loss tangents weighted by its filling
+// factors (Loss.Q0), with each filled region's share (Media).
 // This is the one assembly of Q0 from a Loss that the commands use.
 func (l Loss) Unloaded(b Body, w Walls) (Unloaded, error) {
 	if len(l.FillE) != len(b.Sections) {
@@ -91,6 +112,22 @@ func (l Loss) Unloaded(b Body, w Walls) (Unloaded, error) {
 	}
 	q0, iw, ifl := l.Q0(func(p Part) float64 { return rs[p.Kind] }, fills)
 	u.Q0, u.QWall, u.QFill = q0, 1/iw, 1/ifl
+	media := func(sec, layer int, m physics.Medium, fe, fm float64) {
+		if m.Eps() == 1 && m.Mu() == 1 && m.TanDelta == 0 && m.TanDeltaM == 0 {
+			return
+		}
+		u.Media = append(u.Media, MediumQ{Section: sec, Layer: layer, Medium: m, FillE: fe, FillM: fm,
+			Q: 1 / (m.TanDelta*fe + m.TanDeltaM*fm)})
+	}
+	for i, s := range b.Sections {
+		if i < len(l.Layers) && l.Layers[i] != nil {
+			for k, y := range l.Layers[i] {
+				media(i+1, k+1, y.Medium, y.FillE, y.FillM)
+			}
+			continue
+		}
+		media(i+1, 0, s.Fill, l.FillE[i], l.FillM[i])
+	}
 	for _, f := range l.Factors {
 		r := rs[f.Part.Kind]
 		q := math.Inf(1)

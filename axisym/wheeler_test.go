@@ -16,6 +16,11 @@ func recede(b Body, s float64) Body {
 	out := Body{Sections: append([]Section(nil), b.Sections...)}
 	for i := range out.Sections {
 		out.Sections[i].Radius += s
+		if ls := out.Sections[i].Layers; len(ls) > 0 { // the outer layer reaches the wall
+			ls = append([]Layer(nil), ls...)
+			ls[len(ls)-1].Radius += s
+			out.Sections[i].Layers = ls
+		}
 		if out.Sections[i].InnerRadius > 0 {
 			out.Sections[i].InnerRadius -= s
 		}

@@ -17,6 +17,7 @@ import (
 
 	"cylcav/axisym"
 	"cylcav/figure"
+	"cylcav/physics"
 )
 
 // DefaultPoints is the number of samples along each axis of a field map
@@ -129,12 +130,18 @@ func (fm *FieldMap) Figure(th figure.Theme) (*figure.Figure, error) {
 		if err := outline(p, fm.Body); err != nil {
 			return nil, err
 		}
+		if err := fills(p, fm.Body); err != nil {
+			return nil, err
+		}
 		p.Title.Text = m.name
 		p.X.Min, p.X.Max = 0, fm.Length*1e3
 		p.Y.Min, p.Y.Max = 0, fm.Body.MaxRadius()*1e3
 		fig.Panels = append(fig.Panels, p)
 	}
 	fig.Notes = append(fig.Notes, "colour: field magnitude over its largest sampled value, 0 (blue) to 1 (red); grey: metal")
+	if filled(fm.Body) {
+		fig.Notes = append(fig.Notes, "dashed: the edges of the dielectric fills and layers")
+	}
 	fig.Notes = append(fig.Notes, fm.Notes...)
 	return fig, nil
 }
@@ -172,6 +179,59 @@ func outline(p *plot.Plot, b axisym.Body) error {
 			}
 			in.LineStyle = sty
 			p.Add(in)
+		}
+		z += s.Length
+	}
+	return nil
+}
+
+// filled reports whether any section or layer of b holds a medium other
+// than vacuum.
+func filled(b axisym.Body) bool {
+	for _, s := range b.Sections {
+		if s.Fill != (physics.Medium{}) {
+			return true
+		}
+		for _, l := range s.Layers {
+			if l.Medium != (physics.Medium{}) {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// fills draws a dashed rectangle around every filled section and every
+// filled layer of b in the r-z half plane.
+func fills(p *plot.Plot, b axisym.Body) error {
+	sty := draw.LineStyle{Color: figure.Ink, Width: vg.Points(0.8), Dashes: []vg.Length{vg.Points(3), vg.Points(2)}}
+	box := func(z0, z1, r0, r1 float64) error {
+		l, err := plotter.NewLine(plotter.XYs{
+			{X: z0 * 1e3, Y: r0 * 1e3}, {X: z0 * 1e3, Y: r1 * 1e3}, {X: z1 * 1e3, Y: r1 * 1e3},
+			{X: z1 * 1e3, Y: r0 * 1e3}, {X: z0 * 1e3, Y: r0 * 1e3},
+		})
+		if err != nil {
+			return err
+		}
+		l.LineStyle = sty
+		p.Add(l)
+		return nil
+	}
+	z := 0.0
+	for _, s := range b.Sections {
+		if s.Fill != (physics.Medium{}) {
+			if err := box(z, z+s.Length, s.InnerRadius, s.Radius); err != nil {
+				return err
+			}
+		}
+		lo := s.InnerRadius
+		for _, l := range s.Layers {
+			if l.Medium != (physics.Medium{}) {
+				if err := box(z, z+s.Length, lo, l.Radius); err != nil {
+					return err
+				}
+			}
+			lo = l.Radius
 		}
 		z += s.Length
 	}

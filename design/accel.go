@@ -73,7 +73,7 @@ type AccelResult struct {
 
 // NotAvailableAxisymmetric is the statement every accelerator output
 // carries: the closed cylinder is the only body modelled so far.
-const NotAvailableAxisymmetric = "These figures are for a closed pillbox with no beam holes. Beam pipes and nose cones lower R/Q and raise the peak-field ratios; cylcav stack --beta gives T and R/Q of the monopoles of a body of stacked sections closed by end plates, but not its dipoles, open beam pipes or peak surface fields: use a field solver for a real cell."
+const NotAvailableAxisymmetric = "These figures are for a closed pillbox with no beam holes. Beam pipes and nose cones lower R/Q and raise the peak-field ratios; cylcav stack --beta gives T and R/Q of the monopoles of a body of stacked sections (closed by end plates, or trapped below the cutoff of open beam pipes) and --order 1 the frequencies of its dipoles, but not their transverse R/Q or the peak surface fields: use a field solver for those."
 
 // CautionRadiation is the caution of every design with an accelerating
 // gradient.

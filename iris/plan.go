@@ -186,6 +186,33 @@ func Judge(c Coupling) (Status, []string) {
 	return Valid, nil
 }
 
+// Trusted reports, per cavity, whether its corrected dimensions can be
+// built from: every iris on its end plates was sized (Tuning.Complete) and
+// is Valid by Judge. Cross-coupling holes do not enter the corrected
+// dimensions and are not looked at. It is the one verdict on a corrected
+// cavity that every output uses.
+func (p *Plan) Trusted() []bool {
+	ok := make([]bool, len(p.Cavities))
+	for i, c := range p.Cavities {
+		ok[i] = c.Complete
+	}
+	n := len(p.Cavities)
+	for _, c := range p.Couplings {
+		if c.Kind == "cross" {
+			continue
+		}
+		if st, _ := Judge(c); st == Valid {
+			continue
+		}
+		for _, r := range []int{c.From, c.To} {
+			if r >= 1 && r <= n {
+				ok[r-1] = false
+			}
+		}
+	}
+	return ok
+}
+
 // Tuning is one cavity of an in-line filter with the detuning of its irises
 // and the dimension that restores its frequency.
 type Tuning struct {

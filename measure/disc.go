@@ -381,9 +381,8 @@ type DiscSpec struct {
 // left for one, or a failed measurement at a mode (the error names it).
 func MeasureDiscFill(empty []Resonance, idEmpty Identification, filled []Resonance, d DiscSpec) (Fill, error) {
 	c := idEmpty.Cavity
-	out := Fill{EpsRErr: math.Inf(1), TanDeltaErr: math.Inf(1)}
+	var out Fill
 	used := make([]bool, len(filled))
-	var we, wt, se, st float64
 	for i, a := range idEmpty.Assign {
 		if !a.Matched || a.Mode.Family != cavity.TE || a.Mode.N != 0 || empty[i].Problem != "" {
 			continue
@@ -416,16 +415,10 @@ func MeasureDiscFill(empty []Resonance, idEmpty Identification, filled []Resonan
 			return Fill{}, fmt.Errorf("%v: %w", a.Mode, err)
 		}
 		out.Modes = append(out.Modes, FillMode{Mode: a.Mode, FEmpty: e.F0, FFilled: f.F0, Result: r.DielectricResult, FillE: r.FillE})
-		we += 1 / (r.EpsRErr * r.EpsRErr)
-		se += r.EpsR / (r.EpsRErr * r.EpsRErr)
-		wt += 1 / (r.TanDeltaErr * r.TanDeltaErr)
-		st += r.TanDelta / (r.TanDeltaErr * r.TanDeltaErr)
-		out.EpsRErr = math.Min(out.EpsRErr, r.EpsRErr)
-		out.TanDeltaErr = math.Min(out.TanDeltaErr, r.TanDeltaErr)
 	}
 	if len(out.Modes) == 0 {
 		return Fill{}, fmt.Errorf("no TE0mp mode is identified in the empty sweep, so the disc cannot be measured (the disc model needs TE0mp modes)")
 	}
-	out.EpsR, out.TanDelta = se/we, st/wt
+	out.combine()
 	return out, nil
 }

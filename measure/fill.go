@@ -29,6 +29,24 @@ type Fill struct {
 	TanDelta, TanDeltaErr float64
 }
 
+// combine sets the means over f.Modes and their uncertainties (see Fill):
+// inverse-variance weights (Taylor, An Introduction to Error Analysis, 2nd
+// ed., sec. 7.2), the best single mode's error.
+func (f *Fill) combine() {
+	var we, se, wt, st float64
+	f.EpsRErr, f.TanDeltaErr = math.Inf(1), math.Inf(1)
+	for _, m := range f.Modes {
+		r := m.Result
+		we += 1 / (r.EpsRErr * r.EpsRErr)
+		se += r.EpsR / (r.EpsRErr * r.EpsRErr)
+		wt += 1 / (r.TanDeltaErr * r.TanDeltaErr)
+		st += r.TanDelta / (r.TanDeltaErr * r.TanDeltaErr)
+		f.EpsRErr = math.Min(f.EpsRErr, r.EpsRErr)
+		f.TanDeltaErr = math.Min(f.TanDeltaErr, r.TanDeltaErr)
+	}
+	f.EpsR, f.TanDelta = se/we, st/wt
+}
+
 // MeasureFill pairs the modes matched and resolved in both the empty
 // sweep (resonances empty, identification idEmpty) and the filled one, and
 // measures the fill at each with MeasureDielectric. Errors: no mode is
@@ -43,8 +61,7 @@ func MeasureFill(empty []Resonance, idEmpty Identification, filled []Resonance, 
 		}
 		return -1
 	}
-	out := Fill{EpsRErr: math.Inf(1), TanDeltaErr: math.Inf(1)}
-	var we, wt, se, st float64
+	var out Fill
 	for i, a := range idEmpty.Assign {
 		if !a.Matched || a.Unresolved {
 			continue
@@ -62,16 +79,10 @@ func MeasureFill(empty []Resonance, idEmpty Identification, filled []Resonance, 
 			return Fill{}, fmt.Errorf("%v: %w", a.Mode, err)
 		}
 		out.Modes = append(out.Modes, FillMode{Mode: a.Mode, FEmpty: e.F0, FFilled: f.F0, Result: r, FillE: 1})
-		we += 1 / (r.EpsRErr * r.EpsRErr)
-		se += r.EpsR / (r.EpsRErr * r.EpsRErr)
-		wt += 1 / (r.TanDeltaErr * r.TanDeltaErr)
-		st += r.TanDelta / (r.TanDeltaErr * r.TanDeltaErr)
-		out.EpsRErr = math.Min(out.EpsRErr, r.EpsRErr)
-		out.TanDeltaErr = math.Min(out.TanDeltaErr, r.TanDeltaErr)
 	}
 	if len(out.Modes) == 0 {
 		return Fill{}, fmt.Errorf("no mode is identified in both sweeps, so the fill cannot be measured")
 	}
-	out.EpsR, out.TanDelta = se/we, st/wt
+	out.combine()
 	return out, nil
 }

@@ -87,6 +87,8 @@ type Options struct {
 
 	Touchstone string
 	Plot       string
+	// Datasheet is the datasheet file (.html or .pdf), empty for none.
+	Datasheet  string
 	PlotFormat figure.Format
 	DPI        int
 	Force      bool
@@ -153,8 +155,14 @@ clearance of the mode at f0.
 
 --touchstone writes the response as a Touchstone 1.1 .s2p file (RI, 50 ohm,
 Hz); --plot draws |S21|, |S11| with the specification mask and the group
-delay (.png, .svg or .pdf). Existing files are replaced only with --force;
-no file is written when anything fails.
+delay (.png, .svg or .pdf). --datasheet writes the filter's datasheet, as
+one self-contained HTML file (.html) or as a PDF (.pdf): the specification
+with the verdict of every mask line, the topology diagram, the coupling
+matrix, the resonators, the coupling realisation, the response charts
+(mask, passband loss, the wide view with the cavities' spurious modes),
+the tolerance, temperature and power results that were asked for, and the
+cautions. Existing files are replaced only with --force; no file is written
+when anything fails.
 
 Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 		Example: `  # A channel filter for an invented 10 GHz beacon receiver:
@@ -174,7 +182,12 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
   # range, the drift from 10 C to 30 C with invar rods, and 200 W of input
   $ cylcav filter --f0 10GHz --bw 100MHz --return-loss 23dB --order 6 \
       --mode TE011 --wall copper --ratio 1.2 --tolerance 0.005mm \
-      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200W`,
+      --accept-return-loss 18dB --temp 10C:30C --rod-metal invar --power 200W
+
+  # Its datasheet, as one HTML file (or .pdf)
+  $ cylcav filter --f0 10GHz --bw 100MHz --return-loss 23dB --order 6 \
+      --mode TE011 --wall copper --ratio 1.2 --tolerance 0.005mm --power 200W \
+      --datasheet channel.html`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			changed := cmd.Flags().Changed
@@ -235,15 +248,16 @@ Mode index convention: TE_nmp / TM_nmp, n azimuthal, m radial, p axial.`,
 	cmdutil.NumberVar(f, &opts.Q0, "q0", "unloaded Q of every resonator, without cavities, e.g. 5000 (default lossless)", 1, maxQ0)
 	f.StringVar(&opts.Touchstone, "touchstone", "", "write the response as a Touchstone 1.1 file, e.g. filter.s2p")
 	f.StringVar(&opts.Plot, "plot", "", "write the response plot: .png, .svg or .pdf")
+	f.StringVar(&opts.Datasheet, "datasheet", "", "write the filter datasheet: .html (one self-contained file) or .pdf")
 	cmdutil.TimesVar(f, &opts.Span, "span", "3x", "frequency range: N bandwidths around f0 (Omega -N..N), widened to show every rejection and zero",
 		"bandwidths", 1, bandpass.MaxSpan)
 	cmdutil.IntVar(f, &opts.Points, "points", DefaultPoints, fmt.Sprintf("number of frequencies of the Touchstone sweep, 2..%d", maxPoints), 2, maxPoints)
 	cmdutil.IntVar(f, &opts.DPI, "dpi", figure.DefaultDPI, "resolution of a PNG plot, dots per inch", figure.MinDPI, figure.MaxDPI)
-	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone and --plot files")
+	f.BoolVar(&opts.Force, "force", false, "replace existing --touchstone, --plot and --datasheet files")
 	cmdutil.Needs(cmd, "points", "touchstone")
 	cmdutil.Needs(cmd, "dpi", "plot")
 	sf = addSpaceFlags(cmd, opts)
-	cmdutil.Needs(cmd, "force", "touchstone", "plot", "save-matrix")
+	cmdutil.Needs(cmd, "force", "touchstone", "plot", "datasheet", "save-matrix")
 	cmdutil.Needs(cmd, "hole-thickness", "holes")
 	ifl = addIrisFlags(cmd)
 	fabfl = addFabFlags(cmd, opts)
@@ -384,8 +398,10 @@ func (opts *Options) checkOutput() error {
 		}
 		opts.PlotFormat = f
 	}
-	if opts.Touchstone != "" && opts.Plot != "" && filepath.Clean(opts.Touchstone) == filepath.Clean(opts.Plot) {
-		return cmdutil.Usagef("--touchstone and --plot name the same file %s", opts.Touchstone)
+	if opts.Datasheet != "" {
+		if _, err := sheetFormat(opts.Datasheet); err != nil {
+			return cmdutil.FlagError("datasheet", opts.Datasheet, err)
+		}
 	}
 	var files []cmdutil.File
 	if opts.Touchstone != "" {
@@ -394,5 +410,9 @@ func (opts *Options) checkOutput() error {
 	if opts.Plot != "" {
 		files = append(files, cmdutil.File{Flag: "plot", Path: opts.Plot})
 	}
+	if opts.Datasheet != "" {
+		files = append(files, cmdutil.File{Flag: "datasheet", Path: opts.Datasheet})
+	}
+	// CheckFiles refuses two flags naming one file.
 	return cmdutil.CheckFiles(opts.Force, files...)
 }

@@ -143,7 +143,7 @@ func writeIrises(b *strings.Builder, r *Result) {
 	}
 	fmt.Fprintf(b, "\nCavities with the irises in place (%s; %s)\n", how, settled)
 	t = cmdutil.NewTable(b, "  resonator", "f", "D", "L closed", "extension", "detuning", "L corrected", "D corrected")
-	trusted := trustedCavities(pl)
+	trusted := pl.Trusted()
 	for i, c := range pl.Cavities {
 		ext, shift, lc, dc := fl(c.Extension), fmt.Sprintf("%+.4f %%", 100*c.Shift), fl(c.CorrectedLength), fl(2*c.CorrectedRadius)
 		if pl.Mode.P == 0 {
@@ -160,30 +160,6 @@ func writeIrises(b *strings.Builder, r *Result) {
 			fmt.Fprintf(b, "  - cavity %d: no corrected dimensions: an iris that opens into it is not realised or outside its range\n", i+1)
 		}
 	}
-}
-
-// trustedCavities reports, per cavity, whether its corrected dimensions
-// rest only on valid irises (iris.Judge) and every iris was sized.
-func trustedCavities(pl *iris.Plan) []bool {
-	ok := make([]bool, len(pl.Cavities))
-	for i, c := range pl.Cavities {
-		ok[i] = c.Complete
-	}
-	n := len(pl.Cavities)
-	for _, c := range pl.Couplings {
-		if c.Kind == "cross" {
-			continue
-		}
-		if st, _ := iris.Judge(c); st == iris.Valid {
-			continue
-		}
-		for _, res := range []int{c.From, c.To} {
-			if res >= 1 && res <= n {
-				ok[res-1] = false
-			}
-		}
-	}
-	return ok
 }
 
 // IrisOut is the JSON form of the coupling realisation.
@@ -284,7 +260,7 @@ func (r *Result) irisJSON() *IrisOut {
 		}
 		o.Couplings = append(o.Couplings, co)
 	}
-	trusted := trustedCavities(pl)
+	trusted := pl.Trusted()
 	for i, t := range pl.Cavities {
 		co := IrisCavityOut{Resonator: t.Resonator, F: t.F, RadiusM: t.Radius, LengthM: t.Length, Complete: trusted[i]}
 		if trusted[i] {

@@ -65,7 +65,7 @@ type Result struct {
 	// Written lists the files written, in order.
 	Written []string
 
-	touchstone, plot []byte
+	touchstone, plot, sheet []byte
 }
 
 // runFilter computes the design, writes the files and prints the result.
@@ -74,11 +74,15 @@ func runFilter(opts *Options) error {
 	if err != nil {
 		return err
 	}
-	if err := r.writeFiles(); err != nil {
-		return err
-	}
 	fab, err := computeFab(opts, r)
 	if err != nil {
+		return err
+	}
+	// Every file is rendered before any is written (all or none).
+	if err := r.buildSheet(fab); err != nil {
+		return err
+	}
+	if err := r.writeFiles(); err != nil {
 		return err
 	}
 	if opts.Format == cmdutil.JSON {
@@ -304,6 +308,9 @@ func (r *Result) writeFiles() error {
 	}
 	if r.Opts.Plot != "" {
 		files = append(files, cmdutil.File{Flag: "plot", Path: r.Opts.Plot, Data: r.plot})
+	}
+	if r.Opts.Datasheet != "" {
+		files = append(files, cmdutil.File{Flag: "datasheet", Path: r.Opts.Datasheet, Data: r.sheet})
 	}
 	files = append(files, r.spaceFiles()...)
 	if err := cmdutil.WriteFiles(r.Opts.Force, files...); err != nil {

@@ -2,10 +2,8 @@ package report_test
 
 import (
 	"os"
-	"os/exec"
 	"path/filepath"
 	"regexp"
-	"strconv"
 	"strings"
 	"testing"
 
@@ -22,25 +20,11 @@ import (
 // (common practice in typesetting, which avoids such widow pages).
 const minPageFill = 0.25
 
-// Page geometry of the PDF datasheet, points (1 mm = 72/25.4 pt): the text
-// area starts 15 mm from the top; the footer starts 20 mm from the bottom.
-const (
-	pageTop    = 15 * 72 / 25.4
-	pageFooter = 20 * 72 / 25.4
-)
-
 // poppler returns the output of a poppler tool, skipping the test when the
-// tool is not installed.
+// tool is not installed (clitest.Poppler).
 func poppler(t *testing.T, tool string, args ...string) string {
 	t.Helper()
-	if _, err := exec.LookPath(tool); err != nil {
-		t.Skipf("%s not found: install poppler-utils (apt-get install -y poppler-utils) to check the PDF datasheet", tool)
-	}
-	out, err := exec.Command(tool, args...).Output()
-	if err != nil {
-		t.Fatalf("%s %s: %v", tool, strings.Join(args, " "), err)
-	}
-	return string(out)
+	return clitest.Poppler(t, tool, args...)
 }
 
 // sheets writes the demo datasheet and one for an accelerator cavity
@@ -64,22 +48,11 @@ func sheets(t *testing.T) map[string][2]string {
 }
 
 // TestPDFFontsEmbedded checks with pdffonts that every font of the PDF
-// datasheet is embedded, so it prints and displays the same everywhere.
+// datasheet is embedded, so it prints and displays the same everywhere
+// (clitest.CheckPDFFonts).
 func TestPDFFontsEmbedded(t *testing.T) {
-	for name, f := range sheets(t) {
-		lines := strings.Split(strings.TrimSpace(poppler(t, "pdffonts", f[1])), "\n")
-		// A header line, a rule, then one line per font; the column
-		// "emb" is the fourth from the right (emb sub uni object ID).
-		if len(lines) < 3 {
-			t.Errorf("%s: pdffonts lists no font:\n%s", name, strings.Join(lines, "\n"))
-			continue
-		}
-		for _, l := range lines[2:] {
-			fs := strings.Fields(l)
-			if len(fs) < 6 || fs[len(fs)-5] != "yes" {
-				t.Errorf("%s: font not embedded: %s", name, l)
-			}
-		}
+	for _, f := range sheets(t) {
+		clitest.CheckPDFFonts(t, f[1])
 	}
 }
 
@@ -89,9 +62,6 @@ var (
 	// pdfSection matches the same heading in pdftotext -layout output: the
 	// number and the title alone on a line at the left margin.
 	pdfSection = regexp.MustCompile(`(?m)^ {0,2}(\d{1,2}) +([A-Z][A-Za-z -]+)$`)
-	// bboxPage and bboxBlock read pdftotext -bbox-layout output.
-	bboxPage  = regexp.MustCompile(`<page width="[\d.]+" height="([\d.]+)">`)
-	bboxBlock = regexp.MustCompile(`<block xMin="[\d.]+" yMin="([\d.]+)" xMax="[\d.]+" yMax="([\d.]+)">`)
 )
 
 // TestPDFSectionOrder checks that the PDF datasheet has the sections of the
@@ -118,31 +88,16 @@ func TestPDFSectionOrder(t *testing.T) {
 }
 
 // TestPDFNoNearEmptyPage checks that every page of the PDF datasheet fills
-// at least minPageFill of its text area: the lowest text on the page (a
-// chart's caption lies under the chart) measured from the top margin,
-// against the height down to the footer.
+// at least minPageFill of its text area (clitest.PDFPageFills).
 func TestPDFNoNearEmptyPage(t *testing.T) {
 	for name, f := range sheets(t) {
-		pages := strings.Split(poppler(t, "pdftotext", "-bbox-layout", f[1], "-"), "<page ")[1:]
-		if len(pages) < 4 {
-			t.Errorf("%s: %d pages, want at least 4", name, len(pages))
+		fills := clitest.PDFPageFills(t, f[1])
+		if len(fills) < 4 {
+			t.Errorf("%s: %d pages, want at least 4", name, len(fills))
 		}
-		for i, pg := range pages {
-			m := bboxPage.FindStringSubmatch("<page " + pg)
-			if m == nil {
-				t.Fatalf("%s page %d: no page size in pdftotext output", name, i+1)
-			}
-			h, _ := strconv.ParseFloat(m[1], 64)
-			bottom := 0.0
-			for _, b := range bboxBlock.FindAllStringSubmatch(pg, -1) {
-				y0, _ := strconv.ParseFloat(b[1], 64)
-				y1, _ := strconv.ParseFloat(b[2], 64)
-				if y0 < h-pageFooter {
-					bottom = max(bottom, y1)
-				}
-			}
-			if fill := (bottom - pageTop) / (h - pageFooter - pageTop); fill < minPageFill {
-				t.Errorf("%s page %d of %d: content fills %.0f %% of the page, want at least %.0f %%", name, i+1, len(pages), 100*fill, 100*minPageFill)
+		for i, fill := range fills {
+			if fill < minPageFill {
+				t.Errorf("%s page %d of %d: content fills %.0f %% of the page, want at least %.0f %%", name, i+1, len(fills), 100*fill, 100*minPageFill)
 			}
 		}
 	}

@@ -2,16 +2,14 @@ package report_test
 
 import (
 	"bytes"
-	"context"
 	"encoding/json"
-	"image/png"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"strconv"
 	"strings"
 	"testing"
-	"time"
 
 	"cylcav/cmd/cylcav/internal/clitest"
 	"cylcav/cmd/cylcav/internal/cmd/report"
@@ -204,50 +202,15 @@ func TestFlagsAreDesigns(t *testing.T) {
 	}
 }
 
-const chromium = "chromium"
+// The browser helpers live in clitest, shared with the filter datasheet's
+// tests.
+const chromium = clitest.Chromium
 
-// chromiumArgs are the flags for a quiet, self-contained headless run.
-func chromiumArgs(profile string, extra ...string) []string {
-	return append([]string{"--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
-		"--disable-background-networking", "--disable-component-update", "--disable-sync", "--hide-scrollbars",
-		"--user-data-dir=" + profile}, extra...)
-}
-
-// probe wraps a page with a script that records errors from the start and,
-// once loaded, writes the number of SVG charts, how many have no visible
-// size, and the errors into the DOM.
-func probe(page string) string {
-	head := `<script>window.__errs=[];addEventListener('error',function(e){__errs.push(String(e.message))});` +
-		`(function(){var ce=console.error;console.error=function(){__errs.push(Array.prototype.join.call(arguments,' '));ce.apply(console,arguments)}})();</script>`
-	tail := `<script>addEventListener('load',function(){var s=document.querySelectorAll('svg'),bad=0;` +
-		`for(var i=0;i<s.length;i++){var r=s[i].getBoundingClientRect();if(!(r.width>100&&r.height>100))bad++}` +
-		`var p=document.createElement('pre');p.textContent='PROBE svgs='+s.length+' hidden='+bad+' errors='+JSON.stringify(__errs);` +
-		`document.body.appendChild(p)});</script>`
-	page = strings.Replace(page, "<head>", "<head>"+head, 1)
-	return strings.Replace(page, "</body>", tail+"</body>", 1)
-}
-
-var probeRE = regexp.MustCompile(`PROBE svgs=(\d+) hidden=(\d+) errors=(\[.*?\])`)
-
+// runProbe returns the probe's SVG count, hidden count and errors as text.
 func runProbe(t *testing.T, dir, name, page string) []string {
 	t.Helper()
-	path := filepath.Join(dir, name)
-	if err := os.WriteFile(path, []byte(probe(page)), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
-	defer cancel()
-	cmd := exec.CommandContext(ctx, chromium, chromiumArgs(filepath.Join(dir, "profile-"+name), "--virtual-time-budget=3000", "--dump-dom", "file://"+path)...)
-	var out, errOut bytes.Buffer
-	cmd.Stdout, cmd.Stderr = &out, &errOut
-	if err := cmd.Run(); err != nil {
-		t.Fatalf("chromium --dump-dom: %v\n%s", err, errOut.String())
-	}
-	m := probeRE.FindStringSubmatch(out.String())
-	if m == nil {
-		t.Fatalf("%s: no probe result in the DOM dump (%d bytes)", name, out.Len())
-	}
-	return m[1:]
+	svgs, hidden, errs := clitest.ChromiumProbe(t, dir, name, page)
+	return []string{strconv.Itoa(svgs), strconv.Itoa(hidden), errs}
 }
 
 // TestDatasheetInChromium opens the demo datasheet in headless Chromium:
@@ -275,41 +238,10 @@ func TestDatasheetInChromium(t *testing.T) {
 		t.Error("the probe missed a deliberate script error")
 	}
 
-	// Screenshot of the datasheet as shipped, with console logging on.
+	// Screenshot of the datasheet as shipped, with console logging on
+	// (clitest.ChromiumScreenshot fails on any console message).
 	shot := filepath.Join(dir, "datasheet.png")
-	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
-	defer cancel()
-	cmd := exec.CommandContext(ctx, chromium, chromiumArgs(filepath.Join(dir, "profile-shot"),
-		"--enable-logging=stderr", "--v=0", "--screenshot="+shot, "--window-size=1000,2400", "file://"+html)...)
-	var errOut bytes.Buffer
-	cmd.Stderr = &errOut
-	if err := cmd.Run(); err != nil {
-		t.Fatalf("chromium --screenshot: %v\n%s", err, errOut.String())
-	}
-	for _, line := range strings.Split(errOut.String(), "\n") {
-		if strings.Contains(line, ":CONSOLE") {
-			t.Errorf("console message from the datasheet: %s", line)
-		}
-	}
-	f, err := os.Open(shot)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	img, err := png.Decode(f)
-	if err != nil {
-		t.Fatalf("screenshot does not decode: %v", err)
-	}
-	dark := 0
-	bnd := img.Bounds()
-	for y := bnd.Min.Y; y < bnd.Max.Y; y += 4 {
-		for x := bnd.Min.X; x < bnd.Max.X; x += 4 {
-			if r, g, b, _ := img.At(x, y).RGBA(); r+g+b < 3*0x4000 {
-				dark++
-			}
-		}
-	}
-	if dark < 500 {
+	if dark := clitest.ChromiumScreenshot(t, dir, html, shot, 1000, 2400); dark < 500 {
 		t.Errorf("screenshot is nearly blank (%d dark samples)", dark)
 	}
 	t.Logf("screenshot: %s", shot)

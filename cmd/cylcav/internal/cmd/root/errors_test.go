@@ -68,7 +68,7 @@ func TestErrorMessages(t *testing.T) {
 		// pass: "axisym: coupling: ..." and a drawn size with no mode,
 		// "measure: ... 1.2794220913651512e+10 Hz").
 		{[]string{"stack", "../../../../../examples/iris-pair.yaml", "--fmax", "12GHz", "--pair", "1,3"}, 2, []string{`--pair "1,3"`, "neighbours in their family"}},
-		{[]string{"stack", "../../../../../examples/puck-in-can.yaml", "--fmax", "9GHz", "--wall", "copper"}, 2, []string{"--wall", "not implemented"}},
+		{[]string{"stack", "../../../../../examples/nosed-cell.yaml", "--fmax", "10THz"}, 2, []string{`--fmax "10THz"`, "too high for", "lower the maximum frequency"}},
 		{[]string{"resonances", "../../../../../testdata/measure/modes.s2p", "--diameter", "1mm", "--length", "31mm"}, 2, []string{"D = 1 mm", "12.79 GHz"}},
 		// Long values are quoted cut short.
 		{[]string{"q", "--mode", "TE011", "--diameter", "40mm", "--length", "30mm", "--wall", long}, 2, []string{`--wall "xxxxxxxx`, `"...`}},

@@ -33,11 +33,11 @@ type HarmonicRow struct {
 	Drivable bool `json:"beam_drivable"`
 }
 
-// dipoleNote says what the stacked-body solver does not give an
-// accelerator user: printed (and in JSON) with --beta or --bunch-freq, so
-// that the absence of dipoles is stated, not silent.
-const dipoleNote = "dipole (n = 1) modes and their transverse R/Q are not solved for stacked bodies (the solver handles n = 0 only); " +
-	"use 'cylcav design --hom-max' for the closed pillbox or a 3-D field solver"
+// dipoleNote says what the stacked-body solver gives and does not give an
+// accelerator user about dipoles: printed (and in JSON) with --beta or
+// --bunch-freq, so that the missing transverse R/Q is stated, not silent.
+const dipoleNote = "dipole (n = 1) modes of a closed body of circular sections are listed with --order 1 (frequencies and labels), " +
+	"but their transverse R/Q is not computed for stacked bodies; use 'cylcav design --hom-max' for the closed pillbox or a 3-D field solver"
 
 // addBeamFlags registers --bunch-freq and --harmonic-window.
 func addBeamFlags(cmd *cobra.Command, b *BeamOptions) {
@@ -80,7 +80,7 @@ func signedHz(x float64) string {
 	return "-" + physics.FormatFrequency(-x, 4)
 }
 
-// writeBeamNote explains the harmonic column and states the missing dipoles.
+// writeBeamNote explains the harmonic column and states what is known of dipoles.
 func writeBeamNote(w io.Writer, b BeamOptions) {
 	if b.Bunch > 0 {
 		win := b.Window

@@ -64,13 +64,6 @@ func checkBulb(b BulbOptions, body axisym.Body) error {
 			return cmdutil.Usagef("--bulb-diameter %s does not fit section %d (radius %s%s), which the bulb overlaps",
 				cmdutil.TrimZeros(physics.FormatLength(b.Diameter, 6)), i+1, cmdutil.TrimZeros(physics.FormatLength(s.Radius, 6)), map[bool]string{true: ", with an inner conductor", false: ""}[s.InnerRadius > 0])
 		}
-		if lo, hi := max(zc-b.Length/2, z0), min(zc+b.Length/2, z0+s.Length); hi-lo > 1e-12*l && (s.Fill.Eps() != 1 || s.Fill.Mu() != 1) {
-			// The bulb is a volume of gas: it cannot share space with a
-			// dielectric (the help's "free space").
-			return cmdutil.Usagef("--bulb-length %s centred at %s overlaps section %d (z = %s to %s), which is filled with a dielectric; the bulb must lie in free space",
-				cmdutil.TrimZeros(physics.FormatLength(b.Length, 6)), cmdutil.TrimZeros(physics.FormatLength(zc, 6)), i+1,
-				cmdutil.TrimZeros(physics.FormatLength(z0, 6)), cmdutil.TrimZeros(physics.FormatLength(z0+s.Length, 6)))
-		}
 		z0 += s.Length
 	}
 	return nil

@@ -43,7 +43,10 @@ type Options struct {
 	Modes int
 	// Families are the families to solve.
 	Families []cavity.Family
-	Format   cmdutil.Format
+	// Order is the azimuthal order n (--order; 0: TE0 and TM0 apart; n >= 1:
+	// TE_n and TM_n coupled at steps, frequencies and labels only).
+	Order  int
+	Format cmdutil.Format
 	// Walls, when not nil (--wall given, or walls in the file), adds Q0
 	// and its parts: with --wall the side surface of the wall set covers
 	// side walls, inner conductors and step faces, EndA and EndB the end
@@ -90,7 +93,7 @@ func NewCmdStack(ios *cmdutil.IOStreams, runF func(*Options) error) *cobra.Comma
 	var checkFormat func() error
 	var walls *cmdutil.WallFlags
 	cmd := &cobra.Command{
-		Use:   "stack FILE --fmax F [--family te|tm|both] [--modes N]",
+		Use:   "stack FILE --fmax F [--family te|tm|both] [--order N] [--modes N]",
 		Short: "Resonances of a cavity made of stacked coaxial sections (axial mode matching)",
 		Long: fmt.Sprintf(`List the azimuthally symmetric (n = 0) resonances below --fmax of a cavity
 made of circular cylindrical sections stacked along z between two ends
@@ -140,10 +143,21 @@ used for Q0 at 20 C without --wall:
 Keys per section: %s. inner_radius > 0 makes a
 coaxial section (a post or inner conductor); at each junction one
 cross-section must lie inside the other. A section with layers (n = 0
-only; isotropic, non-magnetic layers) gives frequencies but not yet Q0
-or field maps. Not solved yet (an error says
-so): other junctions and n >= 1. A body with a
+only; isotropic, non-magnetic layers; both ends plates) gives Q0, field
+maps and bulb filling factors like a homogeneous one. Not solved yet (an error says
+so): other junctions. A body with a
 coaxial section has no "continues from" label.
+
+--order N (default 0) lists the resonances of azimuthal order n = N
+instead (N = 1: the dipole modes of a cell). For n >= 1 the TE_n and TM_n
+waveguide modes of each section couple at every step and are solved
+together, with the same exact count (none missed); each resonance is
+labelled with the TE_nmp or TM_nmp mode of the enclosing cylinder at the
+same place in the order-n list. Only closed bodies of homogeneous
+circular sections (no inner conductor, no layers, no pipe ends), and
+frequencies only: --wall, --beta, --field-map, --bulb-*, --pair and
+--family te|tm are refused with --order >= 1, and walls in the file are
+not used; --extrapolate works as for n = 0.
 
 --modes sets the waveguide modes kept in the widest section (default %d);
 narrower sections keep proportionally fewer. JSON and CSV give SI values.
@@ -151,8 +165,12 @@ narrower sections keep proportionally fewer. JSON and CSV give SI values.
 With --wall (a metal, as in 'cylcav q'; --end-wall and the other wall
 flags apply too) each resonance gains Q0 from the matched fields, with the
 wall loss on every surface (side walls, inner conductors and step faces
-take the --wall metal) and each section's loss tangents, plus the change
-of Q0 when the modes grew by half. Bodies without steps give exact Q0;
+take the --wall metal) and each section's (or layer's) loss tangents,
+plus the change of Q0 when the modes grew by half. A table below lists,
+for every region filled with something other than vacuum (a section's
+fill or one layer), its electric filling factor p_e (its share of the
+electric energy) and the Q of its loss tangents alone, Q = 1/(p_e tand +
+p_m tandm); JSON gives them per resonance under "dielectrics". Bodies without steps give exact Q0;
 next to a step edge the wall loss converges slowly, so there Q0 is an
 estimate (high by about its change or more).
 
@@ -191,11 +209,19 @@ The bulb must lie in free space of circular sections.
 --bunch-freq F gives every resonance its nearest beam harmonic and flags
 a TM0 resonance NEAR within --harmonic-window (default 0.5 %%) of one (a
 TE0 resonance has no E_z for the beam to drive). With --beta or
---bunch-freq the output says that dipole (n = 1) modes and their
-transverse R/Q are not solved for stacked bodies.`,
+--bunch-freq the output says that dipole (n = 1) modes are listed with
+--order 1 but their transverse R/Q is not computed for stacked bodies.`,
 			strings.Join(topKeys, ", "), strings.Join(sectionKeys, ", "), axisym.DefaultModes),
 		Example: `  # A nosed accelerating cell in copper: Q0 and R/Q for beta = 1
   $ cylcav stack examples/nosed-cell.yaml --fmax 3.5GHz --wall copper --beta 1
+  ...
+
+  # The same cell's dipole (n = 1) resonances, labelled TE11p/TM11p
+  $ cylcav stack examples/nosed-cell.yaml --fmax 9GHz --order 1
+  ...
+
+  # A dielectric puck in a copper can: Q0, wall and dielectric Q, the puck's filling factor
+  $ cylcav stack examples/puck-in-can.yaml --fmax 9GHz --wall copper
   ...
 
   # The field map of the re-entrant cavity's lowest resonance
@@ -259,6 +285,9 @@ transverse R/Q are not solved for stacked bodies.`,
 				}
 				opts.Pair = &p
 			}
+			if err := checkOrder(cmd, opts.Order); err != nil {
+				return err
+			}
 			if opts.Extrapolate && opts.Modes > axisym.MaxModes/4 {
 				return cmdutil.FlagError("modes", strconv.Itoa(opts.Modes), fmt.Errorf("must be at most %d with --extrapolate (its finest model keeps four times as many)", axisym.MaxModes/4))
 			}
@@ -314,7 +343,7 @@ transverse R/Q are not solved for stacked bodies.`,
 					}
 				}
 			}
-			if opts.Geometry.Walls != nil {
+			if opts.Geometry.Walls != nil && opts.Order == 0 {
 				if opts.Walls != nil {
 					return cmdutil.Usagef("%s gives walls and so does --wall: give the metals in one place", opts.File)
 				}
@@ -339,6 +368,7 @@ transverse R/Q are not solved for stacked bodies.`,
 	cmdutil.Needs(cmd, "force", "field-map")
 	fl.StringVar(&pair, "pair", "", "two resonances (the # column, e.g. 1,2) split from two coupled resonators: add their coupling coefficient")
 	fl.BoolVar(&opts.Extrapolate, "extrapolate", false, "add each frequency extrapolated to infinitely many modes, with its error estimate")
+	cmdutil.IntVar(fl, &opts.Order, "order", 0, fmt.Sprintf("azimuthal order n of the resonances, 0..%d (1: dipole modes; n >= 1 for closed bodies of circular sections, frequencies only)", maxOrder), 0, maxOrder)
 	cmdutil.IntVar(fl, &opts.Modes, "modes", 0, fmt.Sprintf("waveguide modes in the widest section, 2..%d (default %d)", axisym.MaxModes, axisym.DefaultModes), 2, axisym.MaxModes)
 	addBulbFlags(cmd, &opts.Bulb)
 	addBeamFlags(cmd, &opts.Beam)
@@ -374,6 +404,9 @@ type Row struct {
 	QWall    *float64 `json:"q_wall,omitempty"`
 	QFill    *float64 `json:"q_fill,omitempty"` // absent with Q0 given: no fill loss
 	QNote    string   `json:"q_note,omitempty"`
+	// With --wall: every region filled with something other than vacuum
+	// (a section's fill or one layer), with its filling factors and Q.
+	Dielectrics []DielectricRow `json:"dielectrics,omitempty"`
 	// With --beta, TM0 resonances of a body with a free axis: the
 	// transit-time factor and R/Q in both conventions, V^2/(omega W)
 	// ("linac") and V^2/(2 omega W) ("circuit"), in ohm.
@@ -391,6 +424,21 @@ type Row struct {
 	Bulb *BulbRow `json:"bulb,omitempty"`
 	// With --bunch-freq: the nearest beam harmonic.
 	Harmonic *HarmonicRow `json:"harmonic,omitempty"`
+}
+
+// DielectricRow is one filled region's share of a resonance
+// (axisym.MediumQ).
+type DielectricRow struct {
+	Section  int     `json:"section"`
+	Layer    int     `json:"layer"`  // 0: the section's fill; else the layer, innermost 1
+	Medium   string  `json:"medium"` // its name ("user" for values given as eps=...)
+	EpsR     float64 `json:"eps_r"`
+	TanDelta float64 `json:"tan_delta"`
+	// FillE and FillM are the electric and magnetic filling factors; Q
+	// that of the region's loss tangents alone (null: no loss tangent).
+	FillE float64  `json:"electric_filling_factor"`
+	FillM float64  `json:"magnetic_filling_factor"`
+	Q     *float64 `json:"q_dielectric,omitempty"`
 }
 
 // PairRow is the coupling coefficient of the pair named by --pair.
@@ -433,7 +481,7 @@ func pairRow(opts *Options, res []axisym.Resonance) (*PairRow, error) {
 
 func runStack(opts *Options) error {
 	res, err := axisym.Solve(opts.Geometry.Body, axisym.Request{
-		MaxFrequency: opts.FMax, Modes: opts.Modes, Families: opts.Families,
+		Order: opts.Order, MaxFrequency: opts.FMax, Modes: opts.Modes, Families: familiesFor(opts),
 		Losses: opts.Walls != nil || opts.Beta > 0 || opts.FieldMap != "" || opts.Bulb.Diameter > 0,
 	})
 	if err != nil {
@@ -442,7 +490,7 @@ func runStack(opts *Options) error {
 	rows := make([]Row, len(res))
 	for i, r := range res {
 		row := Row{
-			Index: i + 1, Family: r.Family.String() + "0", FamilyIndex: r.Index, FHz: r.Frequency,
+			Index: i + 1, Family: familyText(opts.Order, r.Family), FamilyIndex: r.Index, FHz: r.Frequency,
 			LabelTied: r.OriginTied,
 		}
 		if r.HasOrigin {
@@ -521,7 +569,7 @@ func runStack(opts *Options) error {
 			Resonances []Row       `json:"resonances"`
 			Coupling   *PairRow    `json:"coupling,omitempty"`
 			Dipoles    string      `json:"dipoles,omitempty"`
-		}{opts.File, opts.Geometry.Title, 0, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
+		}{opts.File, opts.Geometry.Title, opts.Order, len(opts.Geometry.Body.Sections), opts.Geometry.Body.Length(),
 			opts.Geometry.Body.MaxRadius(), opts.FMax, opts.Geometry.Body.EndA.String(), opts.Geometry.Body.EndB.String(),
 			cutoffs(opts.Geometry.Body, opts.Families), rows, pr, dipolesJSON(opts)})
 	case cmdutil.CSV:
@@ -587,8 +635,11 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	length := cmdutil.TrimZeros(physics.FormatLength(b.Length(), 6))
 	radius := cmdutil.TrimZeros(physics.FormatLength(b.MaxRadius(), 6))
 	fmt.Fprintf(w, "body: %s, %d sections, length %s, largest radius %s\n", title, len(b.Sections), length, radius)
-	fmt.Fprintf(w, "n = 0 resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
-		cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
+	fmt.Fprintf(w, "n = %d resonances below %s by axial mode matching; change: shift when the modes grow by half\n",
+		opts.Order, cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)))
+	if opts.Order > 0 {
+		writeOrderNote(w, opts)
+	}
 	coax := false
 	for _, s := range b.Sections {
 		coax = coax || s.InnerRadius != 0
@@ -684,6 +735,9 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	if err := t.Flush(); err != nil {
 		return err
 	}
+	if err := writeDielectrics(w, rows); err != nil {
+		return err
+	}
 	if opts.Extrapolate {
 		fmt.Fprintln(w, "f extrapolated: Richardson's rule on N, 2N and 4N modes per section, the order fitted; error: its")
 		fmt.Fprintln(w, "distance from the order-2 extrapolation (irregular: the three models did not converge regularly)")
@@ -754,6 +808,15 @@ func addQ(row *Row, r axisym.Resonance, walls axisym.Walls, b axisym.Body) error
 		return err
 	}
 	q0, qw, qf := u.Q0, u.QWall, u.QFill
+	for _, m := range u.Media {
+		d := DielectricRow{Section: m.Section, Layer: m.Layer, Medium: m.Medium.Label(), EpsR: m.Medium.Eps(),
+			TanDelta: m.Medium.TanDelta, FillE: m.FillE, FillM: m.FillM}
+		if !math.IsInf(m.Q, 1) {
+			q := m.Q
+			d.Q = &q
+		}
+		row.Dielectrics = append(row.Dielectrics, d)
+	}
 	row.Q0, row.QWall = &q0, &qw
 	if !math.IsInf(qf, 1) {
 		row.QFill = &qf
@@ -783,6 +846,9 @@ func digits(r Row) int {
 // res by family and place in the family.
 func addExtrapolation(opts *Options, res []axisym.Resonance, rows []Row) error {
 	byFam := map[cavity.Family][]axisym.Extrapolation{}
+	if opts.Order > 0 {
+		return addOrderExtrapolation(opts, res, rows) // order.go
+	}
 	for _, fam := range opts.Families {
 		ex, err := axisym.Extrapolate(opts.Geometry.Body, fam, opts.FMax, opts.Modes)
 		if err != nil {
@@ -880,4 +946,52 @@ func writeMap(opts *Options, res []axisym.Resonance) error {
 		return err
 	}
 	return cmdutil.WriteFiles(opts.Force, cmdutil.File{Flag: "field-map", Path: opts.FieldMap, Data: data})
+}
+
+// writeDielectrics writes, with --wall, each filled region's electric
+// filling factor and Q per resonance, one pair of columns per region.
+func writeDielectrics(w io.Writer, rows []Row) error {
+	var regions []DielectricRow
+	for _, r := range rows {
+		if len(r.Dielectrics) > len(regions) {
+			regions = r.Dielectrics
+		}
+	}
+	if len(regions) == 0 {
+		return nil
+	}
+	name := func(d DielectricRow) string {
+		if d.Layer == 0 {
+			return fmt.Sprintf("s%d", d.Section)
+		}
+		return fmt.Sprintf("s%d.%d", d.Section, d.Layer)
+	}
+	fmt.Fprintln(w, "filled regions: p_e = electric energy in the region / all electric energy, Q = 1/(p_e tand + p_m tandm)")
+	for _, d := range regions {
+		where := fmt.Sprintf("section %d", d.Section)
+		if d.Layer > 0 {
+			where += fmt.Sprintf(", layer %d", d.Layer)
+		}
+		what := fmt.Sprintf("eps_r %g, tand %g", d.EpsR, d.TanDelta)
+		if d.Medium != "user" {
+			what = d.Medium + ", " + what
+		}
+		fmt.Fprintf(w, "  %s: %s: %s\n", name(d), where, what)
+	}
+	header := []string{"#"}
+	for _, d := range regions {
+		header = append(header, "p_e "+name(d), "Q "+name(d))
+	}
+	t := cmdutil.NewTable(w, header...)
+	for _, r := range rows {
+		if len(r.Dielectrics) == 0 {
+			continue
+		}
+		cells := []string{strconv.Itoa(r.Index)}
+		for _, d := range r.Dielectrics {
+			cells = append(cells, strconv.FormatFloat(d.FillE, 'f', 4, 64), qText(d.Q))
+		}
+		t.Row(cells...)
+	}
+	return t.Flush()
 }
