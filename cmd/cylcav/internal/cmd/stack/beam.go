@@ -7,7 +7,6 @@ import (
 	"github.com/spf13/cobra"
 
 	"cylcav/axisym"
-	"cylcav/cavity"
 	"cylcav/cmd/cylcav/internal/cmdutil"
 	"cylcav/physics"
 	"cylcav/qfactor"
@@ -28,8 +27,8 @@ type HarmonicRow struct {
 	// family; the table flags only TM0 resonances NEAR (a TE0 one has no
 	// E_z for the beam to drive).
 	Near bool `json:"near_harmonic"`
-	// Drivable is Near for a TM0 resonance (the table's NEAR); a TE0 one
-	// is never drivable.
+	// Drivable is Near for a TM0 or an order n >= 1 resonance (the
+	// table's NEAR); a TE0 one is never drivable.
 	Drivable bool `json:"beam_drivable"`
 }
 
@@ -47,28 +46,32 @@ func addBeamFlags(cmd *cobra.Command, b *BeamOptions) {
 	cmdutil.Needs(cmd, "harmonic-window", "bunch-freq")
 }
 
-// harmonicRow returns the nearest beam harmonic of resonance r.
-func harmonicRow(b BeamOptions, r axisym.Resonance) (*HarmonicRow, error) {
+// harmonicRow returns the nearest beam harmonic of resonance r, whose
+// family column is family: a TE0 resonance (E_phi only, no E_z anywhere)
+// cannot be driven by the beam; a TM0 one can, and so can one of order
+// n >= 1 (a dipole: its transverse R/Q is not computed, so it is not
+// ruled out).
+func harmonicRow(b BeamOptions, r axisym.Resonance, family string) (*HarmonicRow, error) {
 	h, off, near, err := qfactor.BeamHarmonic(r.Frequency, b.Bunch, b.Window)
 	if err != nil {
 		return nil, err
 	}
-	return &HarmonicRow{Harmonic: h, OffsetHz: off, Near: near, Drivable: near && r.Family == cavity.TM}, nil
+	return &HarmonicRow{Harmonic: h, OffsetHz: off, Near: near, Drivable: near && family != "TE0"}, nil
 }
 
-// harmonicText is the table cell of a resonance's beam harmonic; only a
-// TM0 resonance (E_z on the axis) is flagged NEAR: the beam cannot drive
-// a TE0 one (E_phi only), whatever its frequency.
-func harmonicText(r *HarmonicRow, bunch float64, family string) string {
+// harmonicText is the table cell of a resonance's beam harmonic: NEAR for
+// a resonance the beam can drive (HarmonicRow.Drivable); a TE0 one (E_phi
+// only) reads "(near, R/Q 0)" whatever its frequency.
+func harmonicText(r *HarmonicRow, bunch float64) string {
 	if r == nil {
 		return "-"
 	}
 	s := fmt.Sprintf("%d x %s, %s", r.Harmonic, cmdutil.TrimZeros(physics.FormatFrequency(bunch, 6)), signedHz(r.OffsetHz))
 	switch {
-	case r.Near && family == "TM0":
+	case r.Drivable:
 		s = "NEAR " + s
 	case r.Near:
-		s += " (near, R/Q 0)" // as design's mode table words it
+		s += " (near, R/Q 0)" // a TE0 resonance, as design's mode table words it
 	}
 	return s
 }
@@ -93,7 +96,7 @@ func writeBeamNote(w io.Writer, b BeamOptions) {
 		}
 		fmt.Fprintf(w, "beam harmonic: nearest harmonic of the %s bunch frequency; NEAR within %.3g %% of the resonance frequency\n",
 			cmdutil.TrimZeros(physics.FormatFrequency(b.Bunch, 6)), 100*win)
-		fmt.Fprintf(w, "(%s); a NEAR TM0 resonance with R/Q can be driven by the beam: damp or move it; a TE0 resonance has\n", which)
+		fmt.Fprintf(w, "(%s); a NEAR TM0 resonance with R/Q, or a NEAR dipole, can be driven by the beam: damp or move it; a TE0 resonance has\n", which)
 		fmt.Fprintln(w, "no E_z anywhere, so a beam along the axis does not drive it: near a harmonic it reads (near, R/Q 0), never NEAR")
 	}
 	fmt.Fprintln(w, "note: "+dipoleNote)

@@ -96,3 +96,16 @@ func TestHarmonicTE0NotFlagged(t *testing.T) {
 		t.Errorf("JSON: exit %d, %s", r.Code, r.Stdout)
 	}
 }
+
+// TestHarmonicDipoleFlagged: a resonance of order 1 (a dipole) near a beam
+// harmonic is flagged NEAR: its transverse R/Q is not computed, so it is
+// not ruled out (after the merge with --order the TE0 rule had read it as
+// "(near, R/Q 0)"). The nosed cell's two dipoles at 4.453 and 5.066 GHz
+// lie 2.1 % and 2.6 % from 7 and 8 x 650 MHz, inside a 3 % window.
+func TestHarmonicDipoleFlagged(t *testing.T) {
+	inRepo(t)
+	r := clitest.Run(t, "stack", "examples/nosed-cell.yaml", "--fmax", "6GHz", "--order", "1", "--bunch-freq", "650MHz", "--harmonic-window", "3%")
+	if r.Code != 0 || !strings.Contains(r.Stdout, "NEAR 7 x 650 MHz") || !strings.Contains(r.Stdout, "NEAR 8 x 650 MHz") || strings.Contains(r.Stdout, "MHz (near, R/Q 0)") {
+		t.Errorf("exit %d:\n%s%s", r.Code, r.Stdout, r.Stderr)
+	}
+}

@@ -516,7 +516,7 @@ func runStack(opts *Options) error {
 			}
 		}
 		if opts.Beam.Bunch > 0 {
-			if row.Harmonic, err = harmonicRow(opts.Beam, r); err != nil {
+			if row.Harmonic, err = harmonicRow(opts.Beam, r, row.Family); err != nil {
 				return err
 			}
 		}
@@ -725,7 +725,7 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 			cells = append(cells, bulbText(r.Bulb)...)
 		}
 		if opts.Beam.Bunch > 0 {
-			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch, r.Family))
+			cells = append(cells, harmonicText(r.Harmonic, opts.Beam.Bunch))
 		}
 		if b.Open() {
 			cells = append(cells, r.Status, qextText(r.QExt, r.QExtChange))
