@@ -27,6 +27,7 @@ type system struct {
 	ndof   int
 	offset int        // see count
 	layers layerState // radially layered sections (layered_system.go)
+	static []float64  // constant part of the junction matrix (edgebasis.go), or nil
 }
 
 // lines is one section's set of modal transmission lines.
@@ -37,6 +38,7 @@ type lines struct {
 	b11, b12 []float64 // scratch: driving-point and transfer susceptance per mode
 	open     bool      // an open end section: the lines run on into the pipe (open.go)
 	beta2    []float64 // layered section: beta^2 per mode at the current frequency (else nil)
+	sub      []float64 // static b11 per mode held in system.static (edgebasis.go), or nil
 }
 
 // join is one junction between sections i (left) and i+1 (right).
@@ -147,6 +149,9 @@ func lineSusceptance(fam cavity.Family, beta2, l, eps, mu float64) (b11, b12 flo
 // resonances below f (the Wittrick-Williams J0).
 func (s *system) eval(f float64, a []float64) (j0 int) {
 	clear(a)
+	if s.static != nil {
+		copy(a, s.static)
+	}
 	k0 := 2 * math.Pi * f / physics.SpeedOfLight
 	s.refreshLayers(k0)
 	for i := range s.lines {
@@ -160,6 +165,9 @@ func (s *system) eval(f float64, a []float64) (j0 int) {
 			b11, b12, poles := lineSusceptance(s.fam, beta2, ln.length, ln.eps, ln.mu)
 			if ln.open {
 				b11, b12, poles = openSusceptance(s.fam, beta2, ln.eps, ln.mu), 0, 0
+			}
+			if ln.sub != nil {
+				b11 -= ln.sub[m]
 			}
 			ln.b11[m], ln.b12[m] = b11, b12
 			j0 += poles
