@@ -39,14 +39,20 @@ import (
 // section) and K columns, so the modal sums are cheap.
 //
 // The modal sums converge slowly (terms ~ m^(-7/3): the static field of
-// the edge). Each section's line susceptance is therefore split into its
-// static limit s_m (TM: eps_r/kc, TE: -kc/mu_r; the f -> 0 limit of b11 for
-// a long line) and the rest: sum_m s_m P P^T is a constant matrix summed
-// once over many modes with a Richardson tail (exponent 4/3, derived from
-// the asymptotic decay of the terms), and the rest falls as m^(-13/3) and
-// is summed over the dynamic modes only. The derivative in f is untouched,
-// so the junction matrix still increases with f and the Wittrick-Williams
-// count of system.count holds for this model.
+// the edge). Each section's line susceptance is therefore split into the
+// first two terms of its expansion about f = 0 for a long line, s_m + k0^2
+// s2_m (TM: eps_r/kc + k0^2 eps_r^2 mu_r/(2 kc^3); TE: -kc/mu_r + k0^2
+// eps_r/(2 kc); derived from alpha^2 = kc^2 - k0^2 eps_r mu_r), and the
+// rest: sum_m s_m P P^T and sum_m s2_m P P^T are constant matrices summed
+// once over many modes, their tails removed by Richardson elimination in
+// the number of modes with the exponents the terms' decay predicts
+// (edgeTailExponents), applied to means of the partial sums over windows
+// (M/2, M] that scale with M (so a power-law tail stays one, while the
+// oscillating parts from the wide guide average out); the rest falls as
+// m^(-19/3) and is summed over a few dynamic modes. The model's
+// derivative in f is sum over the dynamic modes of b11' P P^T plus k0^2
+// times a positive semi-definite tail, so the junction matrix still
+// increases with f and the Wittrick-Williams count of system.count holds.
 
 // edgeOpts are the truncation parameters of the edge-conditioned model.
 type edgeOpts struct {
@@ -65,8 +71,23 @@ func fracJ(alpha, z float64, out []float64) {
 	n := len(out)
 	top := alpha + float64(n)
 	if z > 25+top*top {
+		// The phase of order alpha + j is that of alpha less j pi/2.
+		c, sn := math.Cos(z-alpha*math.Pi/2-math.Pi/4), math.Sin(z-alpha*math.Pi/2-math.Pi/4)
+		amp := math.Sqrt(2 / (math.Pi * z))
 		for j := range out {
-			out[j] = hankelJ(alpha+float64(j), z)
+			p, q := hankelPQ(alpha+float64(j), z)
+			var cj, sj float64
+			switch j % 4 {
+			case 0:
+				cj, sj = c, sn
+			case 1:
+				cj, sj = sn, -c
+			case 2:
+				cj, sj = -c, -sn
+			case 3:
+				cj, sj = -sn, c
+			}
+			out[j] = amp * (p*cj - q*sj)
 		}
 		return
 	}
@@ -76,12 +97,10 @@ func fracJ(alpha, z float64, out []float64) {
 	}
 	var jp1, j0 float64 = 0, 1e-300
 	sum := 0.0
-	g := func(k int) float64 { // Gamma(alpha+k)/k!, times alpha+2k below
-		if k == 0 {
-			return math.Gamma(alpha+1) / alpha
-		}
-		return math.Exp(lgamma(alpha+float64(k)) - lgamma(float64(k)+1))
-	}
+	// g = Gamma(alpha+k)/k! for k = mu/2, from the top down:
+	// g(k-1) = g(k) k / (alpha+k-1).
+	kt := start / 2
+	g := math.Exp(lgamma(alpha+float64(kt)) - lgamma(float64(kt)+1))
 	for mu := start; mu >= 0; mu-- {
 		// j0 = J_(alpha+mu) (unscaled)
 		if mu < n {
@@ -89,9 +108,13 @@ func fracJ(alpha, z float64, out []float64) {
 		}
 		if mu%2 == 0 {
 			k := mu / 2
-			c := (alpha + float64(mu)) * g(k)
+			if k < kt {
+				g *= float64(k+1) / (alpha + float64(k))
+				kt = k
+			}
+			c := (alpha + float64(mu)) * g
 			if mu == 0 {
-				c = math.Gamma(alpha + 1)
+				c = math.Gamma(alpha + 1) // alpha Gamma(alpha), also for alpha = 0
 			}
 			sum += c * j0
 		}
@@ -123,15 +146,17 @@ func lgamma(x float64) float64 {
 	return v
 }
 
-// hankelJ is J_nu(z) from Hankel's expansion (DLMF 10.17.3), for z much
-// larger than nu^2.
-func hankelJ(nu, z float64) float64 {
+// hankelPQ returns the sums P and Q of Hankel's expansion (DLMF 10.17.3),
+// J_nu(z) ~ sqrt(2/(pi z)) (P cos w - Q sin w), w = z - nu pi/2 - pi/4,
+// for z much larger than nu^2.
+func hankelPQ(nu, z float64) (p, q float64) {
 	mu := 4 * nu * nu
-	p, q := 1.0, 0.0
+	p = 1
 	term := 1.0
-	prev := math.Inf(1)
+	prev := math.MaxFloat64
+	r := 1 / (8 * z)
 	for k := 1; k < 60; k++ {
-		term *= (mu - float64((2*k-1)*(2*k-1))) / (float64(k) * 8 * z)
+		term *= (mu - float64((2*k-1)*(2*k-1))) * r / float64(k)
 		if math.Abs(term) > prev {
 			break
 		}
@@ -150,8 +175,7 @@ func hankelJ(nu, z float64) float64 {
 			break
 		}
 	}
-	w := z - nu*math.Pi/2 - math.Pi/4
-	return math.Sqrt(2/(math.Pi*z)) * (p*math.Cos(w) - q*math.Sin(w))
+	return p, q
 }
 
 // circularZeros returns the first count zeros of J_n (n = 0 or 1): the
@@ -277,11 +301,31 @@ func edgeProjection(fam cavity.Family, nus [3]float64, radius, a float64, count,
 		norm := 1 / (math.Sqrt(math.Pi) * radius * math.Abs(jn))
 		z := kc[m] * a
 		col := 0
+		lz := math.Log(z)
 		for f, nu := range nus {
 			ord := nu + 2
 			shift := math.Floor(ord)
-			fracJ(ord-shift, z, seq[f])
-			zp := math.Pow(z, -nu-1)
+			alpha := ord - shift
+			top := ord + float64(2*per[f])
+			zp := math.Exp((-nu - 1) * lz)
+			if z > 25+top*top {
+				// Hankel's expansion for just the orders needed, each
+				// phase that of ord less i pi (DLMF 10.17.3).
+				w := z - ord*math.Pi/2 - math.Pi/4
+				c, sn := math.Cos(w), math.Sin(w)
+				amp := math.Sqrt(2 / (math.Pi * z))
+				for i := range per[f] {
+					pp, qq := hankelPQ(ord+float64(2*i), z)
+					jv := amp * (pp*c - qq*sn)
+					if i%2 == 1 {
+						jv = -jv
+					}
+					p[m*k+col] = 2 * math.Pi * a * norm * math.Sqrt(2*(2*float64(i)+ord)) * zp * jv
+					col++
+				}
+				continue
+			}
+			fracJ(alpha, z, seq[f])
 			for i := range per[f] {
 				p[m*k+col] = 2 * math.Pi * a * norm * math.Sqrt(2*(2*float64(i)+ord)) * zp * seq[f][int(shift)+2*i]
 				col++
@@ -298,6 +342,31 @@ func staticLine(fam cavity.Family, kc, eps, mu float64) float64 {
 		return -kc / mu
 	}
 	return eps / kc
+}
+
+// staticLine2 is the coefficient of k0^2 in the expansion of b11 of a long
+// line about f = 0 (from alpha^2 = kc^2 - k0^2 eps mu; derived): TM
+// eps^2 mu/(2 kc^3), TE eps/(2 kc).
+func staticLine2(fam cavity.Family, kc, eps, mu float64) float64 {
+	if fam == cavity.TE {
+		return eps / (2 * kc)
+	}
+	return eps * eps * mu / (2 * kc * kc * kc)
+}
+
+// richardsonTail sums the partial sums part (at M, 2M, 4M, ...) to
+// infinity, eliminating tails M^-p for each p of tail in turn.
+func richardsonTail(part [][]float64, tail []float64) []float64 {
+	for _, pw := range tail {
+		q := math.Exp2(pw) - 1
+		for l := 0; l+1 < len(part); l++ {
+			for e := range part[l] {
+				part[l][e] = part[l+1][e] + (part[l+1][e]-part[l][e])/q
+			}
+		}
+		part = part[:len(part)-1]
+	}
+	return part[0]
 }
 
 // newEdgeSystem builds the edge-conditioned model of b for family fam.
@@ -333,12 +402,15 @@ func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system
 	// (raw[i][side], side 0 the left junction), and the static sums.
 	raw := make([][2][]float64, len(b.Sections))
 	stat := make([][]float64, nj)
+	stat2 := make([][]float64, nj)
 	for j := range stat {
 		stat[j] = make([]float64, o.k*o.k)
+		stat2[j] = make([]float64, o.k*o.k)
 	}
 	for i, sec := range b.Sections {
 		ln := &s.lines[i]
 		ln.sub = make([]float64, counts[i])
+		ln.sub2 = make([]float64, counts[i])
 		for side, jn := range []int{i - 1, i} {
 			if jn < 0 || jn >= nj {
 				continue
@@ -350,6 +422,10 @@ func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system
 			a := narrow.Radius
 			nus := edgeFamilies(fam, wide, narrow)
 			tail := edgeTailExponents(fam, nus)
+			tail2 := make([]float64, len(tail))
+			for t, p := range tail {
+				tail2[t] = p + 2 // the k0^2 terms fall faster by kc^-2
+			}
 			big := max(int(float64(o.static)*sec.Radius/a), 2*counts[i])
 			// Static sums to big/2^(L-1), ..., big/2, big modes, and
 			// their tail by repeated Richardson elimination.
@@ -358,45 +434,63 @@ func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system
 			p, kc := edgeProjection(fam, nus, sec.Radius, a, big, o.k)
 			ln.kc = kc[:counts[i]]
 			raw[i][side] = p[:counts[i]*o.k]
+			// Each level's value is the mean of the partial sums over
+			// (M/2, M]: a window that scales with M keeps a power-law
+			// tail a power law of the same exponent, while the
+			// oscillating parts of the sums (the wide guide's modes
+			// do not fit the aperture) average out.
 			part := make([][]float64, levels)
+			part2 := make([][]float64, levels)
 			full := make([]float64, o.k*o.k)
+			full2 := make([]float64, o.k*o.k)
+			acc := make([]float64, o.k*o.k)
+			acc2 := make([]float64, o.k*o.k)
 			next := big >> (levels - 1)
 			lv := 0
 			for m := range big {
 				sm := staticLine(fam, kc[m], ln.eps, ln.mu)
+				sm2 := staticLine2(fam, kc[m], ln.eps, ln.mu)
 				row := p[m*o.k : (m+1)*o.k]
 				for r := range o.k {
-					g := sm * row[r]
+					g, g2 := sm*row[r], sm2*row[r]
 					for c := r; c < o.k; c++ {
 						full[r*o.k+c] += g * row[c]
+						full2[r*o.k+c] += g2 * row[c]
+					}
+				}
+				if m+1 > next/2 {
+					for e := range acc {
+						acc[e] += full[e]
+						acc2[e] += full2[e]
 					}
 				}
 				if m+1 == next {
-					part[lv] = append([]float64(nil), full...)
+					w := float64(next - next/2)
+					part[lv], part2[lv] = make([]float64, len(acc)), make([]float64, len(acc))
+					for e := range acc {
+						part[lv][e], part2[lv][e] = acc[e]/w, acc2[e]/w
+					}
+					clear(acc)
+					clear(acc2)
 					lv++
 					next *= 2
 				}
 			}
-			for _, pw := range tail {
-				q := math.Exp2(pw) - 1
-				for l := 0; l+1 < len(part); l++ {
-					for e := range part[l] {
-						part[l][e] = part[l+1][e] + (part[l+1][e]-part[l][e])/q
-					}
-				}
-				part = part[:len(part)-1]
-			}
+			sum, sum2 := richardsonTail(part, tail), richardsonTail(part2, tail2)
 			for r := range o.k {
 				for c := r; c < o.k; c++ {
-					v := part[0][r*o.k+c]
+					v, v2 := sum[r*o.k+c], sum2[r*o.k+c]
 					stat[jn][r*o.k+c] += v
+					stat2[jn][r*o.k+c] += v2
 					if c != r {
 						stat[jn][c*o.k+r] += v
+						stat2[jn][c*o.k+r] += v2
 					}
 				}
 			}
 			for m := range counts[i] {
 				ln.sub[m] = staticLine(fam, kc[m], ln.eps, ln.mu)
+				ln.sub2[m] = staticLine2(fam, kc[m], ln.eps, ln.mu)
 			}
 		}
 	}
@@ -442,10 +536,22 @@ func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system
 		s.ndof += dims[j]
 	}
 	s.static = make([]float64, s.ndof*s.ndof)
+	s.static2 = make([]float64, s.ndof*s.ndof)
 	for j := range nj {
-		off := s.joins[j].off
-		for r := range dims[j] {
+		off, d := s.joins[j].off, dims[j]
+		for r := range d {
 			s.static[(off+r)*s.ndof+off+r] = sign
+		}
+		// W^T stat2 W.
+		t := matMul(stat2[j], ws[j], o.k, o.k, d)
+		for r := range d {
+			for c := range d {
+				var v float64
+				for l := range o.k {
+					v += ws[j][l*d+r] * t[l*d+c]
+				}
+				s.static2[(off+r)*s.ndof+off+c] = v
+			}
 		}
 	}
 	for i := range b.Sections {
@@ -566,4 +672,36 @@ func symEigen(a []float64, n int) (vals, vecs []float64) {
 		vals[i] = m[i*n+i]
 	}
 	return vals, v
+}
+
+// edgeCoarse and edgeFine are the two models of edgeSolve: basis functions
+// per junction, dynamic modes in the widest section, static modes per unit
+// R/a. Chosen on the five-section test body (TestEdgeFiveLowest): the fine
+// model is within 5e-10 of a model with 15 functions, 480 dynamic and
+// 12800 static modes, the coarse one within 6e-9.
+var (
+	edgeCoarse = edgeOpts{k: 9, dyn: 30, static: 400}
+	edgeFine   = edgeOpts{k: 12, dyn: 40, static: 800}
+)
+
+// edgeSolve returns the resonances of family fam below fmax by the
+// edge-conditioned model edgeFine, each with its convergence estimate: the
+// distance from the coarser model edgeCoarse (searched a little beyond
+// fmax so that every resonance has a partner; +Inf when none).
+func edgeSolve(b Body, fam cavity.Family, fmax float64) (f, change []float64, err error) {
+	coarse, err := edgeResonances(b, fam, fmax*(1+estimateMargin), edgeCoarse)
+	if err != nil {
+		return nil, nil, err
+	}
+	if f, err = edgeResonances(b, fam, fmax, edgeFine); err != nil {
+		return nil, nil, err
+	}
+	change = make([]float64, len(f))
+	for i, x := range f {
+		change[i] = math.Inf(1)
+		if i < len(coarse) {
+			change[i] = math.Abs(x - coarse[i])
+		}
+	}
+	return f, change, nil
 }

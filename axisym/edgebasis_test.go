@@ -178,3 +178,45 @@ func TestEdgeConvergence(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkFiveLowestEdge solves the five lowest TM0 resonances of the
+// five-section body with the edge-conditioned model and its convergence
+// estimate (edgeSolve: two models, edgeCoarse and edgeFine).
+func BenchmarkFiveLowestEdge(b *testing.B) {
+	body := fiveSections()
+	for b.Loop() {
+		f, _, err := edgeSolve(body, cavity.TM, 10e9)
+		if err != nil || len(f) != 5 {
+			b.Fatal(f, err)
+		}
+	}
+}
+
+// TestEdgeFiveLowest is deliverable 2: the five lowest TM0 resonances of
+// the five-section body by edgeSolve are within 1e-8 relative by the
+// path's own estimate (the change from the coarse model), and a much
+// larger model (15 functions per junction, 480 dynamic and 12800 static
+// modes) confirms that the estimate bounds the true error.
+func TestEdgeFiveLowest(t *testing.T) {
+	if testing.Short() {
+		t.Skip("reference model with 12800 static modes")
+	}
+	f, change, err := edgeSolve(fiveSections(), cavity.TM, 10e9)
+	if err != nil || len(f) != 5 {
+		t.Fatal(f, err)
+	}
+	ref, err := edgeResonances(fiveSections(), cavity.TM, 10e9, edgeOpts{k: 15, dyn: 480, static: 12800})
+	if err != nil || len(ref) != 5 {
+		t.Fatal(ref, err)
+	}
+	for i := range f {
+		e := math.Abs(f[i] - ref[i])
+		t.Logf("TM0 #%d: %.12g Hz, estimate %.2g, error against the large model %.2g", i+1, f[i], change[i]/f[i], e/f[i])
+		if change[i] > 1e-8*f[i] {
+			t.Errorf("TM0 #%d: estimate %.2g relative, want <= 1e-8", i+1, change[i]/f[i])
+		}
+		if e > change[i] {
+			t.Errorf("TM0 #%d: error %.3g Hz exceeds the estimate %.3g Hz", i+1, e, change[i])
+		}
+	}
+}
