@@ -371,22 +371,15 @@ func richardsonTail(part [][]float64, tail []float64) []float64 {
 
 // newEdgeSystem builds the edge-conditioned model of b for family fam.
 func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system, error) {
-	if b.Open() {
-		return nil, fmt.Errorf("axisym: edge basis: open body: %w", ErrNotImplemented)
-	}
-	for i, sec := range b.Sections {
-		if sec.InnerRadius != 0 || len(sec.Layers) > 0 {
-			return nil, fmt.Errorf("axisym: edge basis: section %d is coaxial or layered: %w", i+1, ErrNotImplemented)
-		}
-		if i > 0 && sec.Radius == b.Sections[i-1].Radius {
-			return nil, fmt.Errorf("axisym: edge basis: sections %d and %d have one radius: %w", i, i+1, ErrNotImplemented)
-		}
+	if err := edgeApplies(b, fam); err != nil {
+		return nil, err
 	}
 	counts, err := ModeCounts(b, fam, fmax, o.dyn)
 	if err != nil {
 		return nil, err
 	}
 	s := &system{fam: fam}
+	s.layers.guides = make([]*layeredGuide, len(b.Sections)) // none layered
 	for i, sec := range b.Sections {
 		s.lines = append(s.lines, lines{
 			eps: sec.Fill.Eps(), mu: sec.Fill.Mu(), length: sec.Length,
@@ -573,21 +566,29 @@ func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system
 // edgeResonances returns the resonances of family fam below fmax of the
 // edge-conditioned model.
 func edgeResonances(b Body, fam cavity.Family, fmax float64, o edgeOpts) ([]float64, error) {
+	f, _, err := edgeModel(b, fam, fmax, o)
+	return f, err
+}
+
+// edgeModel is edgeResonances that also returns the model, for the
+// fields and losses (system.losses: the modal voltages of each section are
+// the projections P c of the aperture field).
+func edgeModel(b Body, fam cavity.Family, fmax float64, o edgeOpts) ([]float64, *system, error) {
 	if err := b.Validate(); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	s, err := newEdgeSystem(b, fam, fmax, o)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	sv := &solver{s: s, a: make([]float64, s.ndof*s.ndof)}
 	s.calibrate(b, sv.a)
 	jmax, gmax := sv.count(fmax)
 	if jmax > MaxResonances {
-		return nil, fmt.Errorf("axisym: %d resonances below %g Hz", jmax, fmax)
+		return nil, nil, fmt.Errorf("axisym: %d %v0 resonances below %g Hz, more than %d; lower the maximum frequency", jmax, fam, fmax, MaxResonances)
 	}
 	sv.isolate(point{0, 0, 0}, point{fmax, jmax, gmax})
-	return sv.out, nil
+	return sv.out, s, nil
 }
 
 // edgeRank is the relative eigenvalue of the static matrix below which a
@@ -689,19 +690,73 @@ var (
 // distance from the coarser model edgeCoarse (searched a little beyond
 // fmax so that every resonance has a partner; +Inf when none).
 func edgeSolve(b Body, fam cavity.Family, fmax float64) (f, change []float64, err error) {
-	coarse, err := edgeResonances(b, fam, fmax*(1+estimateMargin), edgeCoarse)
+	r, err := edgePair(b, fam, fmax, edgeCoarse, edgeFine, false)
 	if err != nil {
 		return nil, nil, err
 	}
-	if f, err = edgeResonances(b, fam, fmax, edgeFine); err != nil {
-		return nil, nil, err
-	}
-	change = make([]float64, len(f))
-	for i, x := range f {
-		change[i] = math.Inf(1)
-		if i < len(coarse) {
-			change[i] = math.Abs(x - coarse[i])
-		}
+	for _, x := range r {
+		f, change = append(f, x.Frequency), append(change, x.Change)
 	}
 	return f, change, nil
+}
+
+// edgePair solves the two models coarse and fine and returns the fine
+// model's resonances with Frequency, Change, Coarse and, if withLoss,
+// Loss, LossErr and CoarseLoss set (the fields from the modal voltages P c
+// of each section, system.losses).
+func edgePair(b Body, fam cavity.Family, fmax float64, coarse, fine edgeOpts, withLoss bool) ([]Resonance, error) {
+	cf, cs, err := edgeModel(b, fam, fmax*(1+estimateMargin), coarse)
+	if err != nil {
+		return nil, err
+	}
+	ff, fs, err := edgeModel(b, fam, fmax, fine)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]Resonance, len(ff))
+	for i, x := range ff {
+		r := Resonance{Family: fam, Index: i + 1, Frequency: x, Change: math.Inf(1), EdgeBasis: true}
+		if i < len(cf) {
+			r.Change, r.Coarse = math.Abs(x-cf[i]), cf[i]
+		}
+		if withLoss {
+			if l, err := fs.losses(b, x); err != nil {
+				r.LossErr = err
+			} else {
+				r.Loss = &l
+				if i < len(cf) {
+					if lc, err := cs.losses(b, cf[i]); err == nil {
+						r.CoarseLoss = &lc
+					}
+				}
+			}
+		}
+		out[i] = r
+	}
+	return out, nil
+}
+
+// edgeApplies returns nil when the edge-conditioned model handles family
+// fam of body b: a closed body of homogeneous, isotropic circular
+// sections with a strict step at every junction; else the reason, wrapping
+// ErrNotImplemented.
+func edgeApplies(b Body, fam cavity.Family) error {
+	if len(b.Sections) < 2 {
+		return fmt.Errorf("axisym: edge basis: a body of one section has no junction: %w", ErrNotImplemented)
+	}
+	if b.Open() {
+		return fmt.Errorf("axisym: edge basis: open body: %w", ErrNotImplemented)
+	}
+	if err := b.requireIsotropicFor(fam); err != nil {
+		return err
+	}
+	for i, sec := range b.Sections {
+		if sec.InnerRadius != 0 || len(sec.Layers) > 0 {
+			return fmt.Errorf("axisym: edge basis: section %d is coaxial or layered: %w", i+1, ErrNotImplemented)
+		}
+		if i > 0 && sec.Radius == b.Sections[i-1].Radius {
+			return fmt.Errorf("axisym: edge basis: sections %d and %d have one radius: %w", i, i+1, ErrNotImplemented)
+		}
+	}
+	return nil
 }

@@ -220,3 +220,74 @@ func TestEdgeFiveLowest(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkFiveLowestEdgeSolve is BenchmarkFiveLowest through Solve with
+// Request.EdgeBasis (default modes: 40 and 60 dynamic modes).
+func BenchmarkFiveLowestEdgeSolve(b *testing.B) {
+	body := fiveSections()
+	for b.Loop() {
+		r, err := Solve(body, Request{MaxFrequency: 10e9, Families: []cavity.Family{cavity.TM}, EdgeBasis: true})
+		if err != nil || len(r) != 5 || !r[0].EdgeBasis {
+			b.Fatal(len(r), err)
+		}
+	}
+}
+
+// TestEdgeSolveRequest checks Solve with EdgeBasis: the five-section body's
+// TM0 and TE0 lists come from the edge model, with estimates below 1e-8
+// and the labels of the default path; the default path's frequencies lie
+// within their own Change of them (order-2 truncation); Loss is present
+// and its G agrees with the default path's within twice the larger of the
+// two paths' changes of G from their coarse models (both from fields of
+// 40 and 60 modes; G converges slowly, see the package doc); a body the edge
+// model does not handle (a coaxial section) falls back to the default.
+func TestEdgeSolveRequest(t *testing.T) {
+	body := fiveSections()
+	edge, err := Solve(body, Request{MaxFrequency: 10e9, EdgeBasis: true, Losses: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	old, err := Solve(body, Request{MaxFrequency: 10e9, Losses: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(edge) != len(old) {
+		t.Fatalf("%d resonances with the edge basis, %d without", len(edge), len(old))
+	}
+	for i, e := range edge {
+		o := old[i]
+		if !e.EdgeBasis || e.Family != o.Family || e.Origin != o.Origin || e.Index != o.Index {
+			t.Errorf("#%d: edge %+v against default %+v", i, e, o)
+			continue
+		}
+		if e.Change > 1e-8*e.Frequency {
+			t.Errorf("%v0 #%d: estimate %.2g relative", e.Family, e.Index, e.Change/e.Frequency)
+		}
+		if d := math.Abs(e.Frequency - o.Frequency); d > o.Change {
+			t.Errorf("%v0 #%d: default %.12g Hz (change %.3g) against edge %.12g Hz", e.Family, e.Index, o.Frequency, o.Change, e.Frequency)
+		}
+		if e.Loss == nil || o.Loss == nil {
+			t.Errorf("%v0 #%d: no loss: %v", e.Family, e.Index, e.LossErr)
+			continue
+		}
+		if e.CoarseLoss == nil || o.CoarseLoss == nil {
+			t.Errorf("%v0 #%d: no coarse loss", e.Family, e.Index)
+			continue
+		}
+		// G converges slowly in the modes of the fields (package doc);
+		// each path's estimate is its change from the coarse model.
+		ce := math.Abs(e.Loss.G() - e.CoarseLoss.G())
+		co := math.Abs(o.Loss.G() - o.CoarseLoss.G())
+		d := math.Abs(e.Loss.G() - o.Loss.G())
+		if d > 2*max(ce, co) {
+			t.Errorf("%v0 #%d: G %.8g (edge, change %.2g) against %.8g (default, change %.2g)", e.Family, e.Index, e.Loss.G(), ce, o.Loss.G(), co)
+		}
+		t.Logf("%v0 #%d: %.12g Hz (estimate %.2g), default %.12g Hz (change %.2g); G %.8g (change %.2g) against %.8g (change %.2g)",
+			e.Family, e.Index, e.Frequency, e.Change/e.Frequency, o.Frequency, o.Change/o.Frequency, e.Loss.G(), ce, o.Loss.G(), co)
+	}
+	coax := Body{Sections: []Section{{Length: 0.02, Radius: 0.02, InnerRadius: 0.004}, {Length: 0.01, Radius: 0.02}}}
+	r, err := Solve(coax, Request{MaxFrequency: 8e9, EdgeBasis: true, Families: []cavity.Family{cavity.TM}})
+	if err != nil || len(r) == 0 || r[0].EdgeBasis {
+		t.Errorf("coaxial body: %v %v, want the default path", r, err)
+	}
+}
