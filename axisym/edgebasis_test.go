@@ -139,6 +139,9 @@ var edgeRef = []struct {
 	{"stepped", stepped, cavity.TM, 12e9, []float64{6074134657.8, 9721050842.81}, []float64{4.19, 5.28}},
 	{"stepped", stepped, cavity.TE, 12e9, []float64{11569262146.2}, []float64{1.54}},
 	{"fiveSections", fiveSections, cavity.TE, 10e9, []float64{6437531678.65, 8932410924.85}, []float64{1.49, 12.3}},
+	{"fiveSections", fiveSections, cavity.TM, 10e9,
+		[]float64{2915427518.5, 6000656813.33, 6527572440.63, 8301198786.3, 9631806758.65},
+		[]float64{68, 64.7, 28.1, 1.5, 165}},
 }
 
 // TestEdgeConvergence is deliverable 1 of the edge-conditioned path: the
