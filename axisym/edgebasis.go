@@ -736,6 +736,11 @@ func edgePair(b Body, fam cavity.Family, fmax float64, coarse, fine edgeOpts, wi
 	return out, nil
 }
 
+// EdgeBasisApplies returns nil when Solve with Request.EdgeBasis uses the
+// edge-conditioned junctions for family fam of body b (see edgeApplies),
+// else the reason, wrapping ErrNotImplemented.
+func EdgeBasisApplies(b Body, fam cavity.Family) error { return edgeApplies(b, fam) }
+
 // edgeApplies returns nil when the edge-conditioned model handles family
 // fam of body b: a closed body of homogeneous, isotropic circular
 // sections with a strict step at every junction; else the reason, wrapping

@@ -294,3 +294,43 @@ func TestEdgeSolveRequest(t *testing.T) {
 		t.Errorf("coaxial body: %v %v, want the default path", r, err)
 	}
 }
+
+// TestEdgeExampleBodies checks the estimate of Solve with EdgeBasis on the
+// bodies of examples/nosed-cell.yaml (TM0, steps 8/14/40 mm) and
+// examples/iris-pair.yaml (TE0, a 6 mm iris between 20 mm cells) against
+// a much larger model (15 functions per junction, 480 dynamic and 12800
+// static modes per unit R/a): the error is within the reported change.
+func TestEdgeExampleBodies(t *testing.T) {
+	if testing.Short() {
+		t.Skip("large reference models")
+	}
+	nosed := Body{Sections: []Section{
+		{Length: 0.015, Radius: 0.008}, {Length: 0.006, Radius: 0.014}, {Length: 0.030, Radius: 0.040},
+		{Length: 0.006, Radius: 0.014}, {Length: 0.015, Radius: 0.008},
+	}}
+	for _, c := range []struct {
+		name string
+		b    Body
+		fam  cavity.Family
+		fmax float64
+	}{
+		{"nosed cell", nosed, cavity.TM, 8e9},
+		{"iris pair", irisPair(0.040, 0.020, 0.006, 0.002), cavity.TE, 10.5e9},
+	} {
+		got, err := Solve(c.b, Request{MaxFrequency: c.fmax, Families: []cavity.Family{c.fam}, EdgeBasis: true})
+		if err != nil || len(got) == 0 {
+			t.Fatal(got, err)
+		}
+		ref, err := edgeResonances(c.b, c.fam, c.fmax, edgeOpts{k: 15, dyn: 480, static: 12800})
+		if err != nil || len(ref) != len(got) {
+			t.Fatal(ref, err)
+		}
+		for i, r := range got {
+			e := math.Abs(r.Frequency - ref[i])
+			t.Logf("%s %v0 #%d: %.12g Hz, change %.2g, error against the large model %.2g", c.name, c.fam, i+1, r.Frequency, r.Change/r.Frequency, e/r.Frequency)
+			if !r.EdgeBasis || e > r.Change {
+				t.Errorf("%s %v0 #%d: error %.3g Hz, change %.3g Hz (edge basis %v)", c.name, c.fam, i+1, e, r.Change, r.EdgeBasis)
+			}
+		}
+	}
+}
