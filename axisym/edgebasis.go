@@ -6,6 +6,7 @@ import (
 	"sort"
 
 	"cylcav/cavity"
+	"cylcav/physics"
 	"cylcav/physics/bessel"
 )
 
@@ -378,6 +379,22 @@ func newEdgeSystem(b Body, fam cavity.Family, fmax float64, o edgeOpts) (*system
 	if err != nil {
 		return nil, err
 	}
+	// The static split takes a line as long (coth(alpha l) = 1, no
+	// transfer): a short section keeps every mode with alpha l below
+	// edgeShort dynamic, alpha ~ (m - 1/4) pi / R (DLMF 10.21.19).
+	for i, sec := range b.Sections {
+		// The rest after the static split falls as (k/kc)^4: keep modes
+		// to kc = edgeAbove k dynamic (kc ~ m pi / R).
+		k := 2 * math.Pi * fmax / physics.SpeedOfLight * sec.maxIndex()
+		counts[i] = max(counts[i], int(edgeAbove*k*sec.Radius/math.Pi)+1)
+		if n := int(edgeShort*sec.Radius/(math.Pi*sec.Length)) + 1; n > counts[i] {
+			if n > edgeMaxDynamic {
+				return nil, fmt.Errorf("axisym: edge basis: section %d is too short for its radius (%g m against %g m): it would need %d modes: %w",
+					i+1, sec.Length, sec.Radius, n, ErrNotImplemented)
+			}
+			counts[i] = n
+		}
+	}
 	s := &system{fam: fam}
 	s.layers.guides = make([]*layeredGuide, len(b.Sections)) // none layered
 	for i, sec := range b.Sections {
@@ -591,6 +608,18 @@ func edgeModel(b Body, fam cavity.Family, fmax float64, o edgeOpts) ([]float64, 
 	return sv.out, s, nil
 }
 
+// edgeShort is the attenuation alpha l (nepers) above which a mode of a
+// section counts as on a long line: coth(alpha l) - 1 and csch(alpha l)
+// are then below 2 exp(-2 edgeShort) = 5e-16. edgeMaxDynamic bounds the
+// dynamic modes of a section (a body with thinner sections is refused).
+// edgeAbove is how far above the wavenumber (as a multiple) the dynamic
+// modes of every section reach (common practice; TestEdgeAgainstDefault).
+const (
+	edgeAbove      = 4
+	edgeShort      = 18
+	edgeMaxDynamic = 20000
+)
+
 // edgeRank is the relative eigenvalue of the static matrix below which a
 // direction of the basis is dropped (common practice: well above the
 // rounding of the sums, about 1e-16 times their largest terms).
@@ -685,10 +714,21 @@ var (
 	edgeFine   = edgeOpts{k: 12, dyn: 40, static: 800}
 )
 
+// edgeFloor is added, relative to the frequency, to the distance between
+// the coarse and the fine model to form Change: the coarse model differs
+// from the fine one mostly in the number of basis functions, and the fine
+// model's own truncation of the modal sums (about 1e-10 to 1e-9) can
+// exceed that distance when the two happen to agree closely. On the
+// bodies of TestEdgeAgainstDefault the fine model's error against a much
+// larger one exceeded the distance by at most 1e-9 relative; the floor
+// keeps twice that (common practice: a safety factor of two).
+const edgeFloor = 2e-9
+
 // edgeSolve returns the resonances of family fam below fmax by the
 // edge-conditioned model edgeFine, each with its convergence estimate: the
 // distance from the coarser model edgeCoarse (searched a little beyond
-// fmax so that every resonance has a partner; +Inf when none).
+// fmax so that every resonance has a partner; +Inf when none) plus
+// edgeFloor of the frequency.
 func edgeSolve(b Body, fam cavity.Family, fmax float64) (f, change []float64, err error) {
 	r, err := edgePair(b, fam, fmax, edgeCoarse, edgeFine, false)
 	if err != nil {
@@ -717,7 +757,7 @@ func edgePair(b Body, fam cavity.Family, fmax float64, coarse, fine edgeOpts, wi
 	for i, x := range ff {
 		r := Resonance{Family: fam, Index: i + 1, Frequency: x, Change: math.Inf(1), EdgeBasis: true}
 		if i < len(cf) {
-			r.Change, r.Coarse = math.Abs(x-cf[i]), cf[i]
+			r.Change, r.Coarse = math.Abs(x-cf[i])+edgeFloor*x, cf[i]
 		}
 		if withLoss {
 			if l, err := fs.losses(b, x); err != nil {

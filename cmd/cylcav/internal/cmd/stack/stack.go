@@ -620,7 +620,7 @@ func writeTable(w io.Writer, opts *Options, rows []Row, pr *PairRow) error {
 	method := "by axial mode matching; change: shift when the modes grow by half"
 	if opts.EdgeBasis {
 		method = "by axial mode matching, with edge-conditioned aperture fields at the steps where the body allows\n" +
-			"(--edge-basis); change: there, shift from 9 to 12 aperture functions per step, else when the modes grow by half"
+			"(--edge-basis); change: there, shift from 9 to 12 aperture functions per step plus 2e-9 of f, else when the modes grow by half"
 	}
 	fmt.Fprintf(w, "n = %d resonances below %s %s\n",
 		opts.Order, cmdutil.TrimZeros(physics.FormatFrequency(opts.FMax, 6)), method)
