@@ -79,9 +79,9 @@
 // functions per junction; Change is the shift from a coarser model with 9
 // (and fewer modes) plus 2e-9 of the frequency (edgeFloor: the fine
 // model's own truncation of the modal sums, which the shift can miss when
-// the two models happen to agree closely). A section shorter than about
-// 18/pi of its radius per mode keeps the modes that reach through it
-// dynamic (a thin iris). Losses and fields come from the modal voltages P c
+// the two models happen to agree closely). In a short section (a thin
+// iris) every mode with alpha l below 18 stays in the dynamic sums, since
+// the static split takes each line as long. Losses and fields come from the modal voltages P c
 // of each section, as in the default path.
 //
 // # Layered sections
