@@ -64,10 +64,11 @@ type edgeOpts struct {
 
 // fracJ fills out[j] = J_(alpha+j)(z), j = 0..len(out)-1, for 0 <= alpha < 1
 // and z > 0: Hankel's asymptotic expansion (DLMF 10.17.3) for large z, else
-// Miller's backward recurrence (DLMF 10.74(iv)) normalised by Neumann's
-// series (z/2)^alpha = sum_k (alpha+2k) Gamma(alpha+k)/k! J_(alpha+2k)(z)
-// (DLMF 10.23.E? recalled as the generating sum; the test checks the
-// result against mpmath).
+// Miller's backward recurrence (DLMF 3.6(iii) and 10.74(iv), as recalled)
+// normalised by Neumann's expansion (z/2)^alpha = sum_k (alpha+2k)
+// Gamma(alpha+k)/k! J_(alpha+2k)(z) (G. N. Watson, A Treatise on the
+// Theory of Bessel Functions, 2nd ed., 1944, sec. 5.2, as recalled; the
+// test checks the result against mpmath).
 func fracJ(alpha, z float64, out []float64) {
 	n := len(out)
 	top := alpha + float64(n)
