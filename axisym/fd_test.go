@@ -64,6 +64,16 @@ func TestSteppedFiniteDifference(t *testing.T) {
 		t.Errorf("TE0 #1 = %.9g Hz, want %.9g Hz (finite differences, accuracy %.2g), rel. difference %.2g",
 			got[0].Frequency, fd, acc, d)
 	}
+	// The edge-conditioned path (edgebasis.go) against the same reference.
+	edge, _, err := edgeSolve(b, cavity.TE, 12e9)
+	if err != nil || len(edge) == 0 {
+		t.Fatal(edge, err)
+	}
+	d := math.Abs(edge[0]-fd) / fd
+	t.Logf("edge basis %.12g Hz, rel. difference %.2g", edge[0], d)
+	if d > acc {
+		t.Errorf("edge basis: TE0 #1 = %.9g Hz, want %.9g Hz (finite differences, accuracy %.2g)", edge[0], fd, acc)
+	}
 }
 
 // TestReentrantFiniteDifference repeats test group 5 for a coaxial

@@ -58,5 +58,18 @@ func TestTMFiniteDifference(t *testing.T) {
 			t.Errorf("%s: TM0 #1 = %.9g Hz, want %.9g Hz (finite volumes, accuracy %.2g), rel. difference %.2g",
 				tc.name, got[0].Frequency, fd, acc, d)
 		}
+		if tc.name != "stepped" {
+			continue
+		}
+		// The edge-conditioned path (edgebasis.go) against the same reference.
+		edge, _, err := edgeSolve(tc.b, cavity.TM, 8e9)
+		if err != nil || len(edge) == 0 {
+			t.Fatal(edge, err)
+		}
+		d = math.Abs(edge[0]-fd) / fd
+		t.Logf("%s: edge basis %.12g Hz, rel. difference %.2g", tc.name, edge[0], d)
+		if d > acc {
+			t.Errorf("%s: edge basis: TM0 #1 = %.9g Hz, want %.9g Hz (finite volumes, accuracy %.2g)", tc.name, edge[0], fd, acc)
+		}
 	}
 }

@@ -618,6 +618,9 @@ func (s *system) losses(b Body, f float64) (Loss, error) {
 			if o.Radius == sec.Radius && o.InnerRadius == sec.InnerRadius {
 				continue // one cross-section: no face
 			}
+			if s.static != nil && o.Radius >= sec.Radius {
+				continue // edge basis (edgebasis.go): T on both sides; the face is on the wider one
+			}
 			I := make([]float64, len(ln.kc))
 			for m := range ln.kc {
 				_, I[m] = lf[m].at(sd.z)

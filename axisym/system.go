@@ -21,12 +21,14 @@ import (
 // generalised-admittance form of axial mode matching (Wexler 1967; Patzelt
 // and Arndt 1982; Itoh (ed.) 1989, ch. 9).
 type system struct {
-	fam    cavity.Family
-	lines  []lines
-	joins  []join
-	ndof   int
-	offset int        // see count
-	layers layerState // radially layered sections (layered_system.go)
+	fam     cavity.Family
+	lines   []lines
+	joins   []join
+	ndof    int
+	offset  int        // see count
+	layers  layerState // radially layered sections (layered_system.go)
+	static  []float64  // constant part of the junction matrix (edgebasis.go), or nil
+	static2 []float64  // its part proportional to k0^2 (edgebasis.go)
 }
 
 // lines is one section's set of modal transmission lines.
@@ -37,6 +39,8 @@ type lines struct {
 	b11, b12 []float64 // scratch: driving-point and transfer susceptance per mode
 	open     bool      // an open end section: the lines run on into the pipe (open.go)
 	beta2    []float64 // layered section: beta^2 per mode at the current frequency (else nil)
+	sub      []float64 // static b11 per mode held in system.static (edgebasis.go), or nil
+	sub2     []float64 // its k0^2 coefficient, held in system.static2
 }
 
 // join is one junction between sections i (left) and i+1 (right).
@@ -148,6 +152,12 @@ func lineSusceptance(fam cavity.Family, beta2, l, eps, mu float64) (b11, b12 flo
 func (s *system) eval(f float64, a []float64) (j0 int) {
 	clear(a)
 	k0 := 2 * math.Pi * f / physics.SpeedOfLight
+	if s.static != nil {
+		copy(a, s.static)
+		for i, v := range s.static2 {
+			a[i] += k0 * k0 * v
+		}
+	}
 	s.refreshLayers(k0)
 	for i := range s.lines {
 		ln := &s.lines[i]
@@ -160,6 +170,9 @@ func (s *system) eval(f float64, a []float64) (j0 int) {
 			b11, b12, poles := lineSusceptance(s.fam, beta2, ln.length, ln.eps, ln.mu)
 			if ln.open {
 				b11, b12, poles = openSusceptance(s.fam, beta2, ln.eps, ln.mu), 0, 0
+			}
+			if ln.sub != nil {
+				b11 -= ln.sub[m] + k0*k0*ln.sub2[m]
 			}
 			ln.b11[m], ln.b12[m] = b11, b12
 			j0 += poles
