@@ -76,8 +76,8 @@ func accelSection(r design.Result) ([]Table, []string) {
 			fmt.Sprintf("%.0f W per W: Carnot %.0f W/W at %.0f %% of Carnot (common practice for large helium plants; small ones do worse)", h.Specific, h.Carnot, 100*h.Efficiency))
 	}
 	if m := a.Margins; m != nil {
-		fig.add(false, "Peak surface magnetic field Bpk", fmt.Sprintf("%.4g mT", m.Bpk*1e3), fmt.Sprintf("%.2f× below the quench guide %.4g mT", m.BMargin, m.Limits.Quench*1e3))
-		fig.add(false, "Peak surface electric field Epk", fmt.Sprintf("%.4g MV/m", m.Epk*1e-6), fmt.Sprintf("%.2f× below the field-emission guide %.4g MV/m", m.EMargin, m.Limits.FieldEmission*1e-6))
+		fig.add(false, "Peak surface magnetic field Bpk", fmt.Sprintf("%.4g mT", m.Bpk*1e3), fmt.Sprintf("%s the quench guide %.4g mT", m.QuenchWords(), m.Limits.Quench*1e3))
+		fig.add(false, "Peak surface electric field Epk", fmt.Sprintf("%.4g MV/m", m.Epk*1e-6), fmt.Sprintf("%s the field-emission guide %.4g MV/m", m.EmissionWords(), m.Limits.FieldEmission*1e-6))
 		notes = append(notes, "Quench guide: "+m.Limits.QuenchSource+". Field-emission guide: "+m.Limits.FieldEmissionSource+". Both are guides, not limits: real cavities quench at defects and emit from particles at lower fields.")
 	}
 	tables = append(tables, fig)

@@ -231,6 +231,23 @@ type Margins struct {
 	AboveQuench, Emitted bool // Bpk >= Quench, Epk >= FieldEmission
 }
 
+// QuenchWords and EmissionWords state Bpk and Epk against their guides in
+// words, from the verdicts AboveQuench and Emitted: "1.23x below" under
+// the guide, "AT OR ABOVE (2.5x)" on or over it, so that no output reads
+// "0.07x below" for a field far above its guide. Every command and the
+// datasheet print these.
+func (m Margins) QuenchWords() string { return marginWords(m.BMargin, m.AboveQuench) }
+
+// EmissionWords: see QuenchWords.
+func (m Margins) EmissionWords() string { return marginWords(m.EMargin, m.Emitted) }
+
+func marginWords(margin float64, above bool) string {
+	if above {
+		return fmt.Sprintf("AT OR ABOVE (%.3gx)", 1/margin)
+	}
+	return fmt.Sprintf("%.2fx below", margin)
+}
+
 // FieldMargins returns the peak surface fields of the mode of a at
 // gradient eacc (V/m), Epk = (Epk/Eacc) Eacc and Bpk = (Bpk/Eacc) Eacc
 // (Padamsee et al. 2008, ch. 1), and their margins to the limits l.

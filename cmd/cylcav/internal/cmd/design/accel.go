@@ -244,8 +244,8 @@ func writeAccelTable(w io.Writer, r design.Result) {
 			physics.FormatTemperature(h.Bath, 4), mw(h.Load), mw(h.WallPlug), h.Specific, h.Carnot, 100*h.Efficiency)
 	}
 	if m := a.Margins; m != nil {
-		fmt.Fprintf(w, "  Bpk = %.4g mT: %s the quench guide %.4g mT (%s)\n", m.Bpk*1e3, marginText(m.BMargin, m.AboveQuench), m.Limits.Quench*1e3, m.Limits.QuenchSource)
-		fmt.Fprintf(w, "  Epk = %.4g MV/m: %s the field-emission guide %.4g MV/m (%s)\n", m.Epk*1e-6, marginText(m.EMargin, m.Emitted), m.Limits.FieldEmission*1e-6, m.Limits.FieldEmissionSource)
+		fmt.Fprintf(w, "  Bpk = %.4g mT: %s the quench guide %.4g mT (%s)\n", m.Bpk*1e3, m.QuenchWords(), m.Limits.Quench*1e3, m.Limits.QuenchSource)
+		fmt.Fprintf(w, "  Epk = %.4g MV/m: %s the field-emission guide %.4g MV/m (%s)\n", m.Epk*1e-6, m.EmissionWords(), m.Limits.FieldEmission*1e-6, m.Limits.FieldEmissionSource)
 		fmt.Fprintf(w, "  these guides are not limits: real cavities quench and emit at lower fields\n")
 	}
 	if k := a.Coupling; k != nil {
@@ -290,15 +290,4 @@ func writeAccelTable(w io.Writer, r design.Result) {
 	for _, n := range a.Notes {
 		fmt.Fprintf(w, "  note: %s\n", n)
 	}
-}
-
-// marginText states a peak field against its guide from the margin
-// (guide over peak) and the library's verdict (qfactor.Margins): "1.23x
-// below" under the guide, "AT OR ABOVE (2.5x)" on or over it, so that the
-// line never reads "0.07x below" for a field far above its guide.
-func marginText(margin float64, above bool) string {
-	if above {
-		return fmt.Sprintf("AT OR ABOVE (%.3gx)", 1/margin)
-	}
-	return fmt.Sprintf("%.2fx below", margin)
 }
