@@ -55,7 +55,7 @@ const maxRegionLevels = 6
 //
 // Errors: l without fields, a body with an open end (wrapping
 // ErrNotImplemented), a bulb with a radius or length that is not
-// positive, a bulb not inside the body's free space (every section it
+// positive, a bulb not inside the body (every section it
 // overlaps must be circular, with a radius at least the bulb's, and the
 // bulb must end inside the body), a tolerance outside (0, 1e-2], and a
 // quadrature that does not converge.

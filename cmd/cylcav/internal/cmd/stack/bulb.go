@@ -41,7 +41,7 @@ func addBulbFlags(cmd *cobra.Command, b *BulbOptions) {
 }
 
 // checkBulb checks the bulb against the body before any work: it must lie
-// in the body's free space (axisym.Loss.Filling's rule).
+// inside the body's circular sections (axisym.Loss.Filling's rule).
 func checkBulb(b BulbOptions, body axisym.Body) error {
 	if b.Diameter == 0 {
 		return nil

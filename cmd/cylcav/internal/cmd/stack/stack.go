@@ -207,7 +207,9 @@ add the filling factors of a storage bulb on the axis to every resonance:
 the fractions of the mode's magnetic energy along z, of all its magnetic
 energy and of its electric energy inside the bulb, and the maser filling
 factor eta', from the matched fields (a dielectric-loaded can included).
-The bulb must lie in free space of circular sections.
+The bulb must lie inside circular sections (no inner conductor) and within
+the body; where it reaches into a dielectric fill or layer, its electric
+fraction is weighted by that eps_r.
 
 --bunch-freq F gives every resonance its nearest beam harmonic and flags
 a TM0 resonance NEAR within --harmonic-window (default 0.5 %%) of one (a
