@@ -88,10 +88,6 @@ func VerdictText(c filter.Check) string {
 	return c.Verdict.String()
 }
 
-// matrixZero is the magnitude below which a coupling-matrix entry is set
-// as 0 (synthesis rounding; see filterplot.TopologyZero).
-const matrixZero = filterplot.TopologyZero
-
 // FromFilter assembles the datasheet of a filter, drawing its charts in
 // theme th: the specification with the verdict of every mask line, the
 // topology diagram, the coupling matrix, the resonators, the coupling
@@ -221,7 +217,7 @@ func FromFilter(in Filter, th figure.Theme) (*Sheet, error) {
 	sh.Sections = append(sh.Sections, Section{SecTopology, []Block{{Chart: topo}, {Note: strings.Join(tp.Notes, " ")}}})
 
 	// 3. Coupling matrix, couplings and external Q.
-	mt := Table{Caption: fmt.Sprintf("Coupling matrix M, normalised (N+2 = %d, rows and columns S, 1..%d, L; |M| < %g set as 0)", n+2, n, matrixZero)}
+	mt := Table{Caption: fmt.Sprintf("Coupling matrix M, normalised (N+2 = %d, rows and columns S, 1..%d, L; |M| < %g set as 0)", n+2, n, filter.MatrixZero)}
 	mt.Header = append(mt.Header, "")
 	mt.Num = append(mt.Num, false)
 	for j := 0; j < n+2; j++ {
@@ -231,17 +227,17 @@ func FromFilter(in Filter, th figure.Theme) (*Sheet, error) {
 	for i := 0; i < n+2; i++ {
 		row := []string{rowName(i, n)}
 		for j := 0; j < n+2; j++ {
-			row = append(row, minus(strconv.FormatFloat(cleanM(d, i, j), 'f', 4, 64)))
+			row = append(row, minus(strconv.FormatFloat(d.Entry(i, j), 'f', 4, 64)))
 		}
 		mt.add(false, row...)
 	}
 	kt := Table{Caption: "Physical couplings k = FBW·M and external Q", Header: []string{"Coupling", "M", "k", "Kind"}, Num: []bool{false, true, true, false}}
 	for i := 1; i < n; i++ {
-		kt.add(false, fmt.Sprintf("%d–%d", i, i+1), num6(cleanM(d, i, i+1)), num6(d.FBW*cleanM(d, i, i+1)), "main line")
+		kt.add(false, fmt.Sprintf("%d–%d", i, i+1), num6(d.Entry(i, i+1)), num6(d.FBW*d.Entry(i, i+1)), "main line")
 	}
 	for i := 0; i < n+2; i++ {
 		for j := i + 2; j < n+2; j++ {
-			if m := cleanM(d, i, j); m != 0 {
+			if m := d.Entry(i, j); m != 0 {
 				kt.add(false, rowName(i, n)+"–"+rowName(j, n), num6(m), num6(d.FBW*m), "cross")
 			}
 		}
@@ -621,19 +617,6 @@ func manufactureBlocks(in Filter) []Block {
 		out = append(out, Block{Table: &t}, Block{Para: fmt.Sprintf("Power limit (first estimate): %s, set by resonator %d. Read the section Cautions before applying power.", physics.FormatSI(p.Limit, "W", 4), p.Worst)})
 	}
 	return out
-}
-
-// cleanM returns entry (i, j) of the folded matrix read from the upper
-// triangle, with rounding noise below matrixZero set to 0.
-func cleanM(d *filter.Design, i, j int) float64 {
-	if i > j {
-		i, j = j, i
-	}
-	v := d.Folded.At(i, j)
-	if math.Abs(v) < matrixZero {
-		return 0
-	}
-	return v
 }
 
 // rowName names row i of an N+2 matrix: S, 1..N, L.

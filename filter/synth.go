@@ -77,6 +77,27 @@ type Design struct {
 	Topology Topology
 }
 
+// MatrixZero is the magnitude below which an entry of a synthesised
+// coupling matrix is rounding left by the plane rotations (about 1e-13;
+// see the package documentation), not a coupling: Entry returns it as 0,
+// and the outputs print and draw it as no coupling.
+const MatrixZero = 1e-9
+
+// Entry returns M_ij of the folded matrix as the outputs show it: read from
+// the upper triangle, so that the printed matrix is exactly symmetric (the
+// rotations leave the two triangles apart by rounding) and k = FBW M holds
+// for the printed values, with |M| < MatrixZero set to 0.
+func (d *Design) Entry(i, j int) float64 {
+	if i > j {
+		i, j = j, i
+	}
+	v := d.Folded.At(i, j)
+	if math.Abs(v) < MatrixZero {
+		return 0
+	}
+	return v
+}
+
 // Order returns the number of resonators N.
 func (d *Design) Order() int { return d.Spec.Order }
 

@@ -22,7 +22,7 @@ import (
 // TopologyZero is the magnitude below which a matrix entry is taken as no
 // coupling: synthesis leaves rounding of about 1e-13 where the pattern has
 // zeros (package filter), far below any coupling.
-const TopologyZero = 1e-9
+const TopologyZero = filter.MatrixZero
 
 // TopologyNode is one node of the diagram: Index 0 is the source, N+1 the
 // load, 1..N the resonators. X and Y are its place in layout units (one

@@ -12,26 +12,6 @@ import (
 	"cylcav/physics"
 )
 
-// matrixZero is the magnitude below which a coupling-matrix entry is
-// printed as 0: synthesis leaves rounding of about 1e-13 where the folded
-// pattern has zeros (filter package documentation), far below any coupling.
-const matrixZero = 1e-12
-
-// cleanM returns entry (i, j) of the folded matrix with rounding noise
-// removed, read from the upper triangle so that the printed matrix is
-// exactly symmetric (the plane rotations of the reduction leave the two
-// triangles apart by rounding) and k = FBW M holds for the printed values.
-func cleanM(d *bandpass.Design, i, j int) float64 {
-	if i > j {
-		i, j = j, i
-	}
-	v := d.Folded.At(i, j)
-	if math.Abs(v) < matrixZero {
-		return 0
-	}
-	return v
-}
-
 // checkName names a check for people: "return loss", "passband ripple",
 // "rejection from 10.25 GHz" (a rejection holds from F outwards).
 func checkName(c bandpass.Check) string {
@@ -207,7 +187,7 @@ func (r *Result) WriteTable(w io.Writer) error {
 
 	r.writeSpace(&b)
 
-	fmt.Fprintf(&b, "\nCoupling matrix M, %s, normalised (N+2 = %d; |M| < %g printed as 0)\n", matrixTitle(d), n+2, matrixZero)
+	fmt.Fprintf(&b, "\nCoupling matrix M, %s, normalised (N+2 = %d; |M| < %g printed as 0)\n", matrixTitle(d), n+2, bandpass.MatrixZero)
 	t := cmdutil.NewTable(&b)
 	head := []string{" "}
 	for j := 0; j < n+2; j++ {
@@ -217,7 +197,7 @@ func (r *Result) WriteTable(w io.Writer) error {
 	for i := 0; i < n+2; i++ {
 		row := []string{"  " + rowName(i, n)}
 		for j := 0; j < n+2; j++ {
-			row = append(row, fmt.Sprintf("%8.4f", cleanM(d, i, j)))
+			row = append(row, fmt.Sprintf("%8.4f", d.Entry(i, j)))
 		}
 		t.Row(row...)
 	}
@@ -228,11 +208,11 @@ func (r *Result) WriteTable(w io.Writer) error {
 	fmt.Fprintf(&b, "\nPhysical couplings (k = FBW * M) and external Q\n")
 	t = cmdutil.NewTable(&b, "  coupling", fmt.Sprintf("%9s", "M"), fmt.Sprintf("%10s", "k"))
 	for i := 1; i < n; i++ {
-		t.Row(fmt.Sprintf("  k%d,%d", i, i+1), fmt.Sprintf("%9.6f", cleanM(d, i, i+1)), fmt.Sprintf("%10.6f", d.Coupling(i, i+1)))
+		t.Row(fmt.Sprintf("  k%d,%d", i, i+1), fmt.Sprintf("%9.6f", d.Entry(i, i+1)), fmt.Sprintf("%10.6f", d.Coupling(i, i+1)))
 	}
 	for i := 0; i < n+2; i++ {
 		for j := i + 2; j < n+2; j++ {
-			if m := cleanM(d, i, j); math.Abs(m) > 1e-9 {
+			if m := d.Entry(i, j); m != 0 {
 				t.Row(fmt.Sprintf("  cross %s-%s", rowName(i, n), rowName(j, n)), fmt.Sprintf("%9.6f", m), fmt.Sprintf("%10.6f", d.FBW*m))
 			}
 		}
@@ -243,7 +223,7 @@ func (r *Result) WriteTable(w io.Writer) error {
 	fmt.Fprintf(&b, "  Qext in = %.6g, Qext out = %.6g\n", d.QextIn, d.QextOut)
 	var detuned []string
 	for i := 1; i <= n; i++ {
-		if m := cleanM(d, i, i); math.Abs(m) > 1e-9 {
+		if m := d.Entry(i, i); m != 0 {
 			detuned = append(detuned, fmt.Sprintf("%d: %s", i, ff(bandpass.BandpassFrequency(-m, s.F0, s.BW))))
 		}
 	}
@@ -586,7 +566,7 @@ func (r *Result) JSON() Output {
 		Warnings:              append([]string{}, r.Warnings...),
 		Convention:            ConventionNote,
 		Notes:                 []string{FieldSolverNote},
-		MatrixZeroThreshold:   matrixZero,
+		MatrixZeroThreshold:   bandpass.MatrixZero,
 		ModeIndexConvention:   "n azimuthal, m radial, p axial",
 	}
 	if s.Family == bandpass.Chebyshev {
@@ -603,12 +583,12 @@ func (r *Result) JSON() Output {
 	for i := range o.CouplingMatrix {
 		o.CouplingMatrix[i] = make([]float64, n+2)
 		for j := range o.CouplingMatrix[i] {
-			o.CouplingMatrix[i][j] = cleanM(d, i, j)
+			o.CouplingMatrix[i][j] = d.Entry(i, j)
 		}
 	}
 	for i := 0; i < n+2; i++ {
 		for j := i + 2; j < n+2; j++ {
-			if m := cleanM(d, i, j); math.Abs(m) > 1e-9 {
+			if m := d.Entry(i, j); m != 0 {
 				o.Cross = append(o.Cross, CrossOut{From: i, To: j, M: m, K: d.FBW * m})
 			}
 		}
