@@ -274,25 +274,7 @@ func (h *hybridSystem) eval(f float64, a []float64) (j0 int) {
 			ln.b11[m], ln.b12[m] = b11*scale, b12*scale
 			j0 += poles
 		}
-		var jl, jr *join
-		var tl, tr []float64
-		if i > 0 {
-			jl = &s.joins[i-1]
-			tl = jl.right
-		}
-		if i < len(s.joins) {
-			jr = &s.joins[i]
-			tr = jr.left
-		}
-		if jl != nil {
-			s.add(a, jl, jl, tl, tl, ln.b11)
-		}
-		if jr != nil {
-			s.add(a, jr, jr, tr, tr, ln.b11)
-		}
-		if jl != nil && jr != nil {
-			s.add(a, jl, jr, tl, tr, ln.b12)
-		}
+		s.addLine(a, i, ln)
 	}
 	return j0
 }

@@ -177,27 +177,34 @@ func (s *system) eval(f float64, a []float64) (j0 int) {
 			ln.b11[m], ln.b12[m] = b11, b12
 			j0 += poles
 		}
-		var jl, jr *join
-		var tl, tr []float64
-		if i > 0 {
-			jl = &s.joins[i-1]
-			tl = jl.right
-		}
-		if i < len(s.joins) {
-			jr = &s.joins[i]
-			tr = jr.left
-		}
-		if jl != nil {
-			s.add(a, jl, jl, tl, tl, ln.b11)
-		}
-		if jr != nil {
-			s.add(a, jr, jr, tr, tr, ln.b11)
-		}
-		if jl != nil && jr != nil {
-			s.add(a, jl, jr, tl, tr, ln.b12)
-		}
+		s.addLine(a, i, ln)
 	}
 	return j0
+}
+
+// addLine adds section i's line ln (its driving-point and transfer
+// susceptances) to a, between the junctions on either side of it (none at
+// a plate or an open end).
+func (s *system) addLine(a []float64, i int, ln *lines) {
+	var jl, jr *join
+	var tl, tr []float64
+	if i > 0 {
+		jl = &s.joins[i-1]
+		tl = jl.right
+	}
+	if i < len(s.joins) {
+		jr = &s.joins[i]
+		tr = jr.left
+	}
+	if jl != nil {
+		s.add(a, jl, jl, tl, tl, ln.b11)
+	}
+	if jr != nil {
+		s.add(a, jr, jr, tr, tr, ln.b11)
+	}
+	if jl != nil && jr != nil {
+		s.add(a, jl, jr, tl, tr, ln.b12)
+	}
 }
 
 // add adds Ta^T diag(d) Tb to the block (ja, jb) of a (upper triangle only

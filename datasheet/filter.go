@@ -4,13 +4,11 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot/vg"
 
-	"cylcav/cavity"
 	"cylcav/figure"
 	"cylcav/filter"
 	"cylcav/filterplot"
@@ -356,58 +354,18 @@ func resonatorBlocks(in Filter) []Block {
 	// Spurious resonances near the band.
 	st := Table{Caption: fmt.Sprintf("Spurious resonances of the cavities from %s to %s", freq(rz.Window[0]), freq(rz.Window[1])),
 		Header: []string{"Mode", "f", "Offset from f0", "Cavities", "Where"}, Num: []bool{false, true, true, false, false}}
-	for _, g := range spuriousGroups(rz) {
-		at, off := freq(g.lo), signedPct(g.lo/d.Spec.F0-1)
-		if g.hi > g.lo {
-			at += " .. " + freq(g.hi)
-			off += " .. " + signedPct(g.hi/d.Spec.F0-1)
+	for _, g := range rz.SpuriousGroups() {
+		at, off := freq(g.FMin), signedPct(g.FMin/d.Spec.F0-1)
+		if g.FMax > g.FMin {
+			at += " .. " + freq(g.FMax)
+			off += " .. " + signedPct(g.FMax/d.Spec.F0-1)
 		}
-		st.add(g.alarm, g.mode.String(), at, off, resonatorList(g.res), g.where)
+		st.add(g.Alarm(), g.Mode.String(), at, off, resonatorList(g.Resonators), g.Where())
 	}
 	if len(st.Rows) == 0 {
 		out = append(out, Block{Para: st.Caption + ": none."})
 	} else {
 		out = append(out, Block{Table: &st})
-	}
-	return out
-}
-
-// spuriousGroup is one spurious mode of the cavities, its frequency range
-// over the resonators.
-type spuriousGroup struct {
-	mode   cavity.Mode
-	lo, hi float64
-	res    []int
-	alarm  bool
-	where  string
-}
-
-// spuriousGroups merges the realisation's spurious resonances by mode.
-func spuriousGroups(rz *filter.Realisation) []spuriousGroup {
-	var out []spuriousGroup
-	index := map[cavity.Mode]int{}
-	for _, sp := range rz.Spurious {
-		i, ok := index[sp.Mode]
-		if !ok {
-			index[sp.Mode] = len(out)
-			out = append(out, spuriousGroup{mode: sp.Mode, lo: sp.F, hi: sp.F, where: "outside the passband and the rejection bands"})
-			i = len(out) - 1
-		}
-		g := &out[i]
-		g.lo, g.hi = math.Min(g.lo, sp.F), math.Max(g.hi, sp.F)
-		g.res = append(g.res, sp.Resonators...)
-		switch {
-		case sp.Companion:
-			g.where = "exact companion of the wanted mode"
-		case sp.InPassband:
-			g.where, g.alarm = "IN THE PASSBAND", true
-		case sp.Stopband >= 0 && !g.alarm:
-			g.where, g.alarm = "IN A REJECTION BAND", true
-		}
-	}
-	for i := range out {
-		slices.Sort(out[i].res)
-		out[i].res = slices.Compact(out[i].res)
 	}
 	return out
 }
@@ -518,10 +476,10 @@ func responseBlocks(in Filter, th figure.Theme) ([]Block, error) {
 	lo := math.Max(rz.Window[0], s.F0*(1-filter.ModelOffset))
 	hi := math.Min(rz.Window[1], s.F0*(1+filter.ModelOffset))
 	var ms []filterplot.Marker
-	for _, g := range spuriousGroups(rz) {
+	for _, g := range rz.SpuriousGroups() {
 		// One marker per mode, at the middle of its range over the
 		// resonators (the table gives the range).
-		ms = append(ms, filterplot.Marker{F: (g.lo + g.hi) / 2, Label: g.mode.String(), Alarm: g.alarm})
+		ms = append(ms, filterplot.Marker{F: (g.FMin + g.FMax) / 2, Label: g.Mode.String(), Alarm: g.Alarm()})
 	}
 	notes := []string{"The coupling-matrix response knows only the wanted mode: each spurious resonance of the cavities is marked where it lies, and near it the built filter passes or reflects power that this curve does not show."}
 	if len(ms) == 0 {

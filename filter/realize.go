@@ -130,6 +130,67 @@ type Spurious struct {
 	Stopband int
 }
 
+// SpuriousGroup is one spurious mode of the cavities near the band, its
+// resonances merged over the resonators: those of a filter with detuned
+// resonators lie at slightly different frequencies, listed as one range.
+type SpuriousGroup struct {
+	Mode       cavity.Mode
+	FMin, FMax float64 // Hz
+	Resonators []int   // sorted, each once
+	Companion  bool
+	InPassband bool // any of its resonances lies in the passband
+	// Stopband is the first rejection band holding one of its
+	// resonances, or -1.
+	Stopband int
+}
+
+// Alarm reports whether the mode lies in the passband or a rejection band
+// (the wanted mode's exact companion, which every cylinder has at f0, is
+// reported as such instead).
+func (g SpuriousGroup) Alarm() bool {
+	return !g.Companion && (g.InPassband || g.Stopband >= 0)
+}
+
+// Where says where the mode lies, in the words every output uses.
+func (g SpuriousGroup) Where() string {
+	switch {
+	case g.Companion:
+		return "exact companion of the wanted mode"
+	case g.InPassband:
+		return "IN THE PASSBAND"
+	case g.Stopband >= 0:
+		return "IN A REJECTION BAND"
+	}
+	return "outside the passband and the rejection bands"
+}
+
+// SpuriousGroups merges rz.Spurious by mode, in the order each mode first
+// appears there.
+func (rz *Realisation) SpuriousGroups() []SpuriousGroup {
+	var out []SpuriousGroup
+	index := map[cavity.Mode]int{}
+	for _, sp := range rz.Spurious {
+		i, ok := index[sp.Mode]
+		if !ok {
+			index[sp.Mode] = len(out)
+			out = append(out, SpuriousGroup{Mode: sp.Mode, FMin: sp.F, FMax: sp.F, Companion: sp.Companion, Stopband: -1})
+			i = len(out) - 1
+		}
+		g := &out[i]
+		g.FMin, g.FMax = math.Min(g.FMin, sp.F), math.Max(g.FMax, sp.F)
+		g.Resonators = append(g.Resonators, sp.Resonators...)
+		g.InPassband = g.InPassband || sp.InPassband
+		if g.Stopband < 0 {
+			g.Stopband = sp.Stopband
+		}
+	}
+	for i := range out {
+		slices.Sort(out[i].Resonators)
+		out[i].Resonators = slices.Compact(out[i].Resonators)
+	}
+	return out
+}
+
 // Aperture is the realisation of one main-line coupling k_{i,i+1}.
 type Aperture struct {
 	From, To int // resonators, To = From + 1

@@ -465,7 +465,7 @@ func (f *FabResult) json() *FabOut {
 		for _, e := range []bandpass.DriftEnd{dr.Low, dr.High} {
 			eo := DriftEndOut{T: e.T, F: e.F, Shift: e.Shift, Verdict: verdictKey(e.Verdict), Pass: e.Verdict == bandpass.Met, Checks: []CheckOut{}}
 			for _, c := range e.Checks {
-				eo.Checks = append(eo.Checks, fabCheckOut(c))
+				eo.Checks = append(eo.Checks, checkOut(c))
 			}
 			do.Ends = append(do.Ends, eo)
 		}
@@ -482,8 +482,9 @@ func (f *FabResult) json() *FabOut {
 	return o
 }
 
-// fabCheckOut is the JSON form of one check line of a drifted filter.
-func fabCheckOut(c bandpass.Check) CheckOut {
+// checkOut is the JSON form of one check line (the spurious mode that
+// fails a line is added by the caller that has it).
+func checkOut(c bandpass.Check) CheckOut {
 	co := CheckOut{Name: c.Name, Required: finite(c.Required), Achieved: finite(c.Achieved), AtLeast: c.AtLeast, Pass: c.Pass,
 		Verdict: verdictKey(c.Verdict), Stated: !c.Info, Note: c.Note}
 	if c.Info {

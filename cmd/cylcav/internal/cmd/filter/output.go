@@ -320,13 +320,13 @@ func writeCavities(b *strings.Builder, r *Result, ff func(float64) string) {
 	} else {
 		t = cmdutil.NewTable(b, "  mode", "f", "offset from f0", "cavities", "where")
 		f0 := r.Design.Spec.F0
-		for _, g := range groupSpurious(rz) {
+		for _, g := range rz.SpuriousGroups() {
 			at, off := ff(g.FMin), percent(g.FMin/f0-1)
 			if g.FMax > g.FMin {
 				at += ".." + ff(g.FMax)
 				off += ".." + percent(g.FMax/f0-1)
 			}
-			t.Row("  "+g.Mode.String(), at, off, resonators(g.Resonators), spuriousWhere(g))
+			t.Row("  "+g.Mode.String(), at, off, resonators(g.Resonators), g.Where())
 		}
 		_ = t.Flush()
 	}
@@ -360,18 +360,6 @@ func writeCavities(b *strings.Builder, r *Result, ff func(float64) string) {
 			fmt.Sprintf("realise with a field solver or by measurement: reflected group delay %.4g ns", p.GroupDelay*1e9))
 	}
 	_ = t.Flush()
-}
-
-func spuriousWhere(g SpuriousGroup) string {
-	switch {
-	case g.Companion:
-		return "exact companion of the wanted mode"
-	case g.InPassband:
-		return "IN THE PASSBAND"
-	case g.Stopband >= 0:
-		return "IN A REJECTION BAND"
-	}
-	return "outside the passband and the rejection bands"
 }
 
 func resonators(r []int) string {
@@ -619,21 +607,7 @@ func (r *Result) JSON() Output {
 		}
 	}
 	for _, c := range r.Checks {
-		co := CheckOut{Name: c.Name, Required: finite(c.Required), Achieved: finite(c.Achieved), AtLeast: c.AtLeast, Pass: c.Pass,
-			Verdict: verdictKey(c.Verdict), Stated: !c.Info, Note: c.Note}
-		if c.Info {
-			co.Verdict = "info"
-		}
-		if c.F != 0 {
-			co.F = finite(c.F)
-		}
-		if c.Band[1] > 0 {
-			b := c.Band
-			co.Band = &b
-		}
-		if c.Worst != 0 && !math.IsNaN(c.Achieved) {
-			co.WorstF = finite(c.Worst)
-		}
+		co := checkOut(c)
 		if sp := c.Spurious; sp != nil {
 			m := sp.Mode.String()
 			co.SpuriousMode, co.SpuriousF = &m, finite(sp.F)

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 	"strings"
 
 	"cylcav/cavity"
@@ -345,46 +344,6 @@ func qText(v float64) string {
 	return fmt.Sprintf("%.5g", v)
 }
 
-// SpuriousGroup is one spurious mode of the cavities near the band: the
-// resonators of a filter with detuned resonators see it at slightly
-// different frequencies, which are listed as one range.
-type SpuriousGroup struct {
-	Mode       cavity.Mode
-	FMin, FMax float64 // Hz
-	Resonators []int
-	Companion  bool
-	InPassband bool
-	// Stopband is the first rejection band holding the mode, or -1.
-	Stopband int
-}
-
-// groupSpurious merges the spurious resonances of rz by mode, in the order
-// of their lowest frequency.
-func groupSpurious(rz *bandpass.Realisation) []SpuriousGroup {
-	var out []SpuriousGroup
-	index := map[cavity.Mode]int{}
-	for _, sp := range rz.Spurious {
-		i, ok := index[sp.Mode]
-		if !ok {
-			index[sp.Mode] = len(out)
-			out = append(out, SpuriousGroup{Mode: sp.Mode, FMin: sp.F, FMax: sp.F, Companion: sp.Companion, Stopband: -1})
-			i = len(out) - 1
-		}
-		g := &out[i]
-		g.FMin, g.FMax = math.Min(g.FMin, sp.F), math.Max(g.FMax, sp.F)
-		g.Resonators = append(g.Resonators, sp.Resonators...)
-		g.InPassband = g.InPassband || sp.InPassband
-		if g.Stopband < 0 {
-			g.Stopband = sp.Stopband
-		}
-	}
-	for i := range out {
-		slices.Sort(out[i].Resonators)
-		out[i].Resonators = slices.Compact(out[i].Resonators)
-	}
-	return out
-}
-
 // condenseWarnings returns the realisation's warnings with the per-cavity
 // spurious warnings merged into one line per mode.
 func condenseWarnings(rz *bandpass.Realisation) []string {
@@ -395,7 +354,7 @@ func condenseWarnings(rz *bandpass.Realisation) []string {
 		}
 	}
 	ff := func(f float64) string { return physics.FormatFrequency(f, 6) }
-	for _, g := range groupSpurious(rz) {
+	for _, g := range rz.SpuriousGroups() {
 		at := ff(g.FMin)
 		if g.FMax > g.FMin {
 			at = ff(g.FMin) + ".." + ff(g.FMax)
