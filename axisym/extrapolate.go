@@ -83,28 +83,59 @@ func Extrapolate(b Body, fam cavity.Family, fmax float64, modes int) ([]Extrapol
 	if err != nil {
 		return nil, err
 	}
+	models, err := threeModels(fmax, func(shift int, lim float64) ([]float64, error) {
+		c, err := doubled(counts, shift)
+		if err != nil {
+			return nil, err
+		}
+		f, _, err := resonancesWith(b, fam, lim, c, false)
+		return f, err
+	})
+	if err != nil {
+		return nil, err
+	}
+	return extrapolations(models, func(int) cavity.Family { return fam }), nil
+}
+
+// threeModels solves a body three times, with every section's mode count
+// shifted left by 0, 1 and 2 (N, 2N, 4N), the finest model up to fmax and
+// the coarser ones a little beyond, so that a resonance just below fmax has
+// its partners.
+func threeModels(fmax float64, solve func(shift int, lim float64) ([]float64, error)) ([3][]float64, error) {
 	var models [3][]float64
 	for i := range models {
-		c := make([]int, len(counts))
-		for j, n := range counts {
-			c[j] = n << i
-			if c[j] > MaxModes {
-				return nil, limitErrorf("axisym: section %d would need %d modes in the finest model, more than %d; lower the mode count", j+1, c[j], MaxModes)
-			}
-		}
-		// The finest model sets the list; the coarser ones search a little
-		// beyond so that a resonance just below fmax has its partners.
 		lim := fmax
 		if i < 2 {
 			lim *= 1 + estimateMargin
 		}
-		if models[i], _, err = resonancesWith(b, fam, lim, c, false); err != nil {
-			return nil, err
+		f, err := solve(i, lim)
+		if err != nil {
+			return models, err
+		}
+		models[i] = f
+	}
+	return models, nil
+}
+
+// doubled returns counts shifted left by shift, refusing a section that
+// would need more than MaxModes.
+func doubled(counts []int, shift int) ([]int, error) {
+	c := make([]int, len(counts))
+	for j, n := range counts {
+		c[j] = n << shift
+		if c[j] > MaxModes {
+			return nil, limitErrorf("axisym: section %d would need %d modes in the finest model, more than %d; lower the mode count", j+1, c[j], MaxModes)
 		}
 	}
+	return c, nil
+}
+
+// extrapolations lists the finest model's resonances, each extrapolated
+// from the three models where all three have it, with family fam(k).
+func extrapolations(models [3][]float64, fam func(k int) cavity.Family) []Extrapolation {
 	out := make([]Extrapolation, len(models[2]))
 	for k, f2 := range models[2] {
-		e := Extrapolation{Family: fam, Index: k + 1, Order: math.NaN(), Frequency: f2, Error: math.Inf(1)}
+		e := Extrapolation{Family: fam(k), Index: k + 1, Order: math.NaN(), Frequency: f2, Error: math.Inf(1)}
 		e.Models[2] = f2
 		if k < len(models[0]) && k < len(models[1]) {
 			e.Models[0], e.Models[1] = models[0][k], models[1][k]
@@ -112,7 +143,7 @@ func Extrapolate(b Body, fam cavity.Family, fmax float64, modes int) ([]Extrapol
 		}
 		out[k] = e
 	}
-	return out, nil
+	return out
 }
 
 // richardson fills Regular, Order, Frequency and Error from Models.

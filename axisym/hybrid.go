@@ -485,22 +485,19 @@ func ExtrapolateOrder(b Body, n int, fmax float64, modes int) ([]Extrapolation, 
 	if err != nil {
 		return nil, err
 	}
-	var models [3][]float64
-	for i := range models {
-		ct, cm := make([]int, len(te)), make([]int, len(tm))
-		for j := range te {
-			ct[j], cm[j] = te[j]<<i, tm[j]<<i
-			if ct[j] > MaxModes || cm[j] > MaxModes {
-				return nil, limitErrorf("axisym: section %d would need %d modes in the finest model, more than %d; lower the mode count", j+1, max(ct[j], cm[j]), MaxModes)
-			}
-		}
-		lim := fmax
-		if i < 2 {
-			lim *= 1 + estimateMargin
-		}
-		if models[i], err = hybridResonancesWith(b, n, lim, ct, cm); err != nil {
+	models, err := threeModels(fmax, func(shift int, lim float64) ([]float64, error) {
+		ct, err := doubled(te, shift)
+		if err != nil {
 			return nil, err
 		}
+		cm, err := doubled(tm, shift)
+		if err != nil {
+			return nil, err
+		}
+		return hybridResonancesWith(b, n, lim, ct, cm)
+	})
+	if err != nil {
+		return nil, err
 	}
 	top := 0.0
 	if k := len(models[2]); k > 0 {
@@ -510,15 +507,5 @@ func ExtrapolateOrder(b Body, n int, fmax float64, modes int) ([]Extrapolation, 
 	if err != nil {
 		return nil, err
 	}
-	out := make([]Extrapolation, len(models[2]))
-	for k, f2 := range models[2] {
-		e := Extrapolation{Family: origins[k].Family, Index: k + 1, Order: math.NaN(), Frequency: f2, Error: math.Inf(1)}
-		e.Models[2] = f2
-		if k < len(models[0]) && k < len(models[1]) {
-			e.Models[0], e.Models[1] = models[0][k], models[1][k]
-			e.richardson()
-		}
-		out[k] = e
-	}
-	return out, nil
+	return extrapolations(models, func(k int) cavity.Family { return origins[k].Family }), nil
 }
