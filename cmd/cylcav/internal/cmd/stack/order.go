@@ -3,7 +3,6 @@ package stack
 import (
 	"fmt"
 	"io"
-	"math"
 
 	"github.com/spf13/cobra"
 
@@ -80,14 +79,7 @@ func addOrderExtrapolation(opts *Options, res []axisym.Resonance, rows []Row) er
 		return err
 	}
 	for i, r := range res {
-		if r.Index > len(ex) || !ex[r.Index-1].Regular {
-			continue
-		}
-		e := ex[r.Index-1]
-		rows[i].FExtrapolatedHz, rows[i].ExtrapolationErrorHz = &e.Frequency, &e.Error
-		if !math.IsNaN(e.Order) {
-			rows[i].ExtrapolationOrder = &e.Order
-		}
+		setExtrapolation(&rows[i], r, ex)
 	}
 	return nil
 }

@@ -879,17 +879,22 @@ func addExtrapolation(opts *Options, res []axisym.Resonance, rows []Row) error {
 		byFam[fam] = ex
 	}
 	for i, r := range res {
-		ex := byFam[r.Family]
-		if r.Index > len(ex) || !ex[r.Index-1].Regular {
-			continue
-		}
-		e := ex[r.Index-1]
-		rows[i].FExtrapolatedHz, rows[i].ExtrapolationErrorHz = &e.Frequency, &e.Error
-		if !math.IsNaN(e.Order) {
-			rows[i].ExtrapolationOrder = &e.Order
-		}
+		setExtrapolation(&rows[i], r, byFam[r.Family])
 	}
 	return nil
+}
+
+// setExtrapolation fills row's extrapolation columns from the entry of ex
+// with r's index, when that extrapolation is regular.
+func setExtrapolation(row *Row, r axisym.Resonance, ex []axisym.Extrapolation) {
+	if r.Index > len(ex) || !ex[r.Index-1].Regular {
+		return
+	}
+	e := ex[r.Index-1]
+	row.FExtrapolatedHz, row.ExtrapolationErrorHz = &e.Frequency, &e.Error
+	if !math.IsNaN(e.Order) {
+		row.ExtrapolationOrder = &e.Order
+	}
 }
 
 // extrapDigits returns the significant digits of an extrapolated
